@@ -1,0 +1,36 @@
+import { defineConfig } from 'vitest/config';
+import react from '@vitejs/plugin-react';
+
+// Three projects: pure shared code, the API against a real PostgreSQL started by
+// tests/api/global-setup.ts, and React components in jsdom.
+export default defineConfig({
+  test: {
+    globals: true,
+    projects: [
+      {
+        test: { name: 'shared', globals: true, environment: 'node', include: ['tests/shared/**/*.test.ts'] },
+      },
+      {
+        test: {
+          name: 'api',
+          globals: true,
+          environment: 'node',
+          include: ['tests/api/**/*.test.ts'],
+          globalSetup: ['tests/api/global-setup.ts'],
+          testTimeout: 30_000,
+          hookTimeout: 60_000,
+        },
+      },
+      {
+        plugins: [react()],
+        test: {
+          name: 'web',
+          globals: true,
+          environment: 'jsdom',
+          include: ['tests/web/**/*.test.tsx', 'tests/web/**/*.test.ts'],
+          setupFiles: ['tests/web/setup.ts'],
+        },
+      },
+    ],
+  },
+});
