@@ -1,0 +1,218 @@
+import type { ArrayDelta, Delta, ObjectDelta } from 'jsondiffpatch';
+import { diffDocuments, type Matches } from './engine';
+import type { ListMatch } from './identity';
+import { isPlainObject, toPlain, type PlainObject } from './plain';
+import { summarise, type Draft, type Sides, type Subject, type SubjectType } from './sentences';
+import { SECTIONS, emptyCounts, type Change, type Section, type SetupDiff } from './types';
+import { withDefaults } from './with-defaults';
+
+const LIST_SUBJECTS: Record<string, SubjectType> = {
+  controls: 'control',
+  channels: 'channel',
+  mixes: 'mix',
+  receivers: 'receiver',
+};
+
+function sectionOf(key: string): Section {
+  return (SECTIONS as readonly string[]).includes(key) && key !== 'other' ? (key as Section) : 'other';
+}
+
+function isArrayDelta(delta: Delta): delta is ArrayDelta {
+  return isPlainObject(delta) && (delta as PlainObject)._t === 'a';
+}
+
+function isStructured(value: unknown): boolean {
+  return typeof value === 'object' && value !== null;
+}
+
+function at(value: unknown, key: string): unknown {
+  return isPlainObject(value) && Object.prototype.hasOwnProperty.call(value, key) ? value[key] : undefined;
+}
+
+class Walker {
+  readonly drafts: Draft[] = [];
+
+  constructor(private readonly matches: Matches) {}
+
+  root(delta: Delta, left: PlainObject, right: PlainObject): void {
+    if (!isPlainObject(delta) || isArrayDelta(delta)) return;
+    for (const key of Object.keys(delta)) {
+      const section = sectionOf(key);
+      const child = (delta as ObjectDelta)[key];
+      const match = this.matches.lists.get(key);
+      if (match && isArrayDelta(child)) {
+        this.list(child, left[key] as unknown[], right[key] as unknown[], key, match, {
+          type: LIST_SUBJECTS[key],
+          section,
+          name: key,
+          left: left[key],
+          right: right[key],
+        });
+        continue;
+      }
+      const subject: Subject = { type: 'section', section, name: key, left: left[key], right: right[key] };
+      this.value(child, left[key], right[key], key, subject, []);
+    }
+  }
+
+  private push(draft: Omit<Draft, 'section'>): void {
+    this.drafts.push({ ...draft, section: draft.subject.section });
+  }
+
+  private value(delta: Delta, left: unknown, right: unknown, path: string, subject: Subject, field: string[]): void {
+    if (delta === undefined) return;
+    if (Array.isArray(delta)) {
+      if (delta.length === 1) {
+        this.push({ kind: isStructured(delta[0]) ? 'added' : 'changed', path, before: null, after: delta[0], subject, field });
+      } else if (delta.length === 2) {
+        this.push({ kind: 'changed', path, before: delta[0], after: delta[1], subject, field });
+      } else if (delta[2] === 0) {
+        this.push({ kind: isStructured(delta[0]) ? 'removed' : 'changed', path, before: delta[0], after: null, subject, field });
+      }
+      return;
+    }
+    if (isArrayDelta(delta)) {
+      const map = subject.type === 'receiver' && field.length === 1 && field[0] === 'map' ? this.mapMatch(subject) : undefined;
+      if (map && Array.isArray(left) && Array.isArray(right)) {
+        this.list(delta, left, right, path, map, subject, subject);
+      } else {
+        // Lists without identity keys (rates weights, active positions, unknown lists)
+        // are one value each: "rates weights 100/65 -> 100/70 %" reads better than
+        // a change per index.
+        this.push({ kind: 'changed', path, before: left ?? null, after: right ?? null, subject, field });
+      }
+      return;
+    }
+    for (const key of Object.keys(delta)) {
+      this.value((delta as ObjectDelta)[key], at(left, key), at(right, key), `${path}.${key}`, subject, [...field, key]);
+    }
+  }
+
+  private mapMatch(receiver: Subject): ListMatch | undefined {
+    return receiver.index === undefined ? undefined : this.matches.maps.get(receiver.index);
+  }
+
+  // `owner` is the list's subject: the section for top-level lists, the receiver for a
+  // pin map. Entries are reported in the new list's order, removed ones after them,
+  // and one `moved` change per list when the order of the kept entries changed.
+  private list(
+    delta: ArrayDelta,
+    left: unknown[],
+    right: unknown[],
+    path: string,
+    match: ListMatch,
+    owner: Subject,
+    receiver?: Subject,
+  ): void {
+    const type: SubjectType = receiver ? 'pin' : owner.type;
+    const section = owner.section;
+    const entrySubject = (l: unknown, r: unknown, index?: number): Subject => ({
+      type,
+      section,
+      name: owner.name,
+      left: l,
+      right: r,
+      receiver,
+      index,
+    });
+    const movedFrom: number[] = [];
+    const removed: number[] = [];
+    const updated: number[] = [];
+    for (const key of Object.keys(delta)) {
+      if (key === '_t') continue;
+      const item = (delta as unknown as Record<string, Delta>)[key];
+      if (key.startsWith('_')) {
+        const index = Number(key.slice(1));
+        if (Array.isArray(item) && item[2] === 3) movedFrom.push(index);
+        else if (Array.isArray(item) && item[2] === 0) removed.push(index);
+      } else {
+        updated.push(Number(key));
+      }
+    }
+    for (const j of updated.sort((a, b) => a - b)) {
+      const item = (delta as unknown as Record<string, Delta>)[String(j)];
+      const entryPath = `${path}${match.rightSegments[j]}`;
+      if (Array.isArray(item) && item.length === 1) {
+        this.push({ kind: 'added', path: entryPath, before: null, after: item[0], subject: entrySubject(null, item[0]), field: [] });
+        continue;
+      }
+      const i = match.rightToLeft.get(j);
+      const l = i === undefined ? undefined : left[i];
+      if (Array.isArray(item)) {
+        this.value(item, l, right[j], entryPath, entrySubject(l, right[j]), []);
+        continue;
+      }
+      const subject = entrySubject(l, right[j], j);
+      const nested = { ...(item as ObjectDelta) };
+      if (match.renamed.has(j) && i !== undefined) {
+        this.push({
+          kind: 'renamed',
+          path: `${path}${match.leftSegments[i]}`,
+          before: at(l, match.key),
+          after: at(right[j], match.key),
+          subject,
+          field: [],
+        });
+        delete nested[match.key];
+      }
+      this.value(nested, l, right[j], entryPath, subject, []);
+    }
+    for (const i of removed.sort((a, b) => a - b)) {
+      this.push({
+        kind: 'removed',
+        path: `${path}${match.leftSegments[i]}`,
+        before: left[i],
+        after: null,
+        subject: entrySubject(left[i], null),
+        field: [],
+      });
+    }
+    if (movedFrom.length > 0) {
+      this.push({
+        kind: 'moved',
+        path,
+        before: match.leftLabels,
+        after: match.rightLabels,
+        subject: owner,
+        field: [],
+        moved: movedFrom.sort((a, b) => a - b).map((i) => match.leftLabels[i]),
+      });
+    }
+  }
+}
+
+/**
+ * The semantic diff of two setup documents (plain data, schema-valid or not; never
+ * throws). Lists are matched by the identity keys of FORMAT.md. Each change has a
+ * semantic path, the values before and after (null for "none") and a sentence.
+ * A reordered list gives one `moved` change for the list (not one per entry): order
+ * has no effect on outputs, so one line saying which entries moved is enough.
+ * Defaults are applied before comparing (see withDefaults).
+ */
+export function diffSetups(before: unknown, after: unknown): SetupDiff {
+  const left = withDefaults(toPlain(before));
+  const right = withDefaults(toPlain(after));
+  const { delta, matches } = diffDocuments(left, right);
+  const walker = new Walker(matches);
+  walker.root(delta, left, right);
+  const sides: Sides = { left, right };
+  const order = (section: Section) => SECTIONS.indexOf(section);
+  const changes: Change[] = walker.drafts
+    .map((draft, index) => ({ draft, index }))
+    .sort((a, b) => order(a.draft.section) - order(b.draft.section) || a.index - b.index)
+    .map(({ draft }) => ({
+      kind: draft.kind,
+      section: draft.section,
+      path: draft.path,
+      before: draft.before ?? null,
+      after: draft.after ?? null,
+      summary: summarise(draft, sides),
+    }));
+  const counts = emptyCounts();
+  const sections = Object.fromEntries(SECTIONS.map((section) => [section, emptyCounts()])) as SetupDiff['sections'];
+  for (const change of changes) {
+    counts[change.kind] += 1;
+    sections[change.section][change.kind] += 1;
+  }
+  return { changes, counts, sections };
+}

@@ -1,0 +1,144 @@
+import { deepEqual, isPlainObject, withoutKey } from './plain';
+
+// The identity keys of FORMAT.md: list entries are matched between revisions by
+// these, never by their position in the list.
+export const LIST_KEYS: Readonly<Record<string, string>> = {
+  controls: 'id',
+  channels: 'ch',
+  mixes: 'id',
+  receivers: 'id',
+};
+export const MAP_KEY = 'pin';
+
+// Two channel-plan entries on one `ch` are an error (channel-shared) but happen while
+// editing; among such duplicates the function tells which is which.
+const SECONDARY_KEYS: Readonly<Record<string, string>> = { ch: 'function' };
+
+export function identityValue(item: unknown, key: string): string | undefined {
+  if (!isPlainObject(item)) return undefined;
+  const value = item[key];
+  if (typeof value === 'string' || typeof value === 'number' || typeof value === 'boolean') return String(value);
+  return undefined;
+}
+
+export interface ListMatch {
+  key: string;
+  /** Path segment of each entry, e.g. `[id=wing]`, `[ch=8#2]` for a duplicate key, `[3]` without a key. */
+  leftSegments: string[];
+  rightSegments: string[];
+  /** Short names of the entries for sentences: the key value, or `#n` without one. */
+  leftLabels: string[];
+  rightLabels: string[];
+  rightToLeft: Map<number, number>;
+  /** Right indexes of entries paired with a left entry whose key differs but whose other content is equal. */
+  renamed: Set<number>;
+}
+
+function segments(items: readonly unknown[], key: string): { segments: string[]; labels: string[] } {
+  const values = items.map((item) => identityValue(item, key));
+  const total = new Map<string, number>();
+  for (const value of values) if (value !== undefined) total.set(value, (total.get(value) ?? 0) + 1);
+  const seen = new Map<string, number>();
+  const result: string[] = [];
+  const labels: string[] = [];
+  values.forEach((value, index) => {
+    if (value === undefined) {
+      result.push(`[${index}]`);
+      labels.push(`#${index + 1}`);
+      return;
+    }
+    const occurrence = (seen.get(value) ?? 0) + 1;
+    seen.set(value, occurrence);
+    const suffix = (total.get(value) ?? 0) > 1 ? `#${occurrence}` : '';
+    result.push(`[${key}=${value}${suffix}]`);
+    labels.push(`${value}${suffix}`);
+  });
+  return { segments: result, labels };
+}
+
+// Pairs the entries of one list on both sides and gives every paired object one
+// token, which jsondiffpatch's objectHash then reads; unpaired objects get a token of
+// their own. Pairing order: same key and same content, same key and same secondary
+// key, same key in order of appearance, then renames (different key, same content),
+// and last entries without a usable key that are equal.
+export function matchList(
+  left: readonly unknown[],
+  right: readonly unknown[],
+  key: string,
+  tokens: WeakMap<object, string>,
+  prefix: string,
+): ListMatch {
+  const leftKeys = left.map((item) => identityValue(item, key));
+  const rightKeys = right.map((item) => identityValue(item, key));
+  const leftFree = new Set(left.map((_, index) => index).filter((index) => isPlainObject(left[index])));
+  const rightFree = new Set(right.map((_, index) => index).filter((index) => isPlainObject(right[index])));
+  const rightToLeft = new Map<number, number>();
+  const renamed = new Set<number>();
+
+  const pair = (i: number, j: number): void => {
+    rightToLeft.set(j, i);
+    leftFree.delete(i);
+    rightFree.delete(j);
+  };
+  // Candidates on the left for a right entry: those with the same key (looked up, so a
+  // 300-mix stress setup stays fast), or every free one for the key-less passes.
+  const leftByKey = new Map<string, number[]>();
+  leftKeys.forEach((value, index) => {
+    if (value !== undefined && leftFree.has(index)) leftByKey.set(value, [...(leftByKey.get(value) ?? []), index]);
+  });
+  const pairWhere = (candidates: (j: number) => Iterable<number>, accept: (i: number, j: number) => boolean, rename = false): void => {
+    for (const j of [...rightFree]) {
+      for (const i of candidates(j)) {
+        if (leftFree.has(i) && accept(i, j)) {
+          pair(i, j);
+          if (rename) renamed.add(j);
+          break;
+        }
+      }
+    }
+  };
+  const sameKey = (j: number): number[] => {
+    const value = rightKeys[j];
+    return value === undefined ? [] : (leftByKey.get(value) ?? []);
+  };
+  const anyFree = (): Iterable<number> => [...leftFree];
+  const secondary = SECONDARY_KEYS[key];
+
+  pairWhere(sameKey, (i, j) => deepEqual(left[i], right[j]));
+  if (secondary) {
+    pairWhere(sameKey, (i, j) => {
+      const a = identityValue(left[i], secondary);
+      return a !== undefined && a === identityValue(right[j], secondary);
+    });
+  }
+  pairWhere(sameKey, () => true);
+  pairWhere(
+    anyFree,
+    (i, j) =>
+      leftKeys[i] !== undefined &&
+      rightKeys[j] !== undefined &&
+      deepEqual(withoutKey(left[i] as Record<string, unknown>, key), withoutKey(right[j] as Record<string, unknown>, key)),
+    true,
+  );
+  pairWhere(anyFree, (i, j) => leftKeys[i] === undefined && rightKeys[j] === undefined && deepEqual(left[i], right[j]));
+
+  for (const [j, i] of rightToLeft) {
+    const token = `${prefix}=${i}:${j}`;
+    tokens.set(left[i] as object, token);
+    tokens.set(right[j] as object, token);
+  }
+  for (const i of leftFree) tokens.set(left[i] as object, `${prefix}<${i}`);
+  for (const j of rightFree) tokens.set(right[j] as object, `${prefix}>${j}`);
+
+  const leftNames = segments(left, key);
+  const rightNames = segments(right, key);
+  return {
+    key,
+    leftSegments: leftNames.segments,
+    rightSegments: rightNames.segments,
+    leftLabels: leftNames.labels,
+    rightLabels: rightNames.labels,
+    rightToLeft,
+    renamed,
+  };
+}
