@@ -1,0 +1,59 @@
+import type { Finding, Severity } from '../findings';
+import type { Setup } from '../format/schema';
+import type { ParsedText } from '../parse/parse-yaml';
+import { dataPathSteps, parseSemanticPath } from '../parse/semantic-path';
+import { locate } from '../parse/source-position';
+import type { Check, CheckResult, DataCheck, ReadCheck } from './check';
+import { buildContext } from './context';
+import { schema, validateSetup } from './schema';
+import { syntax } from './syntax';
+import { unknownKey } from './unknown-key';
+
+/** The semantic checks, run on schema-valid setups, in FORMAT.md's catalogue order. */
+export const SETUP_CHECKS: readonly Check[] = [];
+
+/** Every check in the catalogue, for documentation and the client. */
+export const CATALOGUE: readonly (ReadCheck | DataCheck | Check)[] = [syntax, schema, unknownKey, ...SETUP_CHECKS];
+
+export interface CheckRun {
+  setup: Setup | null;
+  findings: Finding[];
+}
+
+function toFinding(parsed: ParsedText, rule: string, severity: Severity, result: CheckResult): Finding {
+  const steps = result.at ? dataPathSteps(result.at) : parseSemanticPath(result.path);
+  const { line, column } = parsed.document ? locate(parsed.document, parsed.lineCounter, steps) : { line: 1, column: 1 };
+  return { rule, severity, message: result.message, hint: result.hint, path: result.path, line, column };
+}
+
+function byPosition(a: Finding, b: Finding): number {
+  return a.line - b.line || a.column - b.column;
+}
+
+/** Runs the whole catalogue on parsed text: syntax, then schema and unknown keys, then the semantic checks. */
+export function runChecks(parsed: ParsedText): CheckRun {
+  if (!parsed.readable) {
+    const findings = parsed.problems.map((problem) => ({
+      rule: syntax.id,
+      severity: syntax.severity,
+      message: problem.message,
+      hint: problem.hint,
+      path: '',
+      line: problem.line,
+      column: problem.column,
+    }));
+    return { setup: null, findings: findings.sort(byPosition) };
+  }
+
+  const findings: Finding[] = [];
+  const { setup, results } = validateSetup(parsed.data);
+  for (const result of results) findings.push(toFinding(parsed, schema.id, schema.severity, result));
+  for (const result of unknownKey.check(parsed.data)) findings.push(toFinding(parsed, unknownKey.id, unknownKey.severity, result));
+  if (setup) {
+    const ctx = buildContext(setup);
+    for (const check of SETUP_CHECKS) {
+      for (const result of check.check(setup, ctx)) findings.push(toFinding(parsed, check.id, check.severity, result));
+    }
+  }
+  return { setup, findings: findings.sort(byPosition) };
+}

@@ -1,0 +1,193 @@
+import { isAlias, isCollection, isMap, isPair, isScalar, LineCounter, parseDocument, type Document, type YAMLError } from 'yaml';
+import { MAX_ALIAS_COUNT, MAX_NESTING_DEPTH, MAX_TEXT_BYTES } from './limits';
+import { findDeepNesting } from './nesting-depth';
+import { utf8Length } from './utf8-length';
+
+/** A reason the text could not be read as a setup at all (reported as `syntax`). */
+export interface TextProblem {
+  message: string;
+  hint: string;
+  line: number;
+  column: number;
+}
+
+export interface ParsedText {
+  /** False when the text is not YAML we accept or its root is not a mapping. */
+  readable: boolean;
+  /** The plain value of the document, unknown keys included; null when unreadable. */
+  data: unknown | null;
+  document: Document.Parsed | null;
+  lineCounter: LineCounter;
+  problems: TextProblem[];
+}
+
+function unreadable(lineCounter: LineCounter, problems: TextProblem[], document: Document.Parsed | null = null): ParsedText {
+  return { readable: false, data: null, document, lineCounter, problems };
+}
+
+function firstLine(message: string): string {
+  return message.split('\n')[0].replace(/ at line \d+, column \d+:?$/, '');
+}
+
+function describeYamlError(error: YAMLError, text: string): Pick<TextProblem, 'message' | 'hint'> {
+  if (error.code === 'DUPLICATE_KEY') {
+    const key = text.slice(error.pos[0], error.pos[1]).trim();
+    const named = key && key.length <= 60 ? `The key "${key}"` : 'A key';
+    return {
+      message: `${named} appears twice in the same mapping; YAML keys must be unique, so the document is ambiguous.`,
+      hint: 'Remove one of the two entries or merge them into one.',
+    };
+  }
+  if (error.code === 'TAB_AS_INDENT') {
+    return { message: 'A tab is used for indentation; YAML allows only spaces there.', hint: 'Indent with spaces.' };
+  }
+  return {
+    message: `The text is not valid YAML: ${firstLine(error.message)}.`.replace(/\.\.$/, '.'),
+    hint: 'Fix the YAML near this position; check indentation, colons and brackets.',
+  };
+}
+
+/** Deepest nesting of collections in the composed tree, walked without recursion. */
+function treeDepthExceeds(document: Document.Parsed, limit: number): number | null {
+  const stack: { node: unknown; depth: number }[] = [{ node: document.contents, depth: 0 }];
+  while (stack.length > 0) {
+    const { node, depth } = stack.pop()!;
+    if (isCollection(node)) {
+      const inner = depth + 1;
+      if (inner > limit) return node.range ? node.range[0] : 0;
+      for (const item of node.items) {
+        if (isPair(item)) {
+          stack.push({ node: item.key, depth: inner });
+          stack.push({ node: item.value, depth: inner });
+        } else stack.push({ node: item, depth: inner });
+      }
+    }
+  }
+  return null;
+}
+
+function describeRoot(contents: unknown): string {
+  if (contents === null || contents === undefined) return 'it is empty';
+  if (isScalar(contents) && (contents.value === null || contents.value === undefined)) return 'it is empty';
+  if (isAlias(contents)) return 'it is an alias';
+  if (isCollection(contents)) return 'it is a list';
+  return 'it is a single value';
+}
+
+/** Parses setup text into a document with positions, never throwing. */
+export function parseYaml(text: string): ParsedText {
+  const lineCounter = new LineCounter();
+  const at = (offset: number) => {
+    const { line, col } = lineCounter.linePos(offset);
+    return { line, column: col };
+  };
+
+  const bytes = utf8Length(text);
+  if (bytes > MAX_TEXT_BYTES) {
+    return unreadable(lineCounter, [
+      {
+        message: `The text is ${Math.ceil(bytes / 1024)} KB; setups larger than ${MAX_TEXT_BYTES / 1024} KB are not read.`,
+        hint: 'A setup is normally a few kilobytes: check that this is the right file.',
+        line: 1,
+        column: 1,
+      },
+    ]);
+  }
+
+  try {
+    const deep = findDeepNesting(text, MAX_NESTING_DEPTH);
+    if (deep) {
+      // The lexer has not filled the line counter; count the lines up to the offset.
+      const before = text.slice(0, deep.offset);
+      const line = before.split('\n').length;
+      const column = deep.offset - before.lastIndexOf('\n');
+      return unreadable(lineCounter, [
+        {
+          message: `The document nests more than ${MAX_NESTING_DEPTH} levels deep; setups are not read past that depth.`,
+          hint: 'A setup nests only a few levels: check for runaway brackets or dashes.',
+          line,
+          column,
+        },
+      ]);
+    }
+
+    const document = parseDocument(text, {
+      lineCounter,
+      uniqueKeys: true,
+      prettyErrors: true,
+      // Keeps the value plain JSON: YAML 1.1 extras such as !!binary stay strings.
+      resolveKnownTags: false,
+    });
+    if (document.errors.length > 0) {
+      return unreadable(
+        lineCounter,
+        document.errors.map((error) => ({ ...describeYamlError(error, text), ...at(error.pos[0]) })),
+        document,
+      );
+    }
+
+    const deepAt = treeDepthExceeds(document, MAX_NESTING_DEPTH);
+    if (deepAt !== null) {
+      return unreadable(
+        lineCounter,
+        [
+          {
+            message: `The document nests more than ${MAX_NESTING_DEPTH} levels deep; setups are not read past that depth.`,
+            hint: 'A setup nests only a few levels: check the indentation.',
+            ...at(deepAt),
+          },
+        ],
+        document,
+      );
+    }
+
+    if (!isMap(document.contents)) {
+      const contents = document.contents as unknown;
+      const start = contents && isCollection(contents) && contents.range ? contents.range[0] : 0;
+      return unreadable(
+        lineCounter,
+        [
+          {
+            message: `A setup must be a mapping of keys such as format, model and channels, but ${describeRoot(contents)}.`,
+            hint: 'Start the document with "format: bindery-setup/1" and the other top-level keys.',
+            ...at(start),
+          },
+        ],
+        document,
+      );
+    }
+
+    let data: unknown;
+    try {
+      data = document.toJS({ maxAliasCount: MAX_ALIAS_COUNT });
+    } catch (error) {
+      const aliasBomb = /excessive alias/i.test(String((error as Error)?.message));
+      return unreadable(
+        lineCounter,
+        [
+          {
+            message: aliasBomb
+              ? `The document's aliases expand to too many copies (more than ${MAX_ALIAS_COUNT}); it is not read.`
+              : `The document could not be read: ${firstLine(String((error as Error)?.message ?? error))}.`,
+            hint: aliasBomb ? 'Write the values out instead of repeating aliases.' : 'Check the YAML near the start of the document.',
+            line: 1,
+            column: 1,
+          },
+        ],
+        document,
+      );
+    }
+    return { readable: true, data, document, lineCounter, problems: [] };
+  } catch (error) {
+    // The yaml package reports problems as errors on the document; anything thrown is
+    // an input it could not cope with (e.g. a stack overflow), still a syntax finding.
+    return unreadable(lineCounter, [
+      {
+        message: `The document could not be read: ${firstLine(String((error as Error)?.message ?? error))}.`,
+        hint: 'Check that the text is a YAML setup document.',
+        line: 1,
+        column: 1,
+      },
+    ]);
+  }
+}
