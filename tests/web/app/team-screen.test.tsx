@@ -1,0 +1,63 @@
+import { screen, within } from '@testing-library/react';
+import { apiError, demoUser, fakeServer, sessionRoutes } from '../fake-server';
+import { renderApp } from '../render-app';
+
+const members = [
+  { user: demoUser, role: 'owner' },
+  { user: { id: 12, email: 'juno@hollowfield.example', name: 'Juno Marsh' }, role: 'reviewer' },
+];
+
+describe('Team', () => {
+  it('lists the workspace’s members with their roles', async () => {
+    const server = fakeServer({
+      ...sessionRoutes({ signedIn: true }).routes,
+      'GET /api/workspaces/7/members': () => ({ body: { data: members, pagination: { total: 2 } } }),
+    });
+    renderApp('/w/7/team');
+
+    const table = await screen.findByRole('table', { name: 'Members of this workspace' });
+    const rows = within(table).getAllByRole('row').slice(1);
+    expect(rows.map((row) => within(row).getAllByRole('cell').map((cell) => cell.textContent))).toEqual([
+      ['Wren Calloway(you)', 'wren@hollowfield.example', 'Owner'],
+      ['Juno Marsh', 'juno@hollowfield.example', 'Reviewer'],
+    ]);
+    expect(server.called('GET', '/api/workspaces/7/members')[0].credentials).toBe('same-origin');
+    expect(document.title).toBe('Team · Hollowfield Aero Club · Bindery');
+  });
+
+  it('says when the workspace has no members to show', async () => {
+    fakeServer({
+      ...sessionRoutes({ signedIn: true }).routes,
+      'GET /api/workspaces/7/members': () => ({ body: { data: [] } }),
+    });
+    renderApp('/w/7/team');
+
+    expect(await screen.findByRole('heading', { name: 'No members yet' })).toBeInTheDocument();
+  });
+
+  it('shows the server’s error when the list cannot be loaded', async () => {
+    fakeServer({
+      ...sessionRoutes({ signedIn: true }).routes,
+      'GET /api/workspaces/7/members': () => apiError(403, 'forbidden', 'Your role in this workspace does not allow that.'),
+    });
+    renderApp('/w/7/team');
+
+    const alert = await screen.findByRole('alert');
+    expect(alert).toHaveTextContent('The member list could not be loaded');
+    expect(alert).toHaveTextContent('Your role in this workspace does not allow that.');
+  });
+
+  it('shows a loading state while the list is on its way', async () => {
+    let answer: (value: { body: unknown }) => void = () => {};
+    fakeServer({
+      ...sessionRoutes({ signedIn: true }).routes,
+      'GET /api/workspaces/7/members': () => new Promise((resolve) => (answer = resolve)),
+    });
+    renderApp('/w/7/team');
+
+    expect(await screen.findByText('Loading members…')).toBeInTheDocument();
+    answer({ body: { data: members } });
+    expect(await screen.findByText('Juno Marsh')).toBeInTheDocument();
+    expect(screen.queryByText('Loading members…')).not.toBeInTheDocument();
+  });
+});

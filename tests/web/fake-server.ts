@@ -1,0 +1,92 @@
+import { vi } from 'vitest';
+
+// A small stand-in for the API at the network boundary: the real api client and the
+// real components run, and `fetch` answers as the server would, JSON envelopes and
+// status codes included. Each test states the routes it needs.
+
+export interface FakeRequest {
+  method: string;
+  path: string;
+  url: URL;
+  body: unknown;
+  credentials: RequestCredentials | undefined;
+  headers: Headers;
+}
+
+export interface FakeAnswer {
+  status?: number;
+  body?: unknown;
+}
+
+export type FakeHandler = (request: FakeRequest) => FakeAnswer | Promise<FakeAnswer>;
+
+export function fakeServer(routes: Record<string, FakeHandler>) {
+  const requests: FakeRequest[] = [];
+
+  const fetch = vi.fn(async (input: RequestInfo | URL, init: RequestInit = {}) => {
+    const url = new URL(typeof input === 'string' ? input : input instanceof URL ? input.href : input.url, 'http://bindery.test');
+    const method = (init.method ?? 'GET').toUpperCase();
+    const text = typeof init.body === 'string' ? init.body : undefined;
+    const request: FakeRequest = {
+      method,
+      path: url.pathname,
+      url,
+      body: text === undefined ? undefined : JSON.parse(text),
+      credentials: init.credentials,
+      headers: new Headers(init.headers),
+    };
+    requests.push(request);
+
+    const handler = routes[`${method} ${url.pathname}`];
+    const answer: FakeAnswer = handler
+      ? await handler(request)
+      : { status: 404, body: { error: { code: 'not-found', message: `No route ${method} ${url.pathname}`, details: null } } };
+    const status = answer.status ?? 200;
+    return new Response(answer.body === undefined ? null : JSON.stringify(answer.body), {
+      status,
+      headers: answer.body === undefined ? {} : { 'Content-Type': 'application/json; charset=utf-8' },
+    });
+  });
+
+  vi.stubGlobal('fetch', fetch);
+  return { requests, fetch, called: (method: string, path: string) => requests.filter((r) => r.method === method && r.path === path) };
+}
+
+export const apiError = (status: number, code: string, message: string, details: unknown = null): FakeAnswer => ({
+  status,
+  body: { error: { code, message, details } },
+});
+
+export const demoUser = { id: 11, email: 'wren@hollowfield.example', name: 'Wren Calloway' };
+
+export const demoWorkspaces = [
+  { id: 7, name: 'Hollowfield Aero Club', role: 'owner' },
+  { id: 9, name: 'Tuesday Night Builders', role: 'reviewer' },
+];
+
+/**
+ * The session part of the API with a cookie jar of one: signed out until a sign-in
+ * with the right password (or a sign-up), signed out again by sign-out.
+ */
+export function sessionRoutes(options: { signedIn?: boolean; password?: string; workspaces?: unknown[] } = {}) {
+  const state = { signedIn: options.signedIn ?? false };
+  const password = options.password ?? 'bindery-demo-1';
+  const workspaces = options.workspaces ?? demoWorkspaces;
+  const routes: Record<string, FakeHandler> = {
+    'GET /api/me': () =>
+      state.signedIn ? { body: { data: { user: demoUser, workspaces } } } : apiError(401, 'unauthenticated', 'Sign in first.'),
+    'POST /api/auth/sign-in': (request) => {
+      const body = request.body as { email?: string; password?: string };
+      if (body.email !== demoUser.email || body.password !== password) {
+        return apiError(401, 'wrong-credentials', 'That e-mail and password do not match an account.');
+      }
+      state.signedIn = true;
+      return { body: { data: { user: demoUser, token: 'header.payload.signature' } } };
+    },
+    'POST /api/auth/sign-out': () => {
+      state.signedIn = false;
+      return { status: 204 };
+    },
+  };
+  return { state, routes };
+}

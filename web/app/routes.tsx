@@ -1,0 +1,99 @@
+import { Suspense } from 'react';
+import { Navigate, Outlet, type RouteObject } from 'react-router-dom';
+import { AppFrame, type FrameLink } from '../components/layouts/app-frame';
+import { ModelFrame } from '../components/layouts/model-frame';
+import { LoadingState } from '../components/ui/loading-state';
+import { WorkspaceScope } from '../features/workspaces/components/workspace-scope';
+import { lazyScreen } from './lazy-screen';
+import { RouteErrorScreen } from './routes/route-error';
+
+// The route table: every screen of the app, in one place. A feature's screen replaces
+// its `planned(...)` entry with `lazyScreen(() => import('../features/<feature>/...'), 'XScreen')`;
+// the navigation is drawn from these same lists.
+
+const SignInScreen = lazyScreen(() => import('./routes/auth/sign-in'), 'SignInScreen');
+const CreateAccountScreen = lazyScreen(() => import('./routes/auth/create-account'), 'CreateAccountScreen');
+const ResetPasswordScreen = lazyScreen(() => import('./routes/auth/reset-password'), 'ResetPasswordScreen');
+const HomeScreen = lazyScreen(() => import('./routes/home'), 'HomeScreen');
+const NotFoundScreen = lazyScreen(() => import('./routes/not-found'), 'NotFoundScreen');
+const PlannedScreen = lazyScreen(() => import('./routes/planned-screen'), 'PlannedScreen');
+const TeamScreen = lazyScreen(() => import('../features/team/components/team-screen'), 'TeamScreen');
+
+interface Screen extends FrameLink {
+  element: React.ReactElement;
+}
+
+function planned(path: string, label: string, description: string): Screen {
+  return { path, label, element: <PlannedScreen title={label} description={description} /> };
+}
+
+/** Screens of one workspace, under `/w/:wsId/`. */
+export const workspaceScreens: Screen[] = [
+  planned('hangar', 'Hangar', "The workspace's models, each with the state of its checks and its review."),
+  planned('shelf', 'Shelf', "The workspace's receivers: their labels and marks, last known settings and where each has flown."),
+  planned('reviews', 'Reviews', 'Review requests waiting for a verdict, and the verdicts given on this workspace’s revisions.'),
+  { path: 'team', label: 'Team', element: <TeamScreen /> },
+];
+
+/** Screens of one model, under `/models/:modelId/`. */
+export const modelScreens: Screen[] = [
+  planned('overview', 'Overview', 'The channel plan against receivers and pins with conflicts marked, the findings and the cautions.'),
+  planned('edit', 'Edit', 'The setup as YAML with live check marks, and forms for the channel plan, pin maps, failsafes and mixes.'),
+  planned('bench', 'Bench', 'Sticks, knobs and switches to set; each channel’s value, each pin’s pulse and failsafe, and the curve of every mix.'),
+  planned('history', 'History', 'Every revision of this model, newest first, with author, message, tags and check summary.'),
+  planned('compare', 'Compare', 'Two revisions side by side: changes by section, the check and bench deltas, and the YAML text.'),
+  planned('reviews', 'Reviews', 'This model’s review requests, the pre-maiden checklist and the verdicts.'),
+  planned('sheet', 'Field sheet', 'A printable sheet of a revision: channel plan, each receiver’s pin table, review state and cautions.'),
+];
+
+/** Tools for development, outside any workspace. */
+export const devScreens: Screen[] = [
+  planned('/outbox', 'Outbox', 'The mail the local mail server caught: invitations, password resets, review requests and verdicts.'),
+];
+
+const frameLinks = (screens: Screen[]): FrameLink[] => screens.map(({ path, label }) => ({ path, label }));
+
+function Root() {
+  return (
+    <Suspense fallback={<LoadingState />}>
+      <Outlet />
+    </Suspense>
+  );
+}
+
+export const routes: RouteObject[] = [
+  {
+    path: '/',
+    element: <Root />,
+    errorElement: <RouteErrorScreen />,
+    children: [
+      { path: 'sign-in', element: <SignInScreen /> },
+      { path: 'create-account', element: <CreateAccountScreen /> },
+      { path: 'reset-password', element: <ResetPasswordScreen /> },
+      {
+        element: <AppFrame workspaceLinks={frameLinks(workspaceScreens)} devLinks={frameLinks(devScreens)} />,
+        children: [
+          { index: true, element: <HomeScreen /> },
+          {
+            path: 'w/:wsId',
+            element: <WorkspaceScope />,
+            children: [
+              { index: true, element: <Navigate to="hangar" replace /> },
+              ...workspaceScreens.map(({ path, element }) => ({ path, element })),
+            ],
+          },
+          {
+            path: 'models/:modelId',
+            element: <ModelFrame links={frameLinks(modelScreens)} />,
+            children: [
+              { index: true, element: <Navigate to="overview" replace /> },
+              ...modelScreens.map(({ path, element }) => ({ path, element })),
+            ],
+          },
+          ...devScreens.map(({ path, element }) => ({ path, element })),
+        ],
+      },
+      { path: '*', element: <NotFoundScreen /> },
+    ],
+  },
+];

@@ -1,0 +1,25 @@
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { useNavigate } from 'react-router-dom';
+import { api, isUnauthorized } from '../../../lib/api-client';
+
+export async function signOut(): Promise<void> {
+  try {
+    await api.post<unknown>('/api/auth/sign-out');
+  } catch (error) {
+    // A session that already expired is as signed out as it gets.
+    if (!isUnauthorized(error)) throw error;
+  }
+}
+
+/** Signs out, leaves for the sign-in page and forgets everything cached for this user. */
+export function useSignOut() {
+  const queryClient = useQueryClient();
+  const navigate = useNavigate();
+  return useMutation({
+    mutationFn: signOut,
+    onSuccess: async () => {
+      await navigate('/sign-in', { replace: true });
+      queryClient.clear();
+    },
+  });
+}

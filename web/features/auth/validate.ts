@@ -1,0 +1,31 @@
+import type { FieldErrors } from '../../lib/api-client';
+
+// The same rules the server applies, checked first here so a slip is shown at once;
+// the server's answer still decides and its messages are shown the same way.
+export const PASSWORD_MIN_LENGTH = 10;
+
+const EMAIL_SHAPE = /^[^\s@]+@[^\s@]+\.[^\s@]+$/;
+
+export function validateEmail(email: string): string | null {
+  if (!email.trim()) return 'Enter your e-mail address.';
+  if (!EMAIL_SHAPE.test(email.trim())) return 'Enter an e-mail address like name@example.org.';
+  return null;
+}
+
+export function validateSignIn(input: { email: string; password: string }): FieldErrors {
+  const errors: FieldErrors = {};
+  if (!input.email.trim()) errors.email = 'Enter your e-mail address.';
+  if (!input.password) errors.password = 'Enter your password.';
+  return errors;
+}
+
+export function validateSignUp(input: { email: string; name: string; password: string }): FieldErrors {
+  const errors: FieldErrors = {};
+  const email = validateEmail(input.email);
+  if (email) errors.email = email;
+  if (!input.name.trim()) errors.name = 'Enter the name your club mates know you by.';
+  if (input.password.length < PASSWORD_MIN_LENGTH) {
+    errors.password = `Use at least ${PASSWORD_MIN_LENGTH} characters.`;
+  }
+  return errors;
+}

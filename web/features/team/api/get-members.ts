@@ -1,0 +1,18 @@
+import { queryOptions, useQuery } from '@tanstack/react-query';
+import { api } from '../../../lib/api-client';
+import type { Id, Member } from '../../../types/api';
+
+export async function getMembers(workspaceId: Id, signal?: AbortSignal): Promise<Member[]> {
+  return (await api.get<Member[]>(`/api/workspaces/${encodeURIComponent(String(workspaceId))}/members`, signal)).data;
+}
+
+export function membersQueryOptions(workspaceId: Id) {
+  return queryOptions({
+    queryKey: ['workspaces', String(workspaceId), 'members'],
+    queryFn: ({ signal }) => getMembers(workspaceId, signal),
+  });
+}
+
+export function useMembers(workspaceId: Id) {
+  return useQuery(membersQueryOptions(workspaceId));
+}

@@ -1,0 +1,34 @@
+import { useNavigate } from 'react-router-dom';
+import { SelectField } from '../../../components/ui/select-field';
+import { useSession } from '../../auth/hooks/use-session';
+import { useCurrentWorkspace } from '../hooks/use-current-workspace';
+
+const SECTIONS = new Set(['hangar', 'shelf', 'reviews', 'team']);
+
+/** Moves to the same screen of another workspace (or its hangar from elsewhere). */
+export function WorkspaceSwitcher() {
+  const { workspaces } = useSession();
+  const { fallback, section } = useCurrentWorkspace();
+  const navigate = useNavigate();
+
+  if (workspaces.length === 0) return null;
+
+  return (
+    <SelectField
+      label="Workspace"
+      hideLabel
+      className="w-56 max-w-full"
+      value={fallback ? String(fallback.id) : ''}
+      onChange={(event) => {
+        const target = section && SECTIONS.has(section) ? section : 'hangar';
+        void navigate(`/w/${event.target.value}/${target}`);
+      }}
+    >
+      {workspaces.map((ws) => (
+        <option key={String(ws.id)} value={String(ws.id)}>
+          {ws.name} ({ws.role})
+        </option>
+      ))}
+    </SelectField>
+  );
+}

@@ -1,0 +1,28 @@
+// Shapes the API answers with for accounts and workspaces (DESIGN.md, API contract).
+
+export type Id = number | string;
+
+export type Role = 'owner' | 'editor' | 'reviewer' | 'viewer';
+
+export interface User {
+  id: Id;
+  email: string;
+  name: string;
+}
+
+/** A workspace as the signed-in user sees it: with their own role in it. */
+export interface WorkspaceMembership {
+  id: Id;
+  name: string;
+  role: Role;
+}
+
+export interface Session {
+  user: User;
+  workspaces: WorkspaceMembership[];
+}
+
+export interface Member {
+  user: User;
+  role: Role;
+}
