@@ -1,0 +1,72 @@
+import cookieParser from 'cookie-parser';
+import express, { type Express } from 'express';
+import helmet from 'helmet';
+import path from 'node:path';
+import type { AppContext } from './context';
+import { errorHandler, unknownApiRoute } from './middleware/error-handler';
+import { initModels } from './models';
+import { authRouter } from './routes/auth';
+import { healthRouter } from './routes/health';
+import { meRouter } from './routes/me';
+import { workspacesRouter } from './routes/workspaces';
+
+function securityHeaders(secure: boolean) {
+  return helmet({
+    contentSecurityPolicy: {
+      useDefaults: true,
+      directives: {
+        defaultSrc: ["'self'"],
+        scriptSrc: ["'self'"],
+        // Inline styles only: the YAML editor (CodeMirror) writes its theme into <style>
+        // elements at run time. Scripts stay 'self' alone.
+        styleSrc: ["'self'", "'unsafe-inline'"],
+        imgSrc: ["'self'", 'data:', 'blob:'],
+        fontSrc: ["'self'", 'data:'],
+        connectSrc: ["'self'"],
+        objectSrc: ["'none'"],
+        frameAncestors: ["'none'"],
+        baseUri: ["'self'"],
+        formAction: ["'self'"],
+        // On plain http://127.0.0.1 an upgrade to https would break every asset.
+        upgradeInsecureRequests: secure ? [] : null,
+      },
+    },
+    strictTransportSecurity: secure,
+  });
+}
+
+/** Serves the built client: hashed assets cached for good, every other path the SPA. */
+function serveClient(app: Express, webDir: string): void {
+  const root = path.resolve(webDir);
+  app.use('/assets', express.static(path.join(root, 'assets'), { immutable: true, maxAge: '1y', fallthrough: false, index: false }));
+  app.use(express.static(root, { index: false }));
+  app.use((req, res, next) => {
+    if (req.method !== 'GET' && req.method !== 'HEAD') return next();
+    res.set('Cache-Control', 'no-cache');
+    res.sendFile(path.join(root, 'index.html'), (error) => error && next(error));
+  });
+}
+
+export function createApp(context: AppContext): Express {
+  const { config } = context;
+  initModels(context.sequelize);
+
+  const app = express();
+  app.disable('x-powered-by');
+  app.set('trust proxy', config.trustProxy);
+  app.use(securityHeaders(config.cookieSecure));
+
+  const api = express.Router();
+  api.use(express.json({ limit: config.jsonLimit }));
+  api.use(cookieParser());
+  api.use(healthRouter(context));
+  api.use(authRouter(context));
+  api.use(meRouter(context));
+  api.use(workspacesRouter(context));
+  api.use(unknownApiRoute);
+  app.use('/api', api);
+
+  if (config.webDir) serveClient(app, config.webDir);
+  app.use(errorHandler({ logErrors: config.logErrors }));
+  return app;
+}

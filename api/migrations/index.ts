@@ -1,0 +1,14 @@
+import type { MigrationFn } from 'umzug';
+import type { MigrationContext } from '../db/migrate';
+import * as accountsAndWorkspaces from './0001-accounts-and-workspaces';
+
+export interface MigrationModule {
+  up: MigrationFn<MigrationContext>;
+  down: MigrationFn<MigrationContext>;
+}
+
+// Applied in this order and recorded in schema_migrations; a new migration is a new
+// file `NNNN-name.ts` plus one line here. Applied migrations are never edited.
+export const migrations: { name: string; module: MigrationModule }[] = [
+  { name: '0001-accounts-and-workspaces', module: accountsAndWorkspaces },
+];

@@ -1,0 +1,108 @@
+import { Router, type NextFunction, type Request, type Response } from 'express';
+import { rateLimit, type AugmentedRequest, type RateLimitRequestHandler } from 'express-rate-limit';
+import { z } from 'zod';
+import { PASSWORD_MAX_BYTES, PASSWORD_MIN_LENGTH, verifyPassword } from '../auth/passwords';
+import { clearSessionCookie, setSessionCookie } from '../auth/session-cookie';
+import { signSession } from '../auth/tokens';
+import { createAccount } from '../commands/create-account';
+import type { AppContext } from '../context';
+import { RateLimited, Unauthorized } from '../errors';
+import { authenticate, currentUser } from '../middleware/authenticate';
+import { User } from '../models';
+import { presentUser } from '../presenters/user';
+import { parseInput } from '../validation';
+
+const signUpSchema = z.object({
+  email: z
+    .string({ error: 'Enter your e-mail address.' })
+    .trim()
+    .toLowerCase()
+    .min(1, 'Enter your e-mail address.')
+    .max(254, 'An e-mail address has at most 254 characters.')
+    .pipe(z.email({ error: 'Enter a valid e-mail address, like pilot@example.com.' })),
+  name: z
+    .string({ error: 'Enter your name.' })
+    .trim()
+    .min(1, 'Enter your name.')
+    .max(100, 'Keep the name to 100 characters.'),
+  password: z
+    .string({ error: 'Choose a password.' })
+    .min(PASSWORD_MIN_LENGTH, `Use at least ${PASSWORD_MIN_LENGTH} characters.`)
+    .refine((value) => Buffer.byteLength(value) <= PASSWORD_MAX_BYTES, `Use at most ${PASSWORD_MAX_BYTES} bytes (about ${PASSWORD_MAX_BYTES} plain letters).`),
+});
+
+const signInSchema = z.object({
+  email: z.string({ error: 'Enter your e-mail address.' }).trim().toLowerCase().min(1, 'Enter your e-mail address.').max(254, 'An e-mail address has at most 254 characters.'),
+  password: z.string({ error: 'Enter your password.' }).min(1, 'Enter your password.').max(1024, 'That password is too long.'),
+});
+
+function accountKey(req: Request): string | null {
+  const email: unknown = req.body?.email;
+  return typeof email === 'string' && email.trim().length > 0 ? email.trim().toLowerCase() : null;
+}
+
+// Two limiters: one per account (guessing one user's password from many addresses)
+// and one per client address (trying many accounts). Only failures count, so a pilot
+// who signs in often is never locked out.
+function signInLimiters({ config }: AppContext): RateLimitRequestHandler[] {
+  const { windowMs, perAccount, perAddress } = config.signInLimits;
+  const common = {
+    windowMs,
+    skipSuccessfulRequests: true,
+    standardHeaders: 'draft-8' as const,
+    legacyHeaders: false,
+    handler: (req: Request, _res: Response, next: NextFunction) => {
+      const reset = (req as AugmentedRequest).rateLimit?.resetTime;
+      const retryAfter = reset ? Math.max(1, Math.ceil((reset.getTime() - Date.now()) / 1000)) : Math.ceil(windowMs / 1000);
+      next(new RateLimited('Too many failed sign-in attempts. Wait a while and try again.', { details: { retry_after_seconds: retryAfter } }));
+    },
+  };
+  return [
+    rateLimit({ ...common, limit: perAddress }),
+    rateLimit({
+      ...common,
+      limit: perAccount,
+      skip: (req) => accountKey(req) === null,
+      keyGenerator: (req) => `account:${accountKey(req)}`,
+    }),
+  ];
+}
+
+export function authRouter(context: AppContext): Router {
+  const { sequelize, config } = context;
+  const router = Router();
+
+  router.post('/auth/sign-up', async (req, res) => {
+    const input = parseInput(signUpSchema, req.body);
+    const { user } = await createAccount(sequelize, input);
+    const token = signSession(user, config);
+    setSessionCookie(res, token, config);
+    res.status(201).json({ data: { user: presentUser(user), token } });
+  });
+
+  router.post('/auth/sign-in', ...signInLimiters(context), async (req, res) => {
+    const input = parseInput(signInSchema, req.body);
+    const user = await User.findOne({ where: { email: input.email } });
+    if (!(await verifyPassword(input.password, user?.passwordHash ?? null)) || !user) {
+      throw new Unauthorized('The e-mail address or the password is wrong.', { code: 'invalid-credentials' });
+    }
+    const token = signSession(user, config);
+    setSessionCookie(res, token, config);
+    res.json({ data: { user: presentUser(user), token } });
+  });
+
+  // Needs no valid session: a browser holding an expired cookie must still be able to drop it.
+  router.post('/auth/sign-out', (_req, res) => {
+    clearSessionCookie(res, config);
+    res.json({ data: { signed_out: true } });
+  });
+
+  router.post('/auth/sign-out-everywhere', authenticate(config), async (req, res) => {
+    const user = currentUser(req);
+    await user.increment('sessionVersion');
+    clearSessionCookie(res, config);
+    res.json({ data: { signed_out: true } });
+  });
+
+  return router;
+}

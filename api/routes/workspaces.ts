@@ -1,0 +1,62 @@
+import { Router } from 'express';
+import { z } from 'zod';
+import { createWorkspace } from '../commands/create-workspace';
+import type { AppContext } from '../context';
+import { authenticate, currentUser } from '../middleware/authenticate';
+import { Membership, User } from '../models';
+import { requireRole } from '../policies/workspace';
+import { presentMember, presentWorkspace } from '../presenters/workspace';
+import { parseInput } from '../validation';
+
+const workspaceName = z
+  .string({ error: 'Give the workspace a name.' })
+  .trim()
+  .min(1, 'Give the workspace a name.')
+  .max(100, 'Keep the name to 100 characters.');
+
+const createSchema = z.object({ name: workspaceName });
+// Strict: a misspelt field in a change would otherwise be dropped without a word.
+const updateSchema = z.strictObject({ name: workspaceName.optional() });
+
+const pageSchema = z.object({
+  limit: z.coerce.number({ error: 'limit must be a number.' }).int('limit must be a whole number.').min(1, 'limit is at least 1.').max(200, 'limit is at most 200.').default(100),
+  offset: z.coerce.number({ error: 'offset must be a number.' }).int('offset must be a whole number.').min(0, 'offset is at least 0.').default(0),
+});
+
+export function workspacesRouter({ sequelize, config }: AppContext): Router {
+  const router = Router();
+  router.use('/workspaces', authenticate(config));
+
+  router.post('/workspaces', async (req, res) => {
+    const { name } = parseInput(createSchema, req.body);
+    const workspace = await sequelize.transaction((transaction) => createWorkspace(currentUser(req), name, transaction));
+    res.status(201).json({ data: presentWorkspace(workspace, 'owner') });
+  });
+
+  router.get('/workspaces/:ws', async (req, res) => {
+    const { workspace, role } = await requireRole(req, req.params.ws, 'viewer');
+    res.json({ data: presentWorkspace(workspace, role) });
+  });
+
+  router.patch('/workspaces/:ws', async (req, res) => {
+    const { workspace, role } = await requireRole(req, req.params.ws, 'owner');
+    const changes = parseInput(updateSchema, req.body);
+    if (changes.name !== undefined) await workspace.update({ name: changes.name });
+    res.json({ data: presentWorkspace(workspace, role) });
+  });
+
+  router.get('/workspaces/:ws/members', async (req, res) => {
+    const { workspace } = await requireRole(req, req.params.ws, 'viewer');
+    const { limit, offset } = parseInput(pageSchema, req.query, 'The paging parameters are not valid.');
+    const { rows, count } = await Membership.findAndCountAll({
+      where: { workspaceId: workspace.id },
+      include: [{ model: User, as: 'user', required: true }],
+      order: [[{ model: User, as: 'user' }, 'name', 'ASC'], ['id', 'ASC']],
+      limit,
+      offset,
+    });
+    res.json({ data: rows.map(presentMember), pagination: { limit, offset, total: count } });
+  });
+
+  return router;
+}

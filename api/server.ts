@@ -1,0 +1,42 @@
+import type { Server } from 'node:http';
+import { createApp } from './app';
+import type { AppContext } from './context';
+
+export interface RunningServer {
+  server: Server;
+  url: string;
+  close(): Promise<void>;
+}
+
+export const DEFAULT_PORT = 3000;
+
+export function portFromEnv(env: NodeJS.ProcessEnv): number {
+  const raw = env.PORT ?? String(DEFAULT_PORT);
+  const port = Number(raw);
+  if (!Number.isInteger(port) || port < 0 || port > 65535) throw new Error(`PORT must be a port number, got "${raw}"`);
+  return port;
+}
+
+/** Listens on 127.0.0.1; port 0 takes a free one (see `url`). */
+export function startServer(context: AppContext, port: number, host = '127.0.0.1'): Promise<RunningServer> {
+  const app = createApp(context);
+  return new Promise((resolve, reject) => {
+    const server = app.listen(port, host);
+    server.once('error', (error: NodeJS.ErrnoException) => {
+      reject(error.code === 'EADDRINUSE' ? new Error(`Port ${port} on ${host} is already in use: stop what uses it or set PORT to another port.`) : error);
+    });
+    server.once('listening', () => {
+      const address = server.address();
+      const actual = typeof address === 'object' && address ? address.port : port;
+      resolve({
+        server,
+        url: `http://${host}:${actual}`,
+        close: () =>
+          new Promise<void>((done, fail) => {
+            server.close((error) => (error ? fail(error) : done()));
+            server.closeAllConnections();
+          }),
+      });
+    });
+  });
+}
