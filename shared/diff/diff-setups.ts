@@ -42,7 +42,7 @@ class Walker {
       const match = this.matches.lists.get(key);
       if (match && isArrayDelta(child)) {
         this.list(child, left[key] as unknown[], right[key] as unknown[], key, match, {
-          type: LIST_SUBJECTS[key],
+          type: 'section',
           section,
           name: key,
           left: left[key],
@@ -104,7 +104,7 @@ class Walker {
     owner: Subject,
     receiver?: Subject,
   ): void {
-    const type: SubjectType = receiver ? 'pin' : owner.type;
+    const type: SubjectType = receiver ? 'pin' : LIST_SUBJECTS[owner.name];
     const section = owner.section;
     const entrySubject = (l: unknown, r: unknown, index?: number): Subject => ({
       type,
