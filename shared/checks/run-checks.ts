@@ -5,12 +5,65 @@ import { dataPathSteps, parseSemanticPath } from '../parse/semantic-path';
 import { locate } from '../parse/source-position';
 import type { Check, CheckResult, DataCheck, ReadCheck } from './check';
 import { buildContext } from './context';
+import { duplicateId } from './duplicate-id';
+import { channelShared } from './channel-shared';
+import { channelBeyondLink } from './channel-beyond-link';
+import { pinBeyondOutputs } from './pin-beyond-outputs';
+import { functionUnrouted } from './function-unrouted';
+import { pinUndriven } from './pin-undriven';
+import { channelUndriven } from './channel-undriven';
+import { unknownControl } from './unknown-control';
+import { controlNotSwitch } from './control-not-switch';
+import { positionOutOfRange } from './position-out-of-range';
+import { mixUnplannedTarget } from './mix-unplanned-target';
+import { mixSaturates } from './mix-saturates';
+import { travelOrder } from './travel-order';
+import { pulseOutOfRange } from './pulse-out-of-range';
+import { telemetryMultiple } from './telemetry-multiple';
+import { telemetryNone } from './telemetry-none';
+import { primaryCount } from './primary-count';
+import { failsafeThrottle } from './failsafe-throttle';
+import { failsafeEndstop } from './failsafe-endstop';
+import { failsafeUnset } from './failsafe-unset';
+import { motorWithoutCut } from './motor-without-cut';
+import { heavyModelFailsafe } from './heavy-model-failsafe';
+import { pairSplit } from './pair-split';
+import { primaryControlsOnSecondary } from './primary-controls-on-secondary';
+import { powerDoubleSupply } from './power-double-supply';
+import { controlUnused } from './control-unused';
 import { schema, validateSetup } from './schema';
 import { syntax } from './syntax';
 import { unknownKey } from './unknown-key';
 
 /** The semantic checks, run on schema-valid setups, in FORMAT.md's catalogue order. */
-export const SETUP_CHECKS: readonly Check[] = [];
+export const SETUP_CHECKS: readonly Check[] = [
+  duplicateId,
+  channelShared,
+  channelBeyondLink,
+  pinBeyondOutputs,
+  functionUnrouted,
+  pinUndriven,
+  channelUndriven,
+  unknownControl,
+  controlNotSwitch,
+  positionOutOfRange,
+  mixUnplannedTarget,
+  mixSaturates,
+  travelOrder,
+  pulseOutOfRange,
+  telemetryMultiple,
+  telemetryNone,
+  primaryCount,
+  failsafeThrottle,
+  failsafeEndstop,
+  failsafeUnset,
+  motorWithoutCut,
+  heavyModelFailsafe,
+  pairSplit,
+  primaryControlsOnSecondary,
+  powerDoubleSupply,
+  controlUnused,
+];
 
 /** Every check in the catalogue, for documentation and the client. */
 export const CATALOGUE: readonly (ReadCheck | DataCheck | Check)[] = [syntax, schema, unknownKey, ...SETUP_CHECKS];

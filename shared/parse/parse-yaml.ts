@@ -31,7 +31,7 @@ function firstLine(message: string): string {
 
 function describeYamlError(error: YAMLError, text: string): Pick<TextProblem, 'message' | 'hint'> {
   if (error.code === 'DUPLICATE_KEY') {
-    const key = text.slice(error.pos[0], error.pos[1]).trim();
+    const key = /^("(?:[^"\\\n]|\\.)*"|'(?:[^'\n]|'')*'|[^:\n,{}[\]]+?)\s*:/.exec(text.slice(error.pos[0], error.pos[0] + 200))?.[1] ?? '';
     const named = key && key.length <= 60 ? `The key "${key}"` : 'A key';
     return {
       message: `${named} appears twice in the same mapping; YAML keys must be unique, so the document is ambiguous.`,
