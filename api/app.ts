@@ -3,6 +3,7 @@ import express, { type Express } from 'express';
 import helmet from 'helmet';
 import path from 'node:path';
 import type { AppContext } from './context';
+import { acceptedBodies } from './middleware/content-type';
 import { errorHandler, unknownApiRoute } from './middleware/error-handler';
 import { initModels } from './models';
 import { authRouter } from './routes/auth';
@@ -57,6 +58,7 @@ export function createApp(context: AppContext): Express {
   app.use(securityHeaders(config.cookieSecure));
 
   const api = express.Router();
+  api.use(acceptedBodies);
   api.use(express.json({ limit: config.jsonLimit }));
   api.use(cookieParser());
   api.use(healthRouter(context));

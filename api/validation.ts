@@ -6,7 +6,12 @@ import { BadRequest } from './errors';
 export function fieldErrors(error: z.ZodError): Record<string, string> {
   const fields: Record<string, string> = {};
   for (const issue of error.issues) {
-    const key = issue.path.length > 0 ? issue.path.map(String).join('.') : '_';
+    const prefix = issue.path.map(String);
+    if (issue.code === 'unrecognized_keys') {
+      for (const key of issue.keys) fields[[...prefix, key].join('.')] ??= 'This field is not known here.';
+      continue;
+    }
+    const key = prefix.length > 0 ? prefix.join('.') : '_';
     fields[key] ??= issue.message;
   }
   return fields;
