@@ -1,6 +1,7 @@
 import type { MigrationFn } from 'umzug';
 import type { MigrationContext } from '../db/migrate';
 import * as accountsAndWorkspaces from './0001-accounts-and-workspaces';
+import * as modelsAndRevisions from './0002-models-and-revisions';
 
 export interface MigrationModule {
   up: MigrationFn<MigrationContext>;
@@ -11,4 +12,5 @@ export interface MigrationModule {
 // file `NNNN-name.ts` plus one line here. Applied migrations are never edited.
 export const migrations: { name: string; module: MigrationModule }[] = [
   { name: '0001-accounts-and-workspaces', module: accountsAndWorkspaces },
+  { name: '0002-models-and-revisions', module: modelsAndRevisions },
 ];

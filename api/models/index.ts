@@ -2,8 +2,13 @@ import type { Sequelize } from 'sequelize';
 import { Membership } from './Membership';
 import { User } from './User';
 import { Workspace } from './Workspace';
+import { SetupModel } from './SetupModel';
+import { Revision } from './Revision';
+import { Tag } from './Tag';
+import { AuditEvent } from './AuditEvent';
 
 export { Membership, User, Workspace };
+export { SetupModel, Revision, Tag, AuditEvent };
 
 let boundTo: Sequelize | null = null;
 
@@ -20,5 +25,22 @@ export function initModels(sequelize: Sequelize): void {
   Workspace.hasMany(Membership, { as: 'memberships', foreignKey: 'workspaceId' });
   Membership.belongsTo(User, { as: 'user', foreignKey: 'userId' });
   Membership.belongsTo(Workspace, { as: 'workspace', foreignKey: 'workspaceId' });
+
+  SetupModel.initModel(sequelize);
+  Revision.initModel(sequelize);
+  Tag.initModel(sequelize);
+  AuditEvent.initModel(sequelize);
+  SetupModel.belongsTo(Workspace, { as: 'workspace', foreignKey: 'workspaceId' });
+  SetupModel.belongsTo(User, { as: 'creator', foreignKey: 'createdBy' });
+  SetupModel.belongsTo(Revision, { as: 'forkedFrom', foreignKey: 'forkedFromRevisionId', constraints: false });
+  SetupModel.hasMany(Revision, { as: 'revisions', foreignKey: 'modelId' });
+  Revision.belongsTo(SetupModel, { as: 'model', foreignKey: 'modelId' });
+  Revision.belongsTo(User, { as: 'author', foreignKey: 'authorId' });
+  Revision.hasMany(Tag, { as: 'tags', foreignKey: 'revisionId' });
+  Tag.belongsTo(Revision, { as: 'revision', foreignKey: 'revisionId' });
+  Tag.belongsTo(SetupModel, { as: 'model', foreignKey: 'modelId' });
+  Tag.belongsTo(User, { as: 'creator', foreignKey: 'createdBy' });
+  AuditEvent.belongsTo(Workspace, { as: 'workspace', foreignKey: 'workspaceId' });
+  AuditEvent.belongsTo(User, { as: 'actor', foreignKey: 'actorId' });
   boundTo = sequelize;
 }
