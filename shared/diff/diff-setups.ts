@@ -204,8 +204,8 @@ export function diffSetups(before: unknown, after: unknown): SetupDiff {
       kind: draft.kind,
       section: draft.section,
       path: draft.path,
-      before: draft.before ?? null,
-      after: draft.after ?? null,
+      before: toPlain(draft.before) ?? null,
+      after: toPlain(draft.after) ?? null,
       summary: summarise(draft, sides),
     }));
   const counts = emptyCounts();

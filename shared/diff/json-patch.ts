@@ -12,6 +12,6 @@ export type JsonPatchOperation = Op;
  * operations and an edited entry a `replace` of the changed field only.
  */
 export function jsonPatch(before: unknown, after: unknown): JsonPatchOperation[] {
-  const { delta } = diffDocuments(toPlain(before) ?? null, toPlain(after) ?? null);
-  return delta === undefined ? [] : format(delta);
+  const { delta } = diffDocuments(toPlain(before, true) ?? null, toPlain(after, true) ?? null);
+  return delta === undefined ? [] : (toPlain(format(delta)) as JsonPatchOperation[]);
 }

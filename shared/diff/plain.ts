@@ -11,8 +11,10 @@ export function isPlainObject(value: unknown): value is PlainObject {
 // A fresh JSON-compatible copy: undefined and functions are dropped, cycles become
 // null, anything else that JSON cannot carry becomes its string form. A fresh copy
 // also means no object is shared between the two sides of a diff, which the
-// identity matching relies on.
-export function toPlain(value: unknown, seen: Set<object> = new Set()): unknown {
+// identity matching relies on. `bare` makes objects without a prototype: jsondiffpatch
+// reads `right[name]` for every key of the left object, so a key such as `toString`
+// would otherwise meet Object.prototype's function and make it throw.
+export function toPlain(value: unknown, bare = false, seen: Set<object> = new Set()): unknown {
   if (value === null) return null;
   switch (typeof value) {
     case 'string':
@@ -32,10 +34,10 @@ export function toPlain(value: unknown, seen: Set<object> = new Set()): unknown 
   if (object instanceof Date) return Number.isNaN(object.getTime()) ? null : object.toISOString();
   seen.add(object);
   try {
-    if (Array.isArray(object)) return object.map((item) => toPlain(item, seen) ?? null);
-    const copy: PlainObject = {};
+    if (Array.isArray(object)) return object.map((item) => toPlain(item, bare, seen) ?? null);
+    const copy: PlainObject = bare ? Object.create(null) : {};
     for (const [key, item] of Object.entries(object)) {
-      const plain = toPlain(item, seen);
+      const plain = toPlain(item, bare, seen);
       if (plain !== undefined) setOwn(copy, key, plain);
     }
     return copy;

@@ -1,50 +1,62 @@
 import type { ZodType } from 'zod';
 import {
   channelSchema,
-  controlSchema,
   mixSchema,
-  pinMapEntrySchema,
+  proportionalControlSchema,
   receiverSchema,
   setupSchema,
+  switchControlSchema,
 } from '../format/schema';
-import { isPlainObject, toPlain, type PlainObject } from './plain';
 import { LIST_KEYS } from './identity';
+import { isPlainObject, setOwn, toPlain, type PlainObject } from './plain';
 
-const ENTRY_SCHEMAS: Record<string, ZodType> = {
-  controls: controlSchema,
-  channels: channelSchema,
-  mixes: mixSchema,
-  receivers: receiverSchema,
-};
-
-function parsedOr(schema: ZodType, value: unknown): unknown {
-  const result = schema.safeParse(value);
-  return result.success ? result.data : value;
+interface ObjectSchema {
+  shape: Record<string, ZodType>;
+  safeParse: ZodType['safeParse'];
 }
 
-// The semantic diff compares what the documents mean, so a default written out
-// (`weight: 100`) is no change against one left implicit. The whole document gets
-// the schema's defaults when it is valid; otherwise each list entry that is valid on
-// its own gets them, so that one bad field elsewhere does not make every implicit
-// default show up as a change. Missing top-level lists count as empty, which lists
-// every entry of the other side as added or removed rather than one opaque change.
-export function withDefaults(data: unknown): PlainObject {
-  if (!isPlainObject(data)) return Object.fromEntries(Object.keys(LIST_KEYS).map((list) => [list, []]));
-  const whole = setupSchema.safeParse(data);
-  if (whole.success) return toPlain(whole.data) as PlainObject;
-  const copy: PlainObject = { ...data };
-  for (const [list, schema] of Object.entries(ENTRY_SCHEMAS)) {
-    const items = copy[list];
-    if (items === undefined) {
-      copy[list] = [];
-      continue;
-    }
-    if (!Array.isArray(items)) continue;
-    copy[list] = items.map((item) => {
-      const parsed = parsedOr(schema, item);
-      if (list !== 'receivers' || parsed !== item || !isPlainObject(item) || !Array.isArray(item.map)) return parsed;
-      return { ...item, map: item.map.map((pin) => parsedOr(pinMapEntrySchema, pin)) };
-    });
+// A valid object gets the schema's output. An invalid one keeps its fields as they
+// are, except that each field valid on its own takes its parsed form (nested defaults
+// included) and each absent field with a default gets the default; so one bad value
+// does not make every implicit default of its entry look like a change.
+function fillDefaults(schema: ObjectSchema, value: unknown): unknown {
+  const whole = schema.safeParse(value);
+  if (whole.success) return whole.data;
+  if (!isPlainObject(value)) return value;
+  const out: PlainObject = { ...value };
+  for (const [key, field] of Object.entries(schema.shape)) {
+    const present = Object.prototype.hasOwnProperty.call(value, key) && value[key] !== undefined;
+    const parsed = field.safeParse(present ? value[key] : undefined);
+    if (parsed.success && parsed.data !== undefined) setOwn(out, key, parsed.data);
   }
-  return toPlain(copy) as PlainObject;
+  return out;
+}
+
+function controlSchemaFor(value: unknown): ObjectSchema {
+  return isPlainObject(value) && value.kind === 'switch' ? switchControlSchema : proportionalControlSchema;
+}
+
+const ENTRY_SCHEMAS: Record<string, (value: unknown) => ObjectSchema> = {
+  controls: controlSchemaFor,
+  channels: () => channelSchema,
+  mixes: () => mixSchema,
+  receivers: () => receiverSchema,
+};
+
+// The semantic diff compares what the documents mean, so a default written out
+// (`weight: 100`) is no change against one left implicit. Defaults come from the
+// format's schema, per entry, whether or not the whole document is valid. A missing
+// top-level list counts as empty, which lists every entry of the other side as added
+// or removed rather than one opaque change. The result has no prototypes (see toPlain).
+export function withDefaults(data: unknown): PlainObject {
+  if (!isPlainObject(data)) return toPlain(Object.fromEntries(Object.keys(LIST_KEYS).map((list) => [list, []])), true) as PlainObject;
+  const whole = setupSchema.safeParse(data);
+  if (whole.success) return toPlain(whole.data, true) as PlainObject;
+  const copy = fillDefaults(setupSchema, data) as PlainObject;
+  for (const [list, schemaFor] of Object.entries(ENTRY_SCHEMAS)) {
+    const items = Object.prototype.hasOwnProperty.call(data, list) ? data[list] : undefined;
+    if (items === undefined) setOwn(copy, list, []);
+    else if (Array.isArray(items)) setOwn(copy, list, items.map((item) => fillDefaults(schemaFor(item), item)));
+  }
+  return toPlain(copy, true) as PlainObject;
 }
