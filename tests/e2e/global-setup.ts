@@ -1,0 +1,53 @@
+import { randomBytes } from 'node:crypto';
+import { chmodSync, mkdtempSync, rmSync } from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import type { TestProject } from 'vitest/node';
+import { defaultConfig } from '../../api/config';
+import { startCluster } from '../../api/db/cluster';
+import { migrate } from '../../api/db/migrate';
+import { createSequelize } from '../../api/db/sequelize';
+import { seedDemo } from '../../api/seed';
+import { startServer } from '../../api/server';
+import { buildClientIfStale } from '../../scripts/lib/build-web';
+import { webDist } from '../../scripts/lib/paths';
+
+declare module 'vitest' {
+  export interface ProvidedContext {
+    /** Where the app under test listens, e.g. http://127.0.0.1:41234 */
+    e2eBaseUrl: string;
+  }
+}
+
+// The built app as npm start serves it, on a free port, against a throwaway cluster
+// with the demo seeded; nothing of npm start's .data/ is used.
+export default async function setup(project: TestProject): Promise<() => Promise<void>> {
+  await buildClientIfStale((line) => console.log(`[e2e] ${line}`));
+  const folder = mkdtempSync(path.join(os.tmpdir(), 'bindery-e2e-'));
+  chmodSync(folder, 0o755);
+  const cluster = await startCluster({ dataDir: path.join(folder, 'pg'), database: 'bindery_e2e', throwaway: true });
+  const sequelize = createSequelize(cluster.url);
+  const teardown = async () => {
+    await sequelize.close();
+    await cluster.remove();
+    rmSync(folder, { recursive: true, force: true });
+  };
+  try {
+    await migrate(sequelize);
+    await seedDemo(sequelize);
+    const config = defaultConfig({
+      jwtSecret: randomBytes(32).toString('hex'),
+      webDir: webDist,
+      signInLimits: { windowMs: 60_000, perAccount: 50, perAddress: 200 },
+    });
+    const server = await startServer({ sequelize, config }, 0);
+    project.provide('e2eBaseUrl', server.url);
+    return async () => {
+      await server.close();
+      await teardown();
+    };
+  } catch (error) {
+    await teardown();
+    throw error;
+  }
+}
