@@ -57,11 +57,14 @@ export const apiError = (status: number, code: string, message: string, details:
   body: { error: { code, message, details } },
 });
 
-export const demoUser = { id: 11, email: 'wren@hollowfield.example', name: 'Wren Calloway' };
+export const CLUB = '5f0c2e7a-4d4c-4591-9e2d-8a3b5c7e0117';
+export const BUILDERS = '9b2d4f0e-36c2-44a7-8e32-1d0c8f5a4b29';
+
+export const demoUser = { id: 'c41e7b20-9a3f-4d18-b6e5-2f7a0d9c8e11', email: 'wren@hollowfield.example', name: 'Wren Calloway' };
 
 export const demoWorkspaces = [
-  { id: 7, name: 'Hollowfield Aero Club', role: 'owner' },
-  { id: 9, name: 'Tuesday Night Builders', role: 'reviewer' },
+  { id: CLUB, name: 'Hollowfield Aero Club', role: 'owner' },
+  { id: BUILDERS, name: 'Tuesday Night Builders', role: 'reviewer' },
 ];
 
 /**

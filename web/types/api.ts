@@ -1,6 +1,7 @@
 // Shapes the API answers with for accounts and workspaces (DESIGN.md, API contract).
 
-export type Id = number | string;
+/** Records are keyed by UUID. */
+export type Id = string;
 
 export type Role = 'owner' | 'editor' | 'reviewer' | 'viewer';
 

@@ -1,23 +1,23 @@
 import { screen, waitFor, within } from '@testing-library/react';
-import { apiError, demoUser, fakeServer, sessionRoutes } from '../fake-server';
+import { BUILDERS, CLUB, apiError, demoUser, fakeServer, sessionRoutes } from '../fake-server';
 import { renderApp } from '../render-app';
 
 describe('The signed-in app frame', () => {
   it('sends a signed-out visitor to sign-in and back to the page they asked for', async () => {
     const { routes } = sessionRoutes();
-    fakeServer({ ...routes, 'GET /api/workspaces/9/members': () => ({ body: { data: [] } }) });
-    const { user, location } = renderApp('/w/9/team');
+    fakeServer({ ...routes, [`GET /api/workspaces/${BUILDERS}/members`]: () => ({ body: { data: [] } }) });
+    const { user, location } = renderApp(`/w/${BUILDERS}/team`);
 
     expect(await screen.findByRole('heading', { level: 1, name: 'Sign in' })).toBeInTheDocument();
     expect(location().pathname).toBe('/sign-in');
-    expect(location().search).toBe(`?next=${encodeURIComponent('/w/9/team')}`);
+    expect(location().search).toBe(`?next=${encodeURIComponent(`/w/${BUILDERS}/team`)}`);
 
     await user.type(screen.getByLabelText('E-mail'), demoUser.email);
     await user.type(screen.getByLabelText('Password'), 'bindery-demo-1');
     await user.click(screen.getByRole('button', { name: 'Sign in' }));
 
     expect(await screen.findByRole('heading', { level: 1, name: 'Team' })).toBeInTheDocument();
-    expect(location().pathname).toBe('/w/9/team');
+    expect(location().pathname).toBe(`/w/${BUILDERS}/team`);
   });
 
   it('opens the first workspace’s hangar from the home address', async () => {
@@ -25,7 +25,7 @@ describe('The signed-in app frame', () => {
     const { location } = renderApp('/');
 
     expect(await screen.findByRole('heading', { level: 1, name: 'Hangar' })).toBeInTheDocument();
-    expect(location().pathname).toBe('/w/7/hangar');
+    expect(location().pathname).toBe(`/w/${CLUB}/hangar`);
     expect(document.title).toBe('Hangar · Bindery');
     const nav = screen.getByRole('navigation', { name: 'Workspace' });
     expect(within(nav).getByRole('link', { name: 'Hangar' })).toHaveAttribute('aria-current', 'page');
@@ -54,7 +54,7 @@ describe('The signed-in app frame', () => {
       ...routes,
       'GET /api/me': (request) => (failing ? apiError(403, 'account-locked', 'This account is locked.') : routes['GET /api/me'](request)),
     });
-    const { user } = renderApp('/w/7/hangar');
+    const { user } = renderApp(`/w/${CLUB}/hangar`);
 
     expect(await screen.findByRole('alert')).toHaveTextContent('This account is locked.');
     failing = false;
@@ -65,7 +65,7 @@ describe('The signed-in app frame', () => {
   it('signs out and returns to sign-in', async () => {
     const { routes, state } = sessionRoutes({ signedIn: true });
     const server = fakeServer(routes);
-    const { user, location } = renderApp('/w/7/shelf');
+    const { user, location } = renderApp(`/w/${CLUB}/shelf`);
 
     await user.click(await screen.findByRole('button', { name: 'Sign out' }));
 
@@ -80,15 +80,15 @@ describe('The signed-in app frame', () => {
     const { routes, state } = sessionRoutes({ signedIn: true });
     fakeServer({
       ...routes,
-      'GET /api/workspaces/7/members': () => {
+      [`GET /api/workspaces/${CLUB}/members`]: () => {
         state.signedIn = false;
         return apiError(401, 'token-expired', 'Your session has expired.');
       },
     });
-    const { location } = renderApp('/w/7/team');
+    const { location } = renderApp(`/w/${CLUB}/team`);
 
     await waitFor(() => expect(location().pathname).toBe('/sign-in'));
-    expect(location().search).toBe(`?next=${encodeURIComponent('/w/7/team')}`);
+    expect(location().search).toBe(`?next=${encodeURIComponent(`/w/${CLUB}/team`)}`);
   });
 
   it('frames a model’s screens with their own navigation', async () => {

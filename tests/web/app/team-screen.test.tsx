@@ -1,19 +1,19 @@
 import { screen, within } from '@testing-library/react';
-import { apiError, demoUser, fakeServer, sessionRoutes } from '../fake-server';
+import { CLUB, apiError, demoUser, fakeServer, sessionRoutes } from '../fake-server';
 import { renderApp } from '../render-app';
 
 const members = [
   { user: demoUser, role: 'owner' },
-  { user: { id: 12, email: 'juno@hollowfield.example', name: 'Juno Marsh' }, role: 'reviewer' },
+  { user: { id: 'e8a91f3c-27d6-4b0e-a5c4-6d13f2b7a902', email: 'juno@hollowfield.example', name: 'Juno Marsh' }, role: 'reviewer' },
 ];
 
 describe('Team', () => {
   it('lists the workspace’s members with their roles', async () => {
     const server = fakeServer({
       ...sessionRoutes({ signedIn: true }).routes,
-      'GET /api/workspaces/7/members': () => ({ body: { data: members, pagination: { total: 2 } } }),
+      [`GET /api/workspaces/${CLUB}/members`]: () => ({ body: { data: members, pagination: { total: 2 } } }),
     });
-    renderApp('/w/7/team');
+    renderApp(`/w/${CLUB}/team`);
 
     const table = await screen.findByRole('table', { name: 'Members of this workspace' });
     const rows = within(table).getAllByRole('row').slice(1);
@@ -21,16 +21,16 @@ describe('Team', () => {
       ['Wren Calloway(you)', 'wren@hollowfield.example', 'Owner'],
       ['Juno Marsh', 'juno@hollowfield.example', 'Reviewer'],
     ]);
-    expect(server.called('GET', '/api/workspaces/7/members')[0].credentials).toBe('same-origin');
+    expect(server.called('GET', `/api/workspaces/${CLUB}/members`)[0].credentials).toBe('same-origin');
     expect(document.title).toBe('Team · Hollowfield Aero Club · Bindery');
   });
 
   it('says when the workspace has no members to show', async () => {
     fakeServer({
       ...sessionRoutes({ signedIn: true }).routes,
-      'GET /api/workspaces/7/members': () => ({ body: { data: [] } }),
+      [`GET /api/workspaces/${CLUB}/members`]: () => ({ body: { data: [] } }),
     });
-    renderApp('/w/7/team');
+    renderApp(`/w/${CLUB}/team`);
 
     expect(await screen.findByRole('heading', { name: 'No members yet' })).toBeInTheDocument();
   });
@@ -38,9 +38,9 @@ describe('Team', () => {
   it('shows the server’s error when the list cannot be loaded', async () => {
     fakeServer({
       ...sessionRoutes({ signedIn: true }).routes,
-      'GET /api/workspaces/7/members': () => apiError(403, 'forbidden', 'Your role in this workspace does not allow that.'),
+      [`GET /api/workspaces/${CLUB}/members`]: () => apiError(403, 'forbidden', 'Your role in this workspace does not allow that.'),
     });
-    renderApp('/w/7/team');
+    renderApp(`/w/${CLUB}/team`);
 
     const alert = await screen.findByRole('alert');
     expect(alert).toHaveTextContent('The member list could not be loaded');
@@ -51,9 +51,9 @@ describe('Team', () => {
     let answer: (value: { body: unknown }) => void = () => {};
     fakeServer({
       ...sessionRoutes({ signedIn: true }).routes,
-      'GET /api/workspaces/7/members': () => new Promise((resolve) => (answer = resolve)),
+      [`GET /api/workspaces/${CLUB}/members`]: () => new Promise((resolve) => (answer = resolve)),
     });
-    renderApp('/w/7/team');
+    renderApp(`/w/${CLUB}/team`);
 
     expect(await screen.findByText('Loading members…')).toBeInTheDocument();
     answer({ body: { data: members } });

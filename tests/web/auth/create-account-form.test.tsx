@@ -1,5 +1,5 @@
 import { screen, waitFor } from '@testing-library/react';
-import { apiError, demoUser, fakeServer, sessionRoutes } from '../fake-server';
+import { CLUB, apiError, demoUser, fakeServer, sessionRoutes } from '../fake-server';
 import { renderApp } from '../render-app';
 
 describe('Create account', () => {
@@ -78,6 +78,6 @@ describe('Create account', () => {
     await user.click(screen.getByRole('button', { name: 'Create account' }));
 
     expect(await screen.findByRole('heading', { level: 1, name: 'Hangar' })).toBeInTheDocument();
-    expect(location().pathname).toBe('/w/7/hangar');
+    expect(location().pathname).toBe(`/w/${CLUB}/hangar`);
   });
 });

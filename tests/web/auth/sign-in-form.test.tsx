@@ -1,5 +1,5 @@
 import { screen, waitFor } from '@testing-library/react';
-import { apiError, demoUser, fakeServer, sessionRoutes } from '../fake-server';
+import { CLUB, apiError, demoUser, fakeServer, sessionRoutes } from '../fake-server';
 import { renderApp } from '../render-app';
 
 describe('Sign in', () => {
@@ -61,7 +61,7 @@ describe('Sign in', () => {
     await user.click(screen.getByRole('button', { name: 'Sign in' }));
 
     expect(await screen.findByRole('heading', { level: 1, name: 'Hangar' })).toBeInTheDocument();
-    expect(location().pathname).toBe('/w/7/hangar');
+    expect(location().pathname).toBe(`/w/${CLUB}/hangar`);
     expect(state.signedIn).toBe(true);
     const [signIn] = server.called('POST', '/api/auth/sign-in');
     expect(signIn.body).toEqual({ email: demoUser.email, password: 'bindery-demo-1' });

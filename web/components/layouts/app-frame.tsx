@@ -78,8 +78,9 @@ function SignedInFrame({ workspaceLinks, devLinks }: AppFrameProps) {
           </Link>
           <WorkspaceSwitcher />
           <div className="ml-auto flex min-w-0 items-center gap-3">
-            <span className="min-w-0 truncate text-sm text-ink-700" title={user.email}>
-              Signed in as <span className="font-medium text-ink-900">{user.name}</span>
+            <span className="max-w-48 min-w-0 truncate text-sm text-ink-700 lg:max-w-none" title={user.email}>
+              <span className="sr-only lg:not-sr-only">Signed in as </span>
+              <span className="font-medium text-ink-900">{user.name}</span>
             </span>
             <Button
               variant="secondary"

@@ -6,7 +6,7 @@ const KEY = 'bindery.last-workspace';
 
 export function rememberWorkspace(id: Id): void {
   try {
-    localStorage.setItem(KEY, String(id));
+    localStorage.setItem(KEY, id);
   } catch {
     // Storage can be switched off; the app then simply opens the first workspace.
   }

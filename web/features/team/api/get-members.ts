@@ -3,12 +3,12 @@ import { api } from '../../../lib/api-client';
 import type { Id, Member } from '../../../types/api';
 
 export async function getMembers(workspaceId: Id, signal?: AbortSignal): Promise<Member[]> {
-  return (await api.get<Member[]>(`/api/workspaces/${encodeURIComponent(String(workspaceId))}/members`, signal)).data;
+  return (await api.get<Member[]>(`/api/workspaces/${encodeURIComponent(workspaceId)}/members`, signal)).data;
 }
 
 export function membersQueryOptions(workspaceId: Id) {
   return queryOptions({
-    queryKey: ['workspaces', String(workspaceId), 'members'],
+    queryKey: ['workspaces', workspaceId, 'members'],
     queryFn: ({ signal }) => getMembers(workspaceId, signal),
   });
 }

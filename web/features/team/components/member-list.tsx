@@ -31,10 +31,10 @@ export function MemberList({ workspaceId }: { workspaceId: Id }) {
         </thead>
         <tbody className="divide-y divide-ply-100">
           {members.data.map((member) => (
-            <tr key={String(member.user.id)}>
+            <tr key={member.user.id}>
               <td className="px-4 py-3 font-medium text-ink-900">
                 {member.user.name}
-                {String(member.user.id) === String(user.id) && <span className="ml-2 text-sm font-normal text-ink-700">(you)</span>}
+                {member.user.id === user.id && <span className="ml-2 text-sm font-normal text-ink-700">(you)</span>}
               </td>
               <td className="px-4 py-3 font-mono text-sm break-all text-ink-700">{member.user.email}</td>
               <td className="px-4 py-3">

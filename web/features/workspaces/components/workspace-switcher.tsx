@@ -17,15 +17,15 @@ export function WorkspaceSwitcher() {
     <SelectField
       label="Workspace"
       hideLabel
-      className="w-56 max-w-full"
-      value={fallback ? String(fallback.id) : ''}
+      className="max-w-xs min-w-48"
+      value={fallback ? fallback.id : ''}
       onChange={(event) => {
         const target = section && SECTIONS.has(section) ? section : 'hangar';
         void navigate(`/w/${event.target.value}/${target}`);
       }}
     >
       {workspaces.map((ws) => (
-        <option key={String(ws.id)} value={String(ws.id)}>
+        <option key={ws.id} value={ws.id}>
           {ws.name} ({ws.role})
         </option>
       ))}

@@ -18,7 +18,7 @@ export function useCurrentWorkspace(): CurrentWorkspace {
   const { workspaces } = useSession();
   const match = useMatch('/w/:wsId/*');
   const urlId = match?.params.wsId ?? null;
-  const find = (id: string | null) => (id === null ? undefined : workspaces.find((ws) => String(ws.id) === id));
+  const find = (id: string | null) => (id === null ? undefined : workspaces.find((ws) => ws.id === id));
   const inUrl = find(urlId) ?? null;
   const fallback = inUrl ?? find(lastWorkspaceId()) ?? workspaces[0] ?? null;
   const section = match?.params['*']?.split('/')[0] || null;
