@@ -7,8 +7,10 @@ import { acceptedBodies } from './middleware/content-type';
 import { errorHandler, unknownApiRoute } from './middleware/error-handler';
 import { initModels } from './models';
 import { authRouter } from './routes/auth';
+import { checkRouter } from './routes/check';
 import { healthRouter } from './routes/health';
 import { meRouter } from './routes/me';
+import { schemaRouter } from './routes/schema';
 import { workspacesRouter } from './routes/workspaces';
 
 function securityHeaders(secure: boolean) {
@@ -62,6 +64,8 @@ export function createApp(context: AppContext): Express {
   api.use(express.json({ limit: config.jsonLimit }));
   api.use(cookieParser());
   api.use(healthRouter(context));
+  api.use(checkRouter());
+  api.use(schemaRouter());
   api.use(authRouter(context));
   api.use(meRouter(context));
   api.use(workspacesRouter(context));
