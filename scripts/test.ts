@@ -32,7 +32,7 @@ delete env.DATABASE_URL;
 delete env.JWT_SECRET;
 
 async function runVitest(label: string, args: string[]): Promise<RunTotals> {
-  const report = path.join(reportDir, `${label}.json`);
+  const report = path.join(reportDir, `${label.replace(/[^a-z0-9]+/gi, '-')}.json`);
   console.log(`\n=== ${label} ===`);
   const exitCode = await runCommand(bin('vitest'), ['run', ...args, '--reporter=default', '--reporter=json', `--outputFile.json=${report}`], { env });
   if (!existsSync(report)) return { label, exitCode: exitCode || 1, passed: 0, failed: 0, skipped: 0, reported: false };
