@@ -1,0 +1,45 @@
+import { infiniteQueryOptions, useInfiniteQuery } from '@tanstack/react-query';
+import { api } from '../../../lib/api-client';
+import type { Id } from '../../../types/api';
+import type { RevisionSummary } from '../types';
+
+export const REVISIONS_PAGE_SIZE = 50;
+
+export interface RevisionsPage {
+  revisions: RevisionSummary[];
+  /** The `before` to ask for the next (older) page, null when this page reached revision 1. */
+  nextBefore: number | null;
+}
+
+export async function listRevisions(
+  modelId: Id,
+  { before, limit = REVISIONS_PAGE_SIZE, signal }: { before?: number; limit?: number; signal?: AbortSignal } = {},
+): Promise<RevisionsPage> {
+  const params = new URLSearchParams({ limit: String(limit) });
+  if (before !== undefined) params.set('before', String(before));
+  const { data } = await api.get<RevisionSummary[]>(`/api/models/${encodeURIComponent(modelId)}/revisions?${params}`, signal);
+  const oldest = data.at(-1);
+  // Newest first: the next page starts below the oldest number seen, until revision 1.
+  const nextBefore = data.length === limit && oldest && oldest.number > 1 ? oldest.number : null;
+  return { revisions: data, nextBefore };
+}
+
+export const revisionsQueryKey = (modelId: Id) => ['models', modelId, 'revisions'] as const;
+
+export function revisionsQueryOptions(modelId: Id) {
+  return infiniteQueryOptions({
+    queryKey: revisionsQueryKey(modelId),
+    queryFn: ({ pageParam, signal }) => listRevisions(modelId, { before: pageParam ?? undefined, signal }),
+    initialPageParam: null as number | null,
+    getNextPageParam: (last) => last.nextBefore,
+  });
+}
+
+/** The model's history, newest first, a page at a time; `data.pages` holds what was fetched. */
+export function useRevisions(modelId: Id) {
+  return useInfiniteQuery({ ...revisionsQueryOptions(modelId), enabled: modelId !== '' });
+}
+
+/** All revisions fetched so far, in one list. */
+export const revisionsOf = (pages: readonly RevisionsPage[] | undefined): RevisionSummary[] =>
+  pages?.flatMap((page) => page.revisions) ?? [];
