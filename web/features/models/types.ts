@@ -70,11 +70,19 @@ export interface RevisionSummary {
   created_at: string;
 }
 
+/** The model a revision belongs to, as `GET /api/revisions/:id` and the compare name it. */
+export interface RevisionModelRef {
+  id: Id;
+  name: string;
+  workspace_id: Id;
+}
+
 /** One revision in full: its exact YAML text, the parsed document and the findings. */
 export interface Revision extends RevisionSummary {
   yaml: string;
   document: unknown;
   findings: Finding[];
+  model?: RevisionModelRef;
 }
 
 /** What a save answers: the summary and the findings the checks gave. */

@@ -17,11 +17,9 @@ export async function listRevisions(
 ): Promise<RevisionsPage> {
   const params = new URLSearchParams({ limit: String(limit) });
   if (before !== undefined) params.set('before', String(before));
-  const { data } = await api.get<RevisionSummary[]>(`/api/models/${encodeURIComponent(modelId)}/revisions?${params}`, signal);
-  const oldest = data.at(-1);
-  // Newest first: the next page starts below the oldest number seen, until revision 1.
-  const nextBefore = data.length === limit && oldest && oldest.number > 1 ? oldest.number : null;
-  return { revisions: data, nextBefore };
+  const { data, pagination } = await api.get<RevisionSummary[]>(`/api/models/${encodeURIComponent(modelId)}/revisions?${params}`, signal);
+  const next = pagination?.next_before;
+  return { revisions: data, nextBefore: typeof next === 'number' ? next : null };
 }
 
 export const revisionsQueryKey = (modelId: Id) => ['models', modelId, 'revisions'] as const;
