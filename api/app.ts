@@ -12,6 +12,10 @@ import { healthRouter } from './routes/health';
 import { meRouter } from './routes/me';
 import { schemaRouter } from './routes/schema';
 import { workspacesRouter } from './routes/workspaces';
+import { modelsRouter } from './routes/models';
+import { revisionsRouter } from './routes/revisions';
+import { compareRouter } from './routes/compare';
+import { auditRouter } from './routes/audit';
 
 function securityHeaders(secure: boolean) {
   return helmet({
@@ -69,6 +73,10 @@ export function createApp(context: AppContext): Express {
   api.use(authRouter(context));
   api.use(meRouter(context));
   api.use(workspacesRouter(context));
+  api.use(modelsRouter(context));
+  api.use(revisionsRouter(context));
+  api.use(compareRouter(context));
+  api.use(auditRouter(context));
   api.use(unknownApiRoute);
   app.use('/api', api);
 

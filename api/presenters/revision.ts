@@ -1,0 +1,53 @@
+import type { Revision, User } from '../models';
+
+export function presentAuthor(user: User | null | undefined) {
+  return user ? { id: user.id, name: user.name } : null;
+}
+
+/** A revision without its text and document: for history lists and answers to saves. */
+export function presentRevisionSummary(revision: Revision, tags: readonly string[] = revision.tags?.map((tag) => tag.name) ?? []) {
+  return {
+    id: revision.id,
+    model_id: revision.modelId,
+    number: revision.number,
+    parent_id: revision.parentId,
+    author: presentAuthor(revision.author),
+    message: revision.message,
+    content_hash: revision.contentHash,
+    error_count: revision.errorCount,
+    warning_count: revision.warningCount,
+    info_count: revision.infoCount,
+    origin: revision.origin,
+    source_revision_id: revision.sourceRevisionId,
+    tags: [...tags].sort(),
+    created_at: revision.createdAt.toISOString(),
+  };
+}
+
+/** What a save answers: the summary and the findings the checks gave. */
+export function presentSavedRevision(revision: Revision) {
+  return { ...presentRevisionSummary(revision), findings: revision.findings };
+}
+
+/** Everything about one revision, its exact YAML text included. */
+export function presentRevision(revision: Revision, tags?: readonly string[]) {
+  return { ...presentRevisionSummary(revision, tags), yaml: revision.yamlText, document: revision.document, findings: revision.findings };
+}
+
+/** The latest revision as the hangar and the model page show it. */
+export function presentLatest(revision: Revision) {
+  return {
+    id: revision.id,
+    number: revision.number,
+    content_hash: revision.contentHash,
+    error_count: revision.errorCount,
+    warning_count: revision.warningCount,
+    info_count: revision.infoCount,
+    message: revision.message,
+    created_at: revision.createdAt.toISOString(),
+    author: presentAuthor(revision.author),
+  };
+}
+
+export type PresentedRevisionSummary = ReturnType<typeof presentRevisionSummary>;
+export type PresentedRevision = ReturnType<typeof presentRevision>;

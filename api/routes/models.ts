@@ -1,0 +1,115 @@
+import { Router } from 'express';
+import { col, fn, Op, type WhereOptions } from 'sequelize';
+import { createModel } from '../commands/create-model';
+import { forkModel } from '../commands/fork-model';
+import { renameModel } from '../commands/rename-model';
+import { checkSetupText, saveRevision } from '../commands/save-revision';
+import type { AppContext } from '../context';
+import { NotFound } from '../errors';
+import { authenticate, currentUser } from '../middleware/authenticate';
+import { readSetupUpload } from '../middleware/setup-upload';
+import { Revision, SetupModel } from '../models';
+import { authorizeModel, authorizeWorkspace } from '../policies/model';
+import { presentSavedRevision } from '../presenters/revision';
+import { presentModels, presentOneModel } from '../queries/model-views';
+import { parseInput } from '../validation';
+import { createModelSchema, forkSchema, hangarQuery, renameModelSchema, uploadModelFields, uploadRevisionFields } from './model-inputs';
+
+const escapeLike = (text: string): string => text.replace(/[\\%_]/g, '\\$&');
+
+/** The model's name for a setup uploaded without one: the setup's own name, else the file's. */
+function nameForUpload(data: unknown, fileName: string): string {
+  const own = (data as { model?: { name?: unknown } } | null)?.model?.name;
+  if (typeof own === 'string' && own.trim().length > 0) return own.trim().slice(0, 80);
+  const stem = fileName.replace(/\.[^.]*$/, '').replace(/[\u0000-\u001f\u007f]/g, '').trim();
+  return stem.length > 0 ? stem.slice(0, 80) : 'Uploaded model';
+}
+
+export function modelsRouter({ sequelize, config }: AppContext): Router {
+  const router = Router();
+  const signedIn = authenticate(config);
+
+  router.get('/workspaces/:ws/models', signedIn, async (req, res) => {
+    const { q, limit, offset } = parseInput(hangarQuery, req.query, 'The search parameters are not valid.');
+    const { workspace, role } = await authorizeWorkspace(req, req.params.ws, 'read');
+    const where: WhereOptions<SetupModel> = { workspaceId: workspace.id };
+    if (q) {
+      const pattern = `%${escapeLike(q)}%`;
+      Object.assign(where, { [Op.or]: [{ name: { [Op.iLike]: pattern } }, { airframe: { [Op.iLike]: pattern } }] });
+    }
+    const { rows, count } = await SetupModel.findAndCountAll({ where, order: [[fn('lower', col('name')), 'ASC'], ['id', 'ASC']], limit, offset });
+    res.json({ data: await presentModels(rows, role, currentUser(req)), pagination: { limit, offset, total: count } });
+  });
+
+  router.post('/workspaces/:ws/models', signedIn, async (req, res) => {
+    const input = parseInput(createModelSchema, req.body);
+    const { workspace, role } = await authorizeWorkspace(req, req.params.ws, 'create');
+    const user = currentUser(req);
+    const { model, revision } = await createModel(sequelize, { workspace, author: user, ...input });
+    res.status(201).json({ data: { model: await presentOneModel(model, role, user), revision: presentSavedRevision(revision) } });
+  });
+
+  router.post('/workspaces/:ws/models/upload', signedIn, async (req, res) => {
+    const { workspace, role } = await authorizeWorkspace(req, req.params.ws, 'create');
+    const upload = await readSetupUpload(req, res);
+    const fields = parseInput(uploadModelFields, upload.fields, 'Some form fields need attention.');
+    const user = currentUser(req);
+    const setup = checkSetupText(upload.text);
+    const { model, revision } = await createModel(sequelize, {
+      workspace,
+      author: user,
+      name: fields.name ?? nameForUpload(setup.analysis.data, upload.fileName),
+      setup,
+      message: fields.message || `Uploaded ${upload.fileName}`,
+      origin: 'upload',
+    });
+    res.status(201).json({ data: { model: await presentOneModel(model, role, user), revision: presentSavedRevision(revision) } });
+  });
+
+  router.get('/models/:id', signedIn, async (req, res) => {
+    const { model, role } = await authorizeModel(req, req.params.id, 'read');
+    res.json({ data: await presentOneModel(model, role, currentUser(req)) });
+  });
+
+  router.patch('/models/:id', signedIn, async (req, res) => {
+    const { name } = parseInput(renameModelSchema, req.body);
+    const { model, role } = await authorizeModel(req, req.params.id, 'edit');
+    const user = currentUser(req);
+    await renameModel(sequelize, model, name, user);
+    res.json({ data: await presentOneModel(model, role, user) });
+  });
+
+  router.post('/models/:id/fork', signedIn, async (req, res) => {
+    const input = parseInput(forkSchema, req.body);
+    const { model: sourceModel } = await authorizeModel(req, req.params.id, 'read');
+    const sourceRevision = await Revision.findOne({ where: { modelId: sourceModel.id, number: input.number } });
+    if (!sourceRevision) throw new NotFound(`This model has no revision ${input.number}.`, { code: 'revision-not-found', details: { number: input.number } });
+    const { workspace, role } = await authorizeWorkspace(req, input.workspace, 'create');
+    const user = currentUser(req);
+    const { model, revision } = await forkModel(sequelize, {
+      source: { model: sourceModel, revision: sourceRevision },
+      workspace,
+      author: user,
+      name: input.name,
+      message: input.message,
+    });
+    res.status(201).json({ data: { model: await presentOneModel(model, role, user), revision: presentSavedRevision(revision) } });
+  });
+
+  router.post('/models/:id/upload', signedIn, async (req, res) => {
+    const { model } = await authorizeModel(req, req.params.id, 'edit');
+    const upload = await readSetupUpload(req, res);
+    const fields = parseInput(uploadRevisionFields, upload.fields, 'Some form fields need attention.');
+    const revision = await saveRevision(sequelize, {
+      modelId: model.id,
+      author: currentUser(req),
+      base: fields.base,
+      yaml: upload.text,
+      message: fields.message || `Uploaded ${upload.fileName}`,
+      origin: 'upload',
+    });
+    res.status(201).json({ data: presentSavedRevision(revision) });
+  });
+
+  return router;
+}
