@@ -15,7 +15,7 @@ async function main(): Promise<void> {
   const config = configFromEnv(process.env, { dataDir, webDir: webDist });
   const sequelize = await prepareDatabase();
   await buildClientIfStale();
-  const server = await startServer({ sequelize, config }, port);
+  const server = await startServer({ sequelize, config }, port, process.env.HOST ?? '127.0.0.1');
   onShutdown('the web server', () => server.close());
   console.log(`\nBindery is running at ${server.url}  (Ctrl-C stops it)`);
   printDemoSignIns();

@@ -27,7 +27,7 @@ interface VitestJsonReport {
 
 const reportDir = mkdtempSync(path.join(os.tmpdir(), 'bindery-test-report-'));
 // Nothing the tests start may reach the database or the secret npm start uses.
-const env: NodeJS.ProcessEnv = { ...process.env, NODE_ENV: 'test' };
+const env: NodeJS.ProcessEnv = { ...process.env };
 delete env.DATABASE_URL;
 delete env.JWT_SECRET;
 

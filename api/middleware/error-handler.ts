@@ -61,7 +61,9 @@ export function describeError(error: unknown): ErrorBody | null {
     // Other client errors raised by Express itself (e.g. a path that cannot be decoded).
     const status = (error as { status?: unknown }).status;
     if (typeof status === 'number' && status >= 400 && status < 500) {
-      return { status, code: 'bad-request', message: 'The request is not valid.' };
+      return status === 404
+        ? { status, code: 'not-found', message: 'Not found.' }
+        : { status, code: 'bad-request', message: 'The request is not valid.' };
     }
   }
   return null;
