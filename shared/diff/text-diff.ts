@@ -21,9 +21,42 @@ export interface TextDiff {
   /** Lines only in the old text, lines only in the new one. */
   removed: number;
   added: number;
+  /**
+   * False when the texts differ too much for a line-by-line match within the time a
+   * compare may take: the rows then show the common start and end, and everything in
+   * between as one changed block.
+   */
+  exact: boolean;
 }
 
 const CONTEXT_LINES = 3;
+// Myers' algorithm costs about (lines x edits); past this many edits (a reformatted
+// file, say) the diff stops looking for the shortest script and falls back.
+const MAX_EDITS = 500;
+
+interface Part {
+  value: string;
+  added?: boolean;
+  removed?: boolean;
+}
+
+// Common leading and trailing lines kept, the middle replaced: a correct (if not the
+// shortest) line diff in linear time.
+function coarseParts(beforeText: string, afterText: string): Part[] {
+  const a = beforeText.split(/(?<=\n)/);
+  const b = afterText.split(/(?<=\n)/);
+  let head = 0;
+  while (head < a.length && head < b.length && a[head] === b[head]) head++;
+  let tail = 0;
+  while (tail < a.length - head && tail < b.length - head && a[a.length - 1 - tail] === b[b.length - 1 - tail]) tail++;
+  const parts: Part[] = [
+    { value: a.slice(0, head).join('') },
+    { value: a.slice(head, a.length - tail).join(''), removed: true },
+    { value: b.slice(head, b.length - tail).join(''), added: true },
+    { value: a.slice(a.length - tail).join('') },
+  ];
+  return parts.filter((part) => part.value !== '');
+}
 
 function lines(value: string): string[] {
   const parts = value.split('\n');
@@ -34,10 +67,12 @@ function lines(value: string): string[] {
 /**
  * The line diff of two YAML texts (Myers' algorithm, through the `diff` package),
  * laid out for a side-by-side view: a run of removed lines followed by added ones is
- * paired row by row as `changed`, the surplus stays `removed` or `added`.
+ * paired row by row as `changed`, the surplus stays `removed` or `added`. Texts
+ * with more than MAX_EDITS line edits get the coarse diff instead (`exact: false`).
  */
 export function textDiff(beforeText: string, afterText: string): TextDiff {
-  const parts = diffLines(beforeText, afterText);
+  const myers = diffLines(beforeText, afterText, { maxEditLength: MAX_EDITS });
+  const parts: Part[] = myers ?? coarseParts(beforeText, afterText);
   const rows: TextRow[] = [];
   let leftLine = 1;
   let rightLine = 1;
@@ -62,7 +97,7 @@ export function textDiff(beforeText: string, afterText: string): TextDiff {
       rows.push({ kind: left && right ? 'changed' : left ? 'removed' : 'added', left, right });
     }
   }
-  return { rows, hunks: hunks(rows), removed, added };
+  return { rows, hunks: hunks(rows), removed, added, exact: myers !== undefined };
 }
 
 function hunks(rows: TextRow[]): TextHunk[] {

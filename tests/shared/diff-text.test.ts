@@ -48,8 +48,22 @@ describe('text diff', () => {
     expect(diff.rows.flatMap((row) => (row.right ? [row.right.text] : []))).toEqual(after.text.split('\n').slice(0, -1));
   });
 
+  it('falls back to one changed block, keeping the common start and end, when the texts differ too much', () => {
+    const many = (prefix: string) => Array.from({ length: 600 }, (_, i) => `${prefix}${i}\n`).join('');
+    const before = `format: bindery-setup/1\n${many('a')}end\n`;
+    const after = `format: bindery-setup/1\n${many('b')}end\n`;
+    const diff = textDiff(before, after);
+    expect(diff.exact).toBe(false);
+    expect(diff.removed).toBe(600);
+    expect(diff.added).toBe(600);
+    expect(diff.rows[0].kind).toBe('same');
+    expect(diff.rows[diff.rows.length - 1]).toEqual({ kind: 'same', left: { line: 602, text: 'end' }, right: { line: 602, text: 'end' } });
+    expect(diff.rows.filter((row) => row.kind === 'changed')).toHaveLength(600);
+    expect(textDiff(asLines('ABCABBA'), asLines('CBABAC')).exact).toBe(true);
+  });
+
   it('handles empty texts and a missing final newline', () => {
-    expect(textDiff('', '')).toEqual({ rows: [], hunks: [], removed: 0, added: 0 });
+    expect(textDiff('', '')).toEqual({ rows: [], hunks: [], removed: 0, added: 0, exact: true });
     const diff = textDiff('a\nb', 'a\nb\n');
     expect(diff.rows.map((row) => row.kind)).toEqual(['same', 'changed']);
   });
