@@ -1,14 +1,20 @@
+import { readFile } from 'node:fs/promises';
 import { Router } from 'express';
-import { setupJsonSchemaText } from '../../shared/format/json-schema';
 
-// The published JSON Schema of the setup format, for editors and other tools.
+// The published JSON Schema of the setup format, for editors and other tools: the
+// committed file itself, so what is served is exactly what is published.
+const SCHEMA_FILE = new URL('../../shared/format/setup-1.schema.json', import.meta.url);
+
 export function schemaRouter(): Router {
   const router = Router();
-  let text: string | null = null;
+  let text: Promise<string> | null = null;
 
-  router.get('/schema/setup-1.json', (_req, res) => {
-    text ??= setupJsonSchemaText();
-    res.type('application/schema+json').set('Cache-Control', 'public, max-age=300').send(text);
+  router.get('/schema/setup-1.json', async (_req, res) => {
+    text ??= readFile(SCHEMA_FILE, 'utf8').catch((error: unknown) => {
+      text = null;
+      throw error;
+    });
+    res.type('application/schema+json').set('Cache-Control', 'public, max-age=300').send(await text);
   });
 
   return router;
