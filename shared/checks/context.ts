@@ -1,5 +1,6 @@
 import type { Channel, Control, Mix, PinMapEntry, Receiver, Setup } from '../format/schema';
 import { controlsById } from '../evaluate/control-value';
+import { controlReferences, type ControlReference } from './control-references';
 
 export interface Carrier {
   receiver: Receiver;
@@ -23,6 +24,8 @@ export interface CheckContext {
   mixesByTarget: Map<number, { mix: Mix; index: number }[]>;
   /** Receiver pins by the channel they carry. */
   carriers: Map<number, Carrier[]>;
+  /** Every place that names a control. */
+  references: ControlReference[];
 }
 
 function push<K, V>(map: Map<K, V[]>, key: K, value: V): void {
@@ -40,7 +43,7 @@ export function buildContext(setup: Setup): CheckContext {
   setup.receivers.forEach((receiver, receiverIndex) =>
     receiver.map.forEach((entry, entryIndex) => push(carriers, entry.ch, { receiver, receiverIndex, entry, entryIndex })),
   );
-  return { controls: controlsById(setup.controls), planned, mixesByTarget, carriers };
+  return { controls: controlsById(setup.controls), planned, mixesByTarget, carriers, references: controlReferences(setup) };
 }
 
 /** "channel 8 (flap-right)", or "channel 8" when nothing is planned on it. */

@@ -1,6 +1,6 @@
 import type { Check } from './check';
 import { capitalize } from './context';
-import { controlReferences, USE_WORDS } from './control-references';
+import { referenceOwner, referenceRef, USE_WORDS } from './control-references';
 
 export const controlNotSwitch: Check = {
   id: 'control-not-switch',
@@ -8,14 +8,14 @@ export const controlNotSwitch: Check = {
   description: 'Rates, active or cut names a control that is not a switch.',
   check(setup, ctx) {
     const switches = setup.controls.filter((control) => control.kind === 'switch').map((control) => control.id);
-    return controlReferences(setup).flatMap((reference) => {
+    return ctx.references.flatMap((reference) => {
       const control = ctx.controls.get(reference.controlId);
       if (reference.use === 'input' || !control || control.kind === 'switch') return [];
       return [
         {
-          message: `${capitalize(reference.owner)} uses ${control.id} ${USE_WORDS[reference.use]}, but ${control.id} is ${control.kind === 'axis' ? 'an' : 'a'} ${control.kind}, which has no positions.`,
+          message: `${capitalize(referenceOwner(setup, reference))} uses ${control.id} ${USE_WORDS[reference.use]}, but ${control.id} is ${control.kind === 'axis' ? 'an' : 'a'} ${control.kind}, which has no positions.`,
           hint: switches.length > 0 ? `Use a switch (${switches.join(', ')}).` : 'Add a switch to controls and use it here.',
-          ...reference.ref,
+          ...referenceRef(setup, reference),
         },
       ];
     });

@@ -1,62 +1,69 @@
 import type { Setup } from '../format/schema';
 import { ref, type Ref } from './refs';
 
-export interface PositionUse {
-  position: number;
-  ref: Ref;
-}
-
-/** A place where the setup names a control, with the switch positions it uses there. */
+/**
+ * A place where the setup names a control, with the switch positions it uses there.
+ * Paths are built only when a check reports something, since most references are fine.
+ */
 export interface ControlReference {
   controlId: string;
-  /** "mix ail-left" or "the cut of channel 3 (motor)". */
-  owner: string;
-  /** What the reference is for, in words. */
   use: 'input' | 'rates' | 'active' | 'cut';
-  /** The `control` (or `from`) field. */
-  ref: Ref;
-  /** Switch positions used; rates give one per weight. */
-  positions: PositionUse[];
-  /** For rates: the list of weights. */
-  listRef?: Ref;
+  /** Index of the mix (input, rates, active) or of the channel (cut). */
+  index: number;
+  /** Switch positions used; for rates, one per weight (0, 1, ...). */
+  positions: readonly number[];
 }
 
 export function controlReferences(setup: Setup): ControlReference[] {
   const refs: ControlReference[] = [];
-  setup.mixes.forEach((mix, i) => {
-    const owner = `mix ${mix.id}`;
-    refs.push({ controlId: mix.from, owner, use: 'input', ref: ref.mix(setup, i, 'from'), positions: [] });
+  setup.mixes.forEach((mix, index) => {
+    refs.push({ controlId: mix.from, use: 'input', index, positions: [] });
     if (mix.rates) {
-      refs.push({
-        controlId: mix.rates.control,
-        owner,
-        use: 'rates',
-        ref: ref.mix(setup, i, 'rates', 'control'),
-        positions: mix.rates.weights.map((_, p) => ({ position: p, ref: ref.mix(setup, i, 'rates', 'weights', p) })),
-        listRef: ref.mix(setup, i, 'rates', 'weights'),
-      });
+      refs.push({ controlId: mix.rates.control, use: 'rates', index, positions: mix.rates.weights.map((_, p) => p) });
     }
-    if (mix.active) {
-      refs.push({
-        controlId: mix.active.control,
-        owner,
-        use: 'active',
-        ref: ref.mix(setup, i, 'active', 'control'),
-        positions: mix.active.positions.map((position, p) => ({ position, ref: ref.mix(setup, i, 'active', 'positions', p) })),
-      });
-    }
+    if (mix.active) refs.push({ controlId: mix.active.control, use: 'active', index, positions: mix.active.positions });
   });
-  setup.channels.forEach((channel, i) => {
-    if (!channel.cut) return;
-    refs.push({
-      controlId: channel.cut.control,
-      owner: `the cut of channel ${channel.ch} (${channel.function})`,
-      use: 'cut',
-      ref: ref.channel(setup, i, 'cut', 'control'),
-      positions: [{ position: channel.cut.position, ref: ref.channel(setup, i, 'cut', 'position') }],
-    });
+  setup.channels.forEach((channel, index) => {
+    if (channel.cut) refs.push({ controlId: channel.cut.control, use: 'cut', index, positions: [channel.cut.position] });
   });
   return refs;
+}
+
+/** "mix ail-left" or "the cut of channel 3 (motor)". */
+export function referenceOwner(setup: Setup, reference: ControlReference): string {
+  if (reference.use === 'cut') {
+    const channel = setup.channels[reference.index];
+    return `the cut of channel ${channel.ch} (${channel.function})`;
+  }
+  return `mix ${setup.mixes[reference.index].id}`;
+}
+
+/** The field that names the control (`from` or `control`). */
+export function referenceRef(setup: Setup, reference: ControlReference): Ref {
+  switch (reference.use) {
+    case 'input':
+      return ref.mix(setup, reference.index, 'from');
+    case 'rates':
+      return ref.mix(setup, reference.index, 'rates', 'control');
+    case 'active':
+      return ref.mix(setup, reference.index, 'active', 'control');
+    case 'cut':
+      return ref.channel(setup, reference.index, 'cut', 'control');
+  }
+}
+
+/** The field holding the i-th position used by the reference. */
+export function positionRef(setup: Setup, reference: ControlReference, i: number): Ref {
+  switch (reference.use) {
+    case 'rates':
+      return ref.mix(setup, reference.index, 'rates', 'weights', i);
+    case 'active':
+      return ref.mix(setup, reference.index, 'active', 'positions', i);
+    case 'cut':
+      return ref.channel(setup, reference.index, 'cut', 'position');
+    case 'input':
+      return ref.mix(setup, reference.index, 'from');
+  }
 }
 
 export const USE_WORDS: Record<ControlReference['use'], string> = {

@@ -1,13 +1,12 @@
 import type { Check } from './check';
-import { controlReferences } from './control-references';
 import { ref } from './refs';
 
 export const controlUnused: Check = {
   id: 'control-unused',
   severity: 'info',
   description: 'A control that nothing refers to.',
-  check(setup) {
-    const used = new Set(controlReferences(setup).map((reference) => reference.controlId));
+  check(setup, ctx) {
+    const used = new Set(ctx.references.map((reference) => reference.controlId));
     return setup.controls.flatMap((control, i) =>
       used.has(control.id)
         ? []

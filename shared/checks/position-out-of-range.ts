@@ -1,6 +1,7 @@
 import type { Check, CheckResult } from './check';
 import { capitalize } from './context';
-import { controlReferences } from './control-references';
+import { positionRef, referenceOwner } from './control-references';
+import { ref } from './refs';
 
 function positionWords(positions: number): string {
   return positions === 2 ? 'positions 0 and 1' : `positions 0 to ${positions - 1}`;
@@ -12,35 +13,39 @@ export const positionOutOfRange: Check = {
   description: 'A switch position in rates weights, active positions or a cut that the switch does not have.',
   check(setup, ctx) {
     const results: CheckResult[] = [];
-    for (const reference of controlReferences(setup)) {
+    for (const reference of ctx.references) {
+      if (reference.use === 'input') continue;
       const control = ctx.controls.get(reference.controlId);
-      if (reference.use === 'input' || !control || control.kind !== 'switch') continue;
+      if (!control || control.kind !== 'switch') continue;
       const n = control.positions;
       if (reference.use === 'rates') {
         const count = reference.positions.length;
-        if (count > n) {
-          results.push({
-            message: `${capitalize(reference.owner)} gives ${count} rates weights, but ${control.id} has only ${n} positions (${positionWords(n)}); weight ${count} is never used.`,
-            hint: `Give exactly ${n} weights, one per position of ${control.id}.`,
-            ...reference.positions[n].ref,
-          });
-        } else if (count < n && reference.listRef) {
-          results.push({
-            message: `${capitalize(reference.owner)} gives ${count} rates weights, but ${control.id} has ${n} positions; at position ${n - 1} the mix falls back to its weight.`,
-            hint: `Give exactly ${n} weights, one per position of ${control.id}.`,
-            ...reference.listRef,
-          });
-        }
+        if (count === n) continue;
+        const owner = capitalize(referenceOwner(setup, reference));
+        const hint = `Give exactly ${n} weights, one per position of ${control.id}.`;
+        results.push(
+          count > n
+            ? {
+                message: `${owner} gives ${count} rates weights, but ${control.id} has only ${n} positions (${positionWords(n)}); weight ${n + 1} is never used.`,
+                hint,
+                ...positionRef(setup, reference, n),
+              }
+            : {
+                message: `${owner} gives ${count} rates weights, but ${control.id} has ${n} positions; at position ${n - 1} the mix falls back to its weight.`,
+                hint,
+                ...ref.mix(setup, reference.index, 'rates', 'weights'),
+              },
+        );
         continue;
       }
-      for (const use of reference.positions) {
-        if (use.position < n) continue;
+      reference.positions.forEach((position, i) => {
+        if (position < n) return;
         results.push({
-          message: `${capitalize(reference.owner)} uses position ${use.position} of ${control.id}, which has only ${positionWords(n)}, so that setting can never happen.`,
+          message: `${capitalize(referenceOwner(setup, reference))} uses position ${position} of ${control.id}, which has only ${positionWords(n)}, so that setting can never happen.`,
           hint: `Use a position from 0 to ${n - 1}.`,
-          ...use.ref,
+          ...positionRef(setup, reference, i),
         });
-      }
+      });
     }
     return results;
   },

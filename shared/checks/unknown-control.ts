@@ -1,6 +1,6 @@
 import type { Check } from './check';
 import { capitalize } from './context';
-import { controlReferences, USE_WORDS } from './control-references';
+import { referenceOwner, referenceRef, USE_WORDS } from './control-references';
 
 export const unknownControl: Check = {
   id: 'unknown-control',
@@ -8,12 +8,12 @@ export const unknownControl: Check = {
   description: 'A mix, rates, active or cut names a control that does not exist.',
   check(setup, ctx) {
     const known = setup.controls.map((control) => control.id);
-    return controlReferences(setup)
+    return ctx.references
       .filter((reference) => !ctx.controls.has(reference.controlId))
       .map((reference) => ({
-        message: `${capitalize(reference.owner)} uses the control ${reference.controlId} ${USE_WORDS[reference.use]}, but there is no control with that id.`,
+        message: `${capitalize(referenceOwner(setup, reference))} uses the control ${reference.controlId} ${USE_WORDS[reference.use]}, but there is no control with that id.`,
         hint: `Use one of the controls (${known.join(', ')}), or add ${reference.controlId} to controls.`,
-        ...reference.ref,
+        ...referenceRef(setup, reference),
       }));
   },
 };

@@ -52,27 +52,37 @@ function isSwitch(control: Control | undefined): control is Control & { kind: 's
   return control !== undefined && control.kind === 'switch';
 }
 
-/** The best of A x + B x^3 on -1..1, as [value, x]. */
-function cubicExtreme(a: number, b: number, sign: 1 | -1): [number, number] {
+/**
+ * Where A x + B x^3 is highest (sign 1) or lowest (sign -1) on -1..1: at an end, or
+ * where its slope A + 3 B x^2 is zero. The function is odd, so f(-x) = -f(x).
+ */
+function extremeX(a: number, b: number, sign: number): number {
   let bestX = 1;
   let best = sign * (a + b);
-  const consider = (x: number) => {
-    const value = sign * (a * x + b * x * x * x);
-    if (value > best + 1e-12) {
-      best = value;
-      bestX = x;
-    }
-  };
-  consider(-1);
+  if (-best > best + 1e-12) {
+    best = -best;
+    bestX = -1;
+  }
   if (b !== 0) {
     const square = -a / (3 * b);
     if (square > 0 && square < 1) {
       const root = Math.sqrt(square);
-      consider(root);
-      consider(-root);
+      const atRoot = sign * (a * root + b * root * root * root);
+      if (atRoot > best + 1e-12) {
+        best = atRoot;
+        bestX = root;
+      }
+      if (-atRoot > best + 1e-12) {
+        best = -atRoot;
+        bestX = -root;
+      }
     }
   }
-  return [sign * best, bestX];
+  return bestX;
+}
+
+function cubic(a: number, b: number, x: number): number {
+  return a * x + b * x * x * x;
 }
 
 function switchValue(position: number, positions: number): number {
@@ -111,8 +121,9 @@ function solveGroup(mixes: CompiledMix[], vars: Variables): GroupResult {
   if (combinations > COMBINATION_LIMIT) return boundGroup(mixes, vars);
 
   const position = new Array<number>(n).fill(0);
-  const a = new Array<number>(vars.axes.length).fill(0);
-  const b = new Array<number>(vars.axes.length).fill(0);
+  const axisCount = vars.axes.length;
+  const a = new Array<number>(axisCount).fill(0);
+  const b = new Array<number>(axisCount).fill(0);
   let max: Extreme = { value: -Infinity, setting: {} };
   let min: Extreme = { value: Infinity, setting: {} };
 
@@ -122,10 +133,7 @@ function solveGroup(mixes: CompiledMix[], vars: Variables): GroupResult {
     let constant = 0;
     for (const m of mixes) {
       const mix = m.mix;
-      if (mix.active) {
-        const at = m.activeSwitch >= 0 ? position[m.activeSwitch] : 0;
-        if (!mix.active.positions.includes(at)) continue;
-      }
+      if (mix.active && !mix.active.positions.includes(m.activeSwitch >= 0 ? position[m.activeSwitch] : 0)) continue;
       const w = weightAt(mix, m.ratesSwitch >= 0 ? position[m.ratesSwitch] : 0);
       constant += mix.offset;
       if (m.fromAxis >= 0) {
@@ -133,23 +141,17 @@ function solveGroup(mixes: CompiledMix[], vars: Variables): GroupResult {
         b[m.fromAxis] += w * m.k;
       } else if (m.fromSwitch >= 0) {
         const x = switchValue(position[m.fromSwitch], vars.switchPositions[m.fromSwitch]);
-        constant += w * ((1 - m.k) * x + m.k * x * x * x);
+        constant += w * cubic(1 - m.k, m.k, x);
       }
     }
     let high = constant;
     let low = constant;
-    const highX: number[] = [];
-    const lowX: number[] = [];
-    for (let i = 0; i < vars.axes.length; i += 1) {
-      const [hv, hx] = cubicExtreme(a[i], b[i], 1);
-      const [lv, lx] = cubicExtreme(a[i], b[i], -1);
-      high += hv;
-      low += lv;
-      highX.push(a[i] === 0 && b[i] === 0 ? NaN : hx);
-      lowX.push(a[i] === 0 && b[i] === 0 ? NaN : lx);
+    for (let i = 0; i < axisCount; i += 1) {
+      high += cubic(a[i], b[i], extremeX(a[i], b[i], 1));
+      low += cubic(a[i], b[i], extremeX(a[i], b[i], -1));
     }
-    if (high > max.value + 1e-9) max = { value: high, setting: settingOf(vars, position, highX) };
-    if (low < min.value - 1e-9) min = { value: low, setting: settingOf(vars, position, lowX) };
+    if (high > max.value + 1e-9) max = { value: high, setting: settingOf(vars, position, a, b, 1) };
+    if (low < min.value - 1e-9) min = { value: low, setting: settingOf(vars, position, a, b, -1) };
 
     for (let i = 0; i < n; i += 1) {
       position[i] += 1;
@@ -160,13 +162,13 @@ function solveGroup(mixes: CompiledMix[], vars: Variables): GroupResult {
   return { max, min, exact: true };
 }
 
-function settingOf(vars: Variables, position: number[], axisX: number[]): Record<string, number> {
+function settingOf(vars: Variables, position: readonly number[], a: readonly number[], b: readonly number[], sign: number) {
   const setting: Record<string, number> = {};
-  vars.switches.forEach((id, i) => (setting[id] = position[i]));
-  vars.axes.forEach((id, i) => {
+  for (let i = 0; i < vars.switches.length; i += 1) setting[vars.switches[i]] = position[i];
+  for (let i = 0; i < vars.axes.length; i += 1) {
     // An axis with no effect in this combination is left out of the description.
-    if (!Number.isNaN(axisX[i])) setting[id] = Math.round(axisX[i] * 100);
-  });
+    if (a[i] !== 0 || b[i] !== 0) setting[vars.axes[i]] = Math.round(extremeX(a[i], b[i], sign) * 100);
+  }
   return setting;
 }
 

@@ -1,38 +1,25 @@
-import { CST, Lexer } from 'yaml';
-
-// The lexer emits marker tokens that stand for no source text.
-const SYNTHETIC_TOKENS = new Set<string | null>(['doc-mode', 'flow-error-end', 'scalar']);
+import type { CST } from 'yaml';
 
 export interface DeepNesting {
   depth: number;
   offset: number;
 }
 
+const COLLECTIONS = new Set(['block-map', 'block-seq', 'flow-collection']);
+
 /**
- * Finds nesting deeper than `limit` from the lexer's flat token stream, before the
- * composer builds (recursively) a node tree. Flow brackets nest without limit on one
- * line, and so do compact block indicators (`- - - x`, `? ? x`); nesting by
- * indentation costs a growing number of spaces per level, so within the size limit
- * it stays shallow enough for the composer and is measured on the node tree instead.
+ * Whether the parser's stack of open tokens holds more than `limit` collections. The
+ * parser is watched after every lexeme, so a runaway of brackets or dashes
+ * (`[[[[...`, `- - - - x`) is stopped as soon as it passes the limit, long before
+ * the composer (which recurses once per level) would see it.
  */
-export function findDeepNesting(text: string, limit: number): DeepNesting | null {
-  let flowDepth = 0;
-  let lineIndicators = 0;
-  let offset = 0;
-  for (const token of new Lexer().lex(text)) {
-    const type = CST.tokenType(token);
-    if (type === 'flow-seq-start' || type === 'flow-map-start') {
-      flowDepth += 1;
-      if (flowDepth > limit) return { depth: flowDepth, offset };
-    } else if (type === 'flow-seq-end' || type === 'flow-map-end') {
-      flowDepth = Math.max(0, flowDepth - 1);
-    } else if (type === 'seq-item-ind' || type === 'explicit-key-ind') {
-      lineIndicators += 1;
-      if (lineIndicators > limit) return { depth: lineIndicators, offset };
-    } else if (type === 'newline') {
-      lineIndicators = 0;
-    }
-    if (!SYNTHETIC_TOKENS.has(type)) offset += token.length;
+export function findDeepNesting(stack: readonly CST.Token[], limit: number): DeepNesting | null {
+  if (stack.length <= limit) return null;
+  let depth = 0;
+  for (const token of stack) {
+    if (!COLLECTIONS.has(token.type)) continue;
+    depth += 1;
+    if (depth > limit) return { depth, offset: 'offset' in token ? token.offset : 0 };
   }
   return null;
 }

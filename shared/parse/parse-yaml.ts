@@ -1,6 +1,19 @@
-import { isAlias, isCollection, isMap, isPair, isScalar, LineCounter, parseDocument, type Document, type YAMLError } from 'yaml';
+import {
+  Composer,
+  isAlias,
+  isCollection,
+  isMap,
+  isScalar,
+  Lexer,
+  LineCounter,
+  Parser,
+  YAMLParseError,
+  type CST,
+  type Document,
+  type YAMLError,
+} from 'yaml';
 import { MAX_ALIAS_COUNT, MAX_NESTING_DEPTH, MAX_TEXT_BYTES } from './limits';
-import { findDeepNesting } from './nesting-depth';
+import { findDeepNesting, type DeepNesting } from './nesting-depth';
 import { utf8Length } from './utf8-length';
 
 /** A reason the text could not be read as a setup at all (reported as `syntax`). */
@@ -47,25 +60,6 @@ function describeYamlError(error: YAMLError, text: string): Pick<TextProblem, 'm
   };
 }
 
-/** Deepest nesting of collections in the composed tree, walked without recursion. */
-function treeDepthExceeds(document: Document.Parsed, limit: number): number | null {
-  const stack: { node: unknown; depth: number }[] = [{ node: document.contents, depth: 0 }];
-  while (stack.length > 0) {
-    const { node, depth } = stack.pop()!;
-    if (isCollection(node)) {
-      const inner = depth + 1;
-      if (inner > limit) return node.range ? node.range[0] : 0;
-      for (const item of node.items) {
-        if (isPair(item)) {
-          stack.push({ node: item.key, depth: inner });
-          stack.push({ node: item.value, depth: inner });
-        } else stack.push({ node: item, depth: inner });
-      }
-    }
-  }
-  return null;
-}
-
 function describeRoot(contents: unknown): string {
   if (contents === null || contents === undefined) return 'it is empty';
   if (isScalar(contents) && (contents.value === null || contents.value === undefined)) return 'it is empty';
@@ -82,7 +76,8 @@ export function parseYaml(text: string): ParsedText {
     return { line, column: col };
   };
 
-  const bytes = utf8Length(text);
+  // A UTF-16 unit takes one to three UTF-8 bytes, so short texts need no counting.
+  const bytes = text.length * 3 <= MAX_TEXT_BYTES ? 0 : utf8Length(text);
   if (bytes > MAX_TEXT_BYTES) {
     return unreadable(lineCounter, [
       {
@@ -95,48 +90,48 @@ export function parseYaml(text: string): ParsedText {
   }
 
   try {
-    const deep = findDeepNesting(text, MAX_NESTING_DEPTH);
+    // What parseDocument does, in steps: lexer and parser token by token, watching the
+    // nesting depth, then the composer. The parser fills the line counter as it goes.
+    const parser = new Parser(lineCounter.addNewLine);
+    const tokens: CST.Token[] = [];
+    let deep: DeepNesting | null = null;
+    lineCounter.addNewLine(0);
+    for (const lexeme of new Lexer().lex(text)) {
+      for (const token of parser.next(lexeme)) tokens.push(token);
+      deep = findDeepNesting(parser.stack, MAX_NESTING_DEPTH);
+      if (deep) break;
+    }
+    if (!deep) for (const token of parser.end()) tokens.push(token);
     if (deep) {
-      // The lexer has not filled the line counter; count the lines up to the offset.
-      const before = text.slice(0, deep.offset);
-      const line = before.split('\n').length;
-      const column = deep.offset - before.lastIndexOf('\n');
       return unreadable(lineCounter, [
         {
           message: `The document nests more than ${MAX_NESTING_DEPTH} levels deep; setups are not read past that depth.`,
-          hint: 'A setup nests only a few levels: check for runaway brackets or dashes.',
-          line,
-          column,
+          hint: 'A setup nests only a few levels: check for runaway brackets, dashes or indentation.',
+          ...at(deep.offset),
         },
       ]);
     }
 
-    const document = parseDocument(text, {
-      lineCounter,
+    const composer = new Composer({
       uniqueKeys: true,
-      prettyErrors: true,
       // Keeps the value plain JSON: YAML 1.1 extras such as !!binary stay strings.
       resolveKnownTags: false,
     });
+    let document: Document.Parsed | null = null;
+    for (const composed of composer.compose(tokens, true, text.length)) {
+      if (!document) document = composed;
+      else {
+        document.errors.push(
+          new YAMLParseError([composed.range[0], composed.range[1]], 'MULTIPLE_DOCS', 'a file holds one setup, but this one has several documents'),
+        );
+        break;
+      }
+    }
+    if (!document) throw new Error('the YAML composer returned no document');
     if (document.errors.length > 0) {
       return unreadable(
         lineCounter,
         document.errors.map((error) => ({ ...describeYamlError(error, text), ...at(error.pos[0]) })),
-        document,
-      );
-    }
-
-    const deepAt = treeDepthExceeds(document, MAX_NESTING_DEPTH);
-    if (deepAt !== null) {
-      return unreadable(
-        lineCounter,
-        [
-          {
-            message: `The document nests more than ${MAX_NESTING_DEPTH} levels deep; setups are not read past that depth.`,
-            hint: 'A setup nests only a few levels: check the indentation.',
-            ...at(deepAt),
-          },
-        ],
         document,
       );
     }
