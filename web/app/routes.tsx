@@ -18,6 +18,8 @@ const HomeScreen = lazyScreen(() => import('./routes/home'), 'HomeScreen');
 const NotFoundScreen = lazyScreen(() => import('./routes/not-found'), 'NotFoundScreen');
 const PlannedScreen = lazyScreen(() => import('./routes/planned-screen'), 'PlannedScreen');
 const TeamScreen = lazyScreen(() => import('../features/team/components/team-screen'), 'TeamScreen');
+const HangarScreen = lazyScreen(() => import('../features/models/components/hangar-screen'), 'HangarScreen');
+const OverviewScreen = lazyScreen(() => import('../features/overview/components/overview-screen'), 'OverviewScreen');
 
 interface Screen extends FrameLink {
   element: React.ReactElement;
@@ -29,7 +31,7 @@ function planned(path: string, label: string, description: string): Screen {
 
 /** Screens of one workspace, under `/w/:wsId/`. */
 export const workspaceScreens: Screen[] = [
-  planned('hangar', 'Hangar', "The workspace's models, each with the state of its checks and its review."),
+  { path: 'hangar', label: 'Hangar', element: <HangarScreen /> },
   planned('shelf', 'Shelf', "The workspace's receivers: their labels and marks, last known settings and where each has flown."),
   planned('reviews', 'Reviews', 'Review requests waiting for a verdict, and the verdicts given on this workspace’s revisions.'),
   { path: 'team', label: 'Team', element: <TeamScreen /> },
@@ -37,7 +39,7 @@ export const workspaceScreens: Screen[] = [
 
 /** Screens of one model, under `/models/:modelId/`. */
 export const modelScreens: Screen[] = [
-  planned('overview', 'Overview', 'The channel plan against receivers and pins with conflicts marked, the findings and the cautions.'),
+  { path: 'overview', label: 'Overview', element: <OverviewScreen /> },
   planned('edit', 'Edit', 'The setup as YAML with live check marks, and forms for the channel plan, pin maps, failsafes and mixes.'),
   planned('bench', 'Bench', 'Sticks, knobs and switches to set; each channel’s value, each pin’s pulse and failsafe, and the curve of every mix.'),
   planned('history', 'History', 'Every revision of this model, newest first, with author, message, tags and check summary.'),

@@ -1,0 +1,121 @@
+import { useMemo, useState } from 'react';
+import { useSearchParams } from 'react-router-dom';
+import { Button } from '../../../components/ui/button';
+import { EmptyState } from '../../../components/ui/empty-state';
+import { ErrorState } from '../../../components/ui/error-state';
+import { LoadingState } from '../../../components/ui/loading-state';
+import { PageHeader } from '../../../components/ui/page-header';
+import { useCurrentWorkspace } from '../../workspaces/hooks/use-current-workspace';
+import { useHangar } from '../api/list-models';
+import { canEdit } from '../permissions';
+import { firstDirection, searchModels, sortModels, type HangarColumn, type HangarSort } from '../sort-models';
+import { HangarTable } from './hangar-table';
+import { NewModelDialog } from './new-model-dialog';
+
+const COLUMNS: HangarColumn[] = ['name', 'airframe', 'revision', 'checks', 'review', 'changed'];
+
+// The sort and the search live in the address, so a filtered hangar can be shared or reloaded.
+function sortFrom(params: URLSearchParams): HangarSort {
+  const column = COLUMNS.find((name) => name === params.get('sort')) ?? 'name';
+  const dir = params.get('dir');
+  return { column, direction: dir === 'asc' ? 'ascending' : dir === 'desc' ? 'descending' : firstDirection(column) };
+}
+
+export function HangarScreen() {
+  const { inUrl } = useCurrentWorkspace();
+  const [params, setParams] = useSearchParams();
+  const [creating, setCreating] = useState(false);
+  const hangar = useHangar(inUrl?.id ?? null);
+  const query = params.get('q') ?? '';
+  const sort = sortFrom(params);
+
+  const shown = useMemo(() => sortModels(searchModels(hangar.data?.models ?? [], query), sort), [hangar.data, query, sort.column, sort.direction]);
+
+  if (!inUrl) return null;
+  const editor = canEdit(inUrl.role);
+
+  const update = (changes: Record<string, string | null>) =>
+    setParams(
+      (current) => {
+        const next = new URLSearchParams(current);
+        for (const [key, value] of Object.entries(changes)) {
+          if (value) next.set(key, value);
+          else next.delete(key);
+        }
+        return next;
+      },
+      { replace: true },
+    );
+
+  const newModel = editor ? (
+    <Button onClick={() => setCreating(true)}>New model</Button>
+  ) : (
+    <p className="max-w-xs text-sm text-ink-700">Your role here is {inUrl.role}: you can read the models; owners and editors add them.</p>
+  );
+
+  return (
+    <>
+      <PageHeader
+        title="Hangar"
+        description={`The models of ${inUrl.name}, each with the checks of its latest revision and its review.`}
+        actions={newModel}
+      />
+      {creating && <NewModelDialog workspace={inUrl} onClose={() => setCreating(false)} />}
+      {hangar.isPending ? (
+        <LoadingState label="Loading the hangar…" />
+      ) : hangar.isError ? (
+        <ErrorState title="The hangar could not be loaded" error={hangar.error} onRetry={() => void hangar.refetch()} />
+      ) : hangar.data.models.length === 0 ? (
+        <EmptyState title="No models in this hangar yet" action={editor ? <Button onClick={() => setCreating(true)}>Add the first model</Button> : undefined}>
+          {editor
+            ? 'Start from a blank setup, bring in a .yaml file, or fork a proven layout from another model.'
+            : 'When an owner or editor adds a model, it appears here with its checks and review state.'}
+        </EmptyState>
+      ) : (
+        <>
+          <div className="mb-4 flex flex-wrap items-end gap-3">
+            <div className="w-full max-w-sm">
+              <label htmlFor="hangar-search" className="block text-sm font-medium text-ink-900">
+                Search models
+              </label>
+              <input
+                id="hangar-search"
+                type="search"
+                value={query}
+                onChange={(event) => update({ q: event.target.value || null })}
+                placeholder="Name, airframe or author"
+                className="mt-1.5 block h-10 w-full rounded-md border border-ply-500 bg-paper-raised px-3 text-base text-ink-900 placeholder:text-ink-500"
+              />
+            </div>
+            <p className="pb-2 text-sm text-ink-700" aria-live="polite">
+              {query ? `${shown.length} of ${hangar.data.models.length} models` : `${hangar.data.models.length} ${hangar.data.models.length === 1 ? 'model' : 'models'}`}
+            </p>
+          </div>
+          {shown.length === 0 ? (
+            <EmptyState
+              title={`No model matches “${query}”`}
+              action={
+                <Button variant="secondary" onClick={() => update({ q: null })}>
+                  Clear the search
+                </Button>
+              }
+            >
+              The search looks at each model's name, airframe and the author of its latest revision.
+            </EmptyState>
+          ) : (
+            <HangarTable
+              models={shown}
+              sort={sort}
+              onSort={(next) => update({ sort: next.column, dir: next.direction === 'ascending' ? 'asc' : 'desc' })}
+            />
+          )}
+          {hangar.data.total > hangar.data.models.length && (
+            <p className="mt-3 text-sm text-ink-700">
+              Showing the first {hangar.data.models.length} of {hangar.data.total} models by name.
+            </p>
+          )}
+        </>
+      )}
+    </>
+  );
+}

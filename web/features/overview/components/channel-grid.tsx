@@ -1,0 +1,146 @@
+import { Fragment } from 'react';
+import { Badge } from '../../../components/ui/badge';
+import { Card } from '../../../components/ui/card';
+import { cx } from '../../../lib/cx';
+import { failsafeText, type ChannelPlan, type PlanReceiver, type PlanRow } from '../channel-plan';
+import { MarkBadge } from './mark-badge';
+import { TelemetryIcon } from './mark-icons';
+
+export const receiverName = (receiver: Pick<PlanReceiver, 'id' | 'label'>) => receiver.label ?? `Receiver ${receiver.id}`;
+
+export function TelemetryBadge({ receiver }: { receiver: PlanReceiver }) {
+  return receiver.telemetry ? (
+    <Badge tone="accent" icon={TelemetryIcon}>
+      Sends telemetry
+    </Badge>
+  ) : (
+    <Badge tone="neutral">Telemetry off</Badge>
+  );
+}
+
+/** Channels 1 to the link's count (and any used beyond it) against the receivers that carry them. */
+export function ChannelGrid({ plan }: { plan: ChannelPlan }) {
+  const { rows, receivers, linkChannels } = plan;
+  const columns = 3 + receivers.length;
+
+  return (
+    <Card className="overflow-x-auto">
+      <table className="w-full border-collapse text-left text-base">
+        <caption className="sr-only">
+          Channel plan: each channel's function, the receiver pins that carry it, and what the checks found
+        </caption>
+        <thead className="border-b-2 border-ply-300 align-bottom text-sm text-ink-700">
+          <tr>
+            <th scope="col" className="w-14 px-3 py-2 font-medium">
+              Ch
+            </th>
+            <th scope="col" className="px-3 py-2 font-medium">
+              Function
+            </th>
+            {receivers.map((receiver) => (
+              <th key={receiver.id} scope="col" className="border-l border-ply-200 px-3 py-2 font-medium">
+                <span className="block text-ink-900">{receiverName(receiver)}</span>
+                <span className="mt-0.5 flex flex-wrap items-center gap-1 font-normal">
+                  <span className="text-xs capitalize">{receiver.role}</span>
+                  <TelemetryBadge receiver={receiver} />
+                </span>
+              </th>
+            ))}
+            <th scope="col" className="border-l border-ply-200 px-3 py-2 font-medium">
+              Marks
+            </th>
+          </tr>
+        </thead>
+        <tbody>
+          {rows.map((row) => (
+            <Fragment key={row.ch}>
+              {linkChannels !== null && row.ch === linkChannels + 1 && (
+                <tr>
+                  <td colSpan={columns} className="border-y-2 border-dashed border-ply-500 bg-ply-100 px-3 py-1.5 text-sm font-medium text-ink-700">
+                    Beyond the link: it carries {linkChannels} channels, so nothing below reaches a receiver
+                  </td>
+                </tr>
+              )}
+              <ChannelRow row={row} receivers={receivers} />
+            </Fragment>
+          ))}
+        </tbody>
+      </table>
+    </Card>
+  );
+}
+
+function ChannelRow({ row, receivers }: { row: PlanRow; receivers: PlanReceiver[] }) {
+  const worst = row.marks.some((mark) => mark.finding.severity === 'error') ? 'error' : row.marks.length > 0 ? 'warning' : null;
+  return (
+    <tr
+      className={cx(
+        'border-b border-ply-100 align-top',
+        row.beyondLink && 'bg-ply-100/60',
+        worst === 'error' && 'bg-danger-100/40',
+        worst === 'warning' && 'bg-caution-100/40',
+      )}
+    >
+      <th
+        scope="row"
+        className={cx(
+          'border-l-4 px-3 py-2 font-mono text-base font-medium text-ink-900',
+          worst === 'error' ? 'border-danger-700' : worst === 'warning' ? 'border-caution-700' : 'border-transparent',
+        )}
+      >
+        {row.ch}
+      </th>
+      <td className="px-3 py-2">
+        {row.functions.length === 0 ? (
+          <span className="text-sm text-ink-500">free</span>
+        ) : (
+          <ul className="space-y-0.5">
+            {row.functions.map((fn, index) => (
+              <li key={`${fn.function}-${index}`}>
+                <span className="font-medium text-ink-900">{fn.function}</span>
+                {fn.role && (
+                  <span className="ml-1.5 text-sm text-ink-700">
+                    {fn.role}
+                    {fn.side ? `, ${fn.side}` : ''}
+                  </span>
+                )}
+              </li>
+            ))}
+          </ul>
+        )}
+      </td>
+      {receivers.map((receiver) => {
+        const pins = row.pins[receiver.id] ?? [];
+        return (
+          <td key={receiver.id} className="border-l border-ply-200 px-3 py-2">
+            {pins.length === 0 ? (
+              <span aria-label="not carried" className="text-ink-500">
+                ·
+              </span>
+            ) : (
+              <ul className="flex flex-wrap gap-1">
+                {pins.map((pin) => (
+                  <li key={pin.pin} className="rounded-sm border border-accent-700/30 bg-accent-50 px-1.5 py-0.5 text-sm text-ink-900">
+                    <span className="font-medium">Pin {pin.pin}</span>
+                    <span className="ml-1 text-xs text-ink-700">fs {failsafeText(pin.failsafe)}</span>
+                  </li>
+                ))}
+              </ul>
+            )}
+          </td>
+        );
+      })}
+      <td className="border-l border-ply-200 px-3 py-2">
+        {row.marks.length > 0 && (
+          <ul className="flex flex-col items-start gap-1">
+            {row.marks.map((mark) => (
+              <li key={mark.kind}>
+                <MarkBadge mark={mark} />
+              </li>
+            ))}
+          </ul>
+        )}
+      </td>
+    </tr>
+  );
+}

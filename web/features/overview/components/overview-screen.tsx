@@ -1,0 +1,194 @@
+import { useMemo, type ReactNode } from 'react';
+import { Link, useParams } from 'react-router-dom';
+import { ReviewStateBadge, Badge } from '../../../components/ui/badge';
+import { buttonClasses } from '../../../components/ui/button';
+import { Card } from '../../../components/ui/card';
+import { EmptyState } from '../../../components/ui/empty-state';
+import { ErrorState } from '../../../components/ui/error-state';
+import { CheckIcon } from '../../../components/ui/icons';
+import { LoadingState } from '../../../components/ui/loading-state';
+import { PageHeader } from '../../../components/ui/page-header';
+import { CautionsPanel } from '../../cautions/components/cautions-panel';
+import { FindingsList } from '../../findings/components/findings-list';
+import { useModel } from '../../models/api/get-model';
+import { useRevision } from '../../models/api/get-revision';
+import { CheckBadges } from '../../models/components/check-badges';
+import { TimeAgo } from '../../models/components/time-ago';
+import { canEdit } from '../../models/permissions';
+import type { Revision, SetupModelView } from '../../models/types';
+import { buildChannelPlan, MARK_WORDS, type MarkKind } from '../channel-plan';
+import { ChannelGrid } from './channel-grid';
+import { MARK_ICONS } from './mark-icons';
+import { ReceiverStrips } from './receiver-strips';
+
+export function OverviewScreen() {
+  const { modelId = '' } = useParams();
+  const model = useModel(modelId);
+  const revision = useRevision(model.data?.latest?.id);
+  const title = model.data ? `Overview · ${model.data.name}` : 'Overview';
+
+  let body: ReactNode;
+  if (model.isPending || (model.data?.latest && revision.isPending)) body = <LoadingState label="Loading the channel plan…" />;
+  else if (model.isError) body = <ErrorState title="This model could not be loaded" error={model.error} onRetry={() => void model.refetch()} />;
+  else if (revision.isError) body = <ErrorState title="The latest revision could not be loaded" error={revision.error} onRetry={() => void revision.refetch()} />;
+  else if (!revision.data) body = <EmptyState title="This model has no revision yet">Save a setup in the editor to see its channel plan here.</EmptyState>;
+  else body = <Overview model={model.data} revision={revision.data} />;
+
+  return (
+    <>
+      <PageHeader
+        title="Overview"
+        documentTitle={title}
+        description="The channel plan against the receivers and their pins, what the checks found, and the cautions before flying."
+        actions={
+          model.data &&
+          canEdit(model.data.role) && (
+            <Link to={`/models/${modelId}/edit`} className={buttonClasses('secondary')}>
+              Edit the setup
+            </Link>
+          )
+        }
+      />
+      {body}
+    </>
+  );
+}
+
+function Overview({ model, revision }: { model: SetupModelView; revision: Revision }) {
+  const plan = useMemo(() => buildChannelPlan(revision.document, revision.findings), [revision]);
+  const marksUsed = new Set(plan.rows.flatMap((row) => row.marks.map((mark) => mark.kind)));
+
+  return (
+    <div className="space-y-8">
+      <Summary model={model} revision={revision} linkChannels={plan.linkChannels} receivers={plan.receivers.length} />
+
+      <section aria-labelledby="plan-heading">
+        <div className="mb-3 flex flex-wrap items-baseline justify-between gap-2">
+          <h2 id="plan-heading" className="text-xl font-semibold text-ink-900">
+            Channel plan
+          </h2>
+          <p className="text-sm text-ink-700">
+            {plan.linkChannels === null ? 'The setup does not say how many channels the link carries.' : `The link carries ${plan.linkChannels} channels.`}
+          </p>
+        </div>
+        {plan.rows.length === 0 ? (
+          <EmptyState title="No channel plan to draw">This revision names no channels or receiver pins the overview can read.</EmptyState>
+        ) : (
+          <>
+            <ChannelGrid plan={plan} />
+            {marksUsed.size > 0 && <MarkLegend kinds={[...marksUsed]} />}
+          </>
+        )}
+      </section>
+
+      {plan.receivers.length > 0 && (
+        <section aria-labelledby="receivers-heading">
+          <h2 id="receivers-heading" className="mb-3 text-xl font-semibold text-ink-900">
+            Receivers and their pins
+          </h2>
+          <ReceiverStrips plan={plan} />
+        </section>
+      )}
+
+      <div className="grid gap-6 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
+        <section aria-labelledby="findings-heading">
+          <h2 id="findings-heading" className="mb-1 text-xl font-semibold text-ink-900">
+            Findings of revision {revision.number}
+          </h2>
+          <p className="mb-3 text-sm text-ink-700">Choose a finding to open its line in the editor.</p>
+          <FindingsList findings={revision.findings} modelId={model.id} />
+        </section>
+        <CautionsPanel className="self-start" />
+      </div>
+    </div>
+  );
+}
+
+const LEGEND: Record<MarkKind, string> = {
+  shared: 'two functions on one channel move together',
+  unrouted: 'no receiver pin carries the channel',
+  'beyond-link': 'the link does not carry the channel',
+  'no-function': 'a pin carries a channel with no function planned',
+};
+
+function MarkLegend({ kinds }: { kinds: MarkKind[] }) {
+  return (
+    <dl className="mt-3 flex flex-wrap gap-x-6 gap-y-1 text-sm text-ink-700">
+      {kinds.map((kind) => {
+        const Icon = MARK_ICONS[kind];
+        return (
+          <div key={kind} className="flex items-center gap-1.5">
+            <dt className="flex items-center gap-1 font-medium text-ink-900">
+              <Icon />
+              {MARK_WORDS[kind]}:
+            </dt>
+            <dd>{LEGEND[kind]}</dd>
+          </div>
+        );
+      })}
+    </dl>
+  );
+}
+
+function Fact({ label, children }: { label: string; children: ReactNode }) {
+  return (
+    <div className="min-w-0">
+      <dt className="text-sm text-ink-700">{label}</dt>
+      <dd className="mt-0.5 text-base text-ink-900">{children}</dd>
+    </div>
+  );
+}
+
+function Summary({ model, revision, linkChannels, receivers }: { model: SetupModelView; revision: Revision; linkChannels: number | null; receivers: number }) {
+  const source = model.forked_from;
+  return (
+    <Card className="px-5 py-4">
+      <dl className="grid grid-cols-2 gap-x-6 gap-y-4 sm:grid-cols-3 lg:grid-cols-6">
+        <Fact label="Revision">
+          <span className="font-mono">r{revision.number}</span>
+          <span className="block text-sm text-ink-700">
+            <TimeAgo iso={revision.created_at} />
+            {revision.author && ` by ${revision.author.name}`}
+          </span>
+        </Fact>
+        <Fact label="Airframe">
+          <span className="capitalize">{model.airframe ?? 'not given'}</span>
+        </Fact>
+        <Fact label="Link">{linkChannels === null ? 'not given' : `${linkChannels} channels`}</Fact>
+        <Fact label="Receivers">{receivers}</Fact>
+        <Fact label="Checks">
+          <CheckBadges errors={revision.error_count} warnings={revision.warning_count} />
+        </Fact>
+        <Fact label="Review">
+          <span className="flex flex-wrap gap-1">
+            <ReviewStateBadge state={model.review_state} />
+            {model.cleared_for_maiden && (
+              <Badge tone="moss" icon={CheckIcon}>
+                Cleared for maiden
+              </Badge>
+            )}
+          </span>
+        </Fact>
+      </dl>
+      {revision.message && <p className="mt-4 border-t border-ply-100 pt-3 text-sm text-ink-700">“{revision.message}”</p>}
+      {source && (
+        <p className="mt-3 border-t border-ply-100 pt-3 text-sm text-ink-700">
+          Forked from{' '}
+          {source.readable && source.model_name ? (
+            <Link to={`/models/${source.model_id}/overview`}>
+              {source.model_name}, revision {source.number}
+            </Link>
+          ) : (
+            `revision ${source.number} of a model in a workspace you are not in`
+          )}
+          {source.readable && model.latest && (
+            <>
+              {' · '}
+              <Link to={`/models/${model.id}/compare?from=${source.revision_id}&to=${model.latest.id}`}>Compare with the source</Link>
+            </>
+          )}
+        </p>
+      )}
+    </Card>
+  );
+}
