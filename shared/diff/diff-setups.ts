@@ -185,9 +185,20 @@ class Walker {
  * The semantic diff of two setup documents (plain data, schema-valid or not; never
  * throws). Lists are matched by the identity keys of FORMAT.md. Each change has a
  * semantic path, the values before and after (null for "none") and a sentence.
- * A reordered list gives one `moved` change for the list (not one per entry): order
- * has no effect on outputs, so one line saying which entries moved is enough.
- * Defaults are applied before comparing (see withDefaults).
+ *
+ * - added / removed: a list entry, or a section or object field (a cut, a rates
+ *   block) that appears or disappears; before / after hold the whole value.
+ * - changed: one per scalar leaf (a value set, cleared or altered; null stands for
+ *   unset), and lists without identity keys (rates weights) as one value.
+ * - renamed: an entry whose identity key changed with the rest of it equal; the path
+ *   names the old key, before / after are the old and new key. A channel entry whose
+ *   `ch` changed is the function moving channel.
+ * - moved: one change per list whose entries' order changed (not one per entry):
+ *   order has no effect on outputs, so one line saying which entries moved is
+ *   enough; before / after are the entries' keys in the old and new order.
+ *
+ * Defaults are applied before comparing (see withDefaults). Changes come grouped by
+ * section in the order of SECTIONS.
  */
 export function diffSetups(before: unknown, after: unknown): SetupDiff {
   const left = withDefaults(toPlain(before));
