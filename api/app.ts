@@ -16,6 +16,10 @@ import { modelsRouter } from './routes/models';
 import { revisionsRouter } from './routes/revisions';
 import { compareRouter } from './routes/compare';
 import { auditRouter } from './routes/audit';
+import { teamRouter } from './routes/team';
+import { invitationsRouter } from './routes/invitations';
+import { passwordResetRouter } from './routes/password-reset';
+import { outboxRouter } from './routes/outbox';
 
 function securityHeaders(secure: boolean) {
   return helmet({
@@ -77,6 +81,10 @@ export function createApp(context: AppContext): Express {
   api.use(revisionsRouter(context));
   api.use(compareRouter(context));
   api.use(auditRouter(context));
+  api.use(teamRouter(context));
+  api.use(invitationsRouter(context));
+  api.use(passwordResetRouter(context));
+  api.use(outboxRouter(context));
   api.use(unknownApiRoute);
   app.use('/api', api);
 

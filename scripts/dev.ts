@@ -2,6 +2,7 @@
 // Vite's dev server with hot reload proxying /api to it (vite.config.ts).
 import { spawn } from 'node:child_process';
 import { configFromEnv } from '../api/config';
+import { startMail } from '../api/mail/start-mail';
 import { portFromEnv, startServer } from '../api/server';
 import { printDemoSignIns } from './lib/demo';
 import { bin, dataDir, projectRoot } from './lib/paths';
@@ -14,9 +15,13 @@ async function main(): Promise<void> {
   const port = portFromEnv(process.env);
   const config = configFromEnv(process.env, { dataDir, webDir: null });
   const sequelize = await prepareDatabase();
-  const server = await startServer({ sequelize, config }, port);
+  // Links in mails lead to Vite's dev server, which serves the client here.
+  const mail = await startMail(process.env, 'http://127.0.0.1:5173');
+  onShutdown('the mail server', () => mail.close());
+  const server = await startServer({ sequelize, config, mail: mail.service }, port);
   onShutdown('the API server', () => server.close());
   console.log(`API listening on ${server.url}`);
+  console.log(mail.description);
   printDemoSignIns();
 
   const vite = spawn(bin('vite'), ['--host', '127.0.0.1'], {

@@ -1,7 +1,9 @@
 // npm start: the product on one port, from a fresh clone. Ensures PostgreSQL (or uses
 // DATABASE_URL), migrates, seeds the demo once, builds the client when stale, serves
-// API and client, and on Ctrl-C/SIGTERM stops the server and the database it started.
+// API and client beside a local mail server (unless SMTP_HOST names a real one), and on
+// Ctrl-C/SIGTERM stops the servers and the database it started.
 import { configFromEnv } from '../api/config';
+import { startMail } from '../api/mail/start-mail';
 import { portFromEnv, startServer } from '../api/server';
 import { buildClientIfStale } from './lib/build-web';
 import { printDemoSignIns } from './lib/demo';

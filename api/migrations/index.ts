@@ -2,6 +2,7 @@ import type { MigrationFn } from 'umzug';
 import type { MigrationContext } from '../db/migrate';
 import * as accountsAndWorkspaces from './0001-accounts-and-workspaces';
 import * as modelsAndRevisions from './0002-models-and-revisions';
+import * as mailAndTeam from './0003-mail-and-team';
 
 export interface MigrationModule {
   up: MigrationFn<MigrationContext>;
@@ -13,4 +14,5 @@ export interface MigrationModule {
 export const migrations: { name: string; module: MigrationModule }[] = [
   { name: '0001-accounts-and-workspaces', module: accountsAndWorkspaces },
   { name: '0002-models-and-revisions', module: modelsAndRevisions },
+  { name: '0003-mail-and-team', module: mailAndTeam },
 ];

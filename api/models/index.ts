@@ -6,9 +6,13 @@ import { SetupModel } from './SetupModel';
 import { Revision } from './Revision';
 import { Tag } from './Tag';
 import { AuditEvent } from './AuditEvent';
+import { OutboxMessage } from './OutboxMessage';
+import { Invitation } from './Invitation';
+import { PasswordReset } from './PasswordReset';
 
 export { Membership, User, Workspace };
 export { SetupModel, Revision, Tag, AuditEvent };
+export { OutboxMessage, Invitation, PasswordReset };
 
 let boundTo: Sequelize | null = null;
 
@@ -42,5 +46,11 @@ export function initModels(sequelize: Sequelize): void {
   Tag.belongsTo(User, { as: 'creator', foreignKey: 'createdBy' });
   AuditEvent.belongsTo(Workspace, { as: 'workspace', foreignKey: 'workspaceId' });
   AuditEvent.belongsTo(User, { as: 'actor', foreignKey: 'actorId' });
+  OutboxMessage.initModel(sequelize);
+  Invitation.initModel(sequelize);
+  PasswordReset.initModel(sequelize);
+  Invitation.belongsTo(Workspace, { as: 'workspace', foreignKey: 'workspaceId' });
+  Invitation.belongsTo(User, { as: 'inviter', foreignKey: 'invitedBy' });
+  PasswordReset.belongsTo(User, { as: 'user', foreignKey: 'userId' });
   boundTo = sequelize;
 }

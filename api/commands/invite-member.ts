@@ -1,0 +1,82 @@
+import { Op, type Sequelize } from 'sequelize';
+import { signLinkToken } from '../auth/link-tokens';
+import type { AppConfig } from '../config';
+import { Conflict } from '../errors';
+import { appLink } from '../mail/context';
+import type { MailService } from '../mail/mail-service';
+import { invitationMail } from '../mail/messages';
+import { Invitation, Membership, User, type Workspace } from '../models';
+import type { Role } from '../policies/roles';
+import { recordTeamEvent } from './record-team-event';
+
+export const INVITATION_TTL_MS = 7 * 24 * 60 * 60 * 1000;
+
+export interface InviteInput {
+  workspace: Workspace;
+  inviter: User;
+  email: string;
+  role: Role;
+}
+
+/**
+ * A new invitation, mailed. Inviting an address again replaces its open invitation, so
+ * only the newest link works. The mail goes out inside the transaction: when it cannot
+ * be sent, no invitation is left behind.
+ */
+export async function inviteMember(sequelize: Sequelize, config: AppConfig, mail: MailService, input: InviteInput): Promise<Invitation> {
+  return sequelize.transaction(async (transaction) => {
+    const existing = await User.findOne({
+      where: { email: input.email },
+      include: [{ model: Membership, as: 'memberships', where: { workspaceId: input.workspace.id }, required: true }],
+      transaction,
+    });
+    if (existing) {
+      throw new Conflict(`${input.email} is already a member of ${input.workspace.name}.`, {
+        code: 'already-member',
+        details: { fields: { email: 'This address already belongs to a member of this workspace.' } },
+      });
+    }
+    const now = new Date();
+    await Invitation.update(
+      { revokedAt: now },
+      { where: { workspaceId: input.workspace.id, email: input.email, acceptedAt: null, revokedAt: null }, transaction },
+    );
+    const invitation = await Invitation.create(
+      { workspaceId: input.workspace.id, email: input.email, role: input.role, invitedBy: input.inviter.id, expiresAt: new Date(now.getTime() + INVITATION_TTL_MS) },
+      { transaction },
+    );
+    invitation.inviter = input.inviter;
+    await recordTeamEvent(
+      {
+        workspaceId: input.workspace.id,
+        actor: input.inviter,
+        action: 'member.invited',
+        subjectType: 'invitation',
+        subjectId: invitation.id,
+        details: { email: invitation.email, role: invitation.role },
+      },
+      transaction,
+    );
+    const token = signLinkToken('invitation', invitation.id, invitation.expiresAt, config);
+    await mail.send(
+      invitationMail({
+        to: invitation.email,
+        inviter: input.inviter.name,
+        workspace: input.workspace.name,
+        role: invitation.role,
+        url: appLink(mail, `/invitations/${token}`),
+        expiresAt: invitation.expiresAt,
+      }),
+    );
+    return invitation;
+  });
+}
+
+/** Pending invitations of a workspace, newest first. */
+export function pendingInvitations(workspaceId: string): Promise<Invitation[]> {
+  return Invitation.findAll({
+    where: { workspaceId, acceptedAt: null, revokedAt: null, expiresAt: { [Op.gt]: new Date() } },
+    include: [{ model: User, as: 'inviter', attributes: ['id', 'name'] }],
+    order: [['createdAt', 'DESC'], ['id', 'DESC']],
+  });
+}

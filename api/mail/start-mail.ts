@@ -1,0 +1,51 @@
+import { startLocalMailServer } from './local-mail-server';
+import { createMailService, type MailService } from './mail-service';
+import { mailSettingsFromEnv } from './mail-settings';
+
+export interface RunningMail {
+  service: MailService;
+  /** One line for the console: where mail goes. */
+  description: string;
+  close(): Promise<void>;
+}
+
+/**
+ * The mail of a running app: through SMTP_HOST when it is set, otherwise through a
+ * local mail server started here, whose catch the Outbox screen shows.
+ */
+export async function startMail(env: NodeJS.ProcessEnv, fallbackAppUrl: string): Promise<RunningMail> {
+  const settings = mailSettingsFromEnv(env, fallbackAppUrl);
+  if (settings.mode === 'smtp') {
+    const service = createMailService(
+      {
+        host: settings.host,
+        port: settings.port,
+        secure: settings.secure,
+        ignoreTLS: false,
+        auth: settings.user ? { user: settings.user, pass: settings.password ?? '' } : null,
+      },
+      { from: settings.from, appUrl: settings.appUrl, outboxEnabled: false },
+    );
+    return { service, description: `Mail goes out through ${settings.host}:${settings.port}.`, close: async () => service.close() };
+  }
+  let server;
+  try {
+    server = await startLocalMailServer({ port: settings.port });
+  } catch (error) {
+    const code = (error as NodeJS.ErrnoException).code;
+    if (code === 'EADDRINUSE') throw new Error(`MAIL_PORT ${settings.port} on 127.0.0.1 is already in use: stop what uses it or set MAIL_PORT to another port.`);
+    throw error;
+  }
+  const service = createMailService(
+    { host: server.host, port: server.port, secure: false, ignoreTLS: true, auth: null },
+    { from: settings.from, appUrl: settings.appUrl, outboxEnabled: true },
+  );
+  return {
+    service,
+    description: `Mail is caught by the local mail server on ${server.host}:${server.port}; read it on the Outbox screen.`,
+    close: async () => {
+      service.close();
+      await server.close();
+    },
+  };
+}

@@ -1,0 +1,79 @@
+import { Router } from 'express';
+import { changeMemberRole, removeMember } from '../commands/manage-members';
+import { inviteMember, pendingInvitations } from '../commands/invite-member';
+import { recordTeamEvent } from '../commands/record-team-event';
+import type { AppContext } from '../context';
+import { NotFound } from '../errors';
+import { mailFor } from '../mail/context';
+import { authenticate, currentUser } from '../middleware/authenticate';
+import { Invitation } from '../models';
+import { requireRole } from '../policies/workspace';
+import { presentInvitation } from '../presenters/invitation';
+import { presentMember } from '../presenters/workspace';
+import { idSchema, parseInput } from '../validation';
+import { changeRoleSchema, inviteSchema } from './team-inputs';
+
+const invitationNotFound = () => new NotFound('No such invitation in this workspace.', { code: 'invitation-not-found' });
+const memberNotFound = () => new NotFound('This person is not a member of the workspace.', { code: 'member-not-found' });
+
+function userIdParam(value: unknown): string {
+  const id = idSchema.safeParse(value);
+  if (!id.success) throw memberNotFound();
+  return id.data;
+}
+
+/** Invitations, roles and leaving: the owners run the team, anyone may leave it. */
+export function teamRouter(context: AppContext): Router {
+  const { sequelize, config } = context;
+  const router = Router();
+  const signedIn = authenticate(config);
+
+  router.get('/workspaces/:ws/invitations', signedIn, async (req, res) => {
+    const { workspace } = await requireRole(req, req.params.ws, 'owner');
+    const invitations = await pendingInvitations(workspace.id);
+    res.json({ data: invitations.map((invitation) => presentInvitation(invitation)) });
+  });
+
+  router.post('/workspaces/:ws/invitations', signedIn, async (req, res) => {
+    const input = parseInput(inviteSchema, req.body);
+    const { workspace } = await requireRole(req, req.params.ws, 'owner');
+    const invitation = await inviteMember(sequelize, config, mailFor(context), { workspace, inviter: currentUser(req), ...input });
+    res.status(201).json({ data: presentInvitation(invitation) });
+  });
+
+  router.delete('/workspaces/:ws/invitations/:id', signedIn, async (req, res) => {
+    const { workspace } = await requireRole(req, req.params.ws, 'owner');
+    const id = idSchema.safeParse(req.params.id);
+    if (!id.success) throw invitationNotFound();
+    const invitation = await sequelize.transaction(async (transaction) => {
+      const found = await Invitation.findOne({ where: { id: id.data, workspaceId: workspace.id }, lock: transaction.LOCK.UPDATE, transaction });
+      if (!found) throw invitationNotFound();
+      if (found.statusAt(new Date()) !== 'pending') return found;
+      await found.update({ revokedAt: new Date() }, { transaction });
+      await recordTeamEvent(
+        { workspaceId: workspace.id, actor: currentUser(req), action: 'invitation.revoked', subjectType: 'invitation', subjectId: found.id, details: { email: found.email, role: found.role } },
+        transaction,
+      );
+      return found;
+    });
+    res.json({ data: presentInvitation(invitation) });
+  });
+
+  router.patch('/workspaces/:ws/members/:userId', signedIn, async (req, res) => {
+    const { role } = parseInput(changeRoleSchema, req.body);
+    const { workspace } = await requireRole(req, req.params.ws, 'owner');
+    const membership = await changeMemberRole(sequelize, { workspace, actor: currentUser(req), userId: userIdParam(req.params.userId), role });
+    res.json({ data: presentMember(membership) });
+  });
+
+  router.delete('/workspaces/:ws/members/:userId', signedIn, async (req, res) => {
+    const actor = currentUser(req);
+    const userId = userIdParam(req.params.userId);
+    // Leaving needs only membership; removing someone else needs an owner.
+    const { workspace } = await requireRole(req, req.params.ws, userId === actor.id ? 'viewer' : 'owner');
+    await removeMember(sequelize, { workspace, actor, userId });
+    res.json({ data: { removed: true, user_id: userId, left: userId === actor.id } });
+  });
+
+  return router;
+}
