@@ -20,6 +20,7 @@ import { teamRouter } from './routes/team';
 import { invitationsRouter } from './routes/invitations';
 import { passwordResetRouter } from './routes/password-reset';
 import { outboxRouter } from './routes/outbox';
+import { receiversRouter } from './routes/receivers';
 
 function securityHeaders(secure: boolean) {
   return helmet({
@@ -85,6 +86,7 @@ export function createApp(context: AppContext): Express {
   api.use(invitationsRouter(context));
   api.use(passwordResetRouter(context));
   api.use(outboxRouter(context));
+  api.use(receiversRouter(context));
   api.use(unknownApiRoute);
   app.use('/api', api);
 

@@ -3,6 +3,7 @@ import type { MigrationContext } from '../db/migrate';
 import * as accountsAndWorkspaces from './0001-accounts-and-workspaces';
 import * as modelsAndRevisions from './0002-models-and-revisions';
 import * as mailAndTeam from './0003-mail-and-team';
+import * as receivers from './0004-receivers';
 
 export interface MigrationModule {
   up: MigrationFn<MigrationContext>;
@@ -15,4 +16,5 @@ export const migrations: { name: string; module: MigrationModule }[] = [
   { name: '0001-accounts-and-workspaces', module: accountsAndWorkspaces },
   { name: '0002-models-and-revisions', module: modelsAndRevisions },
   { name: '0003-mail-and-team', module: mailAndTeam },
+  { name: '0004-receivers', module: receivers },
 ];

@@ -9,10 +9,13 @@ import { AuditEvent } from './AuditEvent';
 import { OutboxMessage } from './OutboxMessage';
 import { Invitation } from './Invitation';
 import { PasswordReset } from './PasswordReset';
+import { Receiver } from './Receiver';
+import { ReceiverInstall } from './ReceiverInstall';
 
 export { Membership, User, Workspace };
 export { SetupModel, Revision, Tag, AuditEvent };
 export { OutboxMessage, Invitation, PasswordReset };
+export { Receiver, ReceiverInstall };
 
 let boundTo: Sequelize | null = null;
 
@@ -52,5 +55,14 @@ export function initModels(sequelize: Sequelize): void {
   Invitation.belongsTo(Workspace, { as: 'workspace', foreignKey: 'workspaceId' });
   Invitation.belongsTo(User, { as: 'inviter', foreignKey: 'invitedBy' });
   PasswordReset.belongsTo(User, { as: 'user', foreignKey: 'userId' });
+  Receiver.initModel(sequelize);
+  ReceiverInstall.initModel(sequelize);
+  Receiver.belongsTo(Workspace, { as: 'workspace', foreignKey: 'workspaceId' });
+  Receiver.belongsTo(User, { as: 'creator', foreignKey: 'createdBy' });
+  Receiver.hasMany(ReceiverInstall, { as: 'installs', foreignKey: 'receiverId' });
+  ReceiverInstall.belongsTo(Receiver, { as: 'receiver', foreignKey: 'receiverId' });
+  ReceiverInstall.belongsTo(SetupModel, { as: 'model', foreignKey: 'modelId' });
+  ReceiverInstall.belongsTo(User, { as: 'installer', foreignKey: 'installedBy' });
+  ReceiverInstall.belongsTo(User, { as: 'remover', foreignKey: 'removedBy' });
   boundTo = sequelize;
 }

@@ -23,14 +23,15 @@ export const MARK_SWATCHES: Record<MarkColour, string> = {
 };
 
 const trimmed = (max: number, what: string) => z.string({ error: `${what} is text.` }).trim().max(max, `${what} is at most ${max} characters.`);
+const oneLine = (max: number, what: string) => trimmed(max, what).regex(/^[^\u0000-\u001f\u007f]*$/, `${what} is one line without control characters.`);
 
 export const receiverFields = {
-  label: trimmed(80, 'The label').min(1, 'Give the receiver a label.'),
+  label: oneLine(80, 'The label').min(1, 'Give the receiver a label.'),
   // An empty mark is no mark.
-  mark: trimmed(80, 'The mark').nullable().transform((mark) => (mark ? mark : null)),
+  mark: oneLine(80, 'The mark').nullable().transform((mark) => (mark ? mark : null)),
   mark_colour: z.enum(MARK_COLOURS, { error: `The mark colour is one of ${MARK_COLOURS.join(', ')}.` }).nullable(),
   outputs: z.int({ error: 'Outputs is a whole number.' }).min(1, 'A receiver has at least 1 output.').max(32, 'At most 32 outputs.'),
-  notes: trimmed(2000, 'The notes'),
+  notes: trimmed(2000, 'The notes').regex(/^[^\u0000]*$/, 'The notes cannot contain NUL characters.'),
   stored_settings: storedSettingsSchema.nullable(),
 };
 

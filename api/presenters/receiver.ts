@@ -1,0 +1,88 @@
+import type { ReuseCheck } from '../../shared/reuse/reuse-check';
+import type { AuditEvent, Receiver, ReceiverInstall, Revision, SetupModel } from '../models';
+import { presentAuthor } from './revision';
+
+/** How an installed unit stands against its slot in the model's latest revision. */
+export interface Readiness {
+  /** ready: nothing to change; changes: settings to program; blocked: cannot fly there; unchecked: no valid slot to check against. */
+  state: 'ready' | 'changes' | 'blocked' | 'unchecked';
+  changes: number;
+  revision: { id: string; number: number } | null;
+  /** Why the check could not run, when unchecked. */
+  reason: string | null;
+}
+
+const iso = (date: Date | null | undefined) => (date ? date.toISOString() : null);
+
+const presentModelRef = (model: SetupModel | undefined, modelId: string) => ({ id: modelId, name: model?.name ?? null });
+
+export function presentInstall(install: ReceiverInstall) {
+  return {
+    id: install.id,
+    receiver_id: install.receiverId,
+    model: presentModelRef(install.model, install.modelId),
+    slot: install.slot,
+    revision_id: install.revisionId,
+    from: install.installedAt.toISOString(),
+    to: iso(install.removedAt),
+    installed_by: presentAuthor(install.installer),
+    removed_by: presentAuthor(install.remover),
+  };
+}
+
+export interface ReceiverView {
+  /** The open install, with its model loaded. */
+  install: ReceiverInstall | null;
+  readiness?: Readiness | null;
+}
+
+export function presentReceiver(receiver: Receiver, view: ReceiverView) {
+  const install = view.install;
+  return {
+    id: receiver.id,
+    workspace_id: receiver.workspaceId,
+    label: receiver.label,
+    mark: receiver.mark ?? null,
+    mark_colour: receiver.markColour ?? null,
+    outputs: receiver.outputs,
+    notes: receiver.notes,
+    stored_settings: receiver.storedSettings ?? null,
+    settings_recorded_at: iso(receiver.settingsRecordedAt),
+    telemetry: receiver.storedSettings ? receiver.storedSettings.telemetry : null,
+    status: install ? ('installed' as const) : ('free' as const),
+    installed: install
+      ? { install_id: install.id, model: presentModelRef(install.model, install.modelId), slot: install.slot, since: install.installedAt.toISOString() }
+      : null,
+    readiness: view.readiness ?? null,
+    created_at: receiver.createdAt.toISOString(),
+    updated_at: receiver.updatedAt.toISOString(),
+  };
+}
+
+export type PresentedReceiver = ReturnType<typeof presentReceiver>;
+
+/** The reuse check as the API answers it: the contract's `changes` and `ready`, and what they were found against. */
+export function presentReuseCheck(receiver: Receiver, model: SetupModel, revision: Revision, check: ReuseCheck, install: ReceiverInstall | null) {
+  return {
+    receiver_id: receiver.id,
+    model: { id: model.id, name: model.name },
+    revision: { id: revision.id, number: revision.number, content_hash: revision.contentHash },
+    slot: check.slot,
+    changes: check.changes,
+    ready: check.ready,
+    notes: check.notes,
+    findings: check.findings,
+    target: check.target,
+    installed_here: Boolean(install && install.modelId === model.id && install.slot === check.slot.id),
+  };
+}
+
+export function presentReceiverEvent(event: AuditEvent) {
+  return {
+    id: event.id,
+    action: event.action,
+    actor: presentAuthor(event.actor),
+    details: event.details,
+    at: event.createdAt.toISOString(),
+  };
+}

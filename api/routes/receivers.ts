@@ -1,0 +1,150 @@
+import { Router } from 'express';
+import { col, fn, literal, Op, type WhereOptions } from 'sequelize';
+import { z } from 'zod';
+import { SLUG_PATTERN } from '../../shared/format/schema';
+import { createReceiverSchema, updateReceiverSchema } from '../../shared/reuse/receiver-fields';
+import { addReceiver } from '../commands/add-receiver';
+import { applyReceiverSettings } from '../commands/apply-receiver-settings';
+import { installReceiver } from '../commands/install-receiver';
+import { removeReceiver } from '../commands/remove-receiver';
+import { updateReceiver } from '../commands/update-receiver';
+import type { AppContext } from '../context';
+import { authenticate, currentUser } from '../middleware/authenticate';
+import { AuditEvent, Receiver, ReceiverInstall, SetupModel, User } from '../models';
+import { authorizeReceiver, authorizeShelf, modelOnShelf } from '../policies/receiver';
+import { presentInstall, presentReceiver, presentReceiverEvent, presentReuseCheck } from '../presenters/receiver';
+import { checkAgainstLatest } from '../queries/receiver-slot';
+import { openInstalls, presentOnShelf, presentShelf } from '../queries/shelf-view';
+import { parseInput } from '../validation';
+
+const escapeLike = (text: string): string => text.replace(/[\\%_]/g, '\\$&');
+
+const shelfQuery = z.object({
+  q: z.string({ error: 'q is the text to search for.' }).trim().max(100, 'Search for at most 100 characters.').optional(),
+  status: z.enum(['installed', 'free'], { error: 'status is installed or free.' }).optional(),
+  limit: z.coerce.number({ error: 'limit must be a number.' }).int('limit must be a whole number.').min(1, 'limit is at least 1.').max(200, 'limit is at most 200.').default(100),
+  offset: z.coerce.number({ error: 'offset must be a number.' }).int('offset must be a whole number.').min(0, 'offset is at least 0.').default(0),
+});
+
+const modelId = z.uuid({ error: 'model is the id of a model in this workspace.' });
+const slotId = z.string({ error: 'slot is the id of a receiver in the model’s setup.' }).regex(SLUG_PATTERN, 'slot is the id of a receiver in the model’s setup.');
+
+const reuseQuery = z.object({ model: modelId, slot: slotId });
+const installSchema = z.strictObject({ model: modelId, slot: slotId, move: z.boolean({ error: 'move is true or false.' }).default(false) });
+const applySchema = z.strictObject({ revision: z.uuid({ error: 'revision is the id of the revision whose check you worked from.' }).optional() });
+
+// The open install of a receiver, tested in SQL so the filter and the count agree.
+const OPEN_INSTALL = 'EXISTS (SELECT 1 FROM receiver_installs i WHERE i.receiver_id = "Receiver"."id" AND i.removed_at IS NULL)';
+
+export function receiversRouter({ sequelize, config }: AppContext): Router {
+  const router = Router();
+  const signedIn = authenticate(config);
+
+  router.get('/workspaces/:ws/receivers', signedIn, async (req, res) => {
+    const { q, status, limit, offset } = parseInput(shelfQuery, req.query, 'The search parameters are not valid.');
+    const { workspace } = await authorizeShelf(req, req.params.ws, 'read');
+    const conditions: WhereOptions<Receiver>[] = [{ workspaceId: workspace.id }];
+    if (q) {
+      const pattern = `%${escapeLike(q)}%`;
+      conditions.push({ [Op.or]: [{ label: { [Op.iLike]: pattern } }, { mark: { [Op.iLike]: pattern } }, { notes: { [Op.iLike]: pattern } }] });
+    }
+    if (status) conditions.push(literal(status === 'installed' ? OPEN_INSTALL : `NOT ${OPEN_INSTALL}`) as unknown as WhereOptions<Receiver>);
+    const { rows, count } = await Receiver.findAndCountAll({
+      where: { [Op.and]: conditions },
+      order: [[fn('lower', col('label')), 'ASC'], ['id', 'ASC']],
+      limit,
+      offset,
+    });
+    res.json({ data: await presentShelf(rows), pagination: { limit, offset, total: count } });
+  });
+
+  router.post('/workspaces/:ws/receivers', signedIn, async (req, res) => {
+    const input = parseInput(createReceiverSchema, req.body);
+    const { workspace } = await authorizeShelf(req, req.params.ws, 'write');
+    const receiver = await addReceiver(sequelize, { workspace, actor: currentUser(req), ...input });
+    res.status(201).json({ data: presentReceiver(receiver, { install: null }) });
+  });
+
+  router.get('/receivers/:id', signedIn, async (req, res) => {
+    const { receiver } = await authorizeReceiver(req, req.params.id, 'read');
+    res.json({ data: await presentOnShelf(receiver) });
+  });
+
+  router.patch('/receivers/:id', signedIn, async (req, res) => {
+    const input = parseInput(updateReceiverSchema, req.body);
+    const presented = await sequelize.transaction(async (transaction) => {
+      const { receiver } = await authorizeReceiver(req, req.params.id, 'write', transaction);
+      await updateReceiver(receiver, input, currentUser(req), transaction);
+      return presentOnShelf(receiver, transaction);
+    });
+    res.json({ data: presented });
+  });
+
+  router.get('/receivers/:id/reuse-check', signedIn, async (req, res) => {
+    const query = parseInput(reuseQuery, req.query, 'Name the model and the slot to check against.');
+    const { receiver } = await authorizeReceiver(req, req.params.id, 'read');
+    const model = await modelOnShelf(receiver.workspaceId, query.model);
+    const [{ revision, check }, installs] = await Promise.all([checkAgainstLatest(receiver, model, query.slot), openInstalls([receiver.id])]);
+    res.json({ data: presentReuseCheck(receiver, model, revision, check, installs.get(receiver.id) ?? null) });
+  });
+
+  router.post('/receivers/:id/install', signedIn, async (req, res) => {
+    const input = parseInput(installSchema, req.body);
+    const { receiver: found } = await authorizeReceiver(req, req.params.id, 'write');
+    const model = await modelOnShelf(found.workspaceId, input.model);
+    const installed = await installReceiver(sequelize, { receiverId: found.id, model, slot: input.slot, actor: currentUser(req), move: input.move });
+    res.status(201).json({
+      data: {
+        ...presentReuseCheck(installed.receiver, model, installed.revision, installed.check, installed.install),
+        receiver: await presentOnShelf(installed.receiver),
+        install: presentInstall(installed.install),
+        moved_from: installed.previous ? presentInstall(installed.previous) : null,
+      },
+    });
+  });
+
+  router.post('/receivers/:id/remove', signedIn, async (req, res) => {
+    const { receiver: found } = await authorizeReceiver(req, req.params.id, 'write');
+    const { receiver, install } = await removeReceiver(sequelize, found.id, currentUser(req));
+    res.json({ data: { receiver: await presentOnShelf(receiver), install: presentInstall(install) } });
+  });
+
+  router.post('/receivers/:id/apply', signedIn, async (req, res) => {
+    const input = parseInput(applySchema, req.body);
+    const { receiver: found } = await authorizeReceiver(req, req.params.id, 'write');
+    const applied = await applyReceiverSettings(sequelize, { receiverId: found.id, actor: currentUser(req), revisionId: input.revision });
+    res.json({
+      data: {
+        ...presentReuseCheck(applied.receiver, applied.model, applied.revision, applied.check, applied.install),
+        receiver: await presentOnShelf(applied.receiver),
+      },
+    });
+  });
+
+  router.get('/receivers/:id/history', signedIn, async (req, res) => {
+    const { receiver } = await authorizeReceiver(req, req.params.id, 'read');
+    const [installs, events] = await Promise.all([
+      ReceiverInstall.findAll({
+        where: { receiverId: receiver.id },
+        include: [
+          { model: SetupModel, as: 'model', attributes: ['id', 'name'] },
+          { model: User, as: 'installer', attributes: ['id', 'name'] },
+          { model: User, as: 'remover', attributes: ['id', 'name'] },
+        ],
+        order: [['installedAt', 'DESC'], ['id', 'DESC']],
+      }),
+      AuditEvent.findAll({
+        where: { workspaceId: receiver.workspaceId, subjectType: 'receiver', subjectId: receiver.id },
+        include: [{ model: User, as: 'actor', attributes: ['id', 'name'] }],
+        order: [['createdAt', 'DESC'], ['id', 'DESC']],
+        limit: 500,
+      }),
+    ]);
+    // A move ends one stay and begins the next at the same instant: newest first, the arrival leads.
+    const rank = (action: string) => (action === 'receiver.installed' ? 0 : 1);
+    const timeline = [...events].sort((a, b) => b.createdAt.getTime() - a.createdAt.getTime() || rank(a.action) - rank(b.action));
+    res.json({ data: { installs: installs.map(presentInstall), events: timeline.map(presentReceiverEvent) } });
+  });
+
+  return router;
+}
