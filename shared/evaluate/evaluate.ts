@@ -82,7 +82,7 @@ export function pulseFor(travel: Travel, value: number): number {
     v >= 0
       ? travel.center_us + (v / 100) * (travel.high_us - travel.center_us)
       : travel.center_us + (v / 100) * (travel.center_us - travel.low_us);
-  return Math.round(pulse);
+  return Math.round(clean(pulse));
 }
 
 /** A channel's idle pulse: its pulse at v = -100 (low_us, or high_us when reversed). */
@@ -90,8 +90,14 @@ export function idlePulse(travel: Travel): number {
   return pulseFor(travel, -100);
 }
 
+// Drops floating-point noise before rounding, so that a value worked by hand to end in
+// 5 (27.125) rounds as on paper rather than as 27.124999999999996 would.
+function clean(value: number): number {
+  return Number(value.toPrecision(12));
+}
+
 function round2(value: number): number {
-  const rounded = Math.round(value * 100) / 100;
+  const rounded = Math.round(clean(value) * 100) / 100;
   return rounded === 0 ? 0 : rounded;
 }
 
