@@ -20,6 +20,8 @@ const PlannedScreen = lazyScreen(() => import('./routes/planned-screen'), 'Plann
 const TeamScreen = lazyScreen(() => import('../features/team/components/team-screen'), 'TeamScreen');
 const HangarScreen = lazyScreen(() => import('../features/models/components/hangar-screen'), 'HangarScreen');
 const OverviewScreen = lazyScreen(() => import('../features/overview/components/overview-screen'), 'OverviewScreen');
+const HistoryScreen = lazyScreen(() => import('../features/history/components/history-screen'), 'HistoryScreen');
+const CompareScreen = lazyScreen(() => import('../features/compare/components/compare-screen'), 'CompareScreen');
 
 interface Screen extends FrameLink {
   element: React.ReactElement;
@@ -42,8 +44,8 @@ export const modelScreens: Screen[] = [
   { path: 'overview', label: 'Overview', element: <OverviewScreen /> },
   planned('edit', 'Edit', 'The setup as YAML with live check marks, and forms for the channel plan, pin maps, failsafes and mixes.'),
   planned('bench', 'Bench', 'Sticks, knobs and switches to set; each channel’s value, each pin’s pulse and failsafe, and the curve of every mix.'),
-  planned('history', 'History', 'Every revision of this model, newest first, with author, message, tags and check summary.'),
-  planned('compare', 'Compare', 'Two revisions side by side: changes by section, the check and bench deltas, and the YAML text.'),
+  { path: 'history', label: 'History', element: <HistoryScreen /> },
+  { path: 'compare', label: 'Compare', element: <CompareScreen /> },
   planned('reviews', 'Reviews', 'This model’s review requests, the pre-maiden checklist and the verdicts.'),
   planned('sheet', 'Field sheet', 'A printable sheet of a revision: channel plan, each receiver’s pin table, review state and cautions.'),
 ];

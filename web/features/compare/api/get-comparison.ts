@@ -1,0 +1,27 @@
+import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
+import { api } from '../../../lib/api-client';
+import type { Id } from '../../../types/api';
+import type { CompareResult } from '../types';
+
+export async function getComparison(from: Id, to: Id, signal?: AbortSignal): Promise<CompareResult> {
+  const params = new URLSearchParams({ from, to });
+  return (await api.get<CompareResult>(`/api/compare?${params}`, signal)).data;
+}
+
+export function comparisonQueryOptions(from: Id, to: Id) {
+  return queryOptions({
+    queryKey: ['compare', from, to],
+    queryFn: ({ signal }) => getComparison(from, to, signal),
+    // Two stored revisions never change, so neither does what differs between them.
+    staleTime: Infinity,
+  });
+}
+
+/** The compare of two revisions; keeps showing the last pair while a newly chosen one loads. */
+export function useComparison(from: Id | null, to: Id | null) {
+  return useQuery({ ...comparisonQueryOptions(from ?? '', to ?? ''), enabled: Boolean(from && to), placeholderData: keepPreviousData });
+}
+
+/** Where the browser downloads the RFC 6902 JSON Patch from `from` to `to`. */
+export const patchDownloadUrl = (from: Id, to: Id) =>
+  `/api/revisions/${encodeURIComponent(to)}/patch?${new URLSearchParams({ from, download: '1' })}`;

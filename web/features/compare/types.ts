@@ -1,0 +1,13 @@
+import type { Comparison } from '../../../shared/diff';
+import type { RevisionModelRef, RevisionSummary } from '../models/types';
+
+/** One side of a compare, as the API names it: the revision and its model. */
+export interface CompareSideSummary extends RevisionSummary {
+  model: RevisionModelRef;
+}
+
+/** `GET /api/compare`: the two revisions and everything that differs between them. */
+export interface CompareResult extends Comparison {
+  from: CompareSideSummary;
+  to: CompareSideSummary;
+}
