@@ -18,6 +18,7 @@ const HomeScreen = lazyScreen(() => import('./routes/home'), 'HomeScreen');
 const NotFoundScreen = lazyScreen(() => import('./routes/not-found'), 'NotFoundScreen');
 const PlannedScreen = lazyScreen(() => import('./routes/planned-screen'), 'PlannedScreen');
 const TeamScreen = lazyScreen(() => import('../features/team/components/team-screen'), 'TeamScreen');
+const EditScreen = lazyScreen(() => import('../features/editor/components/edit-screen'), 'EditScreen');
 const HangarScreen = lazyScreen(() => import('../features/models/components/hangar-screen'), 'HangarScreen');
 const OverviewScreen = lazyScreen(() => import('../features/overview/components/overview-screen'), 'OverviewScreen');
 const HistoryScreen = lazyScreen(() => import('../features/history/components/history-screen'), 'HistoryScreen');
@@ -42,7 +43,7 @@ export const workspaceScreens: Screen[] = [
 /** Screens of one model, under `/models/:modelId/`. */
 export const modelScreens: Screen[] = [
   { path: 'overview', label: 'Overview', element: <OverviewScreen /> },
-  planned('edit', 'Edit', 'The setup as YAML with live check marks, and forms for the channel plan, pin maps, failsafes and mixes.'),
+  { path: 'edit', label: 'Edit', element: <EditScreen /> },
   planned('bench', 'Bench', 'Sticks, knobs and switches to set; each channel’s value, each pin’s pulse and failsafe, and the curve of every mix.'),
   { path: 'history', label: 'History', element: <HistoryScreen /> },
   { path: 'compare', label: 'Compare', element: <CompareScreen /> },

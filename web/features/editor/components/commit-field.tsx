@@ -1,0 +1,78 @@
+import { useEffect, useId, useState, type InputHTMLAttributes, type SelectHTMLAttributes } from 'react';
+import { FieldError } from '../../../components/ui/field-error';
+import { cx } from '../../../lib/cx';
+
+export interface CommitFieldProps extends Omit<InputHTMLAttributes<HTMLInputElement>, 'value' | 'onChange' | 'id'> {
+  /** Said to assistive technology; the table header says it to the eye. */
+  label: string;
+  value: string;
+  /** Takes the typed text; answers a message when it cannot be used, null when it was applied. */
+  onCommit: (text: string) => string | null;
+}
+
+/**
+ * A form field that changes the document when the pilot is done with it (Enter or
+ * leaving the field), not at every keystroke, so a half-typed number never reaches the
+ * text. Escape puts the document's value back.
+ */
+export function CommitField({ label, value, onCommit, className, ...props }: CommitFieldProps) {
+  const [draft, setDraft] = useState(value);
+  const [error, setError] = useState<string | null>(null);
+  const errorId = useId();
+
+  useEffect(() => {
+    setDraft(value);
+    setError(null);
+  }, [value]);
+
+  const commit = () => {
+    const typed = draft.trim();
+    if (typed === value) {
+      setError(null);
+      return;
+    }
+    setError(onCommit(typed));
+  };
+
+  return (
+    <div className={className}>
+      <input
+        aria-label={label}
+        aria-invalid={error ? true : undefined}
+        aria-describedby={error ? errorId : undefined}
+        value={draft}
+        onChange={(event) => setDraft(event.target.value)}
+        onBlur={commit}
+        onKeyDown={(event) => {
+          if (event.key === 'Enter') {
+            event.preventDefault();
+            commit();
+          } else if (event.key === 'Escape') {
+            setDraft(value);
+            setError(null);
+          }
+        }}
+        className={cx(
+          'block h-8 w-full min-w-0 rounded-md border bg-paper-raised px-2 text-sm text-ink-900 disabled:bg-paper disabled:text-ink-700',
+          error ? 'border-2 border-danger-700' : 'border-ply-500',
+        )}
+        {...props}
+      />
+      {error && <FieldError id={errorId}>{error}</FieldError>}
+    </div>
+  );
+}
+
+/** A compact select for table cells, styled like the fields beside it. */
+export function CellSelect({ label, className, ...props }: SelectHTMLAttributes<HTMLSelectElement> & { label: string }) {
+  return (
+    <select
+      aria-label={label}
+      className={cx(
+        'block h-8 w-full min-w-0 rounded-md border border-ply-500 bg-paper-raised px-1.5 text-sm text-ink-900 disabled:bg-paper disabled:text-ink-700',
+        className,
+      )}
+      {...props}
+    />
+  );
+}

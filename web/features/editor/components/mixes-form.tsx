@@ -1,0 +1,224 @@
+import { SLUG_PATTERN } from '../../../../shared/format/schema';
+import { Button } from '../../../components/ui/button';
+import { EmptyState } from '../../../components/ui/empty-state';
+import type { DocumentEdit } from '../document-edits';
+import { entriesAt, entryAt, fieldText, parseNumber, parseWhole, wholeNumber, type Entry, type FormProps } from '../form-values';
+import { CellSelect, CommitField } from './commit-field';
+import { Cell, FormTable, HeaderCell } from './form-table';
+
+interface ControlOption {
+  id: string;
+  kind: string;
+  positions: number;
+}
+
+function controlOptions(data: unknown): ControlOption[] {
+  return entriesAt(data, 'controls').map(({ entry }) => ({
+    id: fieldText(entry.id),
+    kind: fieldText(entry.kind),
+    positions: wholeNumber(entry.positions) ?? 2,
+  }));
+}
+
+function freeMixId(mixes: readonly { entry: Entry }[]): string {
+  const taken = new Set(mixes.map(({ entry }) => fieldText(entry.id)));
+  for (let n = mixes.length + 1; ; n += 1) if (!taken.has(`mix-${n}`)) return `mix-${n}`;
+}
+
+type NumberField = 'weight' | 'offset' | 'expo';
+
+const NUMBER_FIELDS: { key: NumberField; label: string; min: number; max: number; fallback: string }[] = [
+  { key: 'weight', label: 'Weight', min: -200, max: 200, fallback: '100' },
+  { key: 'offset', label: 'Offset', min: -100, max: 100, fallback: '0' },
+  { key: 'expo', label: 'Expo', min: 0, max: 100, fallback: '0' },
+];
+
+export function MixesForm({ data, readOnly, onEdits }: FormProps) {
+  const mixes = entriesAt(data, 'mixes');
+  const controls = controlOptions(data);
+  const switches = controls.filter((control) => control.kind === 'switch');
+
+  const addMix = () => {
+    const from = controls.find((control) => control.kind !== 'switch')?.id ?? controls[0]?.id ?? 'aileron-stick';
+    onEdits([{ kind: 'append', path: ['mixes'], value: { id: freeMixId(mixes), from, to: 1 } }]);
+  };
+
+  return (
+    <fieldset disabled={readOnly} className="min-w-0">
+      <legend className="sr-only">Mixes</legend>
+      <p className="mb-3 text-sm text-ink-700">
+        Each mix feeds a control into a channel: weight × expo curve + offset, in percent. Mixes on one channel add up. Rates replace
+        the weight with one per switch position; conditions (<code className="font-mono">active</code>) stay in the text.
+      </p>
+      {mixes.length === 0 ? (
+        <EmptyState title="No mixes yet">Without mixes no control moves any channel. Add one to start.</EmptyState>
+      ) : (
+        <FormTable caption="Mixes">
+          <thead>
+            <tr>
+              <HeaderCell className="min-w-32">Mix</HeaderCell>
+              <HeaderCell className="min-w-36">From</HeaderCell>
+              <HeaderCell className="w-20">To ch</HeaderCell>
+              {NUMBER_FIELDS.map((field) => (
+                <HeaderCell key={field.key} className="w-20">
+                  {field.label} %
+                </HeaderCell>
+              ))}
+              <HeaderCell className="min-w-52">Rates</HeaderCell>
+              {!readOnly && (
+                <HeaderCell className="w-24">
+                  <span className="sr-only">Actions</span>
+                </HeaderCell>
+              )}
+            </tr>
+          </thead>
+          <tbody>
+            {mixes.map(({ index, entry }) => (
+              <MixRow key={index} index={index} mix={entry} controls={controls} switches={switches} readOnly={readOnly} onEdits={onEdits} />
+            ))}
+          </tbody>
+        </FormTable>
+      )}
+      {!readOnly && (
+        <Button variant="secondary" size="sm" className="mt-3" onClick={addMix}>
+          Add a mix
+        </Button>
+      )}
+    </fieldset>
+  );
+}
+
+interface MixRowProps {
+  index: number;
+  mix: Entry;
+  controls: ControlOption[];
+  switches: ControlOption[];
+  readOnly: boolean;
+  onEdits: (edits: DocumentEdit[]) => void;
+}
+
+function MixRow({ index, mix, controls, switches, readOnly, onEdits }: MixRowProps) {
+  const path = ['mixes', index] as const;
+  const id = fieldText(mix.id) || `mix ${index + 1}`;
+  const from = fieldText(mix.from);
+  const rates = entryAt(mix, 'rates');
+  const active = entryAt(mix, 'active');
+  const ratesControl = rates ? fieldText(rates.control) : '';
+  const ratesSwitch = switches.find((control) => control.id === ratesControl);
+  const weights = Array.isArray(rates?.weights) ? (rates.weights as unknown[]) : [];
+
+  const setRates = (control: string) => {
+    if (control === '') {
+      onEdits([{ kind: 'delete', path: [...path, 'rates'] }]);
+      return;
+    }
+    const positions = switches.find((option) => option.id === control)?.positions ?? 2;
+    const weight = typeof mix.weight === 'number' ? mix.weight : 100;
+    const kept = weights.filter((value): value is number => typeof value === 'number');
+    const next = Array.from({ length: positions }, (_, position) => kept[position] ?? weight);
+    onEdits([{ kind: 'set', path: [...path, 'rates'], value: { control, weights: next } }]);
+  };
+
+  return (
+    <tr>
+      <Cell>
+        <CommitField
+          label={`Id of mix ${id}`}
+          value={fieldText(mix.id)}
+          spellCheck={false}
+          onCommit={(text) => {
+            if (!SLUG_PATTERN.test(text)) return 'Lower-case letters, digits and dashes, like ail-left.';
+            onEdits([{ kind: 'set', path: [...path, 'id'], value: text }]);
+            return null;
+          }}
+        />
+        {active && (
+          <p className="mt-1 text-xs text-ink-700">
+            counts only at {fieldText(active.control)} position {Array.isArray(active.positions) ? active.positions.join(' or ') : '?'}
+          </p>
+        )}
+      </Cell>
+      <Cell>
+        <CellSelect label={`Control of mix ${id}`} value={from} onChange={(event) => onEdits([{ kind: 'set', path: [...path, 'from'], value: event.target.value }])}>
+          {!controls.some((control) => control.id === from) && <option value={from}>{from || 'choose'} (not a control)</option>}
+          {controls.map((control) => (
+            <option key={control.id} value={control.id}>
+              {control.id}
+            </option>
+          ))}
+        </CellSelect>
+      </Cell>
+      <Cell>
+        <CommitField
+          label={`Target channel of mix ${id}`}
+          inputMode="numeric"
+          value={fieldText(mix.to)}
+          onCommit={(text) => {
+            const parsed = parseWhole(text, 1, 32, 'A channel');
+            if (parsed.error !== undefined) return parsed.error;
+            onEdits([{ kind: 'set', path: [...path, 'to'], value: parsed.value }]);
+            return null;
+          }}
+        />
+      </Cell>
+      {NUMBER_FIELDS.map((field) => (
+        <Cell key={field.key}>
+          <CommitField
+            label={`${field.label} of mix ${id} in percent`}
+            inputMode="decimal"
+            placeholder={field.fallback}
+            value={fieldText(mix[field.key])}
+            onCommit={(text) => {
+              if (text === '') {
+                onEdits([{ kind: 'delete', path: [...path, field.key] }]);
+                return null;
+              }
+              const parsed = parseNumber(text, field.min, field.max, field.label);
+              if (parsed.error !== undefined) return parsed.error;
+              onEdits([{ kind: 'set', path: [...path, field.key], value: parsed.value }]);
+              return null;
+            }}
+          />
+        </Cell>
+      ))}
+      <Cell>
+        <CellSelect label={`Rates switch of mix ${id}`} value={ratesControl} onChange={(event) => setRates(event.target.value)}>
+          <option value="">no rates</option>
+          {ratesControl && !ratesSwitch && <option value={ratesControl}>{ratesControl} (not a switch)</option>}
+          {switches.map((control) => (
+            <option key={control.id} value={control.id}>
+              {control.id}
+            </option>
+          ))}
+        </CellSelect>
+        {rates && (
+          <div className="mt-1.5 flex flex-wrap gap-1.5">
+            {weights.map((weight, position) => (
+              <CommitField
+                key={position}
+                className="w-16"
+                label={`Rate weight of mix ${id} at position ${position}`}
+                title={`Weight at position ${position}`}
+                inputMode="decimal"
+                value={fieldText(weight)}
+                onCommit={(text) => {
+                  const parsed = parseNumber(text, -200, 200, 'A rate weight');
+                  if (parsed.error !== undefined) return parsed.error;
+                  onEdits([{ kind: 'set', path: [...path, 'rates', 'weights', position], value: parsed.value }]);
+                  return null;
+                }}
+              />
+            ))}
+          </div>
+        )}
+      </Cell>
+      {!readOnly && (
+        <Cell className="text-right">
+          <Button variant="quiet" size="sm" aria-label={`Remove mix ${id}`} onClick={() => onEdits([{ kind: 'delete', path: [...path] }])}>
+            Remove
+          </Button>
+        </Cell>
+      )}
+    </tr>
+  );
+}

@@ -1,0 +1,403 @@
+import { Suspense, useCallback, useEffect, useId, useMemo, useRef, useState, type ChangeEvent } from 'react';
+import { useLocation, useSearchParams } from 'react-router-dom';
+import { analyzeSetup } from '../../../../shared/analyze';
+import { lazyScreen } from '../../../app/lazy-screen';
+import { Badge, SeverityBadge } from '../../../components/ui/badge';
+import { Button } from '../../../components/ui/button';
+import { CheckIcon, InfoIcon, PencilIcon, StaleIcon, WarningIcon } from '../../../components/ui/icons';
+import { LoadingState } from '../../../components/ui/loading-state';
+import { PageHeader } from '../../../components/ui/page-header';
+import { Spinner } from '../../../components/ui/spinner';
+import { useToast } from '../../../components/ui/toast';
+import { isApiError } from '../../../lib/api-client';
+import type { Role } from '../../../types/api';
+import { FindingsList } from '../../findings/components/findings-list';
+import { Dialog } from '../../models/components/dialog';
+import type { Revision, SavedRevision, SetupModelView } from '../../models/types';
+import { staleBaseOf, useSaveRevision, type StaleBase } from '../api/save-revision';
+import { applyEdits, readDocumentData, type DocumentEdit } from '../document-edits';
+import { clearDraft, saveDraft } from '../draft-storage';
+import { useDebouncedValue } from '../hooks/use-debounced-value';
+import { ChannelPlanForm } from './channel-plan-form';
+import { LeaveGuard } from './leave-guard';
+import { MixesForm } from './mixes-form';
+import { Notice } from './notice';
+import { PinMapForms } from './pin-map-form';
+import { SaveDialog } from './save-dialog';
+import { StaleBasePanel } from './stale-base-panel';
+import { EditorTabs, type EditorTab } from './editor-tabs';
+
+const YamlCodeEditor = lazyScreen(() => import('./yaml-code-editor'), 'YamlCodeEditor');
+
+/** The revision an edit stands on: saving names its number as the base. */
+export interface EditorBase {
+  id: string;
+  number: number;
+  yaml: string;
+  /** Its plain value, for saying what changed since. */
+  document: unknown;
+}
+
+export interface SetupEditorProps {
+  model: SetupModelView;
+  initialBase: EditorBase;
+  /** The text of this tab's draft, when one was kept for this model. */
+  restoredText: string | null;
+  canEdit: boolean;
+  role: Role;
+}
+
+// Long enough that the checks do not run between two keystrokes, short enough to feel live.
+const CHECK_DELAY_MS = 250;
+const MAX_FILE_BYTES = 512 * 1024;
+
+const baseOf = (revision: Revision): EditorBase => ({ id: revision.id, number: revision.number, yaml: revision.yaml, document: revision.document });
+
+function fileStem(name: string): string {
+  const stem = name
+    .toLowerCase()
+    .normalize('NFKD')
+    .replace(/[^a-z0-9]+/g, '-')
+    .replace(/^-+|-+$/g, '');
+  return stem || 'setup';
+}
+
+function countsSentence(saved: SavedRevision): string {
+  const parts = [
+    saved.error_count > 0 && `${saved.error_count} ${saved.error_count === 1 ? 'error' : 'errors'}`,
+    saved.warning_count > 0 && `${saved.warning_count} ${saved.warning_count === 1 ? 'warning' : 'warnings'}`,
+  ].filter(Boolean);
+  return parts.length === 0 ? 'The checks found no errors or warnings.' : `The checks found ${parts.join(' and ')}.`;
+}
+
+export function SetupEditor({ model, initialBase, restoredText, canEdit, role }: SetupEditorProps) {
+  const toast = useToast();
+  const save = useSaveRevision(model.id);
+  const [base, setBase] = useState(initialBase);
+  const [text, setTextState] = useState(restoredText ?? initialBase.yaml);
+  // Form edits apply to the text as it is at that moment, not as the last render saw it.
+  const textRef = useRef(text);
+  const setText = useCallback((next: string) => {
+    textRef.current = next;
+    setTextState(next);
+  }, []);
+  const [restored, setRestored] = useState(restoredText !== null && restoredText !== initialBase.yaml);
+  const [tab, setTab] = useState<EditorTab>('text');
+  const [stale, setStale] = useState<{ info: StaleBase; refused: boolean } | null>(null);
+  const [saveOpen, setSaveOpen] = useState(false);
+  const [discardOpen, setDiscardOpen] = useState(false);
+  const fileInput = useRef<HTMLInputElement>(null);
+  const checksId = useId();
+
+  const dirty = canEdit && text !== base.yaml;
+  const settled = useDebouncedValue(text, CHECK_DELAY_MS);
+  const checked = useMemo(() => ({ text: settled, analysis: analyzeSetup(settled) }), [settled]);
+  const marks = useMemo(() => ({ text: checked.text, findings: checked.analysis.findings }), [checked]);
+  const checking = settled !== text;
+  const { counts } = checked.analysis;
+
+  useEffect(() => {
+    if (!canEdit) return;
+    if (dirty) saveDraft(model.id, { baseId: base.id, baseNumber: base.number, text });
+    else clearDraft(model.id);
+  }, [canEdit, dirty, model.id, base.id, base.number, text]);
+
+  const [params] = useSearchParams();
+  const location = useLocation();
+  const lineParam = Number(params.get('line'));
+  const jump = useMemo(
+    () => (Number.isInteger(lineParam) && lineParam > 0 ? { line: lineParam, key: location.key } : null),
+    [lineParam, location.key],
+  );
+  useEffect(() => {
+    if (jump) setTab('text');
+  }, [jump]);
+
+  const formData = useMemo(() => (tab === 'text' ? null : readDocumentData(text)), [tab, text]);
+
+  const onEdits = useCallback(
+    (edits: DocumentEdit[]) => {
+      try {
+        setText(applyEdits(textRef.current, edits));
+      } catch (error) {
+        toast({ tone: 'error', title: 'The form could not change the text', description: error instanceof Error ? error.message : undefined });
+      }
+    },
+    [setText, toast],
+  );
+
+  const openFile = async (event: ChangeEvent<HTMLInputElement>) => {
+    const file = event.target.files?.[0];
+    event.target.value = '';
+    if (!file) return;
+    if (!/\.ya?ml$/i.test(file.name)) {
+      toast({ tone: 'error', title: `${file.name} was not opened`, description: 'Open a setup saved as a .yaml or .yml file.' });
+      return;
+    }
+    if (file.size > MAX_FILE_BYTES) {
+      toast({ tone: 'error', title: `${file.name} was not opened`, description: `It is ${Math.ceil(file.size / 1024)} KB; setups up to 512 KB are accepted.` });
+      return;
+    }
+    setText(await file.text());
+    setTab('text');
+    toast({ tone: 'info', title: `Opened ${file.name} in the editor`, description: `Look over the findings, then save it as revision ${base.number + 1}.` });
+  };
+
+  const download = () => {
+    const url = URL.createObjectURL(new Blob([text], { type: 'application/yaml' }));
+    const link = document.createElement('a');
+    link.href = url;
+    link.download = `${fileStem(model.name)}-r${base.number}${dirty ? '-edited' : ''}.yaml`;
+    document.body.append(link);
+    link.click();
+    link.remove();
+    URL.revokeObjectURL(url);
+  };
+
+  const isStale = (error: unknown) => isApiError(error) && error.status === 409 && error.code === 'stale-base';
+
+  const submitSave = (message: string) => {
+    const yaml = textRef.current;
+    save.mutate(
+      { base: base.number, message, yaml },
+      {
+        onSuccess: (saved) => {
+          setBase({ id: saved.id, number: saved.number, yaml, document: analyzeSetup(yaml).data });
+          setSaveOpen(false);
+          setStale(null);
+          setRestored(false);
+          toast({ title: `Saved revision ${saved.number}`, description: countsSentence(saved) });
+        },
+        onError: (error) => {
+          if (!isStale(error)) return;
+          setSaveOpen(false);
+          const latest = model.latest;
+          setStale({ info: staleBaseOf(isApiError(error) ? error.details : null) ?? { latest: latest?.number ?? base.number + 1, latestId: latest?.id ?? null }, refused: true });
+        },
+      },
+    );
+  };
+
+  const standOn = (latest: Revision, keepText: boolean) => {
+    setBase(baseOf(latest));
+    if (!keepText) setText(latest.yaml);
+    setStale(null);
+    setRestored(false);
+    toast({
+      tone: 'info',
+      title: keepText ? `Your text now stands on revision ${latest.number}` : `Opened revision ${latest.number}`,
+      description: keepText ? 'Look over the findings and save again when it is right.' : undefined,
+    });
+  };
+
+  const latest = model.latest;
+  const newer = latest !== null && latest.number > base.number;
+
+  return (
+    <>
+      <PageHeader
+        title="Edit"
+        documentTitle={`Edit · ${model.name}`}
+        description={`${model.name}: the setup as YAML text, with forms for the channel plan, pin maps and mixes on the same document, checked as you type.`}
+        actions={
+          <>
+            {canEdit && (
+              <>
+                <input ref={fileInput} type="file" accept=".yaml,.yml,application/yaml,text/yaml" className="sr-only" tabIndex={-1} aria-hidden="true" onChange={(event) => void openFile(event)} />
+                <Button variant="secondary" onClick={() => fileInput.current?.click()}>
+                  Open a file…
+                </Button>
+              </>
+            )}
+            <Button variant="secondary" onClick={download}>
+              Download text
+            </Button>
+            {canEdit && (
+              <Button
+                disabled={!dirty || !checked.analysis.readable || checking}
+                title={!dirty ? 'Nothing to save: the text is as revision ' + base.number + ' has it.' : undefined}
+                onClick={() => {
+                  save.reset();
+                  setSaveOpen(true);
+                }}
+              >
+                Save revision…
+              </Button>
+            )}
+          </>
+        }
+      />
+
+      <div className="mb-4 space-y-2">
+        {!canEdit && (
+          <Notice icon={InfoIcon}>
+            You are a <strong className="font-semibold">{role}</strong> in this workspace: you can read and download this setup, but not
+            change it.
+          </Notice>
+        )}
+        {restored && dirty && (
+          <Notice
+            icon={PencilIcon}
+            actions={
+              <Button variant="secondary" size="sm" onClick={() => setDiscardOpen(true)}>
+                Discard them
+              </Button>
+            }
+          >
+            Your unsaved changes from earlier in this tab are back. The edit started from revision {base.number}.
+          </Notice>
+        )}
+        {newer && !stale && canEdit && (
+          <Notice
+            tone="caution"
+            icon={StaleIcon}
+            actions={
+              <Button variant="secondary" size="sm" onClick={() => setStale({ info: { latest: latest.number, latestId: latest.id }, refused: false })}>
+                See what changed
+              </Button>
+            }
+          >
+            Revision {latest.number} has been saved since revision {base.number}, the one this edit started from. Saving will show what
+            changed before anything is stored.
+          </Notice>
+        )}
+      </div>
+
+      {stale && (
+        <StaleBasePanel
+          base={base}
+          stale={stale.info}
+          refused={stale.refused}
+          mine={checked.text === text ? checked.analysis.data : analyzeSetup(text).data}
+          onReapply={(revision) => standOn(revision, true)}
+          onLoadLatest={(revision) => standOn(revision, false)}
+          onDismiss={() => setStale(null)}
+        />
+      )}
+
+      <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_22rem]">
+        <div className="min-w-0">
+          <div className="flex flex-wrap items-end justify-between gap-x-4 gap-y-2">
+            <EditorTabs value={tab} onChange={setTab} />
+            <p className="flex items-center gap-2 pb-2 text-sm text-ink-700">
+              <span>
+                {canEdit ? 'Editing from' : 'Showing'} revision {base.number}
+              </span>
+              {dirty ? (
+                <>
+                  <Badge tone="accent" icon={PencilIcon}>
+                    Unsaved changes
+                  </Badge>
+                  <Button variant="quiet" size="sm" onClick={() => setDiscardOpen(true)}>
+                    Discard
+                  </Button>
+                </>
+              ) : (
+                canEdit && <Badge icon={CheckIcon}>No unsaved changes</Badge>
+              )}
+            </p>
+          </div>
+
+          <div id="editor-panel-text" role="tabpanel" aria-labelledby="editor-tab-text" hidden={tab !== 'text'}>
+            <div className="h-[32rem] overflow-hidden rounded-lg border border-ply-300 bg-paper-raised lg:h-[40rem]">
+              <Suspense fallback={<LoadingState label="Loading the text editor…" />}>
+                <YamlCodeEditor
+                  value={text}
+                  onChange={setText}
+                  readOnly={!canEdit}
+                  checked={marks}
+                  jump={jump}
+                  visible={tab === 'text'}
+                  label={`Setup text of ${model.name}`}
+                />
+              </Suspense>
+            </div>
+          </div>
+          {tab !== 'text' && (
+            <div id={`editor-panel-${tab}`} role="tabpanel" aria-labelledby={`editor-tab-${tab}`} className="pt-1">
+              {formData === null ? (
+                <Notice
+                  tone="caution"
+                  icon={WarningIcon}
+                  actions={
+                    <Button variant="secondary" size="sm" onClick={() => setTab('text')}>
+                      Show the text
+                    </Button>
+                  }
+                >
+                  The text is not readable YAML right now, so the forms cannot show it. Fix the syntax finding in the text first.
+                </Notice>
+              ) : tab === 'plan' ? (
+                <ChannelPlanForm data={formData} readOnly={!canEdit} onEdits={onEdits} />
+              ) : tab === 'pins' ? (
+                <PinMapForms data={formData} readOnly={!canEdit} onEdits={onEdits} />
+              ) : (
+                <MixesForm data={formData} readOnly={!canEdit} onEdits={onEdits} />
+              )}
+            </div>
+          )}
+        </div>
+
+        <aside aria-labelledby={checksId} className="min-w-0 lg:sticky lg:top-4 lg:self-start">
+          <div className="flex flex-wrap items-center justify-between gap-2">
+            <h2 id={checksId} className="text-lg font-semibold text-ink-900">
+              Checks
+            </h2>
+            <p className="flex min-h-6 items-center gap-1.5 text-sm text-ink-700" aria-live="polite">
+              {checking ? (
+                <>
+                  <Spinner className="text-accent-700" />
+                  Checking…
+                </>
+              ) : (
+                <span className="sr-only">
+                  {counts.errors} errors, {counts.warnings} warnings, {counts.infos} notes
+                </span>
+              )}
+            </p>
+          </div>
+          <p className="mt-1 flex flex-wrap gap-1.5" aria-hidden="true">
+            <SeverityBadge severity="error" count={counts.errors} />
+            <SeverityBadge severity="warning" count={counts.warnings} />
+            <SeverityBadge severity="info" count={counts.infos} />
+          </p>
+          <div className="mt-3 max-h-[40rem] overflow-y-auto">
+            <FindingsList findings={checked.analysis.findings} modelId={model.id} emptyText="The setup passes every check." />
+          </div>
+        </aside>
+      </div>
+
+      {saveOpen && (
+        <SaveDialog
+          base={base.number}
+          counts={counts}
+          pending={save.isPending}
+          error={save.isError && !isStale(save.error) ? save.error.message : null}
+          onSave={submitSave}
+          onClose={() => setSaveOpen(false)}
+        />
+      )}
+      {discardOpen && (
+        <Dialog title="Discard your unsaved changes?" onClose={() => setDiscardOpen(false)}>
+          <p className="text-base text-ink-700">The text goes back to revision {base.number} as it was saved.</p>
+          <div className="mt-4 flex flex-wrap justify-end gap-2">
+            <Button variant="secondary" onClick={() => setDiscardOpen(false)} data-autofocus>
+              Keep them
+            </Button>
+            <Button
+              variant="danger"
+              onClick={() => {
+                setText(base.yaml);
+                setRestored(false);
+                setDiscardOpen(false);
+              }}
+            >
+              Discard changes
+            </Button>
+          </div>
+        </Dialog>
+      )}
+      <LeaveGuard dirty={dirty && !save.isPending} />
+    </>
+  );
+}

@@ -1,0 +1,82 @@
+import { yaml } from '@codemirror/lang-yaml';
+import { lintGutter, setDiagnostics } from '@codemirror/lint';
+import CodeMirror, { EditorSelection, EditorView } from '@uiw/react-codemirror';
+import { useEffect, useMemo, useRef, useState } from 'react';
+import type { Finding } from '../../../../shared/findings';
+import { findingDiagnostics } from '../finding-diagnostics';
+import { editorTheme } from './code-editor-theme';
+
+/** A request to show a line: `key` changes with every request, so the same line can be asked for twice. */
+export interface LineJump {
+  line: number;
+  key: string;
+}
+
+export interface YamlCodeEditorProps {
+  value: string;
+  onChange: (value: string) => void;
+  readOnly: boolean;
+  /** The findings and the text they were computed for; marks follow only when that text is on show. */
+  checked: { text: string; findings: readonly Finding[] };
+  jump: LineJump | null;
+  /** False while another tab covers the editor: a jump waits until it shows. */
+  visible: boolean;
+  label: string;
+}
+
+const BASIC_SETUP = { autocompletion: false, foldGutter: true, highlightActiveLine: true, tabSize: 2 } as const;
+
+// Loaded on demand (see setup-editor.tsx), so CodeMirror stays out of the first page.
+export function YamlCodeEditor({ value, onChange, readOnly, checked, jump, visible, label }: YamlCodeEditorProps) {
+  const [view, setView] = useState<EditorView | null>(null);
+  const shownJump = useRef<string | null>(null);
+
+  const extensions = useMemo(
+    () => [
+      yaml(),
+      lintGutter(),
+      EditorView.lineWrapping,
+      EditorView.contentAttributes.of({ 'aria-label': label }),
+    ],
+    [label],
+  );
+
+  // Marks and jumps wait for the view, and for the text they belong to: `value` reaches
+  // the view in the wrapper's own effect, so each effect here runs again as it changes.
+  useEffect(() => {
+    if (!view) return;
+    if (view.state.doc.toString() !== checked.text) return;
+    view.dispatch(setDiagnostics(view.state, findingDiagnostics(view.state.doc, checked.findings)));
+  }, [view, checked, value]);
+
+  useEffect(() => {
+    if (!view || !visible || !jump || shownJump.current === jump.key) return;
+    shownJump.current = jump.key;
+    const doc = view.state.doc;
+    const line = doc.line(Math.min(Math.max(1, jump.line), doc.lines));
+    view.dispatch({
+      selection: EditorSelection.single(line.from, line.to),
+      effects: EditorView.scrollIntoView(line.from, { y: 'center' }),
+    });
+    view.focus();
+  }, [view, visible, jump, value]);
+
+  useEffect(() => {
+    if (view && visible) view.requestMeasure();
+  }, [view, visible]);
+
+  return (
+    <CodeMirror
+      value={value}
+      onChange={onChange}
+      readOnly={readOnly}
+      editable={!readOnly}
+      basicSetup={BASIC_SETUP}
+      theme={editorTheme}
+      onCreateEditor={setView}
+      extensions={extensions}
+      height="100%"
+      className="h-full"
+    />
+  );
+}
