@@ -2,7 +2,7 @@ import type { Sequelize, Transaction } from 'sequelize';
 import { Revision, SetupModel, type User, type Workspace } from '../models';
 import { starterSetup, type Airframe } from '../starter-setup';
 import { recordAuditEvent } from './record-audit-event';
-import { airframeOf, appendRevision, checkSetupText, type CheckedSetup } from './save-revision';
+import { airframeOf, appendRevision, checkSetupText, inTransaction, type CheckedSetup } from './save-revision';
 
 export interface CreateModelInput {
   workspace: Workspace;
@@ -17,6 +17,7 @@ export interface CreateModelInput {
   airframe?: Airframe;
   origin?: 'create' | 'upload';
   createdAt?: Date;
+  transaction?: Transaction;
 }
 
 export interface CreatedModel {
@@ -68,7 +69,7 @@ export async function createModel(sequelize: Sequelize, input: CreateModelInput)
   const setup = input.setup ?? checkSetupText(input.yaml ?? starterSetup(input.name, input.airframe));
   const given = input.setup !== undefined || input.yaml !== undefined;
   const message = input.message && input.message.length > 0 ? input.message : defaultFirstMessage(origin, given);
-  return sequelize.transaction(async (transaction) => {
+  return inTransaction(sequelize, input.transaction, async (transaction) => {
     const created = await insertModelWithFirstRevision(
       { workspace: input.workspace, author: input.author, name: input.name, setup, message, origin, createdAt: input.createdAt },
       transaction,

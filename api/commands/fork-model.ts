@@ -1,8 +1,8 @@
-import type { Sequelize } from 'sequelize';
+import type { Sequelize, Transaction } from 'sequelize';
 import type { Revision, SetupModel, User, Workspace } from '../models';
 import { insertModelWithFirstRevision, type CreatedModel } from './create-model';
 import { recordAuditEvent } from './record-audit-event';
-import { checkSetupText } from './save-revision';
+import { checkSetupText, inTransaction } from './save-revision';
 
 export interface ForkInput {
   source: { model: SetupModel; revision: Revision };
@@ -11,6 +11,7 @@ export interface ForkInput {
   name?: string;
   message?: string;
   createdAt?: Date;
+  transaction?: Transaction;
 }
 
 export const defaultForkName = (sourceName: string): string => {
@@ -28,7 +29,7 @@ export async function forkModel(sequelize: Sequelize, input: ForkInput): Promise
   const setup = checkSetupText(sourceRevision.yamlText);
   const name = input.name ?? defaultForkName(sourceModel.name);
   const message = input.message && input.message.length > 0 ? input.message : `Forked from ${sourceModel.name}, revision ${sourceRevision.number}`;
-  return sequelize.transaction(async (transaction) => {
+  return inTransaction(sequelize, input.transaction, async (transaction) => {
     const created = await insertModelWithFirstRevision(
       { workspace: input.workspace, author: input.author, name, setup, message, origin: 'fork', sourceRevision, createdAt: input.createdAt },
       transaction,

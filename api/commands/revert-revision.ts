@@ -1,8 +1,8 @@
-import type { Sequelize } from 'sequelize';
+import type { Sequelize, Transaction } from 'sequelize';
 import { NotFound } from '../errors';
 import { Revision, type User } from '../models';
 import { recordAuditEvent } from './record-audit-event';
-import { appendRevision, checkSetupText, lockModel, requireLatestBase } from './save-revision';
+import { appendRevision, checkSetupText, inTransaction, lockModel, requireLatestBase } from './save-revision';
 
 export interface RevertInput {
   modelId: string;
@@ -12,6 +12,7 @@ export interface RevertInput {
   base: number;
   message?: string;
   createdAt?: Date;
+  transaction?: Transaction;
 }
 
 /**
@@ -20,11 +21,11 @@ export interface RevertInput {
  * checked again, so they reflect today's checks.
  */
 export async function revertRevision(sequelize: Sequelize, input: RevertInput): Promise<Revision> {
-  const target = await Revision.findOne({ where: { modelId: input.modelId, number: input.number } });
+  const target = await Revision.findOne({ where: { modelId: input.modelId, number: input.number }, transaction: input.transaction });
   if (!target) throw new NotFound(`This model has no revision ${input.number}.`, { code: 'revision-not-found', details: { number: input.number } });
   const setup = checkSetupText(target.yamlText);
   const message = input.message && input.message.length > 0 ? input.message : `Revert to revision ${target.number}`;
-  return sequelize.transaction(async (transaction) => {
+  return inTransaction(sequelize, input.transaction, async (transaction) => {
     const locked = await lockModel(input.modelId, transaction);
     requireLatestBase(locked.latest, input.base);
     const revision = await appendRevision(locked, setup, { author: input.author, message, origin: 'revert', sourceRevisionId: target.id, createdAt: input.createdAt }, transaction);

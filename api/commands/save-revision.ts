@@ -9,6 +9,14 @@ import type { RevisionOrigin } from '../models/Revision';
 import { recordAuditEvent, type AuditAction } from './record-audit-event';
 
 /** Setup text that has been read and checked, ready to be stored. */
+/**
+ * Runs `work` in the caller's transaction when there is one (the demo seed writes a
+ * whole history in one), otherwise in a transaction of its own.
+ */
+export function inTransaction<T>(sequelize: Sequelize, outer: Transaction | undefined, work: (transaction: Transaction) => Promise<T>): Promise<T> {
+  return outer ? work(outer) : sequelize.transaction(work);
+}
+
 export interface CheckedSetup {
   text: string;
   analysis: Analysis & { readable: true };
@@ -133,6 +141,7 @@ export interface SaveRevisionInput {
   message?: string;
   origin?: Extract<RevisionOrigin, 'save' | 'upload'>;
   createdAt?: Date;
+  transaction?: Transaction;
 }
 
 const AUDIT_FOR: Record<'save' | 'upload', AuditAction> = { save: 'revision.saved', upload: 'revision.uploaded' };
@@ -141,7 +150,7 @@ const AUDIT_FOR: Record<'save' | 'upload', AuditAction> = { save: 'revision.save
 export async function saveRevision(sequelize: Sequelize, input: SaveRevisionInput): Promise<Revision> {
   const setup = checkSetupText(input.yaml);
   const origin = input.origin ?? 'save';
-  return sequelize.transaction(async (transaction) => {
+  return inTransaction(sequelize, input.transaction, async (transaction) => {
     const locked = await lockModel(input.modelId, transaction);
     requireLatestBase(locked.latest, input.base);
     const revision = await appendRevision(locked, setup, { author: input.author, message: input.message ?? '', origin, createdAt: input.createdAt }, transaction);

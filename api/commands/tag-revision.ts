@@ -1,7 +1,8 @@
-import type { Sequelize } from 'sequelize';
+import type { Sequelize, Transaction } from 'sequelize';
 import { Conflict, NotFound } from '../errors';
 import { Revision, Tag, type SetupModel, type User } from '../models';
 import { recordAuditEvent } from './record-audit-event';
+import { inTransaction } from './save-revision';
 
 export interface TagInput {
   model: SetupModel;
@@ -9,6 +10,7 @@ export interface TagInput {
   author: User;
   name: string;
   createdAt?: Date;
+  transaction?: Transaction;
 }
 
 export const tagNamesOf = async (revisionId: string): Promise<string[]> =>
@@ -20,7 +22,7 @@ export const tagNamesOf = async (revisionId: string): Promise<string[]> =>
  * as it is. Answers whether the tag is new.
  */
 export async function tagRevision(sequelize: Sequelize, input: TagInput): Promise<{ created: boolean }> {
-  return sequelize.transaction(async (transaction) => {
+  return inTransaction(sequelize, input.transaction, async (transaction) => {
     const existing = await Tag.findOne({
       where: { modelId: input.model.id, name: input.name },
       include: [{ model: Revision, as: 'revision', attributes: ['id', 'number'] }],
@@ -55,7 +57,7 @@ export async function tagRevision(sequelize: Sequelize, input: TagInput): Promis
 }
 
 export async function untagRevision(sequelize: Sequelize, input: Omit<TagInput, 'createdAt'>): Promise<void> {
-  await sequelize.transaction(async (transaction) => {
+  await inTransaction(sequelize, input.transaction, async (transaction) => {
     const tag = await Tag.findOne({ where: { revisionId: input.revision.id, name: input.name }, transaction });
     if (!tag) throw new NotFound(`Revision ${input.revision.number} has no tag "${input.name}".`, { code: 'tag-not-found' });
     await tag.destroy({ transaction });

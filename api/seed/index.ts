@@ -3,6 +3,7 @@ import { SequelizeStorage, Umzug } from 'umzug';
 import { withAdvisoryLock } from '../db/migrate';
 import { initModels } from '../models';
 import * as demoClub from './steps/0001-demo-club';
+import * as demoModels from './steps/0002-demo-models';
 
 export interface SeedContext {
   sequelize: Sequelize;
@@ -15,6 +16,7 @@ const SEED_LOCK = 74_226_002;
 // A new step is a file in steps/ plus one line here.
 const steps: { name: string; run: (context: SeedContext) => Promise<void> }[] = [
   { name: '0001-demo-club', run: demoClub.run },
+  { name: '0002-demo-models', run: demoModels.run },
 ];
 
 /** Runs the demo steps not yet recorded; answers the names run. */

@@ -1,0 +1,41 @@
+import { spawn, type ChildProcess } from 'node:child_process';
+import { randomBytes } from 'node:crypto';
+import { fileURLToPath } from 'node:url';
+import { defaultConfig, type AppConfig } from '../../../api/config';
+
+export interface ApiProcess {
+  url: string;
+  /** The settings the server signs sessions with, so the bench can make tokens. */
+  config: AppConfig;
+  stop(): Promise<void>;
+}
+
+const entry = fileURLToPath(new URL('./bench-server.ts', import.meta.url));
+
+/** Starts the API on 127.0.0.1 in a child process against `databaseUrl`. */
+export function startApiProcess(databaseUrl: string): Promise<ApiProcess> {
+  const jwtSecret = randomBytes(32).toString('hex');
+  const child: ChildProcess = spawn(process.execPath, ['--import', 'tsx', entry], {
+    env: { ...process.env, BENCH_DATABASE_URL: databaseUrl, BENCH_JWT_SECRET: jwtSecret },
+    stdio: ['ignore', 'pipe', 'inherit'],
+  });
+  const stop = () =>
+    new Promise<void>((resolve) => {
+      if (child.exitCode !== null || child.signalCode !== null) return resolve();
+      child.once('exit', () => resolve());
+      child.kill('SIGTERM');
+    });
+  return new Promise((resolve, reject) => {
+    let output = '';
+    child.once('error', reject);
+    child.once('exit', (code) => reject(new Error(`the bench API server exited early (code ${code})`)));
+    child.stdout!.on('data', (chunk: Buffer) => {
+      output += chunk.toString('utf8');
+      const line = output.split('\n')[0];
+      if (output.includes('\n')) {
+        child.removeAllListeners('exit');
+        resolve({ url: line.trim(), config: defaultConfig({ jwtSecret }), stop });
+      }
+    });
+  });
+}
