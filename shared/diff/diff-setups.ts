@@ -1,7 +1,7 @@
 import type { ArrayDelta, Delta, ObjectDelta } from 'jsondiffpatch';
 import { diffDocuments, type Matches } from './engine';
 import type { ListMatch } from './identity';
-import { isPlainObject, toPlain, type PlainObject } from './plain';
+import { decodeKey, fromBare, isPlainObject, toBare, type PlainObject } from './plain';
 import { summarise, type Draft, type Sides, type Subject, type SubjectType } from './sentences';
 import { SECTIONS, emptyCounts, type Change, type Section, type SetupDiff } from './types';
 import { withDefaults } from './with-defaults';
@@ -50,8 +50,9 @@ class Walker {
         });
         continue;
       }
-      const subject: Subject = { type: 'section', section, name: key, left: left[key], right: right[key] };
-      this.value(child, left[key], right[key], key, subject, []);
+      const name = decodeKey(key);
+      const subject: Subject = { type: 'section', section, name, left: left[key], right: right[key] };
+      this.value(child, left[key], right[key], name, subject, []);
     }
   }
 
@@ -84,7 +85,8 @@ class Walker {
       return;
     }
     for (const key of Object.keys(delta)) {
-      this.value((delta as ObjectDelta)[key], at(left, key), at(right, key), `${path}.${key}`, subject, [...field, key]);
+      const name = decodeKey(key);
+      this.value((delta as ObjectDelta)[key], at(left, key), at(right, key), `${path}.${name}`, subject, [...field, name]);
     }
   }
 
@@ -201,8 +203,8 @@ class Walker {
  * section in the order of SECTIONS.
  */
 export function diffSetups(before: unknown, after: unknown): SetupDiff {
-  const left = withDefaults(toPlain(before));
-  const right = withDefaults(toPlain(after));
+  const left = withDefaults(toBare(before));
+  const right = withDefaults(toBare(after));
   const { delta, matches } = diffDocuments(left, right);
   const walker = new Walker(matches);
   walker.root(delta, left, right);
@@ -215,8 +217,8 @@ export function diffSetups(before: unknown, after: unknown): SetupDiff {
       kind: draft.kind,
       section: draft.section,
       path: draft.path,
-      before: toPlain(draft.before) ?? null,
-      after: toPlain(draft.after) ?? null,
+      before: fromBare(draft.before) ?? null,
+      after: fromBare(draft.after) ?? null,
       summary: summarise(draft, sides),
     }));
   const counts = emptyCounts();

@@ -1,6 +1,6 @@
 import { format, type Op } from 'jsondiffpatch/formatters/jsonpatch';
 import { diffDocuments } from './engine';
-import { toPlain } from './plain';
+import { decodeKey, fromBare, toBare } from './plain';
 
 export type JsonPatchOperation = Op;
 
@@ -12,6 +12,11 @@ export type JsonPatchOperation = Op;
  * operations and an edited entry a `replace` of the changed field only.
  */
 export function jsonPatch(before: unknown, after: unknown): JsonPatchOperation[] {
-  const { delta } = diffDocuments(toPlain(before, true) ?? null, toPlain(after, true) ?? null);
-  return delta === undefined ? [] : (toPlain(format(delta)) as JsonPatchOperation[]);
+  const { delta } = diffDocuments(toBare(before) ?? null, toBare(after) ?? null);
+  if (delta === undefined) return [];
+  const pointer = (path: string) => path.split('/').map(decodeKey).join('/');
+  return format(delta).map((op) => {
+    const value = 'value' in op ? { value: fromBare(op.value) ?? null } : {};
+    return op.op === 'move' ? { ...op, from: pointer(op.from), path: pointer(op.path) } : { ...op, path: pointer(op.path), ...value };
+  }) as JsonPatchOperation[];
 }

@@ -1,7 +1,7 @@
 import { evaluate, type PinOutput } from '../evaluate/evaluate';
 import type { Setup } from '../format/schema';
 import { LIST_KEYS, matchList } from './identity';
-import { toPlain } from './plain';
+import { toBare } from './plain';
 
 /** A named set of control positions; `set` holds only the controls moved from rest. */
 export interface PositionSet {
@@ -76,8 +76,8 @@ export function standardPositions(before: Setup, after: Setup): PositionSet[] {
 
 /** New control id -> old id, for controls renamed with nothing else changed. */
 export function renamedControls(before: Setup, after: Setup): Map<string, string> {
-  const left = toPlain(before.controls) as unknown[];
-  const right = toPlain(after.controls) as unknown[];
+  const left = toBare(before.controls) as unknown[];
+  const right = toBare(after.controls) as unknown[];
   const match = matchList(left, right, LIST_KEYS.controls, new WeakMap(), 'controls');
   const renamed = new Map<string, string>();
   for (const j of match.renamed) {

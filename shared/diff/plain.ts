@@ -8,13 +8,29 @@ export function isPlainObject(value: unknown): value is PlainObject {
   return typeof value === 'object' && value !== null && !Array.isArray(value);
 }
 
+// A key starting with NUL marks an encoded key; `__proto__` is encoded so that no
+// library assigns it as a plain property (which would set a prototype and lose it),
+// and keys that already start with NUL get one more so that decoding is exact.
+const MARK = '\u0000';
+
+export function encodeKey(key: string): string {
+  return key === '__proto__' || key.startsWith(MARK) ? `${MARK}${key}` : key;
+}
+
+export function decodeKey(key: string): string {
+  return key.startsWith(MARK) ? key.slice(1) : key;
+}
+
+interface CopyOptions {
+  bare: boolean;
+  key: (key: string) => string;
+}
+
 // A fresh JSON-compatible copy: undefined and functions are dropped, cycles become
 // null, anything else that JSON cannot carry becomes its string form. A fresh copy
 // also means no object is shared between the two sides of a diff, which the
-// identity matching relies on. `bare` makes objects without a prototype: jsondiffpatch
-// reads `right[name]` for every key of the left object, so a key such as `toString`
-// would otherwise meet Object.prototype's function and make it throw.
-export function toPlain(value: unknown, bare = false, seen: Set<object> = new Set()): unknown {
+// identity matching relies on.
+function copy(value: unknown, options: CopyOptions, seen: Set<object>): unknown {
   if (value === null) return null;
   switch (typeof value) {
     case 'string':
@@ -34,16 +50,31 @@ export function toPlain(value: unknown, bare = false, seen: Set<object> = new Se
   if (object instanceof Date) return Number.isNaN(object.getTime()) ? null : object.toISOString();
   seen.add(object);
   try {
-    if (Array.isArray(object)) return object.map((item) => toPlain(item, bare, seen) ?? null);
-    const copy: PlainObject = bare ? Object.create(null) : {};
+    if (Array.isArray(object)) return object.map((item) => copy(item, options, seen) ?? null);
+    const result: PlainObject = options.bare ? Object.create(null) : {};
     for (const [key, item] of Object.entries(object)) {
-      const plain = toPlain(item, bare, seen);
-      if (plain !== undefined) setOwn(copy, key, plain);
+      const plain = copy(item, options, seen);
+      if (plain !== undefined) setOwn(result, options.key(key), plain);
     }
-    return copy;
+    return result;
   } finally {
     seen.delete(object);
   }
+}
+
+const same = (key: string) => key;
+
+// The form the diff engine works on: objects without a prototype (jsondiffpatch reads
+// `right[name]` for every key of the left object, so a key such as `toString` would
+// otherwise meet Object.prototype's function and make it throw) and encoded keys.
+// `encoded` says the keys are encoded already.
+export function toBare(value: unknown, encoded = false): unknown {
+  return copy(value, { bare: true, key: encoded ? same : encodeKey }, new Set());
+}
+
+/** Back from the engine's form: ordinary objects, keys as the document has them. */
+export function fromBare(value: unknown): unknown {
+  return copy(value, { bare: false, key: decodeKey }, new Set());
 }
 
 export function deepEqual(a: unknown, b: unknown): boolean {

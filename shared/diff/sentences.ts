@@ -100,9 +100,15 @@ const LIST_NAMES: Record<string, string> = {
   receivers: 'Receivers',
 };
 
+// Document keys reach these tables, so only own entries count (a key named
+// `constructor` must not find Object's).
+function own<T>(table: Readonly<Record<string, T>>, key: string): T | undefined {
+  return Object.prototype.hasOwnProperty.call(table, key) ? table[key] : undefined;
+}
+
 function fieldSpec(subject: Subject, field: string[]): FieldSpec {
-  const table = FIELDS[subject.type === 'section' ? subject.name : subject.type];
-  return table?.[field.join('.')] ?? { label: field.join('.') };
+  const table = own(FIELDS, subject.type === 'section' ? subject.name : subject.type);
+  return (table && own(table, field.join('.'))) ?? { label: field.join('.') };
 }
 
 function entry(subject: Subject): PlainObject {
@@ -116,11 +122,10 @@ function text(value: unknown): string {
   if (typeof value === 'boolean') return value ? 'on' : 'off';
   if (typeof value === 'string') return value === '' ? '(empty)' : value;
   if (typeof value === 'number') return String(value);
-  if (Array.isArray(value)) return value.every((item) => typeof item === 'number') ? value.join('/') : `[${value.map(text).join(', ')}]`;
+  if (Array.isArray(value)) return isNumeric(value) ? value.join('/') : `[${value.map(text).join(', ')}]`;
   if (isPlainObject(value)) {
-    return Object.entries(value)
-      .map(([key, item]) => `${key} ${text(item)}`)
-      .join(', ');
+    const entries = Object.entries(value);
+    return entries.length === 0 ? 'empty' : entries.map(([key, item]) => `${key} ${text(item)}`).join(', ');
   }
   return String(value);
 }
@@ -175,7 +180,7 @@ function subjectName(subject: Subject, field: string[]): string {
     case 'pin':
       return `${subject.receiver ? receiverName(subject.receiver) : 'Receiver'} pin ${text(value.pin)}`;
     case 'section':
-      return SECTION_NAMES[subject.name] ?? `Extra field ${subject.name}`;
+      return own(SECTION_NAMES, subject.name) ?? `Extra field ${subject.name}`;
   }
 }
 
@@ -312,7 +317,7 @@ function renamed(draft: Draft, sides: Sides): string {
 function moved(draft: Draft): string {
   const { subject } = draft;
   const pins = subject.type === 'receiver';
-  const list = pins ? `${receiverName(subject)} pin map` : (LIST_NAMES[subject.name] ?? subject.name);
+  const list = pins ? `${receiverName(subject)} pin map` : (own(LIST_NAMES, subject.name) ?? subject.name);
   const names = draft.moved ?? [];
   const noun = pins ? 'pin' : subject.name === 'channels' ? 'channel' : '';
   const which =

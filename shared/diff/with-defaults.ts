@@ -8,7 +8,7 @@ import {
   switchControlSchema,
 } from '../format/schema';
 import { LIST_KEYS } from './identity';
-import { isPlainObject, setOwn, toPlain, type PlainObject } from './plain';
+import { isPlainObject, setOwn, toBare, type PlainObject } from './plain';
 
 interface ObjectSchema {
   shape: Record<string, ZodType>;
@@ -47,16 +47,17 @@ const ENTRY_SCHEMAS: Record<string, (value: unknown) => ObjectSchema> = {
 // (`weight: 100`) is no change against one left implicit. Defaults come from the
 // format's schema, per entry, whether or not the whole document is valid. A missing
 // top-level list counts as empty, which lists every entry of the other side as added
-// or removed rather than one opaque change. The result has no prototypes (see toPlain).
+// or removed rather than one opaque change. Takes and gives the engine's form (see
+// toBare): keys encoded, so the schema's copying cannot lose a `__proto__` key.
 export function withDefaults(data: unknown): PlainObject {
-  if (!isPlainObject(data)) return toPlain(Object.fromEntries(Object.keys(LIST_KEYS).map((list) => [list, []])), true) as PlainObject;
+  if (!isPlainObject(data)) return toBare(Object.fromEntries(Object.keys(LIST_KEYS).map((list) => [list, []]))) as PlainObject;
   const whole = setupSchema.safeParse(data);
-  if (whole.success) return toPlain(whole.data, true) as PlainObject;
+  if (whole.success) return toBare(whole.data, true) as PlainObject;
   const copy = fillDefaults(setupSchema, data) as PlainObject;
   for (const [list, schemaFor] of Object.entries(ENTRY_SCHEMAS)) {
     const items = Object.prototype.hasOwnProperty.call(data, list) ? data[list] : undefined;
     if (items === undefined) setOwn(copy, list, []);
     else if (Array.isArray(items)) setOwn(copy, list, items.map((item) => fillDefaults(schemaFor(item), item)));
   }
-  return toPlain(copy, true) as PlainObject;
+  return toBare(copy, true) as PlainObject;
 }

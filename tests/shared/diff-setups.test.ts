@@ -252,6 +252,18 @@ describe('robustness', () => {
     );
   });
 
+  it('sees changes under keys that objects inherit, such as __proto__ and constructor', () => {
+    const doc = loadPair('trim-tuning').before.data as Doc;
+    const next = clone(doc);
+    next.mixes[0] = JSON.parse(JSON.stringify({ ...doc.mixes[0], constructor: 'x' }));
+    next.power = JSON.parse('{"receiver_supply": "esc-bec", "__proto__": {"volts": 6}}');
+    const diff = diffSetups(doc, next);
+    expect(diff.changes.map((change) => [change.kind, change.path, change.summary])).toEqual([
+      ['changed', 'mixes[id=ail-left].constructor', 'Mix ail-left: constructor unset -> x'],
+      ['added', 'power.__proto__', 'Power __proto__ added (volts 6)'],
+    ]);
+  });
+
   it('diffs schema-invalid documents, with duplicate keys and entries without keys', () => {
     const doc = loadPair('trim-tuning').before.data as Doc;
     const broken = clone(doc);
