@@ -18,6 +18,9 @@ const HomeScreen = lazyScreen(() => import('./routes/home'), 'HomeScreen');
 const NotFoundScreen = lazyScreen(() => import('./routes/not-found'), 'NotFoundScreen');
 const PlannedScreen = lazyScreen(() => import('./routes/planned-screen'), 'PlannedScreen');
 const TeamScreen = lazyScreen(() => import('../features/team/components/team-screen'), 'TeamScreen');
+const InvitationScreen = lazyScreen(() => import('../features/team/components/invitation-screen'), 'InvitationScreen');
+const ResetPasswordConfirmScreen = lazyScreen(() => import('./routes/auth/reset-password-confirm'), 'ResetPasswordConfirmScreen');
+const OutboxScreen = lazyScreen(() => import('../features/outbox/components/outbox-screen'), 'OutboxScreen');
 const EditScreen = lazyScreen(() => import('../features/editor/components/edit-screen'), 'EditScreen');
 const HangarScreen = lazyScreen(() => import('../features/models/components/hangar-screen'), 'HangarScreen');
 const OverviewScreen = lazyScreen(() => import('../features/overview/components/overview-screen'), 'OverviewScreen');
@@ -53,7 +56,7 @@ export const modelScreens: Screen[] = [
 
 /** Tools for development, outside any workspace. */
 export const devScreens: Screen[] = [
-  planned('/outbox', 'Outbox', 'The mail the local mail server caught: invitations, password resets, review requests and verdicts.'),
+  { path: '/outbox', label: 'Outbox', element: <OutboxScreen /> },
 ];
 
 const frameLinks = (screens: Screen[]): FrameLink[] => screens.map(({ path, label }) => ({ path, label }));
@@ -75,6 +78,8 @@ export const routes: RouteObject[] = [
       { path: 'sign-in', element: <SignInScreen /> },
       { path: 'create-account', element: <CreateAccountScreen /> },
       { path: 'reset-password', element: <ResetPasswordScreen /> },
+      { path: 'reset-password/:token', element: <ResetPasswordConfirmScreen /> },
+      { path: 'invitations/:token', element: <InvitationScreen /> },
       {
         element: <AppFrame workspaceLinks={frameLinks(workspaceScreens)} devLinks={frameLinks(devScreens)} />,
         children: [

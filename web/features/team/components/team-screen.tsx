@@ -1,14 +1,34 @@
 import { PageHeader } from '../../../components/ui/page-header';
 import { useCurrentWorkspace } from '../../workspaces/hooks/use-current-workspace';
+import { AuditList } from './audit-list';
+import { InviteForm } from './invite-form';
 import { MemberList } from './member-list';
+import { PendingInvitations } from './pending-invitations';
 
 export function TeamScreen() {
   const { inUrl } = useCurrentWorkspace();
   if (!inUrl) return null;
+  const owner = inUrl.role === 'owner';
   return (
     <>
       <PageHeader title="Team" documentTitle={`Team · ${inUrl.name}`} description={`Who shares ${inUrl.name}, and what each may do.`} />
-      <MemberList workspaceId={inUrl.id} />
+      <section aria-labelledby="members-heading">
+        <h2 id="members-heading" className="sr-only">
+          Members
+        </h2>
+        <MemberList workspace={inUrl} />
+      </section>
+      {owner && (
+        <div className="mt-8 grid gap-6 lg:grid-cols-2">
+          <InviteForm workspaceId={inUrl.id} />
+          <PendingInvitations workspaceId={inUrl.id} />
+        </div>
+      )}
+      {owner && (
+        <div className="mt-8">
+          <AuditList workspaceId={inUrl.id} />
+        </div>
+      )}
     </>
   );
 }

@@ -1,0 +1,40 @@
+import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import { api } from '../../../lib/api-client';
+import type { Role, Session, User } from '../../../types/api';
+import { meQueryOptions } from '../../auth/api/get-me';
+import type { InvitationPreview } from '../types';
+
+export async function getInvitation(token: string, signal?: AbortSignal): Promise<InvitationPreview> {
+  return (await api.get<InvitationPreview>(`/api/invitations/${encodeURIComponent(token)}`, signal)).data;
+}
+
+export function invitationQueryOptions(token: string) {
+  return queryOptions({ queryKey: ['invitations', token], queryFn: ({ signal }) => getInvitation(token, signal), staleTime: Infinity });
+}
+
+export function useInvitation(token: string) {
+  return useQuery(invitationQueryOptions(token));
+}
+
+export interface AcceptAnswer {
+  user: User;
+  workspace: { id: string; name: string; role: Role };
+}
+
+/** Joins as the signed-in user, or with a name and password creates the invited account. */
+export async function acceptInvitation(token: string, account?: { name: string; password: string }): Promise<AcceptAnswer> {
+  return (await api.post<AcceptAnswer>(`/api/invitations/${encodeURIComponent(token)}/accept`, account ?? {})).data;
+}
+
+/** Accepts, then loads the session with the new workspace in it. */
+export function useAcceptInvitation(token: string) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: async (account?: { name: string; password: string }): Promise<{ answer: AcceptAnswer; session: Session }> => {
+      const answer = await acceptInvitation(token, account);
+      queryClient.removeQueries({ queryKey: ['invitations', token] });
+      await queryClient.invalidateQueries({ queryKey: meQueryOptions().queryKey });
+      return { answer, session: await queryClient.fetchQuery(meQueryOptions()) };
+    },
+  });
+}

@@ -1,0 +1,51 @@
+import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import { api } from '../../../lib/api-client';
+import type { Id, Role } from '../../../types/api';
+import type { Invitation } from '../types';
+import { auditQueryKey } from './get-audit';
+
+export const invitationsQueryKey = (workspaceId: Id) => ['workspaces', workspaceId, 'invitations'] as const;
+
+export async function listInvitations(workspaceId: Id, signal?: AbortSignal): Promise<Invitation[]> {
+  return (await api.get<Invitation[]>(`/api/workspaces/${encodeURIComponent(workspaceId)}/invitations`, signal)).data;
+}
+
+export function invitationsQueryOptions(workspaceId: Id) {
+  return queryOptions({ queryKey: invitationsQueryKey(workspaceId), queryFn: ({ signal }) => listInvitations(workspaceId, signal) });
+}
+
+/** Pending invitations; only owners may read them, so the query waits for `enabled`. */
+export function useInvitations(workspaceId: Id, enabled: boolean) {
+  return useQuery({ ...invitationsQueryOptions(workspaceId), enabled });
+}
+
+export interface InviteInput {
+  email: string;
+  role: Role;
+}
+
+export async function inviteMember(workspaceId: Id, input: InviteInput): Promise<Invitation> {
+  return (await api.post<Invitation>(`/api/workspaces/${encodeURIComponent(workspaceId)}/invitations`, input)).data;
+}
+
+export async function revokeInvitation(workspaceId: Id, invitationId: Id): Promise<Invitation> {
+  return (await api.delete<Invitation>(`/api/workspaces/${encodeURIComponent(workspaceId)}/invitations/${encodeURIComponent(invitationId)}`)).data;
+}
+
+function useRefreshTeam(workspaceId: Id) {
+  const queryClient = useQueryClient();
+  return () => {
+    void queryClient.invalidateQueries({ queryKey: invitationsQueryKey(workspaceId) });
+    void queryClient.invalidateQueries({ queryKey: auditQueryKey(workspaceId) });
+  };
+}
+
+export function useInviteMember(workspaceId: Id) {
+  const refresh = useRefreshTeam(workspaceId);
+  return useMutation({ mutationFn: (input: InviteInput) => inviteMember(workspaceId, input), onSuccess: refresh });
+}
+
+export function useRevokeInvitation(workspaceId: Id) {
+  const refresh = useRefreshTeam(workspaceId);
+  return useMutation({ mutationFn: (invitationId: Id) => revokeInvitation(workspaceId, invitationId), onSuccess: refresh });
+}

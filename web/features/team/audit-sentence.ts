@@ -1,0 +1,71 @@
+import type { Id } from '../../types/api';
+import type { AuditEvent } from './types';
+
+export interface AuditLine {
+  /** What the actor did, to follow their name: "invited juno@example.org as a reviewer". */
+  text: string;
+  /** Where the record it is about can be seen, when there is such a place. */
+  link: { to: string; label: string } | null;
+}
+
+const str = (value: unknown): string => (typeof value === 'string' ? value : typeof value === 'number' ? String(value) : '');
+const quoted = (value: unknown): string => `“${str(value)}”`;
+const article = (role: unknown): string => `${role === 'owner' || role === 'editor' ? 'an' : 'a'} ${str(role)}`;
+
+function names(value: unknown): string {
+  if (!Array.isArray(value)) return 'a reviewer';
+  const list = value.map((entry) => (entry && typeof entry === 'object' ? str((entry as { name?: unknown }).name) : str(entry))).filter(Boolean);
+  if (list.length <= 1) return list[0] ?? 'a reviewer';
+  return `${list.slice(0, -1).join(', ')} and ${list[list.length - 1]}`;
+}
+
+const VERDICTS: Record<string, string> = { approve: 'approved', 'request-changes': 'asked for changes to', comment: 'commented on' };
+
+/** One audit event in plain words, with a link to what it concerns. */
+export function auditLine(event: AuditEvent, workspaceId: Id): AuditLine {
+  const d = event.details;
+  const model = (id: unknown, screen: string) => (typeof id === 'string' && id ? { to: `/models/${id}/${screen}`, label: 'Open the model' } : null);
+  const review = event.subject.id ? { to: `/w/${workspaceId}/reviews/${event.subject.id}`, label: 'Open the review' } : null;
+  const ofModel = d.model_name ? ` of ${quoted(d.model_name)}` : '';
+
+  switch (event.action) {
+    case 'model.created':
+      return { text: `created the model ${quoted(d.name)}`, link: model(event.subject.id, 'overview') };
+    case 'model.renamed':
+      return { text: `renamed the model ${quoted(d.from)} to ${quoted(d.to)}`, link: model(event.subject.id, 'overview') };
+    case 'model.forked':
+      return { text: `forked revision ${str(d.source_number)} of another model into ${quoted(d.name)}`, link: model(event.subject.id, 'overview') };
+    case 'revision.saved':
+    case 'revision.uploaded': {
+      const errors = typeof d.errors === 'number' && d.errors > 0 ? ` (${d.errors} ${d.errors === 1 ? 'error' : 'errors'})` : '';
+      const how = event.action === 'revision.uploaded' ? 'uploaded' : 'saved';
+      return { text: `${how} revision ${str(d.number)}${errors}`, link: model(d.model_id, 'history') };
+    }
+    case 'revision.reverted':
+      return { text: `brought back revision ${str(d.reverted_to)} as revision ${str(d.number)}`, link: model(d.model_id, 'history') };
+    case 'tag.added':
+      return { text: `tagged revision ${str(d.number)} ${quoted(d.name)}`, link: model(d.model_id, 'history') };
+    case 'tag.removed':
+      return { text: `removed the tag ${quoted(d.name)}`, link: model(d.model_id, 'history') };
+    case 'member.invited':
+      return { text: `invited ${str(d.email)} as ${article(d.role)}`, link: null };
+    case 'invitation.revoked':
+      return { text: `withdrew the invitation to ${str(d.email)}`, link: null };
+    case 'member.joined':
+      return { text: `joined as ${article(d.role)}`, link: null };
+    case 'member.role-changed':
+      return { text: `changed the role of ${str(d.name)} from ${str(d.from)} to ${str(d.to)}`, link: null };
+    case 'member.removed':
+      return { text: `removed ${str(d.name)} (${str(d.role)}) from the workspace`, link: null };
+    case 'member.left':
+      return { text: 'left the workspace', link: null };
+    case 'review.requested':
+      return { text: `asked ${names(d.reviewers)} to review revision ${str(d.number)}${ofModel}`, link: review };
+    case 'review.verdict':
+      return { text: `${VERDICTS[str(d.verdict)] ?? 'gave a verdict on'} revision ${str(d.number)}${ofModel}`, link: review };
+    case 'review.commented':
+      return { text: `commented${d.path ? ` on ${str(d.path)}` : ''} in the review of revision ${str(d.number)}${ofModel}`, link: review };
+    default:
+      return { text: event.action.replace(/[._-]/g, ' '), link: null };
+  }
+}

@@ -1,0 +1,159 @@
+import { useRef, useState, type FormEvent } from 'react';
+import { Link, useNavigate, useParams } from 'react-router-dom';
+import { AuthLayout } from '../../../components/layouts/auth-layout';
+import { Button, buttonClasses } from '../../../components/ui/button';
+import { FormAlert } from '../../../components/ui/form-alert';
+import { LoadingState } from '../../../components/ui/loading-state';
+import { TextField } from '../../../components/ui/text-field';
+import { useFocusFirstInvalid } from '../../../hooks/use-focus-first-invalid';
+import { isApiError, isUnauthorized } from '../../../lib/api-client';
+import { formErrorsFrom, noFormErrors, type FormErrors } from '../../../lib/form-errors';
+import type { Session } from '../../../types/api';
+import { useMe } from '../../auth/api/get-me';
+import { PASSWORD_MIN_LENGTH } from '../../auth/validate';
+import { useAcceptInvitation, useInvitation } from '../api/accept-invitation';
+import { roleWord } from '../roles';
+import type { InvitationPreview } from '../types';
+
+/** `/invitations/:token`: the page an invitation mail links to. */
+export function InvitationScreen() {
+  const { token = '' } = useParams();
+  const invitation = useInvitation(token);
+  const me = useMe();
+
+  if (invitation.isPending || me.isPending) {
+    return (
+      <AuthLayout title="Invitation">
+        <LoadingState label="Opening the invitation…" />
+      </AuthLayout>
+    );
+  }
+  if (invitation.isError) {
+    return (
+      <AuthLayout title="This invitation cannot be used">
+        <FormAlert>{invitation.error.message}</FormAlert>
+        <p className="mt-4 text-sm text-ink-700">
+          Each invitation link works once and for seven days. Ask the workspace owner for a new one, or <Link to="/sign-in">sign in</Link>.
+        </p>
+      </AuthLayout>
+    );
+  }
+  const preview = invitation.data;
+  const session = me.isSuccess ? me.data : null;
+  const signedOut = me.isError && isUnauthorized(me.error);
+
+  return (
+    <AuthLayout
+      title={`Join ${preview.workspace.name}`}
+      intro={`${preview.invited_by?.name ?? 'An owner'} invites you to this workspace as ${roleWord(preview.role, true)}.`}
+    >
+      {session ? (
+        <JoinAsMember token={token} preview={preview} session={session} />
+      ) : signedOut && preview.account_exists ? (
+        <div className="space-y-4">
+          <p className="text-base text-ink-700">
+            An account for <span className="font-mono text-sm text-ink-900">{preview.email}</span> exists already. Sign in with it to accept.
+          </p>
+          <Link to={`/sign-in?next=${encodeURIComponent(`/invitations/${token}`)}`} className={`${buttonClasses('primary')} w-full no-underline hover:text-white`}>
+            Sign in to accept
+          </Link>
+        </div>
+      ) : (
+        <NewAccountForm token={token} preview={preview} />
+      )}
+    </AuthLayout>
+  );
+}
+
+function JoinAsMember({ token, preview, session }: { token: string; preview: InvitationPreview; session: Session }) {
+  const accept = useAcceptInvitation(token);
+  const navigate = useNavigate();
+  const member = session.workspaces.find((workspace) => workspace.id === preview.workspace.id);
+  const otherAddress = session.user.email.toLowerCase() !== preview.email.toLowerCase();
+
+  if (member) {
+    return (
+      <div className="space-y-4">
+        <FormAlert tone="success">{`You are already a member of ${preview.workspace.name} (${member.role}).`}</FormAlert>
+        <Link to={`/w/${preview.workspace.id}/hangar`}>Go to its hangar</Link>
+      </div>
+    );
+  }
+  return (
+    <div className="space-y-4">
+      {accept.isError && <FormAlert>{accept.error.message}</FormAlert>}
+      <p className="text-base text-ink-700">
+        You are signed in as <span className="font-medium text-ink-900">{session.user.name}</span> (
+        <span className="font-mono text-sm">{session.user.email}</span>).
+        {otherAddress && ` The invitation was sent to ${preview.email}; accepting adds this account.`}
+      </p>
+      <Button
+        className="w-full"
+        pending={accept.isPending}
+        onClick={() => accept.mutate(undefined, { onSuccess: ({ answer }) => navigate(`/w/${answer.workspace.id}/hangar`, { replace: true }) })}
+      >
+        Accept and join {preview.workspace.name}
+      </Button>
+    </div>
+  );
+}
+
+const FIELDS = ['name', 'password'] as const;
+
+function NewAccountForm({ token, preview }: { token: string; preview: InvitationPreview }) {
+  const [values, setValues] = useState({ name: '', password: '' });
+  const [errors, setErrors] = useState<FormErrors>(noFormErrors);
+  const [attempt, setAttempt] = useState(0);
+  const formRef = useRef<HTMLFormElement>(null);
+  const accept = useAcceptInvitation(token);
+  const navigate = useNavigate();
+  useFocusFirstInvalid(formRef, attempt);
+
+  const refuse = (next: FormErrors) => {
+    setErrors(next);
+    setAttempt((n) => n + 1);
+  };
+
+  const onSubmit = (event: FormEvent<HTMLFormElement>) => {
+    event.preventDefault();
+    const local: Record<string, string> = {};
+    if (!values.name.trim()) local.name = 'Enter the name your club mates know you by.';
+    if (values.password.length < PASSWORD_MIN_LENGTH) local.password = `Use at least ${PASSWORD_MIN_LENGTH} characters.`;
+    if (Object.keys(local).length > 0) return refuse({ fields: local, general: null });
+    setErrors(noFormErrors);
+    accept.mutate(
+      { name: values.name.trim(), password: values.password },
+      {
+        onSuccess: ({ answer }) => navigate(`/w/${answer.workspace.id}/hangar`, { replace: true }),
+        onError: (error) => refuse(isApiError(error) && error.code === 'account-exists' ? { fields: {}, general: error.message } : formErrorsFrom(error, FIELDS)),
+      },
+    );
+  };
+
+  return (
+    <form ref={formRef} onSubmit={onSubmit} noValidate className="space-y-5" aria-label="Create your account and join">
+      {errors.general && <FormAlert>{errors.general}</FormAlert>}
+      <div>
+        <p className="text-sm font-medium text-ink-900">E-mail</p>
+        <p className="mt-1 font-mono text-sm text-ink-700">{preview.email}</p>
+      </div>
+      <TextField label="Name" name="name" autoComplete="name" value={values.name} onChange={(event) => setValues((v) => ({ ...v, name: event.target.value }))} error={errors.fields.name} />
+      <TextField
+        label="Password"
+        name="password"
+        type="password"
+        autoComplete="new-password"
+        hint={`At least ${PASSWORD_MIN_LENGTH} characters.`}
+        value={values.password}
+        onChange={(event) => setValues((v) => ({ ...v, password: event.target.value }))}
+        error={errors.fields.password}
+      />
+      <Button type="submit" className="w-full" pending={accept.isPending}>
+        Create account and join
+      </Button>
+      <p className="text-sm text-ink-700">
+        Have an account under another address? <Link to={`/sign-in?next=${encodeURIComponent(`/invitations/${token}`)}`}>Sign in</Link> and open this link again.
+      </p>
+    </form>
+  );
+}
