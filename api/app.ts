@@ -21,6 +21,7 @@ import { invitationsRouter } from './routes/invitations';
 import { passwordResetRouter } from './routes/password-reset';
 import { outboxRouter } from './routes/outbox';
 import { receiversRouter } from './routes/receivers';
+import { fieldSheetRouter } from './routes/field-sheet';
 
 function securityHeaders(secure: boolean) {
   return helmet({
@@ -87,6 +88,7 @@ export function createApp(context: AppContext): Express {
   api.use(passwordResetRouter(context));
   api.use(outboxRouter(context));
   api.use(receiversRouter(context));
+  api.use(fieldSheetRouter(context));
   api.use(unknownApiRoute);
   app.use('/api', api);
 

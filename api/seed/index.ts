@@ -4,6 +4,7 @@ import { withAdvisoryLock } from '../db/migrate';
 import { initModels } from '../models';
 import * as demoClub from './steps/0001-demo-club';
 import * as demoModels from './steps/0002-demo-models';
+import * as demoShelf from './steps/0003-demo-shelf';
 
 export interface SeedContext {
   sequelize: Sequelize;
@@ -17,6 +18,7 @@ const SEED_LOCK = 74_226_002;
 const steps: { name: string; run: (context: SeedContext) => Promise<void> }[] = [
   { name: '0001-demo-club', run: demoClub.run },
   { name: '0002-demo-models', run: demoModels.run },
+  { name: '0003-demo-shelf', run: demoShelf.run },
 ];
 
 /** Runs the demo steps not yet recorded; answers the names run. */

@@ -41,7 +41,7 @@ beforeAll(async () => {
 describe('POST /api/receivers/:id/install', () => {
   it('installs a free unit and answers its reuse check, with the install', async () => {
     const kestrel = await newModel('Kestrel Mk II');
-    const id = await addUnit(unitFixture('sport-unit'));
+    const id = await addUnit(unitFixture('trainer-unit'));
     const response = await install(id, { model: kestrel.id, slot: 'wing' }).expect(201);
     const { data } = response.body;
     expect(data).toMatchObject({
@@ -155,7 +155,7 @@ describe('move, remove and the history', () => {
 describe('POST /api/receivers/:id/apply', () => {
   it('records the slot’s settings as the unit’s stored settings, audits before and after, and makes it ready', async () => {
     const kestrel = await newModel('Kestrel Mk II');
-    const id = await addUnit(unitFixture('sport-unit'));
+    const id = await addUnit(unitFixture('trainer-unit'));
     const installed = (await install(id, { model: kestrel.id, slot: 'wing' }).expect(201)).body.data;
     const before = (await Receiver.findByPk(id))!.storedSettings;
 
@@ -184,7 +184,7 @@ describe('POST /api/receivers/:id/apply', () => {
   });
 
   it('refuses a unit that is not installed (409) and one short of outputs (422), storing nothing', async () => {
-    const free = await addUnit(unitFixture('sport-unit'));
+    const free = await addUnit(unitFixture('trainer-unit'));
     expect((await editor.post(`/api/receivers/${free}/apply`).expect(409)).body.error.code).toBe('not-installed');
 
     const small = await addUnit(unitFixture('six-output-unit'));
@@ -198,7 +198,7 @@ describe('POST /api/receivers/:id/apply', () => {
 
   it('refuses settings from a revision that is no longer the latest (409 stale-revision)', async () => {
     const model = await createModelVia(editor, roles.workspace.id, { name: 'Moving target', yaml: SCALE() });
-    const id = await addUnit(unitFixture('sport-unit'));
+    const id = await addUnit(unitFixture('trainer-unit'));
     const seen = (await install(id, { model: model.model.id, slot: 'wing' }).expect(201)).body.data.revision.id;
     const newer = await saveVia(editor, model.model.id, 1, edit(SCALE(), '{ pin: 1, ch: 9,  failsafe: 1500 }', '{ pin: 1, ch: 9,  failsafe: 1450 }'));
     const refused = await editor.post(`/api/receivers/${id}/apply`, { revision: seen }).expect(409);

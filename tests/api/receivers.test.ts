@@ -36,10 +36,10 @@ beforeAll(async () => {
 
 describe('POST /api/workspaces/:ws/receivers', () => {
   it('puts a unit on the shelf, free, with its stored settings, and audits it', async () => {
-    const unit = await addUnit({ ...unitFixture('sport-unit'), notes: 'Bought at the swap meet' });
+    const unit = await addUnit({ ...unitFixture('trainer-unit'), notes: 'Bought at the swap meet' });
     expect(unit).toMatchObject({
       workspace_id: roles.workspace.id,
-      label: 'Pipit unit',
+      label: 'Pipit trainer unit',
       mark: 'Yellow dot',
       mark_colour: 'yellow',
       outputs: 8,
@@ -230,7 +230,7 @@ describe('PATCH /api/receivers/:id', () => {
 
 describe('GET /api/receivers/:id/reuse-check', () => {
   it('answers the contract’s shape against the model’s latest revision', async () => {
-    const unit = await addUnit(unitFixture('sport-unit'));
+    const unit = await addUnit(unitFixture('trainer-unit'));
     const response = await as.viewer.get(`/api/receivers/${unit.id}/reuse-check?model=${scale.id}&slot=wing`).expect(200);
     const { data } = response.body;
     expect(data.ready).toBe(false);

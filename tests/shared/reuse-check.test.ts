@@ -29,7 +29,7 @@ const slot = (analysis: { setup: Setup }, id: string) => {
 };
 
 describe('a unit from a single-receiver model moved into the secondary slot of a 16-channel model', () => {
-  const check = reuseCheck(loadUnit('sport-unit'), slot(sixteen, 'wing'), sixteen.findings);
+  const check = reuseCheck(loadUnit('trainer-unit'), slot(sixteen, 'wing'), sixteen.findings);
 
   it('remaps pins 1-8 from channels 1-8 to 9-16', () => {
     const remaps = check.changes.filter((change) => change.setting === 'ch');
