@@ -19,6 +19,9 @@ async function openEditor(path = `/models/${MODEL_ID}/edit`) {
 // CodeMirror in jsdom and the checks on every pause make these slower than most.
 const SLOW = { timeout: 20_000 };
 
+// A draft outlives the screen in sessionStorage, as it should; each test starts without one.
+beforeEach(() => sessionStorage.clear());
+
 describe('Edit: live findings', () => {
   it('shows a channel-shared finding while two plan entries share a channel, and drops it once fixed', SLOW, async () => {
     const { checks } = await openEditor();

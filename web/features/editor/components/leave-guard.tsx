@@ -1,5 +1,5 @@
-import { useEffect } from 'react';
-import { useBlocker } from 'react-router-dom';
+import { useEffect, useState } from 'react';
+import { useBlocker, useLocation } from 'react-router-dom';
 import { Button } from '../../../components/ui/button';
 import { Dialog } from '../../models/components/dialog';
 
@@ -9,7 +9,14 @@ import { Dialog } from '../../models/components/dialog';
  * Moving within the editor (a finding's `?line=`) is not leaving.
  */
 export function LeaveGuard({ dirty }: { dirty: boolean }) {
-  const blocker = useBlocker(({ currentLocation, nextLocation }) => dirty && currentLocation.pathname !== nextLocation.pathname);
+  // Only a move away from the editor's own address counts. While a lazy screen loads,
+  // React may keep the editor mounted out of sight behind it; its guard must not then
+  // stop moves that start elsewhere.
+  const { pathname } = useLocation();
+  const [home] = useState(pathname);
+  const blocker = useBlocker(
+    ({ currentLocation, nextLocation }) => dirty && currentLocation.pathname === home && nextLocation.pathname !== home,
+  );
 
   useEffect(() => {
     if (!dirty) return;
