@@ -37,7 +37,7 @@ export interface FirstRevision {
 }
 
 /** A model and its revision 1, in the caller's transaction. */
-export async function insertModelWithFirstRevision(input: FirstRevision, transaction: Transaction): Promise<CreatedModel> {
+export async function insertModelWithFirstRevision(sequelize: Sequelize, input: FirstRevision, transaction: Transaction): Promise<CreatedModel> {
   const timestamps = input.createdAt ? { createdAt: input.createdAt, updatedAt: input.createdAt } : {};
   const model = await SetupModel.create(
     {
@@ -51,6 +51,7 @@ export async function insertModelWithFirstRevision(input: FirstRevision, transac
     { transaction, silent: Boolean(input.createdAt) },
   );
   const revision = await appendRevision(
+    sequelize,
     { model, latest: null },
     input.setup,
     { author: input.author, message: input.message, origin: input.origin, sourceRevisionId: input.sourceRevision?.id ?? null, createdAt: input.createdAt },
@@ -71,6 +72,7 @@ export async function createModel(sequelize: Sequelize, input: CreateModelInput)
   const message = input.message && input.message.length > 0 ? input.message : defaultFirstMessage(origin, given);
   return inTransaction(sequelize, input.transaction, async (transaction) => {
     const created = await insertModelWithFirstRevision(
+      sequelize,
       { workspace: input.workspace, author: input.author, name: input.name, setup, message, origin, createdAt: input.createdAt },
       transaction,
     );

@@ -31,6 +31,7 @@ export async function forkModel(sequelize: Sequelize, input: ForkInput): Promise
   const message = input.message && input.message.length > 0 ? input.message : `Forked from ${sourceModel.name}, revision ${sourceRevision.number}`;
   return inTransaction(sequelize, input.transaction, async (transaction) => {
     const created = await insertModelWithFirstRevision(
+      sequelize,
       { workspace: input.workspace, author: input.author, name, setup, message, origin: 'fork', sourceRevision, createdAt: input.createdAt },
       transaction,
     );

@@ -1,7 +1,6 @@
 import type { Sequelize, Transaction } from 'sequelize';
 import { NotFound } from '../errors';
 import { Revision, type User } from '../models';
-import { recordAuditEvent } from './record-audit-event';
 import { appendRevision, checkSetupText, inTransaction, lockModel, requireLatestBase } from './save-revision';
 
 export interface RevertInput {
@@ -26,21 +25,9 @@ export async function revertRevision(sequelize: Sequelize, input: RevertInput): 
   const setup = checkSetupText(target.yamlText);
   const message = input.message && input.message.length > 0 ? input.message : `Revert to revision ${target.number}`;
   return inTransaction(sequelize, input.transaction, async (transaction) => {
-    const locked = await lockModel(input.modelId, transaction);
+    const locked = await lockModel(sequelize, input.modelId, transaction);
     requireLatestBase(locked.latest, input.base);
-    const revision = await appendRevision(locked, setup, { author: input.author, message, origin: 'revert', sourceRevisionId: target.id, createdAt: input.createdAt }, transaction);
-    await recordAuditEvent(
-      {
-        workspaceId: locked.model.workspaceId,
-        actor: input.author,
-        action: 'revision.reverted',
-        subjectType: 'revision',
-        subjectId: revision.id,
-        details: { model_id: locked.model.id, number: revision.number, reverted_to: target.number, source_revision_id: target.id },
-        createdAt: input.createdAt,
-      },
-      transaction,
-    );
-    return revision;
+    const audit = { action: 'revision.reverted' as const, details: { reverted_to: target.number, source_revision_id: target.id } };
+    return appendRevision(sequelize, locked, setup, { author: input.author, message, origin: 'revert', sourceRevisionId: target.id, createdAt: input.createdAt, audit }, transaction);
   });
 }

@@ -1,4 +1,4 @@
-import type { Sequelize, Transaction } from 'sequelize';
+import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
 import { analyzeSetup, type Analysis } from '../../shared/analyze';
 import { contentHash } from '../../shared/canonical/content-hash';
 import { AIRFRAMES } from '../../shared/format/schema';
@@ -6,7 +6,7 @@ import { MAX_TEXT_BYTES } from '../../shared/parse/limits';
 import { Conflict, NotFound, TooLarge, Unprocessable } from '../errors';
 import { Revision, SetupModel, type User } from '../models';
 import type { RevisionOrigin } from '../models/Revision';
-import { recordAuditEvent, type AuditAction } from './record-audit-event';
+import type { AuditAction } from './record-audit-event';
 
 /** Setup text that has been read and checked, ready to be stored. */
 /**
@@ -61,22 +61,35 @@ export function airframeOf(data: unknown): string | null {
   return typeof airframe === 'string' && (AIRFRAMES as readonly string[]).includes(airframe) ? airframe : null;
 }
 
+/** The model row as the save path needs it; a full SetupModel when the caller has one. */
+export type LockedModelRow = Pick<SetupModel, 'id' | 'workspaceId' | 'airframe'> & Partial<Pick<SetupModel, 'set'>>;
+
 export interface LockedModel {
-  model: SetupModel;
+  model: LockedModelRow;
   latest: Pick<Revision, 'id' | 'number'> | null;
 }
 
 /**
- * Locks the model's row (SELECT ... FOR UPDATE) for the rest of the transaction and
- * reads its latest revision number. Every write to a model's history goes through
- * this lock, so concurrent saves on one base queue up and all but the first find
- * their base stale.
+ * Locks the model's row (SELECT ... FOR UPDATE) for the rest of the transaction, then
+ * reads its latest revision. Every write to a model's history goes through this lock,
+ * so concurrent saves on one base queue up and all but the first find their base
+ * stale. The latest revision is read by a second statement on purpose: one that
+ * waited for the lock must see the revision its predecessor committed, and in READ
+ * COMMITTED only a new statement does (a join in the locking statement would keep
+ * the rows it saw before the wait).
  */
-export async function lockModel(modelId: string, transaction: Transaction): Promise<LockedModel> {
-  const model = await SetupModel.findByPk(modelId, { lock: transaction.LOCK.UPDATE, transaction });
-  if (!model) throw new NotFound('No such model.', { code: 'model-not-found' });
-  const latest = await Revision.findOne({ where: { modelId }, attributes: ['id', 'number'], order: [['number', 'DESC']], transaction });
-  return { model, latest };
+export async function lockModel(sequelize: Sequelize, modelId: string, transaction: Transaction): Promise<LockedModel> {
+  const [row] = await sequelize.query<{ id: string; workspace_id: string; airframe: string | null }>(
+    'SELECT id, workspace_id, airframe FROM models WHERE id = $id FOR UPDATE',
+    { bind: { id: modelId }, type: QueryTypes.SELECT, transaction },
+  );
+  if (!row) throw new NotFound('No such model.', { code: 'model-not-found' });
+  const [latest] = await sequelize.query<{ id: string; number: number }>('SELECT id, number FROM revisions WHERE model_id = $id ORDER BY number DESC LIMIT 1', {
+    bind: { id: modelId },
+    type: QueryTypes.SELECT,
+    transaction,
+  });
+  return { model: { id: row.id, workspaceId: row.workspace_id, airframe: row.airframe }, latest: latest ?? null };
 }
 
 export function requireLatestBase(latest: LockedModel['latest'], base: number): void {
@@ -89,6 +102,12 @@ export function requireLatestBase(latest: LockedModel['latest'], base: number): 
   }
 }
 
+/** An audit entry written in the same statement as the revision it is about. */
+export interface RevisionAudit {
+  action: AuditAction;
+  details: Record<string, unknown>;
+}
+
 export interface AppendInput {
   author: User;
   message: string;
@@ -96,40 +115,67 @@ export interface AppendInput {
   sourceRevisionId?: string | null;
   /** For the demo seed, which writes a history with its original dates. */
   createdAt?: Date;
+  audit?: RevisionAudit;
 }
 
+// One statement inserts the revision, keeps the model's airframe and change time
+// current and, when asked, writes the audit entry: a save holds the model's lock for
+// as few round trips as possible.
+const APPEND_SQL = `
+  WITH inserted AS (
+    INSERT INTO revisions (model_id, number, parent_id, author_id, message, yaml_text, document, content_hash, findings,
+                           error_count, warning_count, info_count, origin, source_revision_id, created_at)
+    VALUES ($modelId, $number, $parentId, $authorId, $message, $yamlText, $document::jsonb, $contentHash, $findings::jsonb,
+            $errorCount, $warningCount, $infoCount, $origin, $sourceRevisionId, coalesce($createdAt::timestamptz, clock_timestamp()))
+    RETURNING id, created_at
+  ), touched AS (
+    UPDATE models SET airframe = $airframe, updated_at = (SELECT created_at FROM inserted) WHERE id = $modelId
+  ), audited AS (
+    INSERT INTO audit_events (workspace_id, actor_id, action, subject_type, subject_id, details, created_at)
+    SELECT $workspaceId, $authorId, $auditAction, 'revision', inserted.id, $auditDetails::jsonb, inserted.created_at
+      FROM inserted WHERE $auditAction::text IS NOT NULL
+  )
+  SELECT id, created_at FROM inserted`;
+
 /** Adds the next revision to a model locked by `lockModel` and keeps the model's airframe current. */
-export async function appendRevision(locked: LockedModel, setup: CheckedSetup, input: AppendInput, transaction: Transaction): Promise<Revision> {
+export async function appendRevision(sequelize: Sequelize, locked: LockedModel, setup: CheckedSetup, input: AppendInput, transaction: Transaction): Promise<Revision> {
   const { model, latest } = locked;
   const { findings, counts, data } = setup.analysis;
-  const revision = await Revision.create(
-    {
-      modelId: model.id,
-      number: (latest?.number ?? 0) + 1,
-      parentId: latest?.id ?? null,
-      authorId: input.author.id,
-      message: input.message,
-      yamlText: setup.text,
-      document: data,
-      contentHash: setup.contentHash,
-      findings,
-      errorCount: counts.errors,
-      warningCount: counts.warnings,
-      infoCount: counts.infos,
-      origin: input.origin,
-      sourceRevisionId: input.sourceRevisionId ?? null,
-      ...(input.createdAt ? { createdAt: input.createdAt } : {}),
-    },
-    { transaction },
-  );
-  revision.author = input.author;
+  const values = {
+    modelId: model.id,
+    number: (latest?.number ?? 0) + 1,
+    parentId: latest?.id ?? null,
+    authorId: input.author.id,
+    message: input.message,
+    yamlText: setup.text,
+    document: data,
+    contentHash: setup.contentHash,
+    findings,
+    errorCount: counts.errors,
+    warningCount: counts.warnings,
+    infoCount: counts.infos,
+    origin: input.origin,
+    sourceRevisionId: input.sourceRevisionId ?? null,
+  };
   const airframe = airframeOf(data) ?? model.airframe;
-  const updatedAt = input.createdAt ?? revision.createdAt;
-  await model.sequelize.query('UPDATE models SET airframe = $airframe, updated_at = $updatedAt WHERE id = $id', {
-    bind: { airframe, updatedAt, id: model.id },
+  const [row] = await sequelize.query<{ id: string; created_at: Date }>(APPEND_SQL, {
+    bind: {
+      ...values,
+      document: JSON.stringify(data),
+      findings: JSON.stringify(findings),
+      createdAt: input.createdAt ?? null,
+      airframe,
+      workspaceId: model.workspaceId,
+      auditAction: input.audit?.action ?? null,
+      auditDetails: JSON.stringify({ model_id: model.id, number: values.number, content_hash: setup.contentHash, errors: counts.errors, ...input.audit?.details }),
+    },
+    type: QueryTypes.SELECT,
     transaction,
   });
-  model.set({ airframe, updatedAt }, { raw: true });
+  // raw: a built instance that is not new ignores writes to its timestamps otherwise.
+  const revision = Revision.build({ ...values, id: row.id, createdAt: new Date(row.created_at) }, { isNewRecord: false, raw: true });
+  revision.author = input.author;
+  model.set?.({ airframe, updatedAt: revision.createdAt }, { raw: true });
   return revision;
 }
 
@@ -151,21 +197,14 @@ export async function saveRevision(sequelize: Sequelize, input: SaveRevisionInpu
   const setup = checkSetupText(input.yaml);
   const origin = input.origin ?? 'save';
   return inTransaction(sequelize, input.transaction, async (transaction) => {
-    const locked = await lockModel(input.modelId, transaction);
+    const locked = await lockModel(sequelize, input.modelId, transaction);
     requireLatestBase(locked.latest, input.base);
-    const revision = await appendRevision(locked, setup, { author: input.author, message: input.message ?? '', origin, createdAt: input.createdAt }, transaction);
-    await recordAuditEvent(
-      {
-        workspaceId: locked.model.workspaceId,
-        actor: input.author,
-        action: AUDIT_FOR[origin],
-        subjectType: 'revision',
-        subjectId: revision.id,
-        details: { model_id: locked.model.id, number: revision.number, content_hash: revision.contentHash, errors: revision.errorCount },
-        createdAt: input.createdAt,
-      },
+    return appendRevision(
+      sequelize,
+      locked,
+      setup,
+      { author: input.author, message: input.message ?? '', origin, createdAt: input.createdAt, audit: { action: AUDIT_FOR[origin], details: {} } },
       transaction,
     );
-    return revision;
   });
 }
