@@ -54,11 +54,21 @@ export function countKinds(changes: readonly Change[]): ChangeCounts {
   return counts;
 }
 
-/** A before or after value in a line: short values as they are, larger ones as compact JSON. */
-export function valueText(value: unknown): string {
+const MAX_VALUE_TEXT = 120;
+
+// Like YAML's flow style, the way the setup itself is written: `{ pin: 3, ch: 11 }`.
+function flow(value: unknown): string {
   if (value === null || value === undefined) return '—';
-  if (typeof value === 'string') return value;
-  if (typeof value === 'number' || typeof value === 'boolean') return String(value);
-  const json = JSON.stringify(value);
-  return json.length > 120 ? `${json.slice(0, 117)}…` : json;
+  if (Array.isArray(value)) return `[${value.map(flow).join(', ')}]`;
+  if (typeof value === 'object') {
+    const entries = Object.entries(value as Record<string, unknown>).map(([key, item]) => `${key}: ${flow(item)}`);
+    return entries.length === 0 ? '{}' : `{ ${entries.join(', ')} }`;
+  }
+  return String(value);
+}
+
+/** A before or after value in one line: plain values as they are, entries in flow style, long ones cut short. */
+export function valueText(value: unknown): string {
+  const text = flow(value);
+  return text.length > MAX_VALUE_TEXT ? `${text.slice(0, MAX_VALUE_TEXT - 1)}…` : text;
 }

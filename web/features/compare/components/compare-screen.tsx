@@ -139,19 +139,19 @@ function Result({ model, result, stale }: { model: SetupModelView; result: Compa
   const toIsLatest = result.to.model.id === model.id && result.to.id === model.latest?.id;
   return (
     <div className={stale ? 'space-y-8 opacity-60' : 'space-y-8'} aria-busy={stale || undefined}>
-      <Card className="flex flex-wrap items-start gap-x-8 gap-y-3 px-5 py-4">
+      <Card className="grid items-start gap-x-6 gap-y-3 px-5 py-4 sm:grid-cols-[minmax(0,1fr)_auto_minmax(0,1fr)] lg:grid-cols-[minmax(0,1fr)_auto_minmax(0,1fr)_auto]">
         <SideCard title="From" side={result.from} model={model} />
-        <span aria-hidden="true" className="self-center text-xl text-ink-500">
+        <span aria-hidden="true" className="hidden self-center text-xl text-ink-500 sm:block">
           -&gt;
         </span>
         <SideCard title="To" side={result.to} model={model} />
-        <div className="flex flex-col items-start gap-2 sm:ml-auto sm:items-end">
+        <div className="flex flex-wrap items-center gap-2 sm:col-span-3 lg:col-span-1 lg:flex-col lg:items-end">
           <KindCounts counts={result.counts} />
           <a href={patchDownloadUrl(result.from.id, result.to.id)} download className={buttonClasses('secondary', 'sm')}>
             Export JSON Patch
           </a>
         </div>
-        {result.from.id === result.to.id && <p className="w-full text-sm text-ink-700">Both sides are the same revision; choose another to see differences.</p>}
+        {result.from.id === result.to.id && <p className="text-sm text-ink-700 sm:col-span-3 lg:col-span-4">Both sides are the same revision; choose another to see differences.</p>}
       </Card>
 
       <Section id="changes-heading" title="Changes by section">

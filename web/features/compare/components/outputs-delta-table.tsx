@@ -51,7 +51,7 @@ export function OutputsDeltaTable({ deltas }: { deltas: OutputDelta[] | null }) 
             <Fragment key={label}>
               <tr className="bg-paper">
                 <th scope="colgroup" colSpan={5} className="border-y border-ply-200 px-4 py-1.5 text-sm font-semibold text-ink-900">
-                  {label.charAt(0).toUpperCase() + label.slice(1)}
+                  {label}
                 </th>
               </tr>
               {rows.map((delta) => (

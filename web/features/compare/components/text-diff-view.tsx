@@ -23,7 +23,7 @@ function Side({ side, kind, tone, sign, divider = false }: { side: TextRow['left
         {side && sign}
         {side && kind !== 'same' && <span className="sr-only"> {SIGNS[kind].word}</span>}
       </td>
-      <td className={cx('px-2 align-top break-all whitespace-pre-wrap text-ink-900', tone)}>{side?.text ?? ''}</td>
+      <td className={cx('px-2 align-top whitespace-pre-wrap text-ink-900 [overflow-wrap:anywhere]', tone)}>{side?.text ?? ''}</td>
     </>
   );
 }

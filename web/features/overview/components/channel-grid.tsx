@@ -131,7 +131,9 @@ function ChannelRow({ row, receivers }: { row: PlanRow; receivers: PlanReceiver[
         );
       })}
       <td className="border-l border-ply-200 px-3 py-2">
-        {row.marks.length > 0 && (
+        {row.marks.length === 0 ? (
+          <span className="text-sm text-ink-500">clear</span>
+        ) : (
           <ul className="flex flex-col items-start gap-1">
             {row.marks.map((mark) => (
               <li key={mark.kind}>

@@ -38,7 +38,7 @@ function ReceiverStrip({
         <span>{receiver.outputs === null ? 'outputs not given' : `${receiver.outputs} outputs`}</span>
         <TelemetryBadge receiver={receiver} />
       </p>
-      <ol className="mt-3 grid grid-cols-4 gap-1.5 sm:grid-cols-6" aria-label={`Pins of ${receiverName(receiver)}`}>
+      <ol className="mt-3 grid grid-cols-[repeat(auto-fill,minmax(5.5rem,1fr))] gap-1.5" aria-label={`Pins of ${receiverName(receiver)}`}>
         {pins.map((pin) => {
           const entries = receiver.map.filter((entry) => entry.pin === pin);
           const beyondOutputs = receiver.outputs !== null && pin > receiver.outputs;
@@ -57,10 +57,8 @@ function ReceiverStrip({
                 const names = functionsOf(entry.ch);
                 return (
                   <span key={index} className="block">
-                    <span className="block font-mono">
-                      ch {entry.ch}
-                      {linkChannels !== null && entry.ch > linkChannels ? ' (beyond link)' : ''}
-                    </span>
+                    <span className="block font-mono">ch {entry.ch}</span>
+                    {linkChannels !== null && entry.ch > linkChannels && <span className="block font-medium text-danger-700">beyond link</span>}
                     <span className="block truncate" title={names.join(', ')}>
                       {names.length > 0 ? names.join(', ') : 'no function'}
                     </span>

@@ -1,0 +1,125 @@
+import { screen, waitFor, within } from '@testing-library/react';
+import { BUILDERS, CLUB, fakeServer, sessionRoutes, type FakeHandler } from '../fake-server';
+import { renderApp } from '../render-app';
+import { fixtureText, modelRecord, modelRoutes, modelView, type ModelRecord } from './model-data';
+
+// Three models of the club's hangar, each from a fixture setup so the counts are the
+// checks' own: a clean trainer, a sport model with a shared channel, a 16-channel scale model.
+function hangarModels(): ModelRecord[] {
+  return [
+    modelRecord('Wren Trainer', [fixtureText('valid/trainer-single-receiver.yaml')], { airframe: 'airplane', review_state: 'approved' }),
+    modelRecord('Meadowlark 40', [fixtureText('valid/trainer-single-receiver.yaml'), fixtureText('invalid/channel-shared.yaml')], {
+      airframe: 'airplane',
+      review_state: 'pending',
+    }),
+    modelRecord('Albatross Scale', [1, 2, 3].map(() => fixtureText('valid/scale-16-channel-two-receivers.yaml')), { airframe: 'glider' }),
+  ];
+}
+
+function hangarRoute(models: ModelRecord[], workspace = CLUB): Record<string, FakeHandler> {
+  return {
+    [`GET /api/workspaces/${workspace}/models`]: () => ({ body: { data: models.map(modelView), pagination: { limit: 200, offset: 0, total: models.length } } }),
+  };
+}
+
+const modelNames = () =>
+  within(screen.getByRole('table'))
+    .getAllByRole('row')
+    .slice(1)
+    .map((row) => within(row).getAllByRole('link')[0].textContent);
+
+describe('Hangar', () => {
+  it('lists the models sorted by name, with their revision, checks and review state', async () => {
+    const models = hangarModels();
+    fakeServer({ ...sessionRoutes({ signedIn: true }).routes, ...hangarRoute(models) });
+    renderApp(`/w/${CLUB}/hangar`);
+
+    await screen.findByRole('table');
+    expect(modelNames()).toEqual(['Albatross Scale', 'Meadowlark 40', 'Wren Trainer']);
+    const meadowlark = screen.getByRole('row', { name: /Meadowlark 40/ });
+    expect(within(meadowlark).getByText('r2')).toBeInTheDocument();
+    expect(within(meadowlark).getByText(`${models[1].revisions[1].error_count} error${models[1].revisions[1].error_count === 1 ? '' : 's'}`)).toBeInTheDocument();
+    expect(within(meadowlark).getByText('Review pending')).toBeInTheDocument();
+    expect(within(screen.getByRole('row', { name: /Wren Trainer/ })).getByText('Approved')).toBeInTheDocument();
+    expect(within(meadowlark).getByRole('link', { name: 'Meadowlark 40' })).toHaveAttribute('href', `/models/${models[1].id}/overview`);
+  });
+
+  it('sorts by a column heading, and the other way on a second click', async () => {
+    fakeServer({ ...sessionRoutes({ signedIn: true }).routes, ...hangarRoute(hangarModels()) });
+    const { user, location } = renderApp(`/w/${CLUB}/hangar`);
+    await screen.findByRole('table');
+
+    await user.click(screen.getByRole('button', { name: 'Revision' }));
+    expect(modelNames()).toEqual(['Albatross Scale', 'Meadowlark 40', 'Wren Trainer']);
+    expect(screen.getByRole('columnheader', { name: 'Revision' })).toHaveAttribute('aria-sort', 'descending');
+    expect(location().search).toBe('?sort=revision&dir=desc');
+
+    await user.click(screen.getByRole('button', { name: 'Revision' }));
+    expect(modelNames()).toEqual(['Wren Trainer', 'Meadowlark 40', 'Albatross Scale']);
+    expect(screen.getByRole('columnheader', { name: 'Revision' })).toHaveAttribute('aria-sort', 'ascending');
+
+    await user.click(screen.getByRole('button', { name: 'Checks' }));
+    expect(modelNames()[0]).toBe('Meadowlark 40');
+    expect(screen.getByRole('columnheader', { name: 'Revision' })).not.toHaveAttribute('aria-sort');
+  });
+
+  it('narrows the list to what the search names, and says when nothing matches', async () => {
+    fakeServer({ ...sessionRoutes({ signedIn: true }).routes, ...hangarRoute(hangarModels()) });
+    const { user } = renderApp(`/w/${CLUB}/hangar`);
+    const search = await screen.findByRole('searchbox', { name: 'Search models' });
+
+    await user.type(search, 'glider');
+    expect(modelNames()).toEqual(['Albatross Scale']);
+    expect(screen.getByText('1 of 3 models')).toBeInTheDocument();
+
+    await user.clear(search);
+    await user.type(search, 'MEADOW');
+    expect(modelNames()).toEqual(['Meadowlark 40']);
+
+    await user.type(search, 'x');
+    expect(screen.queryByRole('table')).not.toBeInTheDocument();
+    expect(screen.getByRole('heading', { name: 'No model matches “MEADOWx”' })).toBeInTheDocument();
+    await user.click(screen.getByRole('button', { name: 'Clear the search' }));
+    expect(modelNames()).toHaveLength(3);
+  });
+
+  it('invites an owner to add the first model of an empty hangar', async () => {
+    fakeServer({ ...sessionRoutes({ signedIn: true }).routes, ...hangarRoute([]) });
+    const { user } = renderApp(`/w/${CLUB}/hangar`);
+
+    expect(await screen.findByRole('heading', { name: 'No models in this hangar yet' })).toBeInTheDocument();
+    await user.click(screen.getByRole('button', { name: 'Add the first model' }));
+    expect(screen.getByRole('dialog', { name: 'New model' })).toBeInTheDocument();
+  });
+
+  it('offers no new model to a reviewer', async () => {
+    fakeServer({ ...sessionRoutes({ signedIn: true }).routes, ...hangarRoute(hangarModels(), BUILDERS) });
+    renderApp(`/w/${BUILDERS}/hangar`);
+
+    await screen.findByRole('table');
+    expect(screen.queryByRole('button', { name: 'New model' })).not.toBeInTheDocument();
+    expect(screen.getByText(/Your role here is reviewer/)).toBeInTheDocument();
+  });
+
+  it('creates a blank model and opens it', async () => {
+    const created = modelRecord('Heron 2', [fixtureText('valid/trainer-single-receiver.yaml')]);
+    const server = fakeServer({
+      ...sessionRoutes({ signedIn: true }).routes,
+      ...hangarRoute([]),
+      ...modelRoutes([created]),
+      [`POST /api/workspaces/${CLUB}/models`]: () => ({ status: 201, body: { data: { model: modelView(created), revision: created.revisions[0] } } }),
+    });
+    const { user, location } = renderApp(`/w/${CLUB}/hangar`);
+    await user.click(await screen.findByRole('button', { name: 'New model' }));
+    const dialog = screen.getByRole('dialog', { name: 'New model' });
+
+    await user.click(within(dialog).getByRole('button', { name: 'Create model' }));
+    expect(within(dialog).getByText('Give the model a name.')).toBeInTheDocument();
+    expect(server.called('POST', `/api/workspaces/${CLUB}/models`)).toHaveLength(0);
+
+    await user.type(within(dialog).getByRole('textbox', { name: 'Name' }), 'Heron 2');
+    await user.click(within(dialog).getByRole('button', { name: 'Create model' }));
+    await waitFor(() => expect(location().pathname).toBe(`/models/${created.id}/overview`));
+    expect(server.called('POST', `/api/workspaces/${CLUB}/models`)[0].body).toEqual({ name: 'Heron 2' });
+  });
+});
