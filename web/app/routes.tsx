@@ -18,6 +18,7 @@ const HomeScreen = lazyScreen(() => import('./routes/home'), 'HomeScreen');
 const NotFoundScreen = lazyScreen(() => import('./routes/not-found'), 'NotFoundScreen');
 const PlannedScreen = lazyScreen(() => import('./routes/planned-screen'), 'PlannedScreen');
 const TeamScreen = lazyScreen(() => import('../features/team/components/team-screen'), 'TeamScreen');
+const BenchScreen = lazyScreen(() => import('../features/bench/components/bench-screen'), 'BenchScreen');
 const InvitationScreen = lazyScreen(() => import('../features/team/components/invitation-screen'), 'InvitationScreen');
 const ResetPasswordConfirmScreen = lazyScreen(() => import('./routes/auth/reset-password-confirm'), 'ResetPasswordConfirmScreen');
 const OutboxScreen = lazyScreen(() => import('../features/outbox/components/outbox-screen'), 'OutboxScreen');
@@ -47,7 +48,7 @@ export const workspaceScreens: Screen[] = [
 export const modelScreens: Screen[] = [
   { path: 'overview', label: 'Overview', element: <OverviewScreen /> },
   { path: 'edit', label: 'Edit', element: <EditScreen /> },
-  planned('bench', 'Bench', 'Sticks, knobs and switches to set; each channel’s value, each pin’s pulse and failsafe, and the curve of every mix.'),
+  { path: 'bench', label: 'Bench', element: <BenchScreen /> },
   { path: 'history', label: 'History', element: <HistoryScreen /> },
   { path: 'compare', label: 'Compare', element: <CompareScreen /> },
   planned('reviews', 'Reviews', 'This model’s review requests, the pre-maiden checklist and the verdicts.'),

@@ -9,11 +9,10 @@ import type { Role } from '../../../types/api';
 import { useSession } from '../../auth/hooks/use-session';
 import { useModel } from '../../models/api/get-model';
 import { useRevision } from '../../models/api/get-revision';
+import { canEdit } from '../../models/permissions';
 import type { SetupModelView } from '../../models/types';
 import { clearDraft, loadDraft } from '../draft-storage';
 import { SetupEditor } from './setup-editor';
-
-const EDITING_ROLES: readonly Role[] = ['owner', 'editor'];
 
 export function EditScreen() {
   const { modelId = '' } = useParams();
@@ -35,7 +34,7 @@ export function EditScreen() {
   // The role in the model's workspace as the session knows it; the model's own answer
   // covers a workspace joined since the session was loaded.
   const role = workspaces.find((workspace) => workspace.id === model.data.workspace_id)?.role ?? model.data.role;
-  return <EditorLoader key={model.data.id} model={model.data} role={role} canEdit={EDITING_ROLES.includes(role)} />;
+  return <EditorLoader key={model.data.id} model={model.data} role={role} canEdit={canEdit(role)} />;
 }
 
 interface Start {

@@ -1,0 +1,164 @@
+import { useMemo, useState, type ReactNode } from 'react';
+import { useParams, useSearchParams } from 'react-router-dom';
+import { controlsById, switchPositionOf } from '../../../../shared/evaluate/control-value';
+import { evaluate, mixIsActive, mixWeight, valueOf } from '../../../../shared/evaluate/evaluate';
+import { expoCurve } from '../../../../shared/evaluate/expo-curve';
+import { mixCurve } from '../../../../shared/evaluate/mix-curve';
+import { setupSchema, type Setup } from '../../../../shared/format/schema';
+import { Button } from '../../../components/ui/button';
+import { EmptyState } from '../../../components/ui/empty-state';
+import { ErrorState } from '../../../components/ui/error-state';
+import { LoadingState } from '../../../components/ui/loading-state';
+import { PageHeader } from '../../../components/ui/page-header';
+import { CautionsPanel } from '../../cautions/components/cautions-panel';
+import { FindingsList } from '../../findings/components/findings-list';
+import { useModel } from '../../models/api/get-model';
+import { useRevision } from '../../models/api/get-revision';
+import type { Revision, SetupModelView } from '../../models/types';
+import { ChannelTable } from './channel-table';
+import { ControlPanel, controlName, type Positions } from './control-panel';
+import { MixCurvePlot } from './mix-curve-plot';
+import { ReceiverPins } from './receiver-pins';
+import { RevisionPicker } from './revision-picker';
+
+export function BenchScreen() {
+  const { modelId = '' } = useParams();
+  const [params] = useSearchParams();
+  const model = useModel(modelId);
+  const asked = params.get('revision');
+  const revision = useRevision(asked ?? model.data?.latest?.id);
+
+  let body: ReactNode;
+  if (model.isPending || (revision.isPending && (asked || model.data?.latest))) body = <LoadingState label="Loading the setup…" />;
+  else if (model.isError) body = <ErrorState title="This model could not be loaded" error={model.error} onRetry={() => void model.refetch()} />;
+  else if (revision.isError) body = <ErrorState title="This revision could not be loaded" error={revision.error} onRetry={() => void revision.refetch()} />;
+  else if (!revision.data) body = <EmptyState title="This model has no revision yet">Save a setup in the editor to try it on the bench.</EmptyState>;
+  else if (revision.data.model_id !== model.data.id) {
+    body = <ErrorState title="That revision is not one of this model’s" error={new Error('Pick a revision of this model to put on the bench.')} />;
+  } else body = <BenchForRevision model={model.data} revision={revision.data} />;
+
+  return (
+    <>
+      <PageHeader
+        title="Bench"
+        documentTitle={model.data ? `Bench · ${model.data.name}` : 'Bench'}
+        description="Set sticks, knobs and switches and read what every channel and receiver pin puts out, and what each pin does when the link is lost."
+        actions={model.data && revision.data && <RevisionPicker modelId={model.data.id} current={revision.data} latest={model.data.latest} />}
+      />
+      {body}
+    </>
+  );
+}
+
+function BenchForRevision({ model, revision }: { model: SetupModelView; revision: Revision }) {
+  const parsed = useMemo(() => setupSchema.safeParse(revision.document), [revision.document]);
+  if (!parsed.success) {
+    const blocking = revision.findings.filter((finding) => finding.severity === 'error' && (finding.rule === 'schema' || finding.rule === 'syntax'));
+    return (
+      <div className="space-y-4">
+        <ErrorState
+          title={`Revision ${revision.number} cannot go on the bench`}
+          error={new Error('Some fields are missing or of the wrong kind, so its outputs cannot be worked out. Fix these in the editor first.')}
+        />
+        <FindingsList findings={blocking.length > 0 ? blocking : revision.findings} modelId={model.id} />
+      </div>
+    );
+  }
+  return <Bench key={revision.id} setup={parsed.data} />;
+}
+
+function Bench({ setup }: { setup: Setup }) {
+  const [positions, setPositions] = useState<Positions>({});
+  const [linkLost, setLinkLost] = useState(false);
+
+  const controls = useMemo(() => controlsById(setup.controls), [setup]);
+  const outputs = useMemo(() => evaluate(setup, positions), [setup, positions]);
+  const functions = useMemo(() => {
+    const byCh = new Map<number, string>();
+    for (const channel of setup.channels) if (!byCh.has(channel.ch)) byCh.set(channel.ch, channel.function);
+    return byCh;
+  }, [setup]);
+  const cutOn = useMemo(
+    () => new Set(setup.channels.filter((channel) => channel.cut && switchPositionOf(controls, channel.cut.control, positions) === channel.cut.position).map((channel) => channel.ch)),
+    [setup, controls, positions],
+  );
+  const curves = useMemo(
+    () =>
+      setup.mixes.map((mix, index) => {
+        const x = valueOf(controls, mix.from, positions);
+        const weight = mixWeight(mix, controls, positions);
+        const control = controls.get(mix.from);
+        return {
+          key: `${mix.id}-${index}`,
+          mix,
+          weight,
+          points: mixCurve(setup, mix.id, 41, positions),
+          now: { x, y: weight * expoCurve(x / 100, mix.expo) + mix.offset },
+          active: mixIsActive(mix, controls, positions),
+          inputName: control ? controlName(control) : mix.from,
+        };
+      }),
+    [setup, controls, positions],
+  );
+  const moved = Object.values(positions).some((value) => value !== 0);
+
+  return (
+    <div className="space-y-6">
+      <div className="grid gap-6 lg:grid-cols-[20rem_minmax(0,1fr)]">
+        <div className="space-y-3">
+          <Button variant="secondary" className="w-full" disabled={!moved} onClick={() => setPositions({})}>
+            Centre all
+          </Button>
+          <ControlPanel controls={setup.controls} positions={positions} onChange={(id, value) => setPositions((current) => ({ ...current, [id]: value }))} />
+        </div>
+        <ChannelTable outputs={outputs.channels} plan={setup.channels} cutOn={cutOn} />
+      </div>
+
+      <section aria-labelledby="bench-receivers" className="space-y-3">
+        <div className="flex flex-wrap items-center justify-between gap-3">
+          <h2 id="bench-receivers" className="text-xl font-semibold text-ink-900">
+            Receiver pins
+          </h2>
+          <label className="flex cursor-pointer items-center gap-2 rounded-md border border-ply-500 bg-paper-raised px-3 py-1.5 text-sm font-medium text-ink-900 has-checked:border-caution-700 has-checked:bg-caution-100">
+            <input type="checkbox" checked={linkLost} onChange={(event) => setLinkLost(event.target.checked)} className="h-4 w-4 accent-caution-700" />
+            Simulate link loss
+          </label>
+        </div>
+        {linkLost && (
+          <p role="status" className="text-sm text-ink-700">
+            The link is lost: each pin shows its failsafe pulse. A pin that holds keeps the pulse it had; a receiver default is whatever the
+            unit was set to, which Bindery does not know.
+          </p>
+        )}
+        <div className="grid gap-4 md:grid-cols-2">
+          {setup.receivers.map((receiver, index) => (
+            <ReceiverPins key={`${receiver.id}-${index}`} receiver={receiver} output={outputs.receivers[index]} functions={functions} linkLost={linkLost} />
+          ))}
+        </div>
+      </section>
+
+      <section aria-labelledby="bench-curves" className="space-y-3">
+        <h2 id="bench-curves" className="text-xl font-semibold text-ink-900">
+          Mix curves
+        </h2>
+        {curves.length === 0 ? (
+          <EmptyState title="No mixes">Without mixes no control moves any channel.</EmptyState>
+        ) : (
+          <>
+            <p className="max-w-prose text-sm text-ink-700">
+              Each mix's output against its input, at the rates the switches select now. The dot is where the control sits; a dashed curve is
+              a mix that does not count at these switch positions.
+            </p>
+            <div className="grid grid-cols-2 gap-3 sm:grid-cols-3 lg:grid-cols-5">
+              {curves.map(({ key, ...curve }) => (
+                <MixCurvePlot key={key} {...curve} />
+              ))}
+            </div>
+          </>
+        )}
+      </section>
+
+      <CautionsPanel />
+    </div>
+  );
+}
