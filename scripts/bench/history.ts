@@ -3,7 +3,7 @@ import { signSession } from '../../api/auth/tokens';
 import { createModel } from '../../api/commands/create-model';
 import { printAsyncBenchmarks, timingOf, type AsyncBenchmark, type AsyncTiming } from './support/async-benchmark';
 import { startApiProcess } from './support/api-process';
-import { withBenchDatabase } from './support/bench-database';
+import { benchDatabase, closeBenchDatabase } from './support/bench-database';
 import { benchPilot, DEMO_SETUP } from './support/bench-fixtures';
 
 // The first page of the history of a model with 10,000 revisions, through the HTTP
@@ -16,46 +16,51 @@ const WARM_UP_PAGES = 20;
 const TIMED_PAGES = 200;
 
 async function measureHistoryPage(): Promise<AsyncTiming> {
-  return withBenchDatabase(async ({ url, sequelize }) => {
-    const { user, workspace } = await benchPilot();
-    const { model, revision } = await createModel(sequelize, { workspace, author: user, name: 'Ten thousand saves', yaml: DEMO_SETUP });
-    await sequelize.query(
-      `WITH numbered AS (
-         SELECT n, gen_random_uuid() AS id FROM generate_series(2, $count::integer) AS n
-       ), chained AS (
-         SELECT n, id, coalesce(lag(id) OVER (ORDER BY n), $first::uuid) AS parent_id FROM numbered
-       )
-       INSERT INTO revisions (id, model_id, number, parent_id, author_id, message, yaml_text, document, content_hash, findings,
-                              error_count, warning_count, info_count, origin, created_at)
-       SELECT chained.id, first.model_id, chained.n, chained.parent_id, first.author_id, 'Bench revision ' || chained.n, first.yaml_text,
-              first.document, first.content_hash, first.findings, first.error_count, first.warning_count, first.info_count, 'save',
-              first.created_at + chained.n * interval '1 minute'
-         FROM chained CROSS JOIN (SELECT * FROM revisions WHERE id = $first::uuid) AS first
-        ORDER BY chained.n`,
-      { bind: { count: REVISIONS, first: revision.id } },
-    );
-    await sequelize.query('ANALYZE revisions');
-    const api = await startApiProcess(url);
-    try {
-      const headers = { Authorization: `Bearer ${signSession(user, api.config)}` };
-      const latencies: number[] = [];
-      for (let page = 0; page < WARM_UP_PAGES + TIMED_PAGES; page += 1) {
-        const start = performance.now();
-        const response = await fetch(`${api.url}/api/models/${model.id}/revisions`, { headers });
-        const body = (await response.json()) as { data?: { number: number }[] };
-        const elapsed = performance.now() - start;
-        if (response.status !== 200 || body.data?.[0]?.number !== REVISIONS) throw new Error(`the history page answered ${response.status} starting at ${body.data?.[0]?.number}`);
-        if (page >= WARM_UP_PAGES) latencies.push(elapsed);
-      }
-      return timingOf(latencies);
-    } finally {
-      await api.stop();
+  const { url, sequelize } = await benchDatabase();
+  const { user, workspace } = await benchPilot();
+  const { model, revision } = await createModel(sequelize, { workspace, author: user, name: 'Ten thousand saves', yaml: DEMO_SETUP });
+  await sequelize.query(
+    `WITH numbered AS (
+       SELECT n, gen_random_uuid() AS id FROM generate_series(2, $count::integer) AS n
+     ), chained AS (
+       SELECT n, id, coalesce(lag(id) OVER (ORDER BY n), $first::uuid) AS parent_id FROM numbered
+     )
+     INSERT INTO revisions (id, model_id, number, parent_id, author_id, message, yaml_text, document, content_hash, findings,
+                            error_count, warning_count, info_count, origin, created_at)
+     SELECT chained.id, first.model_id, chained.n, chained.parent_id, first.author_id, 'Bench revision ' || chained.n, first.yaml_text,
+            first.document, first.content_hash, first.findings, first.error_count, first.warning_count, first.info_count, 'save',
+            first.created_at + chained.n * interval '1 minute'
+       FROM chained CROSS JOIN (SELECT * FROM revisions WHERE id = $first::uuid) AS first
+      ORDER BY chained.n`,
+    { bind: { count: REVISIONS, first: revision.id } },
+  );
+  await sequelize.query('ANALYZE revisions');
+  const api = await startApiProcess(url);
+  try {
+    const headers = { Authorization: `Bearer ${signSession(user, api.config)}` };
+    const latencies: number[] = [];
+    for (let page = 0; page < WARM_UP_PAGES + TIMED_PAGES; page += 1) {
+      const start = performance.now();
+      const response = await fetch(`${api.url}/api/models/${model.id}/revisions`, { headers });
+      const body = (await response.json()) as { data?: { number: number }[] };
+      const elapsed = performance.now() - start;
+      if (response.status !== 200 || body.data?.[0]?.number !== REVISIONS) throw new Error(`the history page answered ${response.status} starting at ${body.data?.[0]?.number}`);
+      if (page >= WARM_UP_PAGES) latencies.push(elapsed);
     }
-  });
+    return timingOf(latencies);
+  } finally {
+    await api.stop();
+  }
 }
 
 export const asyncBenchmarks: AsyncBenchmark[] = [
   { name: `history, first page of a model with ${REVISIONS.toLocaleString('en')} revisions`, budgetMs: 25, budgetOn: 'median', measure: measureHistoryPage },
 ];
 
-if (import.meta.url === pathToFileURL(process.argv[1] ?? '').href) await printAsyncBenchmarks(asyncBenchmarks);
+if (import.meta.url === pathToFileURL(process.argv[1] ?? '').href) {
+  try {
+    await printAsyncBenchmarks(asyncBenchmarks);
+  } finally {
+    await closeBenchDatabase();
+  }
+}
