@@ -60,7 +60,7 @@ export function ChangeList({ changes, sections }: { changes: Change[]; sections:
                     <p className="mt-0.5 flex flex-wrap items-baseline gap-x-2 text-sm text-ink-700">
                       <code className="font-mono break-all text-ink-500">{change.path}</code>
                       {change.kind !== 'moved' && (
-                        <span className="font-mono break-all">
+                        <span className="font-mono [overflow-wrap:anywhere]">
                           {valueText(change.before)} <span aria-label="becomes">-&gt;</span> {valueText(change.after)}
                         </span>
                       )}

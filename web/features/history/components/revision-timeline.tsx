@@ -71,7 +71,7 @@ export function RevisionTimeline({ model, revisions, picked, onPick, editable, o
                     {editable ? <TagEditor model={model} revision={revision} /> : <TagList tags={revision.tags} />}
                   </div>
                 </div>
-                <div className="flex w-full flex-wrap gap-1.5 sm:w-auto sm:justify-end">
+                <div className="flex w-full flex-wrap gap-1.5 pl-7 lg:w-auto lg:justify-end lg:pl-0">
                   {previous && (
                     <Link to={`/models/${model.id}/compare${compareSearch(previous, revision)}`} className={buttonClasses('quiet', 'sm')}>
                       Changes since r{previous.number}
