@@ -20,6 +20,7 @@ import { teamRouter } from './routes/team';
 import { invitationsRouter } from './routes/invitations';
 import { passwordResetRouter } from './routes/password-reset';
 import { outboxRouter } from './routes/outbox';
+import { reviewsRouter } from './routes/reviews';
 import { receiversRouter } from './routes/receivers';
 import { fieldSheetRouter } from './routes/field-sheet';
 
@@ -87,6 +88,7 @@ export function createApp(context: AppContext): Express {
   api.use(invitationsRouter(context));
   api.use(passwordResetRouter(context));
   api.use(outboxRouter(context));
+  api.use(reviewsRouter(context));
   api.use(receiversRouter(context));
   api.use(fieldSheetRouter(context));
   api.use(unknownApiRoute);

@@ -4,6 +4,7 @@ import * as accountsAndWorkspaces from './0001-accounts-and-workspaces';
 import * as modelsAndRevisions from './0002-models-and-revisions';
 import * as mailAndTeam from './0003-mail-and-team';
 import * as receivers from './0004-receivers';
+import * as reviews from './0005-reviews';
 
 export interface MigrationModule {
   up: MigrationFn<MigrationContext>;
@@ -17,4 +18,5 @@ export const migrations: { name: string; module: MigrationModule }[] = [
   { name: '0002-models-and-revisions', module: modelsAndRevisions },
   { name: '0003-mail-and-team', module: mailAndTeam },
   { name: '0004-receivers', module: receivers },
+  { name: '0005-reviews', module: reviews },
 ];

@@ -9,12 +9,17 @@ import { AuditEvent } from './AuditEvent';
 import { OutboxMessage } from './OutboxMessage';
 import { Invitation } from './Invitation';
 import { PasswordReset } from './PasswordReset';
+import { Review } from './Review';
+import { ReviewVerdict } from './ReviewVerdict';
+import { ReviewComment } from './ReviewComment';
+import { ChecklistTick } from './ChecklistTick';
 import { Receiver } from './Receiver';
 import { ReceiverInstall } from './ReceiverInstall';
 
 export { Membership, User, Workspace };
 export { SetupModel, Revision, Tag, AuditEvent };
 export { OutboxMessage, Invitation, PasswordReset };
+export { Review, ReviewVerdict, ReviewComment, ChecklistTick };
 export { Receiver, ReceiverInstall };
 
 let boundTo: Sequelize | null = null;
@@ -64,5 +69,23 @@ export function initModels(sequelize: Sequelize): void {
   ReceiverInstall.belongsTo(SetupModel, { as: 'model', foreignKey: 'modelId' });
   ReceiverInstall.belongsTo(User, { as: 'installer', foreignKey: 'installedBy' });
   ReceiverInstall.belongsTo(User, { as: 'remover', foreignKey: 'removedBy' });
+  Review.initModel(sequelize);
+  ReviewVerdict.initModel(sequelize);
+  ReviewComment.initModel(sequelize);
+  ChecklistTick.initModel(sequelize);
+  Review.belongsTo(Revision, { as: 'revision', foreignKey: 'revisionId' });
+  Review.belongsTo(SetupModel, { as: 'model', foreignKey: 'modelId' });
+  Review.belongsTo(Workspace, { as: 'workspace', foreignKey: 'workspaceId' });
+  Review.belongsTo(User, { as: 'requester', foreignKey: 'requestedBy' });
+  Review.hasMany(ReviewVerdict, { as: 'verdicts', foreignKey: 'reviewId' });
+  Review.hasMany(ChecklistTick, { as: 'ticks', foreignKey: 'reviewId' });
+  ReviewVerdict.belongsTo(Review, { as: 'review', foreignKey: 'reviewId' });
+  ReviewVerdict.belongsTo(User, { as: 'reviewer', foreignKey: 'reviewerId' });
+  ReviewComment.belongsTo(Review, { as: 'review', foreignKey: 'reviewId' });
+  ReviewComment.belongsTo(Revision, { as: 'revision', foreignKey: 'revisionId' });
+  ReviewComment.belongsTo(SetupModel, { as: 'model', foreignKey: 'modelId' });
+  ReviewComment.belongsTo(User, { as: 'author', foreignKey: 'authorId' });
+  ChecklistTick.belongsTo(Review, { as: 'review', foreignKey: 'reviewId' });
+  ChecklistTick.belongsTo(User, { as: 'ticker', foreignKey: 'tickedBy' });
   boundTo = sequelize;
 }

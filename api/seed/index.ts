@@ -5,6 +5,7 @@ import { initModels } from '../models';
 import * as demoClub from './steps/0001-demo-club';
 import * as demoModels from './steps/0002-demo-models';
 import * as demoShelf from './steps/0003-demo-shelf';
+import * as demoReviews from './steps/0004-demo-reviews';
 
 export interface SeedContext {
   sequelize: Sequelize;
@@ -19,6 +20,7 @@ const steps: { name: string; run: (context: SeedContext) => Promise<void> }[] = 
   { name: '0001-demo-club', run: demoClub.run },
   { name: '0002-demo-models', run: demoModels.run },
   { name: '0003-demo-shelf', run: demoShelf.run },
+  { name: '0004-demo-reviews', run: demoReviews.run },
 ];
 
 /** Runs the demo steps not yet recorded; answers the names run. */

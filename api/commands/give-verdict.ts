@@ -1,0 +1,97 @@
+import type { Sequelize, Transaction } from 'sequelize';
+import { Forbidden, Unprocessable } from '../errors';
+import { appLink } from '../mail/context';
+import type { MailService } from '../mail/mail-service';
+import { verdictMail } from '../mail/messages';
+import { ChecklistTick, Review, ReviewVerdict, User } from '../models';
+import type { Verdict } from '../models/ReviewVerdict';
+import { PRE_MAIDEN_CHECKLIST } from '../reviews/checklist';
+import { reviewStateFromVerdicts } from '../reviews/sign-off';
+import type { ReviewAccess } from '../policies/review';
+import { recordTeamEvent } from './record-team-event';
+
+export interface VerdictInput {
+  verdict: Verdict;
+  body: string;
+  /** Checklist items to tick (true) or untick (false) along with the verdict. */
+  checklist: Record<string, boolean>;
+}
+
+/** Ticks and unticks checklist items of a review in the caller's transaction. */
+export async function setTicks(review: Review, user: User, changes: Record<string, boolean>, transaction: Transaction): Promise<void> {
+  for (const [item, ticked] of Object.entries(changes)) {
+    if (ticked) {
+      await ChecklistTick.findOrCreate({ where: { reviewId: review.id, item }, defaults: { reviewId: review.id, item, tickedBy: user.id }, transaction });
+    } else {
+      await ChecklistTick.destroy({ where: { reviewId: review.id, item }, transaction });
+    }
+  }
+}
+
+/** Why this user may not give this verdict on this revision, if they may not. */
+export function approvalRefusal(access: Pick<ReviewAccess, 'review'>, user: User): Forbidden | Unprocessable | null {
+  const { revision } = access.review;
+  if (revision.authorId === user.id) {
+    return new Forbidden('Nobody approves their own revision: ask another reviewer to sign it off.', { code: 'own-revision' });
+  }
+  if (revision.errorCount > 0) {
+    return new Unprocessable(
+      `Revision ${revision.number} has ${revision.errorCount} check error${revision.errorCount === 1 ? '' : 's'}; a revision with errors cannot be approved. Ask for changes instead.`,
+      { code: 'has-errors', details: { errors: revision.errorCount } },
+    );
+  }
+  return null;
+}
+
+/**
+ * Records a verdict pinned to the revision's content hash, applies its checklist
+ * ticks, moves the review's state, and mails the requester and the author.
+ */
+export async function giveVerdict(sequelize: Sequelize, mail: MailService, access: ReviewAccess, user: User, input: VerdictInput): Promise<{ verdict: ReviewVerdict; review: Review }> {
+  if (input.verdict === 'approve') {
+    const refusal = approvalRefusal(access, user);
+    if (refusal) throw refusal;
+  }
+  const { revision, model } = access.review;
+  return sequelize.transaction(async (transaction) => {
+    const review = await Review.findByPk(access.review.id, { lock: transaction.LOCK.UPDATE, transaction });
+    if (!review) throw new Unprocessable('The review is gone.', { code: 'review-not-found' });
+    const verdict = await ReviewVerdict.create({ reviewId: review.id, reviewerId: user.id, verdict: input.verdict, body: input.body, contentHash: revision.contentHash }, { transaction });
+    await setTicks(review, user, input.checklist, transaction);
+    const all = await ReviewVerdict.findAll({ where: { reviewId: review.id }, attributes: ['reviewerId', 'verdict', 'createdAt'], transaction });
+    const next = reviewStateFromVerdicts(all);
+    await review.update({ state: next.state, decidedAt: next.decidedAt }, { transaction });
+    await recordTeamEvent(
+      {
+        workspaceId: review.workspaceId,
+        actor: user,
+        action: 'review.verdict',
+        subjectType: 'review',
+        subjectId: review.id,
+        details: { verdict: input.verdict, model_id: model.id, model_name: model.name, revision_id: revision.id, number: revision.number, content_hash: revision.contentHash },
+      },
+      transaction,
+    );
+    const ticked = await ChecklistTick.count({ where: { reviewId: review.id }, transaction });
+    const recipientIds = [...new Set([review.requestedBy, revision.authorId])].filter((id) => id !== user.id);
+    const recipients = await User.findAll({ where: { id: recipientIds }, transaction });
+    for (const recipient of recipients) {
+      await mail.send(
+        verdictMail({
+          to: recipient.email,
+          recipient: recipient.name,
+          reviewer: user.name,
+          verdict: input.verdict,
+          body: input.body,
+          model: model.name,
+          revision: revision.number,
+          workspace: access.workspace.name,
+          ticked,
+          items: PRE_MAIDEN_CHECKLIST.length,
+          url: appLink(mail, `/w/${review.workspaceId}/reviews/${review.id}`),
+        }),
+      );
+    }
+    return { verdict, review };
+  });
+}

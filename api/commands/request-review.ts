@@ -1,0 +1,104 @@
+import { Op, type Sequelize } from 'sequelize';
+import { Conflict, Unprocessable } from '../errors';
+import { appLink } from '../mail/context';
+import type { MailService } from '../mail/mail-service';
+import { reviewRequestedMail } from '../mail/messages';
+import { Membership, Review, User, type Revision, type SetupModel, type Workspace } from '../models';
+import { roleAtLeast } from '../policies/roles';
+import { recordTeamEvent } from './record-team-event';
+
+export interface ReviewRequest {
+  workspace: Workspace;
+  model: SetupModel;
+  revision: Revision;
+  requester: User;
+  reviewerIds: string[];
+  note: string;
+}
+
+const reviewersRefused = (message: string, userIds: string[]) =>
+  new Unprocessable(message, { code: 'invalid-reviewers', details: { fields: { reviewers: message }, user_ids: userIds } });
+
+/** The members who may review, in the order asked; refuses anyone else by name. */
+async function checkReviewers(input: ReviewRequest): Promise<User[]> {
+  const memberships = await Membership.findAll({
+    where: { workspaceId: input.workspace.id, userId: { [Op.in]: input.reviewerIds } },
+    include: [{ model: User, as: 'user', required: true }],
+  });
+  const byUser = new Map(memberships.map((membership) => [membership.userId, membership]));
+  const outsiders = input.reviewerIds.filter((id) => !byUser.has(id));
+  if (outsiders.length > 0) throw reviewersRefused('Every reviewer must be a member of this workspace.', outsiders);
+  const tooLow = input.reviewerIds.filter((id) => !roleAtLeast(byUser.get(id)!.role, 'reviewer'));
+  if (tooLow.length > 0) {
+    const names = tooLow.map((id) => byUser.get(id)!.user!.name).join(', ');
+    throw reviewersRefused(`Reviewers need the reviewer role or higher; ${names} ${tooLow.length === 1 ? 'is a viewer' : 'are viewers'}.`, tooLow);
+  }
+  if (input.reviewerIds.includes(input.revision.authorId)) {
+    throw new Unprocessable('The author of a revision cannot review it: nobody signs off their own setup.', {
+      code: 'reviewer-is-author',
+      details: { fields: { reviewers: 'Choose reviewers other than the author of this revision.' }, user_ids: [input.revision.authorId] },
+    });
+  }
+  return input.reviewerIds.map((id) => byUser.get(id)!.user!);
+}
+
+/**
+ * A review request for one revision, mailed to each reviewer. One open request per
+ * revision: asking again while one is open would split the verdicts.
+ */
+export async function requestReview(sequelize: Sequelize, mail: MailService, input: ReviewRequest): Promise<Review> {
+  const reviewers = await checkReviewers(input);
+  return sequelize.transaction(async (transaction) => {
+    // Serialises requests on one revision, so two at once cannot both be "the" open one.
+    await sequelize.query('SELECT pg_advisory_xact_lock(hashtext($id))', { bind: { id: input.revision.id }, transaction });
+    const open = await Review.findOne({ where: { revisionId: input.revision.id, state: 'open' }, transaction });
+    if (open) {
+      throw new Conflict(`Revision ${input.revision.number} already has an open review; add reviewers' verdicts there.`, { code: 'review-open', details: { review_id: open.id } });
+    }
+    const review = await Review.create(
+      {
+        revisionId: input.revision.id,
+        modelId: input.model.id,
+        workspaceId: input.workspace.id,
+        requestedBy: input.requester.id,
+        reviewerIds: reviewers.map((reviewer) => reviewer.id),
+        note: input.note,
+      },
+      { transaction },
+    );
+    await recordTeamEvent(
+      {
+        workspaceId: input.workspace.id,
+        actor: input.requester,
+        action: 'review.requested',
+        subjectType: 'review',
+        subjectId: review.id,
+        details: {
+          model_id: input.model.id,
+          model_name: input.model.name,
+          revision_id: input.revision.id,
+          number: input.revision.number,
+          reviewers: reviewers.map((reviewer) => ({ id: reviewer.id, name: reviewer.name })),
+        },
+      },
+      transaction,
+    );
+    for (const reviewer of reviewers) {
+      await mail.send(
+        reviewRequestedMail({
+          to: reviewer.email,
+          reviewer: reviewer.name,
+          requester: input.requester.name,
+          model: input.model.name,
+          revision: input.revision.number,
+          workspace: input.workspace.name,
+          note: input.note,
+          errors: input.revision.errorCount,
+          warnings: input.revision.warningCount,
+          url: appLink(mail, `/w/${input.workspace.id}/reviews/${review.id}`),
+        }),
+      );
+    }
+    return review;
+  });
+}

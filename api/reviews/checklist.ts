@@ -1,0 +1,69 @@
+// The pre-maiden checklist a reviewer works through. The field checks cannot be made
+// from the setup document; the reviewer ticks each one as confirmed. Sources are the
+// labels of SOURCES.md; items without one say so.
+
+export interface ChecklistItem {
+  id: string;
+  label: string;
+  detail: string;
+  /** The outside reference, when there is one. */
+  source: { label: string; title: string } | null;
+  /** Where the item comes from when no published source names it. */
+  basis: string | null;
+}
+
+export const PRE_MAIDEN_CHECKLIST: readonly ChecklistItem[] = [
+  {
+    id: 'control-directions',
+    label: 'Control directions',
+    detail: 'Every surface moves the right way for each stick, switch and mix, on every rate.',
+    source: null,
+    basis: 'Common practice, no published source.',
+  },
+  {
+    id: 'throws-measured',
+    label: 'Throws measured',
+    detail: 'Throws and rates measured at the surfaces and matching what the setup intends; no servo stalls at its end points.',
+    source: null,
+    basis: 'Common practice, no published source.',
+  },
+  {
+    id: 'failsafe-tested',
+    label: 'Failsafe tested',
+    detail: 'With the model restrained and the propeller off, switch the transmitter off: the throttle goes to closed or idle and every pin goes where the setup says.',
+    source: { label: 'cap-658', title: 'UK CAA CAP 658 (now CAP 722F), as summarised by the BMFA, "Thinking About Fail-safes"' },
+    basis: null,
+  },
+  {
+    id: 'range-check',
+    label: 'Ground range check',
+    detail: 'A ground range check before the first flight of a new or repaired model, with every receiver bound and powered.',
+    source: { label: 'ama-safety-code', title: 'Academy of Model Aeronautics, National Model Aircraft Safety Code, Radio Control B.2' },
+    basis: null,
+  },
+  {
+    id: 'centre-of-gravity',
+    label: 'Centre of gravity',
+    detail: 'Balanced at the designed point with the flight pack fitted, ready to fly.',
+    source: null,
+    basis: 'Common practice, no published source.',
+  },
+  {
+    id: 'battery-charge',
+    label: 'Battery charge',
+    detail: 'Flight and receiver packs charged and checked before the flight.',
+    source: null,
+    basis: 'Common practice, no published source.',
+  },
+  {
+    id: 'receiver-power',
+    label: 'Receiver power wiring',
+    detail: 'Each receiver is powered as the setup says; with a separate receiver pack, the ESC’s red lead is disconnected so it cannot back-feed.',
+    source: { label: 'back-feed', title: 'Model-club guidance on receiver packs beside an ESC’s regulator (common practice, no standard)' },
+    basis: null,
+  },
+];
+
+export const CHECKLIST_IDS = PRE_MAIDEN_CHECKLIST.map((item) => item.id);
+
+export const isChecklistItem = (id: string): boolean => CHECKLIST_IDS.includes(id);
