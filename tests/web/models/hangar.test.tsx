@@ -1,5 +1,6 @@
 import { screen, waitFor, within } from '@testing-library/react';
 import { BUILDERS, CLUB, fakeServer, sessionRoutes, type FakeHandler } from '../fake-server';
+import { analyzeSetup } from '../../../shared/analyze';
 import { renderApp } from '../render-app';
 import { fixtureText, modelRecord, modelRoutes, modelView, type ModelRecord } from './model-data';
 
@@ -121,5 +122,42 @@ describe('Hangar', () => {
     await user.click(within(dialog).getByRole('button', { name: 'Create model' }));
     await waitFor(() => expect(location().pathname).toBe(`/models/${created.id}/overview`));
     expect(server.called('POST', `/api/workspaces/${CLUB}/models`)[0].body).toEqual({ name: 'Heron 2' });
+  });
+});
+
+describe('New model from a file', () => {
+  it('sends the file and shows where the server could not read it', async () => {
+    const text = 'format: bindery-setup/1\nmodel: { name: Broken\n';
+    const server = fakeServer({
+      ...sessionRoutes({ signedIn: true }).routes,
+      ...hangarRoute([]),
+      [`POST /api/workspaces/${CLUB}/models/upload`]: () => ({
+        status: 422,
+        body: {
+          error: {
+            code: 'unreadable-setup',
+            message: 'The setup could not be read as YAML, so nothing was saved.',
+            details: { findings: analyzeSetup(text).findings },
+          },
+        },
+      }),
+    });
+    const { user } = renderApp(`/w/${CLUB}/hangar`);
+    await user.click(await screen.findByRole('button', { name: 'New model' }));
+    const dialog = screen.getByRole('dialog', { name: 'New model' });
+    await user.click(within(dialog).getByRole('radio', { name: 'From a file' }));
+
+    await user.click(within(dialog).getByRole('button', { name: 'Upload and create' }));
+    expect(within(dialog).getByText('Choose a .yaml or .yml file.')).toBeInTheDocument();
+
+    await user.upload(within(dialog).getByLabelText('Setup file'), new File([text], 'broken.yaml', { type: 'application/yaml' }));
+    await user.click(within(dialog).getByRole('button', { name: 'Upload and create' }));
+
+    expect(await within(dialog).findByRole('alert')).toHaveTextContent('nothing was saved');
+    const [syntax] = analyzeSetup(text).findings;
+    expect(within(dialog).getByText(syntax.message)).toBeInTheDocument();
+    expect(within(dialog).getByText(`line ${syntax.line}:${syntax.column}`)).toBeInTheDocument();
+    const sent = server.fetch.mock.calls.find(([url]) => String(url).endsWith('/models/upload'))![1]!.body as FormData;
+    expect((sent.get('file') as File).name).toBe('broken.yaml');
   });
 });

@@ -42,7 +42,7 @@ export function NewModelDialog({ workspace, onClose }: { workspace: WorkspaceMem
             <label
               key={option.mode}
               className={cx(
-                'cursor-pointer rounded-sm px-2 py-1.5 text-center text-sm font-medium',
+                'cursor-pointer rounded-sm px-2 py-1.5 text-center text-sm font-medium has-[:focus-visible]:outline-3 has-[:focus-visible]:outline-accent-600',
                 mode === option.mode ? 'bg-paper-raised text-ink-900 shadow-card' : 'text-ink-700 hover:text-ink-900',
               )}
             >
