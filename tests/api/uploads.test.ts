@@ -95,6 +95,21 @@ describe('POST /api/models/:id/upload', () => {
     expect(await revisionCount(model.id)).toBe(1);
   });
 
+  it('answers a malformed multipart body with 400, not a crash', async () => {
+    const { model } = await createModelVia(editor, roles.workspace.id, { name: 'Malformed', yaml: TRAINER() });
+    const url = `/api/models/${model.id}/upload`;
+    const noBoundary = await request(t.app).post(url).set(editor.headers).set('Content-Type', 'multipart/form-data').send('--x\r\n');
+    expect(noBoundary.status).toBe(400);
+    expect(noBoundary.body.error.code).toBe('malformed-upload');
+    const cutOff = await request(t.app)
+      .post(url)
+      .set(editor.headers)
+      .set('Content-Type', 'multipart/form-data; boundary=edge')
+      .send('--edge\r\nContent-Disposition: form-data; name="file"; filename="a.yaml"\r\n\r\nformat: bindery');
+    expect(cutOff.status).toBe(400);
+    expect(await revisionCount(model.id)).toBe(1);
+  });
+
   it('is refused to viewers and reviewers before the file is read, and 404 outside the workspace', async () => {
     const { model } = await createModelVia(editor, roles.workspace.id, { name: 'Upload roles', yaml: TRAINER() });
     for (const role of ['viewer', 'reviewer'] as const) {
