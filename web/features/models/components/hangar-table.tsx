@@ -44,7 +44,7 @@ export function HangarTable({ models, sort, onSort }: HangarTableProps) {
                   <button
                     type="button"
                     onClick={() => toggle(column)}
-                    className={cx('inline-flex items-center gap-1 rounded-sm py-1 hover:text-ink-900', active && 'text-ink-900')}
+                    className={cx('inline-flex items-center gap-1 rounded-sm py-1 whitespace-nowrap hover:text-ink-900', active && 'text-ink-900')}
                   >
                     {label}
                     <ChevronDownIcon
