@@ -22,6 +22,9 @@ const BenchScreen = lazyScreen(() => import('../features/bench/components/bench-
 const InvitationScreen = lazyScreen(() => import('../features/team/components/invitation-screen'), 'InvitationScreen');
 const ResetPasswordConfirmScreen = lazyScreen(() => import('./routes/auth/reset-password-confirm'), 'ResetPasswordConfirmScreen');
 const OutboxScreen = lazyScreen(() => import('../features/outbox/components/outbox-screen'), 'OutboxScreen');
+const ReviewsScreen = lazyScreen(() => import('../features/reviews/components/reviews-screen'), 'ReviewsScreen');
+const ReviewScreen = lazyScreen(() => import('../features/reviews/components/review-screen'), 'ReviewScreen');
+const ModelReviewsScreen = lazyScreen(() => import('../features/reviews/components/model-reviews-screen'), 'ModelReviewsScreen');
 const EditScreen = lazyScreen(() => import('../features/editor/components/edit-screen'), 'EditScreen');
 const HangarScreen = lazyScreen(() => import('../features/models/components/hangar-screen'), 'HangarScreen');
 const OverviewScreen = lazyScreen(() => import('../features/overview/components/overview-screen'), 'OverviewScreen');
@@ -40,7 +43,7 @@ function planned(path: string, label: string, description: string): Screen {
 export const workspaceScreens: Screen[] = [
   { path: 'hangar', label: 'Hangar', element: <HangarScreen /> },
   planned('shelf', 'Shelf', "The workspace's receivers: their labels and marks, last known settings and where each has flown."),
-  planned('reviews', 'Reviews', 'Review requests waiting for a verdict, and the verdicts given on this workspace’s revisions.'),
+  { path: 'reviews', label: 'Reviews', element: <ReviewsScreen /> },
   { path: 'team', label: 'Team', element: <TeamScreen /> },
 ];
 
@@ -51,7 +54,7 @@ export const modelScreens: Screen[] = [
   { path: 'bench', label: 'Bench', element: <BenchScreen /> },
   { path: 'history', label: 'History', element: <HistoryScreen /> },
   { path: 'compare', label: 'Compare', element: <CompareScreen /> },
-  planned('reviews', 'Reviews', 'This model’s review requests, the pre-maiden checklist and the verdicts.'),
+  { path: 'reviews', label: 'Reviews', element: <ModelReviewsScreen /> },
   planned('sheet', 'Field sheet', 'A printable sheet of a revision: channel plan, each receiver’s pin table, review state and cautions.'),
 ];
 
@@ -91,6 +94,7 @@ export const routes: RouteObject[] = [
             children: [
               { index: true, element: <Navigate to="hangar" replace /> },
               ...workspaceScreens.map(({ path, element }) => ({ path, element })),
+              { path: 'reviews/:reviewId', element: <ReviewScreen /> },
             ],
           },
           {

@@ -1,0 +1,109 @@
+import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import { api } from '../../../lib/api-client';
+import type { Id } from '../../../types/api';
+import type { ChecklistEntry, CommentEntry, ReviewDetail, ReviewSummary, Verdict, VerdictEntry } from '../types';
+
+export const reviewQueryKey = (reviewId: Id) => ['reviews', reviewId] as const;
+export const workspaceReviewsQueryKey = (workspaceId: Id) => ['workspaces', workspaceId, 'reviews'] as const;
+export const modelReviewsQueryKey = (modelId: Id) => ['models', modelId, 'reviews'] as const;
+
+export async function listWorkspaceReviews(workspaceId: Id, signal?: AbortSignal): Promise<ReviewSummary[]> {
+  return (await api.get<ReviewSummary[]>(`/api/workspaces/${encodeURIComponent(workspaceId)}/reviews?limit=200`, signal)).data;
+}
+
+export async function listModelReviews(modelId: Id, signal?: AbortSignal): Promise<ReviewSummary[]> {
+  return (await api.get<ReviewSummary[]>(`/api/models/${encodeURIComponent(modelId)}/reviews?limit=200`, signal)).data;
+}
+
+export async function getReview(reviewId: Id, signal?: AbortSignal): Promise<ReviewDetail> {
+  return (await api.get<ReviewDetail>(`/api/reviews/${encodeURIComponent(reviewId)}`, signal)).data;
+}
+
+export function workspaceReviewsQueryOptions(workspaceId: Id) {
+  return queryOptions({ queryKey: workspaceReviewsQueryKey(workspaceId), queryFn: ({ signal }) => listWorkspaceReviews(workspaceId, signal) });
+}
+
+export function modelReviewsQueryOptions(modelId: Id) {
+  return queryOptions({ queryKey: modelReviewsQueryKey(modelId), queryFn: ({ signal }) => listModelReviews(modelId, signal) });
+}
+
+export function reviewQueryOptions(reviewId: Id) {
+  return queryOptions({ queryKey: reviewQueryKey(reviewId), queryFn: ({ signal }) => getReview(reviewId, signal) });
+}
+
+export const useWorkspaceReviews = (workspaceId: Id) => useQuery(workspaceReviewsQueryOptions(workspaceId));
+export const useModelReviews = (modelId: Id) => useQuery(modelReviewsQueryOptions(modelId));
+export const useReview = (reviewId: Id) => useQuery(reviewQueryOptions(reviewId));
+
+/** After any change to a review: the review, the lists, and the model's review state (hangar, model page). */
+function useRefreshAfterReview() {
+  const queryClient = useQueryClient();
+  return (review: { id: Id; workspace_id?: Id; model?: { id: Id } }) => {
+    void queryClient.invalidateQueries({ queryKey: reviewQueryKey(review.id) });
+    void queryClient.invalidateQueries({ queryKey: ['reviews'] });
+    if (review.workspace_id) {
+      void queryClient.invalidateQueries({ queryKey: workspaceReviewsQueryKey(review.workspace_id) });
+      void queryClient.invalidateQueries({ queryKey: ['workspaces', review.workspace_id, 'models'] });
+      void queryClient.invalidateQueries({ queryKey: ['workspaces', review.workspace_id, 'audit'] });
+    }
+    if (review.model) {
+      void queryClient.invalidateQueries({ queryKey: ['models', review.model.id] });
+    }
+  };
+}
+
+export interface RequestReviewInput {
+  revisionId: Id;
+  reviewers: Id[];
+  note?: string;
+}
+
+export async function requestReview({ revisionId, ...body }: RequestReviewInput): Promise<ReviewSummary> {
+  return (await api.post<ReviewSummary>(`/api/revisions/${encodeURIComponent(revisionId)}/reviews`, body)).data;
+}
+
+export function useRequestReview() {
+  const refresh = useRefreshAfterReview();
+  return useMutation({ mutationFn: requestReview, onSuccess: refresh });
+}
+
+export interface VerdictInput {
+  verdict: Verdict;
+  body?: string;
+}
+
+export async function giveVerdict(reviewId: Id, input: VerdictInput): Promise<VerdictEntry & { review: { id: Id; state: string } }> {
+  return (await api.post<VerdictEntry & { review: { id: Id; state: string } }>(`/api/reviews/${encodeURIComponent(reviewId)}/verdicts`, input)).data;
+}
+
+export function useGiveVerdict(review: Pick<ReviewDetail, 'id' | 'workspace_id' | 'model'>) {
+  const refresh = useRefreshAfterReview();
+  return useMutation({ mutationFn: (input: VerdictInput) => giveVerdict(review.id, input), onSuccess: () => refresh(review) });
+}
+
+export async function tickItem(reviewId: Id, item: string, ticked: boolean): Promise<ChecklistEntry[]> {
+  return (await api.post<ChecklistEntry[]>(`/api/reviews/${encodeURIComponent(reviewId)}/checklist`, { item, ticked })).data;
+}
+
+export function useTickItem(review: Pick<ReviewDetail, 'id'>) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: ({ item, ticked }: { item: string; ticked: boolean }) => tickItem(review.id, item, ticked),
+    onSuccess: (checklist) => queryClient.setQueryData<ReviewDetail>(reviewQueryKey(review.id), (current) => (current ? { ...current, checklist } : current)),
+  });
+}
+
+export async function addComment(reviewId: Id, input: { path?: string; body: string }): Promise<CommentEntry> {
+  return (await api.post<CommentEntry>(`/api/reviews/${encodeURIComponent(reviewId)}/comments`, input)).data;
+}
+
+export function useAddComment(review: Pick<ReviewDetail, 'id' | 'workspace_id'>) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (input: { path?: string; body: string }) => addComment(review.id, input),
+    onSuccess: (comment) => {
+      queryClient.setQueryData<ReviewDetail>(reviewQueryKey(review.id), (current) => (current ? { ...current, comments: [...current.comments, comment] } : current));
+      void queryClient.invalidateQueries({ queryKey: ['workspaces', review.workspace_id, 'audit'] });
+    },
+  });
+}
