@@ -17,8 +17,11 @@ async function main(): Promise<void> {
   const config = configFromEnv(process.env, { dataDir, webDir: webDist });
   const sequelize = await prepareDatabase();
   await buildClientIfStale();
-  const server = await startServer({ sequelize, config }, port, process.env.HOST ?? '127.0.0.1');
+  const mail = await startMail(process.env, `http://127.0.0.1:${port}`);
+  onShutdown('the mail server', () => mail.close());
+  const server = await startServer({ sequelize, config, mail: mail.service }, port, process.env.HOST ?? '127.0.0.1');
   onShutdown('the web server', () => server.close());
+  console.log(mail.description);
   console.log(`\nBindery is running at ${server.url}  (Ctrl-C stops it)`);
   printDemoSignIns();
 }
