@@ -104,7 +104,7 @@ function Bench({ setup }: { setup: Setup }) {
 
   return (
     <div className="space-y-6">
-      <div className="grid gap-6 lg:grid-cols-[20rem_minmax(0,1fr)]">
+      <div className="grid gap-6 md:grid-cols-[16rem_minmax(0,1fr)] lg:grid-cols-[20rem_minmax(0,1fr)]">
         <div className="space-y-3">
           <Button variant="secondary" className="w-full" disabled={!moved} onClick={() => setPositions({})}>
             Centre all
@@ -130,7 +130,7 @@ function Bench({ setup }: { setup: Setup }) {
             unit was set to, which Bindery does not know.
           </p>
         )}
-        <div className="grid gap-4 md:grid-cols-2">
+        <div className="grid gap-4 lg:grid-cols-2">
           {setup.receivers.map((receiver, index) => (
             <ReceiverPins key={`${receiver.id}-${index}`} receiver={receiver} output={outputs.receivers[index]} functions={functions} linkLost={linkLost} />
           ))}

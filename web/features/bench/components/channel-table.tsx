@@ -44,7 +44,7 @@ export function ChannelTable({ outputs, plan, cutOn }: ChannelTableProps) {
                 <Th numeric className="w-20">
                   %
                 </Th>
-                <Th numeric className="w-24">
+                <Th numeric className="w-24 whitespace-nowrap">
                   Pulse us
                 </Th>
               </tr>
@@ -56,17 +56,17 @@ export function ChannelTable({ outputs, plan, cutOn }: ChannelTableProps) {
                   <tr key={channel.ch}>
                     <Td className="font-mono">{channel.ch}</Td>
                     <Td>
-                      <span className="text-ink-900">{channel.function}</span>
-                      <span className="ml-2 text-xs text-ink-500">
-                        {entry?.role}
-                        {entry?.side ? `, ${entry.side}` : ''}
-                        {entry?.travel.reverse ? ', reversed' : ''}
-                      </span>
+                      <span className="whitespace-nowrap text-ink-900">{channel.function}</span>
                       {cutOn.has(channel.ch) && (
                         <Badge tone="caution" className="ml-2">
                           cut on
                         </Badge>
                       )}
+                      <span className="block text-xs text-ink-500">
+                        {entry?.role}
+                        {entry?.side ? `, ${entry.side}` : ''}
+                        {entry?.travel.reverse ? ', reversed' : ''}
+                      </span>
                     </Td>
                     <Td>
                       <ValueBar value={channel.value} />

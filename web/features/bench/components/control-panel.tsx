@@ -102,7 +102,7 @@ export function ControlPanel({ controls, positions, onChange }: ControlPanelProp
           ))}
         </div>
         {switches.length > 0 && (
-          <div className={cx('grid grid-cols-2 gap-x-3 gap-y-3', proportional.length > 0 && 'mt-5 border-t border-ply-200 pt-4')}>
+          <div className={cx('grid grid-cols-2 gap-x-3 gap-y-3 md:grid-cols-1 lg:grid-cols-2', proportional.length > 0 && 'mt-5 border-t border-ply-200 pt-4')}>
             {switches.map((control) => (
               <SwitchControl key={control.id} control={control} position={positions[control.id] ?? 0} onChange={(value) => onChange(control.id, value)} />
             ))}

@@ -40,7 +40,7 @@ export function ReceiverPins({ receiver, output, functions, linkLost }: Receiver
                 <Th className="w-12">Pin</Th>
                 <Th className="w-12">Ch</Th>
                 <Th>Function</Th>
-                <Th numeric className="w-28">
+                <Th numeric className="w-28 whitespace-nowrap">
                   {linkLost ? 'Link lost us' : 'Pulse us'}
                 </Th>
                 <Th>Failsafe</Th>
@@ -53,7 +53,7 @@ export function ReceiverPins({ receiver, output, functions, linkLost }: Receiver
                   <tr key={pin.pin} className={cx(linkLost && 'bg-caution-100/40')}>
                     <Td className="font-mono">{pin.pin}</Td>
                     <Td className="font-mono">{pin.ch}</Td>
-                    <Td>{functions.get(pin.ch) ?? <span className="text-ink-500">not planned</span>}</Td>
+                    <Td className="whitespace-nowrap">{functions.get(pin.ch) ?? <span className="text-ink-500">not planned</span>}</Td>
                     <Td numeric className="font-semibold text-ink-900">
                       {linkLost ? (
                         <>

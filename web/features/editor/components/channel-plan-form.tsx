@@ -26,7 +26,7 @@ export function ChannelPlanForm({ data, readOnly, onEdits }: FormProps) {
     <fieldset disabled={readOnly} className="min-w-0">
       <legend className="sr-only">Channel plan</legend>
       <p className="mb-3 text-sm text-ink-700">
-        One function per channel. Travel and cut stay in the text; changes here edit the same document.
+        One function per channel. Travel and cut stay in the text{readOnly ? '.' : '; changes here edit the same document.'}
       </p>
       {channels.length === 0 ? (
         <EmptyState title="No channels planned yet">Add the first channel, or write the plan in the text.</EmptyState>
@@ -38,9 +38,11 @@ export function ChannelPlanForm({ data, readOnly, onEdits }: FormProps) {
               <HeaderCell>Function</HeaderCell>
               <HeaderCell className="w-36">Role</HeaderCell>
               <HeaderCell className="w-28">Side</HeaderCell>
-              <HeaderCell className="w-24">
-                <span className="sr-only">Actions</span>
-              </HeaderCell>
+              {!readOnly && (
+                <HeaderCell className="w-24">
+                  <span className="sr-only">Actions</span>
+                </HeaderCell>
+              )}
             </tr>
           </thead>
           <tbody>
@@ -110,16 +112,18 @@ export function ChannelPlanForm({ data, readOnly, onEdits }: FormProps) {
                       ))}
                     </CellSelect>
                   </Cell>
-                  <Cell className="text-right">
-                    <Button
-                      variant="quiet"
-                      size="sm"
-                      aria-label={`Remove ${name}, channel ${fieldText(entry.ch)}`}
-                      onClick={() => onEdits([{ kind: 'delete', path: ['channels', index] }])}
-                    >
-                      Remove
-                    </Button>
-                  </Cell>
+                  {!readOnly && (
+                    <Cell className="text-right">
+                      <Button
+                        variant="quiet"
+                        size="sm"
+                        aria-label={`Remove ${name}, channel ${fieldText(entry.ch)}`}
+                        onClick={() => onEdits([{ kind: 'delete', path: ['channels', index] }])}
+                      >
+                        Remove
+                      </Button>
+                    </Cell>
+                  )}
                 </tr>
               );
             })}

@@ -18,9 +18,10 @@ const chrome = EditorView.theme({
   '.cm-content': { caretColor: 'var(--color-ink-900)', padding: '0.5rem 0' },
   '.cm-cursor, .cm-dropCursor': { borderLeftColor: 'var(--color-ink-900)', borderLeftWidth: '2px' },
   '&.cm-focused > .cm-scroller > .cm-selectionLayer .cm-selectionBackground, .cm-selectionBackground, ::selection': {
-    backgroundColor: 'var(--color-accent-100)',
+    backgroundColor: 'rgb(42 95 143 / 0.22)',
   },
-  '.cm-activeLine': { backgroundColor: 'rgb(237 228 211 / 0.45)' },
+  // See-through, so a selection drawn beneath the current line still shows.
+  '.cm-activeLine': { backgroundColor: 'rgb(201 183 151 / 0.16)' },
   '.cm-gutters': {
     backgroundColor: 'var(--color-paper)',
     color: 'var(--color-ink-500)',

@@ -1,5 +1,6 @@
 import { useEffect, useId, useState, type InputHTMLAttributes, type SelectHTMLAttributes } from 'react';
 import { FieldError } from '../../../components/ui/field-error';
+import { ChevronDownIcon } from '../../../components/ui/icons';
 import { cx } from '../../../lib/cx';
 
 export interface CommitFieldProps extends Omit<InputHTMLAttributes<HTMLInputElement>, 'value' | 'onChange' | 'id'> {
@@ -53,7 +54,7 @@ export function CommitField({ label, value, onCommit, className, ...props }: Com
           }
         }}
         className={cx(
-          'block h-8 w-full min-w-0 rounded-md border bg-paper-raised px-2 text-sm text-ink-900 disabled:bg-paper disabled:text-ink-700',
+          'block h-8 w-full min-w-0 rounded-md border bg-paper-raised px-2 text-sm text-ink-900 disabled:border-ply-200 disabled:bg-transparent',
           error ? 'border-2 border-danger-700' : 'border-ply-500',
         )}
         {...props}
@@ -63,16 +64,16 @@ export function CommitField({ label, value, onCommit, className, ...props }: Com
   );
 }
 
-/** A compact select for table cells, styled like the fields beside it. */
+/** A compact select for table cells, drawn like the kit's select fields beside it. */
 export function CellSelect({ label, className, ...props }: SelectHTMLAttributes<HTMLSelectElement> & { label: string }) {
   return (
-    <select
-      aria-label={label}
-      className={cx(
-        'block h-8 w-full min-w-0 rounded-md border border-ply-500 bg-paper-raised px-1.5 text-sm text-ink-900 disabled:bg-paper disabled:text-ink-700',
-        className,
-      )}
-      {...props}
-    />
+    <div className={cx('relative', className ?? 'w-full')}>
+      <select
+        aria-label={label}
+        className="peer block h-8 w-full min-w-0 appearance-none rounded-md border border-ply-500 bg-paper-raised pr-7 pl-2 text-sm text-ink-900 disabled:border-ply-200 disabled:bg-transparent"
+        {...props}
+      />
+      <ChevronDownIcon className="pointer-events-none absolute top-1/2 right-2 -translate-y-1/2 text-sm text-ink-700 peer-disabled:hidden" />
+    </div>
   );
 }

@@ -24,10 +24,10 @@ export interface FailsafeFieldProps {
 export function FailsafeField({ name, value, onChange }: FailsafeFieldProps) {
   const mode = modeOf(value);
   return (
-    <div className="flex flex-wrap items-start gap-1.5">
+    <div className="flex items-start gap-1.5">
       <CellSelect
         label={`Failsafe of ${name}`}
-        className="w-40"
+        className="w-44 shrink-0"
         value={mode}
         onChange={(event) => {
           const next = event.target.value as Mode;
@@ -45,7 +45,7 @@ export function FailsafeField({ name, value, onChange }: FailsafeFieldProps) {
       {mode === 'pulse' && (
         <CommitField
           label={`Failsafe pulse of ${name} in microseconds`}
-          className="w-20"
+          className="w-20 shrink-0"
           inputMode="numeric"
           value={fieldText(value)}
           onCommit={(text) => {

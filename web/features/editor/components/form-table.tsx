@@ -4,10 +4,10 @@ import { cx } from '../../../lib/cx';
 // The tables the forms are drawn in: a header row of small caps words, rows ruled
 // like a workbench ledger, scrolling sideways on a narrow tablet rather than squeezing.
 
-export function FormTable({ caption, children, className }: { caption: string; children: ReactNode; className?: string }) {
+export function FormTable({ caption, children, className, tableClassName }: { caption: string; children: ReactNode; className?: string; tableClassName?: string }) {
   return (
     <div className={cx('overflow-x-auto rounded-lg border border-ply-200 bg-paper-raised', className)}>
-      <table className="w-full border-collapse text-left text-sm">
+      <table className={cx('w-full border-collapse text-left text-sm', tableClassName)}>
         <caption className="sr-only">{caption}</caption>
         {children}
       </table>

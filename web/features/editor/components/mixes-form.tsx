@@ -1,5 +1,6 @@
 import { SLUG_PATTERN } from '../../../../shared/format/schema';
 import { Button } from '../../../components/ui/button';
+import { CloseIcon } from '../../../components/ui/icons';
 import { EmptyState } from '../../../components/ui/empty-state';
 import type { DocumentEdit } from '../document-edits';
 import { entriesAt, entryAt, fieldText, parseNumber, parseWhole, wholeNumber, type Entry, type FormProps } from '../form-values';
@@ -53,20 +54,18 @@ export function MixesForm({ data, readOnly, onEdits }: FormProps) {
       {mixes.length === 0 ? (
         <EmptyState title="No mixes yet">Without mixes no control moves any channel. Add one to start.</EmptyState>
       ) : (
-        <FormTable caption="Mixes">
+        <FormTable caption="Mixes" tableClassName="min-w-[42rem] [&_td]:px-1.5 [&_th]:px-1.5">
           <thead>
             <tr>
-              <HeaderCell className="min-w-32">Mix</HeaderCell>
-              <HeaderCell className="min-w-36">From</HeaderCell>
-              <HeaderCell className="w-20">To ch</HeaderCell>
+              <HeaderCell>Mix</HeaderCell>
+              <HeaderCell>From</HeaderCell>
+              <HeaderCell>To ch</HeaderCell>
               {NUMBER_FIELDS.map((field) => (
-                <HeaderCell key={field.key} className="w-20">
-                  {field.label} %
-                </HeaderCell>
+                <HeaderCell key={field.key}>{field.label} %</HeaderCell>
               ))}
-              <HeaderCell className="min-w-52">Rates</HeaderCell>
+              <HeaderCell>Rates</HeaderCell>
               {!readOnly && (
-                <HeaderCell className="w-24">
+                <HeaderCell className="w-10">
                   <span className="sr-only">Actions</span>
                 </HeaderCell>
               )}
@@ -123,6 +122,7 @@ function MixRow({ index, mix, controls, switches, readOnly, onEdits }: MixRowPro
     <tr>
       <Cell>
         <CommitField
+          className="min-w-24"
           label={`Id of mix ${id}`}
           value={fieldText(mix.id)}
           spellCheck={false}
@@ -139,7 +139,7 @@ function MixRow({ index, mix, controls, switches, readOnly, onEdits }: MixRowPro
         )}
       </Cell>
       <Cell>
-        <CellSelect label={`Control of mix ${id}`} value={from} onChange={(event) => onEdits([{ kind: 'set', path: [...path, 'from'], value: event.target.value }])}>
+        <CellSelect className="w-full min-w-32" label={`Control of mix ${id}`} value={from} onChange={(event) => onEdits([{ kind: 'set', path: [...path, 'from'], value: event.target.value }])}>
           {!controls.some((control) => control.id === from) && <option value={from}>{from || 'choose'} (not a control)</option>}
           {controls.map((control) => (
             <option key={control.id} value={control.id}>
@@ -150,6 +150,7 @@ function MixRow({ index, mix, controls, switches, readOnly, onEdits }: MixRowPro
       </Cell>
       <Cell>
         <CommitField
+          className="min-w-14"
           label={`Target channel of mix ${id}`}
           inputMode="numeric"
           value={fieldText(mix.to)}
@@ -164,6 +165,7 @@ function MixRow({ index, mix, controls, switches, readOnly, onEdits }: MixRowPro
       {NUMBER_FIELDS.map((field) => (
         <Cell key={field.key}>
           <CommitField
+            className="min-w-14"
             label={`${field.label} of mix ${id} in percent`}
             inputMode="decimal"
             placeholder={field.fallback}
@@ -182,7 +184,7 @@ function MixRow({ index, mix, controls, switches, readOnly, onEdits }: MixRowPro
         </Cell>
       ))}
       <Cell>
-        <CellSelect label={`Rates switch of mix ${id}`} value={ratesControl} onChange={(event) => setRates(event.target.value)}>
+        <CellSelect className="w-full min-w-32" label={`Rates switch of mix ${id}`} value={ratesControl} onChange={(event) => setRates(event.target.value)}>
           <option value="">no rates</option>
           {ratesControl && !ratesSwitch && <option value={ratesControl}>{ratesControl} (not a switch)</option>}
           {switches.map((control) => (
@@ -192,11 +194,11 @@ function MixRow({ index, mix, controls, switches, readOnly, onEdits }: MixRowPro
           ))}
         </CellSelect>
         {rates && (
-          <div className="mt-1.5 flex flex-wrap gap-1.5">
+          <div className="mt-1.5 flex gap-1">
             {weights.map((weight, position) => (
               <CommitField
                 key={position}
-                className="w-16"
+                className="w-14 shrink-0"
                 label={`Rate weight of mix ${id} at position ${position}`}
                 title={`Weight at position ${position}`}
                 inputMode="decimal"
@@ -214,8 +216,8 @@ function MixRow({ index, mix, controls, switches, readOnly, onEdits }: MixRowPro
       </Cell>
       {!readOnly && (
         <Cell className="text-right">
-          <Button variant="quiet" size="sm" aria-label={`Remove mix ${id}`} onClick={() => onEdits([{ kind: 'delete', path: [...path] }])}>
-            Remove
+          <Button variant="quiet" size="sm" className="px-2" aria-label={`Remove mix ${id}`} title={`Remove mix ${id}`} onClick={() => onEdits([{ kind: 'delete', path: [...path] }])}>
+            <CloseIcon />
           </Button>
         </Cell>
       )}

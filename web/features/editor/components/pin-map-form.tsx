@@ -28,7 +28,7 @@ export function PinMapForms({ data, readOnly, onEdits }: FormProps) {
     <fieldset disabled={readOnly} className="min-w-0 space-y-5">
       <legend className="sr-only">Pin maps</legend>
       <p className="text-sm text-ink-700">
-        Which output pin carries which channel, and what it does when the link is lost. Changes here edit the same document.
+        Which output pin carries which channel, and what it does when the link is lost.{readOnly ? '' : ' Changes here edit the same document.'}
       </p>
       {receivers.map(({ index, entry }) => (
         <ReceiverPinMap key={index} receiverIndex={index} receiver={entry} functions={functions} readOnly={readOnly} onEdits={onEdits} />
@@ -102,7 +102,7 @@ function ReceiverPinMap({ receiverIndex, receiver, functions, readOnly, onEdits 
             {title}
           </h3>
           <p className="flex flex-wrap items-center gap-2 text-sm text-ink-700">
-            <code className="font-mono">{id}</code>
+            {title !== id && <code className="font-mono">{id}</code>}
             <Badge>{fieldText(receiver.role) || 'primary'}</Badge>
             <span>{fieldText(receiver.outputs) || '?'} outputs</span>
             <span>telemetry {receiver.telemetry === false ? 'off' : 'on'}</span>

@@ -299,7 +299,7 @@ export function SetupEditor({ model, initialBase, restoredText, canEdit, role }:
           </div>
 
           <div id="editor-panel-text" role="tabpanel" aria-labelledby="editor-tab-text" hidden={tab !== 'text'}>
-            <div className="h-[32rem] overflow-hidden rounded-lg border border-ply-300 bg-paper-raised lg:h-[40rem]">
+            <div className="h-[max(22rem,60vh)] overflow-hidden rounded-lg border border-ply-300 bg-paper-raised lg:h-[max(30rem,calc(100vh-9rem))]">
               <Suspense fallback={<LoadingState label="Loading the text editor…" />}>
                 <YamlCodeEditor
                   value={text}
@@ -361,7 +361,7 @@ export function SetupEditor({ model, initialBase, restoredText, canEdit, role }:
             <SeverityBadge severity="warning" count={counts.warnings} />
             <SeverityBadge severity="info" count={counts.infos} />
           </p>
-          <div className="mt-3 max-h-[40rem] overflow-y-auto">
+          <div className="mt-3 max-h-[calc(100vh-9rem)] overflow-y-auto">
             <FindingsList findings={checked.analysis.findings} modelId={model.id} emptyText="The setup passes every check." />
           </div>
         </aside>
