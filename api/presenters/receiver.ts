@@ -61,8 +61,18 @@ export function presentReceiver(receiver: Receiver, view: ReceiverView) {
 
 export type PresentedReceiver = ReturnType<typeof presentReceiver>;
 
-/** The reuse check as the API answers it: the contract's `changes` and `ready`, and what they were found against. */
-export function presentReuseCheck(receiver: Receiver, model: SetupModel, revision: Revision, check: ReuseCheck, install: ReceiverInstall | null) {
+/**
+ * The reuse check as the API answers it: the contract's `changes` and `ready`, what
+ * they were found against, and which unit holds the slot now (`holder`, null when free).
+ */
+export function presentReuseCheck(
+  receiver: Receiver,
+  model: SetupModel,
+  revision: Revision,
+  check: ReuseCheck,
+  install: ReceiverInstall | null,
+  holder: Pick<Receiver, 'id' | 'label'> | null = null,
+) {
   return {
     receiver_id: receiver.id,
     model: { id: model.id, name: model.name },
@@ -74,8 +84,12 @@ export function presentReuseCheck(receiver: Receiver, model: SetupModel, revisio
     findings: check.findings,
     target: check.target,
     installed_here: Boolean(install && install.modelId === model.id && install.slot === check.slot.id),
+    holder: holder ? { id: holder.id, label: holder.label } : null,
   };
 }
+
+export type PresentedInstall = ReturnType<typeof presentInstall>;
+export type PresentedReuseCheck = ReturnType<typeof presentReuseCheck>;
 
 export function presentReceiverEvent(event: AuditEvent) {
   return {
@@ -86,3 +100,5 @@ export function presentReceiverEvent(event: AuditEvent) {
     at: event.createdAt.toISOString(),
   };
 }
+
+export type PresentedReceiverEvent = ReturnType<typeof presentReceiverEvent>;

@@ -84,8 +84,12 @@ export function receiversRouter({ sequelize, config }: AppContext): Router {
     const query = parseInput(reuseQuery, req.query, 'Name the model and the slot to check against.');
     const { receiver } = await authorizeReceiver(req, req.params.id, 'read');
     const model = await modelOnShelf(receiver.workspaceId, query.model);
-    const [{ revision, check }, installs] = await Promise.all([checkAgainstLatest(receiver, model, query.slot), openInstalls([receiver.id])]);
-    res.json({ data: presentReuseCheck(receiver, model, revision, check, installs.get(receiver.id) ?? null) });
+    const [{ revision, check }, installs, holder] = await Promise.all([
+      checkAgainstLatest(receiver, model, query.slot),
+      openInstalls([receiver.id]),
+      ReceiverInstall.findOne({ where: { modelId: model.id, slot: query.slot, removedAt: null }, include: [{ model: Receiver, as: 'receiver', attributes: ['id', 'label'] }] }),
+    ]);
+    res.json({ data: presentReuseCheck(receiver, model, revision, check, installs.get(receiver.id) ?? null, holder?.receiver ?? null) });
   });
 
   router.post('/receivers/:id/install', signedIn, async (req, res) => {
@@ -95,7 +99,7 @@ export function receiversRouter({ sequelize, config }: AppContext): Router {
     const installed = await installReceiver(sequelize, { receiverId: found.id, model, slot: input.slot, actor: currentUser(req), move: input.move });
     res.status(201).json({
       data: {
-        ...presentReuseCheck(installed.receiver, model, installed.revision, installed.check, installed.install),
+        ...presentReuseCheck(installed.receiver, model, installed.revision, installed.check, installed.install, installed.receiver),
         receiver: await presentOnShelf(installed.receiver),
         install: presentInstall(installed.install),
         moved_from: installed.previous ? presentInstall(installed.previous) : null,
@@ -115,7 +119,7 @@ export function receiversRouter({ sequelize, config }: AppContext): Router {
     const applied = await applyReceiverSettings(sequelize, { receiverId: found.id, actor: currentUser(req), revisionId: input.revision });
     res.json({
       data: {
-        ...presentReuseCheck(applied.receiver, applied.model, applied.revision, applied.check, applied.install),
+        ...presentReuseCheck(applied.receiver, applied.model, applied.revision, applied.check, applied.install, applied.receiver),
         receiver: await presentOnShelf(applied.receiver),
       },
     });

@@ -98,7 +98,7 @@ function failsafeChange(pin: number, from: StoredPin | undefined, known: boolean
   if (known && sameFailsafe(held, wanted)) return null;
   // Unknown settings and a slot that wants the receiver default: nothing to program.
   if (!known && wanted === null) return null;
-  const now = known ? `failsafe ${describeFailsafe(held)}` : 'failsafe not recorded';
+  const now = !known ? 'failsafe not recorded' : held === null ? 'no failsafe' : `failsafe ${describeFailsafe(held)}`;
   const action =
     wanted === null
       ? 'clear it to the receiver default (the setup sets none)'

@@ -250,7 +250,19 @@ describe('GET /api/receivers/:id/reuse-check', () => {
       notes: [],
       findings: [],
       installed_here: false,
+      holder: null,
     });
+  });
+
+  it('names the unit that holds the slot now', async () => {
+    const holder = await addUnit(unitFixture('wing-unit'));
+    const model = await createModelVia(as.editor, roles.workspace.id, { name: 'Held slot', yaml: SCALE() });
+    await as.editor.post(`/api/receivers/${holder.id}/install`, { model: model.model.id, slot: 'wing' }).expect(201);
+    const asker = await addUnit(unitFixture('trainer-unit'));
+    const { data } = (await as.viewer.get(`/api/receivers/${asker.id}/reuse-check?model=${model.model.id}&slot=wing`).expect(200)).body;
+    expect(data.holder).toEqual({ id: holder.id, label: 'Kestrel wing unit' });
+    const own = (await as.viewer.get(`/api/receivers/${holder.id}/reuse-check?model=${model.model.id}&slot=wing`).expect(200)).body.data;
+    expect(own).toMatchObject({ installed_here: true, holder: { id: holder.id }, ready: true });
   });
 
   it('is ready with no changes for a unit that matches', async () => {

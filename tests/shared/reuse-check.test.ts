@@ -130,6 +130,14 @@ describe('pins and failsafes the slot leaves alone', () => {
     ]);
   });
 
+  it('names a pin the unit leaves without a failsafe', () => {
+    const unit = loadUnit('six-output-unit');
+    const stored = { ...unit.stored!, pins: unit.stored!.pins.map((entry) => (entry.pin === 4 ? { ...entry, failsafe: null } : entry)) };
+    expect(reuseCheck({ ...unit, stored }, slot(trainer, 'cabin')).changes).toEqual([
+      { pin: 4, setting: 'failsafe', from: null, to: 1500, summary: 'Pin 4: no failsafe, set 1500 us' },
+    ]);
+  });
+
   it('says "off (no pulses)" when the slot stops a pin on signal loss', () => {
     const cabin = slot(trainer, 'cabin');
     const off = { ...cabin, map: cabin.map.map((entry) => (entry.pin === 3 ? { ...entry, failsafe: 'off' as const } : entry)) };

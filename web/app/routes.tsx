@@ -30,6 +30,9 @@ const HangarScreen = lazyScreen(() => import('../features/models/components/hang
 const OverviewScreen = lazyScreen(() => import('../features/overview/components/overview-screen'), 'OverviewScreen');
 const HistoryScreen = lazyScreen(() => import('../features/history/components/history-screen'), 'HistoryScreen');
 const CompareScreen = lazyScreen(() => import('../features/compare/components/compare-screen'), 'CompareScreen');
+const ShelfScreen = lazyScreen(() => import('../features/editor/zod-without-eval').then(() => import('../features/shelf/components/shelf-screen')), 'ShelfScreen');
+const UnitScreen = lazyScreen(() => import('../features/editor/zod-without-eval').then(() => import('../features/shelf/components/unit-screen')), 'UnitScreen');
+const FieldSheetScreen = lazyScreen(() => import('../features/editor/zod-without-eval').then(() => import('../features/field-sheet/components/field-sheet-screen')), 'FieldSheetScreen');
 
 interface Screen extends FrameLink {
   element: React.ReactElement;
@@ -42,7 +45,7 @@ function planned(path: string, label: string, description: string): Screen {
 /** Screens of one workspace, under `/w/:wsId/`. */
 export const workspaceScreens: Screen[] = [
   { path: 'hangar', label: 'Hangar', element: <HangarScreen /> },
-  planned('shelf', 'Shelf', "The workspace's receivers: their labels and marks, last known settings and where each has flown."),
+  { path: 'shelf', label: 'Shelf', element: <ShelfScreen /> },
   { path: 'reviews', label: 'Reviews', element: <ReviewsScreen /> },
   { path: 'team', label: 'Team', element: <TeamScreen /> },
 ];
@@ -55,7 +58,7 @@ export const modelScreens: Screen[] = [
   { path: 'history', label: 'History', element: <HistoryScreen /> },
   { path: 'compare', label: 'Compare', element: <CompareScreen /> },
   { path: 'reviews', label: 'Reviews', element: <ModelReviewsScreen /> },
-  planned('sheet', 'Field sheet', 'A printable sheet of a revision: channel plan, each receiver’s pin table, review state and cautions.'),
+  { path: 'sheet', label: 'Field sheet', element: <FieldSheetScreen /> },
 ];
 
 /** Tools for development, outside any workspace. */
@@ -94,6 +97,7 @@ export const routes: RouteObject[] = [
             children: [
               { index: true, element: <Navigate to="hangar" replace /> },
               ...workspaceScreens.map(({ path, element }) => ({ path, element })),
+              { path: 'shelf/:receiverId', element: <UnitScreen /> },
               { path: 'reviews/:reviewId', element: <ReviewScreen /> },
             ],
           },

@@ -1,19 +1,21 @@
 import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
-import type { Transaction } from 'sequelize';
+import { Op, type Transaction } from 'sequelize';
 import { parse } from 'yaml';
 import { createReceiverSchema } from '../../../shared/reuse/receiver-fields';
 import { findSlot, reuseCheck, type ReuseCheck } from '../../../shared/reuse/reuse-check';
 import { recordReceiverEvent } from '../../commands/record-receiver-event';
-import { Receiver, ReceiverInstall, SetupModel, User, Workspace, type Revision } from '../../models';
-import { latestRevisionOf, setupOf } from '../../queries/receiver-slot';
+import { Receiver, ReceiverInstall, Revision, SetupModel, User, Workspace } from '../../models';
+import { setupOf } from '../../queries/receiver-slot';
 import { DEMO_WORKSPACE_NAME } from '../demo-data';
 import type { SeedContext } from '../index';
 
-// The demo club's shelf (invented): the Kestrel's two units in their slots, the club
+// The demo club's shelf (invented): the Kestrel's fuselage unit in its slot, the club
 // trainer's unit in its cabin, a unit that came out of a retired single-receiver
-// trainer with its throttle pin still failing safe to 988 us, and a spare never set up.
-// Units in a slot hold exactly what that slot asks for, as if applied at the bench.
+// trainer with its throttle pin still failing safe to 988 us (meant for the Kestrel's
+// empty wing slot, where its reuse check lists the remap, that failsafe and telemetry
+// off), and a spare never set up. Units in a slot hold what that slot asks for, as if
+// applied at the bench.
 
 interface Stay {
   model: string;
@@ -39,16 +41,10 @@ const UNITS: DemoUnit[] = [
     stay: { model: 'Kestrel Mk II', slot: 'fuselage', at: '2025-02-08T10:30:00Z', by: 'owner' },
   },
   {
-    fixture: 'wing-unit.yaml',
-    addedAt: '2025-02-15T14:30:00Z',
-    by: 'owner',
-    stay: { model: 'Kestrel Mk II', slot: 'wing', at: '2025-02-16T09:40:00Z', by: 'owner' },
-  },
-  {
     fixture: 'six-output-unit.yaml',
     addedAt: '2024-09-14T08:30:00Z',
     by: 'editor',
-    stay: { model: 'Meadowlark 40', slot: 'cabin', at: '2024-09-14T08:45:00Z', by: 'editor' },
+    stay: { model: 'Meadowlark 40', slot: 'cabin', at: '2024-09-14T09:20:00Z', by: 'editor' },
   },
   { fixture: 'trainer-unit.yaml', addedAt: '2026-04-20T18:00:00Z', by: 'editor' },
   {
@@ -61,12 +57,12 @@ const UNITS: DemoUnit[] = [
 const fixtureFields = (name: string): Record<string, unknown> =>
   parse(readFileSync(fileURLToPath(new URL(`../../../fixtures/reuse/${name}`, import.meta.url)), 'utf8')) as Record<string, unknown>;
 
-/** The unit's reuse check against the slot in the model's latest revision. */
-async function checkInSlot(model: SetupModel, slot: string, receiver: Receiver, transaction: Transaction): Promise<{ revision: Revision; check: ReuseCheck }> {
-  const revision = await latestRevisionOf(model.id, transaction);
+/** The unit's reuse check against the slot in the revision that was the model's latest at `at`. */
+async function checkInSlot(model: SetupModel, slot: string, receiver: Receiver, at: Date, transaction: Transaction): Promise<{ revision: Revision; check: ReuseCheck }> {
+  const revision = await Revision.findOne({ where: { modelId: model.id, createdAt: { [Op.lte]: at } }, order: [['number', 'DESC']], transaction });
   const setup = revision && setupOf(revision);
   const found = setup && findSlot(setup, slot);
-  if (!revision || !found) throw new Error(`Demo seed: ${model.name} has no receiver slot "${slot}"; step 0002 makes it.`);
+  if (!revision || !found) throw new Error(`Demo seed: ${model.name} had no receiver slot "${slot}" on ${at.toISOString()}; step 0002 makes it.`);
   return { revision, check: reuseCheck({ outputs: receiver.outputs, stored: receiver.storedSettings ?? null }, found) };
 }
 
@@ -109,7 +105,7 @@ export async function run({ sequelize }: SeedContext): Promise<void> {
       const model = await SetupModel.findOne({ where: { workspaceId: workspace.id, name: unit.stay.model }, transaction });
       if (!model) throw new Error(`Demo seed: the model "${unit.stay.model}" is missing; step 0002 makes it.`);
       const at = new Date(unit.stay.at);
-      const { revision, check } = await checkInSlot(model, unit.stay.slot, receiver, transaction);
+      const { revision, check } = await checkInSlot(model, unit.stay.slot, receiver, at, transaction);
       const { changes, target } = check;
       const before = receiver.storedSettings ?? null;
       const install = await ReceiverInstall.create(

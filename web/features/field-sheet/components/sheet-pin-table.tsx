@@ -1,0 +1,36 @@
+import { describeFailsafe } from '../../../../shared/reuse/stored-settings';
+import type { SheetReceiver } from '../types';
+
+export function SheetPinTable({ receiver }: { receiver: SheetReceiver }) {
+  return (
+    <table className="w-full text-left text-sm">
+      <caption className="sr-only">Pins of {receiver.label ?? receiver.id}: channel, function and failsafe</caption>
+      <thead className="border-b border-ply-300 text-xs text-ink-700">
+        <tr>
+          <th scope="col" className="py-1 pr-2 font-medium">Pin</th>
+          <th scope="col" className="py-1 pr-2 font-medium">Ch</th>
+          <th scope="col" className="py-1 pr-2 font-medium">Function</th>
+          <th scope="col" className="py-1 font-medium">Failsafe</th>
+        </tr>
+      </thead>
+      <tbody className="divide-y divide-ply-200">
+        {receiver.pins.length === 0 ? (
+          <tr>
+            <td colSpan={4} className="py-1 text-ink-700">
+              No pins mapped
+            </td>
+          </tr>
+        ) : (
+          receiver.pins.map((pin) => (
+            <tr key={pin.pin}>
+              <td className="py-1 pr-2 font-mono">{pin.pin}</td>
+              <td className="py-1 pr-2 font-mono">{pin.ch}</td>
+              <td className="py-1 pr-2">{pin.function ?? <span className="text-ink-500">no plan entry</span>}</td>
+              <td className="py-1 font-mono">{describeFailsafe(pin.failsafe)}</td>
+            </tr>
+          ))
+        )}
+      </tbody>
+    </table>
+  );
+}

@@ -1,0 +1,33 @@
+import { useNavigate } from 'react-router-dom';
+import { useToast } from '../../../components/ui/toast';
+import type { WorkspaceMembership } from '../../../types/api';
+import { Dialog } from '../../models/components/dialog';
+import { useAddReceiver } from '../api/change-receiver';
+import { ReceiverFieldsForm } from './receiver-fields-form';
+
+export function AddReceiverDialog({ workspace, onClose }: { workspace: WorkspaceMembership; onClose: () => void }) {
+  const add = useAddReceiver(workspace.id);
+  const navigate = useNavigate();
+  const toast = useToast();
+  return (
+    <Dialog title="Add a receiver to the shelf" description="Its settings can be recorded on its own page, or applied from a model slot once it is installed." onClose={onClose}>
+      <ReceiverFieldsForm
+        submitLabel="Add to the shelf"
+        pending={add.isPending}
+        error={add.error}
+        onCancel={onClose}
+        onSubmit={(values) =>
+          add.mutate(
+            { ...values, notes: values.notes || undefined },
+            {
+              onSuccess: (unit) => {
+                toast({ title: `${unit.label} is on the shelf` });
+                navigate(`/w/${workspace.id}/shelf/${unit.id}`);
+              },
+            },
+          )
+        }
+      />
+    </Dialog>
+  );
+}

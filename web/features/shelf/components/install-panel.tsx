@@ -1,0 +1,128 @@
+import { useState } from 'react';
+import { Link } from 'react-router-dom';
+import { setupSchema } from '../../../../shared/format/schema';
+import { Button } from '../../../components/ui/button';
+import { ErrorState } from '../../../components/ui/error-state';
+import { LoadingState } from '../../../components/ui/loading-state';
+import { SelectField } from '../../../components/ui/select-field';
+import { useToast } from '../../../components/ui/toast';
+import { useHangar } from '../../models/api/list-models';
+import { useRevision } from '../../models/api/get-revision';
+import { useInstallReceiver } from '../api/change-receiver';
+import { useReuseCheck } from '../api/get-reuse-check';
+import type { ShelfUnit } from '../types';
+import { ReuseChecklist } from './reuse-checklist';
+
+/** The receiver slots of a stored revision's setup; none when it does not pass the schema. */
+function slotsOf(document: unknown): { id: string; label: string | null; role: string; outputs: number }[] {
+  const parsed = setupSchema.safeParse(document);
+  return parsed.success ? parsed.data.receivers.map((receiver) => ({ id: receiver.id, label: receiver.label ?? null, role: receiver.role, outputs: receiver.outputs })) : [];
+}
+
+/**
+ * Choose a model and one of its receiver slots, read the reuse check for this unit
+ * there, then install (or, when the unit is in another slot now, move) it.
+ */
+export function InstallPanel({ unit, onDone }: { unit: ShelfUnit; onDone: () => void }) {
+  const hangar = useHangar(unit.workspace_id);
+  const [modelId, setModelId] = useState('');
+  const [slot, setSlot] = useState('');
+  const model = hangar.data?.models.find((candidate) => candidate.id === modelId);
+  const latest = useRevision(model?.latest?.id ?? null);
+  const slots = latest.data ? slotsOf(latest.data.document) : [];
+  const target = modelId && slot ? { modelId, slot } : null;
+  const check = useReuseCheck(unit.id, target);
+  const install = useInstallReceiver(unit.id);
+  const toast = useToast();
+  const moving = unit.installed !== null;
+
+  if (hangar.isPending) return <LoadingState label="Loading the hangar…" />;
+  if (hangar.isError) return <ErrorState title="The models could not be loaded" error={hangar.error} onRetry={() => void hangar.refetch()} />;
+
+  const confirm = () =>
+    install.mutate(
+      { model: modelId, slot, move: moving },
+      {
+        onSuccess: (installed) => {
+          toast({
+            title: `${unit.label} is in slot ${slot} of ${installed.model.name}`,
+            description: installed.ready ? 'Its settings already match.' : `${installed.changes.length} settings to change before it flies.`,
+          });
+          onDone();
+        },
+      },
+    );
+
+  return (
+    <div className="space-y-4">
+      <div className="grid gap-4 sm:grid-cols-2">
+        <SelectField
+          label="Model"
+          value={modelId}
+          onChange={(event) => {
+            setModelId(event.target.value);
+            setSlot('');
+          }}
+        >
+          <option value="">Choose a model…</option>
+          {hangar.data.models.map((candidate) => (
+            <option key={candidate.id} value={candidate.id}>
+              {candidate.name}
+            </option>
+          ))}
+        </SelectField>
+        <SelectField label="Receiver slot" value={slot} onChange={(event) => setSlot(event.target.value)} disabled={!model || latest.isPending}>
+          <option value="">{!model ? 'Choose a model first' : latest.isPending ? 'Loading its receivers…' : slots.length === 0 ? 'No readable receivers' : 'Choose a slot…'}</option>
+          {slots.map((candidate) => (
+            <option key={candidate.id} value={candidate.id}>
+              {candidate.id}{candidate.label ? ` · ${candidate.label}` : ''} · {candidate.role}, {candidate.outputs} outputs
+            </option>
+          ))}
+        </SelectField>
+      </div>
+      {moving && unit.installed && (
+        <p className="text-sm text-ink-700">
+          It leaves slot {unit.installed.slot} of {unit.installed.model.name} in the same step; the history keeps both.
+        </p>
+      )}
+      {target &&
+        (check.isPending ? (
+          <LoadingState label="Checking the unit against this slot…" />
+        ) : check.isError ? (
+          <ErrorState title="The reuse check could not run" error={check.error} onRetry={() => void check.refetch()} />
+        ) : (
+          <ReuseChecklist
+            check={check.data}
+            action={() => (
+              <>
+                {check.data.holder && check.data.holder.id !== unit.id && (
+                  <p role="status" className="w-full text-base text-caution-700">
+                    Slot {slot} holds <Link to={`/w/${unit.workspace_id}/shelf/${check.data.holder.id}`}>{check.data.holder.label}</Link> now: take it out first
+                    to put this unit in.
+                  </p>
+                )}
+                <Button onClick={confirm} pending={install.isPending} disabled={Boolean(check.data.holder) || check.data.installed_here}>
+                  {moving ? 'Move it here' : 'Install it here'}
+                </Button>
+                <Button variant="secondary" onClick={onDone}>
+                  Cancel
+                </Button>
+                {install.error && (
+                  <p role="alert" className="text-sm text-danger-700">
+                    {install.error.message}
+                  </p>
+                )}
+              </>
+            )}
+          />
+        ))}
+      {!target && (
+        <div>
+          <Button variant="secondary" onClick={onDone}>
+            Cancel
+          </Button>
+        </div>
+      )}
+    </div>
+  );
+}

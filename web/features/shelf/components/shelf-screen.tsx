@@ -1,0 +1,135 @@
+import { useDeferredValue, useState } from 'react';
+import { useSearchParams } from 'react-router-dom';
+import { Button } from '../../../components/ui/button';
+import { EmptyState } from '../../../components/ui/empty-state';
+import { ErrorState } from '../../../components/ui/error-state';
+import { LoadingState } from '../../../components/ui/loading-state';
+import { PageHeader } from '../../../components/ui/page-header';
+import { cx } from '../../../lib/cx';
+import { canEdit } from '../../models/permissions';
+import { useCurrentWorkspace } from '../../workspaces/hooks/use-current-workspace';
+import { useShelf } from '../api/list-receivers';
+import type { ShelfStatus } from '../types';
+import { AddReceiverDialog } from './add-receiver-dialog';
+import { ShelfTable } from './shelf-table';
+
+const FILTERS: { value: ShelfStatus | null; label: string }[] = [
+  { value: null, label: 'All' },
+  { value: 'installed', label: 'Installed' },
+  { value: 'free', label: 'Free' },
+];
+
+const statusFrom = (value: string | null): ShelfStatus | null => (value === 'installed' || value === 'free' ? value : null);
+
+export function ShelfScreen() {
+  const { inUrl } = useCurrentWorkspace();
+  const [params, setParams] = useSearchParams();
+  const [adding, setAdding] = useState(false);
+  const query = params.get('q') ?? '';
+  const status = statusFrom(params.get('status'));
+  // The list follows the typing a beat behind, so each key press does not cost a request.
+  const deferredQuery = useDeferredValue(query.trim());
+  const shelf = useShelf(inUrl?.id ?? null, { q: deferredQuery || undefined, status: status ?? undefined });
+
+  if (!inUrl) return null;
+  const editor = canEdit(inUrl.role);
+  const filtered = Boolean(query.trim() || status);
+
+  const update = (changes: Record<string, string | null>) =>
+    setParams(
+      (current) => {
+        const next = new URLSearchParams(current);
+        for (const [key, value] of Object.entries(changes)) {
+          if (value) next.set(key, value);
+          else next.delete(key);
+        }
+        return next;
+      },
+      { replace: true },
+    );
+
+  return (
+    <>
+      <PageHeader
+        title="Shelf"
+        documentTitle={`Shelf · ${inUrl.name}`}
+        description={`The receivers of ${inUrl.name}: the mark on each case, the settings each unit holds and where it is flying.`}
+        actions={
+          editor ? (
+            <Button onClick={() => setAdding(true)}>Add receiver</Button>
+          ) : (
+            <p className="max-w-xs text-sm text-ink-700">Your role here is {inUrl.role}: you can read the shelf; owners and editors change it.</p>
+          )
+        }
+      />
+      {adding && <AddReceiverDialog workspace={inUrl} onClose={() => setAdding(false)} />}
+
+      <div className="mb-4 flex flex-wrap items-end gap-x-4 gap-y-3">
+        <div className="w-full max-w-sm">
+          <label htmlFor="shelf-search" className="block text-sm font-medium text-ink-900">
+            Search receivers
+          </label>
+          <input
+            id="shelf-search"
+            type="search"
+            value={query}
+            onChange={(event) => update({ q: event.target.value || null })}
+            placeholder="Label, mark or notes"
+            className="mt-1.5 block h-10 w-full rounded-md border border-ply-500 bg-paper-raised px-3 text-base text-ink-900 placeholder:text-ink-500"
+          />
+        </div>
+        <fieldset>
+          <legend className="text-sm font-medium text-ink-900">Show</legend>
+          <div className="mt-1.5 inline-flex rounded-md border border-ply-500 bg-paper-raised p-0.5">
+            {FILTERS.map((filter) => {
+              const active = status === filter.value;
+              return (
+                <label
+                  key={filter.label}
+                  className={cx(
+                    'cursor-pointer rounded-sm px-3 py-1.5 text-base has-[:focus-visible]:outline-3 has-[:focus-visible]:outline-accent-600',
+                    active ? 'bg-accent-700 font-medium text-white' : 'text-ink-700 hover:bg-ply-100',
+                  )}
+                >
+                  <input type="radio" name="shelf-status" className="sr-only" checked={active} onChange={() => update({ status: filter.value })} />
+                  {filter.label}
+                </label>
+              );
+            })}
+          </div>
+        </fieldset>
+        {shelf.data && (
+          <p className="pb-2 text-sm text-ink-700" aria-live="polite">
+            {shelf.data.total} {shelf.data.total === 1 ? 'receiver' : 'receivers'}
+            {filtered ? ' match' : ''}
+          </p>
+        )}
+      </div>
+
+      {shelf.isPending ? (
+        <LoadingState label="Loading the shelf…" />
+      ) : shelf.isError ? (
+        <ErrorState title="The shelf could not be loaded" error={shelf.error} onRetry={() => void shelf.refetch()} />
+      ) : shelf.data.units.length === 0 ? (
+        filtered ? (
+          <EmptyState
+            title="No receiver matches"
+            action={
+              <Button variant="secondary" onClick={() => update({ q: null, status: null })}>
+                Show every receiver
+              </Button>
+            }
+          >
+            The search looks at each unit’s label, the mark on its case and its notes.
+          </EmptyState>
+        ) : (
+          <EmptyState title="The shelf is empty" action={editor ? <Button onClick={() => setAdding(true)}>Add the first receiver</Button> : undefined}>
+            Add each physical receiver with the mark on its case, so the club knows which unit holds which settings.
+          </EmptyState>
+        )
+      ) : (
+        <ShelfTable units={shelf.data.units} workspaceId={inUrl.id} />
+      )}
+    </>
+  );
+}
