@@ -23,6 +23,9 @@ import { outboxRouter } from './routes/outbox';
 import { reviewsRouter } from './routes/reviews';
 import { receiversRouter } from './routes/receivers';
 import { fieldSheetRouter } from './routes/field-sheet';
+import { accountRouter } from './routes/account';
+import { corsIfConfigured } from './security/cors';
+import { csrfGuard } from './security/csrf';
 
 function securityHeaders(secure: boolean) {
   return helmet({
@@ -71,6 +74,9 @@ export function createApp(context: AppContext): Express {
   app.use(securityHeaders(config.cookieSecure));
 
   const api = express.Router();
+  const cors = corsIfConfigured(config.corsOrigins);
+  if (cors) api.use(cors);
+  api.use(csrfGuard({ trustedOrigins: config.corsOrigins }));
   api.use(acceptedBodies);
   api.use(express.json({ limit: config.jsonLimit }));
   api.use(cookieParser());
@@ -91,6 +97,7 @@ export function createApp(context: AppContext): Express {
   api.use(reviewsRouter(context));
   api.use(receiversRouter(context));
   api.use(fieldSheetRouter(context));
+  api.use(accountRouter(context));
   api.use(unknownApiRoute);
   app.use('/api', api);
 

@@ -1,6 +1,7 @@
 import { randomBytes } from 'node:crypto';
 import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
+import { parseCorsOrigins } from './security/cors';
 
 export interface SignInLimits {
   windowMs: number;
@@ -24,6 +25,8 @@ export interface AppConfig {
   webDir: string | null;
   /** Unexpected errors are logged to stderr; tests turn this off when they provoke them. */
   logErrors: boolean;
+  /** Other origins allowed to call the API from a browser (CORS_ORIGINS); none by default. */
+  corsOrigins: string[];
 }
 
 export const SESSION_COOKIE = 'bindery_session';
@@ -39,6 +42,7 @@ export function defaultConfig(overrides: Partial<AppConfig> & { jwtSecret: strin
     signInLimits: { windowMs: 15 * 60 * 1000, perAccount: 10, perAddress: 50 },
     webDir: null,
     logErrors: true,
+    corsOrigins: [],
     ...overrides,
   };
 }
@@ -84,5 +88,6 @@ export function configFromEnv(env: NodeJS.ProcessEnv, options: { dataDir: string
       perAddress: positiveInt(env.SIGN_IN_LIMIT_PER_ADDRESS, base.signInLimits.perAddress, 'SIGN_IN_LIMIT_PER_ADDRESS'),
     },
     webDir: options.webDir,
+    corsOrigins: parseCorsOrigins(env.CORS_ORIGINS),
   };
 }

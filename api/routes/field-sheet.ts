@@ -5,6 +5,7 @@ import { renderFieldSheetPdf } from '../field-sheet/render-pdf';
 import { authenticate } from '../middleware/authenticate';
 import { authorizeRevision } from '../policies/model';
 import { revisionFileName } from '../presenters/download-name';
+import { sendAsDownload } from '../security/content-disposition';
 
 export function fieldSheetRouter({ config }: AppContext): Router {
   const router = Router();
@@ -19,7 +20,7 @@ export function fieldSheetRouter({ config }: AppContext): Router {
   router.get('/revisions/:id/field-sheet.pdf', signedIn, async (req, res) => {
     const { model, revision } = await authorizeRevision(req, req.params.id, 'read', { full: true });
     const pdf = await renderFieldSheetPdf(await fieldSheetOf(model, revision));
-    res.attachment(revisionFileName(model.name, revision.number, '-field-sheet.pdf'));
+    sendAsDownload(res, revisionFileName(model.name, revision.number, '-field-sheet.pdf'));
     res.type('application/pdf');
     res.set('Cache-Control', 'private, no-store');
     res.send(pdf);

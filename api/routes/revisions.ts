@@ -11,6 +11,7 @@ import { authenticate, currentUser } from '../middleware/authenticate';
 import { Revision, User, type SetupModel } from '../models';
 import { authorizeModel, authorizeRevision } from '../policies/model';
 import { revisionFileName } from '../presenters/download-name';
+import { sendAsDownload } from '../security/content-disposition';
 import { presentRevision, presentRevisionSummary, presentSavedRevision } from '../presenters/revision';
 import { SUMMARY_ATTRIBUTES, tagsByRevision } from '../queries/model-views';
 import { parseInput } from '../validation';
@@ -25,7 +26,7 @@ const wantsDownload = (value: string | undefined): boolean => value === '1' || v
 
 /** The exact stored text, byte for byte, optionally as a file to save. */
 function sendYaml(res: Response, model: SetupModel, revision: Revision, download: boolean): void {
-  if (download) res.attachment(revisionFileName(model.name, revision.number));
+  if (download) sendAsDownload(res, revisionFileName(model.name, revision.number));
   res.type('application/yaml; charset=utf-8');
   res.send(Buffer.from(revision.yamlText, 'utf8'));
 }
@@ -112,7 +113,7 @@ export function revisionsRouter({ sequelize, config }: AppContext): Router {
     const operations = jsonPatch(from.revision.document, to.revision.document);
     if (wantsDownload(query.download)) {
       const name = revisionFileName(to.model.name, to.revision.number, '.patch.json').replace(/-r(\d+)\.patch\.json$/, `-r${from.revision.number}-to-r$1.patch.json`);
-      res.attachment(name);
+      sendAsDownload(res, name);
       res.type('application/json-patch+json; charset=utf-8');
       return res.send(JSON.stringify(operations, null, 2));
     }

@@ -33,6 +33,7 @@ const CompareScreen = lazyScreen(() => import('../features/compare/components/co
 const ShelfScreen = lazyScreen(() => import('../features/editor/zod-without-eval').then(() => import('../features/shelf/components/shelf-screen')), 'ShelfScreen');
 const UnitScreen = lazyScreen(() => import('../features/editor/zod-without-eval').then(() => import('../features/shelf/components/unit-screen')), 'UnitScreen');
 const FieldSheetScreen = lazyScreen(() => import('../features/editor/zod-without-eval').then(() => import('../features/field-sheet/components/field-sheet-screen')), 'FieldSheetScreen');
+const AccountScreen = lazyScreen(() => import('../features/account/components/account-screen'), 'AccountScreen');
 
 interface Screen extends FrameLink {
   element: React.ReactElement;
@@ -91,6 +92,7 @@ export const routes: RouteObject[] = [
         element: <AppFrame workspaceLinks={frameLinks(workspaceScreens)} devLinks={frameLinks(devScreens)} />,
         children: [
           { index: true, element: <HomeScreen /> },
+          { path: 'account', element: <AccountScreen /> },
           {
             path: 'w/:wsId',
             element: <WorkspaceScope />,

@@ -78,10 +78,10 @@ function SignedInFrame({ workspaceLinks, devLinks }: AppFrameProps) {
           </Link>
           <WorkspaceSwitcher />
           <div className="ml-auto flex min-w-0 items-center gap-3">
-            <span className="max-w-48 min-w-0 truncate text-sm text-ink-700 lg:max-w-none" title={user.email}>
+            <Link to="/account" className="max-w-48 min-w-0 truncate rounded-md text-sm text-ink-700 lg:max-w-none" title={`${user.email}: account and password`}>
               <span className="sr-only lg:not-sr-only">Signed in as </span>
               <span className="font-medium text-ink-900">{user.name}</span>
-            </span>
+            </Link>
             <Button
               variant="secondary"
               size="sm"

@@ -1,0 +1,86 @@
+import { useRef, useState, type FormEvent } from 'react';
+import { Button } from '../../../components/ui/button';
+import { FormAlert } from '../../../components/ui/form-alert';
+import { TextField } from '../../../components/ui/text-field';
+import { useToast } from '../../../components/ui/toast';
+import { useFocusFirstInvalid } from '../../../hooks/use-focus-first-invalid';
+import { formErrorsFrom, noFormErrors, type FormErrors } from '../../../lib/form-errors';
+import { PASSWORD_MIN_LENGTH } from '../../auth/validate';
+import { useChangePassword } from '../api/change-password';
+
+const FIELDS = ['current', 'password'] as const;
+
+/** The current password once, the new one twice; every other session ends on success. */
+export function ChangePasswordForm() {
+  const [current, setCurrent] = useState('');
+  const [password, setPassword] = useState('');
+  const [repeat, setRepeat] = useState('');
+  const [errors, setErrors] = useState<FormErrors>(noFormErrors);
+  const [attempt, setAttempt] = useState(0);
+  const formRef = useRef<HTMLFormElement>(null);
+  const change = useChangePassword();
+  const toast = useToast();
+  useFocusFirstInvalid(formRef, attempt);
+
+  const refuse = (next: FormErrors) => {
+    setErrors(next);
+    setAttempt((n) => n + 1);
+  };
+
+  const onSubmit = (event: FormEvent<HTMLFormElement>) => {
+    event.preventDefault();
+    if (!current) return refuse({ fields: { current: 'Enter your current password.' }, general: null });
+    if (password.length < PASSWORD_MIN_LENGTH) return refuse({ fields: { password: `Use at least ${PASSWORD_MIN_LENGTH} characters.` }, general: null });
+    if (repeat !== password) return refuse({ fields: { repeat: 'The two passwords differ. Type the same one twice.' }, general: null });
+    setErrors(noFormErrors);
+    change.mutate(
+      { current, password },
+      {
+        onSuccess: () => {
+          setCurrent('');
+          setPassword('');
+          setRepeat('');
+          toast({ title: 'Password changed', description: 'Every other place this account was signed in is now signed out.', tone: 'success' });
+        },
+        onError: (error) => refuse(formErrorsFrom(error, FIELDS)),
+      },
+    );
+  };
+
+  return (
+    <form ref={formRef} onSubmit={onSubmit} noValidate className="max-w-md space-y-5" aria-label="Change your password">
+      {errors.general && <FormAlert>{errors.general}</FormAlert>}
+      <TextField
+        label="Current password"
+        name="current"
+        type="password"
+        autoComplete="current-password"
+        value={current}
+        onChange={(event) => setCurrent(event.target.value)}
+        error={errors.fields.current}
+      />
+      <TextField
+        label="New password"
+        name="password"
+        type="password"
+        autoComplete="new-password"
+        hint={`At least ${PASSWORD_MIN_LENGTH} characters.`}
+        value={password}
+        onChange={(event) => setPassword(event.target.value)}
+        error={errors.fields.password}
+      />
+      <TextField
+        label="The new password again"
+        name="repeat"
+        type="password"
+        autoComplete="new-password"
+        value={repeat}
+        onChange={(event) => setRepeat(event.target.value)}
+        error={errors.fields.repeat}
+      />
+      <Button type="submit" pending={change.isPending}>
+        Change the password
+      </Button>
+    </form>
+  );
+}
