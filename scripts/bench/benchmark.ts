@@ -22,6 +22,12 @@ function quantile(sorted: readonly number[], q: number): number {
   return sorted[index];
 }
 
+/** Median and p95 of a set of samples in milliseconds. */
+export function timingOf(samples: readonly number[]): Timing {
+  const sorted = [...samples].sort((a, b) => a - b);
+  return { median: quantile(sorted, 0.5), p95: quantile(sorted, 0.95), runs: sorted.length };
+}
+
 export function measure(benchmark: Benchmark): Timing {
   const runs = benchmark.iterations ?? 200;
   let sink: unknown;
@@ -34,6 +40,12 @@ export function measure(benchmark: Benchmark): Timing {
   }
   // Keeps the result alive so the work cannot be optimised away.
   if (sink === Symbol.for('never')) console.log(sink);
-  times.sort((a, b) => a - b);
-  return { median: quantile(times, 0.5), p95: quantile(times, 0.95), runs };
+  return timingOf(times);
+}
+
+/** A size budget rather than a time: measured once, in kilobytes. */
+export interface SizeCheck {
+  name: string;
+  budgetKb: number;
+  measure: () => Promise<number>;
 }

@@ -1,13 +1,24 @@
 import { readdirSync } from 'node:fs';
 import { fileURLToPath, pathToFileURL } from 'node:url';
-import { measure, type Benchmark } from './benchmark';
+import { measure, type Benchmark, type SizeCheck } from './benchmark';
+import type { AsyncBenchmark } from './support/async-benchmark';
+import { closeBenchDatabase } from './support/bench-database';
 
-// `npm run bench`: runs every module in this folder that exports `benchmarks` (in file
-// name order) and prints the median and p95 of each, with its budget. A script, not a
-// test: the numbers depend on the machine and its load.
+// `npm run bench [-- WORD ...]`: runs every module in this folder that exports
+// `benchmarks` (synchronous work, timed call by call), `asyncBenchmarks` (load runs
+// against a real server and database) or `sizeChecks` (kilobytes), in file name order,
+// and prints the median and p95 of each with its budget. A script, not a test: the numbers depend on the machine
+// and its load. WORDs keep only the benchmarks whose names contain one of them.
+
+interface BenchModule {
+  benchmarks?: Benchmark[];
+  asyncBenchmarks?: AsyncBenchmark[];
+  sizeChecks?: SizeCheck[];
+}
 
 const folder = fileURLToPath(new URL('.', import.meta.url));
 const only = process.argv.slice(2);
+const wanted = (name: string) => only.length === 0 || only.some((word) => name.includes(word));
 
 function ms(value: number): string {
   return `${value.toFixed(3)} ms`;
@@ -15,28 +26,39 @@ function ms(value: number): string {
 
 async function main(): Promise<number> {
   const files = readdirSync(folder)
-    .filter((name) => name.endsWith('.ts') && name !== 'index.ts')
+    .filter((name) => name.endsWith('.ts') && name !== 'index.ts' && name !== 'benchmark.ts')
     .sort();
-  const rows: string[][] = [['benchmark', 'median', 'p95', 'budget (median)', '']];
+  const rows: string[][] = [['benchmark', 'median', 'p95', 'budget', '']];
   let over = 0;
-  for (const file of files) {
-    const module = (await import(pathToFileURL(`${folder}${file}`).href)) as { benchmarks?: Benchmark[] };
+  const row = (name: string, timing: { median: number; p95: number }, budgetMs: number | undefined, budgetOn: 'median' | 'p95') => {
+    const figure = budgetOn === 'p95' ? timing.p95 : timing.median;
+    const within = budgetMs === undefined ? '' : figure < budgetMs ? 'within' : 'OVER';
+    if (within === 'OVER') over += 1;
+    rows.push([name, ms(timing.median), ms(timing.p95), budgetMs === undefined ? '-' : `${budgetOn} < ${budgetMs} ms`, within]);
+  };
+  const modules: BenchModule[] = [];
+  for (const file of files) modules.push((await import(pathToFileURL(`${folder}${file}`).href)) as BenchModule);
+  for (const module of modules) {
     for (const benchmark of module.benchmarks ?? []) {
-      if (only.length > 0 && !only.some((word) => benchmark.name.includes(word))) continue;
-      const timing = measure(benchmark);
-      const within = benchmark.budgetMs === undefined ? '' : timing.median < benchmark.budgetMs ? 'within' : 'OVER';
-      if (within === 'OVER') over += 1;
-      rows.push([
-        benchmark.name,
-        ms(timing.median),
-        ms(timing.p95),
-        benchmark.budgetMs === undefined ? '-' : `< ${benchmark.budgetMs} ms`,
-        within,
-      ]);
+      if (wanted(benchmark.name)) row(benchmark.name, measure(benchmark), benchmark.budgetMs, 'median');
+    }
+    for (const benchmark of module.asyncBenchmarks ?? []) {
+      if (wanted(benchmark.name)) row(benchmark.name, await benchmark.measure(), benchmark.budgetMs, benchmark.budgetOn);
     }
   }
-  const widths = rows[0].map((_, column) => Math.max(...rows.map((row) => row[column].length)));
-  for (const row of rows) console.log(row.map((cell, column) => cell.padEnd(widths[column])).join('  ').trimEnd());
+  const sizes: string[] = [];
+  for (const module of modules) {
+    for (const check of module.sizeChecks ?? []) {
+      if (!wanted(check.name)) continue;
+      const kilobytes = await check.measure();
+      if (kilobytes >= check.budgetKb) over += 1;
+      sizes.push(`${check.name}: ${kilobytes.toFixed(1)} KB (budget < ${check.budgetKb} KB: ${kilobytes < check.budgetKb ? 'within' : 'OVER'})`);
+    }
+  }
+  await closeBenchDatabase();
+  const widths = rows[0].map((_, column) => Math.max(...rows.map((cells) => cells[column].length)));
+  for (const cells of rows) console.log(cells.map((cell, column) => cell.padEnd(widths[column])).join('  ').trimEnd());
+  if (sizes.length > 0) console.log(`\n${sizes.join('\n')}`);
   console.log(`\nNode ${process.version}, ${over === 0 ? 'all within budget' : `${over} over budget`}.`);
   return 0;
 }

@@ -3,11 +3,10 @@
 // call, so they are exported as `asyncBenchmarks` beside the runner's `benchmarks`.
 // Each module can also be run on its own with tsx, which prints the same row.
 
-export interface AsyncTiming {
-  median: number;
-  p95: number;
-  runs: number;
-}
+import { timingOf, type Timing } from '../benchmark';
+
+export { timingOf };
+export type AsyncTiming = Timing;
 
 export interface AsyncBenchmark {
   name: string;
@@ -15,16 +14,6 @@ export interface AsyncBenchmark {
   /** Which figure the budget applies to. */
   budgetOn: 'median' | 'p95';
   measure: () => Promise<AsyncTiming>;
-}
-
-function quantile(sorted: readonly number[], q: number): number {
-  const index = Math.min(sorted.length - 1, Math.max(0, Math.ceil(q * sorted.length) - 1));
-  return sorted[index];
-}
-
-export function timingOf(latencies: readonly number[]): AsyncTiming {
-  const sorted = [...latencies].sort((a, b) => a - b);
-  return { median: quantile(sorted, 0.5), p95: quantile(sorted, 0.95), runs: sorted.length };
 }
 
 export async function printAsyncBenchmarks(benchmarks: readonly AsyncBenchmark[]): Promise<void> {
