@@ -62,6 +62,16 @@ function fileStem(name: string): string {
   return stem || 'setup';
 }
 
+/** A file's text; FileReader, because older tablet browsers lack Blob.text(). */
+function readText(file: File): Promise<string> {
+  return new Promise((resolve, reject) => {
+    const reader = new FileReader();
+    reader.onload = () => resolve(String(reader.result ?? ''));
+    reader.onerror = () => reject(reader.error ?? new Error(`${file.name} could not be read.`));
+    reader.readAsText(file);
+  });
+}
+
 function countsSentence(saved: SavedRevision): string {
   const parts = [
     saved.error_count > 0 && `${saved.error_count} ${saved.error_count === 1 ? 'error' : 'errors'}`,
@@ -127,6 +137,7 @@ export function SetupEditor({ model, initialBase, restoredText, canEdit, role }:
   );
 
   const openFile = async (event: ChangeEvent<HTMLInputElement>) => {
+    // Take the file, then clear the input so that choosing the same file again still counts.
     const file = event.target.files?.[0];
     event.target.value = '';
     if (!file) return;
@@ -138,7 +149,12 @@ export function SetupEditor({ model, initialBase, restoredText, canEdit, role }:
       toast({ tone: 'error', title: `${file.name} was not opened`, description: `It is ${Math.ceil(file.size / 1024)} KB; setups up to 512 KB are accepted.` });
       return;
     }
-    setText(await file.text());
+    try {
+      setText(await readText(file));
+    } catch (error) {
+      toast({ tone: 'error', title: `${file.name} could not be read`, description: error instanceof Error ? error.message : undefined });
+      return;
+    }
     setTab('text');
     toast({ tone: 'info', title: `Opened ${file.name} in the editor`, description: `Look over the findings, then save it as revision ${base.number + 1}.` });
   };
