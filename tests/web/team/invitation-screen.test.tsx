@@ -40,17 +40,24 @@ describe('the invitation page', () => {
     expect(server.called('POST', `/api/invitations/${TOKEN}/accept`)[0].body).toEqual({ name: 'Nell Whitethroat', password: 'thermal-bubble-77' });
   });
 
-  it('lets a signed-in user accept with one button', async () => {
+  it('lets a signed-in user accept with one button and opens the workspace', async () => {
+    let joined = false;
     const server = fakeServer({
-      ...sessionRoutes({ signedIn: true, workspaces: demoWorkspaces.slice(1) }).routes,
+      ...sessionRoutes({ signedIn: true }).routes,
+      'GET /api/me': () => ({ body: { data: { user: demoUser, workspaces: joined ? demoWorkspaces : demoWorkspaces.slice(1) } } }),
       [`GET /api/invitations/${TOKEN}`]: () => ({ body: { data: preview({ email: demoUser.email, account_exists: true }) } }),
-      [`POST /api/invitations/${TOKEN}/accept`]: () => ({ body: { data: { user: demoUser, workspace: { id: CLUB, name: 'Hollowfield Aero Club', role: 'reviewer' } } } }),
+      [`POST /api/invitations/${TOKEN}/accept`]: () => {
+        joined = true;
+        return { body: { data: { user: demoUser, workspace: { id: CLUB, name: 'Hollowfield Aero Club', role: 'reviewer' } } } };
+      },
+      [`GET /api/workspaces/${CLUB}/models`]: () => ({ body: { data: [], pagination: { total: 0 } } }),
     });
-    const { user } = renderApp(`/invitations/${TOKEN}`);
+    const { user, location } = renderApp(`/invitations/${TOKEN}`);
     expect(await screen.findByText(/You are signed in as/)).toHaveTextContent('Wren Calloway');
     await user.click(screen.getByRole('button', { name: 'Accept and join Hollowfield Aero Club' }));
-    await vi.waitFor(() => expect(server.called('POST', `/api/invitations/${TOKEN}/accept`)).toHaveLength(1));
+    await vi.waitFor(() => expect(location().pathname).toBe(`/w/${CLUB}/hangar`));
     expect(server.called('POST', `/api/invitations/${TOKEN}/accept`)[0].body).toEqual({});
+    expect(screen.queryByText(/already a member/)).not.toBeInTheDocument();
   });
 
   it('sends someone with an account to sign in first', async () => {

@@ -27,6 +27,7 @@ export function auditLine(event: AuditEvent, workspaceId: Id): AuditLine {
   const model = (id: unknown, screen: string) => (typeof id === 'string' && id ? { to: `/models/${id}/${screen}`, label: 'Open the model' } : null);
   const review = event.subject.id ? { to: `/w/${workspaceId}/reviews/${event.subject.id}`, label: 'Open the review' } : null;
   const ofModel = d.model_name ? ` of ${quoted(d.model_name)}` : '';
+  const receiver = event.subject.id ? { to: `/w/${workspaceId}/shelf/${event.subject.id}`, label: 'Open the receiver' } : null;
 
   switch (event.action) {
     case 'model.created':
@@ -65,6 +66,16 @@ export function auditLine(event: AuditEvent, workspaceId: Id): AuditLine {
       return { text: `${VERDICTS[str(d.verdict)] ?? 'gave a verdict on'} revision ${str(d.number)}${ofModel}`, link: review };
     case 'review.commented':
       return { text: `commented${d.path ? ` on ${str(d.path)}` : ''} in the review of revision ${str(d.number)}${ofModel}`, link: review };
+    case 'receiver.added':
+      return { text: `put the receiver ${quoted(d.label)} on the shelf`, link: receiver };
+    case 'receiver.updated':
+      return { text: 'updated a receiver’s details on the shelf', link: receiver };
+    case 'receiver.installed':
+      return { text: `installed a receiver in ${quoted(d.model_name)}, slot ${str(d.slot)}`, link: receiver };
+    case 'receiver.removed':
+      return { text: `took a receiver out of ${quoted(d.model_name)}`, link: receiver };
+    case 'receiver.settings-applied':
+      return { text: `recorded the settings changed on a receiver for ${quoted(d.model_name)}`, link: receiver };
     default:
       return { text: event.action.replace(/[._-]/g, ' '), link: null };
   }

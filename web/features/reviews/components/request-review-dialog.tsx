@@ -5,6 +5,7 @@ import { FormAlert } from '../../../components/ui/form-alert';
 import { LoadingState } from '../../../components/ui/loading-state';
 import { useToast } from '../../../components/ui/toast';
 import { formErrorsFrom } from '../../../lib/form-errors';
+import { useSession } from '../../auth/hooks/use-session';
 import { Dialog } from '../../models/components/dialog';
 import type { SetupModelView } from '../../models/types';
 import { useMembers } from '../../team/api/get-members';
@@ -25,7 +26,9 @@ export function RequestReviewDialog({ model, onClose }: { model: SetupModelView;
   const toast = useToast();
   const errors = request.isError ? formErrorsFrom(request.error, ['reviewers', 'note']) : null;
 
-  const candidates = (members.data ?? []).filter((member) => MAY_REVIEW.has(member.role) && member.user.id !== latest.author?.id);
+  const { user } = useSession();
+  // Neither the author (who may not approve it) nor the one asking.
+  const candidates = (members.data ?? []).filter((member) => MAY_REVIEW.has(member.role) && member.user.id !== latest.author?.id && member.user.id !== user.id);
 
   const onSubmit = (event: FormEvent<HTMLFormElement>) => {
     event.preventDefault();
@@ -53,7 +56,7 @@ export function RequestReviewDialog({ model, onClose }: { model: SetupModelView;
           <fieldset>
             <legend className="text-sm font-medium text-ink-900">Reviewers</legend>
             {candidates.length === 0 ? (
-              <p className="mt-1 text-sm text-ink-700">Nobody here may review this revision: a reviewer needs the reviewer role or higher and cannot be its author. Invite one on the Team screen.</p>
+              <p className="mt-1 text-sm text-ink-700">Nobody else here may review this revision: a reviewer needs the reviewer role or higher and cannot be its author. Invite one on the Team screen.</p>
             ) : (
               <ul className="mt-2 space-y-1.5">
                 {candidates.map((member) => (

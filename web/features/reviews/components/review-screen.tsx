@@ -48,7 +48,7 @@ function ReviewPage({ review }: { review: ReviewDetail }) {
         documentTitle={`Review · ${title}`}
         description={
           <>
-            Asked by {review.requested_by?.name ?? 'a former member'} <TimeAgo iso={review.created_at} /> of {review.reviewers.map((reviewer) => reviewer.name).join(', ')}.
+            {review.requested_by?.name ?? 'A former member'} asked {review.reviewers.map((reviewer) => reviewer.name).join(', ')} to review it <TimeAgo iso={review.created_at} />.
           </>
         }
         actions={

@@ -11,8 +11,14 @@ import { RequestStateBadge } from './review-badges';
 export function ReviewTable({ reviews, caption, showModel = true }: { reviews: ReviewSummary[]; caption: string; showModel?: boolean }) {
   return (
     <Card className="overflow-x-auto">
-      <table className="w-full text-left text-base">
+      <table className="w-full min-w-[40rem] table-fixed text-left text-base">
         <caption className="sr-only">{caption}</caption>
+        <colgroup>
+          <col className="w-[44%]" />
+          <col className="w-[19%]" />
+          <col className="w-[20%]" />
+          <col className="w-[17%]" />
+        </colgroup>
         <thead className="border-b border-ply-200 text-sm text-ink-700">
           <tr>
             <th scope="col" className="px-4 py-3 font-medium">{showModel ? 'Model and revision' : 'Revision'}</th>

@@ -1,6 +1,7 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { api } from '../../../lib/api-client';
-import type { Role, Session, User } from '../../../types/api';
+import { useNavigate } from 'react-router-dom';
+import type { Role, User } from '../../../types/api';
 import { meQueryOptions } from '../../auth/api/get-me';
 import type { InvitationPreview } from '../types';
 
@@ -26,15 +27,20 @@ export async function acceptInvitation(token: string, account?: { name: string; 
   return (await api.post<AcceptAnswer>(`/api/invitations/${encodeURIComponent(token)}/accept`, account ?? {})).data;
 }
 
-/** Accepts, then loads the session with the new workspace in it. */
+/**
+ * Accepts, loads the session with the new workspace in it, then opens that workspace's
+ * hangar. The navigation sits on the mutation itself so it happens even though the
+ * page's own view changes as the session arrives.
+ */
 export function useAcceptInvitation(token: string) {
   const queryClient = useQueryClient();
+  const navigate = useNavigate();
   return useMutation({
-    mutationFn: async (account?: { name: string; password: string }): Promise<{ answer: AcceptAnswer; session: Session }> => {
+    mutationFn: async (account?: { name: string; password: string }): Promise<AcceptAnswer> => {
       const answer = await acceptInvitation(token, account);
-      queryClient.removeQueries({ queryKey: ['invitations', token] });
-      await queryClient.invalidateQueries({ queryKey: meQueryOptions().queryKey });
-      return { answer, session: await queryClient.fetchQuery(meQueryOptions()) };
+      await queryClient.fetchQuery({ ...meQueryOptions(), staleTime: 0 });
+      return answer;
     },
+    onSuccess: (answer) => navigate(`/w/${answer.workspace.id}/hangar`, { replace: true }),
   });
 }

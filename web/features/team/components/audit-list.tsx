@@ -1,4 +1,6 @@
+import { useState } from 'react';
 import { Link } from 'react-router-dom';
+import { Button } from '../../../components/ui/button';
 import { Card } from '../../../components/ui/card';
 import { ErrorState } from '../../../components/ui/error-state';
 import { LoadingState } from '../../../components/ui/loading-state';
@@ -8,8 +10,11 @@ import { useAudit } from '../api/get-audit';
 import { auditLine } from '../audit-sentence';
 
 /** The workspace's audit trail, newest first: shown to owners. */
+const PAGE = 20;
+
 export function AuditList({ workspaceId }: { workspaceId: Id }) {
-  const audit = useAudit(workspaceId, true);
+  const [limit, setLimit] = useState(PAGE);
+  const audit = useAudit(workspaceId, limit, true);
 
   return (
     <Card className="p-5">
@@ -47,9 +52,14 @@ export function AuditList({ workspaceId }: { workspaceId: Id }) {
             })}
           </ol>
           {audit.data.total > audit.data.events.length && (
-            <p className="mt-2 text-sm text-ink-700">
-              The newest {audit.data.events.length} of {audit.data.total} events.
-            </p>
+            <div className="mt-3 flex flex-wrap items-center gap-3">
+              <Button variant="secondary" size="sm" pending={audit.isFetching} onClick={() => setLimit((current) => Math.min(current + PAGE * 2, 200))} disabled={limit >= 200}>
+                Show older activity
+              </Button>
+              <span className="text-sm text-ink-700">
+                The newest {audit.data.events.length} of {audit.data.total} events.
+              </span>
+            </div>
           )}
         </>
       )}

@@ -1,5 +1,5 @@
 import { useRef, useState, type FormEvent } from 'react';
-import { Link, useNavigate, useParams } from 'react-router-dom';
+import { Link, useParams } from 'react-router-dom';
 import { AuthLayout } from '../../../components/layouts/auth-layout';
 import { Button, buttonClasses } from '../../../components/ui/button';
 import { FormAlert } from '../../../components/ui/form-alert';
@@ -20,6 +20,10 @@ export function InvitationScreen() {
   const { token = '' } = useParams();
   const invitation = useInvitation(token);
   const me = useMe();
+  const accept = useAcceptInvitation(token);
+  // Accepting signs in and reloads the session; the page keeps the view it had until
+  // the hangar opens, instead of flipping to "you are already a member".
+  const shown = useRef<{ session: Session | null; signedOut: boolean } | null>(null);
 
   if (invitation.isPending || me.isPending) {
     return (
@@ -39,8 +43,10 @@ export function InvitationScreen() {
     );
   }
   const preview = invitation.data;
-  const session = me.isSuccess ? me.data : null;
-  const signedOut = me.isError && isUnauthorized(me.error);
+  if (!(accept.isPending || accept.isSuccess) || !shown.current) {
+    shown.current = { session: me.isSuccess ? me.data : null, signedOut: me.isError && isUnauthorized(me.error) };
+  }
+  const { session, signedOut } = shown.current;
 
   return (
     <AuthLayout
@@ -48,7 +54,7 @@ export function InvitationScreen() {
       intro={`${preview.invited_by?.name ?? 'An owner'} invites you to this workspace as ${roleWord(preview.role, true)}.`}
     >
       {session ? (
-        <JoinAsMember token={token} preview={preview} session={session} />
+        <JoinAsMember accept={accept} preview={preview} session={session} />
       ) : signedOut && preview.account_exists ? (
         <div className="space-y-4">
           <p className="text-base text-ink-700">
@@ -59,15 +65,15 @@ export function InvitationScreen() {
           </Link>
         </div>
       ) : (
-        <NewAccountForm token={token} preview={preview} />
+        <NewAccountForm accept={accept} token={token} preview={preview} />
       )}
     </AuthLayout>
   );
 }
 
-function JoinAsMember({ token, preview, session }: { token: string; preview: InvitationPreview; session: Session }) {
-  const accept = useAcceptInvitation(token);
-  const navigate = useNavigate();
+type Accept = ReturnType<typeof useAcceptInvitation>;
+
+function JoinAsMember({ accept, preview, session }: { accept: Accept; preview: InvitationPreview; session: Session }) {
   const member = session.workspaces.find((workspace) => workspace.id === preview.workspace.id);
   const otherAddress = session.user.email.toLowerCase() !== preview.email.toLowerCase();
 
@@ -90,7 +96,7 @@ function JoinAsMember({ token, preview, session }: { token: string; preview: Inv
       <Button
         className="w-full"
         pending={accept.isPending}
-        onClick={() => accept.mutate(undefined, { onSuccess: ({ answer }) => navigate(`/w/${answer.workspace.id}/hangar`, { replace: true }) })}
+        onClick={() => accept.mutate(undefined)}
       >
         Accept and join {preview.workspace.name}
       </Button>
@@ -100,13 +106,11 @@ function JoinAsMember({ token, preview, session }: { token: string; preview: Inv
 
 const FIELDS = ['name', 'password'] as const;
 
-function NewAccountForm({ token, preview }: { token: string; preview: InvitationPreview }) {
+function NewAccountForm({ accept, token, preview }: { accept: Accept; token: string; preview: InvitationPreview }) {
   const [values, setValues] = useState({ name: '', password: '' });
   const [errors, setErrors] = useState<FormErrors>(noFormErrors);
   const [attempt, setAttempt] = useState(0);
   const formRef = useRef<HTMLFormElement>(null);
-  const accept = useAcceptInvitation(token);
-  const navigate = useNavigate();
   useFocusFirstInvalid(formRef, attempt);
 
   const refuse = (next: FormErrors) => {
@@ -123,10 +127,7 @@ function NewAccountForm({ token, preview }: { token: string; preview: Invitation
     setErrors(noFormErrors);
     accept.mutate(
       { name: values.name.trim(), password: values.password },
-      {
-        onSuccess: ({ answer }) => navigate(`/w/${answer.workspace.id}/hangar`, { replace: true }),
-        onError: (error) => refuse(isApiError(error) && error.code === 'account-exists' ? { fields: {}, general: error.message } : formErrorsFrom(error, FIELDS)),
-      },
+      { onError: (error) => refuse(isApiError(error) && error.code === 'account-exists' ? { fields: {}, general: error.message } : formErrorsFrom(error, FIELDS)) },
     );
   };
 
