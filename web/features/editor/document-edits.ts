@@ -138,7 +138,7 @@ function renderScalar(value: unknown, inFlow: boolean): string {
   return plain;
 }
 
-export function renderFlow(value: unknown): string {
+function renderFlow(value: unknown): string {
   if (Array.isArray(value)) return `[${value.map(renderFlow).join(', ')}]`;
   if (value !== null && typeof value === 'object') {
     const entries = Object.entries(value).filter(([, item]) => item !== undefined);

@@ -6,7 +6,7 @@ const HIGHEST_CHANNEL = 32;
 export type ShiftResult = { edits: DocumentEdit[]; summary: string; error?: undefined } | { edits?: undefined; error: string };
 
 /** "1-8" for a run, "1, 3, 5-6" otherwise. */
-export function describeNumbers(numbers: readonly number[]): string {
+function describeNumbers(numbers: readonly number[]): string {
   const sorted = [...numbers].sort((a, b) => a - b);
   const runs: string[] = [];
   for (let i = 0; i < sorted.length; ) {

@@ -231,7 +231,13 @@ export function SetupEditor({ model, initialBase, restoredText, canEdit, role }:
             {canEdit && (
               <Button
                 disabled={!dirty || !checked.analysis.readable || checking}
-                title={!dirty ? 'Nothing to save: the text is as revision ' + base.number + ' has it.' : undefined}
+                title={
+                  !dirty
+                    ? `Nothing to save: the text is as revision ${base.number} has it.`
+                    : !checked.analysis.readable
+                      ? 'The text is not readable YAML: fix the syntax finding first.'
+                      : undefined
+                }
                 onClick={() => {
                   save.reset();
                   setSaveOpen(true);
