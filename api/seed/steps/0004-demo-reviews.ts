@@ -55,7 +55,7 @@ const PLAN: PlannedReview[] = [
     model: 'Kestrel Mk II',
     by: 'owner',
     reviewers: ['reviewer'],
-    note: 'Maiden after the winter rebuild. The wing receiver came out of the club's retired Curlew, so the failsafes matter.',
+    note: 'Maiden after the winter rebuild. The wing receiver came out of the retired club Curlew, so the failsafes matter.',
     at: '2026-03-21T10:00:00Z',
     verdicts: [],
     ticks: ['control-directions', 'throws-measured'],
