@@ -69,4 +69,3 @@ export const updateReceiverSchema = z
 
 export type CreateReceiverInput = z.input<typeof createReceiverSchema>;
 export type UpdateReceiverInput = z.input<typeof updateReceiverSchema>;
-export { pinsFit as storedPinsFitOutputs };

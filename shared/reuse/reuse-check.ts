@@ -194,9 +194,3 @@ export function reuseCheck(unit: ReuseUnit, slot: Receiver, findings: readonly F
     target: { telemetry: slot.telemetry, pins: [...targetPins.values()].sort((a, b) => a.pin - b.pin) },
   };
 }
-
-/** Runs the check against a slot of a whole setup; undefined when the setup has no such slot. */
-export function reuseCheckInSetup(unit: ReuseUnit, setup: Setup, slotId: string, findings: readonly Finding[] = []): ReuseCheck | undefined {
-  const slot = findSlot(setup, slotId);
-  return slot ? reuseCheck(unit, slot, findings) : undefined;
-}

@@ -37,7 +37,6 @@ export const storedSettingsSchema = z
 export type StoredFailsafe = z.output<typeof storedFailsafeSchema>;
 export type StoredPin = z.output<typeof storedPinSchema>;
 export type StoredSettings = z.output<typeof storedSettingsSchema>;
-export type StoredSettingsInput = z.input<typeof storedSettingsSchema>;
 
 /** How a stored failsafe reads in a sentence: "988 us", "hold", "off", "not set". */
 export function describeFailsafe(failsafe: StoredFailsafe | undefined): string {

@@ -4,7 +4,7 @@ import { parse } from 'yaml';
 import { describe, expect, it } from 'vitest';
 import { analyzeSetup, type Analysis } from '../../shared/analyze';
 import type { Setup } from '../../shared/format/schema';
-import { findSlot, findingsForSlot, reuseCheck, reuseCheckInSetup, type ReuseUnit } from '../../shared/reuse/reuse-check';
+import { findSlot, findingsForSlot, reuseCheck, type ReuseUnit } from '../../shared/reuse/reuse-check';
 import { storedSettingsSchema } from '../../shared/reuse/stored-settings';
 
 const fixture = (path: string) => readFileSync(fileURLToPath(new URL(`../../fixtures/${path}`, import.meta.url)), 'utf8');
@@ -73,7 +73,7 @@ describe('a unit already programmed for its slot', () => {
   });
 
   it('is ready in the trainer it came from, too', () => {
-    const check = reuseCheckInSetup(loadUnit('six-output-unit'), trainer.setup, 'cabin', trainer.findings);
+    const check = reuseCheck(loadUnit('six-output-unit'), slot(trainer, 'cabin'), trainer.findings);
     expect(check).toMatchObject({ changes: [], notes: [], ready: true });
   });
 
