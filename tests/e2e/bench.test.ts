@@ -16,7 +16,7 @@ describe('journey: the bench', () => {
     const visit = await signedIn(browser(), viewer);
     const { page } = visit;
     await page.goto(`${baseUrl}/models/${kestrel.id}/bench`);
-    await page.getByRole('heading', { name: 'Bench' }).waitFor();
+    await page.getByRole('heading', { name: 'Bench', exact: true }).waitFor();
 
     const channels = page.getByRole('table', { name: /Each channel's value and pulse/ });
     const elevatorChannel = channels.getByRole('row').filter({ has: page.getByRole('cell', { name: '2', exact: true }) });

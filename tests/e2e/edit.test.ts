@@ -111,7 +111,7 @@ describe('journey: two tabs on one model', () => {
     const refusal = second.getByRole('alert').filter({ hasText: 'Not saved' });
     await refusal.getByText('Not saved: revision 2 was saved while you were editing').waitFor();
     await refusal.getByText('Weighed after the new retracts: 6350 g', { exact: false }).waitFor();
-    await refusal.getByRole('heading', { name: 'Changed meanwhile (revision 1 → 2)' }).waitFor();
+    await refusal.getByRole('heading', { name: 'Changed meanwhile (revision 1 → 2)', exact: true }).waitFor();
     expect(await refusal.locator('li').filter({ hasText: '6350' }).count()).toBeGreaterThan(0);
     await saveScreenshot(second, 'journey-04-stale-base');
 

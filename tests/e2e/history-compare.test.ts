@@ -14,7 +14,7 @@ describe('journey: compare two revisions from the History', () => {
     const visit = await signedIn(browser(), reviewer);
     const { page } = visit;
     await page.goto(`${baseUrl}/models/${kestrel.id}/history`);
-    await page.getByRole('heading', { name: 'History' }).waitFor();
+    await page.getByRole('heading', { name: 'History', exact: true }).waitFor();
 
     // Revision 3 remapped the wing receiver; revision 4 fixed its pin 1 failsafe, left at
     // the 988 us the unit held from its last airframe (the demo seed's story).
@@ -24,7 +24,7 @@ describe('journey: compare two revisions from the History', () => {
     await page.getByRole('button', { name: /^Compare( r3 with r4)?$/ }).click();
 
     await page.waitForURL(/\/compare\?/);
-    await page.getByRole('heading', { name: 'Changes by section' }).waitFor();
+    await page.getByRole('heading', { name: 'Changes by section', exact: true }).waitFor();
     expect(await page.getByLabel('Older (from)').evaluate((select: HTMLSelectElement) => select.selectedOptions[0]?.textContent ?? '')).toMatch(/^r3\b/);
     expect(await page.getByLabel('Newer (to)').evaluate((select: HTMLSelectElement) => select.selectedOptions[0]?.textContent ?? '')).toMatch(/^r4\b/);
 

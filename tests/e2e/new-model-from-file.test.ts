@@ -21,7 +21,7 @@ describe('journey: a new model from an uploaded file', () => {
 
     const visit = await signedIn(browser(), demoAccount('editor'));
     const { page } = visit;
-    await page.getByRole('heading', { name: 'Hangar' }).waitFor();
+    await page.getByRole('heading', { name: 'Hangar', exact: true }).waitFor();
     await page.getByRole('button', { name: 'New model' }).click();
     const dialog = page.getByRole('dialog', { name: 'New model' });
     await dialog.getByText('From a file').click();
@@ -32,7 +32,7 @@ describe('journey: a new model from an uploaded file', () => {
     await page.waitForURL(/\/models\/[0-9a-f-]{36}\/overview$/);
     await page.getByRole('region', { name: 'Notifications' }).getByText('Curlew 2.9 is in the hangar').waitFor();
     await page.getByText('Revision 1 is curlew.yaml.').waitFor();
-    await page.getByRole('heading', { name: 'Overview' }).waitFor();
+    await page.getByRole('heading', { name: 'Overview', exact: true }).waitFor();
     await page.getByRole('navigation', { name: 'Breadcrumb' }).getByText('Curlew 2.9').waitFor();
     await page.getByText('Revision 1 by Tomas Quillfeather').waitFor();
     await saveScreenshot(page, 'journey-02-new-model-overview');

@@ -13,7 +13,7 @@ describe('journey: sign in and out', () => {
     const { page } = visit;
     await page.goto(`${baseUrl}/`);
     // A signed-out visit to the app lands on the sign-in page.
-    await page.getByRole('heading', { name: 'Sign in' }).waitFor();
+    await page.getByRole('heading', { name: 'Sign in', exact: true }).waitFor();
     await saveScreenshot(page, 'journey-01-sign-in');
 
     await signInThroughForm(page, owner);
@@ -28,12 +28,12 @@ describe('journey: sign in and out', () => {
     await saveScreenshot(page, 'journey-01-signed-in');
 
     await page.getByRole('button', { name: 'Sign out' }).click();
-    await page.getByRole('heading', { name: 'Sign in' }).waitFor();
+    await page.getByRole('heading', { name: 'Sign in', exact: true }).waitFor();
     expect(new URL(page.url()).pathname).toBe('/sign-in');
     expect((await visit.context.cookies()).find((cookie) => cookie.name === 'bindery_session')).toBeUndefined();
     // The hangar is out of reach once signed out: back to sign-in, with the way back kept.
     await page.goto(`${baseUrl}/w/any/hangar`);
-    await page.getByRole('heading', { name: 'Sign in' }).waitFor();
+    await page.getByRole('heading', { name: 'Sign in', exact: true }).waitFor();
     expect(new URL(page.url()).searchParams.get('next')).toBe('/w/any/hangar');
     await saveScreenshot(page, 'journey-01-signed-out');
     expectNoProblems(visit, [401]);

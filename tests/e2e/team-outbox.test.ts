@@ -13,7 +13,7 @@ describe('journey: invite a member and read the mail in the Outbox', () => {
     const visit = await signedIn(browser(), owner);
     const { page } = visit;
     await page.getByRole('navigation', { name: 'Workspace' }).getByRole('link', { name: 'Team' }).click();
-    await page.getByRole('heading', { name: 'Team' }).waitFor();
+    await page.getByRole('heading', { name: 'Team', exact: true }).waitFor();
 
     const form = page.getByRole('form', { name: 'Invite a member' });
     await form.getByLabel('E-mail').fill(invitee);
@@ -24,7 +24,7 @@ describe('journey: invite a member and read the mail in the Outbox', () => {
     await saveScreenshot(page, 'journey-08-invitation-sent');
 
     await page.getByRole('navigation', { name: 'Development tools' }).getByRole('link', { name: 'Outbox' }).click();
-    await page.getByRole('heading', { name: 'Outbox' }).waitFor();
+    await page.getByRole('heading', { name: 'Outbox', exact: true }).waitFor();
     const subject = `${owner.name} invites you to ${DEMO_WORKSPACE_NAME} on Bindery`;
     const caught = page.getByRole('list', { name: 'Caught messages' }).getByRole('button').filter({ hasText: invitee });
     await caught.first().click();
@@ -40,7 +40,7 @@ describe('journey: invite a member and read the mail in the Outbox', () => {
     // The invitee has no account yet: the link offers one and joins them to the club.
     const newcomer = await openVisit(browser());
     await newcomer.page.goto(href);
-    await newcomer.page.getByRole('heading', { name: `Join ${DEMO_WORKSPACE_NAME}` }).waitFor();
+    await newcomer.page.getByRole('heading', { name: `Join ${DEMO_WORKSPACE_NAME}`, exact: true }).waitFor();
     await newcomer.page.getByText(`${owner.name} invites you to this workspace as an editor.`).waitFor();
     const join = newcomer.page.getByRole('form', { name: 'Create your account and join' });
     await join.getByLabel('Name').fill('Kit Fairweather');
