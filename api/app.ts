@@ -24,6 +24,7 @@ import { reviewsRouter } from './routes/reviews';
 import { receiversRouter } from './routes/receivers';
 import { fieldSheetRouter } from './routes/field-sheet';
 import { accountRouter } from './routes/account';
+import { portabilityRouter } from './routes/portability';
 import { corsIfConfigured } from './security/cors';
 import { csrfGuard } from './security/csrf';
 
@@ -98,6 +99,7 @@ export function createApp(context: AppContext): Express {
   api.use(receiversRouter(context));
   api.use(fieldSheetRouter(context));
   api.use(accountRouter(context));
+  api.use(portabilityRouter(context));
   api.use(unknownApiRoute);
   app.use('/api', api);
 

@@ -10,6 +10,7 @@ import { revisionsOf, useRevisions } from '../../models/api/list-revisions';
 import { canEdit } from '../../models/permissions';
 import type { RevisionSummary, SetupModelView } from '../../models/types';
 import { comparePair, compareSearch, togglePick } from '../pick-two';
+import { ExportHistoryLink } from './export-history-link';
 import { ForkDialog } from './fork-dialog';
 import { RevertDialog } from './revert-dialog';
 import { RevisionTimeline } from './revision-timeline';
@@ -29,6 +30,7 @@ export function HistoryScreen() {
         title="History"
         documentTitle={model.data ? `History · ${model.data.name}` : 'History'}
         description="Every revision of this model, newest first. Pick two to compare them; nothing here is ever changed or deleted."
+        actions={model.data && <ExportHistoryLink modelId={model.data.id} />}
       />
       {body}
     </>
