@@ -85,11 +85,24 @@ export async function tickItem(reviewId: Id, item: string, ticked: boolean): Pro
   return (await api.post<ChecklistEntry[]>(`/api/reviews/${encodeURIComponent(reviewId)}/checklist`, { item, ticked })).data;
 }
 
+/** Ticks at once on screen (a checkbox must answer the click), set right by the server's answer or undone on failure. */
 export function useTickItem(review: Pick<ReviewDetail, 'id'>) {
   const queryClient = useQueryClient();
+  const key = reviewQueryKey(review.id);
   return useMutation({
     mutationFn: ({ item, ticked }: { item: string; ticked: boolean }) => tickItem(review.id, item, ticked),
-    onSuccess: (checklist) => queryClient.setQueryData<ReviewDetail>(reviewQueryKey(review.id), (current) => (current ? { ...current, checklist } : current)),
+    onMutate: async ({ item, ticked }) => {
+      await queryClient.cancelQueries({ queryKey: key });
+      const before = queryClient.getQueryData<ReviewDetail>(key);
+      queryClient.setQueryData<ReviewDetail>(key, (current) =>
+        current ? { ...current, checklist: current.checklist.map((entry) => (entry.id === item ? { ...entry, ticked } : entry)) } : current,
+      );
+      return { before };
+    },
+    onError: (_error, _input, context) => {
+      if (context?.before) queryClient.setQueryData(key, context.before);
+    },
+    onSuccess: (checklist) => queryClient.setQueryData<ReviewDetail>(key, (current) => (current ? { ...current, checklist } : current)),
   });
 }
 

@@ -28,7 +28,7 @@ export function ChecklistPanel({ review }: { review: ReviewDetail }) {
                 id={id}
                 type="checkbox"
                 checked={item.ticked}
-                disabled={!review.can.tick || tick.isPending}
+                disabled={!review.can.tick}
                 onChange={(event) =>
                   tick.mutate(
                     { item: item.id, ticked: event.target.checked },
