@@ -19,7 +19,7 @@ const sizes: Record<Size, string> = {
 
 export const buttonClasses = (variant: Variant = 'primary', size: Size = 'md') =>
   cx(
-    'inline-flex items-center justify-center rounded-md border font-medium whitespace-nowrap',
+    'inline-flex items-center justify-center rounded-md border font-medium whitespace-nowrap no-underline',
     'transition-colors disabled:cursor-not-allowed disabled:opacity-60',
     variants[variant],
     sizes[size],
