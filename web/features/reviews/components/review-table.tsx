@@ -14,10 +14,10 @@ export function ReviewTable({ reviews, caption, showModel = true }: { reviews: R
       <table className="w-full min-w-[40rem] table-fixed text-left text-base">
         <caption className="sr-only">{caption}</caption>
         <colgroup>
-          <col className="w-[44%]" />
-          <col className="w-[19%]" />
+          <col className="w-[38%]" />
+          <col className="w-[18%]" />
           <col className="w-[20%]" />
-          <col className="w-[17%]" />
+          <col className="w-[24%]" />
         </colgroup>
         <thead className="border-b border-ply-200 text-sm text-ink-700">
           <tr>
