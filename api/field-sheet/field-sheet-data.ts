@@ -6,7 +6,7 @@ import { Unprocessable } from '../errors';
 import { Receiver, ReceiverInstall, type Revision, type SetupModel, User } from '../models';
 import { setupOf } from '../queries/receiver-slot';
 import { reviewStateOf, type ReviewState } from '../review-state';
-import { cautionsText, type CautionsText } from './cautions-text';
+import { CAUTIONS, CAUTIONS_HEADING, type Caution } from '../../shared/cautions';
 
 export const SHORT_HASH_LENGTH = 12;
 
@@ -48,7 +48,7 @@ export interface FieldSheet {
   counts: FindingCounts;
   /** Errors and warnings, to be read before flying. */
   findings: Finding[];
-  cautions: CautionsText;
+  cautions: { heading: string; items: readonly Caution[] };
 }
 
 /** Everything the printed sheet shows for one revision; 422 when the revision has no valid setup to print. */
@@ -126,6 +126,6 @@ export async function fieldSheetOf(model: SetupModel, revision: Revision, transa
     receiver_supply: setup.power?.receiver_supply ?? null,
     counts: { errors: revision.errorCount, warnings: revision.warningCount, infos: revision.infoCount },
     findings: serious,
-    cautions: cautionsText(),
+    cautions: { heading: CAUTIONS_HEADING, items: CAUTIONS },
   };
 }
