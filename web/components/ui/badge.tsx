@@ -47,7 +47,9 @@ const severityLook: Record<Severity, { tone: Tone; icon: BadgeProps['icon']; wor
 
 export function SeverityBadge({ severity, count }: { severity: Severity; count?: number }) {
   const look = severityLook[severity];
-  const word = count === undefined ? look.word : `${count} ${count === 1 ? look.word.toLowerCase() : `${look.word.toLowerCase()}s`}`;
+  // "info" is uncountable: "3 info", never "3 infos".
+  const plural = count === 1 || severity === 'info' ? look.word.toLowerCase() : `${look.word.toLowerCase()}s`;
+  const word = count === undefined ? look.word : `${count} ${plural}`;
   return (
     <Badge tone={look.tone} icon={look.icon}>
       {word}

@@ -114,15 +114,16 @@ function ChannelRow({ row, receivers }: { row: PlanRow; receivers: PlanReceiver[
         return (
           <td key={receiver.id} className="border-l border-ply-200 px-3 py-2">
             {pins.length === 0 ? (
-              <span aria-label="not carried" className="text-ink-500">
-                ·
+              <span className="text-ink-500">
+                <span aria-hidden="true">·</span>
+                <span className="sr-only">not carried</span>
               </span>
             ) : (
               <ul className="flex flex-wrap gap-1">
                 {pins.map((pin) => (
                   <li key={pin.pin} className="rounded-sm border border-accent-700/30 bg-accent-50 px-1.5 py-0.5 text-sm text-ink-900">
                     <span className="font-medium">Pin {pin.pin}</span>
-                    <span className="ml-1 text-xs text-ink-700">fs {failsafeText(pin.failsafe)}</span>
+                    <span className="ml-1 text-xs text-ink-700">failsafe {failsafeText(pin.failsafe)}</span>
                   </li>
                 ))}
               </ul>

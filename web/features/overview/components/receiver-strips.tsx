@@ -38,7 +38,7 @@ function ReceiverStrip({
         <span>{receiver.outputs === null ? 'outputs not given' : `${receiver.outputs} outputs`}</span>
         <TelemetryBadge receiver={receiver} />
       </p>
-      <ol className="mt-3 grid grid-cols-[repeat(auto-fill,minmax(5.5rem,1fr))] gap-1.5" aria-label={`Pins of ${receiverName(receiver)}`}>
+      <ol className="mt-3 grid grid-cols-2 gap-1.5 sm:grid-cols-4" aria-label={`Pins of ${receiverName(receiver)}`}>
         {pins.map((pin) => {
           const entries = receiver.map.filter((entry) => entry.pin === pin);
           const beyondOutputs = receiver.outputs !== null && pin > receiver.outputs;
@@ -62,7 +62,7 @@ function ReceiverStrip({
                     <span className="block truncate" title={names.join(', ')}>
                       {names.length > 0 ? names.join(', ') : 'no function'}
                     </span>
-                    <span className="block text-ink-700">fs {failsafeText(entry.failsafe)}</span>
+                    <span className="block text-ink-700">failsafe {failsafeText(entry.failsafe)}</span>
                   </span>
                 );
               })}
