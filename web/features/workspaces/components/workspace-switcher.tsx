@@ -17,7 +17,7 @@ export function WorkspaceSwitcher() {
     <SelectField
       label="Workspace"
       hideLabel
-      className="max-w-xs min-w-48"
+      className="max-w-xs min-w-48 lg:max-w-sm"
       value={fallback ? fallback.id : ''}
       onChange={(event) => {
         const target = section && SECTIONS.has(section) ? section : 'hangar';
