@@ -18,21 +18,21 @@ const HomeScreen = lazyScreen(() => import('./routes/home'), 'HomeScreen');
 const NotFoundScreen = lazyScreen(() => import('./routes/not-found'), 'NotFoundScreen');
 const PlannedScreen = lazyScreen(() => import('./routes/planned-screen'), 'PlannedScreen');
 const TeamScreen = lazyScreen(() => import('../features/team/components/team-screen'), 'TeamScreen');
-const BenchScreen = lazyScreen(() => import('../features/editor/zod-without-eval').then(() => import('../features/bench/components/bench-screen')), 'BenchScreen');
 const InvitationScreen = lazyScreen(() => import('../features/team/components/invitation-screen'), 'InvitationScreen');
 const ResetPasswordConfirmScreen = lazyScreen(() => import('./routes/auth/reset-password-confirm'), 'ResetPasswordConfirmScreen');
 const OutboxScreen = lazyScreen(() => import('../features/outbox/components/outbox-screen'), 'OutboxScreen');
 const ReviewsScreen = lazyScreen(() => import('../features/reviews/components/reviews-screen'), 'ReviewsScreen');
 const ReviewScreen = lazyScreen(() => import('../features/reviews/components/review-screen'), 'ReviewScreen');
 const ModelReviewsScreen = lazyScreen(() => import('../features/reviews/components/model-reviews-screen'), 'ModelReviewsScreen');
-const EditScreen = lazyScreen(() => import('../features/editor/zod-without-eval').then(() => import('../features/editor/components/edit-screen')), 'EditScreen');
+const EditScreen = lazyScreen(() => import('../features/editor/components/edit-screen'), 'EditScreen');
+const BenchScreen = lazyScreen(() => import('../features/bench/components/bench-screen'), 'BenchScreen');
 const HangarScreen = lazyScreen(() => import('../features/models/components/hangar-screen'), 'HangarScreen');
 const OverviewScreen = lazyScreen(() => import('../features/overview/components/overview-screen'), 'OverviewScreen');
 const HistoryScreen = lazyScreen(() => import('../features/history/components/history-screen'), 'HistoryScreen');
 const CompareScreen = lazyScreen(() => import('../features/compare/components/compare-screen'), 'CompareScreen');
-const ShelfScreen = lazyScreen(() => import('../features/editor/zod-without-eval').then(() => import('../features/shelf/components/shelf-screen')), 'ShelfScreen');
-const UnitScreen = lazyScreen(() => import('../features/editor/zod-without-eval').then(() => import('../features/shelf/components/unit-screen')), 'UnitScreen');
-const FieldSheetScreen = lazyScreen(() => import('../features/editor/zod-without-eval').then(() => import('../features/field-sheet/components/field-sheet-screen')), 'FieldSheetScreen');
+const ShelfScreen = lazyScreen(() => import('../features/shelf/components/shelf-screen'), 'ShelfScreen');
+const UnitScreen = lazyScreen(() => import('../features/shelf/components/unit-screen'), 'UnitScreen');
+const FieldSheetScreen = lazyScreen(() => import('../features/field-sheet/components/field-sheet-screen'), 'FieldSheetScreen');
 const AccountScreen = lazyScreen(() => import('../features/account/components/account-screen'), 'AccountScreen');
 
 interface Screen extends FrameLink {
@@ -99,8 +99,8 @@ export const routes: RouteObject[] = [
             children: [
               { index: true, element: <Navigate to="hangar" replace /> },
               ...workspaceScreens.map(({ path, element }) => ({ path, element })),
-              { path: 'shelf/:receiverId', element: <UnitScreen /> },
               { path: 'reviews/:reviewId', element: <ReviewScreen /> },
+              { path: 'shelf/:receiverId', element: <UnitScreen /> },
             ],
           },
           {
