@@ -5,7 +5,7 @@ import { Conflict, HttpError, NotFound } from '../errors';
 import { Invitation, Membership, User, Workspace } from '../models';
 import { emailTaken } from './create-account';
 import { createWorkspace } from './create-workspace';
-import { recordTeamEvent } from './record-team-event';
+import { recordAuditEvent } from './record-audit-event';
 
 export const invitationNotFound = () => new NotFound('This invitation no longer exists.', { code: 'invitation-not-found' });
 
@@ -34,7 +34,7 @@ const alreadyMember = (workspace: Workspace) =>
 async function join(invitation: Invitation & { workspace: Workspace }, user: User, transaction: Transaction, created: boolean): Promise<Membership> {
   const membership = await Membership.create({ workspaceId: invitation.workspaceId, userId: user.id, role: invitation.role }, { transaction });
   await invitation.update({ acceptedAt: new Date(), acceptedBy: user.id }, { transaction });
-  await recordTeamEvent(
+  await recordAuditEvent(
     {
       workspaceId: invitation.workspaceId,
       actor: user,

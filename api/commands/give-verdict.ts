@@ -8,7 +8,7 @@ import type { Verdict } from '../models/ReviewVerdict';
 import { PRE_MAIDEN_CHECKLIST } from '../reviews/checklist';
 import { reviewStateFromVerdicts } from '../reviews/sign-off';
 import type { ReviewAccess } from '../policies/review';
-import { recordTeamEvent } from './record-team-event';
+import { recordAuditEvent } from './record-audit-event';
 
 export interface VerdictInput {
   verdict: Verdict;
@@ -61,7 +61,7 @@ export async function giveVerdict(sequelize: Sequelize, mail: MailService, acces
     const all = await ReviewVerdict.findAll({ where: { reviewId: review.id }, attributes: ['reviewerId', 'verdict', 'createdAt'], transaction });
     const next = reviewStateFromVerdicts(all);
     await review.update({ state: next.state, decidedAt: next.decidedAt }, { transaction });
-    await recordTeamEvent(
+    await recordAuditEvent(
       {
         workspaceId: review.workspaceId,
         actor: user,

@@ -7,7 +7,7 @@ import type { MailService } from '../mail/mail-service';
 import { invitationMail } from '../mail/messages';
 import { Invitation, Membership, User, type Workspace } from '../models';
 import type { Role } from '../policies/roles';
-import { recordTeamEvent } from './record-team-event';
+import { recordAuditEvent } from './record-audit-event';
 
 export const INVITATION_TTL_MS = 7 * 24 * 60 * 60 * 1000;
 
@@ -46,7 +46,7 @@ export async function inviteMember(sequelize: Sequelize, config: AppConfig, mail
       { transaction },
     );
     invitation.inviter = input.inviter;
-    await recordTeamEvent(
+    await recordAuditEvent(
       {
         workspaceId: input.workspace.id,
         actor: input.inviter,

@@ -2,7 +2,7 @@ import type { Sequelize, Transaction } from 'sequelize';
 import { Conflict, NotFound } from '../errors';
 import { Membership, User, type Workspace } from '../models';
 import type { Role } from '../policies/roles';
-import { recordTeamEvent } from './record-team-event';
+import { recordAuditEvent } from './record-audit-event';
 
 const memberNotFound = () => new NotFound('This person is not a member of the workspace.', { code: 'member-not-found' });
 
@@ -35,7 +35,7 @@ export async function changeMemberRole(sequelize: Sequelize, input: { workspace:
     if (from === input.role) return Object.assign(membership, { user });
     if (from === 'owner' && ownerCount(memberships) === 1) throw lastOwner(`making ${user.name} ${input.role === 'editor' ? 'an' : 'a'} ${input.role}`);
     await membership.update({ role: input.role }, { transaction });
-    await recordTeamEvent(
+    await recordAuditEvent(
       {
         workspaceId: input.workspace.id,
         actor: input.actor,
@@ -58,7 +58,7 @@ export async function removeMember(sequelize: Sequelize, input: { workspace: Wor
     const leaving = user.id === input.actor.id;
     if (membership.role === 'owner' && ownerCount(memberships) === 1) throw lastOwner(leaving ? 'leaving' : `removing ${user.name}`);
     await membership.destroy({ transaction });
-    await recordTeamEvent(
+    await recordAuditEvent(
       {
         workspaceId: input.workspace.id,
         actor: input.actor,

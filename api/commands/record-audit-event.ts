@@ -1,6 +1,8 @@
 import type { Transaction } from 'sequelize';
 import { AuditEvent, type User } from '../models';
 
+// The workspace's one audit trail: models and revisions, the team and sign-off, and
+// the receivers on the shelf.
 export const AUDIT_ACTIONS = [
   'model.created',
   'model.renamed',
@@ -10,6 +12,20 @@ export const AUDIT_ACTIONS = [
   'revision.reverted',
   'tag.added',
   'tag.removed',
+  'member.invited',
+  'invitation.revoked',
+  'member.joined',
+  'member.role-changed',
+  'member.removed',
+  'member.left',
+  'review.requested',
+  'review.verdict',
+  'review.commented',
+  'receiver.added',
+  'receiver.updated',
+  'receiver.installed',
+  'receiver.removed',
+  'receiver.settings-applied',
 ] as const;
 export type AuditAction = (typeof AUDIT_ACTIONS)[number];
 
@@ -17,7 +33,7 @@ export interface AuditEntry {
   workspaceId: string;
   actor: User | null;
   action: AuditAction;
-  subjectType: 'model' | 'revision' | 'tag';
+  subjectType: 'model' | 'revision' | 'tag' | 'invitation' | 'member' | 'review' | 'receiver';
   subjectId: string | null;
   details?: Record<string, unknown>;
   createdAt?: Date;

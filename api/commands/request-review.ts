@@ -5,7 +5,7 @@ import type { MailService } from '../mail/mail-service';
 import { reviewRequestedMail } from '../mail/messages';
 import { Membership, Review, User, type Revision, type SetupModel, type Workspace } from '../models';
 import { roleAtLeast } from '../policies/roles';
-import { recordTeamEvent } from './record-team-event';
+import { recordAuditEvent } from './record-audit-event';
 
 export interface ReviewRequest {
   workspace: Workspace;
@@ -66,7 +66,7 @@ export async function requestReview(sequelize: Sequelize, mail: MailService, inp
       },
       { transaction },
     );
-    await recordTeamEvent(
+    await recordAuditEvent(
       {
         workspaceId: input.workspace.id,
         actor: input.requester,

@@ -1,7 +1,7 @@
 import { Router } from 'express';
 import { Op } from 'sequelize';
 import { giveVerdict, setTicks } from '../commands/give-verdict';
-import { recordTeamEvent } from '../commands/record-team-event';
+import { recordAuditEvent } from '../commands/record-audit-event';
 import { requestReview } from '../commands/request-review';
 import type { AppContext } from '../context';
 import { Unprocessable } from '../errors';
@@ -86,7 +86,7 @@ export function reviewsRouter(context: AppContext): Router {
         { reviewId: review.id, revisionId: review.revision.id, modelId: review.modelId, path: input.path ?? null, body: input.body, authorId: user.id },
         { transaction },
       );
-      await recordTeamEvent(
+      await recordAuditEvent(
         {
           workspaceId: review.workspaceId,
           actor: user,

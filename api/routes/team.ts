@@ -1,7 +1,7 @@
 import { Router } from 'express';
 import { changeMemberRole, removeMember } from '../commands/manage-members';
 import { inviteMember, pendingInvitations } from '../commands/invite-member';
-import { recordTeamEvent } from '../commands/record-team-event';
+import { recordAuditEvent } from '../commands/record-audit-event';
 import type { AppContext } from '../context';
 import { NotFound } from '../errors';
 import { mailFor } from '../mail/context';
@@ -50,7 +50,7 @@ export function teamRouter(context: AppContext): Router {
       if (!found) throw invitationNotFound();
       if (found.statusAt(new Date()) !== 'pending') return found;
       await found.update({ revokedAt: new Date() }, { transaction });
-      await recordTeamEvent(
+      await recordAuditEvent(
         { workspaceId: workspace.id, actor: currentUser(req), action: 'invitation.revoked', subjectType: 'invitation', subjectId: found.id, details: { email: found.email, role: found.role } },
         transaction,
       );

@@ -1,5 +1,5 @@
 import type { Transaction } from 'sequelize';
-import { recordTeamEvent } from '../../commands/record-team-event';
+import { recordAuditEvent } from '../../commands/record-audit-event';
 import { composeMailFrom } from '../../mail/seeded-mail';
 import { reviewRequestedMail, verdictMail } from '../../mail/messages';
 import { ChecklistTick, OutboxMessage, Review, ReviewComment, ReviewVerdict, Revision, SetupModel, User, Workspace } from '../../models';
@@ -110,7 +110,7 @@ async function seedReview(plan: PlannedReview, workspace: Workspace, people: Rec
     { transaction },
   );
   const reviewUrl = `${APP_URL}/w/${workspace.id}/reviews/${review.id}`;
-  await recordTeamEvent(
+  await recordAuditEvent(
     {
       workspaceId: workspace.id,
       actor: requester,
@@ -138,7 +138,7 @@ async function seedReview(plan: PlannedReview, workspace: Workspace, people: Rec
   for (const planned of plan.verdicts) {
     const by = people[planned.by];
     await ReviewVerdict.create({ reviewId: review.id, reviewerId: by.id, verdict: planned.verdict, body: planned.body, contentHash: revision.contentHash, createdAt: new Date(planned.at) }, { transaction });
-    await recordTeamEvent(
+    await recordAuditEvent(
       {
         workspaceId: workspace.id,
         actor: by,
