@@ -1,206 +1,19 @@
-import { randomBytes } from 'node:crypto';
-import request from 'supertest';
 import { beforeAll, describe, expect, it } from 'vitest';
-import { signLinkToken } from '../../api/auth/link-tokens';
-import { Invitation, PasswordReset, Revision, Tag, type User } from '../../api/models';
-import { roleAtLeast, type Role } from '../../api/policies/roles';
-import { CHECKLIST_IDS } from '../../api/reviews/checklist';
+import { roleAtLeast } from '../../api/policies/roles';
 import { registeredRoutes, ROUTE_TABLE, routeKey, type Access } from '../../api/routes/route-table';
-import { addMember, bearer, createRoleFixture, createUser, createWorkspace, tokenFor, uniqueEmail, TEST_PASSWORD, type RoleFixture } from './helpers/factories';
 import { useMailTestApp } from './helpers/mail';
-import { TRAINER } from './models-support';
+import { buildSampleWorld, CALLERS, type Caller, type SampleWorld } from './route-table-samples';
 
 // Generated from api/routes/route-table.ts: every route, called as each role of the
 // workspace that owns the record, as a member of another workspace only, and signed
-// out. Each route has a sample below that builds a request which succeeds for a caller
-// allowed to make it (fresh records where a call uses one up).
+// out. The samples (route-table-samples.ts) build a request for each route that
+// succeeds for a caller allowed to make it.
 
 const t = useMailTestApp();
-
-type Caller = Role | 'outsider' | 'anonymous';
-const CALLERS: Caller[] = ['owner', 'editor', 'reviewer', 'viewer', 'outsider', 'anonymous'];
-
-interface Call {
-  url: string;
-  body?: object;
-  upload?: { file: Buffer; name: string; type: string; fields?: Record<string, string> };
-}
-type Sample = (caller: Caller) => Promise<Call>;
-
-let roles: RoleFixture;
-/** A workspace each caller owns, for forks into "their own" hangar. */
-const ownWorkspace = {} as Record<Exclude<Caller, 'anonymous'>, string>;
-let modelId: string;
-let firstRevisionId: string;
-let secondRevisionId: string;
-let receiverId: string;
-let reviewId: string;
-let bundle: Buffer;
-
-const userOf = (caller: Caller): User | null => (caller === 'anonymous' ? null : caller === 'outsider' ? roles.outsider : roles.members[caller]);
-
-// Tokens are made at each call from the stored user, so a call that ends the caller's
-// sessions (sign-out everywhere, a password change) does not spoil the next one.
-async function headersOf(caller: Caller): Promise<Record<string, string>> {
-  const user = userOf(caller);
-  if (!user) return {};
-  await user.reload();
-  return bearer(tokenFor(user, t.config));
-}
-
-const owner = () => ({ headers: async () => headersOf('owner') });
-async function asOwner(method: 'get' | 'post', url: string, body?: object): Promise<request.Response> {
-  const response = await request(t.app)[method](url).set(await owner().headers()).send(body);
-  expect(response.status, `${method} ${url} as owner: ${JSON.stringify(response.body)}`).toBeLessThan(300);
-  return response;
-}
-
-const latestNumber = async (id: string) => (await Revision.max<number, Revision>('number', { where: { modelId: id } })) ?? 0;
-const fresh = (label: string) => `${label}-${randomBytes(3).toString('hex')}`;
-
-async function freshModel(): Promise<{ id: string; revisionId: string }> {
-  const { model, revision } = (await asOwner('post', `/api/workspaces/${roles.workspace.id}/models`, { name: fresh('Sample'), yaml: TRAINER() })).body.data;
-  return { id: model.id, revisionId: revision.id };
-}
-
-const freshReceiver = async (): Promise<string> => (await asOwner('post', `/api/workspaces/${roles.workspace.id}/receivers`, { label: fresh('Unit'), outputs: 8 })).body.data.id;
-
-async function installedReceiver(): Promise<string> {
-  const unit = await freshReceiver();
-  const model = await freshModel();
-  await asOwner('post', `/api/receivers/${unit}/install`, { model: model.id, slot: 'cabin' });
-  return unit;
-}
-
-async function freshMember(): Promise<string> {
-  const user = await createUser({ email: uniqueEmail('member') });
-  await addMember(roles.workspace, user, 'viewer');
-  return user.id;
-}
-
-async function invitationToken(email: string): Promise<string> {
-  const inviter = await createUser();
-  const workspace = await createWorkspace({ name: fresh('Inviting'), owner: inviter });
-  const invitation = await Invitation.create({ workspaceId: workspace.id, email, role: 'viewer', invitedBy: inviter.id, expiresAt: new Date(Date.now() + 86_400_000) });
-  return signLinkToken('invitation', invitation.id, invitation.expiresAt, t.config);
-}
-
-async function resetToken(): Promise<string> {
-  const reset = await PasswordReset.create({ userId: (await createUser()).id, expiresAt: new Date(Date.now() + 3_600_000) });
-  return signLinkToken('password-reset', reset.id, reset.expiresAt, t.config);
-}
-
-const ws = () => roles.workspace.id;
-
-const SAMPLES: Record<string, Sample> = {
-  'GET /api/health': async () => ({ url: '/api/health' }),
-  'POST /api/check': async () => ({ url: '/api/check', body: { yaml: TRAINER() } }),
-  'GET /api/schema/setup-1.json': async () => ({ url: '/api/schema/setup-1.json' }),
-
-  'POST /api/auth/sign-up': async () => ({ url: '/api/auth/sign-up', body: { email: uniqueEmail('new'), name: 'New Pilot', password: TEST_PASSWORD } }),
-  'POST /api/auth/sign-in': async () => ({ url: '/api/auth/sign-in', body: { email: (await createUser()).email, password: TEST_PASSWORD } }),
-  'POST /api/auth/sign-out': async () => ({ url: '/api/auth/sign-out' }),
-  'POST /api/auth/sign-out-everywhere': async () => ({ url: '/api/auth/sign-out-everywhere' }),
-  'POST /api/auth/password': async () => ({ url: '/api/auth/password', body: { current: TEST_PASSWORD, password: TEST_PASSWORD } }),
-  'POST /api/auth/password-reset': async () => ({ url: '/api/auth/password-reset', body: { email: uniqueEmail('lost') } }),
-  'GET /api/auth/password-reset/:token': async () => ({ url: `/api/auth/password-reset/${await resetToken()}` }),
-  'POST /api/auth/password-reset/:token': async () => ({ url: `/api/auth/password-reset/${await resetToken()}`, body: { password: 'a-brand-new-password' } }),
-  'GET /api/me': async () => ({ url: '/api/me' }),
-
-  'POST /api/workspaces': async () => ({ url: '/api/workspaces', body: { name: fresh('Field') } }),
-  'GET /api/workspaces/:ws': async () => ({ url: `/api/workspaces/${ws()}` }),
-  'PATCH /api/workspaces/:ws': async () => ({ url: `/api/workspaces/${ws()}`, body: { name: 'Role matrix field' } }),
-  'GET /api/workspaces/:ws/members': async () => ({ url: `/api/workspaces/${ws()}/members` }),
-  'PATCH /api/workspaces/:ws/members/:userId': async () => ({ url: `/api/workspaces/${ws()}/members/${await freshMember()}`, body: { role: 'reviewer' } }),
-  'DELETE /api/workspaces/:ws/members/:userId': async () => ({ url: `/api/workspaces/${ws()}/members/${await freshMember()}` }),
-  'GET /api/workspaces/:ws/invitations': async () => ({ url: `/api/workspaces/${ws()}/invitations` }),
-  'POST /api/workspaces/:ws/invitations': async () => ({ url: `/api/workspaces/${ws()}/invitations`, body: { email: uniqueEmail('invitee'), role: 'viewer' } }),
-  'DELETE /api/workspaces/:ws/invitations/:id': async () => {
-    const invitation = (await asOwner('post', `/api/workspaces/${ws()}/invitations`, { email: uniqueEmail('revoked'), role: 'viewer' })).body.data;
-    return { url: `/api/workspaces/${ws()}/invitations/${invitation.id}` };
-  },
-  'GET /api/invitations/:token': async () => ({ url: `/api/invitations/${await invitationToken(uniqueEmail('look'))}` }),
-  'POST /api/invitations/:token/accept': async (caller) => {
-    const user = userOf(caller);
-    if (!user) return { url: `/api/invitations/${await invitationToken(uniqueEmail('joiner'))}/accept`, body: { name: 'Joiner', password: TEST_PASSWORD } };
-    return { url: `/api/invitations/${await invitationToken(user.email)}/accept` };
-  },
-  'GET /api/workspaces/:ws/audit': async () => ({ url: `/api/workspaces/${ws()}/audit` }),
-  'GET /api/outbox': async () => ({ url: '/api/outbox' }),
-
-  'GET /api/workspaces/:ws/models': async () => ({ url: `/api/workspaces/${ws()}/models` }),
-  'POST /api/workspaces/:ws/models': async () => ({ url: `/api/workspaces/${ws()}/models`, body: { name: fresh('Created') } }),
-  'POST /api/workspaces/:ws/models/upload': async () => ({ url: `/api/workspaces/${ws()}/models/upload`, upload: { file: Buffer.from(TRAINER()), name: 'trainer.yaml', type: 'application/yaml' } }),
-  'GET /api/models/:id': async () => ({ url: `/api/models/${modelId}` }),
-  'PATCH /api/models/:id': async () => ({ url: `/api/models/${modelId}`, body: { name: 'Matrix trainer' } }),
-  'POST /api/models/:id/fork': async (caller) => ({
-    url: `/api/models/${modelId}/fork`,
-    body: { number: 1, workspace: caller === 'anonymous' ? ws() : ownWorkspace[caller], name: fresh('Fork') },
-  }),
-  'POST /api/models/:id/upload': async () => ({
-    url: `/api/models/${modelId}/upload`,
-    upload: { file: Buffer.from(TRAINER()), name: 'trainer.yaml', type: 'application/yaml', fields: { base: String(await latestNumber(modelId)) } },
-  }),
-  'POST /api/models/:id/revisions': async () => ({ url: `/api/models/${modelId}/revisions`, body: { base: await latestNumber(modelId), yaml: TRAINER(), message: 'Matrix save' } }),
-  'GET /api/models/:id/revisions': async () => ({ url: `/api/models/${modelId}/revisions` }),
-  'GET /api/models/:id/revisions/:number': async () => ({ url: `/api/models/${modelId}/revisions/1` }),
-  'POST /api/models/:id/revert': async () => ({ url: `/api/models/${modelId}/revert`, body: { number: 1, base: await latestNumber(modelId) } }),
-  'GET /api/revisions/:id': async () => ({ url: `/api/revisions/${firstRevisionId}` }),
-  'POST /api/revisions/:id/tags': async () => ({ url: `/api/revisions/${firstRevisionId}/tags`, body: { name: fresh('tag') } }),
-  'DELETE /api/revisions/:id/tags/:name': async () => {
-    const name = fresh('gone');
-    await Tag.create({ modelId, revisionId: firstRevisionId, name, createdBy: roles.members.owner.id });
-    return { url: `/api/revisions/${firstRevisionId}/tags/${name}` };
-  },
-  'GET /api/revisions/:id/patch': async () => ({ url: `/api/revisions/${secondRevisionId}/patch?from=${firstRevisionId}` }),
-  'GET /api/compare': async () => ({ url: `/api/compare?from=${firstRevisionId}&to=${secondRevisionId}` }),
-  'GET /api/revisions/:id/field-sheet': async () => ({ url: `/api/revisions/${secondRevisionId}/field-sheet` }),
-  'GET /api/revisions/:id/field-sheet.pdf': async () => ({ url: `/api/revisions/${secondRevisionId}/field-sheet.pdf` }),
-  'GET /api/models/:id/export.git': async () => ({ url: `/api/models/${modelId}/export.git` }),
-  'GET /api/workspaces/:ws/export.git': async () => ({ url: `/api/workspaces/${ws()}/export.git` }),
-  'POST /api/workspaces/:ws/import': async () => ({ url: `/api/workspaces/${ws()}/import`, upload: { file: bundle, name: 'history.bundle', type: 'application/octet-stream' } }),
-
-  'POST /api/revisions/:id/reviews': async () => ({ url: `/api/revisions/${(await freshModel()).revisionId}/reviews`, body: { reviewers: [roles.members.reviewer.id] } }),
-  'GET /api/workspaces/:ws/reviews': async () => ({ url: `/api/workspaces/${ws()}/reviews` }),
-  'GET /api/models/:id/reviews': async () => ({ url: `/api/models/${modelId}/reviews` }),
-  'GET /api/reviews/:id': async () => ({ url: `/api/reviews/${reviewId}` }),
-  'POST /api/reviews/:id/verdicts': async () => ({ url: `/api/reviews/${reviewId}/verdicts`, body: { verdict: 'comment', body: 'Looked at the throws.' } }),
-  'POST /api/reviews/:id/checklist': async () => ({ url: `/api/reviews/${reviewId}/checklist`, body: { item: CHECKLIST_IDS[0], ticked: true } }),
-  'POST /api/reviews/:id/comments': async () => ({ url: `/api/reviews/${reviewId}/comments`, body: { body: 'Check the aileron direction.' } }),
-  'GET /api/revisions/:id/comments': async () => ({ url: `/api/revisions/${secondRevisionId}/comments` }),
-
-  'GET /api/workspaces/:ws/receivers': async () => ({ url: `/api/workspaces/${ws()}/receivers` }),
-  'POST /api/workspaces/:ws/receivers': async () => ({ url: `/api/workspaces/${ws()}/receivers`, body: { label: fresh('Shelf unit'), outputs: 8 } }),
-  'GET /api/receivers/:id': async () => ({ url: `/api/receivers/${receiverId}` }),
-  'PATCH /api/receivers/:id': async () => ({ url: `/api/receivers/${receiverId}`, body: { notes: 'Checked on the bench.' } }),
-  'GET /api/receivers/:id/reuse-check': async () => ({ url: `/api/receivers/${receiverId}/reuse-check?model=${modelId}&slot=cabin` }),
-  'POST /api/receivers/:id/install': async () => ({ url: `/api/receivers/${await freshReceiver()}/install`, body: { model: (await freshModel()).id, slot: 'cabin' } }),
-  'POST /api/receivers/:id/remove': async () => ({ url: `/api/receivers/${await installedReceiver()}/remove` }),
-  'POST /api/receivers/:id/apply': async () => ({ url: `/api/receivers/${await installedReceiver()}/apply`, body: {} }),
-  'GET /api/receivers/:id/history': async () => ({ url: `/api/receivers/${receiverId}/history` }),
-};
+let world: SampleWorld;
 
 beforeAll(async () => {
-  roles = await createRoleFixture();
-  for (const role of ['owner', 'editor', 'reviewer', 'viewer'] as const) ownWorkspace[role] = (await createWorkspace({ name: `${role}'s own`, owner: roles.members[role] })).id;
-  ownWorkspace.outsider = roles.otherWorkspace.id;
-  const model = await freshModel();
-  modelId = model.id;
-  firstRevisionId = model.revisionId;
-  secondRevisionId = (await asOwner('post', `/api/models/${modelId}/revisions`, { base: 1, yaml: TRAINER().replace('Meadowlark 40', 'Meadowlark 40 mk2'), message: 'Second' })).body.data.id;
-  receiverId = await freshReceiver();
-  reviewId = (await asOwner('post', `/api/revisions/${secondRevisionId}/reviews`, { reviewers: [roles.members.reviewer.id] })).body.data.id;
-  const exported = await request(t.app)
-    .get(`/api/models/${modelId}/export.git`)
-    .set(await owner().headers())
-    .buffer(true)
-    .parse((res, done) => {
-      const chunks: Buffer[] = [];
-      res.on('data', (chunk: Buffer) => chunks.push(chunk));
-      res.on('end', () => done(null, Buffer.concat(chunks)));
-    })
-    .expect(200);
-  bundle = exported.body as Buffer;
+  world = await buildSampleWorld(t);
 });
 
 function expectedFor(access: Access, caller: Caller): 'success' | 401 | 403 | 404 {
@@ -209,15 +22,6 @@ function expectedFor(access: Access, caller: Caller): 'success' | 401 | 403 | 40
   if (access === 'signed-in') return 'success';
   if (caller === 'outsider') return 404;
   return roleAtLeast(caller, access) ? 'success' : 403;
-}
-
-async function send(method: string, call: Call, caller: Caller): Promise<request.Response> {
-  let test = request(t.app)[method.toLowerCase() as 'get' | 'post' | 'patch' | 'delete'](call.url).set(await headersOf(caller));
-  if (call.upload) {
-    for (const [key, value] of Object.entries(call.upload.fields ?? {})) test = test.field(key, value);
-    return test.attach('file', call.upload.file, { filename: call.upload.name, contentType: call.upload.type });
-  }
-  return call.body === undefined ? test : test.send(call.body);
 }
 
 describe('the route table', () => {
@@ -230,16 +34,16 @@ describe('the route table', () => {
   });
 
   it('has a request sample for every entry, so every route is called below', () => {
-    expect(ROUTE_TABLE.map(routeKey).filter((key) => !SAMPLES[key])).toEqual([]);
+    expect(ROUTE_TABLE.map(routeKey).filter((key) => !world.samples[key])).toEqual([]);
   });
 });
 
 describe.each(ROUTE_TABLE.map((entry) => [routeKey(entry), entry] as const))('%s', (key, entry) => {
   it(`allows ${entry.access} and above, and refuses everyone else`, async () => {
-    const sample = SAMPLES[key];
+    const sample = world.samples[key];
     expect(sample, `no sample for ${key}`).toBeDefined();
     for (const caller of CALLERS) {
-      const response = await send(entry.method, await sample(caller), caller);
+      const response = await world.send(entry.method, await sample(caller), caller);
       const expected = expectedFor(entry.access, caller);
       const what = `${key} as ${caller} answered ${response.status} ${JSON.stringify(response.body?.error ?? '')}`;
       if (expected === 'success') {
