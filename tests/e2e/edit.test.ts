@@ -40,7 +40,7 @@ describe('journey: edit in the text and in the forms, then save', () => {
     await conflict.waitFor();
     expect(await conflict.textContent()).toContain(`line ${elevatorLine}:`);
     await page.getByText('Unsaved changes').waitFor();
-    await saveScreenshot(page, 'journey-03-channel-conflict');
+    await saveScreenshot(page, 'journey-03-channel-conflict', { fullPage: false });
 
     // The finding's link selects its line; typing the right channel back clears it.
     await conflict.click();
@@ -56,7 +56,7 @@ describe('journey: edit in the text and in the forms, then save', () => {
     await page.getByRole('tab', { name: 'Text' }).click();
     await setupText(page).waitFor();
     await checksPanel(page).getByText('The setup passes every check.').waitFor();
-    await saveScreenshot(page, 'journey-03-failsafe-changed');
+    await saveScreenshot(page, 'journey-03-failsafe-changed', { fullPage: false });
 
     await page.getByRole('button', { name: 'Save revision…' }).click();
     const dialog = page.getByRole('dialog', { name: 'Save as revision 2' });
@@ -64,7 +64,7 @@ describe('journey: edit in the text and in the forms, then save', () => {
     await dialog.getByRole('button', { name: 'Save revision' }).click();
     await page.getByRole('region', { name: 'Notifications' }).getByText('Saved revision 2').waitFor();
     await page.getByText('No unsaved changes').waitFor();
-    await saveScreenshot(page, 'journey-03-saved');
+    await saveScreenshot(page, 'journey-03-saved', { fullPage: false });
 
     const history = await api.get<Revision[]>(`/models/${model.id}/revisions`);
     expect(history.map((revision) => revision.number)).toEqual([2, 1]);
@@ -113,7 +113,7 @@ describe('journey: two tabs on one model', () => {
     await refusal.getByText('Weighed after the new retracts: 6350 g', { exact: false }).waitFor();
     await refusal.getByRole('heading', { name: 'Changed meanwhile (revision 1 → 2)', exact: true }).waitFor();
     expect(await refusal.locator('li').filter({ hasText: '6350' }).count()).toBeGreaterThan(0);
-    await saveScreenshot(second, 'journey-04-stale-base');
+    await saveScreenshot(second, 'journey-04-stale-base', { fullPage: false });
 
     const before = await api.get<Revision[]>(`/models/${model.id}/revisions`);
     expect(before.map((revision) => revision.number)).toEqual([2, 1]);
