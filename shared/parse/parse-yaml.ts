@@ -172,6 +172,20 @@ export function parseYaml(text: string): ParsedText {
         document,
       );
     }
+    if (containsItself(data)) {
+      return unreadable(
+        lineCounter,
+        [
+          {
+            message: 'An alias (*name) sits inside the very node its anchor (&name) marks, so the setup would never end; it is not read.',
+            hint: 'Point the alias at a node outside itself, or write the values out.',
+            line: 1,
+            column: 1,
+          },
+        ],
+        document,
+      );
+    }
     return { readable: true, data, document, lineCounter, problems: [] };
   } catch (error) {
     // The yaml package reports problems as errors on the document; anything thrown is
@@ -185,4 +199,15 @@ export function parseYaml(text: string): ParsedText {
       },
     ]);
   }
+}
+
+/** True when a value reaches itself: what an alias inside its own anchor turns into. */
+function containsItself(value: unknown, open = new Set<object>()): boolean {
+  if (value === null || typeof value !== 'object') return false;
+  if (open.has(value)) return true;
+  open.add(value);
+  const children = value instanceof Map ? [...value.values()] : Object.values(value);
+  const circular = children.some((child) => containsItself(child, open));
+  open.delete(value);
+  return circular;
 }

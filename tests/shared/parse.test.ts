@@ -78,6 +78,13 @@ describe('reading the text', () => {
     expect(syntaxOf(`${levels.join('\n')}\n`).message).toContain(`more than ${MAX_ALIAS_COUNT}`);
   });
 
+  it.each([
+    ['a mapping', 'format: bindery-setup/1\nmodel: &m\n  name: x\n  self: *m\n'],
+    ['a list', 'notes: &n [a, *n]\n'],
+  ])('rejects an alias inside its own anchor in %s, which would never end', (_, text) => {
+    expect(syntaxOf(text).message).toContain('never end');
+  });
+
   it('reads the few aliases a person might write', () => {
     const parsed = parseYaml('base: &t { low_us: 1000 }\ncopy: *t\n');
     expect(parsed.readable).toBe(true);
