@@ -48,9 +48,12 @@ function gitEnv(home: string): NodeJS.ProcessEnv {
   };
 }
 
+// A crafted upload (a pack that inflates to gigabytes) must not keep git busy for long.
+const GIT_TIMEOUT_MS = 60_000;
+
 function runGit(args: string[], cwd: string, env: NodeJS.ProcessEnv, input?: string | Buffer): Promise<GitResult> {
   return new Promise((resolve, reject) => {
-    const child = spawn('git', args, { cwd, env, stdio: ['pipe', 'pipe', 'pipe'] });
+    const child = spawn('git', args, { cwd, env, stdio: ['pipe', 'pipe', 'pipe'], timeout: GIT_TIMEOUT_MS, killSignal: 'SIGKILL' });
     const out: Buffer[] = [];
     let stderr = '';
     child.stdout.on('data', (chunk: Buffer) => out.push(chunk));
@@ -58,7 +61,9 @@ function runGit(args: string[], cwd: string, env: NodeJS.ProcessEnv, input?: str
     child.on('error', (error: NodeJS.ErrnoException) =>
       reject(error.code === 'ENOENT' ? new Error('The git command line is needed for history export and import, and it is not installed.') : error),
     );
-    child.on('close', (code) => (code === 0 ? resolve({ stdout: Buffer.concat(out), stderr }) : reject(new GitError(args, code ?? 1, stderr))));
+    child.on('close', (code, signal) =>
+      code === 0 ? resolve({ stdout: Buffer.concat(out), stderr }) : reject(new GitError(args, code ?? 1, signal ? `${stderr}\nstopped by ${signal} after ${GIT_TIMEOUT_MS / 1000} s` : stderr)),
+    );
     // A git that exits early (a bad bundle) closes its input; that is reported by the exit code.
     child.stdin.on('error', () => {});
     child.stdin.end(input);

@@ -104,17 +104,22 @@ function decodeText(buffer: Buffer, commit: string, file: string): string {
   }
 }
 
-export function readHistoryBundle(bundle: Buffer): Promise<ImportedModel[]> {
+/** The models in the bundle; a bundle git cannot read (or takes too long over) is a 422. */
+export async function readHistoryBundle(bundle: Buffer): Promise<ImportedModel[]> {
+  try {
+    return await readWithGit(bundle);
+  } catch (error) {
+    if (error instanceof GitError) throw notABundle(error.stderr.includes('prerequisite') ? 'it needs commits from another repository' : 'git could not read it');
+    throw error;
+  }
+}
+
+function readWithGit(bundle: Buffer): Promise<ImportedModel[]> {
   return withGit(async (git) => {
     const file = path.join(git.dir, 'upload.bundle');
     const repo = path.join(git.dir, 'history.git');
     await writeFile(file, bundle);
-    try {
-      await git.run(['clone', '--quiet', '--bare', '--no-local', file, repo]);
-    } catch (error) {
-      if (error instanceof GitError) throw notABundle(error.stderr.includes('prerequisite') ? 'it needs commits from another repository' : 'git could not read it');
-      throw error;
-    }
+    await git.run(['clone', '--quiet', '--bare', file, repo]);
     const commits = await historyOf(git, repo);
     if (commits.length === 0) throw notABundle('it holds no commits');
     const folders = await modelFolders(git, repo, commits);

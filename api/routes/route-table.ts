@@ -93,7 +93,7 @@ export const ROUTE_TABLE: readonly RouteEntry[] = [
   { method: 'GET', path: '/api/receivers/:id/history', access: 'viewer' },
 ];
 
-export const routeKey = (entry: Pick<RouteEntry, 'method' | 'path'>): string => `${entry.method} ${entry.path}`;
+export const routeKey = (entry: { method: string; path: string }): string => `${entry.method} ${entry.path}`;
 
 interface RouterLayer {
   route?: { path: string; methods: Record<string, boolean> };
