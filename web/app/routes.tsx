@@ -7,16 +7,15 @@ import { WorkspaceScope } from '../features/workspaces/components/workspace-scop
 import { lazyScreen } from './lazy-screen';
 import { RouteErrorScreen } from './routes/route-error';
 
-// The route table: every screen of the app, in one place. A feature's screen replaces
-// its `planned(...)` entry with `lazyScreen(() => import('../features/<feature>/...'), 'XScreen')`;
-// the navigation is drawn from these same lists.
+// The route table: every screen of the app, in one place. A new screen is loaded lazily
+// with `lazyScreen(() => import('../features/<feature>/components/...'), 'XScreen')` and
+// listed in the workspace, model or dev list below; the navigation is drawn from these lists.
 
 const SignInScreen = lazyScreen(() => import('./routes/auth/sign-in'), 'SignInScreen');
 const CreateAccountScreen = lazyScreen(() => import('./routes/auth/create-account'), 'CreateAccountScreen');
 const ResetPasswordScreen = lazyScreen(() => import('./routes/auth/reset-password'), 'ResetPasswordScreen');
 const HomeScreen = lazyScreen(() => import('./routes/home'), 'HomeScreen');
 const NotFoundScreen = lazyScreen(() => import('./routes/not-found'), 'NotFoundScreen');
-const PlannedScreen = lazyScreen(() => import('./routes/planned-screen'), 'PlannedScreen');
 const TeamScreen = lazyScreen(() => import('../features/team/components/team-screen'), 'TeamScreen');
 const InvitationScreen = lazyScreen(() => import('../features/team/components/invitation-screen'), 'InvitationScreen');
 const ResetPasswordConfirmScreen = lazyScreen(() => import('./routes/auth/reset-password-confirm'), 'ResetPasswordConfirmScreen');
@@ -37,10 +36,6 @@ const AccountScreen = lazyScreen(() => import('../features/account/components/ac
 
 interface Screen extends FrameLink {
   element: React.ReactElement;
-}
-
-function planned(path: string, label: string, description: string): Screen {
-  return { path, label, element: <PlannedScreen title={label} description={description} /> };
 }
 
 /** Screens of one workspace, under `/w/:wsId/`. */
