@@ -1,7 +1,7 @@
 import { useEffect, useState } from 'react';
 import { useBlocker, useLocation } from 'react-router-dom';
 import { Button } from '../../../components/ui/button';
-import { Dialog } from '../../models/components/dialog';
+import { Dialog } from '../../../components/ui/dialog';
 
 /**
  * Asks before the pilot leaves the editor with unsaved changes: on a link inside the

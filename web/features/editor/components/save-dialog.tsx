@@ -2,9 +2,9 @@ import { useState } from 'react';
 import type { FindingCounts } from '../../../../shared/findings';
 import { SeverityBadge } from '../../../components/ui/badge';
 import { Button } from '../../../components/ui/button';
+import { Dialog } from '../../../components/ui/dialog';
 import { FormAlert } from '../../../components/ui/form-alert';
 import { TextField } from '../../../components/ui/text-field';
-import { Dialog } from '../../models/components/dialog';
 
 export interface SaveDialogProps {
   base: number;

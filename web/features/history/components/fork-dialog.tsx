@@ -1,8 +1,8 @@
 import { useNavigate } from 'react-router-dom';
 import { Button } from '../../../components/ui/button';
+import { Dialog } from '../../../components/ui/dialog';
 import { FormAlert } from '../../../components/ui/form-alert';
 import { useToast } from '../../../components/ui/toast';
-import { Dialog } from '../../models/components/dialog';
 import { ForkFields, useForkForm } from '../../models/components/fork-fields';
 import type { RevisionSummary, SetupModelView } from '../../models/types';
 

@@ -1,9 +1,9 @@
 import { useState, type FormEvent } from 'react';
 import { Button } from '../../../components/ui/button';
+import { Dialog } from '../../../components/ui/dialog';
 import { FormAlert } from '../../../components/ui/form-alert';
 import { useToast } from '../../../components/ui/toast';
 import { isApiError } from '../../../lib/api-client';
-import { Dialog } from '../../models/components/dialog';
 import type { RevisionSummary, SetupModelView } from '../../models/types';
 import { useRevert } from '../api/revision-actions';
 

@@ -2,6 +2,7 @@ import { useId, useRef, useState, type FormEvent, type ReactNode } from 'react';
 import { useNavigate } from 'react-router-dom';
 import type { Finding } from '../../../../shared/findings';
 import { Button } from '../../../components/ui/button';
+import { Dialog } from '../../../components/ui/dialog';
 import { FormAlert } from '../../../components/ui/form-alert';
 import { TextField } from '../../../components/ui/text-field';
 import { useToast } from '../../../components/ui/toast';
@@ -13,7 +14,6 @@ import type { WorkspaceMembership } from '../../../types/api';
 import { FindingsList } from '../../findings/components/findings-list';
 import { useCreateModel, useUploadModel } from '../api/create-model';
 import type { CreatedModel } from '../types';
-import { Dialog } from './dialog';
 import { ForkFields, useForkForm } from './fork-fields';
 
 type Mode = 'blank' | 'file' | 'fork';

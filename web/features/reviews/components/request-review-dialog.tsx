@@ -1,12 +1,12 @@
 import { useState, type FormEvent } from 'react';
 import { useNavigate } from 'react-router-dom';
 import { Button } from '../../../components/ui/button';
+import { Dialog } from '../../../components/ui/dialog';
 import { FormAlert } from '../../../components/ui/form-alert';
 import { LoadingState } from '../../../components/ui/loading-state';
 import { useToast } from '../../../components/ui/toast';
 import { formErrorsFrom } from '../../../lib/form-errors';
 import { useSession } from '../../auth/hooks/use-session';
-import { Dialog } from '../../models/components/dialog';
 import type { SetupModelView } from '../../models/types';
 import { useMembers } from '../../team/api/get-members';
 import { RoleBadge } from '../../team/components/role-badge';

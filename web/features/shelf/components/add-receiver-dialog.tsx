@@ -1,7 +1,7 @@
 import { useNavigate } from 'react-router-dom';
+import { Dialog } from '../../../components/ui/dialog';
 import { useToast } from '../../../components/ui/toast';
 import type { WorkspaceMembership } from '../../../types/api';
-import { Dialog } from '../../models/components/dialog';
 import { useAddReceiver } from '../api/change-receiver';
 import { ReceiverFieldsForm } from './receiver-fields-form';
 

@@ -1,6 +1,6 @@
 import { useEffect, useId, useRef, type ReactNode } from 'react';
 import { createPortal } from 'react-dom';
-import { CloseIcon } from '../../../components/ui/icons';
+import { CloseIcon } from './icons';
 
 export interface DialogProps {
   title: string;
