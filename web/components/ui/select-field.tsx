@@ -1,7 +1,7 @@
-import { useId, type ReactNode, type Ref, type SelectHTMLAttributes } from 'react';
+import type { ReactNode, Ref, SelectHTMLAttributes } from 'react';
 import { cx } from '../../lib/cx';
-import { FieldError } from './field-error';
 import { ChevronDownIcon } from './icons';
+import { LabelledField } from './labelled-field';
 
 export interface SelectFieldProps extends Omit<SelectHTMLAttributes<HTMLSelectElement>, 'id'> {
   label: string;
@@ -13,30 +13,24 @@ export interface SelectFieldProps extends Omit<SelectHTMLAttributes<HTMLSelectEl
 }
 
 export function SelectField({ label, hideLabel = false, error, className, children, ref, ...props }: SelectFieldProps) {
-  const id = useId();
-  const errorId = error ? `${id}-error` : undefined;
   return (
-    <div className={className}>
-      <label htmlFor={id} className={hideLabel ? 'sr-only' : 'block text-sm font-medium text-ink-900'}>
-        {label}
-      </label>
-      <div className={cx('relative', !hideLabel && 'mt-1.5')}>
-        <select
-          id={id}
-          ref={ref}
-          aria-invalid={error ? true : undefined}
-          aria-describedby={errorId}
-          className={cx(
-            'block h-10 w-full appearance-none rounded-md border bg-paper-raised pr-9 pl-3 text-base text-ink-900',
-            error ? 'border-danger-700 border-2' : 'border-ply-500',
-          )}
-          {...props}
-        >
-          {children}
-        </select>
-        <ChevronDownIcon className="pointer-events-none absolute top-1/2 right-3 -translate-y-1/2 text-ink-700" />
-      </div>
-      {error && errorId && <FieldError id={errorId}>{error}</FieldError>}
-    </div>
+    <LabelledField label={label} hideLabel={hideLabel} error={error} className={className}>
+      {(control) => (
+        <div className={cx('relative', !hideLabel && 'mt-1.5')}>
+          <select
+            {...control}
+            ref={ref}
+            className={cx(
+              'block h-10 w-full appearance-none rounded-md border bg-paper-raised pr-9 pl-3 text-base text-ink-900',
+              error ? 'border-danger-700 border-2' : 'border-ply-500',
+            )}
+            {...props}
+          >
+            {children}
+          </select>
+          <ChevronDownIcon className="pointer-events-none absolute top-1/2 right-3 -translate-y-1/2 text-ink-700" />
+        </div>
+      )}
+    </LabelledField>
   );
 }

@@ -2,6 +2,7 @@ import { useState, type FormEvent } from 'react';
 import { Button } from '../../../components/ui/button';
 import { Dialog } from '../../../components/ui/dialog';
 import { FormAlert } from '../../../components/ui/form-alert';
+import { TextAreaField } from '../../../components/ui/text-area-field';
 import { useToast } from '../../../components/ui/toast';
 import { isApiError } from '../../../lib/api-client';
 import type { RevisionSummary, SetupModelView } from '../../models/types';
@@ -43,20 +44,7 @@ export function RevertDialog({ model, revision, onClose }: { model: SetupModelVi
     >
       <form noValidate onSubmit={submit} className="space-y-4">
         {error && <FormAlert>{error}</FormAlert>}
-        <div>
-          <label htmlFor="revert-message" className="block text-sm font-medium text-ink-900">
-            Message
-          </label>
-          <textarea
-            id="revert-message"
-            value={message}
-            onChange={(event) => setMessage(event.target.value)}
-            rows={3}
-            maxLength={2000}
-            data-autofocus
-            className="mt-1.5 block w-full rounded-md border border-ply-500 bg-paper-raised px-3 py-2 text-base text-ink-900"
-          />
-        </div>
+        <TextAreaField label="Message" value={message} onChange={(event) => setMessage(event.target.value)} maxLength={2000} data-autofocus />
         <div className="flex justify-end gap-2">
           <Button variant="secondary" onClick={onClose}>
             Cancel

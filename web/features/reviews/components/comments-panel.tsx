@@ -3,12 +3,12 @@ import { Badge } from '../../../components/ui/badge';
 import { Button } from '../../../components/ui/button';
 import { Card } from '../../../components/ui/card';
 import { FormAlert } from '../../../components/ui/form-alert';
+import { TextAreaField } from '../../../components/ui/text-area-field';
 import { TextField } from '../../../components/ui/text-field';
 import { formErrorsFrom } from '../../../lib/form-errors';
 import { TimeAgo } from '../../models/components/time-ago';
 import { useAddComment } from '../api/reviews';
 import type { ReviewDetail } from '../types';
-import { TextAreaField } from './text-area-field';
 
 /** Comments on the reviewed revision, anchored ones carried over from earlier revisions included. */
 export function CommentsPanel({ review }: { review: ReviewDetail }) {

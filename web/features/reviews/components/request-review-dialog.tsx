@@ -4,6 +4,7 @@ import { Button } from '../../../components/ui/button';
 import { Dialog } from '../../../components/ui/dialog';
 import { FormAlert } from '../../../components/ui/form-alert';
 import { LoadingState } from '../../../components/ui/loading-state';
+import { TextAreaField } from '../../../components/ui/text-area-field';
 import { useToast } from '../../../components/ui/toast';
 import { formErrorsFrom } from '../../../lib/form-errors';
 import { useSession } from '../../auth/hooks/use-session';
@@ -11,7 +12,6 @@ import type { SetupModelView } from '../../models/types';
 import { useMembers } from '../../team/api/get-members';
 import { RoleBadge } from '../../team/components/role-badge';
 import { useRequestReview } from '../api/reviews';
-import { TextAreaField } from './text-area-field';
 
 const MAY_REVIEW = new Set(['reviewer', 'editor', 'owner']);
 

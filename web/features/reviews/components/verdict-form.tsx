@@ -2,11 +2,11 @@ import { useState, type FormEvent } from 'react';
 import { Button } from '../../../components/ui/button';
 import { Card } from '../../../components/ui/card';
 import { FormAlert } from '../../../components/ui/form-alert';
+import { TextAreaField } from '../../../components/ui/text-area-field';
 import { useToast } from '../../../components/ui/toast';
 import { cx } from '../../../lib/cx';
 import { useGiveVerdict } from '../api/reviews';
 import type { ReviewDetail, Verdict } from '../types';
-import { TextAreaField } from './text-area-field';
 
 const CHOICES: { value: Verdict; label: string; hint: string }[] = [
   { value: 'approve', label: 'Approve', hint: 'Signs off this content for the maiden.' },

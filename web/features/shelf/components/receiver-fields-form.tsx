@@ -3,6 +3,7 @@ import { MARK_COLOURS, type MarkColour } from '../../../../shared/reuse/receiver
 import { Button } from '../../../components/ui/button';
 import { FormAlert } from '../../../components/ui/form-alert';
 import { SelectField } from '../../../components/ui/select-field';
+import { TextAreaField } from '../../../components/ui/text-area-field';
 import { TextField } from '../../../components/ui/text-field';
 import { isApiError } from '../../../lib/api-client';
 
@@ -60,20 +61,7 @@ export function ReceiverFieldsForm({ initial = {}, submitLabel, pending, error, 
         </SelectField>
       </div>
       <TextField label="Outputs" type="number" inputMode="numeric" min={1} max={32} value={outputs} onChange={(event) => setOutputs(event.target.value)} error={fields.outputs} className="max-w-40" />
-      <div>
-        <label htmlFor="receiver-notes" className="block text-sm font-medium text-ink-900">
-          Notes
-        </label>
-        <textarea
-          id="receiver-notes"
-          value={notes}
-          onChange={(event) => setNotes(event.target.value)}
-          rows={3}
-          maxLength={2000}
-          className="mt-1.5 block w-full rounded-md border border-ply-500 bg-paper-raised px-3 py-2 text-base text-ink-900"
-        />
-        {fields.notes && <p className="mt-1.5 text-sm text-danger-700">{fields.notes}</p>}
-      </div>
+      <TextAreaField label="Notes" value={notes} onChange={(event) => setNotes(event.target.value)} error={fields.notes} maxLength={2000} />
       <div className="flex justify-end gap-2 pt-2">
         <Button variant="secondary" onClick={onCancel}>
           Cancel
