@@ -3,8 +3,8 @@ import { Link, useNavigate } from 'react-router-dom';
 import { Button } from '../../../components/ui/button';
 import { FormAlert } from '../../../components/ui/form-alert';
 import { TextField } from '../../../components/ui/text-field';
-import { useFocusFirstInvalid } from '../../../hooks/use-focus-first-invalid';
-import { formErrorsFrom, noFormErrors, type FormErrors } from '../../../lib/form-errors';
+import { useFormErrors } from '../../../hooks/use-form-errors';
+import { formErrorsFrom } from '../../../lib/form-errors';
 import { useSignUp } from '../api/sign-up';
 import { landingPath } from '../landing-path';
 import { PASSWORD_MIN_LENGTH, validateSignUp } from '../validate';
@@ -13,17 +13,10 @@ const FIELDS = ['email', 'name', 'password'] as const;
 
 export function CreateAccountForm() {
   const [values, setValues] = useState({ email: '', name: '', password: '' });
-  const [errors, setErrors] = useState<FormErrors>(noFormErrors);
-  const [attempt, setAttempt] = useState(0);
   const formRef = useRef<HTMLFormElement>(null);
   const navigate = useNavigate();
   const signUp = useSignUp();
-  useFocusFirstInvalid(formRef, attempt);
-
-  const refuse = (next: FormErrors) => {
-    setErrors(next);
-    setAttempt((n) => n + 1);
-  };
+  const { errors, refuse, clear } = useFormErrors(formRef);
 
   const change = (field: (typeof FIELDS)[number]) => (event: { target: { value: string } }) =>
     setValues((current) => ({ ...current, [field]: event.target.value }));
@@ -32,7 +25,7 @@ export function CreateAccountForm() {
     event.preventDefault();
     const local = validateSignUp(values);
     if (Object.keys(local).length > 0) return refuse({ fields: local, general: null });
-    setErrors(noFormErrors);
+    clear();
     signUp.mutate(
       { email: values.email.trim(), name: values.name.trim(), password: values.password },
       {

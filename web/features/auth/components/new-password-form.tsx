@@ -4,8 +4,8 @@ import { Button } from '../../../components/ui/button';
 import { FormAlert } from '../../../components/ui/form-alert';
 import { LoadingState } from '../../../components/ui/loading-state';
 import { TextField } from '../../../components/ui/text-field';
-import { useFocusFirstInvalid } from '../../../hooks/use-focus-first-invalid';
-import { formErrorsFrom, noFormErrors, type FormErrors } from '../../../lib/form-errors';
+import { useFormErrors } from '../../../hooks/use-form-errors';
+import { formErrorsFrom } from '../../../lib/form-errors';
 import { useConfirmPasswordReset, useResetLink } from '../api/confirm-password-reset';
 import { landingPath } from '../landing-path';
 import { PASSWORD_MIN_LENGTH } from '../validate';
@@ -17,12 +17,10 @@ export function NewPasswordForm({ token }: { token: string }) {
   const link = useResetLink(token);
   const [password, setPassword] = useState('');
   const [repeat, setRepeat] = useState('');
-  const [errors, setErrors] = useState<FormErrors>(noFormErrors);
-  const [attempt, setAttempt] = useState(0);
   const formRef = useRef<HTMLFormElement>(null);
   const confirm = useConfirmPasswordReset(token);
   const navigate = useNavigate();
-  useFocusFirstInvalid(formRef, attempt);
+  const { errors, refuse, clear } = useFormErrors(formRef);
 
   if (link.isPending) return <LoadingState label="Checking the link…" />;
   if (link.isError) {
@@ -36,16 +34,11 @@ export function NewPasswordForm({ token }: { token: string }) {
     );
   }
 
-  const refuse = (next: FormErrors) => {
-    setErrors(next);
-    setAttempt((n) => n + 1);
-  };
-
   const onSubmit = (event: FormEvent<HTMLFormElement>) => {
     event.preventDefault();
     if (password.length < PASSWORD_MIN_LENGTH) return refuse({ fields: { password: `Use at least ${PASSWORD_MIN_LENGTH} characters.` }, general: null });
     if (repeat !== password) return refuse({ fields: { repeat: 'The two passwords differ. Type the same one twice.' }, general: null });
-    setErrors(noFormErrors);
+    clear();
     confirm.mutate(password, {
       onSuccess: (session) => navigate(landingPath(session, null), { replace: true }),
       onError: (error) => refuse(formErrorsFrom(error, FIELDS)),

@@ -3,8 +3,8 @@ import { Link } from 'react-router-dom';
 import { Button } from '../../../components/ui/button';
 import { FormAlert } from '../../../components/ui/form-alert';
 import { TextField } from '../../../components/ui/text-field';
-import { useFocusFirstInvalid } from '../../../hooks/use-focus-first-invalid';
-import { formErrorsFrom, noFormErrors, type FormErrors } from '../../../lib/form-errors';
+import { useFormErrors } from '../../../hooks/use-form-errors';
+import { formErrorsFrom } from '../../../lib/form-errors';
 import { useRequestPasswordReset } from '../api/request-password-reset';
 import { validateEmail } from '../validate';
 
@@ -15,24 +15,17 @@ const SENT = 'If an account uses that address, a message with a reset link is on
 
 export function ResetPasswordForm() {
   const [email, setEmail] = useState('');
-  const [errors, setErrors] = useState<FormErrors>(noFormErrors);
   const [answer, setAnswer] = useState<string | null>(null);
-  const [attempt, setAttempt] = useState(0);
   const formRef = useRef<HTMLFormElement>(null);
   const request = useRequestPasswordReset();
-  useFocusFirstInvalid(formRef, attempt);
-
-  const refuse = (next: FormErrors) => {
-    setErrors(next);
-    setAttempt((n) => n + 1);
-  };
+  const { errors, refuse, clear } = useFormErrors(formRef);
 
   const onSubmit = (event: FormEvent<HTMLFormElement>) => {
     event.preventDefault();
     setAnswer(null);
     const problem = validateEmail(email);
     if (problem) return refuse({ fields: { email: problem }, general: null });
-    setErrors(noFormErrors);
+    clear();
     request.mutate(
       { email: email.trim() },
       {

@@ -3,8 +3,8 @@ import { Link, useNavigate, useSearchParams } from 'react-router-dom';
 import { Button } from '../../../components/ui/button';
 import { FormAlert } from '../../../components/ui/form-alert';
 import { TextField } from '../../../components/ui/text-field';
-import { useFocusFirstInvalid } from '../../../hooks/use-focus-first-invalid';
-import { formErrorsFrom, noFormErrors, type FormErrors } from '../../../lib/form-errors';
+import { useFormErrors } from '../../../hooks/use-form-errors';
+import { formErrorsFrom } from '../../../lib/form-errors';
 import { useSignIn } from '../api/sign-in';
 import { landingPath } from '../landing-path';
 import { validateSignIn } from '../validate';
@@ -14,24 +14,17 @@ const FIELDS = ['email', 'password'] as const;
 export function SignInForm() {
   const [email, setEmail] = useState('');
   const [password, setPassword] = useState('');
-  const [errors, setErrors] = useState<FormErrors>(noFormErrors);
-  const [attempt, setAttempt] = useState(0);
   const formRef = useRef<HTMLFormElement>(null);
   const navigate = useNavigate();
   const [params] = useSearchParams();
   const signIn = useSignIn();
-  useFocusFirstInvalid(formRef, attempt);
-
-  const refuse = (next: FormErrors) => {
-    setErrors(next);
-    setAttempt((n) => n + 1);
-  };
+  const { errors, refuse, clear } = useFormErrors(formRef);
 
   const onSubmit = (event: FormEvent<HTMLFormElement>) => {
     event.preventDefault();
     const local = validateSignIn({ email, password });
     if (Object.keys(local).length > 0) return refuse({ fields: local, general: null });
-    setErrors(noFormErrors);
+    clear();
     signIn.mutate(
       { email: email.trim(), password },
       {

@@ -5,9 +5,9 @@ import { Button, buttonClasses } from '../../../components/ui/button';
 import { FormAlert } from '../../../components/ui/form-alert';
 import { LoadingState } from '../../../components/ui/loading-state';
 import { TextField } from '../../../components/ui/text-field';
-import { useFocusFirstInvalid } from '../../../hooks/use-focus-first-invalid';
+import { useFormErrors } from '../../../hooks/use-form-errors';
 import { isApiError, isUnauthorized } from '../../../lib/api-client';
-import { formErrorsFrom, noFormErrors, type FormErrors } from '../../../lib/form-errors';
+import { formErrorsFrom } from '../../../lib/form-errors';
 import type { Session } from '../../../types/api';
 import { useMe } from '../../auth/api/get-me';
 import { PASSWORD_MIN_LENGTH } from '../../auth/validate';
@@ -108,15 +108,8 @@ const FIELDS = ['name', 'password'] as const;
 
 function NewAccountForm({ accept, token, preview }: { accept: Accept; token: string; preview: InvitationPreview }) {
   const [values, setValues] = useState({ name: '', password: '' });
-  const [errors, setErrors] = useState<FormErrors>(noFormErrors);
-  const [attempt, setAttempt] = useState(0);
   const formRef = useRef<HTMLFormElement>(null);
-  useFocusFirstInvalid(formRef, attempt);
-
-  const refuse = (next: FormErrors) => {
-    setErrors(next);
-    setAttempt((n) => n + 1);
-  };
+  const { errors, refuse, clear } = useFormErrors(formRef);
 
   const onSubmit = (event: FormEvent<HTMLFormElement>) => {
     event.preventDefault();
@@ -124,7 +117,7 @@ function NewAccountForm({ accept, token, preview }: { accept: Accept; token: str
     if (!values.name.trim()) local.name = 'Enter the name your club mates know you by.';
     if (values.password.length < PASSWORD_MIN_LENGTH) local.password = `Use at least ${PASSWORD_MIN_LENGTH} characters.`;
     if (Object.keys(local).length > 0) return refuse({ fields: local, general: null });
-    setErrors(noFormErrors);
+    clear();
     accept.mutate(
       { name: values.name.trim(), password: values.password },
       { onError: (error) => refuse(isApiError(error) && error.code === 'account-exists' ? { fields: {}, general: error.message } : formErrorsFrom(error, FIELDS)) },

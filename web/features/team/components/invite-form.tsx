@@ -4,8 +4,8 @@ import { Card } from '../../../components/ui/card';
 import { FormAlert } from '../../../components/ui/form-alert';
 import { SelectField } from '../../../components/ui/select-field';
 import { TextField } from '../../../components/ui/text-field';
-import { useFocusFirstInvalid } from '../../../hooks/use-focus-first-invalid';
-import { formErrorsFrom, noFormErrors, type FormErrors } from '../../../lib/form-errors';
+import { useFormErrors } from '../../../hooks/use-form-errors';
+import { formErrorsFrom } from '../../../lib/form-errors';
 import type { Id, Role } from '../../../types/api';
 import { validateEmail } from '../../auth/validate';
 import { useInviteMember } from '../api/invitations';
@@ -16,24 +16,17 @@ const FIELDS = ['email', 'role'] as const;
 export function InviteForm({ workspaceId }: { workspaceId: Id }) {
   const [email, setEmail] = useState('');
   const [role, setRole] = useState<Role>('reviewer');
-  const [errors, setErrors] = useState<FormErrors>(noFormErrors);
   const [sent, setSent] = useState<string | null>(null);
-  const [attempt, setAttempt] = useState(0);
   const formRef = useRef<HTMLFormElement>(null);
   const invite = useInviteMember(workspaceId);
-  useFocusFirstInvalid(formRef, attempt);
-
-  const refuse = (next: FormErrors) => {
-    setErrors(next);
-    setAttempt((n) => n + 1);
-  };
+  const { errors, refuse, clear } = useFormErrors(formRef);
 
   const onSubmit = (event: FormEvent<HTMLFormElement>) => {
     event.preventDefault();
     setSent(null);
     const problem = validateEmail(email);
     if (problem) return refuse({ fields: { email: problem.replace('your ', 'an ') }, general: null });
-    setErrors(noFormErrors);
+    clear();
     invite.mutate(
       { email: email.trim(), role },
       {
