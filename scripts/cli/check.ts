@@ -1,5 +1,5 @@
-import { parseArgs } from 'node:util';
 import { analyzeSetup } from '../../shared/analyze';
+import { findingLine, readCommandLine } from './command-line';
 import { failUnreadable, readSetupFile } from './read-setup-file';
 
 // `npm run --silent check -- FILE [--json]` (FORMAT.md, "Command line"): the findings.
@@ -12,18 +12,11 @@ function plural(count: number, word: string): string {
 }
 
 function main(argv: string[]): number {
-  let json = argv.includes('--json');
-  let files: string[];
-  try {
-    const parsed = parseArgs({ args: argv, options: { json: { type: 'boolean' } }, allowPositionals: true, strict: true });
-    json = parsed.values.json ?? false;
-    files = parsed.positionals;
-  } catch (error) {
-    return failUnreadable(json, `${(error as Error).message}\n${USAGE}`);
-  }
-  if (files.length !== 1) return failUnreadable(json, `expected one file, got ${files.length}\n${USAGE}`);
+  const args = readCommandLine(argv, { usage: USAGE, files: 1 });
+  if (!args.ok) return args.exitCode;
+  const { json } = args;
 
-  const file = readSetupFile(files[0]);
+  const file = readSetupFile(args.files[0]);
   if (!file.ok) return failUnreadable(json, file.message);
 
   const { findings, counts } = analyzeSetup(file.text);
@@ -31,7 +24,7 @@ function main(argv: string[]): number {
     const out = findings.map(({ rule, severity, message, hint, path, line, column }) => ({ rule, severity, message, hint, path, line, column }));
     process.stdout.write(`${JSON.stringify({ findings: out, errors: counts.errors, warnings: counts.warnings, infos: counts.infos })}\n`);
   } else {
-    const lines = findings.map((f) => `${f.line}:${f.column}  ${f.severity}  ${f.rule}  ${f.message}`);
+    const lines = findings.map(findingLine);
     lines.push(
       `${file.file}: ${plural(counts.errors, 'error')}, ${plural(counts.warnings, 'warning')}, ${plural(counts.infos, 'info')}`,
     );

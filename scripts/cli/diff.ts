@@ -1,7 +1,7 @@
-import { parseArgs } from 'node:util';
 import { analyzeSetup } from '../../shared/analyze';
 import { diffSetups } from '../../shared/diff';
 import { CHANGE_KINDS } from '../../shared/diff/types';
+import { readCommandLine } from './command-line';
 import { failUnreadable, readSetupFile } from './read-setup-file';
 
 // `npm run --silent diff -- OLD NEW [--json]` (FORMAT.md, "Command line"): what changed
@@ -22,16 +22,9 @@ function readSetup(path: string): Read {
 }
 
 function main(argv: string[]): number {
-  let json = argv.includes('--json');
-  let files: string[];
-  try {
-    const parsed = parseArgs({ args: argv, options: { json: { type: 'boolean' } }, allowPositionals: true, strict: true });
-    json = parsed.values.json ?? false;
-    files = parsed.positionals;
-  } catch (error) {
-    return failUnreadable(json, `${(error as Error).message}\n${USAGE}`);
-  }
-  if (files.length !== 2) return failUnreadable(json, `expected two files, got ${files.length}\n${USAGE}`);
+  const args = readCommandLine(argv, { usage: USAGE, files: 2 });
+  if (!args.ok) return args.exitCode;
+  const { json, files } = args;
 
   const before = readSetup(files[0]);
   if (!before.ok) return failUnreadable(json, before.message);

@@ -1,7 +1,7 @@
-import { parseArgs } from 'node:util';
 import { analyzeSetup } from '../../shared/analyze';
 import { evaluate, type Outputs } from '../../shared/evaluate/evaluate';
 import type { Setup } from '../../shared/format/schema';
+import { findingLine, readCommandLine } from './command-line';
 import { failUnreadable, readSetupFile } from './read-setup-file';
 
 // `npm run --silent outputs -- FILE [--set CONTROL=VALUE ...] [--json]` (FORMAT.md,
@@ -63,25 +63,11 @@ function humanOutputs(outputs: Outputs): string {
 }
 
 function main(argv: string[]): number {
-  let json = argv.includes('--json');
-  let files: string[];
-  let sets: string[];
-  try {
-    const parsed = parseArgs({
-      args: argv,
-      options: { json: { type: 'boolean' }, set: { type: 'string', multiple: true } },
-      allowPositionals: true,
-      strict: true,
-    });
-    json = parsed.values.json ?? false;
-    files = parsed.positionals;
-    sets = parsed.values.set ?? [];
-  } catch (error) {
-    return failUnreadable(json, `${(error as Error).message}\n${USAGE}`);
-  }
-  if (files.length !== 1) return failUnreadable(json, `expected one file, got ${files.length}\n${USAGE}`);
+  const args = readCommandLine(argv, { usage: USAGE, files: 1, takesSet: true });
+  if (!args.ok) return args.exitCode;
+  const { json, sets } = args;
 
-  const file = readSetupFile(files[0]);
+  const file = readSetupFile(args.files[0]);
   if (!file.ok) return failUnreadable(json, file.message);
 
   const analysis = analyzeSetup(file.text);
@@ -90,7 +76,7 @@ function main(argv: string[]): number {
     const message = `${file.file}: the setup has ${analysis.readable ? 'schema' : 'syntax'} errors and cannot be evaluated`;
     if (json) process.stdout.write(`${JSON.stringify({ error: { message }, findings: analysis.findings })}\n`);
     else {
-      const lines = analysis.findings.filter((f) => f.severity === 'error').map((f) => `${f.line}:${f.column}  ${f.severity}  ${f.rule}  ${f.message}`);
+      const lines = analysis.findings.filter((f) => f.severity === 'error').map(findingLine);
       process.stderr.write(`${[...lines, message].join('\n')}\n`);
     }
     return 1;

@@ -1,0 +1,37 @@
+import { parseArgs } from 'node:util';
+import type { Finding } from '../../shared/findings';
+import { failUnreadable } from './read-setup-file';
+
+// The arguments every command-line tool takes (FORMAT.md, "Command line"): its files,
+// --json, and for the bench view --set CONTROL=VALUE; anything else is exit 2 with the usage.
+
+export type CommandLine = { ok: true; json: boolean; files: string[]; sets: string[] } | { ok: false; exitCode: 2 };
+
+const COUNT_WORDS: Record<number, string> = { 1: 'one file', 2: 'two files' };
+
+export function readCommandLine(argv: string[], { usage, files: count, takesSet = false }: { usage: string; files: 1 | 2; takesSet?: boolean }): CommandLine {
+  // Known before parsing, so that even refused arguments are answered in JSON when asked.
+  let json = argv.includes('--json');
+  let files: string[];
+  let sets: string[];
+  try {
+    const parsed = parseArgs({
+      args: argv,
+      options: takesSet ? { json: { type: 'boolean' }, set: { type: 'string', multiple: true } } : { json: { type: 'boolean' } },
+      allowPositionals: true,
+      strict: true,
+    });
+    json = parsed.values.json === true;
+    files = parsed.positionals;
+    sets = (parsed.values as { set?: string[] }).set ?? [];
+  } catch (error) {
+    return { ok: false, exitCode: failUnreadable(json, `${(error as Error).message}\n${usage}`) };
+  }
+  if (files.length !== count) return { ok: false, exitCode: failUnreadable(json, `expected ${COUNT_WORDS[count]}, got ${files.length}\n${usage}`) };
+  return { ok: true, json, files, sets };
+}
+
+/** One finding as a line of the human output: where, how bad, which check, what. */
+export function findingLine(finding: Pick<Finding, 'line' | 'column' | 'severity' | 'rule' | 'message'>): string {
+  return `${finding.line}:${finding.column}  ${finding.severity}  ${finding.rule}  ${finding.message}`;
+}
