@@ -5,6 +5,7 @@ import { EmptyState } from '../../../components/ui/empty-state';
 import { ErrorState } from '../../../components/ui/error-state';
 import { LoadingState } from '../../../components/ui/loading-state';
 import { PageHeader } from '../../../components/ui/page-header';
+import { TextField } from '../../../components/ui/text-field';
 import { useCurrentWorkspace } from '../../workspaces/hooks/use-current-workspace';
 import { useHangar } from '../api/list-models';
 import { canEdit } from '../permissions';
@@ -74,19 +75,14 @@ export function HangarScreen() {
       ) : (
         <>
           <div className="mb-4 flex flex-wrap items-end gap-3">
-            <div className="w-full max-w-sm">
-              <label htmlFor="hangar-search" className="block text-sm font-medium text-ink-900">
-                Search models
-              </label>
-              <input
-                id="hangar-search"
-                type="search"
-                value={query}
-                onChange={(event) => update({ q: event.target.value || null })}
-                placeholder="Name, airframe or author"
-                className="mt-1.5 block h-10 w-full rounded-md border border-ply-500 bg-paper-raised px-3 text-base text-ink-900 placeholder:text-ink-500"
-              />
-            </div>
+            <TextField
+              label="Search models"
+              type="search"
+              value={query}
+              onChange={(event) => update({ q: event.target.value || null })}
+              placeholder="Name, airframe or author"
+              className="w-full max-w-sm"
+            />
             <p className="pb-2 text-sm text-ink-700" aria-live="polite">
               {query ? `${shown.length} of ${hangar.data.models.length} models` : `${hangar.data.models.length} ${hangar.data.models.length === 1 ? 'model' : 'models'}`}
             </p>

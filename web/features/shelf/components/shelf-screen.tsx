@@ -5,6 +5,7 @@ import { EmptyState } from '../../../components/ui/empty-state';
 import { ErrorState } from '../../../components/ui/error-state';
 import { LoadingState } from '../../../components/ui/loading-state';
 import { PageHeader } from '../../../components/ui/page-header';
+import { TextField } from '../../../components/ui/text-field';
 import { cx } from '../../../lib/cx';
 import { canEdit } from '../../models/permissions';
 import { useCurrentWorkspace } from '../../workspaces/hooks/use-current-workspace';
@@ -65,19 +66,14 @@ export function ShelfScreen() {
       {adding && <AddReceiverDialog workspace={inUrl} onClose={() => setAdding(false)} />}
 
       <div className="mb-4 flex flex-wrap items-end gap-x-4 gap-y-3">
-        <div className="w-full max-w-sm">
-          <label htmlFor="shelf-search" className="block text-sm font-medium text-ink-900">
-            Search receivers
-          </label>
-          <input
-            id="shelf-search"
-            type="search"
-            value={query}
-            onChange={(event) => update({ q: event.target.value || null })}
-            placeholder="Label, mark or notes"
-            className="mt-1.5 block h-10 w-full rounded-md border border-ply-500 bg-paper-raised px-3 text-base text-ink-900 placeholder:text-ink-500"
-          />
-        </div>
+        <TextField
+          label="Search receivers"
+          type="search"
+          value={query}
+          onChange={(event) => update({ q: event.target.value || null })}
+          placeholder="Label, mark or notes"
+          className="w-full max-w-sm"
+        />
         <fieldset>
           <legend className="text-sm font-medium text-ink-900">Show</legend>
           <div className="mt-1.5 inline-flex rounded-md border border-ply-500 bg-paper-raised p-0.5">
