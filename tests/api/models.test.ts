@@ -243,6 +243,27 @@ describe('GET /api/workspaces/:ws/audit', () => {
     const created = body.data.find((event: { action: string }) => event.action === 'model.created');
     expect(created).toMatchObject({ actor: { id: user.id, name: 'Auditor' }, subject: { type: 'model', id: model.id }, details: { name: 'Audited model', origin: 'create' } });
     expect(body.pagination).toEqual({ limit: 50, offset: 0, total: 7 });
+    const copy = body.data.find((event: { action: string }) => event.action === 'model.forked').subject.id;
+    const modelOf = Object.fromEntries(body.data.map((event: { action: string; model: unknown }) => [event.action, event.model]));
+    for (const action of ['model.created', 'revision.saved', 'revision.reverted', 'revision.uploaded', 'tag.added', 'tag.removed']) {
+      expect(modelOf[action]).toEqual({ id: model.id, name: 'Audited model' });
+    }
+    expect(modelOf['model.forked']).toEqual({ id: copy, name: 'Copy' });
+  });
+
+  it('names the model of an event by its subject, as the model is called now, also for events whose details do not name it', async () => {
+    const user = await createUser({ name: 'Keeper' });
+    const workspace = await createWorkspace({ name: 'Old trail', owner: user });
+    const me = clientFor(t.app, t.config, user);
+    const { model, revision } = await createModelVia(me, workspace.id, { name: 'Before', yaml: TRAINER() });
+    await AuditEvent.create({ workspaceId: workspace.id, actorId: user.id, action: 'revision.saved', subjectType: 'revision', subjectId: revision.id, details: { number: 1 } });
+    await me.patch(`/api/models/${model.id}`, { name: 'After' }).expect(200);
+    await AuditEvent.create({ workspaceId: workspace.id, actorId: user.id, action: 'member.left', subjectType: 'member', subjectId: user.id, details: {} });
+
+    const events: { action: string; model: unknown }[] = (await me.get(`/api/workspaces/${workspace.id}/audit`).expect(200)).body.data;
+    expect(events.find((event) => event.action === 'revision.saved')!.model).toEqual({ id: model.id, name: 'After' });
+    expect(events.find((event) => event.action === 'model.renamed')!.model).toEqual({ id: model.id, name: 'After' });
+    expect(events.find((event) => event.action === 'member.left')!.model).toBeNull();
   });
 
   it('is for owners only', async () => {

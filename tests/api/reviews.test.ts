@@ -67,6 +67,8 @@ describe('asking for a review', () => {
     expect(await modelState(modelId)).toEqual(expect.objectContaining({ review_state: 'pending', cleared_for_maiden: false }));
     const event = await AuditEvent.findOne({ where: { workspaceId: workspace.id, action: 'review.requested' } });
     expect(event?.details).toMatchObject({ model_name: 'Kestrel', number: 1, reviewers: [{ name: 'Ines Greylag' }, { name: 'Ravi Shoveler' }] });
+    const trail: { action: string; model: unknown }[] = (await owner.get(`/api/workspaces/${workspace.id}/audit`).expect(200)).body.data;
+    expect(trail.find((entry) => entry.action === 'review.requested')!.model).toEqual({ id: modelId, name: 'Kestrel' });
   });
 
   it('refuses reviewers below the reviewer role, outsiders, the author, repeats and a second open review', async () => {
