@@ -111,6 +111,46 @@ describe('Team, as an owner', () => {
   });
 });
 
+describe('Team activity', () => {
+  it('names the model of each save and pages twenty events at a time, older ones on asking', async () => {
+    const kestrel = { id: 'b7e2c4a1-0d3f-4e58-9a61-c2f4e8d0a513', name: 'Kestrel Mk II' };
+    // 45 saves, newest first: revision 45 down to revision 1.
+    const trail = Array.from({ length: 45 }, (_, index) => ({
+      id: `e${45 - index}`,
+      action: 'revision.saved',
+      actor: { id: demoUser.id, name: 'Wren Calloway' },
+      subject: { type: 'revision', id: `r${45 - index}` },
+      model: kestrel,
+      details: { model_id: kestrel.id, number: 45 - index },
+      created_at: new Date(Date.now() - index * 60_000).toISOString(),
+    }));
+    const { routes } = teamRoutes({
+      [`GET /api/workspaces/${CLUB}/audit`]: (request) => {
+        const limit = Number(request.url.searchParams.get('limit'));
+        const offset = Number(request.url.searchParams.get('offset'));
+        return { body: { data: trail.slice(offset, offset + limit), pagination: { limit, offset, total: trail.length } } };
+      },
+    });
+    const server = fakeServer(routes);
+    const { user } = renderApp(`/w/${CLUB}/team`);
+
+    const list = await screen.findByRole('list', { name: 'Activity in this workspace' });
+    const items = () => within(list).getAllByRole('listitem');
+    expect(items()).toHaveLength(20);
+    expect(items()[0]).toHaveTextContent('Kestrel Mk II: Wren Calloway saved revision 45');
+    expect(screen.getByText('The newest 20 of 45 events.')).toBeInTheDocument();
+
+    await user.click(screen.getByRole('button', { name: 'Show older activity' }));
+    await waitFor(() => expect(items()).toHaveLength(40));
+    await user.click(screen.getByRole('button', { name: 'Show older activity' }));
+    await waitFor(() => expect(items()).toHaveLength(45));
+    expect(items()[44]).toHaveTextContent('Kestrel Mk II: Wren Calloway saved revision 1');
+    expect(screen.queryByRole('button', { name: 'Show older activity' })).not.toBeInTheDocument();
+    const offsets = server.called('GET', `/api/workspaces/${CLUB}/audit`).map((request) => request.url.searchParams.get('offset'));
+    expect([...new Set(offsets)]).toEqual(['0', '20', '40']);
+  });
+});
+
 describe('Team, as a reviewer', () => {
   it('shows roles as words, no invite form and no activity, and offers to leave', async () => {
     const server = fakeServer({

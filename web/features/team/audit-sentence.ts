@@ -2,6 +2,8 @@ import type { Id } from '../../types/api';
 import type { AuditEvent } from './types';
 
 export interface AuditLine {
+  /** The model a save, tag or review was about, to stand before the line: "Kestrel Mk II". */
+  model: string | null;
   /** What the actor did, to follow their name: "invited juno@example.org as a reviewer". */
   text: string;
   /** Where the record it is about can be seen, when there is such a place. */
@@ -21,12 +23,22 @@ function names(value: unknown): string {
 
 const VERDICTS: Record<string, string> = { approve: 'approved', 'request-changes': 'asked for changes to', comment: 'commented on' };
 
-/** One audit event in plain words, with a link to what it concerns. */
+// Events about a model's revisions, tags and reviews say which model; a model's own
+// events name it in their words already.
+const NAMES_ITS_MODEL = /^(revision|tag|review)\./;
+
+/** One audit event in plain words, with the model it was about and a link to what it concerns. */
 export function auditLine(event: AuditEvent, workspaceId: Id): AuditLine {
+  const words = describe(event, workspaceId);
+  const model = NAMES_ITS_MODEL.test(event.action) ? event.model?.name ?? (str(event.details.model_name) || null) : null;
+  return { model, ...words };
+}
+
+function describe(event: AuditEvent, workspaceId: Id): Omit<AuditLine, 'model'> {
   const d = event.details;
+  const modelId = event.model?.id ?? d.model_id;
   const model = (id: unknown, screen: string) => (typeof id === 'string' && id ? { to: `/models/${id}/${screen}`, label: 'Open the model' } : null);
   const review = event.subject.id ? { to: `/w/${workspaceId}/reviews/${event.subject.id}`, label: 'Open the review' } : null;
-  const ofModel = d.model_name ? ` of ${quoted(d.model_name)}` : '';
   const receiver = event.subject.id ? { to: `/w/${workspaceId}/shelf/${event.subject.id}`, label: 'Open the receiver' } : null;
 
   switch (event.action) {
@@ -40,14 +52,14 @@ export function auditLine(event: AuditEvent, workspaceId: Id): AuditLine {
     case 'revision.uploaded': {
       const errors = typeof d.errors === 'number' && d.errors > 0 ? ` (${d.errors} ${d.errors === 1 ? 'error' : 'errors'})` : '';
       const how = event.action === 'revision.uploaded' ? 'uploaded' : 'saved';
-      return { text: `${how} revision ${str(d.number)}${errors}`, link: model(d.model_id, 'history') };
+      return { text: `${how} revision ${str(d.number)}${errors}`, link: model(modelId, 'history') };
     }
     case 'revision.reverted':
-      return { text: `brought back revision ${str(d.reverted_to)} as revision ${str(d.number)}`, link: model(d.model_id, 'history') };
+      return { text: `brought back revision ${str(d.reverted_to)} as revision ${str(d.number)}`, link: model(modelId, 'history') };
     case 'tag.added':
-      return { text: `tagged revision ${str(d.number)} ${quoted(d.name)}`, link: model(d.model_id, 'history') };
+      return { text: `tagged revision ${str(d.number)} ${quoted(d.name)}`, link: model(modelId, 'history') };
     case 'tag.removed':
-      return { text: `removed the tag ${quoted(d.name)}`, link: model(d.model_id, 'history') };
+      return { text: `removed the tag ${quoted(d.name)}`, link: model(modelId, 'history') };
     case 'member.invited':
       return { text: `invited ${str(d.email)} as ${article(d.role)}`, link: null };
     case 'invitation.revoked':
@@ -61,11 +73,11 @@ export function auditLine(event: AuditEvent, workspaceId: Id): AuditLine {
     case 'member.left':
       return { text: 'left the workspace', link: null };
     case 'review.requested':
-      return { text: `asked ${names(d.reviewers)} to review revision ${str(d.number)}${ofModel}`, link: review };
+      return { text: `asked ${names(d.reviewers)} to review revision ${str(d.number)}`, link: review };
     case 'review.verdict':
-      return { text: `${VERDICTS[str(d.verdict)] ?? 'gave a verdict on'} revision ${str(d.number)}${ofModel}`, link: review };
+      return { text: `${VERDICTS[str(d.verdict)] ?? 'gave a verdict on'} revision ${str(d.number)}`, link: review };
     case 'review.commented':
-      return { text: `commented${d.path ? ` on ${str(d.path)}` : ''} in the review of revision ${str(d.number)}${ofModel}`, link: review };
+      return { text: `commented${d.path ? ` on ${str(d.path)}` : ''} in the review of revision ${str(d.number)}`, link: review };
     case 'receiver.added':
       return { text: `put the receiver ${quoted(d.label)} on the shelf`, link: receiver };
     case 'receiver.updated':

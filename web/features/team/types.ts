@@ -32,6 +32,8 @@ export interface AuditEvent {
   action: string;
   actor: { id: Id; name: string } | null;
   subject: { type: string; id: Id | null };
+  /** The model the event is about, by its current name; null for team and shelf events. */
+  model: { id: Id; name: string } | null;
   details: Record<string, unknown>;
   created_at: string;
 }

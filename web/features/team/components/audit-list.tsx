@@ -1,4 +1,3 @@
-import { useState } from 'react';
 import { Link } from 'react-router-dom';
 import { Button } from '../../../components/ui/button';
 import { Card } from '../../../components/ui/card';
@@ -6,15 +5,14 @@ import { ErrorState } from '../../../components/ui/error-state';
 import { LoadingState } from '../../../components/ui/loading-state';
 import type { Id } from '../../../types/api';
 import { TimeAgo } from '../../models/components/time-ago';
-import { useAudit } from '../api/get-audit';
+import { auditEventsOf, useAudit } from '../api/get-audit';
 import { auditLine } from '../audit-sentence';
 
-/** The workspace's audit trail, newest first: shown to owners. */
-const PAGE = 20;
-
+/** The workspace's audit trail, newest first, twenty events at a time: shown to owners. */
 export function AuditList({ workspaceId }: { workspaceId: Id }) {
-  const [limit, setLimit] = useState(PAGE);
-  const audit = useAudit(workspaceId, limit, true);
+  const audit = useAudit(workspaceId);
+  const events = auditEventsOf(audit.data?.pages);
+  const total = audit.data?.pages.at(-1)?.total ?? events.length;
 
   return (
     <Card className="p-5">
@@ -22,20 +20,21 @@ export function AuditList({ workspaceId }: { workspaceId: Id }) {
       <p className="mt-0.5 text-sm text-ink-700">Who saved, reverted, forked, invited, changed a role, asked for a review or gave a verdict, and when.</p>
       {audit.isPending ? (
         <LoadingState label="Loading the activity…" />
-      ) : audit.isError ? (
+      ) : audit.isError && events.length === 0 ? (
         <div className="mt-3">
           <ErrorState title="The activity could not be loaded" error={audit.error} onRetry={() => void audit.refetch()} />
         </div>
-      ) : audit.data.events.length === 0 ? (
+      ) : events.length === 0 ? (
         <p className="mt-3 text-sm text-ink-700">Nothing has happened in this workspace yet.</p>
       ) : (
         <>
           <ol className="mt-3 divide-y divide-ply-100" aria-label="Activity in this workspace">
-            {audit.data.events.map((event) => {
+            {events.map((event) => {
               const line = auditLine(event, workspaceId);
               return (
                 <li key={event.id} className="flex flex-wrap items-baseline gap-x-2 gap-y-0.5 py-2.5 text-base">
                   <span className="min-w-0 flex-1">
+                    {line.model && <span className="font-medium text-ink-900">{line.model}: </span>}
                     <span className="font-medium text-ink-900">{event.actor?.name ?? 'Someone'}</span> <span className="text-ink-700">{line.text}</span>
                     {line.link && (
                       <>
@@ -51,13 +50,14 @@ export function AuditList({ workspaceId }: { workspaceId: Id }) {
               );
             })}
           </ol>
-          {audit.data.total > audit.data.events.length && (
+          {audit.isFetchNextPageError && <ErrorState title="Older activity could not be loaded" error={audit.error} onRetry={() => void audit.fetchNextPage()} />}
+          {audit.hasNextPage && (
             <div className="mt-3 flex flex-wrap items-center gap-3">
-              <Button variant="secondary" size="sm" pending={audit.isFetching} onClick={() => setLimit((current) => Math.min(current + PAGE * 2, 200))} disabled={limit >= 200}>
+              <Button variant="secondary" size="sm" pending={audit.isFetchingNextPage} onClick={() => void audit.fetchNextPage()}>
                 Show older activity
               </Button>
               <span className="text-sm text-ink-700">
-                The newest {audit.data.events.length} of {audit.data.total} events.
+                The newest {events.length} of {total} events.
               </span>
             </div>
           )}
