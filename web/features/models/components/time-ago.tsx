@@ -1,9 +1,16 @@
-import { exactTime, timeAgo } from '../format-time';
+import { exactTime, isRecent, timeAgo } from '../format-time';
 
-export function TimeAgo({ iso, className }: { iso: string; className?: string }) {
+/**
+ * A time as lists show it (format-time.ts), the exact moment in its tooltip. In running
+ * prose (`inSentence`) a date reads "on 14 Mar 2025"; "3 days ago" needs no "on".
+ */
+export function TimeAgo({ iso, className, inSentence = false }: { iso: string; className?: string; inSentence?: boolean }) {
   return (
-    <time dateTime={iso} title={exactTime(iso)} className={className}>
-      {timeAgo(iso)}
-    </time>
+    <>
+      {inSentence && !isRecent(iso) && 'on '}
+      <time dateTime={iso} title={exactTime(iso)} className={className}>
+        {timeAgo(iso)}
+      </time>
+    </>
   );
 }

@@ -48,7 +48,7 @@ function ReviewPage({ review }: { review: ReviewDetail }) {
         documentTitle={`Review · ${title}`}
         description={
           <>
-            {review.requested_by?.name ?? 'A former member'} asked {review.reviewers.map((reviewer) => reviewer.name).join(', ')} to review it <TimeAgo iso={review.created_at} />.
+            {review.requested_by?.name ?? 'A former member'} asked {review.reviewers.map((reviewer) => reviewer.name).join(', ')} to review it <TimeAgo iso={review.created_at} inSentence />.
           </>
         }
         actions={
