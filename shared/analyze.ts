@@ -1,7 +1,9 @@
+import { LineCounter } from 'yaml';
 import { countFindings, type Finding, type FindingCounts } from './findings';
 import type { Setup } from './format/schema';
 import { runChecks } from './checks/run-checks';
-import { parseYaml } from './parse/parse-yaml';
+import { readSetupFast } from './parse/fast-read';
+import { parseYaml, sizeProblem } from './parse/parse-yaml';
 
 export interface Analysis {
   /** False only when the YAML cannot be parsed at all or its root is not a mapping. */
@@ -15,9 +17,30 @@ export interface Analysis {
   counts: FindingCounts;
 }
 
-/** Reads, validates and checks setup text. Pure, never throws, bounded in time. */
-export function analyzeSetup(text: string): Analysis {
+/**
+ * Reads, validates and checks setup text with the `yaml` package, the reference
+ * reader: every finding gets its line and column from the document it builds.
+ */
+export function analyzeSetupFully(text: string): Analysis {
   const parsed = parseYaml(text);
   const { setup, findings } = runChecks(parsed);
   return { readable: parsed.readable, data: parsed.data, setup, findings, counts: countFindings(findings) };
+}
+
+/**
+ * The fast reader's analysis when it can read the text and the checks find nothing at
+ * all, so no position is ever needed; null otherwise.
+ */
+export function analyzeSetupFast(text: string): Analysis | null {
+  if (sizeProblem(text)) return null;
+  const data = readSetupFast(text);
+  if (!data) return null;
+  const { setup, findings } = runChecks({ readable: true, data, document: null, lineCounter: new LineCounter(), problems: [] });
+  if (findings.length > 0) return null;
+  return { readable: true, data, setup, findings, counts: countFindings(findings) };
+}
+
+/** Reads, validates and checks setup text. Pure, never throws, bounded in time. */
+export function analyzeSetup(text: string): Analysis {
+  return analyzeSetupFast(text) ?? analyzeSetupFully(text);
 }

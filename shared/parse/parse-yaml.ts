@@ -68,6 +68,19 @@ function describeRoot(contents: unknown): string {
   return 'it is a single value';
 }
 
+/** The finding for text over the size limit, or null when the text may be read. */
+export function sizeProblem(text: string): TextProblem | null {
+  // A UTF-16 unit takes one to three UTF-8 bytes, so short texts need no counting.
+  const bytes = text.length * 3 <= MAX_TEXT_BYTES ? 0 : utf8Length(text);
+  if (bytes <= MAX_TEXT_BYTES) return null;
+  return {
+    message: `The text is ${Math.ceil(bytes / 1024)} KB; setups larger than ${MAX_TEXT_BYTES / 1024} KB are not read.`,
+    hint: 'A setup is normally a few kilobytes: check that this is the right file.',
+    line: 1,
+    column: 1,
+  };
+}
+
 /** Parses setup text into a document with positions, never throwing. */
 export function parseYaml(text: string): ParsedText {
   const lineCounter = new LineCounter();
@@ -76,18 +89,8 @@ export function parseYaml(text: string): ParsedText {
     return { line, column: col };
   };
 
-  // A UTF-16 unit takes one to three UTF-8 bytes, so short texts need no counting.
-  const bytes = text.length * 3 <= MAX_TEXT_BYTES ? 0 : utf8Length(text);
-  if (bytes > MAX_TEXT_BYTES) {
-    return unreadable(lineCounter, [
-      {
-        message: `The text is ${Math.ceil(bytes / 1024)} KB; setups larger than ${MAX_TEXT_BYTES / 1024} KB are not read.`,
-        hint: 'A setup is normally a few kilobytes: check that this is the right file.',
-        line: 1,
-        column: 1,
-      },
-    ]);
-  }
+  const tooLarge = sizeProblem(text);
+  if (tooLarge) return unreadable(lineCounter, [tooLarge]);
 
   try {
     // What parseDocument does, in steps: lexer and parser token by token, watching the

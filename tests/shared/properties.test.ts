@@ -1,9 +1,13 @@
 import fc from 'fast-check';
-import { stringify } from 'yaml';
+import { Document, isScalar, stringify, visit } from 'yaml';
 import { describe, expect, it } from 'vitest';
-import { analyzeSetup } from '../../shared/analyze';
+import { analyzeSetup, analyzeSetupFast, analyzeSetupFully } from '../../shared/analyze';
+import { contentHash } from '../../shared/canonical/content-hash';
 import { evaluate } from '../../shared/evaluate/evaluate';
 import { AIRFRAMES, CHANNEL_ROLES, DEFAULT_TRAVEL } from '../../shared/format/schema';
+import { readSetupFast } from '../../shared/parse/fast-read';
+import { validFixtures } from './setup-fixtures';
+import { parseYaml } from '../../shared/parse/parse-yaml';
 
 // Random setups that pass the schema but mean anything at all: ids collide, mixes name
 // missing controls, pins exceed outputs, failsafes are wild. The checks and the bench
@@ -133,5 +137,65 @@ describe('evaluation on random valid documents', () => {
       }),
       { numRuns: 200 },
     );
+  }, 60_000);
+});
+
+// The ways the same data is written: the yaml package's default block style, all flow,
+// double-quoted strings, and block style with a comment before the document and after
+// every scalar value.
+function commented(data: unknown): string {
+  const doc = new Document(data);
+  doc.commentBefore = ' written by the property test';
+  visit(doc, {
+    Pair(_, pair) {
+      if (isScalar(pair.value)) pair.value.comment = ' note';
+    },
+  });
+  return doc.toString();
+}
+
+const writers: Record<string, (data: unknown) => string> = {
+  block: (data) => stringify(data),
+  flow: (data) => stringify(data, { collectionStyle: 'flow' }),
+  quoted: (data) => stringify(data, { defaultStringType: 'QUOTE_DOUBLE' }),
+  commented,
+};
+
+describe('the fast reader on random valid documents', () => {
+  it.each(Object.keys(writers))('reads %s text to the same data as the reference reader, or declines', (style) => {
+    let read = 0;
+    fc.assert(
+      fc.property(setupData, (data) => {
+        const text = writers[style](data);
+        const fast = readSetupFast(text);
+        if (fast === null) return;
+        read += 1;
+        const full = parseYaml(text);
+        expect(full.readable).toBe(true);
+        expect(fast).toStrictEqual(full.data);
+        expect(contentHash(fast)).toBe(contentHash(full.data));
+      }),
+      { numRuns: 200, seed: 20260101 },
+    );
+    // The property says nothing if the fast reader declines everything.
+    expect(read).toBeGreaterThan(150);
+  }, 60_000);
+
+  it('gives the same analysis as the reference for setups with no findings, whatever the names', () => {
+    // Random setups nearly always have findings, so these start from the finding-free
+    // fixtures and vary the free text, which is where scalar forms differ most.
+    const clean = validFixtures().map((fixture) => parseYaml(fixture.text).data as Record<string, Record<string, unknown>>);
+    let answered = 0;
+    fc.assert(
+      fc.property(fc.constantFrom(...clean), fc.string({ minLength: 1, maxLength: 40 }), fc.constantFrom(...Object.keys(writers)), (base, name, style) => {
+        const text = writers[style]({ ...base, model: { ...base.model, name } });
+        const fast = analyzeSetupFast(text);
+        if (fast === null) return;
+        answered += 1;
+        expect(fast).toStrictEqual(analyzeSetupFully(text));
+      }),
+      { numRuns: 300, seed: 20260102 },
+    );
+    expect(answered).toBeGreaterThan(200);
   }, 60_000);
 });
