@@ -1,4 +1,5 @@
 import { isPlainObject, type PlainObject } from './plain';
+import { quotePair, quoteText } from './quote-text';
 import type { ChangeKind, Section } from './types';
 
 // What a change is about: a whole section (model, link, power, format, an unknown
@@ -41,10 +42,12 @@ export interface Sides {
 interface FieldSpec {
   label: string;
   unit?: string;
+  /** Free text a person typed, quoted in sentences; other strings are names and choices. */
+  prose?: boolean;
 }
 
 const FIELDS: Record<string, Record<string, FieldSpec>> = {
-  control: { kind: { label: 'kind' }, positions: { label: 'positions' }, label: { label: 'label' } },
+  control: { kind: { label: 'kind' }, positions: { label: 'positions' }, label: { label: 'label', prose: true } },
   channel: {
     function: { label: 'function' },
     role: { label: 'role' },
@@ -73,7 +76,7 @@ const FIELDS: Record<string, Record<string, FieldSpec>> = {
     'active.positions': { label: 'active in positions' },
   },
   receiver: {
-    label: { label: 'label' },
+    label: { label: 'label', prose: true },
     role: { label: 'role' },
     outputs: { label: 'outputs' },
     telemetry: { label: 'telemetry' },
@@ -81,12 +84,12 @@ const FIELDS: Record<string, Record<string, FieldSpec>> = {
   },
   pin: { ch: { label: 'channel' }, failsafe: { label: 'failsafe', unit: 'us' } },
   model: {
-    name: { label: 'name' },
+    name: { label: 'name', prose: true },
     airframe: { label: 'airframe' },
     wingspan_mm: { label: 'wingspan', unit: 'mm' },
     length_mm: { label: 'length', unit: 'mm' },
     weight_g: { label: 'weight', unit: 'g' },
-    notes: { label: 'notes' },
+    notes: { label: 'notes', prose: true },
   },
   link: { channels: { label: 'channels' }, packet_rate_hz: { label: 'packet rate', unit: 'Hz' } },
   power: { receiver_supply: { label: 'receiver supply' } },
@@ -106,9 +109,19 @@ function own<T>(table: Readonly<Record<string, T>>, key: string): T | undefined 
   return Object.prototype.hasOwnProperty.call(table, key) ? table[key] : undefined;
 }
 
+// A field the format does not define holds whatever someone wrote, so its text is
+// quoted; so is the value of an extra top-level key. A known section's own value is not.
 function fieldSpec(subject: Subject, field: string[]): FieldSpec {
+  if (subject.type === 'section' && field.length === 0) return { label: '', prose: subject.section === 'other' };
   const table = own(FIELDS, subject.type === 'section' ? subject.name : subject.type);
-  return (table && own(table, field.join('.'))) ?? { label: field.join('.') };
+  return (table && own(table, field.join('.'))) ?? { label: field.join('.'), prose: true };
+}
+
+const isText = (value: unknown): value is string => typeof value === 'string' && value !== '';
+
+/** A value in a sentence: typed text quoted, everything else as `text` writes it. */
+function shown(value: unknown, spec: FieldSpec): string {
+  return spec.prose && isText(value) ? quoteText(value) : text(value);
 }
 
 function entry(subject: Subject): PlainObject {
@@ -137,12 +150,13 @@ function isNumeric(value: unknown): boolean {
 function valueWithUnit(value: unknown, spec: FieldSpec, failsafe: boolean): string {
   if (failsafe && (value === null || value === undefined)) return 'unset (receiver default)';
   if (failsafe && value === 'off') return 'off (no pulses)';
-  return spec.unit && isNumeric(value) ? `${text(value)} ${spec.unit}` : text(value);
+  return spec.unit && isNumeric(value) ? `${text(value)} ${spec.unit}` : shown(value, spec);
 }
 
 // "1500 -> 988 us" when both sides are numbers of one unit, else each side with its own.
 function beforeAfter(before: unknown, after: unknown, spec: FieldSpec, failsafe = false): string {
   if (spec.unit && isNumeric(before) && isNumeric(after)) return `${text(before)} -> ${text(after)} ${spec.unit}`;
+  if (spec.prose && isText(before) && isText(after)) return quotePair(before, after).join(' -> ');
   return `${valueWithUnit(before, spec, failsafe)} -> ${valueWithUnit(after, spec, failsafe)}`;
 }
 
@@ -190,7 +204,7 @@ function describeEntry(subject: Subject, value: PlainObject, sides: Sides, side:
     case 'control': {
       const parts = [text(value.kind)];
       if (value.kind === 'switch') parts.push(`${text(value.positions ?? 2)} positions`);
-      if (typeof value.label === 'string') parts.push(`labelled "${value.label}"`);
+      if (typeof value.label === 'string') parts.push(`labelled ${isText(value.label) ? quoteText(value.label) : text(value.label)}`);
       return parts.join(', ');
     }
     case 'mix': {
@@ -216,7 +230,7 @@ function describeEntry(subject: Subject, value: PlainObject, sides: Sides, side:
 // What a cut, rates or active condition does, in words.
 function describeField(subject: Subject, field: string[], value: unknown): string {
   const key = field.join('.');
-  if (!isPlainObject(value)) return text(value);
+  if (!isPlainObject(value)) return shown(value, fieldSpec(subject, field));
   if (subject.type === 'channel' && key === 'cut') {
     return `${text(value.control)} at position ${text(value.position)} forces ${text(value.value)} %`;
   }
@@ -262,7 +276,8 @@ function addedOrRemoved(draft: Draft, sides: Sides): string {
     }
     case 'section': {
       const name = subject.section === 'other' ? subjectName(subject, field) : `${subjectName(subject, field)} section`;
-      return kind === 'added' ? `${name} added (${text(value)})` : `${name} removed (was: ${text(value)})`;
+      const what = shown(value, fieldSpec(subject, field));
+      return kind === 'added' ? `${name} added (${what})` : `${name} removed (was: ${what})`;
     }
     default: {
       const name = subjectName(subject, field);
@@ -284,8 +299,10 @@ function changed(draft: Draft, sides: Sides): string {
     values = beforeAfter(before, after, spec, subject.type === 'pin' && key === 'failsafe');
   }
   if (subject.type === 'section') {
-    const name = subjectName(subject, field);
-    return field.length === 0 ? `${name} ${values}` : `${name} ${spec.label} ${values}`;
+    const name = field.length === 0 ? subjectName(subject, field) : `${subjectName(subject, field)} ${spec.label}`;
+    // A quotation is brought in by a colon: "Model notes: “…” -> “…”".
+    const quoting = spec.prose && (isText(before) || isText(after));
+    return `${name}${quoting ? ':' : ''} ${values}`;
   }
   return `${subjectName(subject, field)}: ${spec.label} ${values}`;
 }

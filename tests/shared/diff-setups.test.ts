@@ -236,8 +236,44 @@ describe('sentences and paths', () => {
       'Main receiver pin 5: failsafe hold -> 1500 us',
       'Main receiver pin 6: failsafe 1500 us -> unset (receiver default)',
       'Power receiver supply esc-bec -> both',
-      'Extra field radio_notes unset -> bench tested',
+      'Extra field radio_notes: unset -> “bench tested”',
     ]);
+  });
+});
+
+describe('typed text in sentences', () => {
+  const doc = loadPair('trim-tuning').before.data as Doc;
+  const NOTES = 'Scale low wing, flaps on the three-position switch, maiden planned for the May fly-in at the club field.';
+
+  it('quotes names, labels and notes, and leaves numbers, choices and ids bare', () => {
+    const next = clone(doc);
+    next.model.name = 'Kestrel Mk II';
+    next.receivers[0].label = 'Fuselage unit';
+    next.controls[0].label = 'Left stick,\n  side to side';
+    next.model.weight_g = 1720;
+    next.power.receiver_supply = 'both';
+    expect(summaries(doc, next)).toEqual([
+      'Model name: “Pipit 1400” -> “Kestrel Mk II”',
+      'Model weight 1650 -> 1720 g',
+      'Control aileron-stick: label unset -> “Left stick, side to side”',
+      'Receiver main: label “Main receiver” -> “Fuselage unit”',
+      'Power receiver supply esc-bec -> both',
+    ]);
+    const added = clone(doc);
+    added.controls.push({ id: 'smoke-switch', kind: 'switch', positions: 2, label: 'Smoke pump' });
+    expect(summaries(doc, added)).toEqual(['Control smoke-switch added (switch, 2 positions, labelled “Smoke pump”)']);
+  });
+
+  it('cuts long text with an ellipsis, and shows both sides from near their first difference', () => {
+    const noted = clone(doc);
+    noted.model.notes = NOTES;
+    expect(summaries(doc, noted)).toEqual(['Model notes: unset -> “Scale low wing, flaps on the three-position switch, maiden…”']);
+    const later = clone(noted);
+    later.model.notes = NOTES.replace('May', 'June');
+    expect(summaries(noted, later)).toEqual(['Model notes: “…maiden planned for the May fly-in at the club field.” -> “…maiden planned for the June fly-in at the club field.”']);
+    const short = clone(noted);
+    short.model.notes = 'Scale low wing.';
+    expect(summaries(noted, short)).toEqual(['Model notes: “Scale low wing, flaps on the three-position switch, maiden…” -> “Scale low wing.”']);
   });
 });
 
@@ -259,7 +295,7 @@ describe('robustness', () => {
     next.power = JSON.parse('{"receiver_supply": "esc-bec", "__proto__": {"volts": 6}}');
     const diff = diffSetups(doc, next);
     expect(diff.changes.map((change) => [change.kind, change.path, change.summary])).toEqual([
-      ['changed', 'mixes[id=ail-left].constructor', 'Mix ail-left: constructor unset -> x'],
+      ['changed', 'mixes[id=ail-left].constructor', 'Mix ail-left: constructor unset -> “x”'],
       ['added', 'power.__proto__', 'Power __proto__ added (volts 6)'],
     ]);
   });
