@@ -1,5 +1,5 @@
 import { screen, within } from '@testing-library/react';
-import { CLUB, fakeServer, sessionRoutes } from '../fake-server';
+import { CLUB, demoUser, fakeServer, sessionRoutes } from '../fake-server';
 import { renderApp } from '../render-app';
 import { REVIEW, reviewDetail } from './review-data';
 
@@ -49,6 +49,40 @@ describe('the review page', () => {
     const verdicts = await screen.findByRole('list', { name: 'Verdicts given' });
     expect(within(verdicts).getByText('Pins checked on the bench.')).toBeInTheDocument();
     expect(within(verdicts).getByText('Commented')).toBeInTheDocument();
+  });
+
+  it('after approving, shows the caller’s standing approval and offers only to ask for changes or comment', async () => {
+    let detail = reviewDetail();
+    const me = { id: demoUser.id, name: demoUser.name };
+    const server = fakeServer({
+      ...sessionRoutes({ signedIn: true }).routes,
+      [`GET /api/reviews/${REVIEW}`]: () => ({ body: { data: detail } }),
+      [`POST /api/reviews/${REVIEW}/verdicts`]: (request) => {
+        const body = request.body as { verdict: 'approve' | 'comment'; body?: string };
+        const entry = { id: `v${detail.verdicts.length + 1}`, reviewer: me, verdict: body.verdict, body: body.body ?? '', content_hash: detail.revision.content_hash, created_at: '2025-03-14T12:00:00.000Z' };
+        detail = { ...detail, verdicts: [...detail.verdicts, entry] };
+        return { status: 201, body: { data: { ...entry, review: { id: REVIEW, state: 'approved' } } } };
+      },
+    });
+    const { user } = renderApp(path);
+
+    const form = await screen.findByRole('form', { name: 'Give a verdict' });
+    expect(within(form).getByRole('radio', { name: /Approve/ })).toBeChecked();
+    await user.click(within(form).getByRole('button', { name: 'Approve' }));
+
+    // The sentence holds a <time>, so it is matched on the paragraph's whole text.
+    const standing = (pattern: RegExp) => (_: string, element: Element | null) => element?.tagName === 'P' && pattern.test(element.textContent ?? '');
+    expect(await screen.findByText(standing(/^You approved this revision on .*2025\.$/))).toBeInTheDocument();
+    expect(within(form).queryByRole('radio', { name: /Approve/ })).not.toBeInTheDocument();
+    expect(within(form).getAllByRole('radio').map((radio) => radio.getAttribute('value'))).toEqual(['request-changes', 'comment']);
+    expect(within(form).getByRole('radio', { name: /Comment/ })).toBeChecked();
+
+    // A comment leaves the approval standing.
+    await user.type(within(form).getByLabelText('What you found'), 'Receiver packs re-seated.');
+    await user.click(within(form).getByRole('button', { name: 'Comment' }));
+    await within(await screen.findByRole('list', { name: 'Verdicts given' })).findByText('Receiver packs re-seated.');
+    expect(screen.getByText(standing(/^You approved this revision on .*2025\.$/))).toBeInTheDocument();
+    expect(server.called('POST', `/api/reviews/${REVIEW}/verdicts`).map((request) => (request.body as { verdict: string }).verdict)).toEqual(['approve', 'comment']);
   });
 
   it('ticks a checklist item and adds an anchored comment', async () => {

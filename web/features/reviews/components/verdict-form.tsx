@@ -5,8 +5,11 @@ import { FormAlert } from '../../../components/ui/form-alert';
 import { TextAreaField } from '../../../components/ui/text-area-field';
 import { useToast } from '../../../components/ui/toast';
 import { cx } from '../../../lib/cx';
+import type { Id } from '../../../types/api';
+import { useSession } from '../../auth/hooks/use-session';
+import { TimeAgo } from '../../models/components/time-ago';
 import { useGiveVerdict } from '../api/reviews';
-import type { ReviewDetail, Verdict } from '../types';
+import type { ReviewDetail, Verdict, VerdictEntry } from '../types';
 
 const CHOICES: { value: Verdict; label: string; hint: string }[] = [
   { value: 'approve', label: 'Approve', hint: 'Signs off this content for the maiden.' },
@@ -14,8 +17,26 @@ const CHOICES: { value: Verdict; label: string; hint: string }[] = [
   { value: 'comment', label: 'Comment', hint: 'A remark that changes nothing.' },
 ];
 
+/** The caller's last approval or request for changes on this revision: a comment leaves it standing. */
+function standingVerdict(verdicts: readonly VerdictEntry[], userId: Id): VerdictEntry | null {
+  return verdicts.filter((entry) => entry.reviewer?.id === userId && entry.verdict !== 'comment').at(-1) ?? null;
+}
+
+const STANDING_WORDS: Record<Exclude<Verdict, 'comment'>, { said: string; otherwise: string }> = {
+  approve: { said: 'You approved this revision', otherwise: 'If you find a problem after all, ask for changes; a comment leaves your approval standing.' },
+  'request-changes': { said: 'You asked for changes to this revision', otherwise: 'If it is fine as it is after all, approve it; a comment leaves your request standing.' },
+};
+
 export function VerdictForm({ review }: { review: ReviewDetail }) {
-  const [verdict, setVerdict] = useState<Verdict>(review.can.approve ? 'approve' : 'comment');
+  const { user } = useSession();
+  const standing = standingVerdict(review.verdicts, user.id);
+  // What the caller already said is not offered again as if nothing had happened.
+  const choices = CHOICES.filter((choice) => choice.value !== standing?.verdict);
+  // Until the caller picks, approving is suggested to a reviewer who has not said anything yet.
+  const [picked, setPicked] = useState<Verdict | null>(null);
+  const offered = (value: Verdict) => choices.some((choice) => choice.value === value) && (value !== 'approve' || review.can.approve);
+  const suggested: Verdict = !standing && review.can.approve ? 'approve' : 'comment';
+  const verdict: Verdict = picked !== null && offered(picked) ? picked : suggested;
   const [body, setBody] = useState('');
   const give = useGiveVerdict(review);
   const toast = useToast();
@@ -28,6 +49,7 @@ export function VerdictForm({ review }: { review: ReviewDetail }) {
       {
         onSuccess: () => {
           setBody('');
+          setPicked(null);
           toast({ title: verdict === 'approve' ? 'Approved: the requester has been told' : verdict === 'request-changes' ? 'Changes asked for: the requester has been told' : 'Comment recorded' });
         },
       },
@@ -37,12 +59,20 @@ export function VerdictForm({ review }: { review: ReviewDetail }) {
   return (
     <Card className="p-5">
       <h2 className="text-lg font-semibold text-ink-900">Your verdict</h2>
+      {standing && standing.verdict !== 'comment' && (
+        <div className="mt-2">
+          <p className="text-base font-medium text-ink-900">
+            {STANDING_WORDS[standing.verdict].said} <TimeAgo iso={standing.created_at} inSentence />.
+          </p>
+          <p className="mt-0.5 text-sm text-ink-700">{STANDING_WORDS[standing.verdict].otherwise}</p>
+        </div>
+      )}
       <form onSubmit={onSubmit} className="mt-3 space-y-4" aria-label="Give a verdict">
         {give.isError && <FormAlert>{give.error.message}</FormAlert>}
         <fieldset>
           <legend className="sr-only">Verdict</legend>
           <div className="space-y-2">
-            {CHOICES.map((choice) => {
+            {choices.map((choice) => {
               const disabled = choice.value === 'approve' && !review.can.approve;
               return (
                 <label
@@ -59,7 +89,7 @@ export function VerdictForm({ review }: { review: ReviewDetail }) {
                     value={choice.value}
                     checked={verdict === choice.value}
                     disabled={disabled}
-                    onChange={() => setVerdict(choice.value)}
+                    onChange={() => setPicked(choice.value)}
                     className="mt-1 accent-accent-700"
                   />
                   <span>
