@@ -5,6 +5,7 @@ import { EmptyState } from '../../../components/ui/empty-state';
 import { ErrorState } from '../../../components/ui/error-state';
 import { LoadingState } from '../../../components/ui/loading-state';
 import { PageHeader } from '../../../components/ui/page-header';
+import { cx } from '../../../lib/cx';
 import { useModel } from '../../models/api/get-model';
 import { revisionsOf, useRevisions } from '../../models/api/list-revisions';
 import { canEdit } from '../../models/permissions';
@@ -13,7 +14,7 @@ import { comparePair, compareSearch, togglePick } from '../pick-two';
 import { ExportHistoryLink } from './export-history-link';
 import { ForkDialog } from './fork-dialog';
 import { RevertDialog } from './revert-dialog';
-import { RevisionTimeline } from './revision-timeline';
+import { CARD_INSET, RevisionTimeline } from './revision-timeline';
 
 export function HistoryScreen() {
   const { modelId = '' } = useParams();
@@ -55,7 +56,7 @@ function History({ model }: { model: SetupModelView }) {
 
   return (
     <>
-      <div className="sticky top-0 z-10 -mx-1 mb-4 flex flex-wrap items-center gap-3 rounded-lg border border-ply-200 bg-paper/95 px-4 py-2.5 backdrop-blur" aria-live="polite">
+      <div className={cx('sticky top-0 z-10 mb-4 flex flex-wrap items-center gap-3 rounded-lg border border-ply-200 bg-paper/95 px-4 py-2.5 backdrop-blur', CARD_INSET)} aria-live="polite">
         <p className="flex-1 text-sm text-ink-700">
           {picked.length === 0 && 'Tick two revisions to compare them.'}
           {picked.length === 1 && `Revision ${pickedNumbers[0]} picked; tick one more.`}

@@ -26,6 +26,12 @@ export interface RevisionTimelineProps {
   onFork: (revision: RevisionSummary) => void;
 }
 
+/**
+ * Where the cards begin: right of the timeline's margin (ml-3), its 2px line and each
+ * item's padding (pl-6). The compare bar above the timeline lines up with the cards by it.
+ */
+export const CARD_INSET = 'ml-[calc(2.25rem+2px)]';
+
 export function RevisionTimeline({ model, revisions, picked, onPick, editable, onRevert, onFork }: RevisionTimelineProps) {
   const latest = model.latest?.number;
   const byId = new Map(revisions.map((revision) => [revision.id, revision]));
