@@ -9,8 +9,9 @@ describe('History: the git export', () => {
     fakeServer({ ...sessionRoutes({ signedIn: true }).routes, ...modelRoutes([model]) });
     renderApp(`/models/${model.id}/history`);
 
-    const link = await screen.findByRole('link', { name: 'Download history (git)' });
+    const link = await screen.findByRole('link', { name: 'Export full history' });
     expect(link).toHaveAttribute('href', `/api/models/${model.id}/export.git`);
     expect(link).toHaveAttribute('download');
+    expect(link).toHaveAccessibleDescription('A git repository with one commit per revision, for your own backup.');
   });
 });

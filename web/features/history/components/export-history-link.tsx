@@ -1,19 +1,30 @@
+import { useId } from 'react';
 import { buttonClasses } from '../../../components/ui/button';
+
+const DESCRIPTION = 'A git repository with one commit per revision, for your own backup.';
 
 /**
  * The model's whole history as a git bundle: `git clone` it to get a plain repository
  * with one commit per revision, setup.yaml and the tags. A plain link, so the browser
- * saves the file with the session cookie and no script in between.
+ * saves the file with the session cookie and no script in between. Its words avoid
+ * "git" up front, which most pilots would not know; the description says what it is.
  */
 export function ExportHistoryLink({ modelId }: { modelId: string }) {
+  const descriptionId = useId();
   return (
-    <a
-      href={`/api/models/${encodeURIComponent(modelId)}/export.git`}
-      download
-      className={buttonClasses('secondary', 'sm')}
-      title="A git bundle of every revision: open it with git clone"
-    >
-      Download history (git)
-    </a>
+    <div className="flex flex-col items-start gap-1 sm:items-end">
+      <a
+        href={`/api/models/${encodeURIComponent(modelId)}/export.git`}
+        download
+        className={buttonClasses('secondary', 'sm')}
+        aria-describedby={descriptionId}
+        title={`${DESCRIPTION} Saved as a git bundle: open it with git clone.`}
+      >
+        Export full history
+      </a>
+      <p id={descriptionId} className="max-w-xs text-sm text-ink-700 sm:text-right">
+        {DESCRIPTION}
+      </p>
+    </div>
   );
 }
