@@ -82,7 +82,10 @@ describe('Bench', () => {
     expect(within(curves).getAllByRole('img')).toHaveLength(17);
     fireEvent.change(screen.getByRole('slider', { name: 'elevator-stick' }), { target: { value: '50' } });
     // weight 92, expo 15: 92 * (0.85 * 0.5 + 0.15 * 0.125) = 40.8 % [expo-cubic]
-    expect(within(curves).getByRole('img', { name: /^Curve of mix elevator: weight \+92 %, expo 15 %, offset 0 %; input elevator-stick now at \+50 %, adding \+41 % to channel 2\.$/ })).toBeInTheDocument();
+    const elevator = within(curves).getByRole('img', { name: /^Curve of mix elevator: weight \+92 %, expo 15 %, offset 0 %; input elevator-stick now at \+50 %, adding \+41 % to channel 2\.$/ });
+    const caption = within(elevator.closest('figure')!);
+    expect(caption.getByText('weight +92 %')).toBeInTheDocument();
+    expect(caption.getByText('expo 15 %')).toBeInTheDocument();
   });
 
   it('puts an older revision on the bench when ?revision= names it', SLOW, async () => {

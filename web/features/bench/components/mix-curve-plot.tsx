@@ -60,9 +60,9 @@ export function MixCurvePlot({ mix, points, weight, now, active, inputName }: Mi
           <circle cx={sx(now.x)} cy={sy(now.y)} r={3.5} className="fill-caution-700 stroke-paper-raised" strokeWidth={1.5} />
         </svg>
         <p className="mt-1 flex flex-wrap gap-x-2 text-xs text-ink-700">
-          <span>w {fmt(weight)}</span>
-          <span>expo {mix.expo}</span>
-          {mix.offset !== 0 && <span>offset {fmt(mix.offset)}</span>}
+          <span>weight {fmt(weight)} %</span>
+          <span>expo {mix.expo} %</span>
+          {mix.offset !== 0 && <span>offset {fmt(mix.offset)} %</span>}
           {mix.rates && <span>rates: {mix.rates.control}</span>}
         </p>
         <p className="text-xs text-ink-700">
