@@ -1,11 +1,11 @@
 import { useMemo, useState } from 'react';
-import { useSearchParams } from 'react-router-dom';
 import { Button } from '../../../components/ui/button';
 import { EmptyState } from '../../../components/ui/empty-state';
 import { ErrorState } from '../../../components/ui/error-state';
 import { LoadingState } from '../../../components/ui/loading-state';
 import { PageHeader } from '../../../components/ui/page-header';
 import { TextField } from '../../../components/ui/text-field';
+import { useQueryParams } from '../../../hooks/use-query-params';
 import { useCurrentWorkspace } from '../../workspaces/hooks/use-current-workspace';
 import { useHangar } from '../api/list-models';
 import { canEdit } from '../permissions';
@@ -24,7 +24,7 @@ function sortFrom(params: URLSearchParams): HangarSort {
 
 export function HangarScreen() {
   const { inUrl } = useCurrentWorkspace();
-  const [params, setParams] = useSearchParams();
+  const [params, update] = useQueryParams();
   const [creating, setCreating] = useState(false);
   const hangar = useHangar(inUrl?.id ?? null);
   const query = params.get('q') ?? '';
@@ -34,19 +34,6 @@ export function HangarScreen() {
 
   if (!inUrl) return null;
   const editor = canEdit(inUrl.role);
-
-  const update = (changes: Record<string, string | null>) =>
-    setParams(
-      (current) => {
-        const next = new URLSearchParams(current);
-        for (const [key, value] of Object.entries(changes)) {
-          if (value) next.set(key, value);
-          else next.delete(key);
-        }
-        return next;
-      },
-      { replace: true },
-    );
 
   const newModel = editor ? (
     <Button onClick={() => setCreating(true)}>New model</Button>

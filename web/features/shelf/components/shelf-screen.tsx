@@ -1,11 +1,11 @@
 import { useDeferredValue, useState } from 'react';
-import { useSearchParams } from 'react-router-dom';
 import { Button } from '../../../components/ui/button';
 import { EmptyState } from '../../../components/ui/empty-state';
 import { ErrorState } from '../../../components/ui/error-state';
 import { LoadingState } from '../../../components/ui/loading-state';
 import { PageHeader } from '../../../components/ui/page-header';
 import { TextField } from '../../../components/ui/text-field';
+import { useQueryParams } from '../../../hooks/use-query-params';
 import { cx } from '../../../lib/cx';
 import { canEdit } from '../../models/permissions';
 import { useCurrentWorkspace } from '../../workspaces/hooks/use-current-workspace';
@@ -24,7 +24,7 @@ const statusFrom = (value: string | null): ShelfStatus | null => (value === 'ins
 
 export function ShelfScreen() {
   const { inUrl } = useCurrentWorkspace();
-  const [params, setParams] = useSearchParams();
+  const [params, update] = useQueryParams();
   const [adding, setAdding] = useState(false);
   const query = params.get('q') ?? '';
   const status = statusFrom(params.get('status'));
@@ -35,19 +35,6 @@ export function ShelfScreen() {
   if (!inUrl) return null;
   const editor = canEdit(inUrl.role);
   const filtered = Boolean(query.trim() || status);
-
-  const update = (changes: Record<string, string | null>) =>
-    setParams(
-      (current) => {
-        const next = new URLSearchParams(current);
-        for (const [key, value] of Object.entries(changes)) {
-          if (value) next.set(key, value);
-          else next.delete(key);
-        }
-        return next;
-      },
-      { replace: true },
-    );
 
   return (
     <>
