@@ -20,7 +20,8 @@ describe('journey: markup in what pilots type is shown as text', () => {
     await dialog.getByRole('button', { name: 'Create model' }).click();
     await page.waitForURL(/\/overview$/);
     await page.getByRole('navigation', { name: 'Breadcrumb' }).getByText(payload, { exact: true }).waitFor();
-    expect(await page.title()).toContain(payload);
+    // The screen names the tab once its own data has loaded, a moment after the frame.
+    await expect.poll(() => page.title()).toContain(payload);
 
     await page.getByRole('navigation', { name: 'Breadcrumb' }).getByRole('link').click();
     await page.getByRole('link', { name: payload, exact: true }).waitFor();
