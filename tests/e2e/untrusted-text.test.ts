@@ -21,7 +21,7 @@ describe('journey: markup in what pilots type is shown as text', () => {
     await page.waitForURL(/\/overview$/);
     await page.getByRole('navigation', { name: 'Breadcrumb' }).getByText(payload, { exact: true }).waitFor();
     // The screen names the tab once its own data has loaded, a moment after the frame.
-    await expect.poll(() => page.title()).toContain(payload);
+    await expect.poll(() => page.title(), { timeout: 10_000 }).toContain(payload);
 
     await page.getByRole('navigation', { name: 'Breadcrumb' }).getByRole('link').click();
     await page.getByRole('link', { name: payload, exact: true }).waitFor();
