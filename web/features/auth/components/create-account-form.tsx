@@ -7,7 +7,8 @@ import { useFormErrors } from '../../../hooks/use-form-errors';
 import { formErrorsFrom } from '../../../lib/form-errors';
 import { useSignUp } from '../api/sign-up';
 import { landingPath } from '../landing-path';
-import { PASSWORD_MIN_LENGTH, validateSignUp } from '../validate';
+import { validateSignUp } from '../validate';
+import { NewPasswordField } from './new-password-field';
 
 const FIELDS = ['email', 'name', 'password'] as const;
 
@@ -56,16 +57,7 @@ export function CreateAccountForm() {
         onChange={change('email')}
         error={errors.fields.email}
       />
-      <TextField
-        label="Password"
-        name="password"
-        type="password"
-        autoComplete="new-password"
-        hint={`At least ${PASSWORD_MIN_LENGTH} characters.`}
-        value={values.password}
-        onChange={change('password')}
-        error={errors.fields.password}
-      />
+      <NewPasswordField name="password" value={values.password} onChange={change('password')} error={errors.fields.password} />
       <Button type="submit" className="w-full" pending={signUp.isPending}>
         Create account
       </Button>

@@ -8,7 +8,8 @@ import { useFormErrors } from '../../../hooks/use-form-errors';
 import { formErrorsFrom } from '../../../lib/form-errors';
 import { useConfirmPasswordReset, useResetLink } from '../api/confirm-password-reset';
 import { landingPath } from '../landing-path';
-import { PASSWORD_MIN_LENGTH } from '../validate';
+import { validateNewPassword } from '../validate';
+import { NewPasswordField } from './new-password-field';
 
 const FIELDS = ['password'] as const;
 
@@ -36,7 +37,8 @@ export function NewPasswordForm({ token }: { token: string }) {
 
   const onSubmit = (event: FormEvent<HTMLFormElement>) => {
     event.preventDefault();
-    if (password.length < PASSWORD_MIN_LENGTH) return refuse({ fields: { password: `Use at least ${PASSWORD_MIN_LENGTH} characters.` }, general: null });
+    const weak = validateNewPassword(password);
+    if (weak) return refuse({ fields: { password: weak }, general: null });
     if (repeat !== password) return refuse({ fields: { repeat: 'The two passwords differ. Type the same one twice.' }, general: null });
     clear();
     confirm.mutate(password, {
@@ -51,16 +53,7 @@ export function NewPasswordForm({ token }: { token: string }) {
       <p className="text-base text-ink-700">
         For <span className="font-mono text-sm text-ink-900">{link.data.email}</span>. Every other place this account is signed in will be signed out.
       </p>
-      <TextField
-        label="New password"
-        name="password"
-        type="password"
-        autoComplete="new-password"
-        hint={`At least ${PASSWORD_MIN_LENGTH} characters.`}
-        value={password}
-        onChange={(event) => setPassword(event.target.value)}
-        error={errors.fields.password}
-      />
+      <NewPasswordField label="New password" name="password" value={password} onChange={(event) => setPassword(event.target.value)} error={errors.fields.password} />
       <TextField
         label="The new password again"
         name="repeat"

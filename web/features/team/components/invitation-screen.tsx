@@ -10,7 +10,8 @@ import { isApiError, isUnauthorized } from '../../../lib/api-client';
 import { formErrorsFrom } from '../../../lib/form-errors';
 import type { Session } from '../../../types/api';
 import { useMe } from '../../auth/api/get-me';
-import { PASSWORD_MIN_LENGTH } from '../../auth/validate';
+import { NewPasswordField } from '../../auth/components/new-password-field';
+import { validateName, validateNewPassword } from '../../auth/validate';
 import { useAcceptInvitation, useInvitation } from '../api/accept-invitation';
 import { roleWord } from '../roles';
 import type { InvitationPreview } from '../types';
@@ -114,8 +115,10 @@ function NewAccountForm({ accept, token, preview }: { accept: Accept; token: str
   const onSubmit = (event: FormEvent<HTMLFormElement>) => {
     event.preventDefault();
     const local: Record<string, string> = {};
-    if (!values.name.trim()) local.name = 'Enter the name your club mates know you by.';
-    if (values.password.length < PASSWORD_MIN_LENGTH) local.password = `Use at least ${PASSWORD_MIN_LENGTH} characters.`;
+    const name = validateName(values.name);
+    if (name) local.name = name;
+    const password = validateNewPassword(values.password);
+    if (password) local.password = password;
     if (Object.keys(local).length > 0) return refuse({ fields: local, general: null });
     clear();
     accept.mutate(
@@ -132,16 +135,7 @@ function NewAccountForm({ accept, token, preview }: { accept: Accept; token: str
         <p className="mt-1 font-mono text-sm text-ink-700">{preview.email}</p>
       </div>
       <TextField label="Name" name="name" autoComplete="name" value={values.name} onChange={(event) => setValues((v) => ({ ...v, name: event.target.value }))} error={errors.fields.name} />
-      <TextField
-        label="Password"
-        name="password"
-        type="password"
-        autoComplete="new-password"
-        hint={`At least ${PASSWORD_MIN_LENGTH} characters.`}
-        value={values.password}
-        onChange={(event) => setValues((v) => ({ ...v, password: event.target.value }))}
-        error={errors.fields.password}
-      />
+      <NewPasswordField name="password" value={values.password} onChange={(event) => setValues((v) => ({ ...v, password: event.target.value }))} error={errors.fields.password} />
       <Button type="submit" className="w-full" pending={accept.isPending}>
         Create account and join
       </Button>
