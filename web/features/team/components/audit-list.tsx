@@ -34,7 +34,7 @@ export function AuditList({ workspaceId }: { workspaceId: Id }) {
               return (
                 <li key={event.id} className="flex flex-wrap items-baseline gap-x-2 gap-y-0.5 py-2.5 text-base">
                   <span className="min-w-0 flex-1">
-                    {line.model && <span className="font-medium text-ink-900">{line.model}: </span>}
+                    {line.model && <span className="text-ink-700">{line.model}: </span>}
                     <span className="font-medium text-ink-900">{event.actor?.name ?? 'Someone'}</span> <span className="text-ink-700">{line.text}</span>
                     {line.link && (
                       <>
