@@ -8,6 +8,7 @@ const DAY = 86_400_000;
 
 describe('timeAgo', () => {
   it.each([
+    [ago(2 * 1000), 'just now'],
     [ago(20 * 1000), '20 seconds ago'],
     [ago(5 * MINUTE), '5 minutes ago'],
     [ago(3 * 60 * MINUTE), '3 hours ago'],

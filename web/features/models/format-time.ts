@@ -37,8 +37,11 @@ export function isRecent(iso: string, now: number = Date.now()): boolean {
 
 export function timeAgo(iso: string, { now = Date.now(), locale }: TimeFormatOptions = {}): string {
   if (!isRecent(iso, now)) return dateOnly(iso, locale);
-  const relative = formatter('relative', locale, () => new Intl.RelativeTimeFormat(locale, { numeric: 'auto' }));
   let amount = (new Date(iso).getTime() - now) / 1000;
+  // The formatter's own word for this is "now", which reads wrongly after a verb
+  // ("approved this revision now"); the screens' words are English in any case.
+  if (Math.abs(amount) < 10) return 'just now';
+  const relative = formatter('relative', locale, () => new Intl.RelativeTimeFormat(locale, { numeric: 'auto' }));
   for (const [unit, size] of STEPS) {
     if (Math.abs(amount) < size) return relative.format(Math.round(amount), unit);
     amount /= size;
