@@ -3,8 +3,8 @@ import { Button } from '../../../components/ui/button';
 import { FormAlert } from '../../../components/ui/form-alert';
 import { TextField } from '../../../components/ui/text-field';
 import { useToast } from '../../../components/ui/toast';
-import { useFocusFirstInvalid } from '../../../hooks/use-focus-first-invalid';
-import { formErrorsFrom, noFormErrors, type FormErrors } from '../../../lib/form-errors';
+import { useFormErrors } from '../../../hooks/use-form-errors';
+import { formErrorsFrom } from '../../../lib/form-errors';
 import { PASSWORD_MIN_LENGTH } from '../../auth/validate';
 import { useChangePassword } from '../api/change-password';
 
@@ -15,24 +15,17 @@ export function ChangePasswordForm() {
   const [current, setCurrent] = useState('');
   const [password, setPassword] = useState('');
   const [repeat, setRepeat] = useState('');
-  const [errors, setErrors] = useState<FormErrors>(noFormErrors);
-  const [attempt, setAttempt] = useState(0);
   const formRef = useRef<HTMLFormElement>(null);
+  const { errors, refuse, clear } = useFormErrors(formRef);
   const change = useChangePassword();
   const toast = useToast();
-  useFocusFirstInvalid(formRef, attempt);
-
-  const refuse = (next: FormErrors) => {
-    setErrors(next);
-    setAttempt((n) => n + 1);
-  };
 
   const onSubmit = (event: FormEvent<HTMLFormElement>) => {
     event.preventDefault();
     if (!current) return refuse({ fields: { current: 'Enter your current password.' }, general: null });
     if (password.length < PASSWORD_MIN_LENGTH) return refuse({ fields: { password: `Use at least ${PASSWORD_MIN_LENGTH} characters.` }, general: null });
     if (repeat !== password) return refuse({ fields: { repeat: 'The two passwords differ. Type the same one twice.' }, general: null });
-    setErrors(noFormErrors);
+    clear();
     change.mutate(
       { current, password },
       {
