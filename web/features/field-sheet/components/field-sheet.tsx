@@ -1,6 +1,7 @@
-import { ReviewStateBadge, SeverityBadge } from '../../../components/ui/badge';
+import { ReviewStateBadge } from '../../../components/ui/badge';
 import { CautionsPanel } from '../../cautions/components/cautions-panel';
 import { FindingsList } from '../../findings/components/findings-list';
+import { CheckBadges } from '../../models/components/check-badges';
 import { exactTime } from '../../models/format-time';
 import { MarkLabel } from '../../shelf/components/mark-label';
 import type { FieldSheet as Sheet } from '../types';
@@ -45,10 +46,7 @@ export function FieldSheet({ sheet }: { sheet: Sheet }) {
             {sheet.link.channels} channels{sheet.link.packet_rate_hz ? ` at ${sheet.link.packet_rate_hz} Hz` : ''}
           </Fact>
           <Fact label="Checks">
-            <span className="flex gap-1.5">
-              <SeverityBadge severity="error" count={sheet.counts.errors} />
-              <SeverityBadge severity="warning" count={sheet.counts.warnings} />
-            </span>
+            <CheckBadges errors={sheet.counts.errors} warnings={sheet.counts.warnings} />
           </Fact>
         </dl>
         <p className="mt-2 text-sm text-ink-700">
