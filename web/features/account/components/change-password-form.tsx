@@ -5,7 +5,8 @@ import { TextField } from '../../../components/ui/text-field';
 import { useToast } from '../../../components/ui/toast';
 import { useFormErrors } from '../../../hooks/use-form-errors';
 import { formErrorsFrom } from '../../../lib/form-errors';
-import { PASSWORD_MIN_LENGTH } from '../../auth/validate';
+import { NewPasswordField } from '../../auth/components/new-password-field';
+import { validateNewPassword } from '../../auth/validate';
 import { useChangePassword } from '../api/change-password';
 
 const FIELDS = ['current', 'password'] as const;
@@ -23,7 +24,8 @@ export function ChangePasswordForm() {
   const onSubmit = (event: FormEvent<HTMLFormElement>) => {
     event.preventDefault();
     if (!current) return refuse({ fields: { current: 'Enter your current password.' }, general: null });
-    if (password.length < PASSWORD_MIN_LENGTH) return refuse({ fields: { password: `Use at least ${PASSWORD_MIN_LENGTH} characters.` }, general: null });
+    const passwordProblem = validateNewPassword(password);
+    if (passwordProblem) return refuse({ fields: { password: passwordProblem }, general: null });
     if (repeat !== password) return refuse({ fields: { repeat: 'The two passwords differ. Type the same one twice.' }, general: null });
     clear();
     change.mutate(
@@ -52,12 +54,9 @@ export function ChangePasswordForm() {
         onChange={(event) => setCurrent(event.target.value)}
         error={errors.fields.current}
       />
-      <TextField
+      <NewPasswordField
         label="New password"
         name="password"
-        type="password"
-        autoComplete="new-password"
-        hint={`At least ${PASSWORD_MIN_LENGTH} characters.`}
         value={password}
         onChange={(event) => setPassword(event.target.value)}
         error={errors.fields.password}
