@@ -56,7 +56,10 @@ function securityHeaders(secure: boolean) {
 /** Serves the built client: hashed assets cached for good, every other path the SPA. */
 function serveClient(app: Express, webDir: string): void {
   const root = path.resolve(webDir);
-  app.use('/assets', express.static(path.join(root, 'assets'), { immutable: true, maxAge: '1y', fallthrough: false, index: false }));
+  app.use(
+    '/assets',
+    express.static(path.join(root, 'assets'), { immutable: true, maxAge: '1y', fallthrough: false, index: false }),
+  );
   app.use(express.static(root, { index: false }));
   app.use((req, res, next) => {
     if (req.method !== 'GET' && req.method !== 'HEAD') return next();

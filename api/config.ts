@@ -50,7 +50,8 @@ export function defaultConfig(overrides: Partial<AppConfig> & { jwtSecret: strin
 function positiveInt(value: string | undefined, fallback: number, name: string): number {
   if (value === undefined || value === '') return fallback;
   const parsed = Number(value);
-  if (!Number.isInteger(parsed) || parsed <= 0) throw new Error(`${name} must be a positive whole number, got "${value}"`);
+  if (!Number.isInteger(parsed) || parsed <= 0)
+    throw new Error(`${name} must be a positive whole number, got "${value}"`);
   return parsed;
 }
 
@@ -74,7 +75,10 @@ export function loadOrCreateSecret(file: string): string {
 }
 
 export function configFromEnv(env: NodeJS.ProcessEnv, options: { dataDir: string; webDir: string | null }): AppConfig {
-  const jwtSecret = env.JWT_SECRET && env.JWT_SECRET.length > 0 ? env.JWT_SECRET : loadOrCreateSecret(path.join(options.dataDir, 'jwt-secret'));
+  const jwtSecret =
+    env.JWT_SECRET && env.JWT_SECRET.length > 0
+      ? env.JWT_SECRET
+      : loadOrCreateSecret(path.join(options.dataDir, 'jwt-secret'));
   if (jwtSecret.length < 32) throw new Error('JWT_SECRET must be at least 32 characters long');
   const base = defaultConfig({ jwtSecret });
   return {

@@ -15,7 +15,12 @@ type LatestRevision = Pick<Revision, 'id' | 'modelId' | 'contentHash' | 'errorCo
 export async function reviewStateOf(revisions: readonly LatestRevision[]): Promise<Map<string, ReviewState>> {
   const states = new Map<string, ReviewState>();
   if (revisions.length === 0) return states;
-  const rows = await Revision.sequelize!.query<{ model_id: string; state: ReviewFact['state']; content_hash: string; decided_at: Date | null }>(
+  const rows = await Revision.sequelize!.query<{
+    model_id: string;
+    state: ReviewFact['state'];
+    content_hash: string;
+    decided_at: Date | null;
+  }>(
     `SELECT r.model_id, r.state, rv.content_hash, r.decided_at
        FROM reviews r JOIN revisions rv ON rv.id = r.revision_id
       WHERE r.model_id = ANY($ids::uuid[])`,
@@ -23,9 +28,13 @@ export async function reviewStateOf(revisions: readonly LatestRevision[]): Promi
   );
   const byModel = new Map<string, ReviewFact[]>();
   for (const row of rows) {
-    byModel.set(row.model_id, [...(byModel.get(row.model_id) ?? []), { state: row.state, contentHash: row.content_hash, decidedAt: row.decided_at ? new Date(row.decided_at) : null }]);
+    byModel.set(row.model_id, [
+      ...(byModel.get(row.model_id) ?? []),
+      { state: row.state, contentHash: row.content_hash, decidedAt: row.decided_at ? new Date(row.decided_at) : null },
+    ]);
   }
-  for (const revision of revisions) states.set(revision.id, modelReviewState(revision, byModel.get(revision.modelId) ?? []));
+  for (const revision of revisions)
+    states.set(revision.id, modelReviewState(revision, byModel.get(revision.modelId) ?? []));
   return states;
 }
 

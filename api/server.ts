@@ -23,7 +23,11 @@ export function startServer(context: AppContext, port: number, host = '127.0.0.1
   return new Promise((resolve, reject) => {
     const server = app.listen(port, host);
     server.once('error', (error: NodeJS.ErrnoException) => {
-      reject(error.code === 'EADDRINUSE' ? new Error(`Port ${port} on ${host} is already in use: stop what uses it or set PORT to another port.`) : error);
+      reject(
+        error.code === 'EADDRINUSE'
+          ? new Error(`Port ${port} on ${host} is already in use: stop what uses it or set PORT to another port.`)
+          : error,
+      );
     });
     server.once('listening', () => {
       const address = server.address();

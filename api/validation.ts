@@ -17,7 +17,11 @@ export function fieldErrors(error: z.ZodError): Record<string, string> {
   return fields;
 }
 
-export function parseInput<S extends z.ZodType>(schema: S, input: unknown, message = 'Some fields need attention.'): z.output<S> {
+export function parseInput<S extends z.ZodType>(
+  schema: S,
+  input: unknown,
+  message = 'Some fields need attention.',
+): z.output<S> {
   const result = schema.safeParse(input ?? {});
   if (!result.success) {
     throw new BadRequest(message, { code: 'invalid-input', details: { fields: fieldErrors(result.error) } });

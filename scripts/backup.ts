@@ -7,7 +7,11 @@ import { parseArgs } from 'node:util';
 import { countRecords, formatCounts, openBackupTarget, runClient } from './lib/backup-database';
 import { projectRoot } from './lib/paths';
 
-const stamp = (when: Date): string => when.toISOString().replace(/\.\d+Z$/, 'Z').replace(/:/g, '-');
+const stamp = (when: Date): string =>
+  when
+    .toISOString()
+    .replace(/\.\d+Z$/, 'Z')
+    .replace(/:/g, '-');
 
 async function main(): Promise<number> {
   const { values } = parseArgs({ options: { output: { type: 'string', short: 'o' } } });
@@ -16,7 +20,13 @@ async function main(): Promise<number> {
   const target = await openBackupTarget((line) => console.log(line));
   try {
     const counts = await countRecords(target.url);
-    const result = await runClient(target.binDir, 'pg_dump', ['--format=custom', '--compress=6', '--no-password', `--file=${file}`, `--dbname=${target.url}`]);
+    const result = await runClient(target.binDir, 'pg_dump', [
+      '--format=custom',
+      '--compress=6',
+      '--no-password',
+      `--file=${file}`,
+      `--dbname=${target.url}`,
+    ]);
     if (result.code !== 0) {
       console.error(`pg_dump failed (exit ${result.code}):\n${result.output.trim()}`);
       return 1;

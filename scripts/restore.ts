@@ -9,7 +9,10 @@ import { parseArgs } from 'node:util';
 import { countRecords, formatCounts, openBackupTarget, otherSessions, runClient } from './lib/backup-database';
 
 async function main(): Promise<number> {
-  const { values, positionals } = parseArgs({ options: { yes: { type: 'boolean', default: false } }, allowPositionals: true });
+  const { values, positionals } = parseArgs({
+    options: { yes: { type: 'boolean', default: false } },
+    allowPositionals: true,
+  });
   if (positionals.length !== 1) {
     console.error('Usage: npm run restore -- FILE --yes   (FILE is a .dump made by npm run backup)');
     return 2;
@@ -28,13 +31,17 @@ async function main(): Promise<number> {
     }
     const before = await countRecords(target.url).catch(() => null);
     if (!values.yes) {
-      console.log(`This would replace everything in ${target.label}${before ? ` (now ${formatCounts(before)})` : ''} with ${file}.`);
+      console.log(
+        `This would replace everything in ${target.label}${before ? ` (now ${formatCounts(before)})` : ''} with ${file}.`,
+      );
       console.log('Nothing was changed. Run it again with --yes to restore.');
       return 1;
     }
     const sessions = await otherSessions(target.url);
     if (sessions > 0) {
-      console.error(`${sessions} other connection(s) use ${target.label}: stop npm start (or whatever uses it) first, then restore.`);
+      console.error(
+        `${sessions} other connection(s) use ${target.label}: stop npm start (or whatever uses it) first, then restore.`,
+      );
       return 1;
     }
     const result = await runClient(target.binDir, 'pg_restore', [
@@ -49,10 +56,14 @@ async function main(): Promise<number> {
       file,
     ]);
     if (result.code !== 0) {
-      console.error(`pg_restore failed (exit ${result.code}); the database was left as it was:\n${result.output.trim()}`);
+      console.error(
+        `pg_restore failed (exit ${result.code}); the database was left as it was:\n${result.output.trim()}`,
+      );
       return 1;
     }
-    console.log(`Restored ${file} into ${target.label}: ${formatCounts(await countRecords(target.url))}${before ? ` (was ${formatCounts(before)})` : ''}.`);
+    console.log(
+      `Restored ${file} into ${target.label}: ${formatCounts(await countRecords(target.url))}${before ? ` (was ${formatCounts(before)})` : ''}.`,
+    );
     return 0;
   } finally {
     await target.close();

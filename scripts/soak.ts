@@ -73,7 +73,10 @@ interface SavedAnswer {
 const bench = fileURLToPath(new URL('./bench/support/bench-server.ts', import.meta.url));
 
 /** The API in a child process (the bench server), its stderr kept in a file to count what it logged. */
-async function startApi(databaseUrl: string, logFile: string): Promise<{ url: string; child: ChildProcess; jwtSecret: string }> {
+async function startApi(
+  databaseUrl: string,
+  logFile: string,
+): Promise<{ url: string; child: ChildProcess; jwtSecret: string }> {
   const jwtSecret = randomBytes(32).toString('hex');
   const child = spawn(process.execPath, ['--import', 'tsx', bench], {
     env: { ...process.env, BENCH_DATABASE_URL: databaseUrl, BENCH_JWT_SECRET: jwtSecret },
@@ -102,26 +105,44 @@ function pgCtl(cluster: Cluster, args: string[]): Promise<void> {
     child.stdout.on('data', (chunk) => (output += chunk));
     child.stderr.on('data', (chunk) => (output += chunk));
     child.on('error', reject);
-    child.on('exit', (code) => (code === 0 ? resolve() : reject(new Error(`pg_ctl ${args.join(' ')} failed: ${output.trim()}`))));
+    child.on('exit', (code) =>
+      code === 0 ? resolve() : reject(new Error(`pg_ctl ${args.join(' ')} failed: ${output.trim()}`)),
+    );
   });
 }
 
 async function seed(sequelize: Sequelize): Promise<{ user: User; workspace: Workspace; models: SetupModel[] }> {
-  const user = await User.create({ email: `soak-${randomBytes(4).toString('hex')}@soak.example`, name: 'Soak Pilot', passwordHash: 'not-a-password-hash' });
+  const user = await User.create({
+    email: `soak-${randomBytes(4).toString('hex')}@soak.example`,
+    name: 'Soak Pilot',
+    passwordHash: 'not-a-password-hash',
+  });
   const workspace = await Workspace.create({ name: 'Soak field' });
   await Membership.create({ workspaceId: workspace.id, userId: user.id, role: 'editor' });
   const models: SetupModel[] = [];
   for (let index = 0; index < MODELS; index++) {
-    const { model } = await createModel(sequelize, { workspace, author: user, name: `Soak model ${index + 1}`, yaml: DEMO_SETUP });
+    const { model } = await createModel(sequelize, {
+      workspace,
+      author: user,
+      name: `Soak model ${index + 1}`,
+      yaml: DEMO_SETUP,
+    });
     for (let number = 1; number < HISTORY_PER_MODEL; number++) {
-      await saveRevision(sequelize, { modelId: model.id, author: user, base: number, yaml: demoVariant(index * 1000 + number), message: `Seeded ${number + 1}` });
+      await saveRevision(sequelize, {
+        modelId: model.id,
+        author: user,
+        base: number,
+        yaml: demoVariant(index * 1000 + number),
+        message: `Seeded ${number + 1}`,
+      });
     }
     models.push(model);
   }
   return { user, workspace, models };
 }
 
-const percentile = (sorted: number[], p: number): number => (sorted.length === 0 ? 0 : sorted[Math.min(sorted.length - 1, Math.ceil((p / 100) * sorted.length) - 1)]);
+const percentile = (sorted: number[], p: number): number =>
+  sorted.length === 0 ? 0 : sorted[Math.min(sorted.length - 1, Math.ceil((p / 100) * sorted.length) - 1)];
 const pick = <T>(items: readonly T[]): T => items[Math.floor(Math.random() * items.length)];
 
 function pickKind(): Kind {
@@ -138,20 +159,36 @@ async function runLoad(api: string, headers: Record<string, string>, workspaceId
   const saved: SavedAnswer[] = [];
   const revisionIds = new Map<string, string[]>();
   for (const model of models) {
-    const page = (await (await fetch(`${api}/api/models/${model.id}/revisions?limit=100`, { headers })).json()) as { data: { id: string }[] };
-    revisionIds.set(model.id, page.data.map((revision) => revision.id));
+    const page = (await (await fetch(`${api}/api/models/${model.id}/revisions?limit=100`, { headers })).json()) as {
+      data: { id: string }[];
+    };
+    revisionIds.set(
+      model.id,
+      page.data.map((revision) => revision.id),
+    );
   }
   const start = performance.now();
   const deadline = start + DURATION_MS;
   let variant = 1_000_000;
   let conflicts = 0;
 
-  async function timed(kind: Kind, url: string, init: RequestInit = {}): Promise<{ status: number; text: string } | null> {
+  async function timed(
+    kind: Kind,
+    url: string,
+    init: RequestInit = {},
+  ): Promise<{ status: number; text: string } | null> {
     const begun = performance.now();
     try {
-      const response = await fetch(url, { ...init, headers: { ...headers, ...(init.headers as Record<string, string>) }, signal: AbortSignal.timeout(REQUEST_TIMEOUT_MS) });
+      const response = await fetch(url, {
+        ...init,
+        headers: { ...headers, ...(init.headers as Record<string, string>) },
+        signal: AbortSignal.timeout(REQUEST_TIMEOUT_MS),
+      });
       const text = await response.text();
-      const code = response.status >= 400 ? ((JSON.parse(text) as { error?: { code?: string } }).error?.code ?? 'no-code') : undefined;
+      const code =
+        response.status >= 400
+          ? ((JSON.parse(text) as { error?: { code?: string } }).error?.code ?? 'no-code')
+          : undefined;
       samples.push({ kind, status: response.status, code, ms: performance.now() - begun, at: begun });
       return { status: response.status, text };
     } catch (error) {
@@ -199,14 +236,25 @@ async function runLoad(api: string, headers: Record<string, string>, workspaceId
 }
 
 async function verify(sequelize: Sequelize, saved: SavedAnswer[], modelIds: string[]) {
-  const rows = await sequelize.query<{ id: string; model_id: string; number: number; parent_id: string | null; content_hash: string; document: unknown; yaml_text: string; findings: unknown }>(
+  const rows = await sequelize.query<{
+    id: string;
+    model_id: string;
+    number: number;
+    parent_id: string | null;
+    content_hash: string;
+    document: unknown;
+    yaml_text: string;
+    findings: unknown;
+  }>(
     'SELECT id, model_id, number, parent_id, content_hash, document, yaml_text, findings FROM revisions WHERE model_id = ANY($ids::uuid[]) ORDER BY model_id, number',
     { bind: { ids: modelIds }, type: QueryTypes.SELECT },
   );
   const byId = new Map(rows.map((row) => [row.id, row]));
   const missing = saved.filter((answer) => {
     const row = byId.get(answer.id);
-    return !row || row.number !== answer.number || row.model_id !== answer.modelId || row.content_hash !== answer.contentHash;
+    return (
+      !row || row.number !== answer.number || row.model_id !== answer.modelId || row.content_hash !== answer.contentHash
+    );
   });
   let gaps = 0;
   let brokenParents = 0;
@@ -217,7 +265,13 @@ async function verify(sequelize: Sequelize, saved: SavedAnswer[], modelIds: stri
     if (first ? row.parent_id !== null : row.parent_id !== previous!.id) brokenParents++;
     previous = row;
   }
-  const partial = rows.filter((row) => !row.yaml_text || row.document === null || !Array.isArray(row.findings) || contentHash(row.document) !== row.content_hash).length;
+  const partial = rows.filter(
+    (row) =>
+      !row.yaml_text ||
+      row.document === null ||
+      !Array.isArray(row.findings) ||
+      contentHash(row.document) !== row.content_hash,
+  ).length;
   const answeredIds = new Set(saved.map((answer) => answer.id));
   const soakRows = rows.filter((row) => row.number > HISTORY_PER_MODEL);
   const unanswered = soakRows.filter((row) => !answeredIds.has(row.id)).length;
@@ -226,10 +280,24 @@ async function verify(sequelize: Sequelize, saved: SavedAnswer[], modelIds: stri
        AND NOT EXISTS (SELECT 1 FROM audit_events a WHERE a.subject_type = 'revision' AND a.subject_id = r.id)`,
     { bind: { ids: modelIds, seeded: HISTORY_PER_MODEL }, type: QueryTypes.SELECT },
   );
-  return { rows: rows.length, soakRows: soakRows.length, missing: missing.length, gaps, brokenParents, partial, unanswered, unaudited };
+  return {
+    rows: rows.length,
+    soakRows: soakRows.length,
+    missing: missing.length,
+    gaps,
+    brokenParents,
+    partial,
+    unanswered,
+    unaudited,
+  };
 }
 
-function report(load: Awaited<ReturnType<typeof runLoad>>, outage: Outage, checks: Awaited<ReturnType<typeof verify>>, extra: { recoveryMs: number | null; apiAlive: boolean; loggedUnexpected: number }) {
+function report(
+  load: Awaited<ReturnType<typeof runLoad>>,
+  outage: Outage,
+  checks: Awaited<ReturnType<typeof verify>>,
+  extra: { recoveryMs: number | null; apiAlive: boolean; loggedUnexpected: number },
+) {
   const { samples, elapsedMs } = load;
   // Requests sent while the server was away, and in the second after it was back.
   const during = (sample: Sample) => sample.at + sample.ms >= outage.from && sample.at <= outage.to + 1_000;
@@ -244,15 +312,21 @@ function report(load: Awaited<ReturnType<typeof runLoad>>, outage: Outage, check
       const key = sample.code ? `${sample.status} ${sample.code}` : String(sample.status);
       counts.set(key, (counts.get(key) ?? 0) + 1);
     }
-    return [...counts.entries()].sort().map(([status, count]) => `${status}: ${count}`).join(', ');
+    return [...counts.entries()]
+      .sort()
+      .map(([status, count]) => `${status}: ${count}`)
+      .join(', ');
   };
 
-  console.log(`\nLoad: ${CLIENTS} clients for ${(elapsedMs / 1000).toFixed(1)} s; PostgreSQL killed at ${((outage.from - load.start) / 1000).toFixed(1)} s, running again at ${((outage.to - load.start) / 1000).toFixed(1)} s`);
+  console.log(
+    `\nLoad: ${CLIENTS} clients for ${(elapsedMs / 1000).toFixed(1)} s; PostgreSQL killed at ${((outage.from - load.start) / 1000).toFixed(1)} s, running again at ${((outage.to - load.start) / 1000).toFixed(1)} s`,
+  );
   line('requests', samples.length);
   line('requests per second', (samples.length / (elapsedMs / 1000)).toFixed(0));
   line('latency, all', latency(samples));
   line('latency, outside the outage', latency(samples.filter((sample) => !during(sample))));
-  for (const [kind] of MIX) line(`latency, ${kind}`, latency(samples.filter((sample) => sample.kind === kind && !during(sample))));
+  for (const [kind] of MIX)
+    line(`latency, ${kind}`, latency(samples.filter((sample) => sample.kind === kind && !during(sample))));
   line('answers by status', statuses(samples));
   line('  during the outage (+1 s)', statuses(samples.filter(during)) || 'none');
   line('  outside the outage', statuses(samples.filter((sample) => !during(sample))));
@@ -261,7 +335,10 @@ function report(load: Awaited<ReturnType<typeof runLoad>>, outage: Outage, check
   line('500 answers', samples.filter((sample) => sample.status === 500).length);
   line('saves answered 201', load.saved.length);
   line('saves answered 409 (stale base)', load.conflicts);
-  line('first 200 from /api/health after restart', extra.recoveryMs === null ? 'never' : `${extra.recoveryMs.toFixed(0)} ms`);
+  line(
+    'first 200 from /api/health after restart',
+    extra.recoveryMs === null ? 'never' : `${extra.recoveryMs.toFixed(0)} ms`,
+  );
   line('API process alive at the end', extra.apiAlive ? 'yes' : 'NO');
   line('unexpected errors the API logged', extra.loggedUnexpected);
 
@@ -291,7 +368,9 @@ async function main(): Promise<number> {
     const logFile = path.join(folder, 'api-stderr.log');
     api = await startApi(cluster.url, logFile);
     const headers = { Authorization: `Bearer ${signSession(user, defaultConfig({ jwtSecret: api.jwtSecret }))}` };
-    console.log(`API at ${api.url}; ${MODELS} models with ${HISTORY_PER_MODEL} revisions each; ${CLIENTS} clients for ${DURATION_MS / 1000} s.`);
+    console.log(
+      `API at ${api.url}; ${MODELS} models with ${HISTORY_PER_MODEL} revisions each; ${CLIENTS} clients for ${DURATION_MS / 1000} s.`,
+    );
 
     const outage: Outage = { from: 0, to: 0 };
     const running = cluster;
@@ -301,7 +380,9 @@ async function main(): Promise<number> {
     await pgCtl(running, ['-D', running.dataDir, '-m', 'immediate', 'stop']);
     console.log('  PostgreSQL killed (pg_ctl -m immediate)');
     // Starting again (crash recovery, pg_ctl waiting for connections) takes about a second of the outage.
-    await new Promise((resolve) => setTimeout(resolve, Math.max(0, OUTAGE_MS - 1_000 - (performance.now() - outage.from))));
+    await new Promise((resolve) =>
+      setTimeout(resolve, Math.max(0, OUTAGE_MS - 1_000 - (performance.now() - outage.from))),
+    );
     await running.start();
     outage.to = performance.now();
     console.log(`  PostgreSQL running again after ${((outage.to - outage.from) / 1000).toFixed(1)} s`);
@@ -313,7 +394,11 @@ async function main(): Promise<number> {
     }
     const load = await loadPromise;
     const apiAlive = api.child.exitCode === null && api.child.signalCode === null;
-    const checks = await verify(sequelize, load.saved, models.map((model) => model.id));
+    const checks = await verify(
+      sequelize,
+      load.saved,
+      models.map((model) => model.id),
+    );
     const logged = readFileSync(logFile, 'utf8');
     const loggedUnexpected = (logged.match(/\[internal-error\]/g) ?? []).length;
     report(load, outage, checks, { recoveryMs, apiAlive, loggedUnexpected });

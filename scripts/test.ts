@@ -34,7 +34,11 @@ delete env.JWT_SECRET;
 async function runVitest(label: string, args: string[]): Promise<RunTotals> {
   const report = path.join(reportDir, `${label.replace(/[^a-z0-9]+/gi, '-')}.json`);
   console.log(`\n=== ${label} ===`);
-  const exitCode = await runCommand(bin('vitest'), ['run', ...args, '--reporter=default', '--reporter=json', `--outputFile.json=${report}`], { env });
+  const exitCode = await runCommand(
+    bin('vitest'),
+    ['run', ...args, '--reporter=default', '--reporter=json', `--outputFile.json=${report}`],
+    { env },
+  );
   if (!existsSync(report)) return { label, exitCode: exitCode || 1, passed: 0, failed: 0, skipped: 0, reported: false };
   const totals = JSON.parse(readFileSync(report, 'utf8')) as VitestJsonReport;
   return {
@@ -48,10 +52,15 @@ async function runVitest(label: string, args: string[]): Promise<RunTotals> {
 }
 
 async function main(): Promise<number> {
-  const runs = [await runVitest('unit, api and component tests', []), await runVitest('browser tests', ['--config', 'tests/e2e/vitest.config.ts'])];
+  const runs = [
+    await runVitest('unit, api and component tests', []),
+    await runVitest('browser tests', ['--config', 'tests/e2e/vitest.config.ts']),
+  ];
   console.log('\n=== summary ===');
   for (const run of runs) {
-    const state = run.reported ? `${run.passed} passed, ${run.failed} failed, ${run.skipped} skipped` : 'did not run (see the output above)';
+    const state = run.reported
+      ? `${run.passed} passed, ${run.failed} failed, ${run.skipped} skipped`
+      : 'did not run (see the output above)';
     console.log(`${run.label}: ${state}${run.exitCode !== 0 ? ` (exit ${run.exitCode})` : ''}`);
   }
   const sum = (key: 'passed' | 'failed' | 'skipped') => runs.reduce((total, run) => total + run[key], 0);

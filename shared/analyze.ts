@@ -35,7 +35,13 @@ export function analyzeSetupFast(text: string): Analysis | null {
   if (sizeProblem(text)) return null;
   const data = readSetupFast(text);
   if (!data) return null;
-  const { setup, findings } = runChecks({ readable: true, data, document: null, lineCounter: new LineCounter(), problems: [] });
+  const { setup, findings } = runChecks({
+    readable: true,
+    data,
+    document: null,
+    lineCounter: new LineCounter(),
+    problems: [],
+  });
   if (findings.length > 0) return null;
   return { readable: true, data, setup, findings, counts: countFindings(findings) };
 }

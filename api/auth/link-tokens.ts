@@ -15,7 +15,11 @@ const audience = (purpose: LinkPurpose) => `bindery:${purpose}`;
 const claimsSchema = z.object({ jti: z.uuid() });
 
 export function signLinkToken(purpose: LinkPurpose, id: string, expiresAt: Date, config: AppConfig): string {
-  return jwt.sign({ exp: Math.floor(expiresAt.getTime() / 1000) }, config.jwtSecret, { algorithm: ALGORITHM, audience: audience(purpose), jwtid: id });
+  return jwt.sign({ exp: Math.floor(expiresAt.getTime() / 1000) }, config.jwtSecret, {
+    algorithm: ALGORITHM,
+    audience: audience(purpose),
+    jwtid: id,
+  });
 }
 
 const WORDS: Record<LinkPurpose, string> = { invitation: 'invitation link', 'password-reset': 'password reset link' };
@@ -29,13 +33,20 @@ export function verifyLinkToken(purpose: LinkPurpose, token: string, config: App
   } catch (error) {
     if (error instanceof jwt.TokenExpiredError) throw linkExpired(purpose);
   }
-  throw new Unauthorized(`This ${WORDS[purpose]} is not valid. Check that the whole address was copied.`, { code: 'invalid-token' });
+  throw new Unauthorized(`This ${WORDS[purpose]} is not valid. Check that the whole address was copied.`, {
+    code: 'invalid-token',
+  });
 }
 
 export const linkExpired = (purpose: LinkPurpose) =>
-  new Unauthorized(`This ${WORDS[purpose]} has expired.${purpose === 'invitation' ? ' Ask the workspace owner to invite you again.' : ' Ask for a new one.'}`, {
-    code: 'token-expired',
-  });
+  new Unauthorized(
+    `This ${WORDS[purpose]} has expired.${purpose === 'invitation' ? ' Ask the workspace owner to invite you again.' : ' Ask for a new one.'}`,
+    {
+      code: 'token-expired',
+    },
+  );
 
 export const linkUsed = (purpose: LinkPurpose) =>
-  new HttpError(410, 'gone', `This ${WORDS[purpose]} has already been used; each one works once.`, { code: 'token-used' });
+  new HttpError(410, 'gone', `This ${WORDS[purpose]} has already been used; each one works once.`, {
+    code: 'token-used',
+  });

@@ -7,10 +7,14 @@ import { emailTaken } from './create-account';
 import { createWorkspace } from './create-workspace';
 import { recordAuditEvent } from './record-audit-event';
 
-export const invitationNotFound = () => new NotFound('This invitation no longer exists.', { code: 'invitation-not-found' });
+export const invitationNotFound = () =>
+  new NotFound('This invitation no longer exists.', { code: 'invitation-not-found' });
 
 /** The invitation a verified token names, refused unless it can still be accepted. */
-export async function openInvitation(id: string, transaction?: Transaction): Promise<Invitation & { workspace: Workspace }> {
+export async function openInvitation(
+  id: string,
+  transaction?: Transaction,
+): Promise<Invitation & { workspace: Workspace }> {
   const invitation = await Invitation.findByPk(id, {
     include: [
       { model: Workspace, as: 'workspace', required: true },
@@ -23,16 +27,30 @@ export async function openInvitation(id: string, transaction?: Transaction): Pro
   if (!invitation?.workspace) throw invitationNotFound();
   const status = invitation.statusAt(new Date());
   if (status === 'accepted') throw linkUsed('invitation');
-  if (status === 'revoked') throw new HttpError(410, 'gone', 'This invitation was withdrawn by the workspace owner.', { code: 'invitation-revoked' });
+  if (status === 'revoked')
+    throw new HttpError(410, 'gone', 'This invitation was withdrawn by the workspace owner.', {
+      code: 'invitation-revoked',
+    });
   if (status === 'expired') throw linkExpired('invitation');
   return invitation as Invitation & { workspace: Workspace };
 }
 
 const alreadyMember = (workspace: Workspace) =>
-  new Conflict(`You are already a member of ${workspace.name}.`, { code: 'already-member', details: { workspace_id: workspace.id } });
+  new Conflict(`You are already a member of ${workspace.name}.`, {
+    code: 'already-member',
+    details: { workspace_id: workspace.id },
+  });
 
-async function join(invitation: Invitation & { workspace: Workspace }, user: User, transaction: Transaction, created: boolean): Promise<Membership> {
-  const membership = await Membership.create({ workspaceId: invitation.workspaceId, userId: user.id, role: invitation.role }, { transaction });
+async function join(
+  invitation: Invitation & { workspace: Workspace },
+  user: User,
+  transaction: Transaction,
+  created: boolean,
+): Promise<Membership> {
+  const membership = await Membership.create(
+    { workspaceId: invitation.workspaceId, userId: user.id, role: invitation.role },
+    { transaction },
+  );
   await invitation.update({ acceptedAt: new Date(), acceptedBy: user.id }, { transaction });
   await recordAuditEvent(
     {
@@ -41,7 +59,13 @@ async function join(invitation: Invitation & { workspace: Workspace }, user: Use
       action: 'member.joined',
       subjectType: 'member',
       subjectId: user.id,
-      details: { invitation_id: invitation.id, email: invitation.email, name: user.name, role: invitation.role, new_account: created },
+      details: {
+        invitation_id: invitation.id,
+        email: invitation.email,
+        name: user.name,
+        role: invitation.role,
+        new_account: created,
+      },
     },
     transaction,
   );
@@ -49,10 +73,17 @@ async function join(invitation: Invitation & { workspace: Workspace }, user: Use
 }
 
 /** The signed-in user takes the invitation's role in its workspace. */
-export async function acceptAsMember(sequelize: Sequelize, invitationId: string, user: User): Promise<{ invitation: Invitation & { workspace: Workspace }; membership: Membership }> {
+export async function acceptAsMember(
+  sequelize: Sequelize,
+  invitationId: string,
+  user: User,
+): Promise<{ invitation: Invitation & { workspace: Workspace }; membership: Membership }> {
   return sequelize.transaction(async (transaction) => {
     const invitation = await openInvitation(invitationId, transaction);
-    const existing = await Membership.findOne({ where: { workspaceId: invitation.workspaceId, userId: user.id }, transaction });
+    const existing = await Membership.findOne({
+      where: { workspaceId: invitation.workspaceId, userId: user.id },
+      transaction,
+    });
     if (existing) throw alreadyMember(invitation.workspace);
     return { invitation, membership: await join(invitation, user, transaction, false) };
   });
@@ -69,7 +100,10 @@ export async function acceptWithNewAccount(
     return await sequelize.transaction(async (transaction) => {
       const invitation = await openInvitation(invitationId, transaction);
       if (await User.findOne({ where: { email: invitation.email }, transaction })) {
-        throw new Conflict(`An account for ${invitation.email} exists already: sign in with it, then open the invitation link again.`, { code: 'account-exists' });
+        throw new Conflict(
+          `An account for ${invitation.email} exists already: sign in with it, then open the invitation link again.`,
+          { code: 'account-exists' },
+        );
       }
       const user = await User.create({ email: invitation.email, name: account.name, passwordHash }, { transaction });
       await createWorkspace(user, `${account.name}'s workspace`, transaction);

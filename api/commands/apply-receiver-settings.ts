@@ -16,30 +16,46 @@ export interface Applied extends SlotCheck {
  * with what it held before. `revisionId`, when given, is the revision whose check the
  * pilot worked from; a newer one since is refused rather than recorded unseen.
  */
-export async function applyReceiverSettings(sequelize: Sequelize, input: { receiverId: string; actor: User; revisionId?: string }): Promise<Applied> {
+export async function applyReceiverSettings(
+  sequelize: Sequelize,
+  input: { receiverId: string; actor: User; revisionId?: string },
+): Promise<Applied> {
   return sequelize.transaction(async (transaction) => {
-    const receiver = await Receiver.findByPk(input.receiverId, { transaction, lock: transaction.LOCK.UPDATE, rejectOnEmpty: true });
+    const receiver = await Receiver.findByPk(input.receiverId, {
+      transaction,
+      lock: transaction.LOCK.UPDATE,
+      rejectOnEmpty: true,
+    });
     const install = await ReceiverInstall.findOne({
       where: { receiverId: receiver.id, removedAt: null },
       include: [{ model: SetupModel, as: 'model' }],
       transaction,
     });
     if (!install?.model) {
-      throw new Conflict(`${receiver.label} is not installed anywhere: install it into a slot first, then apply that slot's settings.`, { code: 'not-installed' });
+      throw new Conflict(
+        `${receiver.label} is not installed anywhere: install it into a slot first, then apply that slot's settings.`,
+        { code: 'not-installed' },
+      );
     }
     const placed = await checkAgainstLatest(receiver, install.model, install.slot, transaction);
     if (input.revisionId && input.revisionId !== placed.revision.id) {
-      throw new Conflict(`${install.model.name} has a newer revision (${placed.revision.number}) than the one these settings came from; check again before applying.`, {
-        code: 'stale-revision',
-        details: { latest: { id: placed.revision.id, number: placed.revision.number } },
-      });
+      throw new Conflict(
+        `${install.model.name} has a newer revision (${placed.revision.number}) than the one these settings came from; check again before applying.`,
+        {
+          code: 'stale-revision',
+          details: { latest: { id: placed.revision.id, number: placed.revision.number } },
+        },
+      );
     }
     const blocking = placed.check.notes.filter((note) => note.blocking);
     if (blocking.length > 0) {
-      throw new Unprocessable(`${receiver.label} cannot hold this slot's settings: ${blocking.map((note) => note.message).join(' ')}`, {
-        code: 'unit-cannot-carry',
-        details: { notes: blocking },
-      });
+      throw new Unprocessable(
+        `${receiver.label} cannot hold this slot's settings: ${blocking.map((note) => note.message).join(' ')}`,
+        {
+          code: 'unit-cannot-carry',
+          details: { notes: blocking },
+        },
+      );
     }
     const before = receiver.storedSettings ?? null;
     const now = new Date();

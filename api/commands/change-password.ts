@@ -8,7 +8,11 @@ import { User } from '../models';
  * version so every session of the account ends, the one that may have leaked
  * included; the caller re-issues a session for the device that asked.
  */
-export async function changePassword(sequelize: Sequelize, user: User, input: { current: string; password: string }): Promise<User> {
+export async function changePassword(
+  sequelize: Sequelize,
+  user: User,
+  input: { current: string; password: string },
+): Promise<User> {
   if (!(await verifyPassword(input.current, user.passwordHash))) {
     throw new Forbidden('The current password is not right, so the password was not changed.', {
       code: 'wrong-password',

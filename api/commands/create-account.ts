@@ -18,7 +18,10 @@ export const emailTaken = () =>
   });
 
 /** The user and a personal workspace they own, together or not at all. */
-export async function createAccount(sequelize: Sequelize, input: NewAccount): Promise<{ user: User; workspace: Workspace }> {
+export async function createAccount(
+  sequelize: Sequelize,
+  input: NewAccount,
+): Promise<{ user: User; workspace: Workspace }> {
   const passwordHash = await hashPassword(input.password);
   try {
     return await sequelize.transaction(async (transaction) => {

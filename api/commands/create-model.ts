@@ -37,7 +37,11 @@ export interface FirstRevision {
 }
 
 /** A model and its revision 1, in the caller's transaction. */
-export async function insertModelWithFirstRevision(sequelize: Sequelize, input: FirstRevision, transaction: Transaction): Promise<CreatedModel> {
+export async function insertModelWithFirstRevision(
+  sequelize: Sequelize,
+  input: FirstRevision,
+  transaction: Transaction,
+): Promise<CreatedModel> {
   const timestamps = input.createdAt ? { createdAt: input.createdAt, updatedAt: input.createdAt } : {};
   const model = await SetupModel.create(
     {
@@ -54,7 +58,13 @@ export async function insertModelWithFirstRevision(sequelize: Sequelize, input: 
     sequelize,
     { model, latest: null },
     input.setup,
-    { author: input.author, message: input.message, origin: input.origin, sourceRevisionId: input.sourceRevision?.id ?? null, createdAt: input.createdAt },
+    {
+      author: input.author,
+      message: input.message,
+      origin: input.origin,
+      sourceRevisionId: input.sourceRevision?.id ?? null,
+      createdAt: input.createdAt,
+    },
     transaction,
   );
   return { model, revision };
@@ -73,7 +83,15 @@ export async function createModel(sequelize: Sequelize, input: CreateModelInput)
   return inTransaction(sequelize, input.transaction, async (transaction) => {
     const created = await insertModelWithFirstRevision(
       sequelize,
-      { workspace: input.workspace, author: input.author, name: input.name, setup, message, origin, createdAt: input.createdAt },
+      {
+        workspace: input.workspace,
+        author: input.author,
+        name: input.name,
+        setup,
+        message,
+        origin,
+        createdAt: input.createdAt,
+      },
       transaction,
     );
     await recordAuditEvent(
@@ -83,7 +101,12 @@ export async function createModel(sequelize: Sequelize, input: CreateModelInput)
         action: 'model.created',
         subjectType: 'model',
         subjectId: created.model.id,
-        details: { name: created.model.name, revision_id: created.revision.id, origin, content_hash: created.revision.contentHash },
+        details: {
+          name: created.model.name,
+          revision_id: created.revision.id,
+          origin,
+          content_hash: created.revision.contentHash,
+        },
         createdAt: input.createdAt,
       },
       transaction,

@@ -28,11 +28,23 @@ export async function forkModel(sequelize: Sequelize, input: ForkInput): Promise
   const { model: sourceModel, revision: sourceRevision } = input.source;
   const setup = checkSetupText(sourceRevision.yamlText);
   const name = input.name ?? defaultForkName(sourceModel.name);
-  const message = input.message && input.message.length > 0 ? input.message : `Forked from ${sourceModel.name}, revision ${sourceRevision.number}`;
+  const message =
+    input.message && input.message.length > 0
+      ? input.message
+      : `Forked from ${sourceModel.name}, revision ${sourceRevision.number}`;
   return inTransaction(sequelize, input.transaction, async (transaction) => {
     const created = await insertModelWithFirstRevision(
       sequelize,
-      { workspace: input.workspace, author: input.author, name, setup, message, origin: 'fork', sourceRevision, createdAt: input.createdAt },
+      {
+        workspace: input.workspace,
+        author: input.author,
+        name,
+        setup,
+        message,
+        origin: 'fork',
+        sourceRevision,
+        createdAt: input.createdAt,
+      },
       transaction,
     );
     const details = {
@@ -44,7 +56,15 @@ export async function forkModel(sequelize: Sequelize, input: ForkInput): Promise
       source_workspace_id: sourceModel.workspaceId,
     };
     await recordAuditEvent(
-      { workspaceId: input.workspace.id, actor: input.author, action: 'model.forked', subjectType: 'model', subjectId: created.model.id, details, createdAt: input.createdAt },
+      {
+        workspaceId: input.workspace.id,
+        actor: input.author,
+        action: 'model.forked',
+        subjectType: 'model',
+        subjectId: created.model.id,
+        details,
+        createdAt: input.createdAt,
+      },
       transaction,
     );
     return created;

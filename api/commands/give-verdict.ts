@@ -18,10 +18,19 @@ export interface VerdictInput {
 }
 
 /** Ticks and unticks checklist items of a review in the caller's transaction. */
-export async function setTicks(review: Review, user: User, changes: Record<string, boolean>, transaction: Transaction): Promise<void> {
+export async function setTicks(
+  review: Review,
+  user: User,
+  changes: Record<string, boolean>,
+  transaction: Transaction,
+): Promise<void> {
   for (const [item, ticked] of Object.entries(changes)) {
     if (ticked) {
-      await ChecklistTick.findOrCreate({ where: { reviewId: review.id, item }, defaults: { reviewId: review.id, item, tickedBy: user.id }, transaction });
+      await ChecklistTick.findOrCreate({
+        where: { reviewId: review.id, item },
+        defaults: { reviewId: review.id, item, tickedBy: user.id },
+        transaction,
+      });
     } else {
       await ChecklistTick.destroy({ where: { reviewId: review.id, item }, transaction });
     }
@@ -32,7 +41,9 @@ export async function setTicks(review: Review, user: User, changes: Record<strin
 export function approvalRefusal(access: Pick<ReviewAccess, 'review'>, user: User): Forbidden | Unprocessable | null {
   const { revision } = access.review;
   if (revision.authorId === user.id) {
-    return new Forbidden('Nobody approves their own revision: ask another reviewer to sign it off.', { code: 'own-revision' });
+    return new Forbidden('Nobody approves their own revision: ask another reviewer to sign it off.', {
+      code: 'own-revision',
+    });
   }
   if (revision.errorCount > 0) {
     return new Unprocessable(
@@ -47,7 +58,13 @@ export function approvalRefusal(access: Pick<ReviewAccess, 'review'>, user: User
  * Records a verdict pinned to the revision's content hash, applies its checklist
  * ticks, moves the review's state, and mails the requester and the author.
  */
-export async function giveVerdict(sequelize: Sequelize, mail: MailService, access: ReviewAccess, user: User, input: VerdictInput): Promise<{ verdict: ReviewVerdict; review: Review }> {
+export async function giveVerdict(
+  sequelize: Sequelize,
+  mail: MailService,
+  access: ReviewAccess,
+  user: User,
+  input: VerdictInput,
+): Promise<{ verdict: ReviewVerdict; review: Review }> {
   if (input.verdict === 'approve') {
     const refusal = approvalRefusal(access, user);
     if (refusal) throw refusal;
@@ -56,9 +73,22 @@ export async function giveVerdict(sequelize: Sequelize, mail: MailService, acces
   return sequelize.transaction(async (transaction) => {
     const review = await Review.findByPk(access.review.id, { lock: transaction.LOCK.UPDATE, transaction });
     if (!review) throw new Unprocessable('The review is gone.', { code: 'review-not-found' });
-    const verdict = await ReviewVerdict.create({ reviewId: review.id, reviewerId: user.id, verdict: input.verdict, body: input.body, contentHash: revision.contentHash }, { transaction });
+    const verdict = await ReviewVerdict.create(
+      {
+        reviewId: review.id,
+        reviewerId: user.id,
+        verdict: input.verdict,
+        body: input.body,
+        contentHash: revision.contentHash,
+      },
+      { transaction },
+    );
     await setTicks(review, user, input.checklist, transaction);
-    const all = await ReviewVerdict.findAll({ where: { reviewId: review.id }, attributes: ['reviewerId', 'verdict', 'createdAt'], transaction });
+    const all = await ReviewVerdict.findAll({
+      where: { reviewId: review.id },
+      attributes: ['reviewerId', 'verdict', 'createdAt'],
+      transaction,
+    });
     const next = reviewStateFromVerdicts(all);
     await review.update({ state: next.state, decidedAt: next.decidedAt }, { transaction });
     await recordAuditEvent(
@@ -68,7 +98,14 @@ export async function giveVerdict(sequelize: Sequelize, mail: MailService, acces
         action: 'review.verdict',
         subjectType: 'review',
         subjectId: review.id,
-        details: { verdict: input.verdict, model_id: model.id, model_name: model.name, revision_id: revision.id, number: revision.number, content_hash: revision.contentHash },
+        details: {
+          verdict: input.verdict,
+          model_id: model.id,
+          model_name: model.name,
+          revision_id: revision.id,
+          number: revision.number,
+          content_hash: revision.contentHash,
+        },
       },
       transaction,
     );

@@ -38,10 +38,13 @@ async function occupantOf(modelId: string, slot: string, transaction: Transactio
 }
 
 function slotOccupied(model: SetupModel, slot: string, occupant: { id: string; label: string } | null): Conflict {
-  return new Conflict(`Slot ${slot} of ${model.name} already holds ${occupant ? occupant.label : 'another unit'}; remove it first.`, {
-    code: 'slot-occupied',
-    details: { model: { id: model.id, name: model.name }, slot, receiver: occupant },
-  });
+  return new Conflict(
+    `Slot ${slot} of ${model.name} already holds ${occupant ? occupant.label : 'another unit'}; remove it first.`,
+    {
+      code: 'slot-occupied',
+      details: { model: { id: model.id, name: model.name }, slot, receiver: occupant },
+    },
+  );
 }
 
 /**
@@ -54,7 +57,11 @@ function slotOccupied(model: SetupModel, slot: string, occupant: { id: string; l
 export async function installReceiver(sequelize: Sequelize, input: InstallInput): Promise<Installed> {
   try {
     return await sequelize.transaction(async (transaction) => {
-      const receiver = await Receiver.findByPk(input.receiverId, { transaction, lock: transaction.LOCK.UPDATE, rejectOnEmpty: true });
+      const receiver = await Receiver.findByPk(input.receiverId, {
+        transaction,
+        lock: transaction.LOCK.UPDATE,
+        rejectOnEmpty: true,
+      });
       const placed = await checkAgainstLatest(receiver, input.model, input.slot, transaction);
       const current = await openInstallOf(receiver.id, transaction);
       if (current && current.modelId === input.model.id && current.slot === input.slot) {
@@ -68,18 +75,43 @@ export async function installReceiver(sequelize: Sequelize, input: InstallInput)
           `${receiver.label} is still installed in slot ${current.slot} of ${current.model?.name ?? 'another model'}. Remove it from there first, or move it in one step.`,
           {
             code: 'installed-elsewhere',
-            details: { install_id: current.id, model: { id: current.modelId, name: current.model?.name ?? null }, slot: current.slot, since: current.installedAt.toISOString() },
+            details: {
+              install_id: current.id,
+              model: { id: current.modelId, name: current.model?.name ?? null },
+              slot: current.slot,
+              since: current.installedAt.toISOString(),
+            },
           },
         );
       }
       const occupant = await occupantOf(input.model.id, input.slot, transaction);
-      if (occupant) throw slotOccupied(input.model, input.slot, occupant.receiver ? { id: occupant.receiver.id, label: occupant.receiver.label } : null);
+      if (occupant)
+        throw slotOccupied(
+          input.model,
+          input.slot,
+          occupant.receiver ? { id: occupant.receiver.id, label: occupant.receiver.label } : null,
+        );
 
       const now = new Date();
-      if (current) await closeInstall(receiver, current, input.actor, now, { moved_to: { model_id: input.model.id, model_name: input.model.name, slot: input.slot } }, transaction);
+      if (current)
+        await closeInstall(
+          receiver,
+          current,
+          input.actor,
+          now,
+          { moved_to: { model_id: input.model.id, model_name: input.model.name, slot: input.slot } },
+          transaction,
+        );
 
       const install = await ReceiverInstall.create(
-        { receiverId: receiver.id, modelId: input.model.id, slot: input.slot, revisionId: placed.revision.id, installedAt: now, installedBy: input.actor.id },
+        {
+          receiverId: receiver.id,
+          modelId: input.model.id,
+          slot: input.slot,
+          revisionId: placed.revision.id,
+          installedAt: now,
+          installedBy: input.actor.id,
+        },
         { transaction },
       );
       install.model = input.model;
@@ -100,7 +132,9 @@ export async function installReceiver(sequelize: Sequelize, input: InstallInput)
             revision_number: placed.revision.number,
             ready: placed.check.ready,
             changes: placed.check.changes.length,
-            moved_from: current ? { model_id: current.modelId, model_name: current.model?.name ?? null, slot: current.slot } : null,
+            moved_from: current
+              ? { model_id: current.modelId, model_name: current.model?.name ?? null, slot: current.slot }
+              : null,
           },
         },
         transaction,

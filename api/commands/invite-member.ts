@@ -23,7 +23,12 @@ export interface InviteInput {
  * only the newest link works. The mail goes out inside the transaction: when it cannot
  * be sent, no invitation is left behind.
  */
-export async function inviteMember(sequelize: Sequelize, config: AppConfig, mail: MailService, input: InviteInput): Promise<Invitation> {
+export async function inviteMember(
+  sequelize: Sequelize,
+  config: AppConfig,
+  mail: MailService,
+  input: InviteInput,
+): Promise<Invitation> {
   return sequelize.transaction(async (transaction) => {
     const existing = await User.findOne({
       where: { email: input.email },
@@ -39,10 +44,19 @@ export async function inviteMember(sequelize: Sequelize, config: AppConfig, mail
     const now = new Date();
     await Invitation.update(
       { revokedAt: now },
-      { where: { workspaceId: input.workspace.id, email: input.email, acceptedAt: null, revokedAt: null }, transaction },
+      {
+        where: { workspaceId: input.workspace.id, email: input.email, acceptedAt: null, revokedAt: null },
+        transaction,
+      },
     );
     const invitation = await Invitation.create(
-      { workspaceId: input.workspace.id, email: input.email, role: input.role, invitedBy: input.inviter.id, expiresAt: new Date(now.getTime() + INVITATION_TTL_MS) },
+      {
+        workspaceId: input.workspace.id,
+        email: input.email,
+        role: input.role,
+        invitedBy: input.inviter.id,
+        expiresAt: new Date(now.getTime() + INVITATION_TTL_MS),
+      },
       { transaction },
     );
     invitation.inviter = input.inviter;
@@ -77,6 +91,9 @@ export function pendingInvitations(workspaceId: string): Promise<Invitation[]> {
   return Invitation.findAll({
     where: { workspaceId, acceptedAt: null, revokedAt: null, expiresAt: { [Op.gt]: new Date() } },
     include: [{ model: User, as: 'inviter', attributes: ['id', 'name'] }],
-    order: [['createdAt', 'DESC'], ['id', 'DESC']],
+    order: [
+      ['createdAt', 'DESC'],
+      ['id', 'DESC'],
+    ],
   });
 }

@@ -4,20 +4,32 @@ import { Membership, User, type Workspace } from '../models';
 import type { Role } from '../policies/roles';
 import { recordAuditEvent } from './record-audit-event';
 
-const memberNotFound = () => new NotFound('This person is not a member of the workspace.', { code: 'member-not-found' });
+const memberNotFound = () =>
+  new NotFound('This person is not a member of the workspace.', { code: 'member-not-found' });
 
 const lastOwner = (doing: string) =>
-  new Conflict(`A workspace needs an owner: ${doing} would leave it without one. Make another member an owner first.`, { code: 'last-owner' });
+  new Conflict(`A workspace needs an owner: ${doing} would leave it without one. Make another member an owner first.`, {
+    code: 'last-owner',
+  });
 
 /**
  * Every membership of the workspace, locked for the rest of the transaction, so two
  * owners demoting each other at once cannot both succeed and leave no owner behind.
  */
 async function lockMembers(workspace: Workspace, transaction: Transaction): Promise<Membership[]> {
-  return Membership.findAll({ where: { workspaceId: workspace.id }, order: [['id', 'ASC']], lock: transaction.LOCK.UPDATE, transaction });
+  return Membership.findAll({
+    where: { workspaceId: workspace.id },
+    order: [['id', 'ASC']],
+    lock: transaction.LOCK.UPDATE,
+    transaction,
+  });
 }
 
-async function memberIn(memberships: Membership[], userId: string, transaction: Transaction): Promise<{ membership: Membership; user: User }> {
+async function memberIn(
+  memberships: Membership[],
+  userId: string,
+  transaction: Transaction,
+): Promise<{ membership: Membership; user: User }> {
   const membership = memberships.find((candidate) => candidate.userId === userId);
   if (!membership) throw memberNotFound();
   const user = await User.findByPk(userId, { transaction });
@@ -25,15 +37,20 @@ async function memberIn(memberships: Membership[], userId: string, transaction: 
   return { membership, user };
 }
 
-const ownerCount = (memberships: Membership[]) => memberships.filter((membership) => membership.role === 'owner').length;
+const ownerCount = (memberships: Membership[]) =>
+  memberships.filter((membership) => membership.role === 'owner').length;
 
-export async function changeMemberRole(sequelize: Sequelize, input: { workspace: Workspace; actor: User; userId: string; role: Role }): Promise<Membership> {
+export async function changeMemberRole(
+  sequelize: Sequelize,
+  input: { workspace: Workspace; actor: User; userId: string; role: Role },
+): Promise<Membership> {
   return sequelize.transaction(async (transaction) => {
     const memberships = await lockMembers(input.workspace, transaction);
     const { membership, user } = await memberIn(memberships, input.userId, transaction);
     const from = membership.role;
     if (from === input.role) return Object.assign(membership, { user });
-    if (from === 'owner' && ownerCount(memberships) === 1) throw lastOwner(`making ${user.name} ${input.role === 'editor' ? 'an' : 'a'} ${input.role}`);
+    if (from === 'owner' && ownerCount(memberships) === 1)
+      throw lastOwner(`making ${user.name} ${input.role === 'editor' ? 'an' : 'a'} ${input.role}`);
     await membership.update({ role: input.role }, { transaction });
     await recordAuditEvent(
       {
@@ -51,12 +68,16 @@ export async function changeMemberRole(sequelize: Sequelize, input: { workspace:
 }
 
 /** Removes a member; removing oneself is leaving the workspace. */
-export async function removeMember(sequelize: Sequelize, input: { workspace: Workspace; actor: User; userId: string }): Promise<void> {
+export async function removeMember(
+  sequelize: Sequelize,
+  input: { workspace: Workspace; actor: User; userId: string },
+): Promise<void> {
   await sequelize.transaction(async (transaction) => {
     const memberships = await lockMembers(input.workspace, transaction);
     const { membership, user } = await memberIn(memberships, input.userId, transaction);
     const leaving = user.id === input.actor.id;
-    if (membership.role === 'owner' && ownerCount(memberships) === 1) throw lastOwner(leaving ? 'leaving' : `removing ${user.name}`);
+    if (membership.role === 'owner' && ownerCount(memberships) === 1)
+      throw lastOwner(leaving ? 'leaving' : `removing ${user.name}`);
     await membership.destroy({ transaction });
     await recordAuditEvent(
       {

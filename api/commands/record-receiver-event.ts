@@ -12,6 +12,9 @@ export interface ReceiverEvent {
 }
 
 /** The shelf's entries in the workspace's audit trail, written in the change's own transaction. */
-export function recordReceiverEvent({ receiverId, ...event }: ReceiverEvent, transaction: Transaction): Promise<AuditEvent> {
+export function recordReceiverEvent(
+  { receiverId, ...event }: ReceiverEvent,
+  transaction: Transaction,
+): Promise<AuditEvent> {
   return recordAuditEvent({ ...event, subjectType: 'receiver', subjectId: receiverId }, transaction);
 }

@@ -21,7 +21,13 @@ export async function closeInstall(
       action: 'receiver.removed',
       receiverId: receiver.id,
       createdAt: at,
-      details: { install_id: install.id, model_id: install.modelId, model_name: install.model?.name ?? null, slot: install.slot, ...extra },
+      details: {
+        install_id: install.id,
+        model_id: install.modelId,
+        model_name: install.model?.name ?? null,
+        slot: install.slot,
+        ...extra,
+      },
     },
     transaction,
   );
@@ -29,9 +35,17 @@ export async function closeInstall(
 }
 
 /** Takes the unit out of its slot and back onto the shelf; 409 when it is not installed anywhere. */
-export async function removeReceiver(sequelize: Sequelize, receiverId: string, actor: User): Promise<{ receiver: Receiver; install: ReceiverInstall }> {
+export async function removeReceiver(
+  sequelize: Sequelize,
+  receiverId: string,
+  actor: User,
+): Promise<{ receiver: Receiver; install: ReceiverInstall }> {
   return sequelize.transaction(async (transaction) => {
-    const receiver = await Receiver.findByPk(receiverId, { transaction, lock: transaction.LOCK.UPDATE, rejectOnEmpty: true });
+    const receiver = await Receiver.findByPk(receiverId, {
+      transaction,
+      lock: transaction.LOCK.UPDATE,
+      rejectOnEmpty: true,
+    });
     const install = await ReceiverInstall.findOne({
       where: { receiverId, removedAt: null },
       include: [{ model: SetupModel, as: 'model', attributes: ['id', 'name'] }],

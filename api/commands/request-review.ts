@@ -17,7 +17,10 @@ export interface ReviewRequest {
 }
 
 const reviewersRefused = (message: string, userIds: string[]) =>
-  new Unprocessable(message, { code: 'invalid-reviewers', details: { fields: { reviewers: message }, user_ids: userIds } });
+  new Unprocessable(message, {
+    code: 'invalid-reviewers',
+    details: { fields: { reviewers: message }, user_ids: userIds },
+  });
 
 /** The members who may review, in the order asked; refuses anyone else by name. */
 async function checkReviewers(input: ReviewRequest): Promise<User[]> {
@@ -31,12 +34,18 @@ async function checkReviewers(input: ReviewRequest): Promise<User[]> {
   const tooLow = input.reviewerIds.filter((id) => !roleAtLeast(byUser.get(id)!.role, 'reviewer'));
   if (tooLow.length > 0) {
     const names = tooLow.map((id) => byUser.get(id)!.user!.name).join(', ');
-    throw reviewersRefused(`Reviewers need the reviewer role or higher; ${names} ${tooLow.length === 1 ? 'is a viewer' : 'are viewers'}.`, tooLow);
+    throw reviewersRefused(
+      `Reviewers need the reviewer role or higher; ${names} ${tooLow.length === 1 ? 'is a viewer' : 'are viewers'}.`,
+      tooLow,
+    );
   }
   if (input.reviewerIds.includes(input.revision.authorId)) {
     throw new Unprocessable('The author of a revision cannot review it: nobody signs off their own setup.', {
       code: 'reviewer-is-author',
-      details: { fields: { reviewers: 'Choose reviewers other than the author of this revision.' }, user_ids: [input.revision.authorId] },
+      details: {
+        fields: { reviewers: 'Choose reviewers other than the author of this revision.' },
+        user_ids: [input.revision.authorId],
+      },
     });
   }
   return input.reviewerIds.map((id) => byUser.get(id)!.user!);
@@ -50,10 +59,16 @@ export async function requestReview(sequelize: Sequelize, mail: MailService, inp
   const reviewers = await checkReviewers(input);
   return sequelize.transaction(async (transaction) => {
     // Serialises requests on one revision, so two at once cannot both be "the" open one.
-    await sequelize.query('SELECT pg_advisory_xact_lock(hashtext($id))', { bind: { id: input.revision.id }, transaction });
+    await sequelize.query('SELECT pg_advisory_xact_lock(hashtext($id))', {
+      bind: { id: input.revision.id },
+      transaction,
+    });
     const open = await Review.findOne({ where: { revisionId: input.revision.id, state: 'open' }, transaction });
     if (open) {
-      throw new Conflict(`Revision ${input.revision.number} already has an open review; add reviewers' verdicts there.`, { code: 'review-open', details: { review_id: open.id } });
+      throw new Conflict(
+        `Revision ${input.revision.number} already has an open review; add reviewers' verdicts there.`,
+        { code: 'review-open', details: { review_id: open.id } },
+      );
     }
     const review = await Review.create(
       {

@@ -11,13 +11,28 @@ import { PasswordReset, User } from '../models';
 export const PASSWORD_RESET_TTL_MS = 60 * 60 * 1000;
 
 /** Mails a reset link when an account has this address; says nothing either way. */
-export async function requestPasswordReset(sequelize: Sequelize, config: AppConfig, mail: MailService, email: string): Promise<void> {
+export async function requestPasswordReset(
+  sequelize: Sequelize,
+  config: AppConfig,
+  mail: MailService,
+  email: string,
+): Promise<void> {
   const user = await User.findOne({ where: { email } });
   if (!user) return;
   await sequelize.transaction(async (transaction) => {
-    const reset = await PasswordReset.create({ userId: user.id, expiresAt: new Date(Date.now() + PASSWORD_RESET_TTL_MS) }, { transaction });
+    const reset = await PasswordReset.create(
+      { userId: user.id, expiresAt: new Date(Date.now() + PASSWORD_RESET_TTL_MS) },
+      { transaction },
+    );
     const token = signLinkToken('password-reset', reset.id, reset.expiresAt, config);
-    await mail.send(passwordResetMail({ to: user.email, name: user.name, url: appLink(mail, `/reset-password/${token}`), expiresAt: reset.expiresAt }));
+    await mail.send(
+      passwordResetMail({
+        to: user.email,
+        name: user.name,
+        url: appLink(mail, `/reset-password/${token}`),
+        expiresAt: reset.expiresAt,
+      }),
+    );
   });
 }
 

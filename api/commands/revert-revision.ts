@@ -20,14 +20,37 @@ export interface RevertInput {
  * checked again, so they reflect today's checks.
  */
 export async function revertRevision(sequelize: Sequelize, input: RevertInput): Promise<Revision> {
-  const target = await Revision.findOne({ where: { modelId: input.modelId, number: input.number }, transaction: input.transaction });
-  if (!target) throw new NotFound(`This model has no revision ${input.number}.`, { code: 'revision-not-found', details: { number: input.number } });
+  const target = await Revision.findOne({
+    where: { modelId: input.modelId, number: input.number },
+    transaction: input.transaction,
+  });
+  if (!target)
+    throw new NotFound(`This model has no revision ${input.number}.`, {
+      code: 'revision-not-found',
+      details: { number: input.number },
+    });
   const setup = checkSetupText(target.yamlText);
   const message = input.message && input.message.length > 0 ? input.message : `Revert to revision ${target.number}`;
   return inTransaction(sequelize, input.transaction, async (transaction) => {
     const locked = await lockModel(sequelize, input.modelId, transaction);
     requireLatestBase(locked.latest, input.base);
-    const audit = { action: 'revision.reverted' as const, details: { reverted_to: target.number, source_revision_id: target.id } };
-    return appendRevision(sequelize, locked, setup, { author: input.author, message, origin: 'revert', sourceRevisionId: target.id, createdAt: input.createdAt, audit }, transaction);
+    const audit = {
+      action: 'revision.reverted' as const,
+      details: { reverted_to: target.number, source_revision_id: target.id },
+    };
+    return appendRevision(
+      sequelize,
+      locked,
+      setup,
+      {
+        author: input.author,
+        message,
+        origin: 'revert',
+        sourceRevisionId: target.id,
+        createdAt: input.createdAt,
+        audit,
+      },
+      transaction,
+    );
   });
 }

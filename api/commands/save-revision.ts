@@ -13,7 +13,11 @@ import type { AuditAction } from './record-audit-event';
  * Runs `work` in the caller's transaction when there is one (the demo seed writes a
  * whole history in one), otherwise in a transaction of its own.
  */
-export function inTransaction<T>(sequelize: Sequelize, outer: Transaction | undefined, work: (transaction: Transaction) => Promise<T>): Promise<T> {
+export function inTransaction<T>(
+  sequelize: Sequelize,
+  outer: Transaction | undefined,
+  work: (transaction: Transaction) => Promise<T>,
+): Promise<T> {
   return outer ? work(outer) : sequelize.transaction(work);
 }
 
@@ -35,9 +39,12 @@ const NUL = '\u0000';
 export function checkSetupText(text: string): CheckedSetup {
   const bytes = Buffer.byteLength(text, 'utf8');
   if (bytes > MAX_TEXT_BYTES) {
-    throw new TooLarge(`The setup is ${Math.ceil(bytes / 1024)} KB; setups up to ${MAX_TEXT_BYTES / 1024} KB are accepted.`, {
-      details: { bytes, limit: MAX_TEXT_BYTES },
-    });
+    throw new TooLarge(
+      `The setup is ${Math.ceil(bytes / 1024)} KB; setups up to ${MAX_TEXT_BYTES / 1024} KB are accepted.`,
+      {
+        details: { bytes, limit: MAX_TEXT_BYTES },
+      },
+    );
   }
   const analysis = analyzeSetup(text);
   if (!analysis.readable) {
@@ -49,7 +56,10 @@ export function checkSetupText(text: string): CheckedSetup {
     });
   }
   if (text.includes(NUL) || JSON.stringify(analysis.data).includes('\\u0000')) {
-    throw new Unprocessable('The setup contains a NUL character (\\0), which cannot be stored; nothing was saved.', { code: 'unreadable-setup', details: { findings: [] } });
+    throw new Unprocessable('The setup contains a NUL character (\\0), which cannot be stored; nothing was saved.', {
+      code: 'unreadable-setup',
+      details: { findings: [] },
+    });
   }
   return { text, analysis: analysis as CheckedSetup['analysis'], contentHash: contentHash(analysis.data) };
 }
@@ -84,21 +94,27 @@ export async function lockModel(sequelize: Sequelize, modelId: string, transacti
     { bind: { id: modelId }, type: QueryTypes.SELECT, transaction },
   );
   if (!row) throw new NotFound('No such model.', { code: 'model-not-found' });
-  const [latest] = await sequelize.query<{ id: string; number: number }>('SELECT id, number FROM revisions WHERE model_id = $id ORDER BY number DESC LIMIT 1', {
-    bind: { id: modelId },
-    type: QueryTypes.SELECT,
-    transaction,
-  });
+  const [latest] = await sequelize.query<{ id: string; number: number }>(
+    'SELECT id, number FROM revisions WHERE model_id = $id ORDER BY number DESC LIMIT 1',
+    {
+      bind: { id: modelId },
+      type: QueryTypes.SELECT,
+      transaction,
+    },
+  );
   return { model: { id: row.id, workspaceId: row.workspace_id, airframe: row.airframe }, latest: latest ?? null };
 }
 
 export function requireLatestBase(latest: LockedModel['latest'], base: number): void {
   const latestNumber = latest?.number ?? 0;
   if (base !== latestNumber) {
-    throw new Conflict(`Revision ${base} is not the latest: revision ${latestNumber} was saved meanwhile. Look at what changed and save again on revision ${latestNumber}.`, {
-      code: 'stale-base',
-      details: { base, latest: latestNumber, latest_id: latest?.id ?? null },
-    });
+    throw new Conflict(
+      `Revision ${base} is not the latest: revision ${latestNumber} was saved meanwhile. Look at what changed and save again on revision ${latestNumber}.`,
+      {
+        code: 'stale-base',
+        details: { base, latest: latestNumber, latest_id: latest?.id ?? null },
+      },
+    );
   }
 }
 
@@ -138,7 +154,13 @@ const APPEND_SQL = `
   SELECT id, created_at FROM inserted`;
 
 /** Adds the next revision to a model locked by `lockModel` and keeps the model's airframe current. */
-export async function appendRevision(sequelize: Sequelize, locked: LockedModel, setup: CheckedSetup, input: AppendInput, transaction: Transaction): Promise<Revision> {
+export async function appendRevision(
+  sequelize: Sequelize,
+  locked: LockedModel,
+  setup: CheckedSetup,
+  input: AppendInput,
+  transaction: Transaction,
+): Promise<Revision> {
   const { model, latest } = locked;
   const { findings, counts, data } = setup.analysis;
   const values = {
@@ -167,13 +189,22 @@ export async function appendRevision(sequelize: Sequelize, locked: LockedModel, 
       airframe,
       workspaceId: model.workspaceId,
       auditAction: input.audit?.action ?? null,
-      auditDetails: JSON.stringify({ model_id: model.id, number: values.number, content_hash: setup.contentHash, errors: counts.errors, ...input.audit?.details }),
+      auditDetails: JSON.stringify({
+        model_id: model.id,
+        number: values.number,
+        content_hash: setup.contentHash,
+        errors: counts.errors,
+        ...input.audit?.details,
+      }),
     },
     type: QueryTypes.SELECT,
     transaction,
   });
   // raw: a built instance that is not new ignores writes to its timestamps otherwise.
-  const revision = Revision.build({ ...values, id: row.id, createdAt: new Date(row.created_at) }, { isNewRecord: false, raw: true });
+  const revision = Revision.build(
+    { ...values, id: row.id, createdAt: new Date(row.created_at) },
+    { isNewRecord: false, raw: true },
+  );
   revision.author = input.author;
   model.set?.({ airframe, updatedAt: revision.createdAt }, { raw: true });
   return revision;
@@ -203,7 +234,13 @@ export async function saveRevision(sequelize: Sequelize, input: SaveRevisionInpu
       sequelize,
       locked,
       setup,
-      { author: input.author, message: input.message ?? '', origin, createdAt: input.createdAt, audit: { action: AUDIT_FOR[origin], details: {} } },
+      {
+        author: input.author,
+        message: input.message ?? '',
+        origin,
+        createdAt: input.createdAt,
+        audit: { action: AUDIT_FOR[origin], details: {} },
+      },
       transaction,
     );
   });

@@ -31,13 +31,22 @@ export async function tagRevision(sequelize: Sequelize, input: TagInput): Promis
     if (existing) {
       if (existing.revisionId === input.revision.id) return { created: false };
       const number = existing.revision?.number;
-      throw new Conflict(`The tag "${input.name}" is already on revision ${number} of this model; remove it there first.`, {
-        code: 'tag-taken',
-        details: { name: input.name, revision_id: existing.revisionId, number },
-      });
+      throw new Conflict(
+        `The tag "${input.name}" is already on revision ${number} of this model; remove it there first.`,
+        {
+          code: 'tag-taken',
+          details: { name: input.name, revision_id: existing.revisionId, number },
+        },
+      );
     }
     const tag = await Tag.create(
-      { modelId: input.model.id, revisionId: input.revision.id, name: input.name, createdBy: input.author.id, ...(input.createdAt ? { createdAt: input.createdAt } : {}) },
+      {
+        modelId: input.model.id,
+        revisionId: input.revision.id,
+        name: input.name,
+        createdBy: input.author.id,
+        ...(input.createdAt ? { createdAt: input.createdAt } : {}),
+      },
       { transaction },
     );
     await recordAuditEvent(
@@ -47,7 +56,12 @@ export async function tagRevision(sequelize: Sequelize, input: TagInput): Promis
         action: 'tag.added',
         subjectType: 'tag',
         subjectId: tag.id,
-        details: { name: input.name, model_id: input.model.id, revision_id: input.revision.id, number: input.revision.number },
+        details: {
+          name: input.name,
+          model_id: input.model.id,
+          revision_id: input.revision.id,
+          number: input.revision.number,
+        },
         createdAt: input.createdAt,
       },
       transaction,
@@ -59,7 +73,8 @@ export async function tagRevision(sequelize: Sequelize, input: TagInput): Promis
 export async function untagRevision(sequelize: Sequelize, input: Omit<TagInput, 'createdAt'>): Promise<void> {
   await inTransaction(sequelize, input.transaction, async (transaction) => {
     const tag = await Tag.findOne({ where: { revisionId: input.revision.id, name: input.name }, transaction });
-    if (!tag) throw new NotFound(`Revision ${input.revision.number} has no tag "${input.name}".`, { code: 'tag-not-found' });
+    if (!tag)
+      throw new NotFound(`Revision ${input.revision.number} has no tag "${input.name}".`, { code: 'tag-not-found' });
     await tag.destroy({ transaction });
     await recordAuditEvent(
       {
@@ -68,7 +83,12 @@ export async function untagRevision(sequelize: Sequelize, input: Omit<TagInput, 
         action: 'tag.removed',
         subjectType: 'tag',
         subjectId: tag.id,
-        details: { name: input.name, model_id: input.model.id, revision_id: input.revision.id, number: input.revision.number },
+        details: {
+          name: input.name,
+          model_id: input.model.id,
+          revision_id: input.revision.id,
+          number: input.revision.number,
+        },
       },
       transaction,
     );

@@ -15,10 +15,22 @@ export interface ReceiverChanges {
   stored_settings?: StoredSettings | null;
 }
 
-const FIELD_OF = { label: 'label', mark: 'mark', mark_colour: 'markColour', outputs: 'outputs', notes: 'notes', stored_settings: 'storedSettings' } as const;
+const FIELD_OF = {
+  label: 'label',
+  mark: 'mark',
+  mark_colour: 'markColour',
+  outputs: 'outputs',
+  notes: 'notes',
+  stored_settings: 'storedSettings',
+} as const;
 
 /** Changes a unit's shelf record; `receiver` is locked by the caller's transaction. */
-export async function updateReceiver(receiver: Receiver, changes: ReceiverChanges, actor: User, transaction: Transaction): Promise<Receiver> {
+export async function updateReceiver(
+  receiver: Receiver,
+  changes: ReceiverChanges,
+  actor: User,
+  transaction: Transaction,
+): Promise<Receiver> {
   const outputs = changes.outputs ?? receiver.outputs;
   const stored = changes.stored_settings !== undefined ? changes.stored_settings : receiver.storedSettings;
   const beyond = (stored?.pins ?? []).filter((entry) => entry.pin > outputs).map((entry) => entry.pin);
@@ -31,7 +43,10 @@ export async function updateReceiver(receiver: Receiver, changes: ReceiverChange
 
   const before: Record<string, unknown> = {};
   const after: Record<string, unknown> = {};
-  for (const [key, field] of Object.entries(FIELD_OF) as [keyof ReceiverChanges, (typeof FIELD_OF)[keyof ReceiverChanges]][]) {
+  for (const [key, field] of Object.entries(FIELD_OF) as [
+    keyof ReceiverChanges,
+    (typeof FIELD_OF)[keyof ReceiverChanges],
+  ][]) {
     if (changes[key] === undefined) continue;
     const previous = receiver[field] ?? null;
     if (JSON.stringify(previous) === JSON.stringify(changes[key])) continue;
@@ -48,10 +63,24 @@ export async function updateReceiver(receiver: Receiver, changes: ReceiverChange
       ...('mark_colour' in after ? { markColour: changes.mark_colour ?? null } : {}),
       ...(after.outputs !== undefined ? { outputs: changes.outputs } : {}),
       ...(after.notes !== undefined ? { notes: changes.notes } : {}),
-      ...(settingsChanged ? { storedSettings: changes.stored_settings ?? null, settingsRecordedAt: changes.stored_settings ? new Date() : null } : {}),
+      ...(settingsChanged
+        ? {
+            storedSettings: changes.stored_settings ?? null,
+            settingsRecordedAt: changes.stored_settings ? new Date() : null,
+          }
+        : {}),
     },
     { transaction },
   );
-  await recordReceiverEvent({ workspaceId: receiver.workspaceId, actor, action: 'receiver.updated', receiverId: receiver.id, details: { before, after } }, transaction);
+  await recordReceiverEvent(
+    {
+      workspaceId: receiver.workspaceId,
+      actor,
+      action: 'receiver.updated',
+      receiverId: receiver.id,
+      details: { before, after },
+    },
+    transaction,
+  );
   return receiver;
 }

@@ -25,8 +25,13 @@ interface RunResult {
   output: string;
 }
 
-function run(command: string, args: string[], options: { asPostgres?: boolean; env?: NodeJS.ProcessEnv; inherit?: boolean } = {}): Promise<RunResult> {
-  const [cmd, argv] = options.asPostgres && isRoot() ? ['runuser', ['-u', 'postgres', '--', command, ...args]] : [command, args];
+function run(
+  command: string,
+  args: string[],
+  options: { asPostgres?: boolean; env?: NodeJS.ProcessEnv; inherit?: boolean } = {},
+): Promise<RunResult> {
+  const [cmd, argv] =
+    options.asPostgres && isRoot() ? ['runuser', ['-u', 'postgres', '--', command, ...args]] : [command, args];
   return new Promise((resolve, reject) => {
     // cwd "/" because the postgres user may not be allowed into the caller's folder.
     const child = spawn(cmd, argv, {
@@ -46,7 +51,12 @@ function run(command: string, args: string[], options: { asPostgres?: boolean; e
 function newestBinDir(): string | null {
   if (!existsSync(PG_ROOT)) return null;
   const versions = readdirSync(PG_ROOT)
-    .filter((name) => /^\d+$/.test(name) && existsSync(path.join(PG_ROOT, name, 'bin', 'pg_ctl')) && existsSync(path.join(PG_ROOT, name, 'bin', 'initdb')))
+    .filter(
+      (name) =>
+        /^\d+$/.test(name) &&
+        existsSync(path.join(PG_ROOT, name, 'bin', 'pg_ctl')) &&
+        existsSync(path.join(PG_ROOT, name, 'bin', 'initdb')),
+    )
     .sort((a, b) => Number(b) - Number(a));
   return versions.length > 0 ? path.join(PG_ROOT, versions[0], 'bin') : null;
 }
@@ -65,10 +75,14 @@ export async function findPostgresBinaries(log: Log = console.log): Promise<stri
   const env = { ...process.env, DEBIAN_FRONTEND: 'noninteractive' };
   for (const args of [['update'], ['install', '-y', 'postgresql']]) {
     const result = await run('apt-get', args, { env, inherit: true });
-    if (result.code !== 0) throw new ClusterError(`apt-get ${args.join(' ')} failed (exit ${result.code}); install "postgresql" by hand or set DATABASE_URL.`);
+    if (result.code !== 0)
+      throw new ClusterError(
+        `apt-get ${args.join(' ')} failed (exit ${result.code}); install "postgresql" by hand or set DATABASE_URL.`,
+      );
   }
   const installed = newestBinDir();
-  if (!installed) throw new ClusterError(`apt-get installed "postgresql" but no server programs appeared under ${PG_ROOT}/*/bin.`);
+  if (!installed)
+    throw new ClusterError(`apt-get installed "postgresql" but no server programs appeared under ${PG_ROOT}/*/bin.`);
   return installed;
 }
 
@@ -149,13 +163,16 @@ export class Cluster {
     const parent = path.dirname(this.dataDir);
     mkdirSync(parent, { recursive: true });
     if (!(await serverUserCanReach(parent))) {
-      throw new ClusterError(`The postgres user cannot reach ${parent}: every folder above it needs the execute bit for others.`);
+      throw new ClusterError(
+        `The postgres user cannot reach ${parent}: every folder above it needs the execute bit for others.`,
+      );
     }
     mkdirSync(this.dataDir, { recursive: true, mode: 0o700 });
     chmodSync(this.dataDir, 0o700);
     if (isRoot()) {
       const chown = await run('chown', ['-R', 'postgres:postgres', this.dataDir]);
-      if (chown.code !== 0) throw new ClusterError(`Could not give ${this.dataDir} to the postgres user: ${chown.output.trim()}`);
+      if (chown.code !== 0)
+        throw new ClusterError(`Could not give ${this.dataDir} to the postgres user: ${chown.output.trim()}`);
     }
     this.log(`Creating a PostgreSQL cluster in ${this.dataDir}`);
     // Trust on loopback only: the cluster listens on 127.0.0.1 and serves this project alone.
@@ -202,18 +219,27 @@ export class Cluster {
       ...(this.options.throwaway ? ['-c fsync=off', '-c synchronous_commit=off', '-c full_page_writes=off'] : []),
     ].join(' ');
     const logFile = path.join(this.dataDir, 'server.log');
-    const result = await run(this.bin('pg_ctl'), ['-D', this.dataDir, '-l', logFile, '-w', '-t', '60', '-o', settings, 'start'], { asPostgres: true });
+    const result = await run(
+      this.bin('pg_ctl'),
+      ['-D', this.dataDir, '-l', logFile, '-w', '-t', '60', '-o', settings, 'start'],
+      { asPostgres: true },
+    );
     if (result.code !== 0) {
       const tail = existsSync(logFile) ? readFileSync(logFile, 'utf8').split('\n').slice(-15).join('\n') : '';
-      throw new ClusterError(`PostgreSQL did not start (pg_ctl exit ${result.code}):\n${result.output.trim()}\n${tail}`.trim());
+      throw new ClusterError(
+        `PostgreSQL did not start (pg_ctl exit ${result.code}):\n${result.output.trim()}\n${tail}`.trim(),
+      );
     }
     this.log(`PostgreSQL is running on 127.0.0.1:${this.port}`);
   }
 
   async stop(): Promise<void> {
     if (!(await this.isRunning())) return;
-    const result = await run(this.bin('pg_ctl'), ['-D', this.dataDir, '-m', 'fast', '-w', '-t', '60', 'stop'], { asPostgres: true });
-    if (result.code !== 0 && (await this.isRunning())) throw new ClusterError(`pg_ctl stop failed:\n${result.output.trim()}`);
+    const result = await run(this.bin('pg_ctl'), ['-D', this.dataDir, '-m', 'fast', '-w', '-t', '60', 'stop'], {
+      asPostgres: true,
+    });
+    if (result.code !== 0 && (await this.isRunning()))
+      throw new ClusterError(`pg_ctl stop failed:\n${result.output.trim()}`);
     this.log('PostgreSQL stopped');
   }
 

@@ -16,8 +16,15 @@ export function withDatabase(url: string, database: string): string {
 }
 
 /** Runs `work` on a short-lived single connection to the server's maintenance database. */
-export async function withMaintenanceConnection<T>(serverUrl: string, work: (admin: Sequelize) => Promise<T>): Promise<T> {
-  const admin = new Sequelize(withDatabase(serverUrl, 'postgres'), { dialect: 'postgres', logging: false, pool: { max: 1, min: 0 } });
+export async function withMaintenanceConnection<T>(
+  serverUrl: string,
+  work: (admin: Sequelize) => Promise<T>,
+): Promise<T> {
+  const admin = new Sequelize(withDatabase(serverUrl, 'postgres'), {
+    dialect: 'postgres',
+    logging: false,
+    pool: { max: 1, min: 0 },
+  });
   try {
     return await work(admin);
   } finally {
@@ -25,10 +32,17 @@ export async function withMaintenanceConnection<T>(serverUrl: string, work: (adm
   }
 }
 
-export async function createDatabase(serverUrl: string, name: string, options: { template?: string; ifMissing?: boolean } = {}): Promise<void> {
+export async function createDatabase(
+  serverUrl: string,
+  name: string,
+  options: { template?: string; ifMissing?: boolean } = {},
+): Promise<void> {
   await withMaintenanceConnection(serverUrl, async (admin) => {
     if (options.ifMissing) {
-      const found = await admin.query('SELECT 1 FROM pg_database WHERE datname = $name', { bind: { name }, type: QueryTypes.SELECT });
+      const found = await admin.query('SELECT 1 FROM pg_database WHERE datname = $name', {
+        bind: { name },
+        type: QueryTypes.SELECT,
+      });
       if (found.length > 0) return;
     }
     const from = options.template ? ` TEMPLATE ${quoteIdentifier(options.template)}` : '';
@@ -37,5 +51,7 @@ export async function createDatabase(serverUrl: string, name: string, options: {
 }
 
 export async function dropDatabase(serverUrl: string, name: string): Promise<void> {
-  await withMaintenanceConnection(serverUrl, (admin) => admin.query(`DROP DATABASE IF EXISTS ${quoteIdentifier(name)} WITH (FORCE)`));
+  await withMaintenanceConnection(serverUrl, (admin) =>
+    admin.query(`DROP DATABASE IF EXISTS ${quoteIdentifier(name)} WITH (FORCE)`),
+  );
 }

@@ -38,8 +38,23 @@ export interface SheetReceiver {
 }
 
 export interface FieldSheet {
-  model: { id: string; name: string; setup_name: string; airframe: string; wingspan_mm: number | null; weight_g: number | null };
-  revision: { id: string; number: number; content_hash: string; short_hash: string; created_at: string; message: string; author: { id: string; name: string } | null };
+  model: {
+    id: string;
+    name: string;
+    setup_name: string;
+    airframe: string;
+    wingspan_mm: number | null;
+    weight_g: number | null;
+  };
+  revision: {
+    id: string;
+    number: number;
+    content_hash: string;
+    short_hash: string;
+    created_at: string;
+    message: string;
+    author: { id: string; name: string } | null;
+  };
   review_state: ReviewState;
   link: { channels: number; packet_rate_hz: number | null };
   channels: { ch: number; function: string; role: string; side: string | null; reverse: boolean; cut: string | null }[];
@@ -52,13 +67,20 @@ export interface FieldSheet {
 }
 
 /** Everything the printed sheet shows for one revision; 422 when the revision has no valid setup to print. */
-export async function fieldSheetOf(model: SetupModel, revision: Revision, transaction?: Transaction): Promise<FieldSheet> {
+export async function fieldSheetOf(
+  model: SetupModel,
+  revision: Revision,
+  transaction?: Transaction,
+): Promise<FieldSheet> {
   const setup = setupOf(revision);
   if (!setup) {
-    throw new Unprocessable(`Revision ${revision.number} of ${model.name} does not pass the format's schema, so there is no channel plan to print. Fix the setup first.`, {
-      code: 'setup-not-valid',
-      details: { revision: { id: revision.id, number: revision.number } },
-    });
+    throw new Unprocessable(
+      `Revision ${revision.number} of ${model.name} does not pass the format's schema, so there is no channel plan to print. Fix the setup first.`,
+      {
+        code: 'setup-not-valid',
+        details: { revision: { id: revision.id, number: revision.number } },
+      },
+    );
   }
   const [states, installs, author] = await Promise.all([
     reviewStateOf([revision]),
@@ -120,7 +142,9 @@ export async function fieldSheetOf(model: SetupModel, revision: Revision, transa
             role: plan.get(entry.ch)?.role ?? null,
             failsafe: entry.failsafe ?? null,
           })),
-        unit: unit ? { id: unit.id, label: unit.label, mark: unit.mark ?? null, mark_colour: unit.markColour ?? null } : null,
+        unit: unit
+          ? { id: unit.id, label: unit.label, mark: unit.mark ?? null, mark_colour: unit.markColour ?? null }
+          : null,
       };
     }),
     receiver_supply: setup.power?.receiver_supply ?? null,

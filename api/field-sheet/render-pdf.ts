@@ -35,7 +35,8 @@ const REVIEW_WORDS: Record<ReviewState, string> = {
   'changes-requested': 'Changes requested',
 };
 
-const failsafeText = (failsafe: number | string | null | undefined) => (failsafe === null || failsafe === undefined ? 'not set' : typeof failsafe === 'number' ? `${failsafe} us` : failsafe);
+const failsafeText = (failsafe: number | string | null | undefined) =>
+  failsafe === null || failsafe === undefined ? 'not set' : typeof failsafe === 'number' ? `${failsafe} us` : failsafe;
 
 interface Column {
   title: string;
@@ -67,7 +68,11 @@ class SheetWriter {
     doc.rect(x, y, width, ROW).fill(BAND);
     let cx = x;
     for (const column of columns) {
-      doc.font('bold').fontSize(7.5).fillColor(MUTED).text(column.title, cx + 3, y + 3, { width: column.width - 6, lineBreak: false });
+      doc
+        .font('bold')
+        .fontSize(7.5)
+        .fillColor(MUTED)
+        .text(column.title, cx + 3, y + 3, { width: column.width - 6, lineBreak: false });
       cx += column.width;
     }
     let ry = y + ROW;
@@ -75,10 +80,19 @@ class SheetWriter {
       cx = x;
       row.forEach((cell, index) => {
         const column = columns[index];
-        doc.font('sans').fontSize(8).fillColor(INK).text(cell, cx + 3, ry + 2.5, { width: column.width - 6, lineBreak: false, ellipsis: true });
+        doc
+          .font('sans')
+          .fontSize(8)
+          .fillColor(INK)
+          .text(cell, cx + 3, ry + 2.5, { width: column.width - 6, lineBreak: false, ellipsis: true });
         cx += column.width;
       });
-      doc.moveTo(x, ry + ROW).lineTo(x + width, ry + ROW).lineWidth(0.4).strokeColor(RULE).stroke();
+      doc
+        .moveTo(x, ry + ROW)
+        .lineTo(x + width, ry + ROW)
+        .lineWidth(0.4)
+        .strokeColor(RULE)
+        .stroke();
       ry += ROW;
     }
     return ry;
@@ -87,23 +101,49 @@ class SheetWriter {
 
 function header(w: SheetWriter, sheet: FieldSheet): void {
   const { doc } = w;
-  doc.font('bold').fontSize(8).fillColor(MUTED).text('BINDERY FIELD SHEET', PAGE.margin, w.y, { characterSpacing: 1, lineBreak: false });
-  doc.font('sans').fontSize(8).fillColor(MUTED).text(`Printed ${new Date().toISOString().slice(0, 10)}`, PAGE.margin, w.y, { width: CONTENT_WIDTH, align: 'right', lineBreak: false });
+  doc
+    .font('bold')
+    .fontSize(8)
+    .fillColor(MUTED)
+    .text('BINDERY FIELD SHEET', PAGE.margin, w.y, { characterSpacing: 1, lineBreak: false });
+  doc
+    .font('sans')
+    .fontSize(8)
+    .fillColor(MUTED)
+    .text(`Printed ${new Date().toISOString().slice(0, 10)}`, PAGE.margin, w.y, {
+      width: CONTENT_WIDTH,
+      align: 'right',
+      lineBreak: false,
+    });
   w.y += 13;
-  doc.font('bold').fontSize(18).fillColor(INK).text(sheet.model.name, PAGE.margin, w.y, { width: CONTENT_WIDTH, lineBreak: false, ellipsis: true });
+  doc
+    .font('bold')
+    .fontSize(18)
+    .fillColor(INK)
+    .text(sheet.model.name, PAGE.margin, w.y, { width: CONTENT_WIDTH, lineBreak: false, ellipsis: true });
   w.y += 25;
 
   const facts: [string, string][] = [
     ['Revision', String(sheet.revision.number)],
     ['Hash', sheet.revision.short_hash],
     ['Review', REVIEW_WORDS[sheet.review_state]],
-    ['Link', `${sheet.link.channels} channels${sheet.link.packet_rate_hz ? ` at ${sheet.link.packet_rate_hz} Hz` : ''}`],
-    ['Checks', `${sheet.counts.errors} error${sheet.counts.errors === 1 ? '' : 's'}, ${sheet.counts.warnings} warning${sheet.counts.warnings === 1 ? '' : 's'}`],
+    [
+      'Link',
+      `${sheet.link.channels} channels${sheet.link.packet_rate_hz ? ` at ${sheet.link.packet_rate_hz} Hz` : ''}`,
+    ],
+    [
+      'Checks',
+      `${sheet.counts.errors} error${sheet.counts.errors === 1 ? '' : 's'}, ${sheet.counts.warnings} warning${sheet.counts.warnings === 1 ? '' : 's'}`,
+    ],
   ];
   let x = PAGE.margin;
   for (const [label, value] of facts) {
     doc.font('sans').fontSize(7.5).fillColor(MUTED).text(label, x, w.y, { lineBreak: false });
-    doc.font('bold').fontSize(9.5).fillColor(INK).text(value, x, w.y + 9, { lineBreak: false });
+    doc
+      .font('bold')
+      .fontSize(9.5)
+      .fillColor(INK)
+      .text(value, x, w.y + 9, { lineBreak: false });
     x += Math.max(70, doc.widthOfString(value) + 22);
   }
   w.y += 26;
@@ -112,17 +152,29 @@ function header(w: SheetWriter, sheet: FieldSheet): void {
     sheet.model.wingspan_mm ? `span ${sheet.model.wingspan_mm} mm` : null,
     sheet.model.weight_g ? `${sheet.model.weight_g} g` : null,
     sheet.receiver_supply ? `receiver supply: ${sheet.receiver_supply}` : null,
-    sheet.revision.author ? `saved by ${sheet.revision.author.name} on ${sheet.revision.created_at.slice(0, 10)}` : null,
+    sheet.revision.author
+      ? `saved by ${sheet.revision.author.name} on ${sheet.revision.created_at.slice(0, 10)}`
+      : null,
   ].filter(Boolean);
-  doc.font('sans').fontSize(8).fillColor(MUTED).text(about.join(' · '), PAGE.margin, w.y, { width: CONTENT_WIDTH, lineBreak: false, ellipsis: true });
+  doc
+    .font('sans')
+    .fontSize(8)
+    .fillColor(MUTED)
+    .text(about.join(' · '), PAGE.margin, w.y, { width: CONTENT_WIDTH, lineBreak: false, ellipsis: true });
   w.y += 12;
-  doc.moveTo(PAGE.margin, w.y).lineTo(PAGE.margin + CONTENT_WIDTH, w.y).lineWidth(0.8).strokeColor(INK).stroke();
+  doc
+    .moveTo(PAGE.margin, w.y)
+    .lineTo(PAGE.margin + CONTENT_WIDTH, w.y)
+    .lineWidth(0.8)
+    .strokeColor(INK)
+    .stroke();
   w.y += 10;
 }
 
 function channelPlan(w: SheetWriter, sheet: FieldSheet): void {
   const half = Math.ceil(sheet.channels.length / 2);
-  const halves = sheet.channels.length > 8 ? [sheet.channels.slice(0, half), sheet.channels.slice(half)] : [sheet.channels];
+  const halves =
+    sheet.channels.length > 8 ? [sheet.channels.slice(0, half), sheet.channels.slice(half)] : [sheet.channels];
   w.room(16 + ROW * (1 + half));
   const top = w.heading('Channel plan');
   const gap = 12;
@@ -155,7 +207,11 @@ function receiverBlock(w: SheetWriter, receiver: SheetReceiver, x: number, width
   const title = receiver.label ? `${receiver.label} · slot ${receiver.id}` : `Slot ${receiver.id}`;
   doc.font('bold').fontSize(10.5).fillColor(INK).text(title, x, top, { width, lineBreak: false, ellipsis: true });
   const role = `${receiver.role}, ${receiver.outputs} outputs, telemetry: ${receiver.telemetry ? 'sends' : 'silent (off)'}`;
-  doc.font('sans').fontSize(8).fillColor(MUTED).text(role, x, top + 14, { width, lineBreak: false });
+  doc
+    .font('sans')
+    .fontSize(8)
+    .fillColor(MUTED)
+    .text(role, x, top + 14, { width, lineBreak: false });
   let unitX = x;
   doc.font('sans').fontSize(8).fillColor(INK);
   if (receiver.unit) {
@@ -163,10 +219,15 @@ function receiverBlock(w: SheetWriter, receiver: SheetReceiver, x: number, width
     doc.text(prefix, unitX, top + 25, { lineBreak: false });
     unitX += doc.widthOfString(prefix) + 6;
     if (receiver.unit.mark_colour) {
-      doc.circle(unitX + 3.5, top + 29, 3.5).lineWidth(0.5).fillAndStroke(MARK_SWATCHES[receiver.unit.mark_colour], INK);
+      doc
+        .circle(unitX + 3.5, top + 29, 3.5)
+        .lineWidth(0.5)
+        .fillAndStroke(MARK_SWATCHES[receiver.unit.mark_colour], INK);
       unitX += 10;
     }
-    doc.fillColor(INK).text(receiver.unit.mark ? `mark: ${receiver.unit.mark}` : 'no mark', unitX, top + 25, { lineBreak: false });
+    doc
+      .fillColor(INK)
+      .text(receiver.unit.mark ? `mark: ${receiver.unit.mark}` : 'no mark', unitX, top + 25, { lineBreak: false });
   } else {
     doc.fillColor(MUTED).text('Unit: none on the shelf is installed here', unitX, top + 25, { lineBreak: false });
   }
@@ -176,9 +237,15 @@ function receiverBlock(w: SheetWriter, receiver: SheetReceiver, x: number, width
     { title: 'Function', width: width - 28 - 26 - 64 },
     { title: 'Failsafe', width: 64 },
   ];
-  const rows = receiver.pins.length > 0
-    ? receiver.pins.map((pin) => [String(pin.pin), String(pin.ch), pin.function ?? '(no plan entry)', failsafeText(pin.failsafe)])
-    : [['', '', 'No pins mapped', '']];
+  const rows =
+    receiver.pins.length > 0
+      ? receiver.pins.map((pin) => [
+          String(pin.pin),
+          String(pin.ch),
+          pin.function ?? '(no plan entry)',
+          failsafeText(pin.failsafe),
+        ])
+      : [['', '', 'No pins mapped', '']];
   return w.table(x, top + 38, columns, rows);
 }
 
@@ -189,7 +256,9 @@ function receivers(w: SheetWriter, sheet: FieldSheet): void {
     const pair = sheet.receivers.slice(i, i + 2);
     w.room(Math.max(...pair.map(receiverBlockHeight)));
     const top = w.y;
-    const bottom = Math.max(...pair.map((receiver, index) => receiverBlock(w, receiver, PAGE.margin + index * (width + gap), width, top)));
+    const bottom = Math.max(
+      ...pair.map((receiver, index) => receiverBlock(w, receiver, PAGE.margin + index * (width + gap), width, top)),
+    );
     w.y = bottom + 14;
   }
 }
@@ -201,7 +270,9 @@ function wrappedHeight(doc: Doc, text: string, font: string, size: number, width
 function findings(w: SheetWriter, sheet: FieldSheet): void {
   const { doc } = w;
   if (sheet.findings.length === 0) return;
-  const lines = sheet.findings.map((finding) => `${finding.severity === 'error' ? 'ERROR' : 'Warning'} (${finding.rule}): ${finding.message}`);
+  const lines = sheet.findings.map(
+    (finding) => `${finding.severity === 'error' ? 'ERROR' : 'Warning'} (${finding.rule}): ${finding.message}`,
+  );
   w.room(16 + wrappedHeight(doc, lines[0], 'sans', 8, CONTENT_WIDTH));
   w.y = w.heading('Check findings to settle before flying');
   for (const line of lines) {
@@ -219,11 +290,26 @@ function cautions(w: SheetWriter, sheet: FieldSheet): void {
   w.room(16 + 30);
   w.y = w.heading(heading);
   for (const item of items) {
-    const height = wrappedHeight(doc, item.title, 'bold', 8, CONTENT_WIDTH - 8) + wrappedHeight(doc, item.body, 'sans', 7.5, CONTENT_WIDTH - 8);
+    const height =
+      wrappedHeight(doc, item.title, 'bold', 8, CONTENT_WIDTH - 8) +
+      wrappedHeight(doc, item.body, 'sans', 7.5, CONTENT_WIDTH - 8);
     w.room(height);
-    doc.moveTo(PAGE.margin, w.y).lineTo(PAGE.margin, w.y + height).lineWidth(1.2).strokeColor(RULE).stroke();
-    doc.font('bold').fontSize(8).fillColor(INK).text(item.title, PAGE.margin + 8, w.y, { width: CONTENT_WIDTH - 8 });
-    doc.font('sans').fontSize(7.5).fillColor(MUTED).text(item.body, PAGE.margin + 8, doc.y, { width: CONTENT_WIDTH - 8 });
+    doc
+      .moveTo(PAGE.margin, w.y)
+      .lineTo(PAGE.margin, w.y + height)
+      .lineWidth(1.2)
+      .strokeColor(RULE)
+      .stroke();
+    doc
+      .font('bold')
+      .fontSize(8)
+      .fillColor(INK)
+      .text(item.title, PAGE.margin + 8, w.y, { width: CONTENT_WIDTH - 8 });
+    doc
+      .font('sans')
+      .fontSize(7.5)
+      .fillColor(MUTED)
+      .text(item.body, PAGE.margin + 8, doc.y, { width: CONTENT_WIDTH - 8 });
     w.y = doc.y + 5;
   }
 }
@@ -236,7 +322,15 @@ function footer(doc: Doc, sheet: FieldSheet): void {
     // Written inside the bottom margin on purpose, so it must not push a new page.
     const bottom = doc.page.margins.bottom;
     doc.page.margins.bottom = 0;
-    doc.font('sans').fontSize(6.5).fillColor(MUTED).text(text, PAGE.margin, PAGE.height - PAGE.margin + 8, { width: CONTENT_WIDTH, align: 'center', lineBreak: false });
+    doc
+      .font('sans')
+      .fontSize(6.5)
+      .fillColor(MUTED)
+      .text(text, PAGE.margin, PAGE.height - PAGE.margin + 8, {
+        width: CONTENT_WIDTH,
+        align: 'center',
+        lineBreak: false,
+      });
     doc.page.margins.bottom = bottom;
   }
 }
@@ -247,7 +341,11 @@ export function renderFieldSheetPdf(sheet: FieldSheet): Promise<Buffer> {
     size: 'A4',
     margin: PAGE.margin,
     bufferPages: true,
-    info: { Title: `Field sheet: ${sheet.model.name}, revision ${sheet.revision.number}`, Creator: 'Bindery', Subject: sheet.revision.content_hash },
+    info: {
+      Title: `Field sheet: ${sheet.model.name}, revision ${sheet.revision.number}`,
+      Creator: 'Bindery',
+      Subject: sheet.revision.content_hash,
+    },
   });
   doc.registerFont('sans', FONTS.sans);
   doc.registerFont('bold', FONTS.bold);

@@ -12,13 +12,29 @@ export interface MailContent {
 }
 
 const escapeHtml = (text: string): string =>
-  text.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/"/g, '&quot;').replace(/'/g, '&#39;');
+  text
+    .replace(/&/g, '&amp;')
+    .replace(/</g, '&lt;')
+    .replace(/>/g, '&gt;')
+    .replace(/"/g, '&quot;')
+    .replace(/'/g, '&#39;');
 
 const SIGNATURE = 'Bindery, the shared record of your multi-receiver setups';
 
 /** The same message as plain text and as simple HTML, each with the link written out. */
 export function composeMail(content: MailContent): OutgoingMail {
-  const text = [content.greeting, '', ...content.body.flatMap((p) => [p, '']), `${content.action.label}:`, content.action.url, '', ...content.after.flatMap((p) => [p, '']), '-- ', SIGNATURE, ''].join('\n');
+  const text = [
+    content.greeting,
+    '',
+    ...content.body.flatMap((p) => [p, '']),
+    `${content.action.label}:`,
+    content.action.url,
+    '',
+    ...content.after.flatMap((p) => [p, '']),
+    '-- ',
+    SIGNATURE,
+    '',
+  ].join('\n');
   const paragraph = (p: string) => `<p style="margin:0 0 14px">${escapeHtml(p)}</p>`;
   const url = escapeHtml(content.action.url);
   const html = [

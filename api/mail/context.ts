@@ -11,7 +11,9 @@ declare module '../context' {
 
 export function mailFor(context: AppContext): MailService {
   if (!context.mail) {
-    throw new ServiceUnavailable('This server has no mail set up, so it cannot send the e-mail this needs.', { code: 'mail-not-configured' });
+    throw new ServiceUnavailable('This server has no mail set up, so it cannot send the e-mail this needs.', {
+      code: 'mail-not-configured',
+    });
   }
   return context.mail;
 }

@@ -46,10 +46,15 @@ export function startLocalMailServer(options: { port?: number | null; host?: str
             subject: mail.subject ?? '',
             textBody: mail.text ?? '',
             htmlBody: html,
-            sizeBytes: html ? Buffer.byteLength(html) + Buffer.byteLength(mail.text ?? '') : Buffer.byteLength(mail.text ?? ''),
+            sizeBytes: html
+              ? Buffer.byteLength(html) + Buffer.byteLength(mail.text ?? '')
+              : Buffer.byteLength(mail.text ?? ''),
           });
         })
-        .then(() => callback(), (error: Error) => callback(error));
+        .then(
+          () => callback(),
+          (error: Error) => callback(error),
+        );
     },
   });
 

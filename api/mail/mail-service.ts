@@ -27,7 +27,10 @@ export interface TransportOptions {
   auth: { user: string; pass: string } | null;
 }
 
-export function createMailService(transport: TransportOptions, settings: { from: string; appUrl: string; outboxEnabled: boolean }): MailService {
+export function createMailService(
+  transport: TransportOptions,
+  settings: { from: string; appUrl: string; outboxEnabled: boolean },
+): MailService {
   const transporter: Transporter = nodemailer.createTransport({
     host: transport.host,
     port: transport.port,
@@ -43,10 +46,19 @@ export function createMailService(transport: TransportOptions, settings: { from:
     outboxEnabled: settings.outboxEnabled,
     async send(mail) {
       try {
-        await transporter.sendMail({ from: settings.from, to: mail.to, subject: mail.subject, text: mail.text, html: mail.html });
+        await transporter.sendMail({
+          from: settings.from,
+          to: mail.to,
+          subject: mail.subject,
+          text: mail.text,
+          html: mail.html,
+        });
       } catch (error) {
         console.error('[mail-failed]', error instanceof Error ? error.message : error);
-        throw new ServiceUnavailable('The e-mail could not be sent just now, so nothing was changed. Try again shortly.', { code: 'mail-unavailable' });
+        throw new ServiceUnavailable(
+          'The e-mail could not be sent just now, so nothing was changed. Try again shortly.',
+          { code: 'mail-unavailable' },
+        );
       }
     },
     close: () => transporter.close(),

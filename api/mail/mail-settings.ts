@@ -29,7 +29,8 @@ export const DEFAULT_FROM = 'Bindery <bindery@localhost>';
 function port(value: string | undefined, name: string): number | null {
   if (value === undefined || value === '') return null;
   const parsed = Number(value);
-  if (!Number.isInteger(parsed) || parsed <= 0 || parsed > 65535) throw new Error(`${name} must be a port number, got "${value}"`);
+  if (!Number.isInteger(parsed) || parsed <= 0 || parsed > 65535)
+    throw new Error(`${name} must be a port number, got "${value}"`);
   return parsed;
 }
 
@@ -41,7 +42,8 @@ function appUrlFrom(value: string | undefined, fallback: string): string {
   } catch {
     throw new Error(`APP_URL must be an absolute http(s) address, got "${raw}"`);
   }
-  if (url.protocol !== 'http:' && url.protocol !== 'https:') throw new Error(`APP_URL must be an http(s) address, got "${raw}"`);
+  if (url.protocol !== 'http:' && url.protocol !== 'https:')
+    throw new Error(`APP_URL must be an http(s) address, got "${raw}"`);
   return url.toString().replace(/\/+$/, '');
 }
 
@@ -52,7 +54,10 @@ export function mailSettingsFromEnv(env: NodeJS.ProcessEnv, fallbackAppUrl: stri
   const host = env.SMTP_HOST?.trim();
   if (!host) return { mode: 'local', port: port(env.MAIL_PORT, 'MAIL_PORT'), from, appUrl };
   const smtpPort = port(env.SMTP_PORT, 'SMTP_PORT') ?? 587;
-  const secure = env.SMTP_SECURE === undefined || env.SMTP_SECURE === '' ? smtpPort === 465 : ['true', '1'].includes(env.SMTP_SECURE);
+  const secure =
+    env.SMTP_SECURE === undefined || env.SMTP_SECURE === ''
+      ? smtpPort === 465
+      : ['true', '1'].includes(env.SMTP_SECURE);
   return {
     mode: 'smtp',
     host,

@@ -9,7 +9,14 @@ const ROLE_WORDS: Record<Role, string> = {
   viewer: 'a viewer (reads everything)',
 };
 
-export function invitationMail(input: { to: string; inviter: string; workspace: string; role: Role; url: string; expiresAt: Date }): OutgoingMail {
+export function invitationMail(input: {
+  to: string;
+  inviter: string;
+  workspace: string;
+  role: Role;
+  url: string;
+  expiresAt: Date;
+}): OutgoingMail {
   return composeMail({
     to: input.to,
     subject: `${input.inviter} invites you to ${input.workspace} on Bindery`,
@@ -19,7 +26,10 @@ export function invitationMail(input: { to: string; inviter: string; workspace: 
       'Bindery keeps model setups for pilots who bind several receivers to one transmitter: every revision, its checks, and the sign-off before a maiden flight.',
     ],
     action: { label: 'Accept the invitation', url: input.url },
-    after: [`The link works once and until ${mailDate(input.expiresAt)}.`, 'If you did not expect this invitation, ignore this message; nothing happens unless the link is opened and accepted.'],
+    after: [
+      `The link works once and until ${mailDate(input.expiresAt)}.`,
+      'If you did not expect this invitation, ignore this message; nothing happens unless the link is opened and accepted.',
+    ],
   });
 }
 
@@ -28,9 +38,14 @@ export function passwordResetMail(input: { to: string; name: string; url: string
     to: input.to,
     subject: 'Choose a new Bindery password',
     greeting: `Hello ${input.name},`,
-    body: ['Someone, hopefully you, asked to reset the password of your Bindery account. Choosing a new password signs you out everywhere else.'],
+    body: [
+      'Someone, hopefully you, asked to reset the password of your Bindery account. Choosing a new password signs you out everywhere else.',
+    ],
     action: { label: 'Choose a new password', url: input.url },
-    after: [`The link works once and until ${mailDate(input.expiresAt)}.`, 'If you did not ask for this, ignore this message: your password stays as it is.'],
+    after: [
+      `The link works once and until ${mailDate(input.expiresAt)}.`,
+      'If you did not ask for this, ignore this message: your password stays as it is.',
+    ],
   });
 }
 
@@ -41,7 +56,16 @@ export interface ReviewMailSubject {
   url: string;
 }
 
-export function reviewRequestedMail(input: ReviewMailSubject & { to: string; reviewer: string; requester: string; note: string; errors: number; warnings: number }): OutgoingMail {
+export function reviewRequestedMail(
+  input: ReviewMailSubject & {
+    to: string;
+    reviewer: string;
+    requester: string;
+    note: string;
+    errors: number;
+    warnings: number;
+  },
+): OutgoingMail {
   const checks =
     input.errors + input.warnings === 0
       ? 'The checks found no errors and no warnings.'
@@ -57,13 +81,29 @@ export function reviewRequestedMail(input: ReviewMailSubject & { to: string; rev
       'The review page compares it with the last approved revision and holds the pre-maiden checklist.',
     ],
     action: { label: 'Open the review', url: input.url },
-    after: ['Bindery is a record and a checker, not a certification: the bench and field checks are still yours to make.'],
+    after: [
+      'Bindery is a record and a checker, not a certification: the bench and field checks are still yours to make.',
+    ],
   });
 }
 
-const VERDICT_WORDS = { approve: 'approved', 'request-changes': 'asked for changes to', comment: 'commented on' } as const;
+const VERDICT_WORDS = {
+  approve: 'approved',
+  'request-changes': 'asked for changes to',
+  comment: 'commented on',
+} as const;
 
-export function verdictMail(input: ReviewMailSubject & { to: string; recipient: string; reviewer: string; verdict: keyof typeof VERDICT_WORDS; body: string; ticked: number; items: number }): OutgoingMail {
+export function verdictMail(
+  input: ReviewMailSubject & {
+    to: string;
+    recipient: string;
+    reviewer: string;
+    verdict: keyof typeof VERDICT_WORDS;
+    body: string;
+    ticked: number;
+    items: number;
+  },
+): OutgoingMail {
   return composeMail({
     to: input.to,
     subject: `${input.reviewer} ${VERDICT_WORDS[input.verdict]} ${input.model}, revision ${input.revision}`,
@@ -74,6 +114,9 @@ export function verdictMail(input: ReviewMailSubject & { to: string; recipient: 
       `Pre-maiden checklist: ${input.ticked} of ${input.items} items ticked.`,
     ],
     action: { label: 'Open the review', url: input.url },
-    after: input.verdict === 'approve' ? ['The approval holds while the setup stays as approved; a revision that changes it needs a new review.'] : [],
+    after:
+      input.verdict === 'approve'
+        ? ['The approval holds while the setup stays as approved; a revision that changes it needs a new review.']
+        : [],
   });
 }

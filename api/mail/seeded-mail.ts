@@ -6,7 +6,20 @@ import type { OutgoingMail } from './mail-service';
  * A composed mail as the outbox stores a caught one, for demo data written without a
  * mail server in between. The links it carries are those of the composed mail.
  */
-export function composeMailFrom(mail: OutgoingMail): Pick<OutboxMessage, 'messageId' | 'envelopeFrom' | 'envelopeTo' | 'fromHeader' | 'toHeader' | 'subject' | 'textBody' | 'htmlBody' | 'sizeBytes'> {
+export function composeMailFrom(
+  mail: OutgoingMail,
+): Pick<
+  OutboxMessage,
+  | 'messageId'
+  | 'envelopeFrom'
+  | 'envelopeTo'
+  | 'fromHeader'
+  | 'toHeader'
+  | 'subject'
+  | 'textBody'
+  | 'htmlBody'
+  | 'sizeBytes'
+> {
   const from = process.env.MAIL_FROM?.trim() || DEFAULT_FROM;
   return {
     messageId: null,

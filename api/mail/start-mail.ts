@@ -26,14 +26,21 @@ export async function startMail(env: NodeJS.ProcessEnv, fallbackAppUrl: string):
       },
       { from: settings.from, appUrl: settings.appUrl, outboxEnabled: false },
     );
-    return { service, description: `Mail goes out through ${settings.host}:${settings.port}.`, close: async () => service.close() };
+    return {
+      service,
+      description: `Mail goes out through ${settings.host}:${settings.port}.`,
+      close: async () => service.close(),
+    };
   }
   let server;
   try {
     server = await startLocalMailServer({ port: settings.port });
   } catch (error) {
     const code = (error as NodeJS.ErrnoException).code;
-    if (code === 'EADDRINUSE') throw new Error(`MAIL_PORT ${settings.port} on 127.0.0.1 is already in use: stop what uses it or set MAIL_PORT to another port.`);
+    if (code === 'EADDRINUSE')
+      throw new Error(
+        `MAIL_PORT ${settings.port} on 127.0.0.1 is already in use: stop what uses it or set MAIL_PORT to another port.`,
+      );
     throw error;
   }
   const service = createMailService(

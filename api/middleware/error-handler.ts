@@ -12,7 +12,8 @@ interface ErrorBody {
 // PostgreSQL SQLSTATE classes that mean the server is away or going away:
 // 08 connection exception, 57P operator intervention (shutdown, cannot connect now).
 const UNAVAILABLE_SQLSTATE = /^(08|57P)/;
-const UNAVAILABLE_MESSAGE = /Connection terminated|ECONNRESET|ECONNREFUSED|not queryable|Client has encountered a connection error/i;
+const UNAVAILABLE_MESSAGE =
+  /Connection terminated|ECONNRESET|ECONNREFUSED|not queryable|Client has encountered a connection error/i;
 // Data errors PostgreSQL raises for values the API let through: still the caller's input.
 const INPUT_SQLSTATE = /^22/;
 
@@ -36,7 +37,11 @@ function bodyParserError(error: { type?: unknown; status?: unknown }): ErrorBody
       return { status: 413, code: 'too-large', message: 'The request body is too large.' };
     case 'encoding.unsupported':
     case 'charset.unsupported':
-      return { status: 415, code: 'unsupported-media-type', message: 'The request body uses an encoding this server does not accept.' };
+      return {
+        status: 415,
+        code: 'unsupported-media-type',
+        message: 'The request body uses an encoding this server does not accept.',
+      };
     case 'request.aborted':
     case 'request.size.invalid':
       return { status: 400, code: 'bad-request', message: 'The request body arrived incomplete.' };
@@ -46,13 +51,16 @@ function bodyParserError(error: { type?: unknown; status?: unknown }): ErrorBody
 }
 
 export function describeError(error: unknown): ErrorBody | null {
-  if (error instanceof HttpError) return { status: error.status, code: error.code, message: error.message, details: error.details };
+  if (error instanceof HttpError)
+    return { status: error.status, code: error.code, message: error.message, details: error.details };
   if (error instanceof ConnectionError) return databaseUnavailable;
   if (error instanceof UniqueConstraintError) return { status: 409, code: 'conflict', message: 'This already exists.' };
   if (error instanceof DatabaseError) {
     const state = sqlState(error);
-    if ((state && UNAVAILABLE_SQLSTATE.test(state)) || UNAVAILABLE_MESSAGE.test(error.message)) return databaseUnavailable;
-    if (state && INPUT_SQLSTATE.test(state)) return { status: 400, code: 'invalid-input', message: 'A value in the request is not acceptable.' };
+    if ((state && UNAVAILABLE_SQLSTATE.test(state)) || UNAVAILABLE_MESSAGE.test(error.message))
+      return databaseUnavailable;
+    if (state && INPUT_SQLSTATE.test(state))
+      return { status: 400, code: 'invalid-input', message: 'A value in the request is not acceptable.' };
   }
   if (error instanceof BaseError && UNAVAILABLE_MESSAGE.test(error.message)) return databaseUnavailable;
   if (error && typeof error === 'object') {

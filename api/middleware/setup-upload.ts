@@ -31,16 +31,27 @@ const UNKNOWN_TYPES = /^(application\/octet-stream)?$/i;
 function uploadError(error: unknown): unknown {
   if (!(error instanceof MulterError)) {
     // busboy's own complaints (a cut-off body, a broken part header) are the client's.
-    return error instanceof Error && !('status' in error) ? new BadRequest(`The upload could not be read: ${error.message}.`, { code: 'malformed-upload' }) : error;
+    return error instanceof Error && !('status' in error)
+      ? new BadRequest(`The upload could not be read: ${error.message}.`, { code: 'malformed-upload' })
+      : error;
   }
   switch (error.code) {
     case 'LIMIT_FILE_SIZE':
-      return new TooLarge(`The file is larger than ${MAX_UPLOAD_BYTES / 1024} KB; a setup is normally a few kilobytes.`, { details: { limit: MAX_UPLOAD_BYTES } });
+      return new TooLarge(
+        `The file is larger than ${MAX_UPLOAD_BYTES / 1024} KB; a setup is normally a few kilobytes.`,
+        { details: { limit: MAX_UPLOAD_BYTES } },
+      );
     case 'LIMIT_UNEXPECTED_FILE':
     case 'LIMIT_FILE_COUNT':
-      return new BadRequest('Send exactly one file, in the form field named "file".', { code: 'invalid-upload', details: { field: error.field ?? null } });
+      return new BadRequest('Send exactly one file, in the form field named "file".', {
+        code: 'invalid-upload',
+        details: { field: error.field ?? null },
+      });
     default:
-      return new BadRequest(`The upload form is not acceptable: ${error.message}.`, { code: 'invalid-upload', details: { reason: error.code } });
+      return new BadRequest(`The upload form is not acceptable: ${error.message}.`, {
+        code: 'invalid-upload',
+        details: { reason: error.code },
+      });
   }
 }
 
@@ -64,21 +75,30 @@ export async function readSetupUpload(req: Request, res: Response): Promise<Setu
       details: { content_type: req.get('content-type') ?? null },
     });
   }
-  await new Promise<void>((resolve, reject) => parser(req, res, (error?: unknown) => (error ? reject(uploadError(error)) : resolve())));
+  await new Promise<void>((resolve, reject) =>
+    parser(req, res, (error?: unknown) => (error ? reject(uploadError(error)) : resolve())),
+  );
   const file = req.file;
-  if (!file) throw new BadRequest('No file arrived: put the setup in the form field named "file".', { code: 'file-missing' });
+  if (!file)
+    throw new BadRequest('No file arrived: put the setup in the form field named "file".', { code: 'file-missing' });
 
   const fileName = path.basename(file.originalname.replace(/\\/g, '/')).slice(0, 120);
   const mimetype = file.mimetype.split(';')[0].trim();
   const acceptable = TEXT_TYPES.test(mimetype) || (YAML_NAME.test(fileName) && UNKNOWN_TYPES.test(mimetype));
   if (!acceptable) {
-    throw new UnsupportedMediaType(`"${fileName}" (${mimetype || 'no type'}) is not a YAML file: upload a .yaml or .yml file or plain text.`, {
-      details: { file_name: fileName, content_type: mimetype || null },
-    });
+    throw new UnsupportedMediaType(
+      `"${fileName}" (${mimetype || 'no type'}) is not a YAML file: upload a .yaml or .yml file or plain text.`,
+      {
+        details: { file_name: fileName, content_type: mimetype || null },
+      },
+    );
   }
   const text = decodeUtf8(file.buffer);
   if (text === null || text.includes('\u0000')) {
-    throw new UnsupportedMediaType(`"${fileName}" is not UTF-8 text; a setup file is plain text.`, { code: 'unsupported-media-type', details: { file_name: fileName } });
+    throw new UnsupportedMediaType(`"${fileName}" is not UTF-8 text; a setup file is plain text.`, {
+      code: 'unsupported-media-type',
+      details: { file_name: fileName },
+    });
   }
   return { text, fileName, fields: (req.body ?? {}) as Record<string, unknown> };
 }

@@ -46,7 +46,9 @@ export async function up({ context: { sequelize } }: MigrationParams<MigrationCo
     // The unique constraint's index (model_id, number) serves history pages newest
     // first (read backwards) and the latest-revision lookups.
     await sql(`CREATE INDEX revisions_content_hash ON revisions (content_hash)`);
-    await sql(`ALTER TABLE models ADD CONSTRAINT models_forked_from_fk FOREIGN KEY (forked_from_revision_id) REFERENCES revisions (id)`);
+    await sql(
+      `ALTER TABLE models ADD CONSTRAINT models_forked_from_fk FOREIGN KEY (forked_from_revision_id) REFERENCES revisions (id)`,
+    );
 
     // History cannot be rewritten, not even by hand: every UPDATE, DELETE or TRUNCATE
     // of revisions is refused by the database itself.
@@ -57,8 +59,12 @@ export async function up({ context: { sequelize } }: MigrationParams<MigrationCo
           USING ERRCODE = 'P0001', HINT = 'Save a new revision instead.';
       END
       $$`);
-    await sql(`CREATE TRIGGER revisions_immutable BEFORE UPDATE OR DELETE ON revisions FOR EACH ROW EXECUTE FUNCTION revisions_refuse_change()`);
-    await sql(`CREATE TRIGGER revisions_no_truncate BEFORE TRUNCATE ON revisions FOR EACH STATEMENT EXECUTE FUNCTION revisions_refuse_change()`);
+    await sql(
+      `CREATE TRIGGER revisions_immutable BEFORE UPDATE OR DELETE ON revisions FOR EACH ROW EXECUTE FUNCTION revisions_refuse_change()`,
+    );
+    await sql(
+      `CREATE TRIGGER revisions_no_truncate BEFORE TRUNCATE ON revisions FOR EACH STATEMENT EXECUTE FUNCTION revisions_refuse_change()`,
+    );
 
     // Numbers are gapless per model and each revision's parent is the one before it.
     // The API serialises saves with a row lock on the model; this holds even for
@@ -82,7 +88,9 @@ export async function up({ context: { sequelize } }: MigrationParams<MigrationCo
         RETURN NEW;
       END
       $$`);
-    await sql(`CREATE TRIGGER revisions_sequence BEFORE INSERT ON revisions FOR EACH ROW EXECUTE FUNCTION revisions_check_sequence()`);
+    await sql(
+      `CREATE TRIGGER revisions_sequence BEFORE INSERT ON revisions FOR EACH ROW EXECUTE FUNCTION revisions_check_sequence()`,
+    );
 
     // Tags are labels on revisions, not revision content, so they may come and go.
     await sql(`

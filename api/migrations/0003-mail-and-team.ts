@@ -40,7 +40,9 @@ export async function up({ context: { sequelize } }: MigrationParams<MigrationCo
       )`);
     await sql(`CREATE INDEX invitations_workspace_created ON invitations (workspace_id, created_at DESC)`);
     // One open invitation per address and workspace: inviting again replaces the old one.
-    await sql(`CREATE UNIQUE INDEX invitations_one_open ON invitations (workspace_id, email) WHERE accepted_at IS NULL AND revoked_at IS NULL`);
+    await sql(
+      `CREATE UNIQUE INDEX invitations_one_open ON invitations (workspace_id, email) WHERE accepted_at IS NULL AND revoked_at IS NULL`,
+    );
 
     await sql(`
       CREATE TABLE password_resets (

@@ -41,8 +41,12 @@ export async function up({ context: { sequelize } }: MigrationParams<MigrationCo
       )`);
     // A unit is in at most one place, and a slot holds at most one unit, at a time;
     // the database holds to that even for two requests racing each other.
-    await sql(`CREATE UNIQUE INDEX receiver_installs_one_place ON receiver_installs (receiver_id) WHERE removed_at IS NULL`);
-    await sql(`CREATE UNIQUE INDEX receiver_installs_one_unit_per_slot ON receiver_installs (model_id, slot) WHERE removed_at IS NULL`);
+    await sql(
+      `CREATE UNIQUE INDEX receiver_installs_one_place ON receiver_installs (receiver_id) WHERE removed_at IS NULL`,
+    );
+    await sql(
+      `CREATE UNIQUE INDEX receiver_installs_one_unit_per_slot ON receiver_installs (model_id, slot) WHERE removed_at IS NULL`,
+    );
     await sql(`CREATE INDEX receiver_installs_receiver_history ON receiver_installs (receiver_id, installed_at DESC)`);
   });
 }

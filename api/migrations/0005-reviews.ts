@@ -47,7 +47,9 @@ export async function up({ context: { sequelize } }: MigrationParams<MigrationCo
           USING ERRCODE = 'P0001', HINT = 'Give a new verdict instead.';
       END
       $$`);
-    await sql(`CREATE TRIGGER review_verdicts_immutable BEFORE UPDATE OR DELETE ON review_verdicts FOR EACH ROW EXECUTE FUNCTION review_verdicts_refuse_change()`);
+    await sql(
+      `CREATE TRIGGER review_verdicts_immutable BEFORE UPDATE OR DELETE ON review_verdicts FOR EACH ROW EXECUTE FUNCTION review_verdicts_refuse_change()`,
+    );
 
     // Comments belong to a revision (and to the review they were made in, if any); an
     // anchored one names a semantic path, e.g. receivers[id=wing].map[pin=3].

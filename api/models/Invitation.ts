@@ -1,4 +1,13 @@
-import { DataTypes, Model, type CreationOptional, type ForeignKey, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from 'sequelize';
+import {
+  DataTypes,
+  Model,
+  type CreationOptional,
+  type ForeignKey,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type NonAttribute,
+  type Sequelize,
+} from 'sequelize';
 import { ROLES, type Role } from '../policies/roles';
 import type { User } from './User';
 import type { Workspace } from './Workspace';
@@ -36,7 +45,13 @@ export class Invitation extends Model<InferAttributes<Invitation>, InferCreation
     Invitation.init(
       {
         id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
-        email: { type: DataTypes.TEXT, allowNull: false, set(value: string) { this.setDataValue('email', value.trim().toLowerCase()); } },
+        email: {
+          type: DataTypes.TEXT,
+          allowNull: false,
+          set(value: string) {
+            this.setDataValue('email', value.trim().toLowerCase());
+          },
+        },
         role: { type: DataTypes.TEXT, allowNull: false, validate: { isIn: [[...ROLES]] } },
         expiresAt: { type: DataTypes.DATE, allowNull: false },
         acceptedAt: { type: DataTypes.DATE, allowNull: true },

@@ -1,4 +1,13 @@
-import { DataTypes, Model, type CreationOptional, type ForeignKey, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from 'sequelize';
+import {
+  DataTypes,
+  Model,
+  type CreationOptional,
+  type ForeignKey,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type NonAttribute,
+  type Sequelize,
+} from 'sequelize';
 import type { MarkColour } from '../../shared/reuse/receiver-fields';
 import type { StoredSettings } from '../../shared/reuse/stored-settings';
 import type { ReceiverInstall } from './ReceiverInstall';

@@ -1,4 +1,13 @@
-import { DataTypes, Model, type CreationOptional, type ForeignKey, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from 'sequelize';
+import {
+  DataTypes,
+  Model,
+  type CreationOptional,
+  type ForeignKey,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type NonAttribute,
+  type Sequelize,
+} from 'sequelize';
 import type { ChecklistTick } from './ChecklistTick';
 import type { Revision } from './Revision';
 import type { ReviewVerdict } from './ReviewVerdict';
@@ -35,7 +44,12 @@ export class Review extends Model<InferAttributes<Review>, InferCreationAttribut
         id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
         reviewerIds: { type: DataTypes.ARRAY(DataTypes.UUID), allowNull: false },
         note: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
-        state: { type: DataTypes.TEXT, allowNull: false, defaultValue: 'open', validate: { isIn: [[...REVIEW_REQUEST_STATES]] } },
+        state: {
+          type: DataTypes.TEXT,
+          allowNull: false,
+          defaultValue: 'open',
+          validate: { isIn: [[...REVIEW_REQUEST_STATES]] },
+        },
         decidedAt: { type: DataTypes.DATE, allowNull: true },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,

@@ -1,4 +1,13 @@
-import { DataTypes, Model, type CreationOptional, type ForeignKey, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from 'sequelize';
+import {
+  DataTypes,
+  Model,
+  type CreationOptional,
+  type ForeignKey,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type NonAttribute,
+  type Sequelize,
+} from 'sequelize';
 import type { Finding } from '../../shared/findings';
 import type { SetupModel } from './SetupModel';
 import type { Tag } from './Tag';
@@ -47,7 +56,12 @@ export class Revision extends Model<InferAttributes<Revision>, InferCreationAttr
         errorCount: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
         warningCount: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
         infoCount: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
-        origin: { type: DataTypes.TEXT, allowNull: false, defaultValue: 'save', validate: { isIn: [[...REVISION_ORIGINS]] } },
+        origin: {
+          type: DataTypes.TEXT,
+          allowNull: false,
+          defaultValue: 'save',
+          validate: { isIn: [[...REVISION_ORIGINS]] },
+        },
         sourceRevisionId: { type: DataTypes.UUID, allowNull: true },
         createdAt: DataTypes.DATE,
       },

@@ -1,4 +1,12 @@
-import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from 'sequelize';
+import {
+  DataTypes,
+  Model,
+  type CreationOptional,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type NonAttribute,
+  type Sequelize,
+} from 'sequelize';
 import type { Membership } from './Membership';
 
 export class User extends Model<InferAttributes<User>, InferCreationAttributes<User>> {
@@ -18,7 +26,14 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
     User.init(
       {
         id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
-        email: { type: DataTypes.TEXT, allowNull: false, unique: true, set(value: string) { this.setDataValue('email', value.trim().toLowerCase()); } },
+        email: {
+          type: DataTypes.TEXT,
+          allowNull: false,
+          unique: true,
+          set(value: string) {
+            this.setDataValue('email', value.trim().toLowerCase());
+          },
+        },
         name: { type: DataTypes.TEXT, allowNull: false },
         passwordHash: { type: DataTypes.TEXT, allowNull: false },
         sessionVersion: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1 },

@@ -37,15 +37,21 @@ export function authorizeWorkspace(req: Request, workspaceId: unknown, action: M
 // Worded like the workspace guard's refusal, so every route refuses alike.
 function requireAtLeast(role: Role, minimum: Role): void {
   if (!roleAtLeast(role, minimum)) {
-    throw new Forbidden(`This needs the ${minimum} role or higher; your role here is ${role}.`, { code: 'role-too-low', details: { required: minimum, role } });
+    throw new Forbidden(`This needs the ${minimum} role or higher; your role here is ${role}.`, {
+      code: 'role-too-low',
+      details: { required: minimum, role },
+    });
   }
 }
 
 async function roleIn(req: Request, workspaceId: string): Promise<Role | null> {
-  const [row] = await SetupModel.sequelize!.query<{ role: string }>('SELECT role FROM memberships WHERE workspace_id = $workspaceId AND user_id = $userId', {
-    bind: { workspaceId, userId: currentUser(req).id },
-    type: QueryTypes.SELECT,
-  });
+  const [row] = await SetupModel.sequelize!.query<{ role: string }>(
+    'SELECT role FROM memberships WHERE workspace_id = $workspaceId AND user_id = $userId',
+    {
+      bind: { workspaceId, userId: currentUser(req).id },
+      type: QueryTypes.SELECT,
+    },
+  );
   return row && isRole(row.role) ? row.role : null;
 }
 
@@ -72,7 +78,12 @@ export async function authorizeModel(req: Request, modelId: unknown, action: Mod
 }
 
 /** Loads the revision with its model; `full` includes the YAML text, document and findings. */
-export async function authorizeRevision(req: Request, revisionId: unknown, action: ModelAction, options: { full?: boolean } = {}): Promise<RevisionAccess> {
+export async function authorizeRevision(
+  req: Request,
+  revisionId: unknown,
+  action: ModelAction,
+  options: { full?: boolean } = {},
+): Promise<RevisionAccess> {
   const notFound = new NotFound('No such revision.', { code: 'revision-not-found' });
   const id = idSchema.safeParse(revisionId);
   if (!id.success) throw notFound;

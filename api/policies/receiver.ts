@@ -28,7 +28,12 @@ export function authorizeShelf(req: Request, workspaceId: unknown, action: Recei
  * caller is not in answers exactly like one that does not exist. With a transaction,
  * the row is locked for the rest of it, so install, remove and apply on one unit queue.
  */
-export async function authorizeReceiver(req: Request, receiverId: unknown, action: ReceiverAction, transaction?: Transaction): Promise<ReceiverAccess> {
+export async function authorizeReceiver(
+  req: Request,
+  receiverId: unknown,
+  action: ReceiverAction,
+  transaction?: Transaction,
+): Promise<ReceiverAccess> {
   const notFound = new NotFound('No such receiver.', { code: 'receiver-not-found' });
   const id = idSchema.safeParse(receiverId);
   if (!id.success) throw notFound;
@@ -42,7 +47,11 @@ export async function authorizeReceiver(req: Request, receiverId: unknown, actio
 }
 
 /** A model of the receiver's own workspace: a unit goes only into the hangar its shelf belongs to. */
-export async function modelOnShelf(workspaceId: string, modelId: string, transaction?: Transaction): Promise<SetupModel> {
+export async function modelOnShelf(
+  workspaceId: string,
+  modelId: string,
+  transaction?: Transaction,
+): Promise<SetupModel> {
   const model = await SetupModel.findOne({ where: { id: modelId, workspaceId }, transaction });
   if (!model) throw new NotFound('No such model in this workspace.', { code: 'model-not-found' });
   return model;

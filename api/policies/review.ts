@@ -23,7 +23,12 @@ export interface ReviewAccess extends WorkspaceAccess {
 }
 
 /** Loads the review with its revision (in full) and model; 404 outside the caller's workspaces. */
-export async function authorizeReview(req: Request, reviewId: unknown, action: ReviewAction, transaction?: Transaction): Promise<ReviewAccess> {
+export async function authorizeReview(
+  req: Request,
+  reviewId: unknown,
+  action: ReviewAction,
+  transaction?: Transaction,
+): Promise<ReviewAccess> {
   const notFound = new NotFound('No such review.', { code: 'review-not-found' });
   const id = idSchema.safeParse(reviewId);
   if (!id.success) throw notFound;

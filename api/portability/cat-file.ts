@@ -4,11 +4,15 @@ import type { Git } from './git-cli';
 // answer is "<oid> <type> <size>" (then, for --batch, the content and a newline) or
 // "<name> missing".
 
-export type CatFileAnswer = { found: true; oid: string; type: string; size: number; content: Buffer | null } | { found: false; name: string };
+export type CatFileAnswer =
+  { found: true; oid: string; type: string; size: number; content: Buffer | null } | { found: false; name: string };
 
 export async function catFile(git: Git, repo: string, names: string[], withContent: boolean): Promise<CatFileAnswer[]> {
   if (names.length === 0) return [];
-  const { stdout } = await git.run(['cat-file', withContent ? '--batch' : '--batch-check'], { cwd: repo, input: `${names.join('\n')}\n` });
+  const { stdout } = await git.run(['cat-file', withContent ? '--batch' : '--batch-check'], {
+    cwd: repo,
+    input: `${names.join('\n')}\n`,
+  });
   const answers: CatFileAnswer[] = [];
   let at = 0;
   for (let index = 0; index < names.length; index++) {

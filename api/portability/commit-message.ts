@@ -25,7 +25,8 @@ export function formatCommitMessage(message: string, trailers: RevisionTrailers)
     `Bindery-Content-Hash: ${trailers.contentHash}`,
   ];
   // git log needs a subject line; an empty message gets one, marked so import drops it.
-  if (message.length === 0) return `${EMPTY_SUBJECT(trailers.number)}\n\n${[...lines, 'Bindery-Empty-Message: true'].join('\n')}\n`;
+  if (message.length === 0)
+    return `${EMPTY_SUBJECT(trailers.number)}\n\n${[...lines, 'Bindery-Empty-Message: true'].join('\n')}\n`;
   return `${message}\n\n${lines.join('\n')}\n`;
 }
 
@@ -42,7 +43,11 @@ export function parseCommitMessage(raw: string): ParsedMessage {
   const split = text.lastIndexOf('\n\n');
   const last = split >= 0 ? text.slice(split + 2) : '';
   const lines = last.split('\n');
-  if (split < 0 || !lines.every((line) => TRAILER.test(line)) || !lines.some((line) => line.startsWith('Bindery-Revision: '))) {
+  if (
+    split < 0 ||
+    !lines.every((line) => TRAILER.test(line)) ||
+    !lines.some((line) => line.startsWith('Bindery-Revision: '))
+  ) {
     return { message: text.trim(), trailers: null };
   }
   const values = new Map(lines.map((line) => TRAILER.exec(line)!.slice(1, 3) as [string, string]));

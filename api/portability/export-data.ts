@@ -43,10 +43,22 @@ function folderNames(models: readonly SetupModel[]): Map<string, string> {
 }
 
 /** The models' histories as the exporter wants them; `inFolders` for a workspace export. */
-export async function loadExportModels(sequelize: Sequelize, models: readonly SetupModel[], inFolders: boolean): Promise<ExportModel[]> {
-  const rows = await sequelize.query<RevisionRow>(HISTORY_SQL, { bind: { modelIds: models.map((model) => model.id) }, type: QueryTypes.SELECT });
+export async function loadExportModels(
+  sequelize: Sequelize,
+  models: readonly SetupModel[],
+  inFolders: boolean,
+): Promise<ExportModel[]> {
+  const rows = await sequelize.query<RevisionRow>(HISTORY_SQL, {
+    bind: { modelIds: models.map((model) => model.id) },
+    type: QueryTypes.SELECT,
+  });
   const folders = folderNames(models);
-  const byModel = new Map<string, ExportModel>(models.map((model) => [model.id, { name: model.name, folder: inFolders ? folders.get(model.id)! : null, revisions: [] }]));
+  const byModel = new Map<string, ExportModel>(
+    models.map((model) => [
+      model.id,
+      { name: model.name, folder: inFolders ? folders.get(model.id)! : null, revisions: [] },
+    ]),
+  );
   for (const row of rows) {
     byModel.get(row.model_id)!.revisions.push({
       number: row.number,

@@ -51,13 +51,18 @@ interface Step {
 
 /** Each model's revisions in number order, all models merged by time (stable). */
 function inTimeOrder(models: ExportModel[]): Step[] {
-  const queues = models.map((model) => ({ model, revisions: [...model.revisions].sort((a, b) => a.number - b.number), next: 0 }));
+  const queues = models.map((model) => ({
+    model,
+    revisions: [...model.revisions].sort((a, b) => a.number - b.number),
+    next: 0,
+  }));
   const steps: Step[] = [];
   for (;;) {
     let pick: (typeof queues)[number] | null = null;
     for (const queue of queues) {
       if (queue.next >= queue.revisions.length) continue;
-      if (!pick || queue.revisions[queue.next].createdAt.getTime() < pick.revisions[pick.next].createdAt.getTime()) pick = queue;
+      if (!pick || queue.revisions[queue.next].createdAt.getTime() < pick.revisions[pick.next].createdAt.getTime())
+        pick = queue;
     }
     if (!pick) return steps;
     steps.push({ model: pick.model, revision: pick.revisions[pick.next++] });
@@ -80,11 +85,15 @@ export function fastImportStream(models: ExportModel[]): Buffer {
       number: revision.number,
       contentHash: revision.contentHash,
     });
-    parts.push(Buffer.from(`commit refs/heads/${BRANCH}\nmark :${commit}\nauthor ${who}\ncommitter ${who}\n`), ...data(message));
+    parts.push(
+      Buffer.from(`commit refs/heads/${BRANCH}\nmark :${commit}\nauthor ${who}\ncommitter ${who}\n`),
+      ...data(message),
+    );
     if (previous !== null) parts.push(Buffer.from(`from :${previous}\n`));
     parts.push(Buffer.from(`M 100644 :${blob} ${model.folder ? `${model.folder}/` : ''}${SETUP_FILE}\n\n`));
     previous = commit;
-    for (const tag of revision.tags) tags.push({ ref: `refs/tags/${model.folder ? `${model.folder}/` : ''}${tag}`, mark: commit });
+    for (const tag of revision.tags)
+      tags.push({ ref: `refs/tags/${model.folder ? `${model.folder}/` : ''}${tag}`, mark: commit });
   }
   for (const tag of tags) parts.push(Buffer.from(`reset ${tag.ref}\nfrom :${tag.mark}\n\n`));
   parts.push(Buffer.from('done\n'));
@@ -96,7 +105,10 @@ export function exportHistoryBundle(models: ExportModel[]): Promise<Buffer> {
   return withGit(async (git) => {
     const repo = path.join(git.dir, 'history.git');
     await git.run(['init', '--quiet', '--bare', '--initial-branch', BRANCH, repo]);
-    await git.run(['fast-import', '--quiet', '--done', '--date-format=raw'], { cwd: repo, input: fastImportStream(models) });
+    await git.run(['fast-import', '--quiet', '--done', '--date-format=raw'], {
+      cwd: repo,
+      input: fastImportStream(models),
+    });
     const bundle = path.join(git.dir, 'history.bundle');
     await git.run(['bundle', 'create', '--quiet', bundle, '--all'], { cwd: repo });
     return readFile(bundle);

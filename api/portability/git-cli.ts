@@ -53,16 +53,34 @@ const GIT_TIMEOUT_MS = 60_000;
 
 function runGit(args: string[], cwd: string, env: NodeJS.ProcessEnv, input?: string | Buffer): Promise<GitResult> {
   return new Promise((resolve, reject) => {
-    const child = spawn('git', args, { cwd, env, stdio: ['pipe', 'pipe', 'pipe'], timeout: GIT_TIMEOUT_MS, killSignal: 'SIGKILL' });
+    const child = spawn('git', args, {
+      cwd,
+      env,
+      stdio: ['pipe', 'pipe', 'pipe'],
+      timeout: GIT_TIMEOUT_MS,
+      killSignal: 'SIGKILL',
+    });
     const out: Buffer[] = [];
     let stderr = '';
     child.stdout.on('data', (chunk: Buffer) => out.push(chunk));
     child.stderr.on('data', (chunk: Buffer) => (stderr += chunk.toString('utf8')));
     child.on('error', (error: NodeJS.ErrnoException) =>
-      reject(error.code === 'ENOENT' ? new Error('The git command line is needed for history export and import, and it is not installed.') : error),
+      reject(
+        error.code === 'ENOENT'
+          ? new Error('The git command line is needed for history export and import, and it is not installed.')
+          : error,
+      ),
     );
     child.on('close', (code, signal) =>
-      code === 0 ? resolve({ stdout: Buffer.concat(out), stderr }) : reject(new GitError(args, code ?? 1, signal ? `${stderr}\nstopped by ${signal} after ${GIT_TIMEOUT_MS / 1000} s` : stderr)),
+      code === 0
+        ? resolve({ stdout: Buffer.concat(out), stderr })
+        : reject(
+            new GitError(
+              args,
+              code ?? 1,
+              signal ? `${stderr}\nstopped by ${signal} after ${GIT_TIMEOUT_MS / 1000} s` : stderr,
+            ),
+          ),
     );
     // A git that exits early (a bad bundle) closes its input; that is reported by the exit code.
     child.stdin.on('error', () => {});
@@ -77,7 +95,8 @@ export async function withGit<T>(work: (git: Git) => Promise<T>): Promise<T> {
   const git: Git = {
     dir,
     run: (args, options = {}) => runGit(args, options.cwd ?? dir, env, options.input),
-    text: async (args, options = {}) => (await runGit(args, options.cwd ?? dir, env, options.input)).stdout.toString('utf8'),
+    text: async (args, options = {}) =>
+      (await runGit(args, options.cwd ?? dir, env, options.input)).stdout.toString('utf8'),
   };
   try {
     return await work(git);

@@ -17,7 +17,12 @@ export interface ImportResult {
 
 function nameFor(imported: ImportedModel, setups: CheckedSetup[], override: string | undefined): string {
   const own = (setups[setups.length - 1].analysis.data as { model?: { name?: unknown } } | null)?.model?.name;
-  for (const candidate of [override, imported.name, typeof own === 'string' ? own : undefined, imported.folder ?? undefined]) {
+  for (const candidate of [
+    override,
+    imported.name,
+    typeof own === 'string' ? own : undefined,
+    imported.folder ?? undefined,
+  ]) {
     const parsed = modelName.safeParse(candidate?.replace(/[\u0000-\u001f\u007f]/g, ' ').slice(0, 80));
     if (parsed.success) return parsed.data;
   }
@@ -32,7 +37,9 @@ function checkAll(imported: ImportedModel): CheckedSetup[] {
     } catch (error) {
       if (!(error instanceof HttpError)) throw error;
       const where = `${imported.folder ? `${imported.folder}/` : ''}setup.yaml in commit ${revision.commit.slice(0, 12)} (revision ${index + 1})`;
-      throw new HttpError(error.status, error.code, `${where}: ${error.message}`, { details: { ...error.details, commit: revision.commit, revision: index + 1 } });
+      throw new HttpError(error.status, error.code, `${where}: ${error.message}`, {
+        details: { ...error.details, commit: revision.commit, revision: index + 1 },
+      });
     }
   });
 }
@@ -47,7 +54,9 @@ export async function importModels(
   sequelize: Sequelize,
   input: { workspace: Workspace; author: User; models: ImportedModel[]; name?: string },
 ): Promise<ImportResult[]> {
-  const checked = input.models.filter((model) => model.revisions.length > 0).map((model) => ({ model, setups: checkAll(model) }));
+  const checked = input.models
+    .filter((model) => model.revisions.length > 0)
+    .map((model) => ({ model, setups: checkAll(model) }));
   return sequelize.transaction(async (transaction) => {
     const results: ImportResult[] = [];
     for (const { model: imported, setups } of checked) {
@@ -55,22 +64,43 @@ export async function importModels(
       const [first, ...rest] = imported.revisions;
       const created = await insertModelWithFirstRevision(
         sequelize,
-        { workspace: input.workspace, author: input.author, name, setup: setups[0], message: first.message, origin: 'upload', createdAt: first.createdAt },
+        {
+          workspace: input.workspace,
+          author: input.author,
+          name,
+          setup: setups[0],
+          message: first.message,
+          origin: 'upload',
+          createdAt: first.createdAt,
+        },
         transaction,
       );
       const locked: LockedModel = { model: created.model, latest: created.revision };
       const revisionIds = [created.revision.id];
       for (const [index, revision] of rest.entries()) {
-        const appended = await appendRevision(sequelize, locked, setups[index + 1], { author: input.author, message: revision.message, origin: 'upload', createdAt: revision.createdAt }, transaction);
+        const appended = await appendRevision(
+          sequelize,
+          locked,
+          setups[index + 1],
+          { author: input.author, message: revision.message, origin: 'upload', createdAt: revision.createdAt },
+          transaction,
+        );
         locked.latest = appended;
         revisionIds.push(appended.id);
       }
       await Tag.bulkCreate(
-        imported.tags.map((tag) => ({ modelId: created.model.id, revisionId: revisionIds[tag.index], name: tag.name, createdBy: input.author.id })),
+        imported.tags.map((tag) => ({
+          modelId: created.model.id,
+          revisionId: revisionIds[tag.index],
+          name: tag.name,
+          createdBy: input.author.id,
+        })),
         { transaction },
       );
       const hashMismatches = imported.revisions.flatMap((revision, index) =>
-        revision.recordedHash && revision.recordedHash !== setups[index].contentHash ? [{ number: index + 1, recorded: revision.recordedHash, computed: setups[index].contentHash }] : [],
+        revision.recordedHash && revision.recordedHash !== setups[index].contentHash
+          ? [{ number: index + 1, recorded: revision.recordedHash, computed: setups[index].contentHash }]
+          : [],
       );
       await recordAuditEvent(
         {
@@ -79,7 +109,13 @@ export async function importModels(
           action: 'model.created',
           subjectType: 'model',
           subjectId: created.model.id,
-          details: { name, origin: 'import', revisions: revisionIds.length, tags: imported.tags.length, revision_id: locked.latest?.id ?? null },
+          details: {
+            name,
+            origin: 'import',
+            revisions: revisionIds.length,
+            tags: imported.tags.length,
+            revision_id: locked.latest?.id ?? null,
+          },
         },
         transaction,
       );

@@ -14,7 +14,10 @@ export interface Readiness {
 
 const iso = (date: Date | null | undefined) => (date ? date.toISOString() : null);
 
-const presentModelRef = (model: SetupModel | undefined, modelId: string) => ({ id: modelId, name: model?.name ?? null });
+const presentModelRef = (model: SetupModel | undefined, modelId: string) => ({
+  id: modelId,
+  name: model?.name ?? null,
+});
 
 export function presentInstall(install: ReceiverInstall) {
   return {
@@ -51,7 +54,12 @@ export function presentReceiver(receiver: Receiver, view: ReceiverView) {
     telemetry: receiver.storedSettings ? receiver.storedSettings.telemetry : null,
     status: install ? ('installed' as const) : ('free' as const),
     installed: install
-      ? { install_id: install.id, model: presentModelRef(install.model, install.modelId), slot: install.slot, since: install.installedAt.toISOString() }
+      ? {
+          install_id: install.id,
+          model: presentModelRef(install.model, install.modelId),
+          slot: install.slot,
+          since: install.installedAt.toISOString(),
+        }
       : null,
     readiness: view.readiness ?? null,
     created_at: receiver.createdAt.toISOString(),

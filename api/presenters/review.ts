@@ -12,7 +12,10 @@ export interface ReviewListContext {
 }
 
 /** A review as lists show it: what, whose, who reviews, where it stands. */
-export function presentReviewSummary(review: Review & { revision: Revision; model: SetupModel }, context: ReviewListContext) {
+export function presentReviewSummary(
+  review: Review & { revision: Revision; model: SetupModel },
+  context: ReviewListContext,
+) {
   const latest = context.latest.get(review.modelId);
   return {
     id: review.id,
@@ -34,7 +37,9 @@ export function presentReviewSummary(review: Review & { revision: Revision; mode
     created_at: review.createdAt.toISOString(),
     verdict_count: context.verdictCounts.get(review.id) ?? 0,
     /** The model's latest revision, and whether it still has the reviewed content. */
-    latest: latest ? { id: latest.id, number: latest.number, same_content: latest.contentHash === review.revision.contentHash } : null,
+    latest: latest
+      ? { id: latest.id, number: latest.number, same_content: latest.contentHash === review.revision.contentHash }
+      : null,
   };
 }
 
@@ -49,7 +54,12 @@ export function presentVerdict(verdict: ReviewVerdict, users: Map<string, Person
   };
 }
 
-export function presentComment(comment: ReviewComment, users: Map<string, Person>, revisions: Map<string, Pick<Revision, 'id' | 'number'>>, shownOn: string) {
+export function presentComment(
+  comment: ReviewComment,
+  users: Map<string, Person>,
+  revisions: Map<string, Pick<Revision, 'id' | 'number'>>,
+  shownOn: string,
+) {
   const revision = revisions.get(comment.revisionId);
   return {
     id: comment.id,

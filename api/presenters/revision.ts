@@ -5,7 +5,10 @@ export function presentAuthor(user: User | null | undefined) {
 }
 
 /** A revision without its text and document: for history lists and answers to saves. */
-export function presentRevisionSummary(revision: Revision, tags: readonly string[] = revision.tags?.map((tag) => tag.name) ?? []) {
+export function presentRevisionSummary(
+  revision: Revision,
+  tags: readonly string[] = revision.tags?.map((tag) => tag.name) ?? [],
+) {
   return {
     id: revision.id,
     model_id: revision.modelId,
@@ -31,7 +34,12 @@ export function presentSavedRevision(revision: Revision) {
 
 /** Everything about one revision, its exact YAML text included. */
 export function presentRevision(revision: Revision, tags?: readonly string[]) {
-  return { ...presentRevisionSummary(revision, tags), yaml: revision.yamlText, document: revision.document, findings: revision.findings };
+  return {
+    ...presentRevisionSummary(revision, tags),
+    yaml: revision.yamlText,
+    document: revision.document,
+    findings: revision.findings,
+  };
 }
 
 /** The latest revision as the hangar and the model page show it. */

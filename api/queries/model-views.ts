@@ -7,7 +7,10 @@ import { reviewStateOf } from '../review-state';
 const SUMMARY_ATTRIBUTES = { exclude: ['yamlText', 'document', 'findings'] };
 
 /** The latest revision of each model (with its author), by model id; two index lookups per model. */
-export async function latestRevisions(modelIds: readonly string[], transaction?: Transaction): Promise<Map<string, Revision>> {
+export async function latestRevisions(
+  modelIds: readonly string[],
+  transaction?: Transaction,
+): Promise<Map<string, Revision>> {
   if (modelIds.length === 0) return new Map();
   const rows = await Revision.sequelize!.query<{ id: string }>(
     `SELECT latest.id FROM unnest($ids::uuid[]) AS m(id)
@@ -25,10 +28,16 @@ export async function latestRevisions(modelIds: readonly string[], transaction?:
 
 /** Where each forked model came from, and whether `user` may read the source's workspace. */
 export async function forkSources(models: readonly SetupModel[], user: User): Promise<Map<string, ForkSource>> {
-  const sourceIds = [...new Set(models.map((model) => model.forkedFromRevisionId).filter((id): id is string => Boolean(id)))];
+  const sourceIds = [
+    ...new Set(models.map((model) => model.forkedFromRevisionId).filter((id): id is string => Boolean(id))),
+  ];
   if (sourceIds.length === 0) return new Map();
   const [revisions, memberships] = await Promise.all([
-    Revision.findAll({ where: { id: sourceIds }, attributes: ['id', 'number', 'modelId'], include: [{ model: SetupModel, as: 'model', required: true }] }),
+    Revision.findAll({
+      where: { id: sourceIds },
+      attributes: ['id', 'number', 'modelId'],
+      include: [{ model: SetupModel, as: 'model', required: true }],
+    }),
     Membership.findAll({ where: { userId: user.id }, attributes: ['workspaceId'] }),
   ]);
   const readable = new Set(memberships.map((membership) => membership.workspaceId));
@@ -36,14 +45,18 @@ export async function forkSources(models: readonly SetupModel[], user: User): Pr
   const sources = new Map<string, ForkSource>();
   for (const model of models) {
     const revision = model.forkedFromRevisionId ? byId.get(model.forkedFromRevisionId) : undefined;
-    if (revision?.model) sources.set(model.id, { revision, model: revision.model, readable: readable.has(revision.model.workspaceId) });
+    if (revision?.model)
+      sources.set(model.id, { revision, model: revision.model, readable: readable.has(revision.model.workspaceId) });
   }
   return sources;
 }
 
 /** Models as the hangar and the model page present them: latest revision, review state, lineage. */
 export async function presentModels(models: readonly SetupModel[], role: Role, user: User): Promise<PresentedModel[]> {
-  const [latest, sources] = await Promise.all([latestRevisions(models.map((model) => model.id)), forkSources(models, user)]);
+  const [latest, sources] = await Promise.all([
+    latestRevisions(models.map((model) => model.id)),
+    forkSources(models, user),
+  ]);
   const states = await reviewStateOf([...latest.values()]);
   return models.map((model) => {
     const revision = latest.get(model.id) ?? null;
@@ -63,7 +76,10 @@ export async function presentOneModel(model: SetupModel, role: Role, user: User)
 
 /** Tag names per revision id. */
 export async function tagsByRevision(revisionIds: readonly string[]): Promise<Map<string, string[]>> {
-  const tags = revisionIds.length === 0 ? [] : await Tag.findAll({ where: { revisionId: { [Op.in]: [...revisionIds] } }, attributes: ['revisionId', 'name'] });
+  const tags =
+    revisionIds.length === 0
+      ? []
+      : await Tag.findAll({ where: { revisionId: { [Op.in]: [...revisionIds] } }, attributes: ['revisionId', 'name'] });
   const byRevision = new Map<string, string[]>();
   for (const tag of tags) byRevision.set(tag.revisionId, [...(byRevision.get(tag.revisionId) ?? []), tag.name]);
   return byRevision;

@@ -6,7 +6,13 @@ import { ChecklistTick, Review, ReviewComment, ReviewVerdict, Revision, SetupMod
 import type { ReviewAccess } from '../policies/review';
 import { REVIEW_POLICY } from '../policies/review';
 import { roleAtLeast } from '../policies/roles';
-import { presentChecklist, presentComment, presentReviewSummary, presentVerdict, type ReviewListContext } from '../presenters/review';
+import {
+  presentChecklist,
+  presentComment,
+  presentReviewSummary,
+  presentVerdict,
+  type ReviewListContext,
+} from '../presenters/review';
 import { presentRevisionSummary } from '../presenters/revision';
 import { anchorExists } from '../reviews/anchor-path';
 import { clearedForMaiden, reviewStateOf } from '../review-state';
@@ -31,7 +37,10 @@ export function loadReviews(where: Record<string, unknown>, options: { limit: nu
       { model: Revision, as: 'revision', required: true, attributes: SUMMARY },
       { model: SetupModel, as: 'model', required: true },
     ],
-    order: [['createdAt', 'DESC'], ['id', 'DESC']],
+    order: [
+      ['createdAt', 'DESC'],
+      ['id', 'DESC'],
+    ],
     limit: options.limit,
     offset: options.offset,
   }) as Promise<{ rows: LoadedReview[]; count: number }>;
@@ -43,10 +52,13 @@ export async function reviewListContext(reviews: readonly LoadedReview[]): Promi
     latestRevisions([...new Set(reviews.map((review) => review.modelId))]),
     reviews.length === 0
       ? []
-      : Review.sequelize!.query<{ review_id: string; count: string }>('SELECT review_id, count(*) AS count FROM review_verdicts WHERE review_id = ANY($ids::uuid[]) GROUP BY review_id', {
-          bind: { ids: reviews.map((review) => review.id) },
-          type: QueryTypes.SELECT,
-        }),
+      : Review.sequelize!.query<{ review_id: string; count: string }>(
+          'SELECT review_id, count(*) AS count FROM review_verdicts WHERE review_id = ANY($ids::uuid[]) GROUP BY review_id',
+          {
+            bind: { ids: reviews.map((review) => review.id) },
+            type: QueryTypes.SELECT,
+          },
+        ),
   ]);
   return { users, latest, verdictCounts: new Map(counts.map((row) => [row.review_id, Number(row.count)])) };
 }
@@ -60,7 +72,9 @@ export async function presentReviewList(reviews: readonly LoadedReview[]) {
  * What a review compares against: the model's last approved revision before this one,
  * else its parent, else (for a fork's first revision) the revision it was forked from.
  */
-export async function baseRevisionFor(revision: Revision): Promise<{ kind: 'approved' | 'parent' | 'fork-source'; revision: Revision } | null> {
+export async function baseRevisionFor(
+  revision: Revision,
+): Promise<{ kind: 'approved' | 'parent' | 'fork-source'; revision: Revision } | null> {
   const [row] = await Revision.sequelize!.query<{ id: string }>(
     `SELECT rv.id FROM revisions rv
       WHERE rv.model_id = $model AND rv.number < $number
@@ -88,15 +102,31 @@ export async function baseRevisionFor(revision: Revision): Promise<{ kind: 'appr
 export async function commentsShownOn(revision: Revision): Promise<ReviewComment[]> {
   const candidates = await ReviewComment.findAll({
     where: { modelId: revision.modelId },
-    include: [{ model: Revision, as: 'revision', required: true, attributes: ['id', 'number'], where: { number: { [Op.lte]: revision.number } } }],
-    order: [['createdAt', 'ASC'], ['id', 'ASC']],
+    include: [
+      {
+        model: Revision,
+        as: 'revision',
+        required: true,
+        attributes: ['id', 'number'],
+        where: { number: { [Op.lte]: revision.number } },
+      },
+    ],
+    order: [
+      ['createdAt', 'ASC'],
+      ['id', 'ASC'],
+    ],
   });
-  return candidates.filter((comment) => comment.revisionId === revision.id || (comment.path !== null && anchorExists(revision.document, comment.path)));
+  return candidates.filter(
+    (comment) =>
+      comment.revisionId === revision.id || (comment.path !== null && anchorExists(revision.document, comment.path)),
+  );
 }
 
 export async function presentCommentsOn(revision: Revision, comments: readonly ReviewComment[]) {
   const users = await usersById(comments.map((comment) => comment.authorId));
-  const revisions = new Map(comments.flatMap((comment) => (comment.revision ? [[comment.revisionId, comment.revision] as const] : [])));
+  const revisions = new Map(
+    comments.flatMap((comment) => (comment.revision ? [[comment.revisionId, comment.revision] as const] : [])),
+  );
   return comments.map((comment) => presentComment(comment, users, revisions, revision.id));
 }
 
@@ -107,14 +137,24 @@ export async function reviewDetail(access: ReviewAccess, caller: User) {
   const [context, base, verdicts, ticks, comments] = await Promise.all([
     reviewListContext([review]),
     baseRevisionFor(revision),
-    ReviewVerdict.findAll({ where: { reviewId: review.id }, order: [['createdAt', 'ASC'], ['id', 'ASC']] }),
+    ReviewVerdict.findAll({
+      where: { reviewId: review.id },
+      order: [
+        ['createdAt', 'ASC'],
+        ['id', 'ASC'],
+      ],
+    }),
     ChecklistTick.findAll({ where: { reviewId: review.id } }),
     commentsShownOn(revision),
   ]);
-  const users = await usersById([...verdicts.map((verdict) => verdict.reviewerId), ...ticks.map((tick) => tick.tickedBy), ...(base ? [base.revision.authorId] : [])]);
+  const users = await usersById([
+    ...verdicts.map((verdict) => verdict.reviewerId),
+    ...ticks.map((tick) => tick.tickedBy),
+    ...(base ? [base.revision.authorId] : []),
+  ]);
   for (const [id, user] of context.users) users.set(id, user);
   const latest = context.latest.get(review.modelId);
-  const modelState = latest ? (await reviewStateOf([latest])).get(latest.id) ?? 'none' : 'none';
+  const modelState = latest ? ((await reviewStateOf([latest])).get(latest.id) ?? 'none') : 'none';
   const canVerdict = roleAtLeast(access.role, REVIEW_POLICY.verdict);
   const refusal = canVerdict ? approvalRefusal(access, caller) : null;
   const summarise = (entry: Revision) => {

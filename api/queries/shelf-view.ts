@@ -5,7 +5,10 @@ import { presentReceiver, type PresentedReceiver, type Readiness } from '../pres
 import { setupOf, unitOf } from './receiver-slot';
 
 /** The open install of each receiver, with its model, by receiver id. */
-export async function openInstalls(receiverIds: readonly string[], transaction?: Transaction): Promise<Map<string, ReceiverInstall>> {
+export async function openInstalls(
+  receiverIds: readonly string[],
+  transaction?: Transaction,
+): Promise<Map<string, ReceiverInstall>> {
   if (receiverIds.length === 0) return new Map();
   const installs = await ReceiverInstall.findAll({
     where: { receiverId: { [Op.in]: [...receiverIds] }, removedAt: null },
@@ -15,7 +18,10 @@ export async function openInstalls(receiverIds: readonly string[], transaction?:
   return new Map(installs.map((install) => [install.receiverId, install]));
 }
 
-async function latestFullRevisions(modelIds: readonly string[], transaction?: Transaction): Promise<Map<string, Revision>> {
+async function latestFullRevisions(
+  modelIds: readonly string[],
+  transaction?: Transaction,
+): Promise<Map<string, Revision>> {
   if (modelIds.length === 0) return new Map();
   const rows = await Revision.findAll({
     attributes: ['modelId', [Revision.sequelize!.fn('max', Revision.sequelize!.col('number')), 'number']],
@@ -37,21 +43,45 @@ function readinessOf(receiver: Receiver, install: ReceiverInstall, revision: Rev
   if (!revision) return { state: 'unchecked', changes: 0, revision: null, reason: 'The model has no revision yet.' };
   const ref = { id: revision.id, number: revision.number };
   const setup = setupOf(revision);
-  if (!setup) return { state: 'unchecked', changes: 0, revision: ref, reason: `Revision ${revision.number} does not pass the format's schema.` };
+  if (!setup)
+    return {
+      state: 'unchecked',
+      changes: 0,
+      revision: ref,
+      reason: `Revision ${revision.number} does not pass the format's schema.`,
+    };
   const slot = findSlot(setup, install.slot);
-  if (!slot) return { state: 'unchecked', changes: 0, revision: ref, reason: `Revision ${revision.number} has no receiver "${install.slot}".` };
+  if (!slot)
+    return {
+      state: 'unchecked',
+      changes: 0,
+      revision: ref,
+      reason: `Revision ${revision.number} has no receiver "${install.slot}".`,
+    };
   const check = reuseCheck(unitOf(receiver), slot);
   const state = check.notes.some((note) => note.blocking) ? 'blocked' : check.ready ? 'ready' : 'changes';
   return { state, changes: check.changes.length, revision: ref, reason: null };
 }
 
 /** Receivers as the shelf shows them: where each is, and whether it is ready for that slot now. */
-export async function presentShelf(receivers: readonly Receiver[], transaction?: Transaction): Promise<PresentedReceiver[]> {
-  const installs = await openInstalls(receivers.map((receiver) => receiver.id), transaction);
-  const revisions = await latestFullRevisions([...new Set([...installs.values()].map((install) => install.modelId))], transaction);
+export async function presentShelf(
+  receivers: readonly Receiver[],
+  transaction?: Transaction,
+): Promise<PresentedReceiver[]> {
+  const installs = await openInstalls(
+    receivers.map((receiver) => receiver.id),
+    transaction,
+  );
+  const revisions = await latestFullRevisions(
+    [...new Set([...installs.values()].map((install) => install.modelId))],
+    transaction,
+  );
   return receivers.map((receiver) => {
     const install = installs.get(receiver.id) ?? null;
-    return presentReceiver(receiver, { install, readiness: install ? readinessOf(receiver, install, revisions.get(install.modelId)) : null });
+    return presentReceiver(receiver, {
+      install,
+      readiness: install ? readinessOf(receiver, install, revisions.get(install.modelId)) : null,
+    });
   });
 }
 

@@ -24,7 +24,8 @@ export function readAnchor(path: string): PathStep[] | null {
   return steps;
 }
 
-const identityOf = (value: unknown): string | null => (typeof value === 'number' && Number.isFinite(value) ? String(value) : typeof value === 'string' ? value : null);
+const identityOf = (value: unknown): string | null =>
+  typeof value === 'number' && Number.isFinite(value) ? String(value) : typeof value === 'string' ? value : null;
 
 /** Whether the path leads to a value in the document. */
 export function anchorExists(document: unknown, path: string): boolean {
@@ -33,14 +34,25 @@ export function anchorExists(document: unknown, path: string): boolean {
   let value: unknown = document;
   for (const step of steps) {
     if ('key' in step) {
-      if (value === null || typeof value !== 'object' || Array.isArray(value) || !Object.prototype.hasOwnProperty.call(value, step.key)) return false;
+      if (
+        value === null ||
+        typeof value !== 'object' ||
+        Array.isArray(value) ||
+        !Object.prototype.hasOwnProperty.call(value, step.key)
+      )
+        return false;
       value = (value as Record<string, unknown>)[step.key];
     } else if ('index' in step) {
       if (!Array.isArray(value) || step.index >= value.length) return false;
       value = value[step.index];
     } else {
       if (!Array.isArray(value)) return false;
-      value = value.find((item) => item !== null && typeof item === 'object' && identityOf((item as Record<string, unknown>)[step.match]) === step.value);
+      value = value.find(
+        (item) =>
+          item !== null &&
+          typeof item === 'object' &&
+          identityOf((item as Record<string, unknown>)[step.match]) === step.value,
+      );
       if (value === undefined) return false;
     }
   }

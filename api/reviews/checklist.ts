@@ -23,22 +23,31 @@ export const PRE_MAIDEN_CHECKLIST: readonly ChecklistItem[] = [
   {
     id: 'throws-measured',
     label: 'Throws measured',
-    detail: 'Throws and rates measured at the surfaces and matching what the setup intends; no servo stalls at its end points.',
+    detail:
+      'Throws and rates measured at the surfaces and matching what the setup intends; no servo stalls at its end points.',
     source: null,
     basis: 'Common practice, no published source.',
   },
   {
     id: 'failsafe-tested',
     label: 'Failsafe tested',
-    detail: 'With the model restrained and the propeller off, switch the transmitter off: the throttle goes to closed or idle and every pin goes where the setup says.',
-    source: { label: 'cap-658', title: 'UK CAA CAP 658 (now CAP 722F), as summarised by the BMFA, "Thinking About Fail-safes"' },
+    detail:
+      'With the model restrained and the propeller off, switch the transmitter off: the throttle goes to closed or idle and every pin goes where the setup says.',
+    source: {
+      label: 'cap-658',
+      title: 'UK CAA CAP 658 (now CAP 722F), as summarised by the BMFA, "Thinking About Fail-safes"',
+    },
     basis: null,
   },
   {
     id: 'range-check',
     label: 'Ground range check',
-    detail: 'A ground range check before the first flight of a new or repaired model, with every receiver bound and powered.',
-    source: { label: 'ama-safety-code', title: 'Academy of Model Aeronautics, National Model Aircraft Safety Code, Radio Control B.2' },
+    detail:
+      'A ground range check before the first flight of a new or repaired model, with every receiver bound and powered.',
+    source: {
+      label: 'ama-safety-code',
+      title: 'Academy of Model Aeronautics, National Model Aircraft Safety Code, Radio Control B.2',
+    },
     basis: null,
   },
   {
@@ -58,8 +67,12 @@ export const PRE_MAIDEN_CHECKLIST: readonly ChecklistItem[] = [
   {
     id: 'receiver-power',
     label: 'Receiver power wiring',
-    detail: 'Each receiver is powered as the setup says; with a separate receiver pack, the ESC’s red lead is disconnected so it cannot back-feed.',
-    source: { label: 'back-feed', title: 'Model-club guidance on receiver packs beside an ESC’s regulator (common practice, no standard)' },
+    detail:
+      'Each receiver is powered as the setup says; with a separate receiver pack, the ESC’s red lead is disconnected so it cannot back-feed.',
+    source: {
+      label: 'back-feed',
+      title: 'Model-club guidance on receiver packs beside an ESC’s regulator (common practice, no standard)',
+    },
     basis: null,
   },
 ];

@@ -18,7 +18,10 @@ export interface VerdictFact {
  * (comments do not); one outstanding request for changes outweighs approvals, and one
  * approval without such a request is a sign-off.
  */
-export function reviewStateFromVerdicts(verdicts: readonly VerdictFact[]): { state: ReviewRequestState; decidedAt: Date | null } {
+export function reviewStateFromVerdicts(verdicts: readonly VerdictFact[]): {
+  state: ReviewRequestState;
+  decidedAt: Date | null;
+} {
   const latest = new Map<string, VerdictFact>();
   for (const fact of [...verdicts].sort((a, b) => a.createdAt.getTime() - b.createdAt.getTime())) {
     if (fact.verdict !== 'comment') latest.set(fact.reviewerId, fact);
@@ -44,7 +47,10 @@ export interface ReviewFact {
  * Reviews of the same content as the latest revision decide (the most recent decision
  * wins); an approval of other content only makes the model stale.
  */
-export function modelReviewState(latest: { contentHash: string; errorCount: number }, reviews: readonly ReviewFact[]): ReviewState {
+export function modelReviewState(
+  latest: { contentHash: string; errorCount: number },
+  reviews: readonly ReviewFact[],
+): ReviewState {
   const current = reviews.filter((review) => review.contentHash === latest.contentHash);
   const decided = current
     .filter((review) => review.state !== 'open' && review.decidedAt)

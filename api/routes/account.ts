@@ -12,7 +12,10 @@ import { parseInput } from '../validation';
 import { passwordField } from './team-inputs';
 
 const changePasswordSchema = z.strictObject({
-  current: z.string({ error: 'Enter your current password.' }).min(1, 'Enter your current password.').max(1024, 'That password is too long.'),
+  current: z
+    .string({ error: 'Enter your current password.' })
+    .min(1, 'Enter your current password.')
+    .max(1024, 'That password is too long.'),
   password: passwordField,
 });
 
@@ -31,8 +34,14 @@ function wrongPasswordLimiter({ config }: AppContext) {
     keyGenerator: (req) => `password:${currentUser(req).id}`,
     handler: (req: Request, _res: Response, next: NextFunction) => {
       const reset = (req as AugmentedRequest).rateLimit?.resetTime;
-      const retryAfter = reset ? Math.max(1, Math.ceil((reset.getTime() - Date.now()) / 1000)) : Math.ceil(windowMs / 1000);
-      next(new RateLimited('Too many wrong passwords. Wait a while and try again.', { details: { retry_after_seconds: retryAfter } }));
+      const retryAfter = reset
+        ? Math.max(1, Math.ceil((reset.getTime() - Date.now()) / 1000))
+        : Math.ceil(windowMs / 1000);
+      next(
+        new RateLimited('Too many wrong passwords. Wait a while and try again.', {
+          details: { retry_after_seconds: retryAfter },
+        }),
+      );
     },
   });
 }

@@ -33,12 +33,17 @@ export function auditRouter({ config }: AppContext): Router {
       where: { workspaceId: workspace.id },
       attributes: { include: [[SUBJECT_MODEL, 'subjectModel']] },
       include: [{ model: User, as: 'actor', attributes: ['id', 'name'] }],
-      order: [['createdAt', 'DESC'], ['id', 'DESC']],
+      order: [
+        ['createdAt', 'DESC'],
+        ['id', 'DESC'],
+      ],
       limit,
       offset,
     });
     res.json({
-      data: rows.map((event) => presentAuditEvent(event, (event.get('subjectModel') as AuditSubjectModel | null) ?? null)),
+      data: rows.map((event) =>
+        presentAuditEvent(event, (event.get('subjectModel') as AuditSubjectModel | null) ?? null),
+      ),
       pagination: { limit, offset, total: count },
     });
   });

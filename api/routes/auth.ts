@@ -28,12 +28,23 @@ const signUpSchema = z.object({
   password: z
     .string({ error: 'Choose a password.' })
     .min(PASSWORD_MIN_LENGTH, `Use at least ${PASSWORD_MIN_LENGTH} characters.`)
-    .refine((value) => Buffer.byteLength(value) <= PASSWORD_MAX_BYTES, `Use at most ${PASSWORD_MAX_BYTES} bytes (about ${PASSWORD_MAX_BYTES} plain letters).`),
+    .refine(
+      (value) => Buffer.byteLength(value) <= PASSWORD_MAX_BYTES,
+      `Use at most ${PASSWORD_MAX_BYTES} bytes (about ${PASSWORD_MAX_BYTES} plain letters).`,
+    ),
 });
 
 const signInSchema = z.object({
-  email: z.string({ error: 'Enter your e-mail address.' }).trim().toLowerCase().min(1, 'Enter your e-mail address.').max(254, 'An e-mail address has at most 254 characters.'),
-  password: z.string({ error: 'Enter your password.' }).min(1, 'Enter your password.').max(1024, 'That password is too long.'),
+  email: z
+    .string({ error: 'Enter your e-mail address.' })
+    .trim()
+    .toLowerCase()
+    .min(1, 'Enter your e-mail address.')
+    .max(254, 'An e-mail address has at most 254 characters.'),
+  password: z
+    .string({ error: 'Enter your password.' })
+    .min(1, 'Enter your password.')
+    .max(1024, 'That password is too long.'),
 });
 
 function accountKey(req: Request): string | null {
@@ -53,8 +64,14 @@ function signInLimiters({ config }: AppContext): RateLimitRequestHandler[] {
     legacyHeaders: false,
     handler: (req: Request, _res: Response, next: NextFunction) => {
       const reset = (req as AugmentedRequest).rateLimit?.resetTime;
-      const retryAfter = reset ? Math.max(1, Math.ceil((reset.getTime() - Date.now()) / 1000)) : Math.ceil(windowMs / 1000);
-      next(new RateLimited('Too many failed sign-in attempts. Wait a while and try again.', { details: { retry_after_seconds: retryAfter } }));
+      const retryAfter = reset
+        ? Math.max(1, Math.ceil((reset.getTime() - Date.now()) / 1000))
+        : Math.ceil(windowMs / 1000);
+      next(
+        new RateLimited('Too many failed sign-in attempts. Wait a while and try again.', {
+          details: { retry_after_seconds: retryAfter },
+        }),
+      );
     },
   };
   return [

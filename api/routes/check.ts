@@ -17,7 +17,10 @@ export function checkRouter(): Router {
     let text: string;
     if (typeof req.body === 'string') text = req.body;
     else if (req.is('application/json')) text = parseInput(jsonBody, req.body).yaml;
-    else throw new BadRequest('Send the setup text as the body, with Content-Type: application/yaml (or text/plain).', { code: 'missing-body' });
+    else
+      throw new BadRequest('Send the setup text as the body, with Content-Type: application/yaml (or text/plain).', {
+        code: 'missing-body',
+      });
 
     const { readable, findings, counts } = analyzeSetup(text);
     res.json({ data: { readable, findings, errors: counts.errors, warnings: counts.warnings, infos: counts.infos } });

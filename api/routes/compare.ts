@@ -23,10 +23,20 @@ export function compareRouter({ config }: AppContext): Router {
   // Any two revisions the caller may read: of one model, or of two (a fork and its
   // source), each side authorised on its own.
   router.get('/compare', authenticate(config), async (req, res) => {
-    const query = parseInput(compareQuery, req.query, 'Name the two revisions to compare: ?from=<revision id>&to=<revision id>.');
-    const [from, to] = await Promise.all([authorizeRevision(req, query.from, 'read', { full: true }), authorizeRevision(req, query.to, 'read', { full: true })]);
+    const query = parseInput(
+      compareQuery,
+      req.query,
+      'Name the two revisions to compare: ?from=<revision id>&to=<revision id>.',
+    );
+    const [from, to] = await Promise.all([
+      authorizeRevision(req, query.from, 'read', { full: true }),
+      authorizeRevision(req, query.to, 'read', { full: true }),
+    ]);
     const [authors, tags] = await Promise.all([
-      User.findAll({ where: { id: [...new Set([from.revision.authorId, to.revision.authorId])] }, attributes: ['id', 'name'] }),
+      User.findAll({
+        where: { id: [...new Set([from.revision.authorId, to.revision.authorId])] },
+        attributes: ['id', 'name'],
+      }),
       tagsByRevision([from.revision.id, to.revision.id]),
     ]);
     const side = (access: RevisionAccess) => {

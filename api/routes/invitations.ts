@@ -42,20 +42,34 @@ export function invitationsRouter({ sequelize, config }: AppContext): Router {
     const id = verifyLinkToken('invitation', req.params.token, config);
     const input = parseInput(acceptSchema, req.body);
     if (input.name !== undefined && input.password !== undefined) {
-      const { invitation, membership, user } = await acceptWithNewAccount(sequelize, id, { name: input.name, password: input.password });
+      const { invitation, membership, user } = await acceptWithNewAccount(sequelize, id, {
+        name: input.name,
+        password: input.password,
+      });
       const token = signSession(user, config);
       setSessionCookie(res, token, config);
       res.status(201).json({
-        data: { user: presentUser(user), token, workspace: { id: invitation.workspace.id, name: invitation.workspace.name, role: membership.role } },
+        data: {
+          user: presentUser(user),
+          token,
+          workspace: { id: invitation.workspace.id, name: invitation.workspace.name, role: membership.role },
+        },
       });
       return;
     }
     const caller = await callerIfAny(req, res);
     if (!caller) {
-      throw new Unauthorized('Sign in to accept this invitation, or send a name and a password to create an account.', { code: 'unauthorized' });
+      throw new Unauthorized('Sign in to accept this invitation, or send a name and a password to create an account.', {
+        code: 'unauthorized',
+      });
     }
     const { invitation, membership } = await acceptAsMember(sequelize, id, caller);
-    res.json({ data: { user: presentUser(caller), workspace: { id: invitation.workspace.id, name: invitation.workspace.name, role: membership.role } } });
+    res.json({
+      data: {
+        user: presentUser(caller),
+        workspace: { id: invitation.workspace.id, name: invitation.workspace.name, role: membership.role },
+      },
+    });
   });
 
   return router;

@@ -12,12 +12,19 @@ export function meRouter({ config }: AppContext): Router {
     const memberships = await Membership.findAll({
       where: { userId: user.id },
       include: [{ model: Workspace, as: 'workspace', required: true }],
-      order: [[{ model: Workspace, as: 'workspace' }, 'name', 'ASC'], ['createdAt', 'ASC']],
+      order: [
+        [{ model: Workspace, as: 'workspace' }, 'name', 'ASC'],
+        ['createdAt', 'ASC'],
+      ],
     });
     res.json({
       data: {
         user: presentUser(user),
-        workspaces: memberships.map((membership) => ({ id: membership.workspaceId, name: membership.workspace!.name, role: membership.role })),
+        workspaces: memberships.map((membership) => ({
+          id: membership.workspaceId,
+          name: membership.workspace!.name,
+          role: membership.role,
+        })),
       },
     });
   });

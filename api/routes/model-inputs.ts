@@ -17,7 +17,10 @@ export const message = z
   .regex(/^[^\u0000]*$/, 'A message cannot contain NUL characters.');
 
 const revisionNumber = (field: string) =>
-  z.int({ error: `${field} must be a whole revision number.` }).min(1, `${field} is a revision number, 1 or more.`).max(2_147_483_647, `${field} is too large.`);
+  z
+    .int({ error: `${field} must be a whole revision number.` })
+    .min(1, `${field} is a revision number, 1 or more.`)
+    .max(2_147_483_647, `${field} is too large.`);
 
 export const baseField = revisionNumber('base');
 export const numberField = revisionNumber('number');
@@ -61,7 +64,10 @@ export const forkSchema = z.strictObject({
 export const tagName = z
   .string({ error: 'Give the tag a name.' })
   .trim()
-  .regex(SLUG_PATTERN, 'A tag is lower-case letters, digits and dashes (like season-2026 or maiden), at most 40 characters.');
+  .regex(
+    SLUG_PATTERN,
+    'A tag is lower-case letters, digits and dashes (like season-2026 or maiden), at most 40 characters.',
+  );
 
 export const tagSchema = z.strictObject({ name: tagName });
 
@@ -72,18 +78,45 @@ export const historyQuery = z.object({
     .min(1, 'limit is at least 1.')
     .max(100, 'limit is at most 100.')
     .default(50),
-  before: z.coerce.number({ error: 'before must be a revision number.' }).int('before must be a whole revision number.').min(1, 'before is at least 1.').max(2_147_483_647, 'before is too large.').optional(),
+  before: z.coerce
+    .number({ error: 'before must be a revision number.' })
+    .int('before must be a whole revision number.')
+    .min(1, 'before is at least 1.')
+    .max(2_147_483_647, 'before is too large.')
+    .optional(),
 });
 
 export const hangarQuery = z.object({
-  q: z.string({ error: 'q is the text to search for.' }).trim().max(100, 'Search for at most 100 characters.').optional(),
-  limit: z.coerce.number({ error: 'limit must be a number.' }).int('limit must be a whole number.').min(1, 'limit is at least 1.').max(200, 'limit is at most 200.').default(100),
-  offset: z.coerce.number({ error: 'offset must be a number.' }).int('offset must be a whole number.').min(0, 'offset is at least 0.').default(0),
+  q: z
+    .string({ error: 'q is the text to search for.' })
+    .trim()
+    .max(100, 'Search for at most 100 characters.')
+    .optional(),
+  limit: z.coerce
+    .number({ error: 'limit must be a number.' })
+    .int('limit must be a whole number.')
+    .min(1, 'limit is at least 1.')
+    .max(200, 'limit is at most 200.')
+    .default(100),
+  offset: z.coerce
+    .number({ error: 'offset must be a number.' })
+    .int('offset must be a whole number.')
+    .min(0, 'offset is at least 0.')
+    .default(0),
 });
 
 export const auditQuery = z.object({
-  limit: z.coerce.number({ error: 'limit must be a number.' }).int('limit must be a whole number.').min(1, 'limit is at least 1.').max(200, 'limit is at most 200.').default(50),
-  offset: z.coerce.number({ error: 'offset must be a number.' }).int('offset must be a whole number.').min(0, 'offset is at least 0.').default(0),
+  limit: z.coerce
+    .number({ error: 'limit must be a number.' })
+    .int('limit must be a whole number.')
+    .min(1, 'limit is at least 1.')
+    .max(200, 'limit is at most 200.')
+    .default(50),
+  offset: z.coerce
+    .number({ error: 'offset must be a number.' })
+    .int('offset must be a whole number.')
+    .min(0, 'offset is at least 0.')
+    .default(0),
 });
 
 export const compareQuery = z.object({
@@ -91,4 +124,7 @@ export const compareQuery = z.object({
   to: z.string({ error: 'to is the id of a revision.' }),
 });
 
-export const patchQuery = z.object({ from: z.string({ error: 'from is the id of a revision.' }), download: z.string().optional() });
+export const patchQuery = z.object({
+  from: z.string({ error: 'from is the id of a revision.' }),
+  download: z.string().optional(),
+});

@@ -13,7 +13,14 @@ import { authorizeModel, authorizeWorkspace } from '../policies/model';
 import { presentSavedRevision } from '../presenters/revision';
 import { presentModels, presentOneModel } from '../queries/model-views';
 import { parseInput } from '../validation';
-import { createModelSchema, forkSchema, hangarQuery, renameModelSchema, uploadModelFields, uploadRevisionFields } from './model-inputs';
+import {
+  createModelSchema,
+  forkSchema,
+  hangarQuery,
+  renameModelSchema,
+  uploadModelFields,
+  uploadRevisionFields,
+} from './model-inputs';
 
 const escapeLike = (text: string): string => text.replace(/[\\%_]/g, '\\$&');
 
@@ -21,7 +28,10 @@ const escapeLike = (text: string): string => text.replace(/[\\%_]/g, '\\$&');
 function nameForUpload(data: unknown, fileName: string): string {
   const own = (data as { model?: { name?: unknown } } | null)?.model?.name;
   if (typeof own === 'string' && own.trim().length > 0) return own.trim().slice(0, 80);
-  const stem = fileName.replace(/\.[^.]*$/, '').replace(/[\u0000-\u001f\u007f]/g, '').trim();
+  const stem = fileName
+    .replace(/\.[^.]*$/, '')
+    .replace(/[\u0000-\u001f\u007f]/g, '')
+    .trim();
   return stem.length > 0 ? stem.slice(0, 80) : 'Uploaded model';
 }
 
@@ -37,7 +47,15 @@ export function modelsRouter({ sequelize, config }: AppContext): Router {
       const pattern = `%${escapeLike(q)}%`;
       Object.assign(where, { [Op.or]: [{ name: { [Op.iLike]: pattern } }, { airframe: { [Op.iLike]: pattern } }] });
     }
-    const { rows, count } = await SetupModel.findAndCountAll({ where, order: [[fn('lower', col('name')), 'ASC'], ['id', 'ASC']], limit, offset });
+    const { rows, count } = await SetupModel.findAndCountAll({
+      where,
+      order: [
+        [fn('lower', col('name')), 'ASC'],
+        ['id', 'ASC'],
+      ],
+      limit,
+      offset,
+    });
     res.json({ data: await presentModels(rows, role, currentUser(req)), pagination: { limit, offset, total: count } });
   });
 
@@ -46,7 +64,9 @@ export function modelsRouter({ sequelize, config }: AppContext): Router {
     const { workspace, role } = await authorizeWorkspace(req, req.params.ws, 'create');
     const user = currentUser(req);
     const { model, revision } = await createModel(sequelize, { workspace, author: user, ...input });
-    res.status(201).json({ data: { model: await presentOneModel(model, role, user), revision: presentSavedRevision(revision) } });
+    res
+      .status(201)
+      .json({ data: { model: await presentOneModel(model, role, user), revision: presentSavedRevision(revision) } });
   });
 
   router.post('/workspaces/:ws/models/upload', signedIn, async (req, res) => {
@@ -63,7 +83,9 @@ export function modelsRouter({ sequelize, config }: AppContext): Router {
       message: fields.message || `Uploaded ${upload.fileName}`,
       origin: 'upload',
     });
-    res.status(201).json({ data: { model: await presentOneModel(model, role, user), revision: presentSavedRevision(revision) } });
+    res
+      .status(201)
+      .json({ data: { model: await presentOneModel(model, role, user), revision: presentSavedRevision(revision) } });
   });
 
   router.get('/models/:id', signedIn, async (req, res) => {
@@ -83,7 +105,11 @@ export function modelsRouter({ sequelize, config }: AppContext): Router {
     const input = parseInput(forkSchema, req.body);
     const { model: sourceModel } = await authorizeModel(req, req.params.id, 'read');
     const sourceRevision = await Revision.findOne({ where: { modelId: sourceModel.id, number: input.number } });
-    if (!sourceRevision) throw new NotFound(`This model has no revision ${input.number}.`, { code: 'revision-not-found', details: { number: input.number } });
+    if (!sourceRevision)
+      throw new NotFound(`This model has no revision ${input.number}.`, {
+        code: 'revision-not-found',
+        details: { number: input.number },
+      });
     const { workspace, role } = await authorizeWorkspace(req, input.workspace, 'create');
     const user = currentUser(req);
     const { model, revision } = await forkModel(sequelize, {
@@ -93,7 +119,9 @@ export function modelsRouter({ sequelize, config }: AppContext): Router {
       name: input.name,
       message: input.message,
     });
-    res.status(201).json({ data: { model: await presentOneModel(model, role, user), revision: presentSavedRevision(revision) } });
+    res
+      .status(201)
+      .json({ data: { model: await presentOneModel(model, role, user), revision: presentSavedRevision(revision) } });
   });
 
   router.post('/models/:id/upload', signedIn, async (req, res) => {

@@ -10,7 +10,12 @@ import { parseInput } from '../validation';
 import { pageSchema } from './team-inputs';
 
 const outboxQuery = pageSchema.extend({
-  to: z.string({ error: 'to is an e-mail address.' }).trim().toLowerCase().max(254, 'to is an e-mail address.').optional(),
+  to: z
+    .string({ error: 'to is an e-mail address.' })
+    .trim()
+    .toLowerCase()
+    .max(254, 'to is an e-mail address.')
+    .optional(),
 });
 
 /**
@@ -23,14 +28,23 @@ export function outboxRouter(context: AppContext): Router {
   router.get(
     '/outbox',
     (req, _res, next) => {
-      if (!context.mail?.outboxEnabled) throw new NotFound(`There is no ${req.method} ${req.baseUrl}${req.path}.`, { code: 'no-such-route' });
+      if (!context.mail?.outboxEnabled)
+        throw new NotFound(`There is no ${req.method} ${req.baseUrl}${req.path}.`, { code: 'no-such-route' });
       next();
     },
     authenticate(context.config),
     async (req, res) => {
       const { limit, offset, to } = parseInput(outboxQuery, req.query, 'The paging parameters are not valid.');
       const where = to ? { envelopeTo: { [Op.contains]: [to] } } : {};
-      const { rows, count } = await OutboxMessage.findAndCountAll({ where, order: [['receivedAt', 'DESC'], ['id', 'DESC']], limit, offset });
+      const { rows, count } = await OutboxMessage.findAndCountAll({
+        where,
+        order: [
+          ['receivedAt', 'DESC'],
+          ['id', 'DESC'],
+        ],
+        limit,
+        offset,
+      });
       res.json({ data: rows.map(presentOutboxMessage), pagination: { limit, offset, total: count } });
     },
   );

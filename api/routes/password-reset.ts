@@ -11,7 +11,8 @@ import { presentUser } from '../presenters/user';
 import { parseInput } from '../validation';
 import { resetConfirmSchema, resetRequestSchema } from './team-inputs';
 
-const ACCEPTED = 'If an account uses that address, a message with a link to choose a new password is on its way. The link works once, for an hour.';
+const ACCEPTED =
+  'If an account uses that address, a message with a link to choose a new password is on its way. The link works once, for an hour.';
 
 const WINDOW_MS = 15 * 60 * 1000;
 
@@ -31,12 +32,21 @@ function resetLimiters() {
     handler: (req: Request, _res: Response, next: NextFunction) => {
       const reset = (req as AugmentedRequest).rateLimit?.resetTime;
       const retryAfter = reset ? Math.max(1, Math.ceil((reset.getTime() - Date.now()) / 1000)) : WINDOW_MS / 1000;
-      next(new RateLimited('Too many reset requests. Wait a while and try again.', { details: { retry_after_seconds: retryAfter } }));
+      next(
+        new RateLimited('Too many reset requests. Wait a while and try again.', {
+          details: { retry_after_seconds: retryAfter },
+        }),
+      );
     },
   };
   return [
     rateLimit({ ...common, limit: 30 }),
-    rateLimit({ ...common, limit: 5, skip: (req) => emailKey(req) === null, keyGenerator: (req) => `reset:${emailKey(req)}` }),
+    rateLimit({
+      ...common,
+      limit: 5,
+      skip: (req) => emailKey(req) === null,
+      keyGenerator: (req) => `reset:${emailKey(req)}`,
+    }),
   ];
 }
 

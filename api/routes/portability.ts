@@ -31,20 +31,42 @@ const parser = multer({
 
 function uploadError(error: unknown): unknown {
   if (error instanceof MulterError) {
-    if (error.code === 'LIMIT_FILE_SIZE') return new TooLarge(`The file is larger than ${MAX_BUNDLE_BYTES / 1024 / 1024} MB.`, { details: { limit: MAX_BUNDLE_BYTES } });
-    return new BadRequest(`The upload form is not acceptable: ${error.message}.`, { code: 'invalid-upload', details: { reason: error.code } });
+    if (error.code === 'LIMIT_FILE_SIZE')
+      return new TooLarge(`The file is larger than ${MAX_BUNDLE_BYTES / 1024 / 1024} MB.`, {
+        details: { limit: MAX_BUNDLE_BYTES },
+      });
+    return new BadRequest(`The upload form is not acceptable: ${error.message}.`, {
+      code: 'invalid-upload',
+      details: { reason: error.code },
+    });
   }
-  return error instanceof Error && !('status' in error) ? new BadRequest(`The upload could not be read: ${error.message}.`, { code: 'malformed-upload' }) : error;
+  return error instanceof Error && !('status' in error)
+    ? new BadRequest(`The upload could not be read: ${error.message}.`, { code: 'malformed-upload' })
+    : error;
 }
 
-async function readBundleUpload(req: Request, res: Response): Promise<{ bundle: Buffer; fields: Record<string, unknown> }> {
+async function readBundleUpload(
+  req: Request,
+  res: Response,
+): Promise<{ bundle: Buffer; fields: Record<string, unknown> }> {
   if (!req.is('multipart/form-data')) {
-    throw new UnsupportedMediaType('Upload the export as multipart/form-data with the .bundle file in the field "file".', { details: { content_type: req.get('content-type') ?? null } });
+    throw new UnsupportedMediaType(
+      'Upload the export as multipart/form-data with the .bundle file in the field "file".',
+      { details: { content_type: req.get('content-type') ?? null } },
+    );
   }
-  await new Promise<void>((resolve, reject) => parser(req, res, (error?: unknown) => (error ? reject(uploadError(error)) : resolve())));
-  if (!req.file) throw new BadRequest('No file arrived: put the .bundle file in the form field named "file".', { code: 'file-missing' });
+  await new Promise<void>((resolve, reject) =>
+    parser(req, res, (error?: unknown) => (error ? reject(uploadError(error)) : resolve())),
+  );
+  if (!req.file)
+    throw new BadRequest('No file arrived: put the .bundle file in the form field named "file".', {
+      code: 'file-missing',
+    });
   if (!BUNDLE_SIGNATURE.test(req.file.buffer.subarray(0, 20).toString('latin1'))) {
-    throw new UnsupportedMediaType('This file is not a git bundle. Upload the .bundle file a history export gave you.', { code: 'not-a-git-bundle' });
+    throw new UnsupportedMediaType(
+      'This file is not a git bundle. Upload the .bundle file a history export gave you.',
+      { code: 'not-a-git-bundle' },
+    );
   }
   return { bundle: req.file.buffer, fields: (req.body ?? {}) as Record<string, unknown> };
 }
@@ -62,13 +84,27 @@ export function portabilityRouter({ sequelize, config }: AppContext): Router {
 
   router.get('/models/:id/export.git', signedIn, async (req, res) => {
     const { model } = await authorizeModel(req, req.params.id, 'read');
-    sendBundle(res, folderSlug(model.name), await exportHistoryBundle(await loadExportModels(sequelize, [model], false)));
+    sendBundle(
+      res,
+      folderSlug(model.name),
+      await exportHistoryBundle(await loadExportModels(sequelize, [model], false)),
+    );
   });
 
   router.get('/workspaces/:ws/export.git', signedIn, async (req, res) => {
     const { workspace } = await authorizeWorkspace(req, req.params.ws, 'read');
-    const models = await SetupModel.findAll({ where: { workspaceId: workspace.id }, order: [['createdAt', 'ASC'], ['id', 'ASC']] });
-    sendBundle(res, `${folderSlug(workspace.name)}-workspace`, await exportHistoryBundle(await loadExportModels(sequelize, models, true)));
+    const models = await SetupModel.findAll({
+      where: { workspaceId: workspace.id },
+      order: [
+        ['createdAt', 'ASC'],
+        ['id', 'ASC'],
+      ],
+    });
+    sendBundle(
+      res,
+      `${folderSlug(workspace.name)}-workspace`,
+      await exportHistoryBundle(await loadExportModels(sequelize, models, true)),
+    );
   });
 
   router.post('/workspaces/:ws/import', signedIn, async (req, res) => {
@@ -76,7 +112,12 @@ export function portabilityRouter({ sequelize, config }: AppContext): Router {
     const upload = await readBundleUpload(req, res);
     const fields = parseInput(importFields, upload.fields, 'Some form fields need attention.');
     const user = currentUser(req);
-    const results = await importModels(sequelize, { workspace, author: user, models: await readHistoryBundle(upload.bundle), name: fields.name });
+    const results = await importModels(sequelize, {
+      workspace,
+      author: user,
+      models: await readHistoryBundle(upload.bundle),
+      name: fields.name,
+    });
     res.status(201).json({
       data: {
         models: await Promise.all(

@@ -20,21 +20,43 @@ import { parseInput } from '../validation';
 const escapeLike = (text: string): string => text.replace(/[\\%_]/g, '\\$&');
 
 const shelfQuery = z.object({
-  q: z.string({ error: 'q is the text to search for.' }).trim().max(100, 'Search for at most 100 characters.').optional(),
+  q: z
+    .string({ error: 'q is the text to search for.' })
+    .trim()
+    .max(100, 'Search for at most 100 characters.')
+    .optional(),
   status: z.enum(['installed', 'free'], { error: 'status is installed or free.' }).optional(),
-  limit: z.coerce.number({ error: 'limit must be a number.' }).int('limit must be a whole number.').min(1, 'limit is at least 1.').max(200, 'limit is at most 200.').default(100),
-  offset: z.coerce.number({ error: 'offset must be a number.' }).int('offset must be a whole number.').min(0, 'offset is at least 0.').default(0),
+  limit: z.coerce
+    .number({ error: 'limit must be a number.' })
+    .int('limit must be a whole number.')
+    .min(1, 'limit is at least 1.')
+    .max(200, 'limit is at most 200.')
+    .default(100),
+  offset: z.coerce
+    .number({ error: 'offset must be a number.' })
+    .int('offset must be a whole number.')
+    .min(0, 'offset is at least 0.')
+    .default(0),
 });
 
 const modelId = z.uuid({ error: 'model is the id of a model in this workspace.' });
-const slotId = z.string({ error: 'slot is the id of a receiver in the model’s setup.' }).regex(SLUG_PATTERN, 'slot is the id of a receiver in the model’s setup.');
+const slotId = z
+  .string({ error: 'slot is the id of a receiver in the model’s setup.' })
+  .regex(SLUG_PATTERN, 'slot is the id of a receiver in the model’s setup.');
 
 const reuseQuery = z.object({ model: modelId, slot: slotId });
-const installSchema = z.strictObject({ model: modelId, slot: slotId, move: z.boolean({ error: 'move is true or false.' }).default(false) });
-const applySchema = z.strictObject({ revision: z.uuid({ error: 'revision is the id of the revision whose check you worked from.' }).optional() });
+const installSchema = z.strictObject({
+  model: modelId,
+  slot: slotId,
+  move: z.boolean({ error: 'move is true or false.' }).default(false),
+});
+const applySchema = z.strictObject({
+  revision: z.uuid({ error: 'revision is the id of the revision whose check you worked from.' }).optional(),
+});
 
 // The open install of a receiver, tested in SQL so the filter and the count agree.
-const OPEN_INSTALL = 'EXISTS (SELECT 1 FROM receiver_installs i WHERE i.receiver_id = "Receiver"."id" AND i.removed_at IS NULL)';
+const OPEN_INSTALL =
+  'EXISTS (SELECT 1 FROM receiver_installs i WHERE i.receiver_id = "Receiver"."id" AND i.removed_at IS NULL)';
 
 export function receiversRouter({ sequelize, config }: AppContext): Router {
   const router = Router();
@@ -46,12 +68,24 @@ export function receiversRouter({ sequelize, config }: AppContext): Router {
     const conditions: WhereOptions<Receiver>[] = [{ workspaceId: workspace.id }];
     if (q) {
       const pattern = `%${escapeLike(q)}%`;
-      conditions.push({ [Op.or]: [{ label: { [Op.iLike]: pattern } }, { mark: { [Op.iLike]: pattern } }, { notes: { [Op.iLike]: pattern } }] });
+      conditions.push({
+        [Op.or]: [
+          { label: { [Op.iLike]: pattern } },
+          { mark: { [Op.iLike]: pattern } },
+          { notes: { [Op.iLike]: pattern } },
+        ],
+      });
     }
-    if (status) conditions.push(literal(status === 'installed' ? OPEN_INSTALL : `NOT ${OPEN_INSTALL}`) as unknown as WhereOptions<Receiver>);
+    if (status)
+      conditions.push(
+        literal(status === 'installed' ? OPEN_INSTALL : `NOT ${OPEN_INSTALL}`) as unknown as WhereOptions<Receiver>,
+      );
     const { rows, count } = await Receiver.findAndCountAll({
       where: { [Op.and]: conditions },
-      order: [[fn('lower', col('label')), 'ASC'], ['id', 'ASC']],
+      order: [
+        [fn('lower', col('label')), 'ASC'],
+        ['id', 'ASC'],
+      ],
       limit,
       offset,
     });
@@ -87,19 +121,44 @@ export function receiversRouter({ sequelize, config }: AppContext): Router {
     const [{ revision, check }, installs, holder] = await Promise.all([
       checkAgainstLatest(receiver, model, query.slot),
       openInstalls([receiver.id]),
-      ReceiverInstall.findOne({ where: { modelId: model.id, slot: query.slot, removedAt: null }, include: [{ model: Receiver, as: 'receiver', attributes: ['id', 'label'] }] }),
+      ReceiverInstall.findOne({
+        where: { modelId: model.id, slot: query.slot, removedAt: null },
+        include: [{ model: Receiver, as: 'receiver', attributes: ['id', 'label'] }],
+      }),
     ]);
-    res.json({ data: presentReuseCheck(receiver, model, revision, check, installs.get(receiver.id) ?? null, holder?.receiver ?? null) });
+    res.json({
+      data: presentReuseCheck(
+        receiver,
+        model,
+        revision,
+        check,
+        installs.get(receiver.id) ?? null,
+        holder?.receiver ?? null,
+      ),
+    });
   });
 
   router.post('/receivers/:id/install', signedIn, async (req, res) => {
     const input = parseInput(installSchema, req.body);
     const { receiver: found } = await authorizeReceiver(req, req.params.id, 'write');
     const model = await modelOnShelf(found.workspaceId, input.model);
-    const installed = await installReceiver(sequelize, { receiverId: found.id, model, slot: input.slot, actor: currentUser(req), move: input.move });
+    const installed = await installReceiver(sequelize, {
+      receiverId: found.id,
+      model,
+      slot: input.slot,
+      actor: currentUser(req),
+      move: input.move,
+    });
     res.status(201).json({
       data: {
-        ...presentReuseCheck(installed.receiver, model, installed.revision, installed.check, installed.install, installed.receiver),
+        ...presentReuseCheck(
+          installed.receiver,
+          model,
+          installed.revision,
+          installed.check,
+          installed.install,
+          installed.receiver,
+        ),
         receiver: await presentOnShelf(installed.receiver),
         install: presentInstall(installed.install),
         moved_from: installed.previous ? presentInstall(installed.previous) : null,
@@ -116,10 +175,21 @@ export function receiversRouter({ sequelize, config }: AppContext): Router {
   router.post('/receivers/:id/apply', signedIn, async (req, res) => {
     const input = parseInput(applySchema, req.body);
     const { receiver: found } = await authorizeReceiver(req, req.params.id, 'write');
-    const applied = await applyReceiverSettings(sequelize, { receiverId: found.id, actor: currentUser(req), revisionId: input.revision });
+    const applied = await applyReceiverSettings(sequelize, {
+      receiverId: found.id,
+      actor: currentUser(req),
+      revisionId: input.revision,
+    });
     res.json({
       data: {
-        ...presentReuseCheck(applied.receiver, applied.model, applied.revision, applied.check, applied.install, applied.receiver),
+        ...presentReuseCheck(
+          applied.receiver,
+          applied.model,
+          applied.revision,
+          applied.check,
+          applied.install,
+          applied.receiver,
+        ),
         receiver: await presentOnShelf(applied.receiver),
       },
     });
@@ -135,18 +205,26 @@ export function receiversRouter({ sequelize, config }: AppContext): Router {
           { model: User, as: 'installer', attributes: ['id', 'name'] },
           { model: User, as: 'remover', attributes: ['id', 'name'] },
         ],
-        order: [['installedAt', 'DESC'], ['id', 'DESC']],
+        order: [
+          ['installedAt', 'DESC'],
+          ['id', 'DESC'],
+        ],
       }),
       AuditEvent.findAll({
         where: { workspaceId: receiver.workspaceId, subjectType: 'receiver', subjectId: receiver.id },
         include: [{ model: User, as: 'actor', attributes: ['id', 'name'] }],
-        order: [['createdAt', 'DESC'], ['id', 'DESC']],
+        order: [
+          ['createdAt', 'DESC'],
+          ['id', 'DESC'],
+        ],
         limit: 500,
       }),
     ]);
     // A move ends one stay and begins the next at the same instant: newest first, the arrival leads.
     const rank = (action: string) => (action === 'receiver.installed' ? 0 : 1);
-    const timeline = [...events].sort((a, b) => b.createdAt.getTime() - a.createdAt.getTime() || rank(a.action) - rank(b.action));
+    const timeline = [...events].sort(
+      (a, b) => b.createdAt.getTime() - a.createdAt.getTime() || rank(a.action) - rank(b.action),
+    );
     res.json({ data: { installs: installs.map(presentInstall), events: timeline.map(presentReceiverEvent) } });
   });
 

@@ -20,10 +20,17 @@ export const requestReviewSchema = z.strictObject({
 });
 
 const checklistChanges = z
-  .record(z.string(), z.boolean({ error: 'Each checklist entry is true (ticked) or false.' }), { error: 'checklist maps item ids to true or false.' })
+  .record(z.string(), z.boolean({ error: 'Each checklist entry is true (ticked) or false.' }), {
+    error: 'checklist maps item ids to true or false.',
+  })
   .superRefine((value, context) => {
     for (const key of Object.keys(value)) {
-      if (!CHECKLIST_IDS.includes(key)) context.addIssue({ code: 'custom', path: [key], message: `Not a checklist item; the items are ${CHECKLIST_IDS.join(', ')}.` });
+      if (!CHECKLIST_IDS.includes(key))
+        context.addIssue({
+          code: 'custom',
+          path: [key],
+          message: `Not a checklist item; the items are ${CHECKLIST_IDS.join(', ')}.`,
+        });
     }
   });
 
@@ -39,7 +46,12 @@ export const tickSchema = z.strictObject({
 });
 
 export const commentSchema = z.strictObject({
-  path: z.string({ error: 'path is a semantic path, like receivers[id=wing].map[pin=3].' }).trim().min(1, 'Leave path out for a comment on the whole revision.').max(300, 'A path has at most 300 characters.').optional(),
+  path: z
+    .string({ error: 'path is a semantic path, like receivers[id=wing].map[pin=3].' })
+    .trim()
+    .min(1, 'Leave path out for a comment on the whole revision.')
+    .max(300, 'A path has at most 300 characters.')
+    .optional(),
   body: text('the comment', 4000).min(1, 'Write the comment.'),
 });
 

@@ -11,7 +11,13 @@ import { ReviewComment, Workspace } from '../models';
 import { authorizeModel, authorizeRevision, authorizeWorkspace } from '../policies/model';
 import { authorizeReview } from '../policies/review';
 import { presentVerdict } from '../presenters/review';
-import { commentsShownOn, loadReviews, presentCommentsOn, presentReviewList, reviewDetail } from '../queries/review-views';
+import {
+  commentsShownOn,
+  loadReviews,
+  presentCommentsOn,
+  presentReviewList,
+  reviewDetail,
+} from '../queries/review-views';
 import { anchorExists, readAnchor } from '../reviews/anchor-path';
 import { parseInput } from '../validation';
 import { commentSchema, requestReviewSchema, reviewListQuery, tickSchema, verdictSchema } from './review-inputs';
@@ -28,7 +34,14 @@ export function reviewsRouter(context: AppContext): Router {
     const input = parseInput(requestReviewSchema, req.body);
     const { revision, model } = await authorizeRevision(req, req.params.id, 'edit');
     const workspace = await Workspace.findByPk(model.workspaceId, { rejectOnEmpty: true });
-    const review = await requestReview(sequelize, mailFor(context), { workspace, model, revision, requester: currentUser(req), reviewerIds: input.reviewers, note: input.note ?? '' });
+    const review = await requestReview(sequelize, mailFor(context), {
+      workspace,
+      model,
+      revision,
+      requester: currentUser(req),
+      reviewerIds: input.reviewers,
+      note: input.note ?? '',
+    });
     const [presented] = await presentReviewList([Object.assign(review, { revision, model })]);
     res.status(201).json({ data: presented });
   });
@@ -36,7 +49,10 @@ export function reviewsRouter(context: AppContext): Router {
   router.get('/workspaces/:ws/reviews', signedIn, async (req, res) => {
     const { limit, offset, status } = parseInput(reviewListQuery, req.query, 'The list parameters are not valid.');
     const { workspace } = await authorizeWorkspace(req, req.params.ws, 'read');
-    const { rows, count } = await loadReviews({ workspaceId: workspace.id, ...STATUS_WHERE[status] }, { limit, offset });
+    const { rows, count } = await loadReviews(
+      { workspaceId: workspace.id, ...STATUS_WHERE[status] },
+      { limit, offset },
+    );
     res.json({ data: await presentReviewList(rows), pagination: { limit, offset, total: count } });
   });
 
@@ -56,14 +72,27 @@ export function reviewsRouter(context: AppContext): Router {
     const input = parseInput(verdictSchema, req.body);
     const access = await authorizeReview(req, req.params.id, 'verdict');
     const user = currentUser(req);
-    const { verdict, review } = await giveVerdict(sequelize, mailFor(context), access, user, { verdict: input.verdict, body: input.body ?? '', checklist: input.checklist ?? {} });
-    res.status(201).json({ data: { ...presentVerdict(verdict, new Map([[user.id, user]])), review: { id: review.id, state: review.state, decided_at: review.decidedAt?.toISOString() ?? null } } });
+    const { verdict, review } = await giveVerdict(sequelize, mailFor(context), access, user, {
+      verdict: input.verdict,
+      body: input.body ?? '',
+      checklist: input.checklist ?? {},
+    });
+    res
+      .status(201)
+      .json({
+        data: {
+          ...presentVerdict(verdict, new Map([[user.id, user]])),
+          review: { id: review.id, state: review.state, decided_at: review.decidedAt?.toISOString() ?? null },
+        },
+      });
   });
 
   router.post('/reviews/:id/checklist', signedIn, async (req, res) => {
     const input = parseInput(tickSchema, req.body);
     const access = await authorizeReview(req, req.params.id, 'tick');
-    await sequelize.transaction((transaction) => setTicks(access.review, currentUser(req), { [input.item]: input.ticked }, transaction));
+    await sequelize.transaction((transaction) =>
+      setTicks(access.review, currentUser(req), { [input.item]: input.ticked }, transaction),
+    );
     const detail = await reviewDetail(access, currentUser(req));
     res.json({ data: detail.checklist });
   });
@@ -74,16 +103,29 @@ export function reviewsRouter(context: AppContext): Router {
     const { review } = access;
     if (input.path !== undefined) {
       if (!readAnchor(input.path)) {
-        throw new Unprocessable('The path is not a semantic path Bindery can read, like receivers[id=wing].map[pin=3].', { code: 'invalid-path', details: { fields: { path: 'Write the path like receivers[id=wing].map[pin=3].' } } });
+        throw new Unprocessable(
+          'The path is not a semantic path Bindery can read, like receivers[id=wing].map[pin=3].',
+          { code: 'invalid-path', details: { fields: { path: 'Write the path like receivers[id=wing].map[pin=3].' } } },
+        );
       }
       if (!anchorExists(review.revision.document, input.path)) {
-        throw new Unprocessable(`Nothing in revision ${review.revision.number} is at ${input.path}.`, { code: 'path-not-found', details: { fields: { path: 'This path does not exist in the reviewed revision.' } } });
+        throw new Unprocessable(`Nothing in revision ${review.revision.number} is at ${input.path}.`, {
+          code: 'path-not-found',
+          details: { fields: { path: 'This path does not exist in the reviewed revision.' } },
+        });
       }
     }
     const user = currentUser(req);
     const comment = await sequelize.transaction(async (transaction) => {
       const created = await ReviewComment.create(
-        { reviewId: review.id, revisionId: review.revision.id, modelId: review.modelId, path: input.path ?? null, body: input.body, authorId: user.id },
+        {
+          reviewId: review.id,
+          revisionId: review.revision.id,
+          modelId: review.modelId,
+          path: input.path ?? null,
+          body: input.body,
+          authorId: user.id,
+        },
         { transaction },
       );
       await recordAuditEvent(
@@ -93,7 +135,12 @@ export function reviewsRouter(context: AppContext): Router {
           action: 'review.commented',
           subjectType: 'review',
           subjectId: review.id,
-          details: { model_id: review.model.id, model_name: review.model.name, number: review.revision.number, path: created.path },
+          details: {
+            model_id: review.model.id,
+            model_name: review.model.name,
+            number: review.revision.number,
+            path: created.path,
+          },
         },
         transaction,
       );

@@ -31,7 +31,6 @@ function sendYaml(res: Response, model: SetupModel, revision: Revision, download
   res.send(Buffer.from(revision.yamlText, 'utf8'));
 }
 
-
 export function revisionsRouter({ sequelize, config }: AppContext): Router {
   const router = Router();
   const signedIn = authenticate(config);
@@ -57,7 +56,11 @@ export function revisionsRouter({ sequelize, config }: AppContext): Router {
     const tags = await tagsByRevision(page.map((revision) => revision.id));
     res.json({
       data: page.map((revision) => presentRevisionSummary(revision, tags.get(revision.id) ?? [])),
-      pagination: { limit, before: before ?? null, next_before: rows.length > limit ? page[page.length - 1].number : null },
+      pagination: {
+        limit,
+        before: before ?? null,
+        next_before: rows.length > limit ? page[page.length - 1].number : null,
+      },
     });
   });
 
@@ -67,20 +70,33 @@ export function revisionsRouter({ sequelize, config }: AppContext): Router {
     const raw = String(req.params.number);
     const number = /^\d{1,10}$/.test(raw) ? Number(raw) : NaN;
     const revision = Number.isSafeInteger(number)
-      ? await Revision.findOne({ where: { modelId: model.id, number }, include: [{ model: User, as: 'author', attributes: ['id', 'name'] }] })
+      ? await Revision.findOne({
+          where: { modelId: model.id, number },
+          include: [{ model: User, as: 'author', attributes: ['id', 'name'] }],
+        })
       : null;
     if (!revision) throw new NotFound(`This model has no revision ${raw}.`, { code: 'revision-not-found' });
-    if (query.format === 'yaml' || wantsDownload(query.download)) return sendYaml(res, model, revision, wantsDownload(query.download));
+    if (query.format === 'yaml' || wantsDownload(query.download))
+      return sendYaml(res, model, revision, wantsDownload(query.download));
     res.json({ data: presentRevision(revision, await tagNamesOf(revision.id)) });
   });
 
   router.get('/revisions/:id', signedIn, async (req, res) => {
     const query = parseInput(revisionQuery, req.query, 'The parameters are not valid.');
     const { model, revision } = await authorizeRevision(req, req.params.id, 'read', { full: true });
-    if (query.format === 'yaml' || wantsDownload(query.download)) return sendYaml(res, model, revision, wantsDownload(query.download));
-    const [tags, author] = await Promise.all([tagNamesOf(revision.id), User.findByPk(revision.authorId, { attributes: ['id', 'name'] })]);
+    if (query.format === 'yaml' || wantsDownload(query.download))
+      return sendYaml(res, model, revision, wantsDownload(query.download));
+    const [tags, author] = await Promise.all([
+      tagNamesOf(revision.id),
+      User.findByPk(revision.authorId, { attributes: ['id', 'name'] }),
+    ]);
     revision.author = author ?? undefined;
-    res.json({ data: { ...presentRevision(revision, tags), model: { id: model.id, name: model.name, workspace_id: model.workspaceId } } });
+    res.json({
+      data: {
+        ...presentRevision(revision, tags),
+        model: { id: model.id, name: model.name, workspace_id: model.workspaceId },
+      },
+    });
   });
 
   router.post('/models/:id/revert', signedIn, async (req, res) => {
@@ -94,7 +110,9 @@ export function revisionsRouter({ sequelize, config }: AppContext): Router {
     const { name } = parseInput(tagSchema, req.body);
     const { model, revision } = await authorizeRevision(req, req.params.id, 'edit');
     const { created } = await tagRevision(sequelize, { model, revision, author: currentUser(req), name });
-    res.status(created ? 201 : 200).json({ data: { revision_id: revision.id, number: revision.number, tags: await tagNamesOf(revision.id) } });
+    res
+      .status(created ? 201 : 200)
+      .json({ data: { revision_id: revision.id, number: revision.number, tags: await tagNamesOf(revision.id) } });
   });
 
   router.delete('/revisions/:id/tags/:name', signedIn, async (req, res) => {
@@ -112,7 +130,10 @@ export function revisionsRouter({ sequelize, config }: AppContext): Router {
     ]);
     const operations = jsonPatch(from.revision.document, to.revision.document);
     if (wantsDownload(query.download)) {
-      const name = revisionFileName(to.model.name, to.revision.number, '.patch.json').replace(/-r(\d+)\.patch\.json$/, `-r${from.revision.number}-to-r$1.patch.json`);
+      const name = revisionFileName(to.model.name, to.revision.number, '.patch.json').replace(
+        /-r(\d+)\.patch\.json$/,
+        `-r${from.revision.number}-to-r$1.patch.json`,
+      );
       sendAsDownload(res, name);
       res.type('application/json-patch+json; charset=utf-8');
       return res.send(JSON.stringify(operations, null, 2));

@@ -29,12 +29,27 @@ export const ROUTE_TABLE: readonly RouteEntry[] = [
 
   { method: 'POST', path: '/api/auth/sign-up', access: 'public' },
   { method: 'POST', path: '/api/auth/sign-in', access: 'public' },
-  { method: 'POST', path: '/api/auth/sign-out', access: 'public', note: 'clears the cookie, so it works with an expired one' },
+  {
+    method: 'POST',
+    path: '/api/auth/sign-out',
+    access: 'public',
+    note: 'clears the cookie, so it works with an expired one',
+  },
   { method: 'POST', path: '/api/auth/sign-out-everywhere', access: 'signed-in' },
   { method: 'POST', path: '/api/auth/password', access: 'signed-in' },
   { method: 'POST', path: '/api/auth/password-reset', access: 'public' },
-  { method: 'GET', path: '/api/auth/password-reset/:token', access: 'public', note: 'the mailed token is the credential' },
-  { method: 'POST', path: '/api/auth/password-reset/:token', access: 'public', note: 'the mailed token is the credential' },
+  {
+    method: 'GET',
+    path: '/api/auth/password-reset/:token',
+    access: 'public',
+    note: 'the mailed token is the credential',
+  },
+  {
+    method: 'POST',
+    path: '/api/auth/password-reset/:token',
+    access: 'public',
+    note: 'the mailed token is the credential',
+  },
   { method: 'GET', path: '/api/me', access: 'signed-in' },
 
   { method: 'POST', path: '/api/workspaces', access: 'signed-in' },
@@ -42,12 +57,22 @@ export const ROUTE_TABLE: readonly RouteEntry[] = [
   { method: 'PATCH', path: '/api/workspaces/:ws', access: 'owner' },
   { method: 'GET', path: '/api/workspaces/:ws/members', access: 'viewer' },
   { method: 'PATCH', path: '/api/workspaces/:ws/members/:userId', access: 'owner' },
-  { method: 'DELETE', path: '/api/workspaces/:ws/members/:userId', access: 'owner', note: 'any member may remove themselves (leave)' },
+  {
+    method: 'DELETE',
+    path: '/api/workspaces/:ws/members/:userId',
+    access: 'owner',
+    note: 'any member may remove themselves (leave)',
+  },
   { method: 'GET', path: '/api/workspaces/:ws/invitations', access: 'owner' },
   { method: 'POST', path: '/api/workspaces/:ws/invitations', access: 'owner' },
   { method: 'DELETE', path: '/api/workspaces/:ws/invitations/:id', access: 'owner' },
   { method: 'GET', path: '/api/invitations/:token', access: 'public', note: 'the mailed token is the credential' },
-  { method: 'POST', path: '/api/invitations/:token/accept', access: 'public', note: 'signed in, or with a name and password for a new account' },
+  {
+    method: 'POST',
+    path: '/api/invitations/:token/accept',
+    access: 'public',
+    note: 'signed in, or with a name and password for a new account',
+  },
   { method: 'GET', path: '/api/workspaces/:ws/audit', access: 'owner' },
   { method: 'GET', path: '/api/outbox', access: 'signed-in', note: 'only while the local mail server is in use' },
 
@@ -56,7 +81,12 @@ export const ROUTE_TABLE: readonly RouteEntry[] = [
   { method: 'POST', path: '/api/workspaces/:ws/models/upload', access: 'editor' },
   { method: 'GET', path: '/api/models/:id', access: 'viewer' },
   { method: 'PATCH', path: '/api/models/:id', access: 'editor' },
-  { method: 'POST', path: '/api/models/:id/fork', access: 'viewer', note: 'reads the source; needs editor in the target workspace' },
+  {
+    method: 'POST',
+    path: '/api/models/:id/fork',
+    access: 'viewer',
+    note: 'reads the source; needs editor in the target workspace',
+  },
   { method: 'POST', path: '/api/models/:id/upload', access: 'editor' },
   { method: 'POST', path: '/api/models/:id/revisions', access: 'editor' },
   { method: 'GET', path: '/api/models/:id/revisions', access: 'viewer' },
@@ -107,9 +137,13 @@ export function registeredRoutes(app: { router: { stack: RouterLayer[] } }): { m
   const walk = (stack: RouterLayer[], prefix: string) => {
     for (const layer of stack) {
       if (layer.route) {
-        for (const method of Object.keys(layer.route.methods)) if (method !== '_all') found.push({ method: method.toUpperCase(), path: `${prefix}${layer.route.path}` });
+        for (const method of Object.keys(layer.route.methods))
+          if (method !== '_all') found.push({ method: method.toUpperCase(), path: `${prefix}${layer.route.path}` });
       } else if (layer.handle?.stack) {
-        walk(layer.handle.stack, typeof layer.rawPath === 'string' && layer.rawPath !== '/' ? `${prefix}${layer.rawPath}` : prefix);
+        walk(
+          layer.handle.stack,
+          typeof layer.rawPath === 'string' && layer.rawPath !== '/' ? `${prefix}${layer.rawPath}` : prefix,
+        );
       }
     }
   };

@@ -14,7 +14,10 @@ export function schemaRouter(): Router {
       text = null;
       throw error;
     });
-    res.type('application/schema+json').set('Cache-Control', 'public, max-age=300').send(await text);
+    res
+      .type('application/schema+json')
+      .set('Cache-Control', 'public, max-age=300')
+      .send(await text);
   });
 
   return router;

@@ -14,12 +14,19 @@ export const emailField = z
 
 export const roleField = z.enum(ROLES, { error: `role is one of ${ROLES.join(', ')}.` });
 
-export const nameField = z.string({ error: 'Enter your name.' }).trim().min(1, 'Enter your name.').max(100, 'Keep the name to 100 characters.');
+export const nameField = z
+  .string({ error: 'Enter your name.' })
+  .trim()
+  .min(1, 'Enter your name.')
+  .max(100, 'Keep the name to 100 characters.');
 
 export const passwordField = z
   .string({ error: 'Choose a password.' })
   .min(PASSWORD_MIN_LENGTH, `Use at least ${PASSWORD_MIN_LENGTH} characters.`)
-  .refine((value) => Buffer.byteLength(value) <= PASSWORD_MAX_BYTES, `Use at most ${PASSWORD_MAX_BYTES} bytes (about ${PASSWORD_MAX_BYTES} plain letters).`);
+  .refine(
+    (value) => Buffer.byteLength(value) <= PASSWORD_MAX_BYTES,
+    `Use at most ${PASSWORD_MAX_BYTES} bytes (about ${PASSWORD_MAX_BYTES} plain letters).`,
+  );
 
 export const inviteSchema = z.strictObject({ email: emailField, role: roleField });
 
@@ -29,8 +36,10 @@ export const changeRoleSchema = z.strictObject({ role: roleField });
 export const acceptSchema = z
   .strictObject({ name: nameField.optional(), password: passwordField.optional() })
   .superRefine((value, context) => {
-    if (value.name !== undefined && value.password === undefined) context.addIssue({ code: 'custom', path: ['password'], message: 'Choose a password for the new account.' });
-    if (value.password !== undefined && value.name === undefined) context.addIssue({ code: 'custom', path: ['name'], message: 'Enter your name for the new account.' });
+    if (value.name !== undefined && value.password === undefined)
+      context.addIssue({ code: 'custom', path: ['password'], message: 'Choose a password for the new account.' });
+    if (value.password !== undefined && value.name === undefined)
+      context.addIssue({ code: 'custom', path: ['name'], message: 'Enter your name for the new account.' });
   });
 
 export const resetRequestSchema = z.strictObject({ email: emailField });
@@ -38,6 +47,15 @@ export const resetRequestSchema = z.strictObject({ email: emailField });
 export const resetConfirmSchema = z.strictObject({ password: passwordField });
 
 export const pageSchema = z.object({
-  limit: z.coerce.number({ error: 'limit must be a number.' }).int('limit must be a whole number.').min(1, 'limit is at least 1.').max(200, 'limit is at most 200.').default(50),
-  offset: z.coerce.number({ error: 'offset must be a number.' }).int('offset must be a whole number.').min(0, 'offset is at least 0.').default(0),
+  limit: z.coerce
+    .number({ error: 'limit must be a number.' })
+    .int('limit must be a whole number.')
+    .min(1, 'limit is at least 1.')
+    .max(200, 'limit is at most 200.')
+    .default(50),
+  offset: z.coerce
+    .number({ error: 'offset must be a number.' })
+    .int('offset must be a whole number.')
+    .min(0, 'offset is at least 0.')
+    .default(0),
 });

@@ -13,8 +13,10 @@ import { presentMember } from '../presenters/workspace';
 import { idSchema, parseInput } from '../validation';
 import { changeRoleSchema, inviteSchema } from './team-inputs';
 
-const invitationNotFound = () => new NotFound('No such invitation in this workspace.', { code: 'invitation-not-found' });
-const memberNotFound = () => new NotFound('This person is not a member of the workspace.', { code: 'member-not-found' });
+const invitationNotFound = () =>
+  new NotFound('No such invitation in this workspace.', { code: 'invitation-not-found' });
+const memberNotFound = () =>
+  new NotFound('This person is not a member of the workspace.', { code: 'member-not-found' });
 
 function userIdParam(value: unknown): string {
   const id = idSchema.safeParse(value);
@@ -37,7 +39,11 @@ export function teamRouter(context: AppContext): Router {
   router.post('/workspaces/:ws/invitations', signedIn, async (req, res) => {
     const input = parseInput(inviteSchema, req.body);
     const { workspace } = await requireRole(req, req.params.ws, 'owner');
-    const invitation = await inviteMember(sequelize, config, mailFor(context), { workspace, inviter: currentUser(req), ...input });
+    const invitation = await inviteMember(sequelize, config, mailFor(context), {
+      workspace,
+      inviter: currentUser(req),
+      ...input,
+    });
     res.status(201).json({ data: presentInvitation(invitation) });
   });
 
@@ -46,12 +52,23 @@ export function teamRouter(context: AppContext): Router {
     const id = idSchema.safeParse(req.params.id);
     if (!id.success) throw invitationNotFound();
     const invitation = await sequelize.transaction(async (transaction) => {
-      const found = await Invitation.findOne({ where: { id: id.data, workspaceId: workspace.id }, lock: transaction.LOCK.UPDATE, transaction });
+      const found = await Invitation.findOne({
+        where: { id: id.data, workspaceId: workspace.id },
+        lock: transaction.LOCK.UPDATE,
+        transaction,
+      });
       if (!found) throw invitationNotFound();
       if (found.statusAt(new Date()) !== 'pending') return found;
       await found.update({ revokedAt: new Date() }, { transaction });
       await recordAuditEvent(
-        { workspaceId: workspace.id, actor: currentUser(req), action: 'invitation.revoked', subjectType: 'invitation', subjectId: found.id, details: { email: found.email, role: found.role } },
+        {
+          workspaceId: workspace.id,
+          actor: currentUser(req),
+          action: 'invitation.revoked',
+          subjectType: 'invitation',
+          subjectId: found.id,
+          details: { email: found.email, role: found.role },
+        },
         transaction,
       );
       return found;
@@ -62,7 +79,12 @@ export function teamRouter(context: AppContext): Router {
   router.patch('/workspaces/:ws/members/:userId', signedIn, async (req, res) => {
     const { role } = parseInput(changeRoleSchema, req.body);
     const { workspace } = await requireRole(req, req.params.ws, 'owner');
-    const membership = await changeMemberRole(sequelize, { workspace, actor: currentUser(req), userId: userIdParam(req.params.userId), role });
+    const membership = await changeMemberRole(sequelize, {
+      workspace,
+      actor: currentUser(req),
+      userId: userIdParam(req.params.userId),
+      role,
+    });
     res.json({ data: presentMember(membership) });
   });
 

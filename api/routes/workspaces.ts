@@ -19,8 +19,17 @@ const createSchema = z.object({ name: workspaceName });
 const updateSchema = z.strictObject({ name: workspaceName.optional() });
 
 const pageSchema = z.object({
-  limit: z.coerce.number({ error: 'limit must be a number.' }).int('limit must be a whole number.').min(1, 'limit is at least 1.').max(200, 'limit is at most 200.').default(100),
-  offset: z.coerce.number({ error: 'offset must be a number.' }).int('offset must be a whole number.').min(0, 'offset is at least 0.').default(0),
+  limit: z.coerce
+    .number({ error: 'limit must be a number.' })
+    .int('limit must be a whole number.')
+    .min(1, 'limit is at least 1.')
+    .max(200, 'limit is at most 200.')
+    .default(100),
+  offset: z.coerce
+    .number({ error: 'offset must be a number.' })
+    .int('offset must be a whole number.')
+    .min(0, 'offset is at least 0.')
+    .default(0),
 });
 
 export function workspacesRouter({ sequelize, config }: AppContext): Router {
@@ -29,7 +38,9 @@ export function workspacesRouter({ sequelize, config }: AppContext): Router {
 
   router.post('/workspaces', async (req, res) => {
     const { name } = parseInput(createSchema, req.body);
-    const workspace = await sequelize.transaction((transaction) => createWorkspace(currentUser(req), name, transaction));
+    const workspace = await sequelize.transaction((transaction) =>
+      createWorkspace(currentUser(req), name, transaction),
+    );
     res.status(201).json({ data: presentWorkspace(workspace, 'owner') });
   });
 
@@ -51,7 +62,10 @@ export function workspacesRouter({ sequelize, config }: AppContext): Router {
     const { rows, count } = await Membership.findAndCountAll({
       where: { workspaceId: workspace.id },
       include: [{ model: User, as: 'user', required: true }],
-      order: [[{ model: User, as: 'user' }, 'name', 'ASC'], ['id', 'ASC']],
+      order: [
+        [{ model: User, as: 'user' }, 'name', 'ASC'],
+        ['id', 'ASC'],
+      ],
       limit,
       offset,
     });

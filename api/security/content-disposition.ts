@@ -13,7 +13,13 @@ const RESERVED = /[<>:"|?*;\\/%]/g;
 
 export function safeDownloadName(name: string, fallback = 'download'): string {
   const lastSegment = name.normalize('NFC').split(/[\\/]/).pop() ?? '';
-  let clean = lastSegment.replace(INVISIBLE, '').replace(RESERVED, '-').replace(/\s+/g, ' ').trim().replace(/^[.\s]+/, '').replace(/[.\s]+$/, '');
+  let clean = lastSegment
+    .replace(INVISIBLE, '')
+    .replace(RESERVED, '-')
+    .replace(/\s+/g, ' ')
+    .trim()
+    .replace(/^[.\s]+/, '')
+    .replace(/[.\s]+$/, '');
   if (clean.length > MAX_LENGTH) {
     const dot = clean.lastIndexOf('.');
     const extension = dot > 0 && clean.length - dot <= 16 ? clean.slice(dot) : '';

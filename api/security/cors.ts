@@ -18,7 +18,10 @@ export function parseCorsOrigins(value: string | undefined): string[] {
     } catch {
       throw new Error(`CORS_ORIGINS must list origins like https://club.example, got "${raw}"`);
     }
-    if ((url.protocol !== 'http:' && url.protocol !== 'https:') || url.origin !== raw.replace(/\/+$/, '').toLowerCase()) {
+    if (
+      (url.protocol !== 'http:' && url.protocol !== 'https:') ||
+      url.origin !== raw.replace(/\/+$/, '').toLowerCase()
+    ) {
       throw new Error(`CORS_ORIGINS must list bare http(s) origins (no path), got "${raw}"`);
     }
     return url.origin;

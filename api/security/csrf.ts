@@ -24,7 +24,10 @@ export function ownOrigin(req: Request): string {
 }
 
 function refused(reason: string, details: Record<string, unknown>): Forbidden {
-  return new Forbidden(`This change was sent from another site (${reason}); Bindery accepts changes only from its own pages.`, { code: 'csrf-refused', details });
+  return new Forbidden(
+    `This change was sent from another site (${reason}); Bindery accepts changes only from its own pages.`,
+    { code: 'csrf-refused', details },
+  );
 }
 
 export function csrfGuard(options: { trustedOrigins: readonly string[] }): RequestHandler {
@@ -35,7 +38,8 @@ export function csrfGuard(options: { trustedOrigins: readonly string[] }): Reque
     const origin = req.get('origin')?.toLowerCase();
     if (fetchSite !== undefined && !ACCEPTED_FETCH_SITES.has(fetchSite)) {
       // A listed origin is another site by definition; CORS_ORIGINS lets it in.
-      if (origin === undefined || !trusted.has(origin)) throw refused(`Sec-Fetch-Site: ${fetchSite}`, { sec_fetch_site: fetchSite, origin: origin ?? null });
+      if (origin === undefined || !trusted.has(origin))
+        throw refused(`Sec-Fetch-Site: ${fetchSite}`, { sec_fetch_site: fetchSite, origin: origin ?? null });
       return next();
     }
     if (fetchSite === undefined && origin !== undefined && origin !== ownOrigin(req) && !trusted.has(origin)) {

@@ -72,7 +72,17 @@ function gitRepository(): { git: (...args: string[]) => string; dir: string } | 
   const git = (...args: string[]) =>
     execFileSync(
       'git',
-      ['-c', 'user.name=Bench', '-c', 'user.email=bench@example.invalid', '-c', 'commit.gpgsign=false', '-c', 'core.hooksPath=/dev/null', ...args],
+      [
+        '-c',
+        'user.name=Bench',
+        '-c',
+        'user.email=bench@example.invalid',
+        '-c',
+        'commit.gpgsign=false',
+        '-c',
+        'core.hooksPath=/dev/null',
+        ...args,
+      ],
       { cwd: dir, env, encoding: 'utf8', stdio: ['ignore', 'pipe', 'pipe'] },
     );
   try {
@@ -85,7 +95,12 @@ function gitRepository(): { git: (...args: string[]) => string; dir: string } | 
   return { git, dir };
 }
 
-function commit(repo: NonNullable<ReturnType<typeof gitRepository>>, file: string, text: string, message: string): string {
+function commit(
+  repo: NonNullable<ReturnType<typeof gitRepository>>,
+  file: string,
+  text: string,
+  message: string,
+): string {
   writeFileSync(join(repo.dir, file), text);
   repo.git('add', file);
   repo.git('commit', '-q', '--allow-empty', '-m', message);
@@ -110,7 +125,9 @@ export const benchmarks: Benchmark[] = [
 
 if (repo) {
   const [demoA, demoB] = demoPair.map((text, index) => commit(repo, 'demo.yaml', text, `demo revision ${index + 1}`));
-  const [stressA, stressB] = stressPair.map((text, index) => commit(repo, 'stress.yaml', text, `stress revision ${index + 1}`));
+  const [stressA, stressB] = stressPair.map((text, index) =>
+    commit(repo, 'stress.yaml', text, `stress revision ${index + 1}`),
+  );
   let saves = 0;
   benchmarks.push(
     {
@@ -139,7 +156,9 @@ if (repo) {
       const theirs = recorded.get(`git ${pair}`);
       if (!ours || !theirs) continue;
       const ratio = median(ours) / median(theirs);
-      lines.push(`compare / git diff, ${pair} revisions: ${ratio.toFixed(2)} (${median(ours).toFixed(3)} ms vs ${median(theirs).toFixed(3)} ms, git including its process start)`);
+      lines.push(
+        `compare / git diff, ${pair} revisions: ${ratio.toFixed(2)} (${median(ours).toFixed(3)} ms vs ${median(theirs).toFixed(3)} ms, git including its process start)`,
+      );
     }
     if (lines.length > 0) console.log(lines.join('\n'));
   });

@@ -18,7 +18,12 @@ const TIMED_PAGES = 200;
 async function measureHistoryPage(): Promise<AsyncTiming> {
   const { url, sequelize } = await benchDatabase();
   const { user, workspace } = await benchPilot();
-  const { model, revision } = await createModel(sequelize, { workspace, author: user, name: 'Ten thousand saves', yaml: DEMO_SETUP });
+  const { model, revision } = await createModel(sequelize, {
+    workspace,
+    author: user,
+    name: 'Ten thousand saves',
+    yaml: DEMO_SETUP,
+  });
   await sequelize.query(
     `WITH numbered AS (
        SELECT n, gen_random_uuid() AS id FROM generate_series(2, $count::integer) AS n
@@ -44,7 +49,8 @@ async function measureHistoryPage(): Promise<AsyncTiming> {
       const response = await fetch(`${api.url}/api/models/${model.id}/revisions`, { headers });
       const body = (await response.json()) as { data?: { number: number }[] };
       const elapsed = performance.now() - start;
-      if (response.status !== 200 || body.data?.[0]?.number !== REVISIONS) throw new Error(`the history page answered ${response.status} starting at ${body.data?.[0]?.number}`);
+      if (response.status !== 200 || body.data?.[0]?.number !== REVISIONS)
+        throw new Error(`the history page answered ${response.status} starting at ${body.data?.[0]?.number}`);
       if (page >= WARM_UP_PAGES) latencies.push(elapsed);
     }
     return timingOf(latencies);
@@ -54,7 +60,12 @@ async function measureHistoryPage(): Promise<AsyncTiming> {
 }
 
 export const asyncBenchmarks: AsyncBenchmark[] = [
-  { name: `history, first page of a model with ${REVISIONS.toLocaleString('en')} revisions`, budgetMs: 25, budgetOn: 'median', measure: measureHistoryPage },
+  {
+    name: `history, first page of a model with ${REVISIONS.toLocaleString('en')} revisions`,
+    budgetMs: 25,
+    budgetOn: 'median',
+    measure: measureHistoryPage,
+  },
 ];
 
 if (import.meta.url === pathToFileURL(process.argv[1] ?? '').href) {

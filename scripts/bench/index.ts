@@ -30,11 +30,22 @@ async function main(): Promise<number> {
     .sort();
   const rows: string[][] = [['benchmark', 'median', 'p95', 'budget', '']];
   let over = 0;
-  const row = (name: string, timing: { median: number; p95: number }, budgetMs: number | undefined, budgetOn: 'median' | 'p95') => {
+  const row = (
+    name: string,
+    timing: { median: number; p95: number },
+    budgetMs: number | undefined,
+    budgetOn: 'median' | 'p95',
+  ) => {
     const figure = budgetOn === 'p95' ? timing.p95 : timing.median;
     const within = budgetMs === undefined ? '' : figure < budgetMs ? 'within' : 'OVER';
     if (within === 'OVER') over += 1;
-    rows.push([name, ms(timing.median), ms(timing.p95), budgetMs === undefined ? '-' : `${budgetOn} < ${budgetMs} ms`, within]);
+    rows.push([
+      name,
+      ms(timing.median),
+      ms(timing.p95),
+      budgetMs === undefined ? '-' : `${budgetOn} < ${budgetMs} ms`,
+      within,
+    ]);
   };
   const modules: BenchModule[] = [];
   for (const file of files) modules.push((await import(pathToFileURL(`${folder}${file}`).href)) as BenchModule);
@@ -43,7 +54,8 @@ async function main(): Promise<number> {
       if (wanted(benchmark.name)) row(benchmark.name, measure(benchmark), benchmark.budgetMs, 'median');
     }
     for (const benchmark of module.asyncBenchmarks ?? []) {
-      if (wanted(benchmark.name)) row(benchmark.name, await benchmark.measure(), benchmark.budgetMs, benchmark.budgetOn);
+      if (wanted(benchmark.name))
+        row(benchmark.name, await benchmark.measure(), benchmark.budgetMs, benchmark.budgetOn);
     }
   }
   const sizes: string[] = [];
@@ -52,12 +64,20 @@ async function main(): Promise<number> {
       if (!wanted(check.name)) continue;
       const kilobytes = await check.measure();
       if (kilobytes >= check.budgetKb) over += 1;
-      sizes.push(`${check.name}: ${kilobytes.toFixed(1)} KB (budget < ${check.budgetKb} KB: ${kilobytes < check.budgetKb ? 'within' : 'OVER'})`);
+      sizes.push(
+        `${check.name}: ${kilobytes.toFixed(1)} KB (budget < ${check.budgetKb} KB: ${kilobytes < check.budgetKb ? 'within' : 'OVER'})`,
+      );
     }
   }
   await closeBenchDatabase();
   const widths = rows[0].map((_, column) => Math.max(...rows.map((cells) => cells[column].length)));
-  for (const cells of rows) console.log(cells.map((cell, column) => cell.padEnd(widths[column])).join('  ').trimEnd());
+  for (const cells of rows)
+    console.log(
+      cells
+        .map((cell, column) => cell.padEnd(widths[column]))
+        .join('  ')
+        .trimEnd(),
+    );
   if (sizes.length > 0) console.log(`\n${sizes.join('\n')}`);
   console.log(`\nNode ${process.version}, ${over === 0 ? 'all within budget' : `${over} over budget`}.`);
   return 0;

@@ -19,7 +19,10 @@ async function measureSaves(clients: number): Promise<AsyncTiming> {
   const { user, workspace } = await benchPilot();
   const models = [];
   for (let client = 0; client < clients; client += 1) {
-    models.push((await createModel(sequelize, { workspace, author: user, name: `Bench model ${client + 1}`, yaml: DEMO_SETUP })).model);
+    models.push(
+      (await createModel(sequelize, { workspace, author: user, name: `Bench model ${client + 1}`, yaml: DEMO_SETUP }))
+        .model,
+    );
   }
   const api = await startApiProcess(url);
   try {
@@ -31,10 +34,15 @@ async function measureSaves(clients: number): Promise<AsyncTiming> {
         for (let save = 0; save < WARM_UP_SAVES + TIMED_SAVES; save += 1) {
           const body = JSON.stringify({ base, message: `Bench save ${save + 1}`, yaml: demoVariant(save + 1) });
           const start = performance.now();
-          const response = await fetch(`${api.url}/api/models/${model.id}/revisions`, { method: 'POST', headers, body });
+          const response = await fetch(`${api.url}/api/models/${model.id}/revisions`, {
+            method: 'POST',
+            headers,
+            body,
+          });
           const answer = (await response.json()) as { data?: { number: number } };
           const elapsed = performance.now() - start;
-          if (response.status !== 201 || !answer.data) throw new Error(`a bench save answered ${response.status}: ${JSON.stringify(answer)}`);
+          if (response.status !== 201 || !answer.data)
+            throw new Error(`a bench save answered ${response.status}: ${JSON.stringify(answer)}`);
           base = answer.data.number;
           if (save >= WARM_UP_SAVES) latencies.push(elapsed);
         }
@@ -47,8 +55,18 @@ async function measureSaves(clients: number): Promise<AsyncTiming> {
 }
 
 export const asyncBenchmarks: AsyncBenchmark[] = [
-  { name: 'save a revision via the API, 20 concurrent clients', budgetMs: 30, budgetOn: 'p95', measure: () => measureSaves(20) },
-  { name: 'save a revision via the API, 1 client (for reference)', budgetMs: 30, budgetOn: 'p95', measure: () => measureSaves(1) },
+  {
+    name: 'save a revision via the API, 20 concurrent clients',
+    budgetMs: 30,
+    budgetOn: 'p95',
+    measure: () => measureSaves(20),
+  },
+  {
+    name: 'save a revision via the API, 1 client (for reference)',
+    budgetMs: 30,
+    budgetOn: 'p95',
+    measure: () => measureSaves(1),
+  },
 ];
 
 if (import.meta.url === pathToFileURL(process.argv[1] ?? '').href) {

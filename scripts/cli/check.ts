@@ -21,8 +21,18 @@ function main(argv: string[]): number {
 
   const { findings, counts } = analyzeSetup(file.text);
   if (json) {
-    const out = findings.map(({ rule, severity, message, hint, path, line, column }) => ({ rule, severity, message, hint, path, line, column }));
-    process.stdout.write(`${JSON.stringify({ findings: out, errors: counts.errors, warnings: counts.warnings, infos: counts.infos })}\n`);
+    const out = findings.map(({ rule, severity, message, hint, path, line, column }) => ({
+      rule,
+      severity,
+      message,
+      hint,
+      path,
+      line,
+      column,
+    }));
+    process.stdout.write(
+      `${JSON.stringify({ findings: out, errors: counts.errors, warnings: counts.warnings, infos: counts.infos })}\n`,
+    );
   } else {
     const lines = findings.map(findingLine);
     lines.push(

@@ -9,7 +9,10 @@ export type CommandLine = { ok: true; json: boolean; files: string[]; sets: stri
 
 const COUNT_WORDS: Record<number, string> = { 1: 'one file', 2: 'two files' };
 
-export function readCommandLine(argv: string[], { usage, files: count, takesSet = false }: { usage: string; files: 1 | 2; takesSet?: boolean }): CommandLine {
+export function readCommandLine(
+  argv: string[],
+  { usage, files: count, takesSet = false }: { usage: string; files: 1 | 2; takesSet?: boolean },
+): CommandLine {
   // Known before parsing, so that even refused arguments are answered in JSON when asked.
   let json = argv.includes('--json');
   let files: string[];
@@ -17,7 +20,9 @@ export function readCommandLine(argv: string[], { usage, files: count, takesSet 
   try {
     const parsed = parseArgs({
       args: argv,
-      options: takesSet ? { json: { type: 'boolean' }, set: { type: 'string', multiple: true } } : { json: { type: 'boolean' } },
+      options: takesSet
+        ? { json: { type: 'boolean' }, set: { type: 'string', multiple: true } }
+        : { json: { type: 'boolean' } },
       allowPositionals: true,
       strict: true,
     });
@@ -27,7 +32,11 @@ export function readCommandLine(argv: string[], { usage, files: count, takesSet 
   } catch (error) {
     return { ok: false, exitCode: failUnreadable(json, `${(error as Error).message}\n${usage}`) };
   }
-  if (files.length !== count) return { ok: false, exitCode: failUnreadable(json, `expected ${COUNT_WORDS[count]}, got ${files.length}\n${usage}`) };
+  if (files.length !== count)
+    return {
+      ok: false,
+      exitCode: failUnreadable(json, `expected ${COUNT_WORDS[count]}, got ${files.length}\n${usage}`),
+    };
   return { ok: true, json, files, sets };
 }
 

@@ -18,7 +18,10 @@ function readSetup(path: string): Read {
   const analysis = analyzeSetup(file.text);
   if (analysis.readable) return { ok: true, data: analysis.data };
   const first = analysis.findings[0];
-  return { ok: false, message: first ? `${path}:${first.line}:${first.column}: ${first.message}` : `${path}: not a setup document` };
+  return {
+    ok: false,
+    message: first ? `${path}:${first.line}:${first.column}: ${first.message}` : `${path}: not a setup document`,
+  };
 }
 
 function main(argv: string[]): number {
@@ -33,14 +36,23 @@ function main(argv: string[]): number {
 
   const { changes, counts } = diffSetups(before.data, after.data);
   if (json) {
-    const out = changes.map(({ kind, path, before: was, after: now, summary }) => ({ kind, path, before: was, after: now, summary }));
+    const out = changes.map(({ kind, path, before: was, after: now, summary }) => ({
+      kind,
+      path,
+      before: was,
+      after: now,
+      summary,
+    }));
     process.stdout.write(`${JSON.stringify({ changes: out, counts })}\n`);
     return 0;
   }
   const lines = changes.map((change) => `${change.kind.padEnd(8)} ${change.summary}    [${change.path}]`);
   if (lines.length === 0) lines.push('No changes.');
   const total = changes.length;
-  lines.push('', `${total} change${total === 1 ? '' : 's'}: ${CHANGE_KINDS.map((kind) => `${counts[kind]} ${kind}`).join(', ')}`);
+  lines.push(
+    '',
+    `${total} change${total === 1 ? '' : 's'}: ${CHANGE_KINDS.map((kind) => `${counts[kind]} ${kind}`).join(', ')}`,
+  );
   process.stdout.write(`${lines.join('\n')}\n`);
   return 0;
 }

@@ -21,15 +21,24 @@ function parseSettings(setup: Setup, sets: readonly string[]): Settings {
     const raw = set.slice(eq + 1).trim();
     const control = setup.controls.find((candidate) => candidate.id === id);
     if (!control) {
-      return { ok: false, message: `--set ${set}: no control ${id} (controls: ${setup.controls.map((c) => c.id).join(', ')})` };
+      return {
+        ok: false,
+        message: `--set ${set}: no control ${id} (controls: ${setup.controls.map((c) => c.id).join(', ')})`,
+      };
     }
     const value = raw === '' ? Number.NaN : Number(raw);
     if (control.kind === 'switch') {
       if (!Number.isInteger(value) || value < 0 || value >= control.positions) {
-        return { ok: false, message: `--set ${set}: ${id} is a switch; give a position from 0 to ${control.positions - 1}` };
+        return {
+          ok: false,
+          message: `--set ${set}: ${id} is a switch; give a position from 0 to ${control.positions - 1}`,
+        };
       }
     } else if (!Number.isFinite(value) || value < -100 || value > 100) {
-      return { ok: false, message: `--set ${set}: ${id} is ${control.kind === 'axis' ? 'an' : 'a'} ${control.kind}; give a percent from -100 to 100` };
+      return {
+        ok: false,
+        message: `--set ${set}: ${id} is ${control.kind === 'axis' ? 'an' : 'a'} ${control.kind}; give a percent from -100 to 100`,
+      };
     }
     positions[id] = value;
   }
@@ -49,7 +58,9 @@ function humanOutputs(outputs: Outputs): string {
   const width = Math.max(8, ...outputs.channels.map((c) => c.function.length));
   const lines = ['Channels', `  ${'ch'.padStart(3)}  ${'function'.padEnd(width)}  ${'value'.padStart(9)}  pulse`];
   for (const c of outputs.channels) {
-    lines.push(`  ${String(c.ch).padStart(3)}  ${c.function.padEnd(width)}  ${signed(c.value).padStart(9)}  ${c.pulse_us} us`);
+    lines.push(
+      `  ${String(c.ch).padStart(3)}  ${c.function.padEnd(width)}  ${signed(c.value).padStart(9)}  ${c.pulse_us} us`,
+    );
   }
   for (const receiver of outputs.receivers) {
     lines.push('', `Receiver ${receiver.id}`);
@@ -89,7 +100,8 @@ function main(argv: string[]): number {
   if (json) process.stdout.write(`${JSON.stringify(outputs)}\n`);
   else {
     let text = humanOutputs(outputs);
-    if (analysis.counts.errors > 0) text += `\n\n${file.file} has ${analysis.counts.errors} error(s); run check for details.`;
+    if (analysis.counts.errors > 0)
+      text += `\n\n${file.file} has ${analysis.counts.errors} error(s); run check for details.`;
     process.stdout.write(`${text}\n`);
   }
   return analysis.counts.errors > 0 ? 1 : 0;

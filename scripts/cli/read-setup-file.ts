@@ -13,7 +13,8 @@ export function readSetupFile(file: string): SetupFile {
   try {
     const stat = statSync(file);
     if (!stat.isFile()) return { ok: false, file, message: `${file}: not a file` };
-    if (stat.size > MAX_READ_BYTES) return { ok: false, file, message: `${file}: too large to be a setup (${stat.size} bytes)` };
+    if (stat.size > MAX_READ_BYTES)
+      return { ok: false, file, message: `${file}: too large to be a setup (${stat.size} bytes)` };
     const bytes = readFileSync(file);
     let text: string;
     try {

@@ -27,11 +27,17 @@ export async function openBackupTarget(log: (line: string) => void): Promise<Bac
     url.password = '';
     return url.toString();
   })();
-  if (!database.cluster) return { url: database.url, binDir: await findPostgresBinaries(log), label, close: async () => {} };
+  if (!database.cluster)
+    return { url: database.url, binDir: await findPostgresBinaries(log), label, close: async () => {} };
   const { cluster } = database;
   // The cluster says so when it adopts a server that was already up (npm start running).
   const foundRunning = lines.some((line) => line.includes('was already running'));
-  return { url: database.url, binDir: cluster.binDir, label, close: () => (foundRunning ? Promise.resolve() : cluster.stop()) };
+  return {
+    url: database.url,
+    binDir: cluster.binDir,
+    label,
+    close: () => (foundRunning ? Promise.resolve() : cluster.stop()),
+  };
 }
 
 export interface Counts {
@@ -47,7 +53,11 @@ export async function countRecords(url: string): Promise<Counts> {
     const { rows } = await client.query<{ workspaces: string; models: string; revisions: string }>(
       `SELECT (SELECT count(*) FROM workspaces) AS workspaces, (SELECT count(*) FROM models) AS models, (SELECT count(*) FROM revisions) AS revisions`,
     );
-    return { workspaces: Number(rows[0].workspaces), models: Number(rows[0].models), revisions: Number(rows[0].revisions) };
+    return {
+      workspaces: Number(rows[0].workspaces),
+      models: Number(rows[0].models),
+      revisions: Number(rows[0].revisions),
+    };
   } finally {
     await client.end();
   }
@@ -58,7 +68,9 @@ export async function otherSessions(url: string): Promise<number> {
   const client = new pg.Client({ connectionString: url });
   await client.connect();
   try {
-    const { rows } = await client.query<{ n: string }>('SELECT count(*) AS n FROM pg_stat_activity WHERE datname = current_database() AND pid <> pg_backend_pid()');
+    const { rows } = await client.query<{ n: string }>(
+      'SELECT count(*) AS n FROM pg_stat_activity WHERE datname = current_database() AND pid <> pg_backend_pid()',
+    );
     return Number(rows[0].n);
   } finally {
     await client.end();
@@ -68,7 +80,10 @@ export async function otherSessions(url: string): Promise<number> {
 /** Runs one of the PostgreSQL client programs; answers its exit code and what it said. */
 export function runClient(binDir: string, program: string, args: string[]): Promise<{ code: number; output: string }> {
   return new Promise((resolve, reject) => {
-    const child = spawn(path.join(binDir, program), args, { stdio: ['ignore', 'pipe', 'pipe'], env: { ...process.env, PGCONNECT_TIMEOUT: '10' } });
+    const child = spawn(path.join(binDir, program), args, {
+      stdio: ['ignore', 'pipe', 'pipe'],
+      env: { ...process.env, PGCONNECT_TIMEOUT: '10' },
+    });
     let output = '';
     child.stdout.on('data', (chunk) => (output += chunk));
     child.stderr.on('data', (chunk) => (output += chunk));
@@ -77,4 +92,5 @@ export function runClient(binDir: string, program: string, args: string[]): Prom
   });
 }
 
-export const formatCounts = (counts: Counts): string => `${counts.workspaces} workspaces, ${counts.models} models, ${counts.revisions} revisions`;
+export const formatCounts = (counts: Counts): string =>
+  `${counts.workspaces} workspaces, ${counts.models} models, ${counts.revisions} revisions`;

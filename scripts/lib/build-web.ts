@@ -30,6 +30,8 @@ export async function buildClientIfStale(log: (line: string) => void = console.l
   }
   log('Building the client (vite build)...');
   // Pinned: a NODE_ENV inherited from a test runner would give a development bundle.
-  const code = await runCommand(bin('vite'), ['build', '--logLevel', 'warn'], { env: { ...process.env, NODE_ENV: 'production' } });
+  const code = await runCommand(bin('vite'), ['build', '--logLevel', 'warn'], {
+    env: { ...process.env, NODE_ENV: 'production' },
+  });
   if (code !== 0) throw new Error(`vite build failed (exit ${code}).`);
 }

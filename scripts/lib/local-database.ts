@@ -45,7 +45,12 @@ export async function openLocalDatabase(log: (line: string) => void = console.lo
     return { url: external, cluster: null };
   }
   if (isRoot()) log('Running as root: PostgreSQL runs as the "postgres" user.');
-  const cluster = await startCluster({ dataDir: await clusterFolder(log), database: DATABASE, preferredPort: storedPort(), log });
+  const cluster = await startCluster({
+    dataDir: await clusterFolder(log),
+    database: DATABASE,
+    preferredPort: storedPort(),
+    log,
+  });
   writeFileSync(portFile, `${cluster.port}\n`);
   return { url: cluster.url, cluster };
 }

@@ -41,9 +41,17 @@ export function buildContext(setup: Setup): CheckContext {
   setup.mixes.forEach((mix, index) => push(mixesByTarget, mix.to, { mix, index }));
   const carriers = new Map<number, Carrier[]>();
   setup.receivers.forEach((receiver, receiverIndex) =>
-    receiver.map.forEach((entry, entryIndex) => push(carriers, entry.ch, { receiver, receiverIndex, entry, entryIndex })),
+    receiver.map.forEach((entry, entryIndex) =>
+      push(carriers, entry.ch, { receiver, receiverIndex, entry, entryIndex }),
+    ),
   );
-  return { controls: controlsById(setup.controls), planned, mixesByTarget, carriers, references: controlReferences(setup) };
+  return {
+    controls: controlsById(setup.controls),
+    planned,
+    mixesByTarget,
+    carriers,
+    references: controlReferences(setup),
+  };
 }
 
 /** "channel 8 (flap-right)", or "channel 8" when nothing is planned on it. */

@@ -14,7 +14,10 @@ export const controlNotSwitch: Check = {
       return [
         {
           message: `${capitalize(referenceOwner(setup, reference))} uses ${control.id} ${USE_WORDS[reference.use]}, but ${control.id} is ${control.kind === 'axis' ? 'an' : 'a'} ${control.kind}, which has no positions.`,
-          hint: switches.length > 0 ? `Use a switch (${switches.join(', ')}).` : 'Add a switch to controls and use it here.',
+          hint:
+            switches.length > 0
+              ? `Use a switch (${switches.join(', ')}).`
+              : 'Add a switch to controls and use it here.',
           ...referenceRef(setup, reference),
         },
       ];

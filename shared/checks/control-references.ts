@@ -24,7 +24,8 @@ export function controlReferences(setup: Setup): ControlReference[] {
     if (mix.active) refs.push({ controlId: mix.active.control, use: 'active', index, positions: mix.active.positions });
   });
   setup.channels.forEach((channel, index) => {
-    if (channel.cut) refs.push({ controlId: channel.cut.control, use: 'cut', index, positions: [channel.cut.position] });
+    if (channel.cut)
+      refs.push({ controlId: channel.cut.control, use: 'cut', index, positions: [channel.cut.position] });
   });
   return refs;
 }

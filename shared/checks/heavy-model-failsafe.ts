@@ -19,7 +19,7 @@ export const heavyModelFailsafe: Check = {
         if (!throttle) return;
         results.push({
           message: `The model weighs ${weight} g, over ${HEAVY_MODEL_G} g, and pin ${entry.pin} of receiver ${receiver.id} carries the throttle (${throttle.channel.function}) without a failsafe; a model this heavy must close the throttle on signal loss.`,
-          hint: 'Set the pin\'s failsafe to the idle pulse, and set it on the receiver too.',
+          hint: "Set the pin's failsafe to the idle pulse, and set it on the receiver too.",
           ...ref.pin(setup, ri, pi),
         });
       }),

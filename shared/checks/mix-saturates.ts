@@ -14,7 +14,9 @@ function percent(value: number): string {
 function describeSetting(extreme: Extreme, order: readonly string[], switches: ReadonlySet<string>): string {
   const parts = order
     .filter((id) => id in extreme.setting)
-    .map((id) => (switches.has(id) ? `${id} at position ${extreme.setting[id]}` : `${id} at ${percent(extreme.setting[id])}`));
+    .map((id) =>
+      switches.has(id) ? `${id} at position ${extreme.setting[id]}` : `${id} at ${percent(extreme.setting[id])}`,
+    );
   return parts.length > 0 ? listNames(parts) : 'any control positions';
 }
 

@@ -10,7 +10,8 @@ function receiversOf(ctx: CheckContext, ch: number): string[] {
 export const pairSplit: Check = {
   id: 'pair-split',
   severity: 'warning',
-  description: 'A left/right pair of one role carried by different receivers: if one receiver loses the link, the pair moves apart.',
+  description:
+    'A left/right pair of one role carried by different receivers: if one receiver loses the link, the pair moves apart.',
   check(setup, ctx) {
     const sides = new Map<string, { left: PlannedChannel[]; right: PlannedChannel[] }>();
     setup.channels.forEach((channel, index) => {

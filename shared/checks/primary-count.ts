@@ -8,7 +8,9 @@ export const primaryCount: Check = {
   description: 'Several receivers, but not exactly one with role primary.',
   check(setup) {
     if (setup.receivers.length < 2) return [];
-    const primaries = setup.receivers.map((receiver, index) => ({ receiver, index })).filter((r) => r.receiver.role === 'primary');
+    const primaries = setup.receivers
+      .map((receiver, index) => ({ receiver, index }))
+      .filter((r) => r.receiver.role === 'primary');
     if (primaries.length === 0) {
       return [
         {

@@ -75,7 +75,9 @@ export interface CheckRun {
 
 function toFinding(parsed: ParsedText, rule: string, severity: Severity, result: CheckResult): Finding {
   const steps = result.at ? dataPathSteps(result.at) : parseSemanticPath(result.path);
-  const { line, column } = parsed.document ? locate(parsed.document, parsed.lineCounter, steps) : { line: 1, column: 1 };
+  const { line, column } = parsed.document
+    ? locate(parsed.document, parsed.lineCounter, steps)
+    : { line: 1, column: 1 };
   return { rule, severity, message: result.message, hint: result.hint, path: result.path, line, column };
 }
 
@@ -101,7 +103,8 @@ export function runChecks(parsed: ParsedText): CheckRun {
   const findings: Finding[] = [];
   const { setup, results } = validateSetup(parsed.data);
   for (const result of results) findings.push(toFinding(parsed, schema.id, schema.severity, result));
-  for (const result of unknownKey.check(parsed.data)) findings.push(toFinding(parsed, unknownKey.id, unknownKey.severity, result));
+  for (const result of unknownKey.check(parsed.data))
+    findings.push(toFinding(parsed, unknownKey.id, unknownKey.severity, result));
   if (setup) {
     const ctx = buildContext(setup);
     for (const check of SETUP_CHECKS) {

@@ -9,7 +9,8 @@ export const telemetryNone: Check = {
     if (setup.receivers.some((receiver) => receiver.telemetry)) return [];
     return [
       {
-        message: 'No receiver sends telemetry, so the transmitter gets no signal-strength or battery reports from the model.',
+        message:
+          'No receiver sends telemetry, so the transmitter gets no signal-strength or battery reports from the model.',
         hint: 'Set telemetry: true on one receiver, usually the primary, if you want those reports.',
         ...ref.root('receivers'),
       },

@@ -64,16 +64,31 @@ class Walker {
     if (delta === undefined) return;
     if (Array.isArray(delta)) {
       if (delta.length === 1) {
-        this.push({ kind: isStructured(delta[0]) ? 'added' : 'changed', path, before: null, after: delta[0], subject, field });
+        this.push({
+          kind: isStructured(delta[0]) ? 'added' : 'changed',
+          path,
+          before: null,
+          after: delta[0],
+          subject,
+          field,
+        });
       } else if (delta.length === 2) {
         this.push({ kind: 'changed', path, before: delta[0], after: delta[1], subject, field });
       } else if (delta[2] === 0) {
-        this.push({ kind: isStructured(delta[0]) ? 'removed' : 'changed', path, before: delta[0], after: null, subject, field });
+        this.push({
+          kind: isStructured(delta[0]) ? 'removed' : 'changed',
+          path,
+          before: delta[0],
+          after: null,
+          subject,
+          field,
+        });
       }
       return;
     }
     if (isArrayDelta(delta)) {
-      const map = subject.type === 'receiver' && field.length === 1 && field[0] === 'map' ? this.mapMatch(subject) : undefined;
+      const map =
+        subject.type === 'receiver' && field.length === 1 && field[0] === 'map' ? this.mapMatch(subject) : undefined;
       if (map && Array.isArray(left) && Array.isArray(right)) {
         this.list(delta, left, right, path, map, subject, subject);
       } else {
@@ -86,7 +101,10 @@ class Walker {
     }
     for (const key of Object.keys(delta)) {
       const name = decodeKey(key);
-      this.value((delta as ObjectDelta)[key], at(left, key), at(right, key), `${path}.${name}`, subject, [...field, name]);
+      this.value((delta as ObjectDelta)[key], at(left, key), at(right, key), `${path}.${name}`, subject, [
+        ...field,
+        name,
+      ]);
     }
   }
 
@@ -135,7 +153,14 @@ class Walker {
       const item = (delta as unknown as Record<string, Delta>)[String(j)];
       const entryPath = `${path}${match.rightSegments[j]}`;
       if (Array.isArray(item) && item.length === 1) {
-        this.push({ kind: 'added', path: entryPath, before: null, after: item[0], subject: entrySubject(null, item[0]), field: [] });
+        this.push({
+          kind: 'added',
+          path: entryPath,
+          before: null,
+          after: item[0],
+          subject: entrySubject(null, item[0]),
+          field: [],
+        });
         continue;
       }
       const i = match.rightToLeft.get(j);

@@ -35,7 +35,8 @@ export function diffDocuments(left: unknown, right: unknown): { delta: Delta; ma
       for (const [j, i] of match.rightToLeft) {
         const mapA = (a[i] as Record<string, unknown>).map;
         const mapB = (b[j] as Record<string, unknown>).map;
-        if (Array.isArray(mapA) && Array.isArray(mapB)) matches.maps.set(j, matchList(mapA, mapB, MAP_KEY, tokens, `map${j}`));
+        if (Array.isArray(mapA) && Array.isArray(mapB))
+          matches.maps.set(j, matchList(mapA, mapB, MAP_KEY, tokens, `map${j}`));
       }
     }
   }

@@ -86,7 +86,11 @@ export function matchList(
   leftKeys.forEach((value, index) => {
     if (value !== undefined && leftFree.has(index)) leftByKey.set(value, [...(leftByKey.get(value) ?? []), index]);
   });
-  const pairWhere = (candidates: (j: number) => Iterable<number>, accept: (i: number, j: number) => boolean, rename = false): void => {
+  const pairWhere = (
+    candidates: (j: number) => Iterable<number>,
+    accept: (i: number, j: number) => boolean,
+    rename = false,
+  ): void => {
     for (const j of [...rightFree]) {
       for (const i of candidates(j)) {
         if (leftFree.has(i) && accept(i, j)) {
@@ -117,7 +121,10 @@ export function matchList(
     (i, j) =>
       leftKeys[i] !== undefined &&
       rightKeys[j] !== undefined &&
-      deepEqual(withoutKey(left[i] as Record<string, unknown>, key), withoutKey(right[j] as Record<string, unknown>, key)),
+      deepEqual(
+        withoutKey(left[i] as Record<string, unknown>, key),
+        withoutKey(right[j] as Record<string, unknown>, key),
+      ),
     true,
   );
   pairWhere(anyFree, (i, j) => leftKeys[i] === undefined && rightKeys[j] === undefined && deepEqual(left[i], right[j]));

@@ -4,4 +4,12 @@ export { findingsDelta, type FindingsDelta } from './findings-delta';
 export { outputsDelta, renamedControls, standardPositions, type OutputDelta, type PositionSet } from './outputs-delta';
 export { jsonPatch, type JsonPatchOperation } from './json-patch';
 export { textDiff, type TextDiff, type TextHunk, type TextRow, type TextRowKind } from './text-diff';
-export { CHANGE_KINDS, SECTIONS, type Change, type ChangeCounts, type ChangeKind, type Section, type SetupDiff } from './types';
+export {
+  CHANGE_KINDS,
+  SECTIONS,
+  type Change,
+  type ChangeCounts,
+  type ChangeKind,
+  type Section,
+  type SetupDiff,
+} from './types';

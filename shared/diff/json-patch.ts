@@ -17,6 +17,8 @@ export function jsonPatch(before: unknown, after: unknown): JsonPatchOperation[]
   const pointer = (path: string) => path.split('/').map(decodeKey).join('/');
   return format(delta).map((op) => {
     const value = 'value' in op ? { value: fromBare(op.value) ?? null } : {};
-    return op.op === 'move' ? { ...op, from: pointer(op.from), path: pointer(op.path) } : { ...op, path: pointer(op.path), ...value };
+    return op.op === 'move'
+      ? { ...op, from: pointer(op.from), path: pointer(op.path) }
+      : { ...op, path: pointer(op.path), ...value };
   }) as JsonPatchOperation[];
 }

@@ -68,7 +68,8 @@ export function standardPositions(before: Setup, after: Setup): PositionSet[] {
         add({ label: `${control.id} at position ${position}`, set: { [control.id]: position } });
       }
     } else {
-      for (const value of [-100, 100]) add({ label: `${control.id} at ${signed(value)} %`, set: { [control.id]: value } });
+      for (const value of [-100, 100])
+        add({ label: `${control.id} at ${signed(value)} %`, set: { [control.id]: value } });
     }
   }
   return sets;
@@ -135,7 +136,10 @@ function receiverNames(before: Setup, after: Setup): Map<string, string> {
   const names = new Map<string, string>();
   for (const setup of [before, after]) {
     for (const receiver of setup.receivers) {
-      names.set(receiver.id, receiver.label && receiver.label.trim() !== '' ? receiver.label : `Receiver ${receiver.id}`);
+      names.set(
+        receiver.id,
+        receiver.label && receiver.label.trim() !== '' ? receiver.label : `Receiver ${receiver.id}`,
+      );
     }
   }
   return names;

@@ -110,6 +110,7 @@ export function withoutKey(value: PlainObject, key: string): PlainObject {
 // A YAML key may well be `__proto__`; plain assignment would change the prototype
 // instead of adding a field.
 export function setOwn(target: PlainObject, key: string, value: unknown): void {
-  if (key === '__proto__') Object.defineProperty(target, key, { value, enumerable: true, writable: true, configurable: true });
+  if (key === '__proto__')
+    Object.defineProperty(target, key, { value, enumerable: true, writable: true, configurable: true });
   else target[key] = value;
 }

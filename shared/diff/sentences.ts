@@ -144,7 +144,10 @@ function text(value: unknown): string {
 }
 
 function isNumeric(value: unknown): boolean {
-  return typeof value === 'number' || (Array.isArray(value) && value.length > 0 && value.every((item) => typeof item === 'number'));
+  return (
+    typeof value === 'number' ||
+    (Array.isArray(value) && value.length > 0 && value.every((item) => typeof item === 'number'))
+  );
 }
 
 function valueWithUnit(value: unknown, spec: FieldSpec, failsafe: boolean): string {
@@ -204,16 +207,19 @@ function describeEntry(subject: Subject, value: PlainObject, sides: Sides, side:
     case 'control': {
       const parts = [text(value.kind)];
       if (value.kind === 'switch') parts.push(`${text(value.positions ?? 2)} positions`);
-      if (typeof value.label === 'string') parts.push(`labelled ${isText(value.label) ? quoteText(value.label) : text(value.label)}`);
+      if (typeof value.label === 'string')
+        parts.push(`labelled ${isText(value.label) ? quoteText(value.label) : text(value.label)}`);
       return parts.join(', ');
     }
     case 'mix': {
       const parts = [`${text(value.from)} -> channel ${channelWithFunction(doc, value.to)}`];
-      if (isPlainObject(value.rates)) parts.push(`rates ${text(value.rates.weights)} % on ${text(value.rates.control)}`);
+      if (isPlainObject(value.rates))
+        parts.push(`rates ${text(value.rates.weights)} % on ${text(value.rates.control)}`);
       else parts.push(`weight ${text(value.weight ?? 100)} %`);
       if (typeof value.expo === 'number' && value.expo !== 0) parts.push(`expo ${value.expo} %`);
       if (typeof value.offset === 'number' && value.offset !== 0) parts.push(`offset ${value.offset} %`);
-      if (isPlainObject(value.active)) parts.push(`only in ${text(value.active.control)} positions ${listText(value.active.positions)}`);
+      if (isPlainObject(value.active))
+        parts.push(`only in ${text(value.active.control)} positions ${listText(value.active.positions)}`);
       return parts.join(', ');
     }
     case 'receiver':

@@ -3,7 +3,17 @@ export type ChangeKind = (typeof CHANGE_KINDS)[number];
 
 // The compare view groups changes by these; `other` holds top-level keys the format
 // does not define.
-export const SECTIONS = ['format', 'model', 'link', 'controls', 'channels', 'mixes', 'receivers', 'power', 'other'] as const;
+export const SECTIONS = [
+  'format',
+  'model',
+  'link',
+  'controls',
+  'channels',
+  'mixes',
+  'receivers',
+  'power',
+  'other',
+] as const;
 export type Section = (typeof SECTIONS)[number];
 
 export interface Change {

@@ -50,14 +50,20 @@ const ENTRY_SCHEMAS: Record<string, (value: unknown) => ObjectSchema> = {
 // or removed rather than one opaque change. Takes and gives the engine's form (see
 // toBare): keys encoded, so the schema's copying cannot lose a `__proto__` key.
 export function withDefaults(data: unknown): PlainObject {
-  if (!isPlainObject(data)) return toBare(Object.fromEntries(Object.keys(LIST_KEYS).map((list) => [list, []]))) as PlainObject;
+  if (!isPlainObject(data))
+    return toBare(Object.fromEntries(Object.keys(LIST_KEYS).map((list) => [list, []]))) as PlainObject;
   const whole = setupSchema.safeParse(data);
   if (whole.success) return toBare(whole.data, true) as PlainObject;
   const copy = fillDefaults(setupSchema, data) as PlainObject;
   for (const [list, schemaFor] of Object.entries(ENTRY_SCHEMAS)) {
     const items = Object.prototype.hasOwnProperty.call(data, list) ? data[list] : undefined;
     if (items === undefined) setOwn(copy, list, []);
-    else if (Array.isArray(items)) setOwn(copy, list, items.map((item) => fillDefaults(schemaFor(item), item)));
+    else if (Array.isArray(items))
+      setOwn(
+        copy,
+        list,
+        items.map((item) => fillDefaults(schemaFor(item), item)),
+      );
   }
   return toBare(copy, true) as PlainObject;
 }

@@ -162,7 +162,13 @@ function solveGroup(mixes: CompiledMix[], vars: Variables): GroupResult {
   return { max, min, exact: true };
 }
 
-function settingOf(vars: Variables, position: readonly number[], a: readonly number[], b: readonly number[], sign: number) {
+function settingOf(
+  vars: Variables,
+  position: readonly number[],
+  a: readonly number[],
+  b: readonly number[],
+  sign: number,
+) {
   const setting: Record<string, number> = {};
   for (let i = 0; i < vars.switches.length; i += 1) setting[vars.switches[i]] = position[i];
   for (let i = 0; i < vars.axes.length; i += 1) {

@@ -1,4 +1,12 @@
-import { DEFAULT_TRAVEL, type Channel, type Control, type Failsafe, type Mix, type Setup, type Travel } from '../format/schema';
+import {
+  DEFAULT_TRAVEL,
+  type Channel,
+  type Control,
+  type Failsafe,
+  type Mix,
+  type Setup,
+  type Travel,
+} from '../format/schema';
 import { controlsById, controlValue, switchPositionOf, type Positions } from './control-value';
 import { expoCurve } from './expo-curve';
 
@@ -115,7 +123,12 @@ export function evaluate(setup: Setup, positions: Positions = {}): Outputs {
     .sort((a, b) => a.ch - b.ch)
     .map((channel) => {
       const value = channelValue(channel.ch, channel.cut, mixesByTarget.get(channel.ch) ?? [], controls, positions);
-      return { ch: channel.ch, function: channel.function, value: round2(value), pulse_us: pulseFor(channel.travel, value) };
+      return {
+        ch: channel.ch,
+        function: channel.function,
+        value: round2(value),
+        pulse_us: pulseFor(channel.travel, value),
+      };
     });
 
   const pulseByCh = new Map<number, number>();
@@ -139,7 +152,12 @@ export function evaluate(setup: Setup, positions: Positions = {}): Outputs {
     id: receiver.id,
     pins: [...receiver.map]
       .sort((a, b) => a.pin - b.pin)
-      .map((entry) => ({ pin: entry.pin, ch: entry.ch, pulse_us: pulseOf(entry.ch), failsafe: failsafeOut(entry.failsafe) })),
+      .map((entry) => ({
+        pin: entry.pin,
+        ch: entry.ch,
+        pulse_us: pulseOf(entry.ch),
+        failsafe: failsafeOut(entry.failsafe),
+      })),
   }));
 
   return { channels, receivers };

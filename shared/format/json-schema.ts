@@ -12,7 +12,8 @@ export function setupJsonSchema(): Record<string, unknown> {
   return {
     $schema,
     title: `Bindery setup document, format ${FORMAT_ID}`,
-    description: 'One RC model\'s radio setup: controls, channel plan, mixes, receivers and their pin maps with failsafes.',
+    description:
+      "One RC model's radio setup: controls, channel plan, mixes, receivers and their pin maps with failsafes.",
     ...rest,
   };
 }

@@ -34,7 +34,11 @@ export interface ParsedText {
   problems: TextProblem[];
 }
 
-function unreadable(lineCounter: LineCounter, problems: TextProblem[], document: Document.Parsed | null = null): ParsedText {
+function unreadable(
+  lineCounter: LineCounter,
+  problems: TextProblem[],
+  document: Document.Parsed | null = null,
+): ParsedText {
   return { readable: false, data: null, document, lineCounter, problems };
 }
 
@@ -44,7 +48,10 @@ function firstLine(message: string): string {
 
 function describeYamlError(error: YAMLError, text: string): Pick<TextProblem, 'message' | 'hint'> {
   if (error.code === 'DUPLICATE_KEY') {
-    const key = /^("(?:[^"\\\n]|\\.)*"|'(?:[^'\n]|'')*'|[^:\n,{}[\]]+?)\s*:/.exec(text.slice(error.pos[0], error.pos[0] + 200))?.[1] ?? '';
+    const key =
+      /^("(?:[^"\\\n]|\\.)*"|'(?:[^'\n]|'')*'|[^:\n,{}[\]]+?)\s*:/.exec(
+        text.slice(error.pos[0], error.pos[0] + 200),
+      )?.[1] ?? '';
     const named = key && key.length <= 60 ? `The key "${key}"` : 'A key';
     return {
       message: `${named} appears twice in the same mapping; YAML keys must be unique, so the document is ambiguous.`,
@@ -125,7 +132,11 @@ export function parseYaml(text: string): ParsedText {
       if (!document) document = composed;
       else {
         document.errors.push(
-          new YAMLParseError([composed.range[0], composed.range[1]], 'MULTIPLE_DOCS', 'a file holds one setup, but this one has several documents'),
+          new YAMLParseError(
+            [composed.range[0], composed.range[1]],
+            'MULTIPLE_DOCS',
+            'a file holds one setup, but this one has several documents',
+          ),
         );
         break;
       }
@@ -167,7 +178,9 @@ export function parseYaml(text: string): ParsedText {
             message: aliasBomb
               ? `The document's aliases expand to too many copies (more than ${MAX_ALIAS_COUNT}); it is not read.`
               : `The document could not be read: ${firstLine(String((error as Error)?.message ?? error))}.`,
-            hint: aliasBomb ? 'Write the values out instead of repeating aliases.' : 'Check the YAML near the start of the document.',
+            hint: aliasBomb
+              ? 'Write the values out instead of repeating aliases.'
+              : 'Check the YAML near the start of the document.',
             line: 1,
             column: 1,
           },
@@ -180,7 +193,8 @@ export function parseYaml(text: string): ParsedText {
         lineCounter,
         [
           {
-            message: 'An alias (*name) sits inside the very node its anchor (&name) marks, so the setup would never end; it is not read.',
+            message:
+              'An alias (*name) sits inside the very node its anchor (&name) marks, so the setup would never end; it is not read.',
             hint: 'Point the alias at a node outside itself, or write the values out.',
             line: 1,
             column: 1,

@@ -12,7 +12,12 @@ const ROOT_LISTS: Record<string, string> = { controls: 'id', channels: 'ch', mix
 /** The identity key of the list at `listPath`, if that list has one. */
 export function identityKeyOf(listPath: DataPath): string | null {
   if (listPath.length === 1 && typeof listPath[0] === 'string') return ROOT_LISTS[listPath[0]] ?? null;
-  if (listPath.length === 3 && listPath[0] === 'receivers' && typeof listPath[1] === 'number' && listPath[2] === 'map') {
+  if (
+    listPath.length === 3 &&
+    listPath[0] === 'receivers' &&
+    typeof listPath[1] === 'number' &&
+    listPath[2] === 'map'
+  ) {
     return 'pin';
   }
   return null;
@@ -39,12 +44,17 @@ export function toSemanticPath(data: unknown, dataPath: DataPath): string {
       const item = Array.isArray(value) ? value[step] : undefined;
       const key = identityKeyOf(dataPath.slice(0, i));
       const identity =
-        key && item !== null && typeof item === 'object' ? usableIdentity((item as Record<string, unknown>)[key]) : null;
+        key && item !== null && typeof item === 'object'
+          ? usableIdentity((item as Record<string, unknown>)[key])
+          : null;
       out += identity === null ? `[${step}]` : `[${key}=${identity}]`;
       value = item;
     } else {
       out += formatKey(step, out === '');
-      value = value !== null && typeof value === 'object' && !Array.isArray(value) ? (value as Record<string, unknown>)[step] : undefined;
+      value =
+        value !== null && typeof value === 'object' && !Array.isArray(value)
+          ? (value as Record<string, unknown>)[step]
+          : undefined;
     }
   }
   return out;

@@ -75,25 +75,41 @@ export function findSlot(setup: Setup, slotId: string): Receiver | undefined {
 /** The findings whose semantic path is the slot itself or something inside it. */
 export function findingsForSlot(findings: readonly Finding[], slotId: string): Finding[] {
   const root = `receivers[id=${slotId}]`;
-  return findings.filter((finding) => finding.path === root || finding.path.startsWith(`${root}.`) || finding.path.startsWith(`${root}[`));
+  return findings.filter(
+    (finding) => finding.path === root || finding.path.startsWith(`${root}.`) || finding.path.startsWith(`${root}[`),
+  );
 }
 
-const sameFailsafe = (a: StoredFailsafe | undefined, b: StoredFailsafe | undefined): boolean => (a ?? null) === (b ?? null);
+const sameFailsafe = (a: StoredFailsafe | undefined, b: StoredFailsafe | undefined): boolean =>
+  (a ?? null) === (b ?? null);
 const onOff = (value: boolean) => (value ? 'on' : 'off');
 
 function pinList(pins: readonly number[]): string {
   if (pins.length === 1) return `pin ${pins[0]}`;
   const contiguous = pins.every((pin, i) => i === 0 || pin === pins[i - 1] + 1);
-  return contiguous ? `pins ${pins[0]}-${pins[pins.length - 1]}` : `pins ${pins.slice(0, -1).join(', ')} and ${pins[pins.length - 1]}`;
+  return contiguous
+    ? `pins ${pins[0]}-${pins[pins.length - 1]}`
+    : `pins ${pins.slice(0, -1).join(', ')} and ${pins[pins.length - 1]}`;
 }
 
 function channelChange(pin: number, from: StoredPin | undefined, known: boolean, ch: number): ReuseChange | null {
   if (from?.ch === ch) return null;
   const now = !known ? 'channel not recorded' : from ? `carries channel ${from.ch}` : 'carries no channel';
-  return { pin, setting: 'ch', from: from?.ch ?? null, to: ch, summary: `Pin ${pin}: ${now}, must carry channel ${ch}` };
+  return {
+    pin,
+    setting: 'ch',
+    from: from?.ch ?? null,
+    to: ch,
+    summary: `Pin ${pin}: ${now}, must carry channel ${ch}`,
+  };
 }
 
-function failsafeChange(pin: number, from: StoredPin | undefined, known: boolean, wanted: StoredFailsafe): ReuseChange | null {
+function failsafeChange(
+  pin: number,
+  from: StoredPin | undefined,
+  known: boolean,
+  wanted: StoredFailsafe,
+): ReuseChange | null {
   const held = from?.failsafe ?? null;
   if (known && sameFailsafe(held, wanted)) return null;
   // Unknown settings and a slot that wants the receiver default: nothing to program.

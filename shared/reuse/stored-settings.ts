@@ -9,7 +9,10 @@ export const STORED_FAILSAFE_MODES = ['hold', 'off'] as const;
 
 /** A pulse in microseconds, `hold`, `off`, or null when the unit is left at its own default. */
 export const storedFailsafeSchema = z.union([
-  z.int({ error: 'A failsafe pulse is a whole number of microseconds.' }).min(700, 'A failsafe pulse is at least 700 us.').max(2300, 'A failsafe pulse is at most 2300 us.'),
+  z
+    .int({ error: 'A failsafe pulse is a whole number of microseconds.' })
+    .min(700, 'A failsafe pulse is at least 700 us.')
+    .max(2300, 'A failsafe pulse is at most 2300 us.'),
   z.enum(STORED_FAILSAFE_MODES, { error: 'A failsafe is a pulse in microseconds, hold, off or null.' }),
   z.null(),
 ]);
@@ -28,7 +31,8 @@ export const storedSettingsSchema = z
   .superRefine((settings, ctx) => {
     const seen = new Set<number>();
     settings.pins.forEach((entry, index) => {
-      if (seen.has(entry.pin)) ctx.addIssue({ code: 'custom', path: ['pins', index, 'pin'], message: `Pin ${entry.pin} is listed twice.` });
+      if (seen.has(entry.pin))
+        ctx.addIssue({ code: 'custom', path: ['pins', index, 'pin'], message: `Pin ${entry.pin} is listed twice.` });
       seen.add(entry.pin);
     });
   })

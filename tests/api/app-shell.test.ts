@@ -35,11 +35,17 @@ describe('security headers', () => {
 describe('the error envelope', () => {
   it('answers an unknown API route with a JSON 404', async () => {
     const response = await request(t.app).get('/api/no-such-thing').expect(404);
-    expect(response.body).toEqual({ error: { code: 'no-such-route', message: expect.stringContaining('/api/no-such-thing'), details: {} } });
+    expect(response.body).toEqual({
+      error: { code: 'no-such-route', message: expect.stringContaining('/api/no-such-thing'), details: {} },
+    });
   });
 
   it('answers a body of an unaccepted type with 415', async () => {
-    const response = await request(t.app).post('/api/workspaces').set('Content-Type', 'application/xml').send('<name>x</name>').expect(415);
+    const response = await request(t.app)
+      .post('/api/workspaces')
+      .set('Content-Type', 'application/xml')
+      .send('<name>x</name>')
+      .expect(415);
     expect(response.body.error.code).toBe('unsupported-media-type');
   });
 

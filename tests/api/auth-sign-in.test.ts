@@ -16,7 +16,12 @@ const signInWith = (body: object) => request(t.app).post('/api/auth/sign-in').se
 describe('POST /api/auth/sign-in', () => {
   it('answers the user and a token, and sets an httpOnly SameSite=Lax session cookie', async () => {
     const response = await signInWith({ email: pilot.email, password: TEST_PASSWORD }).expect(200);
-    expect(response.body.data.user).toEqual({ id: pilot.id, email: pilot.email, name: 'Signe Inman', created_at: expect.any(String) });
+    expect(response.body.data.user).toEqual({
+      id: pilot.id,
+      email: pilot.email,
+      name: 'Signe Inman',
+      created_at: expect.any(String),
+    });
     expect(response.body.data.token.split('.')).toHaveLength(3);
     const cookie = ([] as string[]).concat(response.headers['set-cookie'] ?? [])[0];
     expect(cookie).toMatch(/^bindery_session=[^;]+;/);
@@ -43,7 +48,10 @@ describe('POST /api/auth/sign-in', () => {
 
   it('asks for missing fields', async () => {
     const response = await signInWith({}).expect(400);
-    expect(response.body.error.details.fields).toEqual({ email: expect.stringMatching(/e-mail/), password: expect.stringMatching(/password/) });
+    expect(response.body.error.details.fields).toEqual({
+      email: expect.stringMatching(/e-mail/),
+      password: expect.stringMatching(/password/),
+    });
   });
 });
 

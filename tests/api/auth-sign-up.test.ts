@@ -6,7 +6,10 @@ import { useTestApp } from './helpers/test-app';
 
 const t = useTestApp();
 
-const signUp = (body: unknown) => request(t.app).post('/api/auth/sign-up').send(body as object);
+const signUp = (body: unknown) =>
+  request(t.app)
+    .post('/api/auth/sign-up')
+    .send(body as object);
 const valid = () => ({ email: uniqueEmail('new'), name: 'Wren Calloway', password: 'tailwheel-1987' });
 
 function cookieOf(response: request.Response): string {
@@ -28,7 +31,9 @@ describe('POST /api/auth/sign-up', () => {
 
     const me = await request(t.app).get('/api/me').set('Cookie', cookie.split(';')[0]).expect(200);
     expect(me.body.data.user.email).toBe(body.email);
-    expect(me.body.data.workspaces).toEqual([{ id: expect.any(String), name: "Wren Calloway's workspace", role: 'owner' }]);
+    expect(me.body.data.workspaces).toEqual([
+      { id: expect.any(String), name: "Wren Calloway's workspace", role: 'owner' },
+    ]);
   });
 
   it('stores the e-mail in lower case and the password only as a bcrypt hash of cost 12', async () => {
@@ -75,7 +80,11 @@ describe('POST /api/auth/sign-up', () => {
   });
 
   it('answers malformed JSON with 400 malformed-json', async () => {
-    const response = await request(t.app).post('/api/auth/sign-up').set('Content-Type', 'application/json').send('{"email": "a@b.example",').expect(400);
+    const response = await request(t.app)
+      .post('/api/auth/sign-up')
+      .set('Content-Type', 'application/json')
+      .send('{"email": "a@b.example",')
+      .expect(400);
     expect(response.body.error).toMatchObject({ code: 'malformed-json', message: expect.any(String), details: {} });
   });
 
@@ -86,7 +95,11 @@ describe('POST /api/auth/sign-up', () => {
 
   it('refuses a form-encoded body with 415 and stores nothing', async () => {
     const before = await User.count();
-    const response = await request(t.app).post('/api/auth/sign-up').type('form').send('email=a%40b.example&name=A&password=long-enough-1').expect(415);
+    const response = await request(t.app)
+      .post('/api/auth/sign-up')
+      .type('form')
+      .send('email=a%40b.example&name=A&password=long-enough-1')
+      .expect(415);
     expect(response.body.error.code).toBe('unsupported-media-type');
     expect(await User.count()).toBe(before);
   });

@@ -13,7 +13,11 @@ const trainer = fixture('valid/trainer-single-receiver.yaml');
 
 describe('POST /api/check', () => {
   it('checks YAML sent as application/yaml without a session, answering what the shared analyzer finds', async () => {
-    const response = await request(t.app).post('/api/check').set('Content-Type', 'application/yaml').send(trainer).expect(200);
+    const response = await request(t.app)
+      .post('/api/check')
+      .set('Content-Type', 'application/yaml')
+      .send(trainer)
+      .expect(200);
     const expected = analyzeSetup(trainer);
     expect(response.body.data).toEqual({
       readable: true,
@@ -32,20 +36,36 @@ describe('POST /api/check', () => {
   });
 
   it('answers unreadable YAML with 200 and a syntax finding that has a line and column', async () => {
-    const response = await request(t.app).post('/api/check').set('Content-Type', 'application/yaml').send('format: bindery-setup/1\nchannels: [\n').expect(200);
+    const response = await request(t.app)
+      .post('/api/check')
+      .set('Content-Type', 'application/yaml')
+      .send('format: bindery-setup/1\nchannels: [\n')
+      .expect(200);
     expect(response.body.data.readable).toBe(false);
     expect(response.body.data.errors).toBeGreaterThan(0);
-    expect(response.body.data.findings[0]).toMatchObject({ rule: 'syntax', severity: 'error', line: expect.any(Number), column: expect.any(Number) });
+    expect(response.body.data.findings[0]).toMatchObject({
+      rule: 'syntax',
+      severity: 'error',
+      line: expect.any(Number),
+      column: expect.any(Number),
+    });
   });
 
   it('refuses a text past the size limit with 413', async () => {
-    const response = await request(t.app).post('/api/check').set('Content-Type', 'application/yaml').send(`# ${'x'.repeat(520 * 1024)}\n`).expect(413);
+    const response = await request(t.app)
+      .post('/api/check')
+      .set('Content-Type', 'application/yaml')
+      .send(`# ${'x'.repeat(520 * 1024)}\n`)
+      .expect(413);
     expect(response.body.error.code).toBe('too-large');
   });
 
   it('asks for a body when there is none, and refuses other types with 415', async () => {
     expect((await request(t.app).post('/api/check').expect(400)).body.error.code).toBe('missing-body');
-    expect((await request(t.app).post('/api/check').set('Content-Type', 'application/xml').send('<a/>').expect(415)).body.error.code).toBe('unsupported-media-type');
+    expect(
+      (await request(t.app).post('/api/check').set('Content-Type', 'application/xml').send('<a/>').expect(415)).body
+        .error.code,
+    ).toBe('unsupported-media-type');
     const wrongJson = await request(t.app).post('/api/check').send({ text: trainer }).expect(400);
     expect(wrongJson.body.error.details.fields.yaml).toBeDefined();
   });

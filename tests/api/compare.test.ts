@@ -16,21 +16,38 @@ beforeAll(async () => {
   roles = await createRoleFixture();
   editor = clientFor(t.app, t.config, roles.members.editor);
   viewer = clientFor(t.app, t.config, roles.members.viewer);
-  const created = await createModelVia(editor, roles.workspace.id, { name: 'Kestrel Mk II', yaml: fixture('pairs/failsafe-fix.before.yaml') });
+  const created = await createModelVia(editor, roles.workspace.id, {
+    name: 'Kestrel Mk II',
+    yaml: fixture('pairs/failsafe-fix.before.yaml'),
+  });
   modelId = created.model.id;
   before = created.revision;
-  after = await saveVia(editor, modelId, 1, fixture('pairs/failsafe-fix.after.yaml'), 'Wing pin 3 failsafe 988 -> 1500');
+  after = await saveVia(
+    editor,
+    modelId,
+    1,
+    fixture('pairs/failsafe-fix.after.yaml'),
+    'Wing pin 3 failsafe 988 -> 1500',
+  );
 });
 
 describe('GET /api/compare', () => {
   it('answers the change list, counts, sections, findings delta, outputs delta and text for two revisions of one model', async () => {
     const body = (await viewer.get(`/api/compare?from=${before.id}&to=${after.id}`).expect(200)).body.data;
-    expect(Object.keys(body).sort()).toEqual(['changes', 'counts', 'findings_delta', 'from', 'outputs_delta', 'sections', 'text', 'to'].sort());
+    expect(Object.keys(body).sort()).toEqual(
+      ['changes', 'counts', 'findings_delta', 'from', 'outputs_delta', 'sections', 'text', 'to'].sort(),
+    );
     expect(body.from).toMatchObject({ id: before.id, number: 1, model: { id: modelId, name: 'Kestrel Mk II' } });
     expect(body.to).toMatchObject({ id: after.id, number: 2, message: 'Wing pin 3 failsafe 988 -> 1500' });
 
     expect(body.changes).toHaveLength(1);
-    expect(body.changes[0]).toMatchObject({ kind: 'changed', section: 'receivers', path: 'receivers[id=wing].map[pin=3].failsafe', before: 988, after: 1500 });
+    expect(body.changes[0]).toMatchObject({
+      kind: 'changed',
+      section: 'receivers',
+      path: 'receivers[id=wing].map[pin=3].failsafe',
+      before: 988,
+      after: 1500,
+    });
     expect(body.changes[0].summary).toMatch(/988.*1500/);
     expect(body.counts).toEqual({ added: 0, removed: 0, changed: 1, renamed: 0, moved: 0 });
     expect(body.sections.receivers.changed).toBe(1);
@@ -53,8 +70,12 @@ describe('GET /api/compare', () => {
 
     const outsider = clientFor(t.app, t.config, roles.outsider);
     const theirs = await createModelVia(outsider, roles.otherWorkspace.id, { name: 'Theirs', yaml: SCALE() });
-    expect((await viewer.get(`/api/compare?from=${theirs.revision.id}&to=${after.id}`).expect(404)).body.error.code).toBe('revision-not-found');
-    expect((await outsider.get(`/api/compare?from=${theirs.revision.id}&to=${after.id}`).expect(404)).body.error.code).toBe('revision-not-found');
+    expect(
+      (await viewer.get(`/api/compare?from=${theirs.revision.id}&to=${after.id}`).expect(404)).body.error.code,
+    ).toBe('revision-not-found');
+    expect(
+      (await outsider.get(`/api/compare?from=${theirs.revision.id}&to=${after.id}`).expect(404)).body.error.code,
+    ).toBe('revision-not-found');
   });
 
   it('compares a revision with itself as no change', async () => {
@@ -64,12 +85,20 @@ describe('GET /api/compare', () => {
   });
 
   it('needs both ids: 400 when one is missing, 404 when one is not a revision', async () => {
-    expect((await viewer.get(`/api/compare?from=${before.id}`).expect(400)).body.error.details.fields).toHaveProperty('to');
+    expect((await viewer.get(`/api/compare?from=${before.id}`).expect(400)).body.error.details.fields).toHaveProperty(
+      'to',
+    );
     await viewer.get(`/api/compare?from=${before.id}&to=nope`).expect(404);
   });
 
   it('answers null outputs_delta when one side is not a valid setup', async () => {
-    const broken = await saveVia(editor, modelId, 2, 'format: bindery-setup/1\nmodel: { name: Half }\n', 'half-written');
+    const broken = await saveVia(
+      editor,
+      modelId,
+      2,
+      'format: bindery-setup/1\nmodel: { name: Half }\n',
+      'half-written',
+    );
     const body = (await viewer.get(`/api/compare?from=${after.id}&to=${broken.id}`).expect(200)).body.data;
     expect(body.outputs_delta).toBeNull();
     expect(body.findings_delta.introduced.some((finding: { rule: string }) => finding.rule === 'schema')).toBe(true);
@@ -97,7 +126,9 @@ describe('GET /api/revisions/:id/patch', () => {
     const download = await viewer.get(`/api/revisions/${after.id}/patch?from=${before.id}&download=1`).expect(200);
     expect(download.headers['content-type']).toMatch(/^application\/json-patch\+json/);
     expect(download.headers['content-disposition']).toBe('attachment; filename=kestrel-mk-ii-r1-to-r2.patch.json');
-    expect(JSON.parse(download.text)).toEqual([{ op: 'replace', path: expect.stringMatching(/^\/receivers\/1\/map\/2\/failsafe$/), value: 1500 }]);
+    expect(JSON.parse(download.text)).toEqual([
+      { op: 'replace', path: expect.stringMatching(/^\/receivers\/1\/map\/2\/failsafe$/), value: 1500 },
+    ]);
     const outsider = clientFor(t.app, t.config, roles.outsider);
     await outsider.get(`/api/revisions/${after.id}/patch?from=${before.id}`).expect(404);
     await viewer.get(`/api/revisions/${after.id}/patch`).expect(400);

@@ -18,9 +18,16 @@ beforeAll(async () => {
   roles = await createRoleFixture();
   editor = clientFor(t.app, t.config, roles.members.editor);
   viewer = clientFor(t.app, t.config, roles.members.viewer);
-  const created = await createModelVia(editor, roles.workspace.id, { name: 'Kestrel Mk II / "scale" #2', yaml: SCALE() });
+  const created = await createModelVia(editor, roles.workspace.id, {
+    name: 'Kestrel Mk II / "scale" #2',
+    yaml: SCALE(),
+  });
   kestrel = { modelId: created.model.id, revisionId: created.revision.id };
-  const wing = (await editor.post(`/api/workspaces/${roles.workspace.id}/receivers`, parse(fixture('reuse/wing-unit.yaml'))).expect(201)).body.data;
+  const wing = (
+    await editor
+      .post(`/api/workspaces/${roles.workspace.id}/receivers`, parse(fixture('reuse/wing-unit.yaml')))
+      .expect(201)
+  ).body.data;
   await editor.post(`/api/receivers/${wing.id}/install`, { model: kestrel.modelId, slot: 'wing' }).expect(201);
 });
 
@@ -31,14 +38,17 @@ const binary = (test: request.Test) =>
     res.on('end', () => callback(null, Buffer.concat(chunks)));
   });
 
-async function sheetText(revisionId: string): Promise<{ text: string; pages: number; headers: Record<string, string> }> {
+async function sheetText(
+  revisionId: string,
+): Promise<{ text: string; pages: number; headers: Record<string, string> }> {
   const response = await binary(viewer.get(`/api/revisions/${revisionId}/field-sheet.pdf`)).expect(200);
   const pdf = await pdfParse(response.body as Buffer);
   return { text: pdf.text, pages: pdf.numpages, headers: response.headers as Record<string, string> };
 }
 
 // pdf-parse joins the pieces of one printed line without spaces.
-const row = (...cells: (string | number)[]) => new RegExp(cells.map((cell) => String(cell).replace(/[.*+?^${}()|[\]\\]/g, '\\$&')).join('\\s*'));
+const row = (...cells: (string | number)[]) =>
+  new RegExp(cells.map((cell) => String(cell).replace(/[.*+?^${}()|[\]\\]/g, '\\$&')).join('\\s*'));
 
 describe('GET /api/revisions/:id/field-sheet.pdf', () => {
   it('is one A4 page for the two-receiver model, named safely, for any reader of the workspace', async () => {
@@ -64,7 +74,8 @@ describe('GET /api/revisions/:id/field-sheet.pdf', () => {
 
   it('names the model, revision, short hash, review state, link and the unit installed in each slot', async () => {
     const { text } = await sheetText(kestrel.revisionId);
-    const hash = (await editor.get(`/api/revisions/${kestrel.revisionId}`).expect(200)).body.data.content_hash as string;
+    const hash = (await editor.get(`/api/revisions/${kestrel.revisionId}`).expect(200)).body.data
+      .content_hash as string;
     expect(text).toContain('Kestrel Mk II / "scale" #2');
     expect(text).toMatch(row('Revision', 1));
     expect(text).toContain(hash.slice(0, 12));
@@ -99,10 +110,15 @@ describe('GET /api/revisions/:id/field-sheet.pdf', () => {
 
   it('is 404 outside the workspace, 401 without a session, 422 for a revision with no valid setup', async () => {
     const outsider = clientFor(t.app, t.config, roles.outsider);
-    expect((await outsider.get(`/api/revisions/${kestrel.revisionId}/field-sheet.pdf`).expect(404)).body.error.code).toBe('revision-not-found');
+    expect(
+      (await outsider.get(`/api/revisions/${kestrel.revisionId}/field-sheet.pdf`).expect(404)).body.error.code,
+    ).toBe('revision-not-found');
     await outsider.get(`/api/revisions/${randomUUID()}/field-sheet`).expect(404);
     await request(t.app).get(`/api/revisions/${kestrel.revisionId}/field-sheet.pdf`).expect(401);
-    const broken = await createModelVia(editor, roles.workspace.id, { name: 'Half written', yaml: 'format: bindery-setup/1\nmodel: { name: Half }\n' });
+    const broken = await createModelVia(editor, roles.workspace.id, {
+      name: 'Half written',
+      yaml: 'format: bindery-setup/1\nmodel: { name: Half }\n',
+    });
     const refused = await viewer.get(`/api/revisions/${broken.revision.id}/field-sheet.pdf`).expect(422);
     expect(refused.body.error.code).toBe('setup-not-valid');
   });
@@ -119,11 +135,22 @@ describe('GET /api/revisions/:id/field-sheet', () => {
       counts: { errors: 0, warnings: 0 },
     });
     expect(data.channels).toHaveLength(16);
-    expect(data.receivers.map((receiver: { id: string; unit: { label: string } | null }) => [receiver.id, receiver.unit?.label ?? null])).toEqual([
+    expect(
+      data.receivers.map((receiver: { id: string; unit: { label: string } | null }) => [
+        receiver.id,
+        receiver.unit?.label ?? null,
+      ]),
+    ).toEqual([
       ['fuselage', null],
       ['wing', 'Kestrel wing unit'],
     ]);
-    expect(data.receivers[1].pins[2]).toEqual({ pin: 3, ch: 11, function: 'landing-light', role: 'light', failsafe: 'hold' });
+    expect(data.receivers[1].pins[2]).toEqual({
+      pin: 3,
+      ch: 11,
+      function: 'landing-light',
+      role: 'light',
+      failsafe: 'hold',
+    });
     expect(data.cautions.items.length).toBeGreaterThanOrEqual(5);
   });
 });

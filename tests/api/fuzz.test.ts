@@ -31,7 +31,8 @@ beforeAll(async () => {
   countSql = `SELECT ${tables.map(({ name }) => `(SELECT count(*) FROM "${name}")::int AS "${name}"`).join(', ')}`;
 });
 
-const rowCounts = async (): Promise<Record<string, number>> => (await t.sequelize.query<Record<string, number>>(countSql, { type: QueryTypes.SELECT }))[0];
+const rowCounts = async (): Promise<Record<string, number>> =>
+  (await t.sequelize.query<Record<string, number>>(countSql, { type: QueryTypes.SELECT }))[0];
 
 const NASTY_STRINGS = [
   '',
@@ -75,9 +76,7 @@ const hostileValue: fc.Arbitrary<unknown> = fc.oneof(
   fc.jsonValue({ maxDepth: 3 }),
 );
 
-type BodyCase =
-  | { kind: 'json'; value: unknown }
-  | { kind: 'raw'; type: string; text: string };
+type BodyCase = { kind: 'json'; value: unknown } | { kind: 'raw'; type: string; text: string };
 
 const CONTENT_TYPES = [
   'application/json',
@@ -97,20 +96,53 @@ const CONTENT_TYPES = [
 function bodyCase(valid: Record<string, unknown>): fc.Arbitrary<BodyCase> {
   const keys = Object.keys(valid);
   const swapped = keys.length
-    ? fc.tuple(fc.constantFrom(...keys), hostileValue).map(([key, value]): BodyCase => ({ kind: 'json', value: { ...valid, [key]: value } }))
+    ? fc
+        .tuple(fc.constantFrom(...keys), hostileValue)
+        .map(([key, value]): BodyCase => ({ kind: 'json', value: { ...valid, [key]: value } }))
     : hostileValue.map((value): BodyCase => ({ kind: 'json', value: { field: value } }));
-  const dropped = keys.length ? fc.constantFrom(...keys).map((key): BodyCase => ({ kind: 'json', value: Object.fromEntries(Object.entries(valid).filter(([k]) => k !== key)) })) : swapped;
+  const dropped = keys.length
+    ? fc
+        .constantFrom(...keys)
+        .map((key): BodyCase => ({
+          kind: 'json',
+          value: Object.fromEntries(Object.entries(valid).filter(([k]) => k !== key)),
+        }))
+    : swapped;
   const added = fc
-    .tuple(fc.oneof(fc.constantFrom('__proto__', 'constructor', 'id', 'workspace_id', 'author_id', 'role'), fc.string({ maxLength: 12 })), hostileValue)
+    .tuple(
+      fc.oneof(
+        fc.constantFrom('__proto__', 'constructor', 'id', 'workspace_id', 'author_id', 'role'),
+        fc.string({ maxLength: 12 }),
+      ),
+      hostileValue,
+    )
     .map(([key, value]): BodyCase => {
       const body: Record<string, unknown> = { ...valid };
       Object.defineProperty(body, key, { value, enumerable: true, configurable: true, writable: true });
       return { kind: 'json', value: body };
     });
   const anything = fc.jsonValue({ maxDepth: 5 }).map((value): BodyCase => ({ kind: 'json', value }));
-  const nested = fc.integer({ min: 50, max: 5_000 }).map((depth): BodyCase => ({ kind: 'raw', type: 'application/json', text: `${'{"a":['.repeat(depth)}1${']}'.repeat(depth)}` }));
-  const raw = fc.tuple(fc.constantFrom(...CONTENT_TYPES), fc.oneof(fc.string({ unit: 'binary', maxLength: 300 }), fc.constant(JSON.stringify(valid)), fc.constant('{"unterminated": '))).map(([type, text]): BodyCase => ({ kind: 'raw', type, text }));
-  return fc.oneof({ weight: 4, arbitrary: swapped }, dropped, { weight: 2, arbitrary: added }, anything, nested, { weight: 2, arbitrary: raw });
+  const nested = fc
+    .integer({ min: 50, max: 5_000 })
+    .map((depth): BodyCase => ({
+      kind: 'raw',
+      type: 'application/json',
+      text: `${'{"a":['.repeat(depth)}1${']}'.repeat(depth)}`,
+    }));
+  const raw = fc
+    .tuple(
+      fc.constantFrom(...CONTENT_TYPES),
+      fc.oneof(
+        fc.string({ unit: 'binary', maxLength: 300 }),
+        fc.constant(JSON.stringify(valid)),
+        fc.constant('{"unterminated": '),
+      ),
+    )
+    .map(([type, text]): BodyCase => ({ kind: 'raw', type, text }));
+  return fc.oneof({ weight: 4, arbitrary: swapped }, dropped, { weight: 2, arbitrary: added }, anything, nested, {
+    weight: 2,
+    arbitrary: raw,
+  });
 }
 
 const uploadCase = fc.record({
@@ -120,12 +152,34 @@ const uploadCase = fc.record({
     fc.constant(Buffer.from(ALIAS_BOMB)),
     fc.constant(Buffer.from('# v2 git bundle\nnot really\n\nPACK')),
   ),
-  name: fc.oneof(fc.constantFrom('setup.yaml', 'x.yml', '../../../etc/passwd', 'a\u0000b.yaml', '', 'history.bundle', 'évasion.YAML'), fc.string({ maxLength: 40 })),
+  name: fc.oneof(
+    fc.constantFrom(
+      'setup.yaml',
+      'x.yml',
+      '../../../etc/passwd',
+      'a\u0000b.yaml',
+      '',
+      'history.bundle',
+      'évasion.YAML',
+    ),
+    fc.string({ maxLength: 40 }),
+  ),
   type: fc.constantFrom('application/yaml', 'text/plain', 'application/octet-stream', 'image/png', 'text/html', ''),
-  fields: fc.dictionary(fc.oneof(fc.constantFrom('base', 'message', 'name', 'file'), fc.string({ maxLength: 8 })), fc.oneof(hostileString.map((text) => text.slice(0, 200)), fc.constant('1')), { maxKeys: 4 }),
+  fields: fc.dictionary(
+    fc.oneof(fc.constantFrom('base', 'message', 'name', 'file'), fc.string({ maxLength: 8 })),
+    fc.oneof(
+      hostileString.map((text) => text.slice(0, 200)),
+      fc.constant('1'),
+    ),
+    { maxKeys: 4 },
+  ),
 });
 
-async function expectRefusalStoresNothing(response: request.Response, before: Record<string, number>, what: string): Promise<void> {
+async function expectRefusalStoresNothing(
+  response: request.Response,
+  before: Record<string, number>,
+  what: string,
+): Promise<void> {
   expect(response.status, `${what} answered ${response.status}: ${JSON.stringify(response.body)}`).toBeLessThan(500);
   if (response.status >= 400) {
     expect(response.body?.error?.code, `${what}: a refusal says why`).toEqual(expect.any(String));
@@ -135,7 +189,8 @@ async function expectRefusalStoresNothing(response: request.Response, before: Re
 
 function sendBody(entry: RouteEntry, url: string, body: BodyCase, headers: Record<string, string>): request.Test {
   const test = request(t.app)[entry.method.toLowerCase() as 'post' | 'patch' | 'delete'](url).set(headers);
-  if (body.kind === 'json') return test.set('Content-Type', 'application/json').send(JSON.stringify(body.value) ?? 'null');
+  if (body.kind === 'json')
+    return test.set('Content-Type', 'application/json').send(JSON.stringify(body.value) ?? 'null');
   return test.set('Content-Type', body.type).send(body.text);
 }
 
@@ -149,9 +204,14 @@ describe('hostile bodies at every write route', () => {
       await fc.assert(
         fc.asyncProperty(uploadCase, async (upload) => {
           const before = await rowCounts();
-          let test = request(t.app).post(call.url).set(await world.headersOf('owner'));
+          let test = request(t.app)
+            .post(call.url)
+            .set(await world.headersOf('owner'));
           for (const [name, value] of Object.entries(upload.fields)) test = test.field(name, value);
-          const response = await test.attach('file', upload.file, { filename: upload.name, contentType: upload.type || 'application/octet-stream' });
+          const response = await test.attach('file', upload.file, {
+            filename: upload.name,
+            contentType: upload.type || 'application/octet-stream',
+          });
           await expectRefusalStoresNothing(response, before, key);
         }),
         { seed: SEED, numRuns: RUNS_PER_ROUTE, endOnFailure: true },
@@ -182,44 +242,107 @@ function mangledPaths(entry: RouteEntry, url: string): fc.Arbitrary<string> {
 }
 
 describe('hostile path parameters', () => {
-  it.each(ROUTE_TABLE.filter((entry) => entry.path.includes('/:')).map((entry) => [routeKey(entry), entry] as const))('%s', async (key, entry) => {
-    const call = await world.samples[key]('owner');
-    await fc.assert(
-      fc.asyncProperty(mangledPaths(entry, call.url), async (url) => {
-        const before = await rowCounts();
-        const response = await world.send(entry.method, { ...call, url }, 'owner');
-        await expectRefusalStoresNothing(response, before, `${key} at ${url}`);
-      }),
-      { seed: SEED, numRuns: 10, endOnFailure: true },
-    );
-  });
+  it.each(ROUTE_TABLE.filter((entry) => entry.path.includes('/:')).map((entry) => [routeKey(entry), entry] as const))(
+    '%s',
+    async (key, entry) => {
+      const call = await world.samples[key]('owner');
+      await fc.assert(
+        fc.asyncProperty(mangledPaths(entry, call.url), async (url) => {
+          const before = await rowCounts();
+          const response = await world.send(entry.method, { ...call, url }, 'owner');
+          await expectRefusalStoresNothing(response, before, `${key} at ${url}`);
+        }),
+        { seed: SEED, numRuns: 10, endOnFailure: true },
+      );
+    },
+  );
 });
 
 const QUERY_KEYS = ['limit', 'offset', 'before', 'q', 'status', 'to', 'from', 'format', 'download', 'model', 'slot'];
 
 describe('hostile query strings at every read route', () => {
-  const queryCase = fc.array(fc.tuple(fc.oneof({ weight: 4, arbitrary: fc.constantFrom(...QUERY_KEYS) }, fc.string({ maxLength: 10 })), fc.oneof(hostileString.map((text) => text.slice(0, 400)), fc.integer().map(String))), { minLength: 1, maxLength: 5 });
-  it.each(ROUTE_TABLE.filter((entry) => entry.method === 'GET').map((entry) => [routeKey(entry), entry] as const))('%s', async (key) => {
-    const call = await world.samples[key]('owner');
-    const [path, known = ''] = call.url.split('?');
-    await fc.assert(
-      fc.asyncProperty(queryCase, async (pairs) => {
-        const before = await rowCounts();
-        const query = [known, ...pairs.map(([name, value]) => `${encodeURIComponent(name)}=${encodeURIComponent(value)}`)].filter(Boolean).join('&');
-        const response = await request(t.app).get(`${path}?${query}`).set(await world.headersOf('owner'));
-        await expectRefusalStoresNothing(response, before, `${key}?${query.slice(0, 200)}`);
-      }),
-      { seed: SEED, numRuns: 20, endOnFailure: true },
-    );
-  });
+  const queryCase = fc.array(
+    fc.tuple(
+      fc.oneof({ weight: 4, arbitrary: fc.constantFrom(...QUERY_KEYS) }, fc.string({ maxLength: 10 })),
+      fc.oneof(
+        hostileString.map((text) => text.slice(0, 400)),
+        fc.integer().map(String),
+      ),
+    ),
+    { minLength: 1, maxLength: 5 },
+  );
+  it.each(ROUTE_TABLE.filter((entry) => entry.method === 'GET').map((entry) => [routeKey(entry), entry] as const))(
+    '%s',
+    async (key) => {
+      const call = await world.samples[key]('owner');
+      const [path, known = ''] = call.url.split('?');
+      await fc.assert(
+        fc.asyncProperty(queryCase, async (pairs) => {
+          const before = await rowCounts();
+          const query = [
+            known,
+            ...pairs.map(([name, value]) => `${encodeURIComponent(name)}=${encodeURIComponent(value)}`),
+          ]
+            .filter(Boolean)
+            .join('&');
+          const response = await request(t.app)
+            .get(`${path}?${query}`)
+            .set(await world.headersOf('owner'));
+          await expectRefusalStoresNothing(response, before, `${key}?${query.slice(0, 200)}`);
+        }),
+        { seed: SEED, numRuns: 20, endOnFailure: true },
+      );
+    },
+  );
 });
 
 // YAML: small edits to real setups (a slice cut out, characters put in, a line doubled,
 // indentation broken) and text built from YAML's own punctuation.
-const YAML_PUNCTUATION = [':', '-', ' ', '  ', '\n', '\t', '[', ']', '{', '}', '&a', '*a', '!!', '!!binary ', '|', '>', '#', '"', "'", '?', ',', '%YAML 1.2\n', '---\n', '...\n', '<<: ', '@', '`', 'a', '1', '0x1F', '.inf', '~', '\r\n', '\ufeff', '\u0000'];
+const YAML_PUNCTUATION = [
+  ':',
+  '-',
+  ' ',
+  '  ',
+  '\n',
+  '\t',
+  '[',
+  ']',
+  '{',
+  '}',
+  '&a',
+  '*a',
+  '!!',
+  '!!binary ',
+  '|',
+  '>',
+  '#',
+  '"',
+  "'",
+  '?',
+  ',',
+  '%YAML 1.2\n',
+  '---\n',
+  '...\n',
+  '<<: ',
+  '@',
+  '`',
+  'a',
+  '1',
+  '0x1F',
+  '.inf',
+  '~',
+  '\r\n',
+  '\ufeff',
+  '\u0000',
+];
 const yamlText = fc.oneof(
   fc
-    .tuple(fc.constantFrom(TRAINER(), SCALE()), fc.nat(), fc.nat({ max: 200 }), fc.array(fc.constantFrom(...YAML_PUNCTUATION), { maxLength: 6 }))
+    .tuple(
+      fc.constantFrom(TRAINER(), SCALE()),
+      fc.nat(),
+      fc.nat({ max: 200 }),
+      fc.array(fc.constantFrom(...YAML_PUNCTUATION), { maxLength: 6 }),
+    )
     .map(([text, at, cut, inserted]) => {
       const position = at % (text.length + 1);
       return text.slice(0, position) + inserted.join('') + text.slice(position + cut);
@@ -236,7 +359,14 @@ const yamlText = fc.oneof(
     return lines.join('\n');
   }),
   fc.array(fc.constantFrom(...YAML_PUNCTUATION), { maxLength: 80 }).map((parts) => parts.join('')),
-  fc.constantFrom(ALIAS_BOMB, `${'- '.repeat(200)}x\n`, `${'['.repeat(5_000)}`, `a: &a\n  b: *a\n`, 'model: !!js/function "function () {}"\n', 'a: 1\na: 2\n'),
+  fc.constantFrom(
+    ALIAS_BOMB,
+    `${'- '.repeat(200)}x\n`,
+    `${'['.repeat(5_000)}`,
+    `a: &a\n  b: *a\n`,
+    'model: !!js/function "function () {}"\n',
+    'a: 1\na: 2\n',
+  ),
 );
 
 describe('hostile YAML', () => {
@@ -246,7 +376,10 @@ describe('hostile YAML', () => {
       fc.asyncProperty(yamlText, async (yaml) => {
         const before = await rowCounts();
         const base = (await Revision.max<number, Revision>('number', { where: { modelId: world.modelId } })) ?? 0;
-        const response = await request(t.app).post(`/api/models/${world.modelId}/revisions`).set(await world.headersOf('owner')).send({ base, yaml, message: 'fuzz' });
+        const response = await request(t.app)
+          .post(`/api/models/${world.modelId}/revisions`)
+          .set(await world.headersOf('owner'))
+          .send({ base, yaml, message: 'fuzz' });
         await expectRefusalStoresNothing(response, before, 'save');
         outcomes.add(response.status);
         if (response.status === 201) {
@@ -267,7 +400,10 @@ describe('hostile YAML', () => {
     await fc.assert(
       fc.asyncProperty(yamlText, async (yaml) => {
         const before = await rowCounts();
-        const created = await request(t.app).post(`/api/workspaces/${world.roles.workspace.id}/models`).set(await world.headersOf('owner')).send({ name: 'Fuzzed', yaml });
+        const created = await request(t.app)
+          .post(`/api/workspaces/${world.roles.workspace.id}/models`)
+          .set(await world.headersOf('owner'))
+          .send({ name: 'Fuzzed', yaml });
         await expectRefusalStoresNothing(created, before, 'create');
         const after = await rowCounts();
         const checked = await request(t.app).post('/api/check').set('Content-Type', 'application/yaml').send(yaml);

@@ -24,7 +24,11 @@ export default async function setup(project: TestProject): Promise<() => Promise
   const folder = mkdtempSync(path.join(os.tmpdir(), 'bindery-api-tests-'));
   // mkdtemp makes it private to this user; as root the server runs as postgres.
   chmodSync(folder, 0o755);
-  const cluster = await startCluster({ dataDir: path.join(folder, 'pg'), database: TEMPLATE_DATABASE, throwaway: true });
+  const cluster = await startCluster({
+    dataDir: path.join(folder, 'pg'),
+    database: TEMPLATE_DATABASE,
+    throwaway: true,
+  });
   try {
     const sequelize = createSequelize(cluster.url);
     await migrate(sequelize);

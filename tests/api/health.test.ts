@@ -49,7 +49,10 @@ describe('GET /api/health', () => {
     // Routes that need the database answer 503 too, and no request takes the server down.
     const me = await request(app).get('/api/me').set(bearer(token)).expect(503);
     expect(me.body.error.code).toBe('database-unavailable');
-    const signIn = await request(app).post('/api/auth/sign-in').send({ email: user.email, password: 'whatever-it-is' }).expect(503);
+    const signIn = await request(app)
+      .post('/api/auth/sign-in')
+      .send({ email: user.email, password: 'whatever-it-is' })
+      .expect(503);
     expect(signIn.body.error.code).toBe('database-unavailable');
 
     await cluster.start();

@@ -18,7 +18,10 @@ beforeAll(async () => {
 });
 
 const invite = (email: string, role = 'reviewer', as: User = owner) =>
-  request(t.app).post(`/api/workspaces/${workspace.id}/invitations`).set(bearer(tokenFor(as, t.config))).send({ email, role });
+  request(t.app)
+    .post(`/api/workspaces/${workspace.id}/invitations`)
+    .set(bearer(tokenFor(as, t.config)))
+    .send({ email, role });
 
 async function invitedToken(email: string, role = 'reviewer'): Promise<string> {
   await invite(email, role).expect(201);
@@ -30,7 +33,12 @@ describe('inviting by e-mail', () => {
   it('mails the invited address a link that shows the workspace and role, and works once', async () => {
     const email = uniqueEmail('newcomer');
     const created = await invite(email.toUpperCase(), 'reviewer').expect(201);
-    expect(created.body.data).toMatchObject({ email, role: 'reviewer', status: 'pending', invited_by: { id: owner.id, name: 'Ottilie Sparrowhawk' } });
+    expect(created.body.data).toMatchObject({
+      email,
+      role: 'reviewer',
+      status: 'pending',
+      invited_by: { id: owner.id, name: 'Ottilie Sparrowhawk' },
+    });
     expect(JSON.stringify(created.body)).not.toMatch(/eyJ/);
 
     const mails = await mailTo(email);
@@ -43,16 +51,27 @@ describe('inviting by e-mail', () => {
     expect(mail.htmlBody).toContain(`${TEST_APP_URL}/invitations/${token}`);
 
     const shown = await request(t.app).get(`/api/invitations/${token}`).expect(200);
-    expect(shown.body.data).toMatchObject({ workspace: { id: workspace.id, name: 'Gorse Common Flyers' }, role: 'reviewer', email, account_exists: false });
+    expect(shown.body.data).toMatchObject({
+      workspace: { id: workspace.id, name: 'Gorse Common Flyers' },
+      role: 'reviewer',
+      email,
+      account_exists: false,
+    });
 
-    const accepted = await request(t.app).post(`/api/invitations/${token}/accept`).send({ name: 'Nell Whitethroat', password: 'thermal-bubble-77' }).expect(201);
+    const accepted = await request(t.app)
+      .post(`/api/invitations/${token}/accept`)
+      .send({ name: 'Nell Whitethroat', password: 'thermal-bubble-77' })
+      .expect(201);
     expect(accepted.body.data.workspace).toEqual({ id: workspace.id, name: 'Gorse Common Flyers', role: 'reviewer' });
     expect(String(accepted.headers['set-cookie'])).toMatch(/bindery_session=/);
     const me = await request(t.app).get('/api/me').set(bearer(accepted.body.data.token)).expect(200);
     expect(me.body.data.user).toMatchObject({ email, name: 'Nell Whitethroat' });
     expect(me.body.data.workspaces).toContainEqual({ id: workspace.id, name: 'Gorse Common Flyers', role: 'reviewer' });
 
-    const again = await request(t.app).post(`/api/invitations/${token}/accept`).send({ name: 'Someone Else', password: 'thermal-bubble-78' }).expect(410);
+    const again = await request(t.app)
+      .post(`/api/invitations/${token}/accept`)
+      .send({ name: 'Someone Else', password: 'thermal-bubble-78' })
+      .expect(410);
     expect(again.body.error.code).toBe('token-used');
     expect((await request(t.app).get(`/api/invitations/${token}`).expect(410)).body.error.code).toBe('token-used');
   });
@@ -64,10 +83,16 @@ describe('inviting by e-mail', () => {
 
     const unsigned = await request(t.app).post(`/api/invitations/${token}/accept`).expect(401);
     expect(unsigned.body.error.message).toMatch(/Sign in/);
-    const newAccount = await request(t.app).post(`/api/invitations/${token}/accept`).send({ name: 'Twin', password: 'thermal-bubble-77' }).expect(409);
+    const newAccount = await request(t.app)
+      .post(`/api/invitations/${token}/accept`)
+      .send({ name: 'Twin', password: 'thermal-bubble-77' })
+      .expect(409);
     expect(newAccount.body.error.code).toBe('account-exists');
 
-    const joined = await request(t.app).post(`/api/invitations/${token}/accept`).set(bearer(tokenFor(pilot, t.config))).expect(200);
+    const joined = await request(t.app)
+      .post(`/api/invitations/${token}/accept`)
+      .set(bearer(tokenFor(pilot, t.config)))
+      .expect(200);
     expect(joined.body.data.workspace).toEqual({ id: workspace.id, name: 'Gorse Common Flyers', role: 'editor' });
     const membership = await Membership.findOne({ where: { workspaceId: workspace.id, userId: pilot.id } });
     expect(membership?.role).toBe('editor');
@@ -77,7 +102,10 @@ describe('inviting by e-mail', () => {
     const pilot = await createUser({ email: uniqueEmail('double') });
     const token = await invitedToken(pilot.email);
     await addMember(workspace, pilot, 'viewer');
-    const response = await request(t.app).post(`/api/invitations/${token}/accept`).set(bearer(tokenFor(pilot, t.config))).expect(409);
+    const response = await request(t.app)
+      .post(`/api/invitations/${token}/accept`)
+      .set(bearer(tokenFor(pilot, t.config)))
+      .expect(409);
     expect(response.body.error.code).toBe('already-member');
     await request(t.app).get(`/api/invitations/${token}`).expect(200);
   });
@@ -88,12 +116,22 @@ describe('inviting by e-mail', () => {
     const { jti } = jwt.decode(token) as { jti: string };
 
     const now = Math.floor(Date.now() / 1000);
-    const expiredToken = jwt.sign({ exp: now - 60, iat: now - 3600 }, t.config.jwtSecret, { algorithm: 'HS256', audience: 'bindery:invitation', jwtid: jti });
-    const byToken = await request(t.app).post(`/api/invitations/${expiredToken}/accept`).send({ name: 'Late', password: 'thermal-bubble-77' }).expect(401);
+    const expiredToken = jwt.sign({ exp: now - 60, iat: now - 3600 }, t.config.jwtSecret, {
+      algorithm: 'HS256',
+      audience: 'bindery:invitation',
+      jwtid: jti,
+    });
+    const byToken = await request(t.app)
+      .post(`/api/invitations/${expiredToken}/accept`)
+      .send({ name: 'Late', password: 'thermal-bubble-77' })
+      .expect(401);
     expect(byToken.body.error.code).toBe('token-expired');
 
     await Invitation.update({ expiresAt: new Date(Date.now() - 60_000) }, { where: { id: jti } });
-    const byRow = await request(t.app).post(`/api/invitations/${token}/accept`).send({ name: 'Late', password: 'thermal-bubble-77' }).expect(401);
+    const byRow = await request(t.app)
+      .post(`/api/invitations/${token}/accept`)
+      .send({ name: 'Late', password: 'thermal-bubble-77' })
+      .expect(401);
     expect(byRow.body.error.code).toBe('token-expired');
     expect(await User.count({ where: { email } })).toBe(0);
     expect((await Invitation.findByPk(jti))?.acceptedAt).toBeNull();
@@ -106,29 +144,58 @@ describe('inviting by e-mail', () => {
     expect((await request(t.app).get(`/api/invitations/${flipped}`).expect(401)).body.error.code).toBe('invalid-token');
 
     const { jti } = jwt.decode(token) as { jti: string };
-    const resetKind = jwt.sign({}, t.config.jwtSecret, { algorithm: 'HS256', audience: 'bindery:password-reset', jwtid: jti, expiresIn: 3600 });
-    expect((await request(t.app).get(`/api/invitations/${resetKind}`).expect(401)).body.error.code).toBe('invalid-token');
-    expect((await request(t.app).get(`/api/invitations/${tokenFor(owner, t.config)}`).expect(401)).body.error.code).toBe('invalid-token');
-    expect((await request(t.app).get('/api/invitations/not-a-token').expect(401)).body.error.code).toBe('invalid-token');
+    const resetKind = jwt.sign({}, t.config.jwtSecret, {
+      algorithm: 'HS256',
+      audience: 'bindery:password-reset',
+      jwtid: jti,
+      expiresIn: 3600,
+    });
+    expect((await request(t.app).get(`/api/invitations/${resetKind}`).expect(401)).body.error.code).toBe(
+      'invalid-token',
+    );
+    expect(
+      (
+        await request(t.app)
+          .get(`/api/invitations/${tokenFor(owner, t.config)}`)
+          .expect(401)
+      ).body.error.code,
+    ).toBe('invalid-token');
+    expect((await request(t.app).get('/api/invitations/not-a-token').expect(401)).body.error.code).toBe(
+      'invalid-token',
+    );
   });
 
   it('inviting an address again replaces the old link; a revoked invitation is refused', async () => {
     const email = uniqueEmail('twice');
     const first = await invitedToken(email);
     const second = await invitedToken(email, 'editor');
-    expect((await request(t.app).get(`/api/invitations/${first}`).expect(410)).body.error.code).toBe('invitation-revoked');
+    expect((await request(t.app).get(`/api/invitations/${first}`).expect(410)).body.error.code).toBe(
+      'invitation-revoked',
+    );
     expect((await request(t.app).get(`/api/invitations/${second}`).expect(200)).body.data.role).toBe('editor');
 
-    const list = await request(t.app).get(`/api/workspaces/${workspace.id}/invitations`).set(bearer(tokenFor(owner, t.config))).expect(200);
+    const list = await request(t.app)
+      .get(`/api/workspaces/${workspace.id}/invitations`)
+      .set(bearer(tokenFor(owner, t.config)))
+      .expect(200);
     const pending = list.body.data.filter((invitation: { email: string }) => invitation.email === email);
     expect(pending).toHaveLength(1);
     expect(pending[0]).toMatchObject({ role: 'editor', status: 'pending' });
 
-    const revoked = await request(t.app).delete(`/api/workspaces/${workspace.id}/invitations/${pending[0].id}`).set(bearer(tokenFor(owner, t.config))).expect(200);
+    const revoked = await request(t.app)
+      .delete(`/api/workspaces/${workspace.id}/invitations/${pending[0].id}`)
+      .set(bearer(tokenFor(owner, t.config)))
+      .expect(200);
     expect(revoked.body.data.status).toBe('revoked');
-    const refused = await request(t.app).post(`/api/invitations/${second}/accept`).send({ name: 'Gone', password: 'thermal-bubble-77' }).expect(410);
+    const refused = await request(t.app)
+      .post(`/api/invitations/${second}/accept`)
+      .send({ name: 'Gone', password: 'thermal-bubble-77' })
+      .expect(410);
     expect(refused.body.error.code).toBe('invitation-revoked');
-    const after = await request(t.app).get(`/api/workspaces/${workspace.id}/invitations`).set(bearer(tokenFor(owner, t.config))).expect(200);
+    const after = await request(t.app)
+      .get(`/api/workspaces/${workspace.id}/invitations`)
+      .set(bearer(tokenFor(owner, t.config)))
+      .expect(200);
     expect(after.body.data.map((invitation: { email: string }) => invitation.email)).not.toContain(email);
   });
 
@@ -136,7 +203,10 @@ describe('inviting by e-mail', () => {
     const email = uniqueEmail('by-editor');
     const refused = await invite(email, 'viewer', editor).expect(403);
     expect(refused.body.error.code).toBe('role-too-low');
-    await request(t.app).get(`/api/workspaces/${workspace.id}/invitations`).set(bearer(tokenFor(editor, t.config))).expect(403);
+    await request(t.app)
+      .get(`/api/workspaces/${workspace.id}/invitations`)
+      .set(bearer(tokenFor(editor, t.config)))
+      .expect(403);
     expect(await mailTo(email)).toHaveLength(0);
     expect(await Invitation.count({ where: { email } })).toBe(0);
   });
@@ -152,12 +222,25 @@ describe('inviting by e-mail', () => {
   it('records invitations and joins in the audit trail the owners read', async () => {
     const email = uniqueEmail('audited');
     const token = await invitedToken(email, 'viewer');
-    await request(t.app).post(`/api/invitations/${token}/accept`).send({ name: 'Ada Fieldfare', password: 'thermal-bubble-77' }).expect(201);
+    await request(t.app)
+      .post(`/api/invitations/${token}/accept`)
+      .send({ name: 'Ada Fieldfare', password: 'thermal-bubble-77' })
+      .expect(201);
     const events = await AuditEvent.findAll({ where: { workspaceId: workspace.id } });
-    expect(events.find((event) => event.action === 'member.invited' && event.details.email === email)).toMatchObject({ actorId: owner.id, details: { role: 'viewer' } });
-    expect(events.find((event) => event.action === 'member.joined' && event.details.email === email)).toMatchObject({ details: { name: 'Ada Fieldfare', role: 'viewer', new_account: true } });
+    expect(events.find((event) => event.action === 'member.invited' && event.details.email === email)).toMatchObject({
+      actorId: owner.id,
+      details: { role: 'viewer' },
+    });
+    expect(events.find((event) => event.action === 'member.joined' && event.details.email === email)).toMatchObject({
+      details: { name: 'Ada Fieldfare', role: 'viewer', new_account: true },
+    });
 
-    const audit = await request(t.app).get(`/api/workspaces/${workspace.id}/audit`).set(bearer(tokenFor(owner, t.config))).expect(200);
-    expect(audit.body.data.map((event: { action: string }) => event.action)).toEqual(expect.arrayContaining(['member.invited', 'member.joined']));
+    const audit = await request(t.app)
+      .get(`/api/workspaces/${workspace.id}/audit`)
+      .set(bearer(tokenFor(owner, t.config)))
+      .expect(200);
+    expect(audit.body.data.map((event: { action: string }) => event.action)).toEqual(
+      expect.arrayContaining(['member.invited', 'member.joined']),
+    );
   });
 });

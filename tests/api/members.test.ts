@@ -24,8 +24,10 @@ beforeEach(async () => {
 const as = (user: User) => bearer(tokenFor(user, t.config));
 const changeRole = (target: User, role: string, by: User = owner) =>
   request(t.app).patch(`/api/workspaces/${workspace.id}/members/${target.id}`).set(as(by)).send({ role });
-const remove = (target: User, by: User = owner) => request(t.app).delete(`/api/workspaces/${workspace.id}/members/${target.id}`).set(as(by));
-const roleOf = async (user: User) => (await Membership.findOne({ where: { workspaceId: workspace.id, userId: user.id } }))?.role ?? null;
+const remove = (target: User, by: User = owner) =>
+  request(t.app).delete(`/api/workspaces/${workspace.id}/members/${target.id}`).set(as(by));
+const roleOf = async (user: User) =>
+  (await Membership.findOne({ where: { workspaceId: workspace.id, userId: user.id } }))?.role ?? null;
 
 describe('changing roles', () => {
   it('an owner changes a member’s role, recorded in the audit trail', async () => {
@@ -33,7 +35,11 @@ describe('changing roles', () => {
     expect(response.body.data).toMatchObject({ user: { id: people.viewer.id, name: 'Vic Teasel' }, role: 'reviewer' });
     expect(await roleOf(people.viewer)).toBe('reviewer');
     const event = await AuditEvent.findOne({ where: { workspaceId: workspace.id, action: 'member.role-changed' } });
-    expect(event).toMatchObject({ actorId: owner.id, subjectId: people.viewer.id, details: { name: 'Vic Teasel', from: 'viewer', to: 'reviewer' } });
+    expect(event).toMatchObject({
+      actorId: owner.id,
+      subjectId: people.viewer.id,
+      details: { name: 'Vic Teasel', from: 'viewer', to: 'reviewer' },
+    });
   });
 
   it('the last owner cannot be demoted (409 last-owner); with a second owner it works', async () => {
@@ -50,7 +56,10 @@ describe('changing roles', () => {
 
   it('two owners demoting each other at once leave exactly one owner', async () => {
     await changeRole(people.editor, 'owner').expect(200);
-    const [a, b] = await Promise.all([changeRole(people.editor, 'viewer', owner), changeRole(owner, 'viewer', people.editor)]);
+    const [a, b] = await Promise.all([
+      changeRole(people.editor, 'viewer', owner),
+      changeRole(owner, 'viewer', people.editor),
+    ]);
     expect([a.status, b.status].sort()).toEqual([200, 409]);
     expect(await Membership.count({ where: { workspaceId: workspace.id, role: 'owner' } })).toBe(1);
   });
@@ -66,7 +75,15 @@ describe('changing roles', () => {
     expect(bad.body.error.details.fields.role).toMatch(/viewer, reviewer, editor, owner/);
     const stranger = await createUser();
     expect((await changeRole(stranger, 'editor').expect(404)).body.error.code).toBe('member-not-found');
-    expect((await request(t.app).patch(`/api/workspaces/${workspace.id}/members/not-an-id`).set(as(owner)).send({ role: 'editor' }).expect(404)).body.error.code).toBe('member-not-found');
+    expect(
+      (
+        await request(t.app)
+          .patch(`/api/workspaces/${workspace.id}/members/not-an-id`)
+          .set(as(owner))
+          .send({ role: 'editor' })
+          .expect(404)
+      ).body.error.code,
+    ).toBe('member-not-found');
   });
 });
 
@@ -76,7 +93,10 @@ describe('removing and leaving', () => {
     const response = await remove(people.reviewer).expect(200);
     expect(response.body.data).toMatchObject({ removed: true, left: false });
     await request(t.app).get(`/api/workspaces/${workspace.id}`).set(as(people.reviewer)).expect(404);
-    expect(await AuditEvent.findOne({ where: { workspaceId: workspace.id, action: 'member.removed' } })).toMatchObject({ subjectId: people.reviewer.id, details: { role: 'reviewer' } });
+    expect(await AuditEvent.findOne({ where: { workspaceId: workspace.id, action: 'member.removed' } })).toMatchObject({
+      subjectId: people.reviewer.id,
+      details: { role: 'reviewer' },
+    });
   });
 
   it('a member who is not an owner may leave, but may not remove others', async () => {
@@ -84,7 +104,9 @@ describe('removing and leaving', () => {
     const left = await remove(people.viewer, people.viewer).expect(200);
     expect(left.body.data.left).toBe(true);
     expect(await roleOf(people.viewer)).toBeNull();
-    expect(await AuditEvent.findOne({ where: { workspaceId: workspace.id, action: 'member.left' } })).toMatchObject({ actorId: people.viewer.id });
+    expect(await AuditEvent.findOne({ where: { workspaceId: workspace.id, action: 'member.left' } })).toMatchObject({
+      actorId: people.viewer.id,
+    });
   });
 
   it('the last owner can neither leave nor be removed', async () => {

@@ -16,11 +16,18 @@ beforeAll(async () => {
 const modelNamed = async (name: string) => (await SetupModel.findOne({ where: { workspaceId: workspace.id, name } }))!;
 const historyOf = (model: SetupModel) => Revision.findAll({ where: { modelId: model.id }, order: [['number', 'ASC']] });
 const tagsOf = async (model: SetupModel) =>
-  Object.fromEntries((await Tag.findAll({ where: { modelId: model.id }, include: [{ model: Revision, as: 'revision' }] })).map((tag) => [tag.name, tag.revision!.number]));
+  Object.fromEntries(
+    (await Tag.findAll({ where: { modelId: model.id }, include: [{ model: Revision, as: 'revision' }] })).map((tag) => [
+      tag.name,
+      tag.revision!.number,
+    ]),
+  );
 
 describe('the demo models (seed step 0002)', () => {
   it("fills the demo club's hangar", async () => {
-    const names = (await SetupModel.findAll({ where: { workspaceId: workspace.id } })).map((model) => model.name).sort();
+    const names = (await SetupModel.findAll({ where: { workspaceId: workspace.id } }))
+      .map((model) => model.name)
+      .sort();
     expect(names).toEqual(['Heron 3.6', 'Kestrel Mk II', 'Meadowlark 40', 'Sedge 3.4', 'Wren Twin']);
   });
 
@@ -39,10 +46,16 @@ describe('the demo models (seed step 0002)', () => {
     expect(revisions[1].findings.filter((finding) => finding.rule === 'function-unrouted')).toHaveLength(8);
     // Remapped to 9-16, its pin 1 still fails safe to a throttle stop.
     expect(revisions[2].errorCount).toBe(0);
-    expect(revisions[2].findings.map((finding) => `${finding.rule} ${finding.path}`)).toContain('failsafe-endstop receivers[id=wing].map[pin=1].failsafe');
+    expect(revisions[2].findings.map((finding) => `${finding.rule} ${finding.path}`)).toContain(
+      'failsafe-endstop receivers[id=wing].map[pin=1].failsafe',
+    );
     expect(revisions[3].findings).toEqual([]);
 
-    expect(revisions[11]).toMatchObject({ origin: 'revert', sourceRevisionId: revisions[9].id, contentHash: revisions[9].contentHash });
+    expect(revisions[11]).toMatchObject({
+      origin: 'revert',
+      sourceRevisionId: revisions[9].id,
+      contentHash: revisions[9].contentHash,
+    });
     expect(await tagsOf(kestrel)).toEqual({ maiden: 6, 'season-2025': 9, 'season-2026': 12 });
   });
 
@@ -52,13 +65,19 @@ describe('the demo models (seed step 0002)', () => {
     const sedgeRevisions = await historyOf(sedge);
     const heronRevisions = await historyOf(heron);
     expect(heron.forkedFromRevisionId).toBe(sedgeRevisions[sedgeRevisions.length - 1].id);
-    expect(heronRevisions[0]).toMatchObject({ origin: 'fork', sourceRevisionId: heron.forkedFromRevisionId, contentHash: sedgeRevisions[1].contentHash });
+    expect(heronRevisions[0]).toMatchObject({
+      origin: 'fork',
+      sourceRevisionId: heron.forkedFromRevisionId,
+      contentHash: sedgeRevisions[1].contentHash,
+    });
     expect((heronRevisions[1].document as { model: { name: string } }).model.name).toBe('Heron 3.6');
     expect(heronRevisions).toHaveLength(3);
   });
 
   it('seeds setups that read cleanly, each revision stored with the findings its text gives', async () => {
-    const revisions = await Revision.findAll({ include: [{ model: SetupModel, as: 'model', where: { workspaceId: workspace.id } }] });
+    const revisions = await Revision.findAll({
+      include: [{ model: SetupModel, as: 'model', where: { workspaceId: workspace.id } }],
+    });
     expect(revisions.length).toBe(12 + 3 + 2 + 3 + 1);
     for (const revision of revisions) {
       const analysis = analyzeSetup(revision.yamlText);

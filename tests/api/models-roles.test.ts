@@ -27,8 +27,18 @@ interface Subject {
 // A fresh model with two revisions for every call, so each write has a valid base.
 async function freshSubject(): Promise<Subject> {
   const workspace = (await Workspace.findByPk(roles.workspace.id))!;
-  const { model, revision } = await createModel(t.sequelize, { workspace, author: roles.members.editor, name: 'Role matrix model', yaml: TRAINER() });
-  const latest = await saveRevision(t.sequelize, { modelId: model.id, author: roles.members.editor, base: 1, yaml: GLIDER() });
+  const { model, revision } = await createModel(t.sequelize, {
+    workspace,
+    author: roles.members.editor,
+    name: 'Role matrix model',
+    yaml: TRAINER(),
+  });
+  const latest = await saveRevision(t.sequelize, {
+    modelId: model.id,
+    author: roles.members.editor,
+    base: 1,
+    yaml: GLIDER(),
+  });
   await tagRevision(t.sequelize, { model, revision, author: roles.members.editor, name: 'maiden' });
   return { workspaceId: workspace.id, modelId: model.id, firstId: revision.id, latestId: latest.id };
 }
@@ -40,29 +50,98 @@ interface GuardedRoute {
 }
 
 const routes: GuardedRoute[] = [
-  { name: 'GET /api/workspaces/:ws/models', minimum: 'viewer', call: (c, s) => c.get(`/api/workspaces/${s.workspaceId}/models`) },
+  {
+    name: 'GET /api/workspaces/:ws/models',
+    minimum: 'viewer',
+    call: (c, s) => c.get(`/api/workspaces/${s.workspaceId}/models`),
+  },
   { name: 'GET /api/models/:id', minimum: 'viewer', call: (c, s) => c.get(`/api/models/${s.modelId}`) },
-  { name: 'GET /api/models/:id/revisions', minimum: 'viewer', call: (c, s) => c.get(`/api/models/${s.modelId}/revisions`) },
-  { name: 'GET /api/models/:id/revisions/:number', minimum: 'viewer', call: (c, s) => c.get(`/api/models/${s.modelId}/revisions/1`) },
+  {
+    name: 'GET /api/models/:id/revisions',
+    minimum: 'viewer',
+    call: (c, s) => c.get(`/api/models/${s.modelId}/revisions`),
+  },
+  {
+    name: 'GET /api/models/:id/revisions/:number',
+    minimum: 'viewer',
+    call: (c, s) => c.get(`/api/models/${s.modelId}/revisions/1`),
+  },
   { name: 'GET /api/revisions/:id', minimum: 'viewer', call: (c, s) => c.get(`/api/revisions/${s.latestId}`) },
-  { name: 'GET /api/revisions/:id?format=yaml', minimum: 'viewer', call: (c, s) => c.get(`/api/revisions/${s.latestId}?format=yaml&download=1`) },
-  { name: 'GET /api/revisions/:id/patch', minimum: 'viewer', call: (c, s) => c.get(`/api/revisions/${s.latestId}/patch?from=${s.firstId}`) },
-  { name: 'GET /api/compare', minimum: 'viewer', call: (c, s) => c.get(`/api/compare?from=${s.firstId}&to=${s.latestId}`) },
-  { name: 'POST /api/workspaces/:ws/models', minimum: 'editor', call: (c, s) => c.post(`/api/workspaces/${s.workspaceId}/models`, { name: 'New' }) },
-  { name: 'POST /api/workspaces/:ws/models/upload', minimum: 'editor', call: (c, s) => c.upload(`/api/workspaces/${s.workspaceId}/models/upload`, TRAINER(), {}) },
-  { name: 'PATCH /api/models/:id', minimum: 'editor', call: (c, s) => c.patch(`/api/models/${s.modelId}`, { name: 'Renamed' }) },
-  { name: 'POST /api/models/:id/revisions', minimum: 'editor', call: (c, s) => c.post(`/api/models/${s.modelId}/revisions`, { base: 2, yaml: TRAINER() }) },
-  { name: 'POST /api/models/:id/upload', minimum: 'editor', call: (c, s) => c.upload(`/api/models/${s.modelId}/upload`, TRAINER(), {}, { base: 2 }) },
-  { name: 'POST /api/models/:id/revert', minimum: 'editor', call: (c, s) => c.post(`/api/models/${s.modelId}/revert`, { number: 1, base: 2 }) },
-  { name: 'POST /api/models/:id/fork', minimum: 'editor', call: (c, s) => c.post(`/api/models/${s.modelId}/fork`, { number: 1, workspace: s.workspaceId }) },
-  { name: 'POST /api/revisions/:id/tags', minimum: 'editor', call: (c, s) => c.post(`/api/revisions/${s.latestId}/tags`, { name: 'season-2026' }) },
-  { name: 'DELETE /api/revisions/:id/tags/:name', minimum: 'editor', call: (c, s) => c.delete(`/api/revisions/${s.firstId}/tags/maiden`) },
-  { name: 'GET /api/workspaces/:ws/audit', minimum: 'owner', call: (c, s) => c.get(`/api/workspaces/${s.workspaceId}/audit`) },
+  {
+    name: 'GET /api/revisions/:id?format=yaml',
+    minimum: 'viewer',
+    call: (c, s) => c.get(`/api/revisions/${s.latestId}?format=yaml&download=1`),
+  },
+  {
+    name: 'GET /api/revisions/:id/patch',
+    minimum: 'viewer',
+    call: (c, s) => c.get(`/api/revisions/${s.latestId}/patch?from=${s.firstId}`),
+  },
+  {
+    name: 'GET /api/compare',
+    minimum: 'viewer',
+    call: (c, s) => c.get(`/api/compare?from=${s.firstId}&to=${s.latestId}`),
+  },
+  {
+    name: 'POST /api/workspaces/:ws/models',
+    minimum: 'editor',
+    call: (c, s) => c.post(`/api/workspaces/${s.workspaceId}/models`, { name: 'New' }),
+  },
+  {
+    name: 'POST /api/workspaces/:ws/models/upload',
+    minimum: 'editor',
+    call: (c, s) => c.upload(`/api/workspaces/${s.workspaceId}/models/upload`, TRAINER(), {}),
+  },
+  {
+    name: 'PATCH /api/models/:id',
+    minimum: 'editor',
+    call: (c, s) => c.patch(`/api/models/${s.modelId}`, { name: 'Renamed' }),
+  },
+  {
+    name: 'POST /api/models/:id/revisions',
+    minimum: 'editor',
+    call: (c, s) => c.post(`/api/models/${s.modelId}/revisions`, { base: 2, yaml: TRAINER() }),
+  },
+  {
+    name: 'POST /api/models/:id/upload',
+    minimum: 'editor',
+    call: (c, s) => c.upload(`/api/models/${s.modelId}/upload`, TRAINER(), {}, { base: 2 }),
+  },
+  {
+    name: 'POST /api/models/:id/revert',
+    minimum: 'editor',
+    call: (c, s) => c.post(`/api/models/${s.modelId}/revert`, { number: 1, base: 2 }),
+  },
+  {
+    name: 'POST /api/models/:id/fork',
+    minimum: 'editor',
+    call: (c, s) => c.post(`/api/models/${s.modelId}/fork`, { number: 1, workspace: s.workspaceId }),
+  },
+  {
+    name: 'POST /api/revisions/:id/tags',
+    minimum: 'editor',
+    call: (c, s) => c.post(`/api/revisions/${s.latestId}/tags`, { name: 'season-2026' }),
+  },
+  {
+    name: 'DELETE /api/revisions/:id/tags/:name',
+    minimum: 'editor',
+    call: (c, s) => c.delete(`/api/revisions/${s.firstId}/tags/maiden`),
+  },
+  {
+    name: 'GET /api/workspaces/:ws/audit',
+    minimum: 'owner',
+    call: (c, s) => c.get(`/api/workspaces/${s.workspaceId}/audit`),
+  },
 ];
 
 const ROLE_ORDER: Role[] = ['viewer', 'reviewer', 'editor', 'owner'];
 const matrix = routes.flatMap((route) =>
-  ROLE_ORDER.map((role) => ({ route: route.name, role, allowed: ROLE_ORDER.indexOf(role) >= ROLE_ORDER.indexOf(route.minimum), call: route.call })),
+  ROLE_ORDER.map((role) => ({
+    route: route.name,
+    role,
+    allowed: ROLE_ORDER.indexOf(role) >= ROLE_ORDER.indexOf(route.minimum),
+    call: route.call,
+  })),
 );
 
 describe('the role matrix of models and revisions', () => {

@@ -37,7 +37,12 @@ export interface Client {
   patch(url: string, body?: object): request.Test;
   delete(url: string): request.Test;
   /** A multipart upload of `text` as field `file`, plus form fields. */
-  upload(url: string, text: string | Buffer, file: { name?: string; type?: string }, fields?: Record<string, string | number>): request.Test;
+  upload(
+    url: string,
+    text: string | Buffer,
+    file: { name?: string; type?: string },
+    fields?: Record<string, string | number>,
+  ): request.Test;
 }
 
 export function clientFor(app: Express, config: AppConfig, user: User): Client {
@@ -46,14 +51,25 @@ export function clientFor(app: Express, config: AppConfig, user: User): Client {
     user,
     headers,
     get: (url) => request(app).get(url).set(headers),
-    post: (url, body) => request(app).post(url).set(headers).send(body ?? {}),
-    patch: (url, body) => request(app).patch(url).set(headers).send(body ?? {}),
+    post: (url, body) =>
+      request(app)
+        .post(url)
+        .set(headers)
+        .send(body ?? {}),
+    patch: (url, body) =>
+      request(app)
+        .patch(url)
+        .set(headers)
+        .send(body ?? {}),
     delete: (url) => request(app).delete(url).set(headers),
     upload: (url, text, file, fields = {}) => {
       let test = request(app).post(url).set(headers);
       for (const [key, value] of Object.entries(fields)) test = test.field(key, String(value));
       const buffer = typeof text === 'string' ? Buffer.from(text, 'utf8') : text;
-      return test.attach('file', buffer, { filename: file.name ?? 'setup.yaml', contentType: file.type ?? 'application/yaml' });
+      return test.attach('file', buffer, {
+        filename: file.name ?? 'setup.yaml',
+        contentType: file.type ?? 'application/yaml',
+      });
     },
   };
 }
@@ -63,7 +79,11 @@ export interface CreatedModel {
   revision: { id: string; number: number; content_hash: string; [key: string]: unknown };
 }
 
-export async function createModelVia(client: Client, workspaceId: string, body: { name: string; yaml?: string; message?: string }): Promise<CreatedModel> {
+export async function createModelVia(
+  client: Client,
+  workspaceId: string,
+  body: { name: string; yaml?: string; message?: string },
+): Promise<CreatedModel> {
   const response = await client.post(`/api/workspaces/${workspaceId}/models`, body);
   expect(response.status, JSON.stringify(response.body)).toBe(201);
   return response.body.data as CreatedModel;

@@ -42,8 +42,13 @@ describe('password reset by e-mail', () => {
     await request(t.app).get('/api/me').set(bearer(before.token)).expect(200);
 
     const token = await resetToken(pilot);
-    expect((await request(t.app).get(`/api/auth/password-reset/${token}`).expect(200)).body.data.email).toBe(pilot.email);
-    const reset = await request(t.app).post(`/api/auth/password-reset/${token}`).send({ password: NEW_PASSWORD }).expect(200);
+    expect((await request(t.app).get(`/api/auth/password-reset/${token}`).expect(200)).body.data.email).toBe(
+      pilot.email,
+    );
+    const reset = await request(t.app)
+      .post(`/api/auth/password-reset/${token}`)
+      .send({ password: NEW_PASSWORD })
+      .expect(200);
     expect(String(reset.headers['set-cookie'])).toMatch(/bindery_session=/);
 
     const old = await request(t.app).get('/api/me').set(bearer(before.token)).expect(401);
@@ -59,9 +64,19 @@ describe('password reset by e-mail', () => {
     const first = await resetToken(pilot);
     const second = await resetToken(pilot);
     await request(t.app).post(`/api/auth/password-reset/${first}`).send({ password: NEW_PASSWORD }).expect(200);
-    const reused = await request(t.app).post(`/api/auth/password-reset/${first}`).send({ password: 'another-password-9' }).expect(410);
+    const reused = await request(t.app)
+      .post(`/api/auth/password-reset/${first}`)
+      .send({ password: 'another-password-9' })
+      .expect(410);
     expect(reused.body.error.code).toBe('token-used');
-    expect((await request(t.app).post(`/api/auth/password-reset/${second}`).send({ password: 'another-password-9' }).expect(410)).body.error.code).toBe('token-used');
+    expect(
+      (
+        await request(t.app)
+          .post(`/api/auth/password-reset/${second}`)
+          .send({ password: 'another-password-9' })
+          .expect(410)
+      ).body.error.code,
+    ).toBe('token-used');
     await signIn(t.app, pilot.email, NEW_PASSWORD);
   });
 
@@ -69,11 +84,21 @@ describe('password reset by e-mail', () => {
     const token = await resetToken(pilot);
     const { jti } = jwt.decode(token) as { jti: string };
     const now = Math.floor(Date.now() / 1000);
-    const expired = jwt.sign({ exp: now - 1, iat: now - 3600 }, t.config.jwtSecret, { algorithm: 'HS256', audience: 'bindery:password-reset', jwtid: jti });
-    expect((await request(t.app).post(`/api/auth/password-reset/${expired}`).send({ password: NEW_PASSWORD }).expect(401)).body.error.code).toBe('token-expired');
+    const expired = jwt.sign({ exp: now - 1, iat: now - 3600 }, t.config.jwtSecret, {
+      algorithm: 'HS256',
+      audience: 'bindery:password-reset',
+      jwtid: jti,
+    });
+    expect(
+      (await request(t.app).post(`/api/auth/password-reset/${expired}`).send({ password: NEW_PASSWORD }).expect(401))
+        .body.error.code,
+    ).toBe('token-expired');
 
     await PasswordReset.update({ expiresAt: new Date(Date.now() - 1000) }, { where: { id: jti } });
-    expect((await request(t.app).post(`/api/auth/password-reset/${token}`).send({ password: NEW_PASSWORD }).expect(401)).body.error.code).toBe('token-expired');
+    expect(
+      (await request(t.app).post(`/api/auth/password-reset/${token}`).send({ password: NEW_PASSWORD }).expect(401)).body
+        .error.code,
+    ).toBe('token-expired');
     await signIn(t.app, pilot.email, TEST_PASSWORD);
   });
 
@@ -88,14 +113,37 @@ describe('password reset by e-mail', () => {
   it('refuses a tampered link or an invitation token', async () => {
     const token = await resetToken(pilot);
     const { jti } = jwt.decode(token) as { jti: string };
-    const invitationKind = jwt.sign({}, t.config.jwtSecret, { algorithm: 'HS256', audience: 'bindery:invitation', jwtid: jti, expiresIn: 600 });
-    expect((await request(t.app).post(`/api/auth/password-reset/${invitationKind}`).send({ password: NEW_PASSWORD }).expect(401)).body.error.code).toBe('invalid-token');
-    const forged = jwt.sign({}, 'a-different-secret-that-is-long-enough!!', { algorithm: 'HS256', audience: 'bindery:password-reset', jwtid: jti, expiresIn: 600 });
-    expect((await request(t.app).post(`/api/auth/password-reset/${forged}`).send({ password: NEW_PASSWORD }).expect(401)).body.error.code).toBe('invalid-token');
+    const invitationKind = jwt.sign({}, t.config.jwtSecret, {
+      algorithm: 'HS256',
+      audience: 'bindery:invitation',
+      jwtid: jti,
+      expiresIn: 600,
+    });
+    expect(
+      (
+        await request(t.app)
+          .post(`/api/auth/password-reset/${invitationKind}`)
+          .send({ password: NEW_PASSWORD })
+          .expect(401)
+      ).body.error.code,
+    ).toBe('invalid-token');
+    const forged = jwt.sign({}, 'a-different-secret-that-is-long-enough!!', {
+      algorithm: 'HS256',
+      audience: 'bindery:password-reset',
+      jwtid: jti,
+      expiresIn: 600,
+    });
+    expect(
+      (await request(t.app).post(`/api/auth/password-reset/${forged}`).send({ password: NEW_PASSWORD }).expect(401))
+        .body.error.code,
+    ).toBe('invalid-token');
   });
 
   it('refuses a request without a valid address (400) and sends nothing', async () => {
-    const response = await request(t.app).post('/api/auth/password-reset').send({ email: 'pilot at field' }).expect(400);
+    const response = await request(t.app)
+      .post('/api/auth/password-reset')
+      .send({ email: 'pilot at field' })
+      .expect(400);
     expect(response.body.error.details.fields.email).toBeDefined();
   });
 

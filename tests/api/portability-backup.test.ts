@@ -41,7 +41,10 @@ async function withClient<T>(work: (client: pg.Client) => Promise<T>): Promise<T
   }
 }
 
-const workspaceNames = () => withClient(async (client) => (await client.query<{ name: string }>('SELECT name FROM workspaces ORDER BY name')).rows.map((row) => row.name));
+const workspaceNames = () =>
+  withClient(async (client) =>
+    (await client.query<{ name: string }>('SELECT name FROM workspaces ORDER BY name')).rows.map((row) => row.name),
+  );
 
 describe('npm run backup and npm run restore', () => {
   it('backs up, refuses to restore without --yes or under another connection, and restores everything as it was', async () => {
@@ -72,7 +75,13 @@ describe('npm run backup and npm run restore', () => {
     expect(restored.code).toBe(0);
     expect(await workspaceNames()).toEqual(['Before the backup']);
     // The schema came back whole: the trigger that keeps revisions immutable and the migration record.
-    const triggers = await withClient(async (client) => (await client.query<{ tgname: string }>("SELECT tgname FROM pg_trigger WHERE tgname LIKE 'revisions_%' ORDER BY tgname")).rows.map((row) => row.tgname));
+    const triggers = await withClient(async (client) =>
+      (
+        await client.query<{ tgname: string }>(
+          "SELECT tgname FROM pg_trigger WHERE tgname LIKE 'revisions_%' ORDER BY tgname",
+        )
+      ).rows.map((row) => row.tgname),
+    );
     expect(triggers).toEqual(['revisions_immutable', 'revisions_no_truncate', 'revisions_sequence']);
   });
 

@@ -60,7 +60,12 @@ function cloneBundle(bundle: Buffer, name: string): string {
 }
 
 const importBundle = (client: Client, workspaceId: string, bundle: Buffer, fields: Record<string, string> = {}) =>
-  client.upload(`/api/workspaces/${workspaceId}/import`, bundle, { name: 'history.bundle', type: 'application/octet-stream' }, fields);
+  client.upload(
+    `/api/workspaces/${workspaceId}/import`,
+    bundle,
+    { name: 'history.bundle', type: 'application/octet-stream' },
+    fields,
+  );
 
 interface Built {
   modelId: string;
@@ -70,7 +75,9 @@ interface Built {
 /** A model with a history that tests every corner the export has to keep. */
 async function buildHistory(client: Client, workspaceId: string, name: string): Promise<Built> {
   const first = TRAINER();
-  const created = await client.post(`/api/workspaces/${workspaceId}/models`, { name, yaml: first, message: 'Maiden setup from the club sheet' }).expect(201);
+  const created = await client
+    .post(`/api/workspaces/${workspaceId}/models`, { name, yaml: first, message: 'Maiden setup from the club sheet' })
+    .expect(201);
   const modelId = created.body.data.model.id as string;
   const messages = ['Maiden setup from the club sheet'];
   const save = async (yaml: string, message: string) => {
@@ -84,7 +91,10 @@ async function buildHistory(client: Client, workspaceId: string, name: string): 
   await save(GLIDER(), 'Tried the glider layout <b>for fun</b>');
   await client.post(`/api/models/${modelId}/revert`, { number: 2, base: 4, message: 'Back to revision 2' }).expect(201);
   messages.push('Back to revision 2');
-  const revisions = (await client.get(`/api/models/${modelId}/revisions?limit=100`).expect(200)).body.data as { id: string; number: number }[];
+  const revisions = (await client.get(`/api/models/${modelId}/revisions?limit=100`).expect(200)).body.data as {
+    id: string;
+    number: number;
+  }[];
   const byNumber = new Map(revisions.map((revision) => [revision.number, revision.id]));
   await client.post(`/api/revisions/${byNumber.get(1)}/tags`, { name: 'maiden' }).expect(201);
   await client.post(`/api/revisions/${byNumber.get(5)}/tags`, { name: 'season-2026' }).expect(201);
@@ -101,7 +111,13 @@ const historyOf = async (modelId: string) =>
   }));
 
 const tagsOf = async (modelId: string) =>
-  (await Tag.findAll({ where: { modelId }, include: [{ model: Revision, as: 'revision', attributes: ['number'] }], order: [['name', 'ASC']] })).map((tag) => [tag.name, tag.revision!.number]);
+  (
+    await Tag.findAll({
+      where: { modelId },
+      include: [{ model: Revision, as: 'revision', attributes: ['number'] }],
+      order: [['name', 'ASC']],
+    })
+  ).map((tag) => [tag.name, tag.revision!.number]);
 
 describe('a model’s history as a git bundle', () => {
   let built: Built;
@@ -109,7 +125,10 @@ describe('a model’s history as a git bundle', () => {
 
   beforeAll(async () => {
     built = await buildHistory(editor, roles.workspace.id, 'Tern "1800" / club');
-    const answer = await download(clientFor(t.app, t.config, roles.members.viewer), `/api/models/${built.modelId}/export.git`);
+    const answer = await download(
+      clientFor(t.app, t.config, roles.members.viewer),
+      `/api/models/${built.modelId}/export.git`,
+    );
     bundle = answer.bundle;
     expect(answer.response.headers['content-disposition']).toBe('attachment; filename=tern-1800-club.bundle');
   });
@@ -121,14 +140,28 @@ describe('a model’s history as a git bundle', () => {
     expect(log).toHaveLength(5);
     log.forEach((line, index) => {
       const [name, email, time] = line.split('|');
-      expect({ name, email, time: Number(time) }).toEqual({ name: roles.members.editor.name, email: roles.members.editor.email, time: stored[index].seconds });
+      expect({ name, email, time: Number(time) }).toEqual({
+        name: roles.members.editor.name,
+        email: roles.members.editor.email,
+        time: stored[index].seconds,
+      });
     });
-    expect(log.map((line) => line.split('|')[3])).toEqual(['Maiden setup from the club sheet', 'Renamed after the rebuild', 'Revision 3', 'Tried the glider layout <b>for fun</b>', 'Back to revision 2']);
+    expect(log.map((line) => line.split('|')[3])).toEqual([
+      'Maiden setup from the club sheet',
+      'Renamed after the rebuild',
+      'Revision 3',
+      'Tried the glider layout <b>for fun</b>',
+      'Back to revision 2',
+    ]);
     expect(readFileSync(path.join(clone, 'setup.yaml'), 'utf8')).toBe(stored[4].yamlText);
     expect(git(clone, 'show', 'HEAD~2:setup.yaml')).toBe(stored[2].yamlText);
     expect(git(clone, 'tag', '--list').trim().split('\n')).toEqual(['maiden', 'season-2026']);
-    expect(git(clone, 'rev-list', '-n', '1', 'maiden').trim()).toBe(git(clone, 'rev-list', '--max-parents=0', 'HEAD').trim());
-    expect(git(clone, 'log', '-1', '--format=%B', 'HEAD~3')).toContain(`Bindery-Content-Hash: ${stored[1].contentHash}`);
+    expect(git(clone, 'rev-list', '-n', '1', 'maiden').trim()).toBe(
+      git(clone, 'rev-list', '--max-parents=0', 'HEAD').trim(),
+    );
+    expect(git(clone, 'log', '-1', '--format=%B', 'HEAD~3')).toContain(
+      `Bindery-Content-Hash: ${stored[1].contentHash}`,
+    );
   });
 
   it('is the same bundle every time: the history decides the commit ids', async () => {
@@ -139,18 +172,27 @@ describe('a model’s history as a git bundle', () => {
   it('imports as a new model with the same revisions in order: texts, content hashes, messages, times and tags', async () => {
     const response = await importBundle(outsider, roles.otherWorkspace.id, bundle).expect(201);
     const [result] = response.body.data.models;
-    expect(result).toMatchObject({ model: { name: 'Tern "1800" / club', workspace_id: roles.otherWorkspace.id }, revisions: 5, tags: 2, hash_mismatches: [] });
+    expect(result).toMatchObject({
+      model: { name: 'Tern "1800" / club', workspace_id: roles.otherWorkspace.id },
+      revisions: 5,
+      tags: 2,
+      hash_mismatches: [],
+    });
     const original = await historyOf(built.modelId);
     const imported = await historyOf(result.model.id);
     expect(imported).toEqual(original);
     expect(imported.map((revision) => revision.message)).toEqual(built.messages);
     expect(await tagsOf(result.model.id)).toEqual(await tagsOf(built.modelId));
     const authors = await Revision.findAll({ where: { modelId: result.model.id }, attributes: ['authorId', 'origin'] });
-    expect(new Set(authors.map((revision) => `${revision.authorId}/${revision.origin}`))).toEqual(new Set([`${roles.outsider.id}/upload`]));
+    expect(new Set(authors.map((revision) => `${revision.authorId}/${revision.origin}`))).toEqual(
+      new Set([`${roles.outsider.id}/upload`]),
+    );
   });
 
   it('takes a name for the new model from the form', async () => {
-    const response = await importBundle(editor, roles.workspace.id, bundle, { name: 'Tern, second airframe' }).expect(201);
+    const response = await importBundle(editor, roles.workspace.id, bundle, { name: 'Tern, second airframe' }).expect(
+      201,
+    );
     expect(response.body.data.models[0].model.name).toBe('Tern, second airframe');
   });
 });
@@ -160,7 +202,13 @@ describe('a whole workspace as a git bundle', () => {
     const workspace = roles.otherWorkspace.id;
     await buildHistory(outsider, workspace, 'Ridge Runner');
     await buildHistory(outsider, workspace, 'Ridge Runner');
-    const before = await SetupModel.findAll({ where: { workspaceId: workspace }, order: [['createdAt', 'ASC'], ['id', 'ASC']] });
+    const before = await SetupModel.findAll({
+      where: { workspaceId: workspace },
+      order: [
+        ['createdAt', 'ASC'],
+        ['id', 'ASC'],
+      ],
+    });
     const { bundle, response } = await download(outsider, `/api/workspaces/${workspace}/export.git`);
     expect(response.headers['content-disposition']).toBe('attachment; filename=elsewhere-workspace.bundle');
 
@@ -168,17 +216,35 @@ describe('a whole workspace as a git bundle', () => {
     const folders = git(clone, 'ls-tree', '--name-only', 'HEAD').trim().split('\n');
     expect(folders).toContain('ridge-runner');
     expect(folders).toContain('ridge-runner-2');
-    expect(git(clone, 'tag', '--list', 'ridge-runner*').trim().split('\n')).toEqual(['ridge-runner-2/maiden', 'ridge-runner-2/season-2026', 'ridge-runner/maiden', 'ridge-runner/season-2026']);
+    expect(git(clone, 'tag', '--list', 'ridge-runner*').trim().split('\n')).toEqual([
+      'ridge-runner-2/maiden',
+      'ridge-runner-2/season-2026',
+      'ridge-runner/maiden',
+      'ridge-runner/season-2026',
+    ]);
     const total = (await Revision.count({ where: { modelId: before.map((model) => model.id) } })) as number;
     expect(Number(git(clone, 'rev-list', '--count', 'HEAD').trim())).toBe(total);
     const times = git(clone, 'log', '--reverse', '--format=%at').trim().split('\n').map(Number);
     expect([...times].sort((x, y) => x - y)).toEqual(times);
 
-    const imported = (await importBundle(editor, roles.workspace.id, bundle).expect(201)).body.data.models as { model: { id: string; name: string }; revisions: number }[];
+    const imported = (await importBundle(editor, roles.workspace.id, bundle).expect(201)).body.data.models as {
+      model: { id: string; name: string };
+      revisions: number;
+    }[];
     expect(imported).toHaveLength(before.length);
-    const originalHashes = await Promise.all(before.map(async (model) => (await historyOf(model.id)).map(({ contentHash, message }) => [contentHash, message])));
-    const importedHashes = await Promise.all(imported.map(async ({ model }) => (await historyOf(model.id)).map(({ contentHash, message }) => [contentHash, message])));
-    expect(new Set(importedHashes.map((entry) => JSON.stringify(entry)))).toEqual(new Set(originalHashes.map((entry) => JSON.stringify(entry))));
+    const originalHashes = await Promise.all(
+      before.map(async (model) =>
+        (await historyOf(model.id)).map(({ contentHash, message }) => [contentHash, message]),
+      ),
+    );
+    const importedHashes = await Promise.all(
+      imported.map(async ({ model }) =>
+        (await historyOf(model.id)).map(({ contentHash, message }) => [contentHash, message]),
+      ),
+    );
+    expect(new Set(importedHashes.map((entry) => JSON.stringify(entry)))).toEqual(
+      new Set(originalHashes.map((entry) => JSON.stringify(entry))),
+    );
     expect(imported.map(({ model }) => model.name).sort()).toEqual(before.map((model) => model.name).sort());
   });
 });
@@ -208,7 +274,11 @@ describe('a repository kept by hand', () => {
     git(repo, 'tag', 'Not_A_Slug', 'HEAD');
     git(repo, 'bundle', 'create', '--quiet', path.join(folder, 'by-hand.bundle'), '--all');
 
-    const response = await importBundle(editor, roles.workspace.id, readFileSync(path.join(folder, 'by-hand.bundle'))).expect(201);
+    const response = await importBundle(
+      editor,
+      roles.workspace.id,
+      readFileSync(path.join(folder, 'by-hand.bundle')),
+    ).expect(201);
     const [result] = response.body.data.models;
     expect(result).toMatchObject({ revisions: 2, tags: 1 });
     const history = await historyOf(result.model.id);
@@ -225,7 +295,11 @@ describe('refusals', () => {
     const before = await SetupModel.count();
     const notBundle = await importBundle(editor, roles.workspace.id, Buffer.from('model: {name: x}\n')).expect(415);
     expect(notBundle.body.error.code).toBe('not-a-git-bundle');
-    const truncated = await importBundle(editor, roles.workspace.id, Buffer.from('# v2 git bundle\nabc refs/heads/main\n\nPACKgarbage')).expect(422);
+    const truncated = await importBundle(
+      editor,
+      roles.workspace.id,
+      Buffer.from('# v2 git bundle\nabc refs/heads/main\n\nPACKgarbage'),
+    ).expect(422);
     expect(truncated.body.error.code).toBe('not-a-git-bundle');
 
     const repo = path.join(folder, 'broken');
@@ -236,7 +310,11 @@ describe('refusals', () => {
     writeFileSync(path.join(repo, 'setup.yaml'), 'model: [unclosed\n');
     git(repo, 'commit', '--quiet', '-am', 'broken');
     git(repo, 'bundle', 'create', '--quiet', path.join(folder, 'broken.bundle'), '--all');
-    const unreadable = await importBundle(editor, roles.workspace.id, readFileSync(path.join(folder, 'broken.bundle'))).expect(422);
+    const unreadable = await importBundle(
+      editor,
+      roles.workspace.id,
+      readFileSync(path.join(folder, 'broken.bundle')),
+    ).expect(422);
     expect(unreadable.body.error).toMatchObject({ code: 'unreadable-setup', details: { revision: 2 } });
     expect(unreadable.body.error.message).toContain('revision 2');
 
@@ -246,7 +324,10 @@ describe('refusals', () => {
     git(empty, 'add', 'readme.txt');
     git(empty, 'commit', '--quiet', '-m', 'readme');
     git(empty, 'bundle', 'create', '--quiet', path.join(folder, 'no-setup.bundle'), '--all');
-    expect((await importBundle(editor, roles.workspace.id, readFileSync(path.join(folder, 'no-setup.bundle'))).expect(422)).body.error.code).toBe('no-setup-in-history');
+    expect(
+      (await importBundle(editor, roles.workspace.id, readFileSync(path.join(folder, 'no-setup.bundle'))).expect(422))
+        .body.error.code,
+    ).toBe('no-setup-in-history');
 
     await editor.post(`/api/workspaces/${roles.workspace.id}/import`, { file: 'x' }).expect(415);
     expect(await SetupModel.count()).toBe(before);
@@ -273,6 +354,9 @@ describe('commit messages', () => {
     ['trailing blank lines', 'Spaced\n\n\n'],
   ])('round-trips %s exactly', (_label, message) => {
     const formatted = formatCommitMessage(message, { modelName: 'Kite', number: 3, contentHash: 'ab'.repeat(32) });
-    expect(parseCommitMessage(formatted)).toEqual({ message, trailers: { folder: undefined, modelName: 'Kite', number: 3, contentHash: 'ab'.repeat(32) } });
+    expect(parseCommitMessage(formatted)).toEqual({
+      message,
+      trailers: { folder: undefined, modelName: 'Kite', number: 3, contentHash: 'ab'.repeat(32) },
+    });
   });
 });

@@ -14,8 +14,10 @@ beforeAll(async () => {
 });
 
 // Each test builds its own app so the limiters' counters start at zero.
-const limitedApp = (perAccount: number, perAddress: number) => t.appWith({ signInLimits: { windowMs: 60_000, perAccount, perAddress } }).app;
-const attempt = (app: Parameters<typeof request>[0], email: string, password: string) => request(app).post('/api/auth/sign-in').send({ email, password });
+const limitedApp = (perAccount: number, perAddress: number) =>
+  t.appWith({ signInLimits: { windowMs: 60_000, perAccount, perAddress } }).app;
+const attempt = (app: Parameters<typeof request>[0], email: string, password: string) =>
+  request(app).post('/api/auth/sign-in').send({ email, password });
 
 describe('sign-in rate limits', () => {
   it('locks one account after its allowed failures, even for the right password', async () => {

@@ -13,7 +13,10 @@ beforeAll(async () => {
   await seedDemo(t.sequelize);
   const workspace = (await Workspace.findOne({ where: { name: DEMO_WORKSPACE_NAME } }))!;
   workspaceId = workspace.id;
-  const membership = (await Membership.findOne({ where: { workspaceId, role: 'viewer' }, include: [{ model: User, as: 'user' }] }))!;
+  const membership = (await Membership.findOne({
+    where: { workspaceId, role: 'viewer' },
+    include: [{ model: User, as: 'user' }],
+  }))!;
   viewer = clientFor(t.app, t.config, membership.user!);
 });
 
@@ -27,8 +30,15 @@ describe('the demo shelf', () => {
       readiness: { state: string } | null;
     }[];
     const byLabel = Object.fromEntries(units.map((unit) => [unit.label, unit]));
-    expect(byLabel['Kestrel fuselage unit']).toMatchObject({ mark: 'Blue tape', installed: { model: { name: 'Kestrel Mk II' }, slot: 'fuselage' }, readiness: { state: 'ready' } });
-    expect(byLabel['Meadowlark cabin unit']).toMatchObject({ installed: { model: { name: 'Meadowlark 40' }, slot: 'cabin' }, readiness: { state: 'ready' } });
+    expect(byLabel['Kestrel fuselage unit']).toMatchObject({
+      mark: 'Blue tape',
+      installed: { model: { name: 'Kestrel Mk II' }, slot: 'fuselage' },
+      readiness: { state: 'ready' },
+    });
+    expect(byLabel['Meadowlark cabin unit']).toMatchObject({
+      installed: { model: { name: 'Meadowlark 40' }, slot: 'cabin' },
+      readiness: { state: 'ready' },
+    });
     expect(byLabel['Pipit trainer unit']).toMatchObject({ mark: 'Yellow dot', status: 'free' });
     expect(units.filter((unit) => unit.mark).length).toBeGreaterThanOrEqual(3);
   });
@@ -36,7 +46,9 @@ describe('the demo shelf', () => {
   it('offers the trainer unit to the Kestrel’s empty wing slot with its throttle failsafe to change', async () => {
     const kestrel = (await SetupModel.findOne({ where: { workspaceId, name: 'Kestrel Mk II' } }))!;
     const units = (await viewer.get(`/api/workspaces/${workspaceId}/receivers?q=pipit`).expect(200)).body.data;
-    const check = (await viewer.get(`/api/receivers/${units[0].id}/reuse-check?model=${kestrel.id}&slot=wing`).expect(200)).body.data;
+    const check = (
+      await viewer.get(`/api/receivers/${units[0].id}/reuse-check?model=${kestrel.id}&slot=wing`).expect(200)
+    ).body.data;
     expect(check).toMatchObject({ ready: false, holder: null });
     expect(check.changes).toContainEqual(expect.objectContaining({ pin: 3, setting: 'failsafe', from: 988 }));
     expect(check.changes).toContainEqual(expect.objectContaining({ setting: 'telemetry', from: true, to: false }));
@@ -46,7 +58,11 @@ describe('the demo shelf', () => {
     const units = (await viewer.get(`/api/workspaces/${workspaceId}/receivers?q=fuselage`).expect(200)).body.data;
     const { installs, events } = (await viewer.get(`/api/receivers/${units[0].id}/history`).expect(200)).body.data;
     expect(installs).toHaveLength(1);
-    expect(events.map((event: { action: string }) => event.action)).toEqual(['receiver.settings-applied', 'receiver.installed', 'receiver.added']);
+    expect(events.map((event: { action: string }) => event.action)).toEqual([
+      'receiver.settings-applied',
+      'receiver.installed',
+      'receiver.added',
+    ]);
     // Installed against the revision that was the Kestrel's latest on the day, not today's.
     expect(events[1].details.revision_number).toBe(1);
   });

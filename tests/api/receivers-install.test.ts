@@ -29,7 +29,8 @@ async function newModel(name: string, yaml = SCALE()): Promise<ModelRef> {
   return { id: created.model.id, revisionId: created.revision.id };
 }
 
-const install = (id: string, body: Record<string, unknown>, client = editor) => client.post(`/api/receivers/${id}/install`, body);
+const install = (id: string, body: Record<string, unknown>, client = editor) =>
+  client.post(`/api/receivers/${id}/install`, body);
 const history = async (id: string) => (await editor.get(`/api/receivers/${id}/history`).expect(200)).body.data;
 
 beforeAll(async () => {
@@ -49,13 +50,32 @@ describe('POST /api/receivers/:id/install', () => {
       installed_here: true,
       revision: { id: kestrel.revisionId, number: 1 },
       slot: { id: 'wing' },
-      receiver: { id, status: 'installed', installed: { model: { id: kestrel.id, name: 'Kestrel Mk II' }, slot: 'wing' }, readiness: { state: 'changes', changes: 13 } },
-      install: { receiver_id: id, model: { id: kestrel.id }, slot: 'wing', revision_id: kestrel.revisionId, to: null, installed_by: { id: roles.members.editor.id } },
+      receiver: {
+        id,
+        status: 'installed',
+        installed: { model: { id: kestrel.id, name: 'Kestrel Mk II' }, slot: 'wing' },
+        readiness: { state: 'changes', changes: 13 },
+      },
+      install: {
+        receiver_id: id,
+        model: { id: kestrel.id },
+        slot: 'wing',
+        revision_id: kestrel.revisionId,
+        to: null,
+        installed_by: { id: roles.members.editor.id },
+      },
       moved_from: null,
     });
     expect(data.changes).toHaveLength(13);
     const [event] = await AuditEvent.findAll({ where: { subjectId: id, action: 'receiver.installed' } });
-    expect(event.details).toMatchObject({ model_id: kestrel.id, slot: 'wing', revision_number: 1, ready: false, changes: 13, moved_from: null });
+    expect(event.details).toMatchObject({
+      model_id: kestrel.id,
+      slot: 'wing',
+      revision_number: 1,
+      ready: false,
+      changes: 13,
+      moved_from: null,
+    });
   });
 
   it('refuses a unit still installed elsewhere with 409 installed-elsewhere, and changes nothing', async () => {
@@ -87,7 +107,10 @@ describe('POST /api/receivers/:id/install', () => {
     const model = await createModelVia(editor, roles.workspace.id, { name: 'Crowded', yaml: SCALE() });
     await install(first, { model: model.model.id, slot: 'fuselage' }).expect(201);
     const response = await install(second, { model: model.model.id, slot: 'fuselage' }).expect(409);
-    expect(response.body.error).toMatchObject({ code: 'slot-occupied', details: { slot: 'fuselage', receiver: { id: first, label: 'First in' } } });
+    expect(response.body.error).toMatchObject({
+      code: 'slot-occupied',
+      details: { slot: 'fuselage', receiver: { id: first, label: 'First in' } },
+    });
   });
 
   it('lets exactly one of two units racing for one slot in', async () => {
@@ -95,7 +118,9 @@ describe('POST /api/receivers/:id/install', () => {
     const units = await Promise.all([1, 2, 3, 4].map((n) => addUnit({ label: `Racer ${n}`, outputs: 8 })));
     const answers = await Promise.all(units.map((id) => install(id, { model: model.model.id, slot: 'wing' })));
     expect(answers.map((answer) => answer.status).sort()).toEqual([201, 409, 409, 409]);
-    expect(answers.filter((answer) => answer.status === 409).every((answer) => answer.body.error.code === 'slot-occupied')).toBe(true);
+    expect(
+      answers.filter((answer) => answer.status === 409).every((answer) => answer.body.error.code === 'slot-occupied'),
+    ).toBe(true);
     expect(await ReceiverInstall.count({ where: { modelId: model.model.id, removedAt: null } })).toBe(1);
   });
 
@@ -117,17 +142,38 @@ describe('move, remove and the history', () => {
     const id = await addUnit(unitFixture('six-output-unit'));
     const first = (await install(id, { model: meadowlark.id, slot: 'cabin' }).expect(201)).body.data.install;
     const moved = (await install(id, { model: kestrel.id, slot: 'fuselage', move: true }, owner).expect(201)).body.data;
-    expect(moved.moved_from).toMatchObject({ id: first.id, model: { id: meadowlark.id }, slot: 'cabin', to: expect.any(String), removed_by: { id: roles.members.owner.id } });
+    expect(moved.moved_from).toMatchObject({
+      id: first.id,
+      model: { id: meadowlark.id },
+      slot: 'cabin',
+      to: expect.any(String),
+      removed_by: { id: roles.members.owner.id },
+    });
     expect(moved.install).toMatchObject({ model: { id: kestrel.id }, slot: 'fuselage', to: null });
     expect(moved.moved_from.to).toBe(moved.install.from);
 
     const { installs, events } = await history(id);
-    expect(installs.map((row: { model: { name: string }; slot: string; to: string | null }) => [row.model.name, row.slot, row.to === null])).toEqual([
+    expect(
+      installs.map((row: { model: { name: string }; slot: string; to: string | null }) => [
+        row.model.name,
+        row.slot,
+        row.to === null,
+      ]),
+    ).toEqual([
       ['Kestrel Mk II', 'fuselage', true],
       ['Meadowlark 40', 'cabin', false],
     ]);
-    expect(events.map((event: { action: string }) => event.action)).toEqual(['receiver.installed', 'receiver.removed', 'receiver.installed', 'receiver.added']);
-    expect(events[1].details).toMatchObject({ model_id: meadowlark.id, slot: 'cabin', moved_to: { model_id: kestrel.id, slot: 'fuselage' } });
+    expect(events.map((event: { action: string }) => event.action)).toEqual([
+      'receiver.installed',
+      'receiver.removed',
+      'receiver.installed',
+      'receiver.added',
+    ]);
+    expect(events[1].details).toMatchObject({
+      model_id: meadowlark.id,
+      slot: 'cabin',
+      moved_to: { model_id: kestrel.id, slot: 'fuselage' },
+    });
     expect(events[0].details).toMatchObject({ moved_from: { model_id: meadowlark.id, slot: 'cabin' } });
   });
 
@@ -137,7 +183,11 @@ describe('move, remove and the history', () => {
     await install(id, { model: kestrel.id, slot: 'fuselage' }).expect(201);
     const removed = (await editor.post(`/api/receivers/${id}/remove`).expect(200)).body.data;
     expect(removed.receiver).toMatchObject({ status: 'free', installed: null, readiness: null });
-    expect(removed.install).toMatchObject({ slot: 'fuselage', to: expect.any(String), removed_by: { id: roles.members.editor.id } });
+    expect(removed.install).toMatchObject({
+      slot: 'fuselage',
+      to: expect.any(String),
+      removed_by: { id: roles.members.editor.id },
+    });
     const again = await editor.post(`/api/receivers/${id}/remove`).expect(409);
     expect(again.body.error.code).toBe('not-installed');
 
@@ -148,7 +198,11 @@ describe('move, remove and the history', () => {
 
     const { installs, events } = await history(id);
     expect(installs).toHaveLength(1);
-    expect(events.map((event: { action: string }) => event.action)).toEqual(['receiver.removed', 'receiver.installed', 'receiver.added']);
+    expect(events.map((event: { action: string }) => event.action)).toEqual([
+      'receiver.removed',
+      'receiver.installed',
+      'receiver.added',
+    ]);
   });
 });
 
@@ -159,8 +213,13 @@ describe('POST /api/receivers/:id/apply', () => {
     const installed = (await install(id, { model: kestrel.id, slot: 'wing' }).expect(201)).body.data;
     const before = (await Receiver.findByPk(id))!.storedSettings;
 
-    const applied = (await editor.post(`/api/receivers/${id}/apply`, { revision: installed.revision.id }).expect(200)).body.data;
-    expect(applied).toMatchObject({ ready: true, changes: [], receiver: { readiness: { state: 'ready', changes: 0 }, telemetry: false } });
+    const applied = (await editor.post(`/api/receivers/${id}/apply`, { revision: installed.revision.id }).expect(200))
+      .body.data;
+    expect(applied).toMatchObject({
+      ready: true,
+      changes: [],
+      receiver: { readiness: { state: 'ready', changes: 0 }, telemetry: false },
+    });
 
     const stored = (await Receiver.findByPk(id))!.storedSettings!;
     expect(stored.telemetry).toBe(false);
@@ -176,10 +235,17 @@ describe('POST /api/receivers/:id/apply', () => {
     ]);
     const [event] = await AuditEvent.findAll({ where: { subjectId: id, action: 'receiver.settings-applied' } });
     expect(event.actorId).toBe(roles.members.editor.id);
-    expect(event.details).toMatchObject({ model_id: kestrel.id, slot: 'wing', revision_number: 1, before, after: stored });
+    expect(event.details).toMatchObject({
+      model_id: kestrel.id,
+      slot: 'wing',
+      revision_number: 1,
+      before,
+      after: stored,
+    });
     expect((event.details.changes as unknown[]).length).toBe(installed.changes.length);
 
-    const check = (await editor.get(`/api/receivers/${id}/reuse-check?model=${kestrel.id}&slot=wing`).expect(200)).body.data;
+    const check = (await editor.get(`/api/receivers/${id}/reuse-check?model=${kestrel.id}&slot=wing`).expect(200)).body
+      .data;
     expect(check).toMatchObject({ ready: true, changes: [], installed_here: true });
   });
 
@@ -200,14 +266,29 @@ describe('POST /api/receivers/:id/apply', () => {
     const model = await createModelVia(editor, roles.workspace.id, { name: 'Moving target', yaml: SCALE() });
     const id = await addUnit(unitFixture('trainer-unit'));
     const seen = (await install(id, { model: model.model.id, slot: 'wing' }).expect(201)).body.data.revision.id;
-    const newer = await saveVia(editor, model.model.id, 1, edit(SCALE(), '{ pin: 1, ch: 9,  failsafe: 1500 }', '{ pin: 1, ch: 9,  failsafe: 1450 }'));
+    const newer = await saveVia(
+      editor,
+      model.model.id,
+      1,
+      edit(SCALE(), '{ pin: 1, ch: 9,  failsafe: 1500 }', '{ pin: 1, ch: 9,  failsafe: 1450 }'),
+    );
     const refused = await editor.post(`/api/receivers/${id}/apply`, { revision: seen }).expect(409);
-    expect(refused.body.error).toMatchObject({ code: 'stale-revision', details: { latest: { id: newer.id, number: 2 } } });
+    expect(refused.body.error).toMatchObject({
+      code: 'stale-revision',
+      details: { latest: { id: newer.id, number: 2 } },
+    });
 
     // The check now runs against revision 2, whose pin 1 fails safe to 1450 us.
-    const check = (await editor.get(`/api/receivers/${id}/reuse-check?model=${model.model.id}&slot=wing`).expect(200)).body.data;
+    const check = (await editor.get(`/api/receivers/${id}/reuse-check?model=${model.model.id}&slot=wing`).expect(200))
+      .body.data;
     expect(check.revision.number).toBe(2);
-    expect(check.changes).toContainEqual({ pin: 1, setting: 'failsafe', from: 1500, to: 1450, summary: 'Pin 1: failsafe 1500 us, set 1450 us' });
+    expect(check.changes).toContainEqual({
+      pin: 1,
+      setting: 'failsafe',
+      from: 1500,
+      to: 1450,
+      summary: 'Pin 1: failsafe 1500 us, set 1450 us',
+    });
     await editor.post(`/api/receivers/${id}/apply`, { revision: newer.id }).expect(200);
     expect((await Receiver.findByPk(id))!.storedSettings!.pins[0]).toEqual({ pin: 1, ch: 9, failsafe: 1450 });
   });

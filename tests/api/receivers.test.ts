@@ -52,12 +52,21 @@ describe('POST /api/workspaces/:ws/receivers', () => {
     expect((unit.stored_settings as { pins: unknown[] }).pins).toHaveLength(8);
     expect(unit.settings_recorded_at).toEqual(expect.any(String));
     const events = await AuditEvent.findAll({ where: { subjectId: unit.id } });
-    expect(events.map((event) => [event.action, event.subjectType, event.actorId])).toEqual([['receiver.added', 'receiver', roles.members.editor.id]]);
+    expect(events.map((event) => [event.action, event.subjectType, event.actorId])).toEqual([
+      ['receiver.added', 'receiver', roles.members.editor.id],
+    ]);
   });
 
   it('takes a unit whose settings are not known yet', async () => {
     const unit = await addUnit({ label: 'Spare 6-output', outputs: 6 });
-    expect(unit).toMatchObject({ stored_settings: null, telemetry: null, mark: null, mark_colour: null, notes: '', settings_recorded_at: null });
+    expect(unit).toMatchObject({
+      stored_settings: null,
+      telemetry: null,
+      mark: null,
+      mark_colour: null,
+      notes: '',
+      settings_recorded_at: null,
+    });
   });
 
   it.each([
@@ -67,9 +76,31 @@ describe('POST /api/workspaces/:ws/receivers', () => {
     ['too many outputs', { label: 'X', outputs: 33 }, 'outputs'],
     ['an unknown colour', { label: 'X', outputs: 8, mark_colour: 'teal' }, 'mark_colour'],
     ['an unknown field', { label: 'X', outputs: 8, colour: 'red' }, 'colour'],
-    ['a pin above the outputs', { label: 'X', outputs: 4, stored_settings: { telemetry: true, pins: [{ pin: 5, ch: 5 }] } }, 'stored_settings.pins.0.pin'],
-    ['a pin listed twice', { label: 'X', outputs: 8, stored_settings: { telemetry: true, pins: [{ pin: 1, ch: 1 }, { pin: 1, ch: 2 }] } }, 'stored_settings.pins.1.pin'],
-    ['a failsafe out of range', { label: 'X', outputs: 8, stored_settings: { telemetry: true, pins: [{ pin: 1, ch: 1, failsafe: 3000 }] } }, 'stored_settings.pins.0.failsafe'],
+    [
+      'a pin above the outputs',
+      { label: 'X', outputs: 4, stored_settings: { telemetry: true, pins: [{ pin: 5, ch: 5 }] } },
+      'stored_settings.pins.0.pin',
+    ],
+    [
+      'a pin listed twice',
+      {
+        label: 'X',
+        outputs: 8,
+        stored_settings: {
+          telemetry: true,
+          pins: [
+            { pin: 1, ch: 1 },
+            { pin: 1, ch: 2 },
+          ],
+        },
+      },
+      'stored_settings.pins.1.pin',
+    ],
+    [
+      'a failsafe out of range',
+      { label: 'X', outputs: 8, stored_settings: { telemetry: true, pins: [{ pin: 1, ch: 1, failsafe: 3000 }] } },
+      'stored_settings.pins.0.failsafe',
+    ],
     ['telemetry missing', { label: 'X', outputs: 8, stored_settings: { pins: [] } }, 'stored_settings.telemetry'],
   ])('refuses %s with 400, naming the field, and stores nothing', async (_name, body, field) => {
     const before = await Receiver.count();
@@ -94,20 +125,23 @@ describe('the shelf’s role rules', () => {
     await as[role].get(`/api/receivers/${unitId}/reuse-check?model=${scale.id}&slot=wing`).expect(200);
   });
 
-  it.each(['viewer', 'reviewer'] as Role[])('%s may not add, change, install, remove or apply: 403 role-too-low', async (role) => {
-    const calls = [
-      as[role].post(shelf(), { label: 'Nope', outputs: 8 }),
-      as[role].patch(`/api/receivers/${unitId}`, { label: 'Nope' }),
-      as[role].post(`/api/receivers/${unitId}/install`, { model: scale.id, slot: 'wing' }),
-      as[role].post(`/api/receivers/${unitId}/remove`),
-      as[role].post(`/api/receivers/${unitId}/apply`),
-    ];
-    for (const response of await Promise.all(calls)) {
-      expect(response.status).toBe(403);
-      expect(response.body.error).toMatchObject({ code: 'role-too-low', details: { required: 'editor', role } });
-    }
-    expect((await Receiver.findByPk(unitId))!.label).toBe('Role check unit');
-  });
+  it.each(['viewer', 'reviewer'] as Role[])(
+    '%s may not add, change, install, remove or apply: 403 role-too-low',
+    async (role) => {
+      const calls = [
+        as[role].post(shelf(), { label: 'Nope', outputs: 8 }),
+        as[role].patch(`/api/receivers/${unitId}`, { label: 'Nope' }),
+        as[role].post(`/api/receivers/${unitId}/install`, { model: scale.id, slot: 'wing' }),
+        as[role].post(`/api/receivers/${unitId}/remove`),
+        as[role].post(`/api/receivers/${unitId}/apply`),
+      ];
+      for (const response of await Promise.all(calls)) {
+        expect(response.status).toBe(403);
+        expect(response.body.error).toMatchObject({ code: 'role-too-low', details: { required: 'editor', role } });
+      }
+      expect((await Receiver.findByPk(unitId))!.label).toBe('Role check unit');
+    },
+  );
 
   it('an owner may change a unit', async () => {
     const response = await as.owner.patch(`/api/receivers/${unitId}`, { notes: 'Checked by the owner' }).expect(200);
@@ -149,7 +183,8 @@ describe('GET /api/workspaces/:ws/receivers', () => {
     ws = own.workspace.id;
     client = clientFor(t.app, t.config, own.members.editor);
     const model = await createModelVia(client, ws, { name: 'Search model', yaml: SCALE() });
-    const add = async (body: Record<string, unknown>) => (await client.post(`/api/workspaces/${ws}/receivers`, body).expect(201)).body.data.id as string;
+    const add = async (body: Record<string, unknown>) =>
+      (await client.post(`/api/workspaces/${ws}/receivers`, body).expect(201)).body.data.id as string;
     await add({ label: 'Bravo fuselage', mark: 'Blue tape', mark_colour: 'blue', outputs: 8 });
     const wing = await add({ label: 'alpha wing', mark: 'Red tape', mark_colour: 'red', outputs: 8 });
     await add({ label: 'Charlie spare', outputs: 6, notes: 'Has a 100% new case' });
@@ -158,12 +193,21 @@ describe('GET /api/workspaces/:ws/receivers', () => {
 
   const labels = async (query: string) => {
     const response = await client.get(`/api/workspaces/${ws}/receivers${query}`).expect(200);
-    return { labels: response.body.data.map((unit: { label: string }) => unit.label), pagination: response.body.pagination };
+    return {
+      labels: response.body.data.map((unit: { label: string }) => unit.label),
+      pagination: response.body.pagination,
+    };
   };
 
   it('lists the units by label, case aside, paginated', async () => {
-    expect(await labels('')).toEqual({ labels: ['alpha wing', 'Bravo fuselage', 'Charlie spare'], pagination: { limit: 100, offset: 0, total: 3 } });
-    expect(await labels('?limit=1&offset=1')).toEqual({ labels: ['Bravo fuselage'], pagination: { limit: 1, offset: 1, total: 3 } });
+    expect(await labels('')).toEqual({
+      labels: ['alpha wing', 'Bravo fuselage', 'Charlie spare'],
+      pagination: { limit: 100, offset: 0, total: 3 },
+    });
+    expect(await labels('?limit=1&offset=1')).toEqual({
+      labels: ['Bravo fuselage'],
+      pagination: { limit: 1, offset: 1, total: 3 },
+    });
   });
 
   it('searches label, mark and notes, taking % and _ literally', async () => {
@@ -176,8 +220,14 @@ describe('GET /api/workspaces/:ws/receivers', () => {
 
   it('filters installed and free units, and the count agrees', async () => {
     expect(await labels('?status=installed')).toMatchObject({ labels: ['alpha wing'], pagination: { total: 1 } });
-    expect(await labels('?status=free')).toMatchObject({ labels: ['Bravo fuselage', 'Charlie spare'], pagination: { total: 2 } });
-    expect(await labels('?status=free&q=bravo')).toMatchObject({ labels: ['Bravo fuselage'], pagination: { total: 1 } });
+    expect(await labels('?status=free')).toMatchObject({
+      labels: ['Bravo fuselage', 'Charlie spare'],
+      pagination: { total: 2 },
+    });
+    expect(await labels('?status=free&q=bravo')).toMatchObject({
+      labels: ['Bravo fuselage'],
+      pagination: { total: 1 },
+    });
   });
 
   it('shows where an installed unit is and whether it is ready for that slot', async () => {
@@ -200,22 +250,43 @@ describe('GET /api/workspaces/:ws/receivers', () => {
 describe('PATCH /api/receivers/:id', () => {
   it('changes the record, audits before and after, and leaves unsent fields alone', async () => {
     const unit = await addUnit({ label: 'Patch me', mark: 'Dot', outputs: 8 });
-    const response = await as.editor.patch(`/api/receivers/${unit.id}`, { label: 'Patched', mark: '', mark_colour: 'pink' }).expect(200);
+    const response = await as.editor
+      .patch(`/api/receivers/${unit.id}`, { label: 'Patched', mark: '', mark_colour: 'pink' })
+      .expect(200);
     expect(response.body.data).toMatchObject({ label: 'Patched', mark: null, mark_colour: 'pink', outputs: 8 });
     const [event] = await AuditEvent.findAll({ where: { subjectId: unit.id, action: 'receiver.updated' } });
-    expect(event.details).toEqual({ before: { label: 'Patch me', mark: 'Dot', mark_colour: null }, after: { label: 'Patched', mark: null, mark_colour: 'pink' } });
+    expect(event.details).toEqual({
+      before: { label: 'Patch me', mark: 'Dot', mark_colour: null },
+      after: { label: 'Patched', mark: null, mark_colour: 'pink' },
+    });
   });
 
   it('records settings read off the unit', async () => {
     const unit = await addUnit({ label: 'Read off', outputs: 4 });
-    const stored = { telemetry: false, pins: [{ pin: 2, ch: 6, failsafe: 'hold' }, { pin: 1, ch: 5 }] };
+    const stored = {
+      telemetry: false,
+      pins: [
+        { pin: 2, ch: 6, failsafe: 'hold' },
+        { pin: 1, ch: 5 },
+      ],
+    };
     const response = await as.editor.patch(`/api/receivers/${unit.id}`, { stored_settings: stored }).expect(200);
-    expect(response.body.data.stored_settings).toEqual({ telemetry: false, pins: [{ pin: 1, ch: 5, failsafe: null }, { pin: 2, ch: 6, failsafe: 'hold' }] });
+    expect(response.body.data.stored_settings).toEqual({
+      telemetry: false,
+      pins: [
+        { pin: 1, ch: 5, failsafe: null },
+        { pin: 2, ch: 6, failsafe: 'hold' },
+      ],
+    });
     expect(response.body.data.telemetry).toBe(false);
   });
 
   it('refuses fewer outputs than the stored settings use, with 422, and stores nothing', async () => {
-    const unit = await addUnit({ label: 'Shrink', outputs: 8, stored_settings: { telemetry: true, pins: [{ pin: 7, ch: 7 }] } });
+    const unit = await addUnit({
+      label: 'Shrink',
+      outputs: 8,
+      stored_settings: { telemetry: true, pins: [{ pin: 7, ch: 7 }] },
+    });
     const response = await as.editor.patch(`/api/receivers/${unit.id}`, { outputs: 6 }).expect(422);
     expect(response.body.error).toMatchObject({ code: 'pins-beyond-outputs', details: { pins: [7] } });
     expect((await Receiver.findByPk(unit.id))!.outputs).toBe(8);
@@ -231,7 +302,9 @@ describe('PATCH /api/receivers/:id', () => {
 describe('GET /api/receivers/:id/reuse-check', () => {
   it('answers the contract’s shape against the model’s latest revision', async () => {
     const unit = await addUnit(unitFixture('trainer-unit'));
-    const response = await as.viewer.get(`/api/receivers/${unit.id}/reuse-check?model=${scale.id}&slot=wing`).expect(200);
+    const response = await as.viewer
+      .get(`/api/receivers/${unit.id}/reuse-check?model=${scale.id}&slot=wing`)
+      .expect(200);
     const { data } = response.body;
     expect(data.ready).toBe(false);
     for (const change of data.changes) {
@@ -239,9 +312,27 @@ describe('GET /api/receivers/:id/reuse-check', () => {
       expect(['ch', 'failsafe', 'telemetry']).toContain(change.setting);
       expect(change.pin === null).toBe(change.setting === 'telemetry');
     }
-    expect(data.changes).toContainEqual({ pin: 3, setting: 'ch', from: 3, to: 11, summary: 'Pin 3: carries channel 3, must carry channel 11' });
-    expect(data.changes).toContainEqual({ pin: 3, setting: 'failsafe', from: 988, to: 'hold', summary: 'Pin 3: failsafe 988 us, set hold' });
-    expect(data.changes).toContainEqual({ pin: null, setting: 'telemetry', from: true, to: false, summary: 'Telemetry: on, switch it off' });
+    expect(data.changes).toContainEqual({
+      pin: 3,
+      setting: 'ch',
+      from: 3,
+      to: 11,
+      summary: 'Pin 3: carries channel 3, must carry channel 11',
+    });
+    expect(data.changes).toContainEqual({
+      pin: 3,
+      setting: 'failsafe',
+      from: 988,
+      to: 'hold',
+      summary: 'Pin 3: failsafe 988 us, set hold',
+    });
+    expect(data.changes).toContainEqual({
+      pin: null,
+      setting: 'telemetry',
+      from: true,
+      to: false,
+      summary: 'Telemetry: on, switch it off',
+    });
     expect(data).toMatchObject({
       receiver_id: unit.id,
       model: { id: scale.id, name: 'Kestrel Mk II' },
@@ -259,29 +350,42 @@ describe('GET /api/receivers/:id/reuse-check', () => {
     const model = await createModelVia(as.editor, roles.workspace.id, { name: 'Held slot', yaml: SCALE() });
     await as.editor.post(`/api/receivers/${holder.id}/install`, { model: model.model.id, slot: 'wing' }).expect(201);
     const asker = await addUnit(unitFixture('trainer-unit'));
-    const { data } = (await as.viewer.get(`/api/receivers/${asker.id}/reuse-check?model=${model.model.id}&slot=wing`).expect(200)).body;
+    const { data } = (
+      await as.viewer.get(`/api/receivers/${asker.id}/reuse-check?model=${model.model.id}&slot=wing`).expect(200)
+    ).body;
     expect(data.holder).toEqual({ id: holder.id, label: 'Kestrel wing unit' });
-    const own = (await as.viewer.get(`/api/receivers/${holder.id}/reuse-check?model=${model.model.id}&slot=wing`).expect(200)).body.data;
+    const own = (
+      await as.viewer.get(`/api/receivers/${holder.id}/reuse-check?model=${model.model.id}&slot=wing`).expect(200)
+    ).body.data;
     expect(own).toMatchObject({ installed_here: true, holder: { id: holder.id }, ready: true });
   });
 
   it('is ready with no changes for a unit that matches', async () => {
     const unit = await addUnit(unitFixture('wing-unit'));
-    const { data } = (await as.viewer.get(`/api/receivers/${unit.id}/reuse-check?model=${scale.id}&slot=wing`).expect(200)).body;
+    const { data } = (
+      await as.viewer.get(`/api/receivers/${unit.id}/reuse-check?model=${scale.id}&slot=wing`).expect(200)
+    ).body;
     expect(data).toMatchObject({ changes: [], ready: true });
   });
 
   it('reports an output-count mismatch', async () => {
     const unit = await addUnit(unitFixture('six-output-unit'));
-    const { data } = (await as.viewer.get(`/api/receivers/${unit.id}/reuse-check?model=${scale.id}&slot=wing`).expect(200)).body;
+    const { data } = (
+      await as.viewer.get(`/api/receivers/${unit.id}/reuse-check?model=${scale.id}&slot=wing`).expect(200)
+    ).body;
     expect(data.ready).toBe(false);
     expect(data.notes[0]).toMatchObject({ kind: 'outputs-short', blocking: true });
   });
 
   it('says which slots exist when the slot is not in the setup (422), and needs model and slot (400)', async () => {
     const unit = await addUnit({ label: 'Asker', outputs: 8 });
-    const missing = await as.viewer.get(`/api/receivers/${unit.id}/reuse-check?model=${scale.id}&slot=tail`).expect(422);
-    expect(missing.body.error).toMatchObject({ code: 'slot-not-found', details: { slot: 'tail', slots: ['fuselage', 'wing'] } });
+    const missing = await as.viewer
+      .get(`/api/receivers/${unit.id}/reuse-check?model=${scale.id}&slot=tail`)
+      .expect(422);
+    expect(missing.body.error).toMatchObject({
+      code: 'slot-not-found',
+      details: { slot: 'tail', slots: ['fuselage', 'wing'] },
+    });
     await as.viewer.get(`/api/receivers/${unit.id}/reuse-check?slot=wing`).expect(400);
     await as.viewer.get(`/api/receivers/${unit.id}/reuse-check?model=${scale.id}&slot=Not%20A%20Slot`).expect(400);
   });
@@ -289,15 +393,22 @@ describe('GET /api/receivers/:id/reuse-check', () => {
   it('does not reach into a model of another workspace (404)', async () => {
     const unit = await addUnit({ label: 'Stay home', outputs: 8 });
     const elsewhere = await createModelVia(as.outsider, roles.otherWorkspace.id, { name: 'Not yours', yaml: SCALE() });
-    const response = await as.editor.get(`/api/receivers/${unit.id}/reuse-check?model=${elsewhere.model.id}&slot=wing`).expect(404);
+    const response = await as.editor
+      .get(`/api/receivers/${unit.id}/reuse-check?model=${elsewhere.model.id}&slot=wing`)
+      .expect(404);
     expect(response.body.error.code).toBe('model-not-found');
     await as.editor.post(`/api/receivers/${unit.id}/install`, { model: elsewhere.model.id, slot: 'wing' }).expect(404);
   });
 
   it('refuses, with 422, a model whose latest revision does not pass the schema', async () => {
-    const broken = await createModelVia(as.editor, roles.workspace.id, { name: 'Broken', yaml: 'format: bindery-setup/1\nmodel: { name: Broken }\n' });
+    const broken = await createModelVia(as.editor, roles.workspace.id, {
+      name: 'Broken',
+      yaml: 'format: bindery-setup/1\nmodel: { name: Broken }\n',
+    });
     const unit = await addUnit({ label: 'Patient', outputs: 8 });
-    const response = await as.viewer.get(`/api/receivers/${unit.id}/reuse-check?model=${broken.model.id}&slot=wing`).expect(422);
+    const response = await as.viewer
+      .get(`/api/receivers/${unit.id}/reuse-check?model=${broken.model.id}&slot=wing`)
+      .expect(422);
     expect(response.body.error.code).toBe('setup-not-valid');
   });
 });

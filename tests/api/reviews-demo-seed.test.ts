@@ -18,8 +18,16 @@ beforeAll(async () => {
 
 describe('the demo reviews (seed step 0004)', () => {
   it('shows every review state in the hangar: approved and cleared, pending, stale, changes requested, none', async () => {
-    const hangar = await request(t.app).get(`/api/workspaces/${workspace.id}/models`).set(bearer(tokenFor(owner, t.config))).expect(200);
-    const states = Object.fromEntries(hangar.body.data.map((model: { name: string; review_state: string; cleared_for_maiden: boolean }) => [model.name, [model.review_state, model.cleared_for_maiden]]));
+    const hangar = await request(t.app)
+      .get(`/api/workspaces/${workspace.id}/models`)
+      .set(bearer(tokenFor(owner, t.config)))
+      .expect(200);
+    const states = Object.fromEntries(
+      hangar.body.data.map((model: { name: string; review_state: string; cleared_for_maiden: boolean }) => [
+        model.name,
+        [model.review_state, model.cleared_for_maiden],
+      ]),
+    );
     expect(states).toEqual({
       'Meadowlark 40': ['approved', true],
       'Kestrel Mk II': ['pending', false],
@@ -30,7 +38,10 @@ describe('the demo reviews (seed step 0004)', () => {
   });
 
   it('keeps the mails those reviews sent in the outbox, each linking to a review that opens', async () => {
-    const outbox = await request(t.app).get('/api/outbox').set(bearer(tokenFor(owner, t.config))).expect(200);
+    const outbox = await request(t.app)
+      .get('/api/outbox')
+      .set(bearer(tokenFor(owner, t.config)))
+      .expect(200);
     expect(outbox.body.data.map((mail: { subject: string }) => mail.subject)).toEqual([
       'Ines Marchbank asked for changes to Heron 3.6, revision 3',
       'Review requested: Kestrel Mk II, revision 12',
@@ -40,7 +51,10 @@ describe('the demo reviews (seed step 0004)', () => {
       const path = new URL(mail.links[0]).pathname;
       const reviewId = /^\/w\/[0-9a-f-]+\/reviews\/([0-9a-f-]+)$/.exec(path)?.[1];
       expect(reviewId).toBeDefined();
-      await request(t.app).get(`/api/reviews/${reviewId}`).set(bearer(tokenFor(owner, t.config))).expect(200);
+      await request(t.app)
+        .get(`/api/reviews/${reviewId}`)
+        .set(bearer(tokenFor(owner, t.config)))
+        .expect(200);
     }
     expect(await OutboxMessage.count()).toBe(3);
   });
@@ -48,11 +62,22 @@ describe('the demo reviews (seed step 0004)', () => {
   it('carries the pending review’s anchored comments and the approved review’s full checklist', async () => {
     const reviews = await Review.findAll({ where: { workspaceId: workspace.id } });
     const pending = reviews.find((review) => review.state === 'open')!;
-    const page = await request(t.app).get(`/api/reviews/${pending.id}`).set(bearer(tokenFor(owner, t.config))).expect(200);
-    expect(page.body.data.comments.map((comment: { path: string }) => comment.path)).toEqual(['receivers[id=wing].map[pin=1]', 'receivers[id=fuselage].map[pin=3]']);
+    const page = await request(t.app)
+      .get(`/api/reviews/${pending.id}`)
+      .set(bearer(tokenFor(owner, t.config)))
+      .expect(200);
+    expect(page.body.data.comments.map((comment: { path: string }) => comment.path)).toEqual([
+      'receivers[id=wing].map[pin=1]',
+      'receivers[id=fuselage].map[pin=3]',
+    ]);
     expect(page.body.data.base.kind).toBe('parent');
-    const approved = reviews.find((review) => review.state === 'approved' && review.decidedAt!.getUTCFullYear() === 2026)!;
-    const approvedPage = await request(t.app).get(`/api/reviews/${approved.id}`).set(bearer(tokenFor(owner, t.config))).expect(200);
+    const approved = reviews.find(
+      (review) => review.state === 'approved' && review.decidedAt!.getUTCFullYear() === 2026,
+    )!;
+    const approvedPage = await request(t.app)
+      .get(`/api/reviews/${approved.id}`)
+      .set(bearer(tokenFor(owner, t.config)))
+      .expect(200);
     expect(approvedPage.body.data.checklist.every((item: { ticked: boolean }) => item.ticked)).toBe(true);
   });
 });

@@ -15,13 +15,20 @@ let viewer: Client;
 
 beforeEach(async () => {
   const people: Record<string, User> = {};
-  for (const name of ['Olwen Thatch', 'Ada Merrow', 'Ines Greylag', 'Ravi Shoveler', 'Vera Coot']) people[name] = await createUser({ name });
+  for (const name of ['Olwen Thatch', 'Ada Merrow', 'Ines Greylag', 'Ravi Shoveler', 'Vera Coot'])
+    people[name] = await createUser({ name });
   workspace = await createWorkspace({ name: 'Wherry Lane Flyers', owner: people['Olwen Thatch'] });
   await addMember(workspace, people['Ada Merrow'], 'editor');
   await addMember(workspace, people['Ines Greylag'], 'reviewer');
   await addMember(workspace, people['Ravi Shoveler'], 'reviewer');
   await addMember(workspace, people['Vera Coot'], 'viewer');
-  [owner, author, reviewer, second, viewer] = ['Olwen Thatch', 'Ada Merrow', 'Ines Greylag', 'Ravi Shoveler', 'Vera Coot'].map((name) => clientFor(t.app, t.config, people[name]));
+  [owner, author, reviewer, second, viewer] = [
+    'Olwen Thatch',
+    'Ada Merrow',
+    'Ines Greylag',
+    'Ravi Shoveler',
+    'Vera Coot',
+  ].map((name) => clientFor(t.app, t.config, people[name]));
 });
 
 /** A model by `author` with the scale demo setup as revision 1. */
@@ -31,7 +38,10 @@ async function scaleModel(name = 'Kestrel') {
 }
 
 function ask(revisionId: string, reviewers: Client[], by: Client = author, note = 'Maiden on Saturday') {
-  return by.post(`/api/revisions/${revisionId}/reviews`, { reviewers: reviewers.map((client) => client.user.id), note });
+  return by.post(`/api/revisions/${revisionId}/reviews`, {
+    reviewers: reviewers.map((client) => client.user.id),
+    note,
+  });
 }
 
 async function reviewOf(revisionId: string, reviewers: Client[] = [reviewer]): Promise<string> {
@@ -40,8 +50,13 @@ async function reviewOf(revisionId: string, reviewers: Client[] = [reviewer]): P
   return response.body.data.id;
 }
 
-const verdict = (client: Client, reviewId: string, body: object) => client.post(`/api/reviews/${reviewId}/verdicts`, body);
-const modelState = async (modelId: string) => (await author.get(`/api/models/${modelId}`).expect(200)).body.data as { review_state: string; cleared_for_maiden: boolean };
+const verdict = (client: Client, reviewId: string, body: object) =>
+  client.post(`/api/reviews/${reviewId}/verdicts`, body);
+const modelState = async (modelId: string) =>
+  (await author.get(`/api/models/${modelId}`).expect(200)).body.data as {
+    review_state: string;
+    cleared_for_maiden: boolean;
+  };
 
 describe('asking for a review', () => {
   it('an editor asks chosen reviewers; each gets a mail with the review link', async () => {
@@ -52,7 +67,10 @@ describe('asking for a review', () => {
       model: { id: modelId, name: 'Kestrel' },
       revision: { id: revision.id, number: 1, author: { id: author.user.id } },
       requested_by: { id: author.user.id, name: 'Ada Merrow' },
-      reviewers: [{ id: reviewer.user.id, name: 'Ines Greylag' }, { id: second.user.id, name: 'Ravi Shoveler' }],
+      reviewers: [
+        { id: reviewer.user.id, name: 'Ines Greylag' },
+        { id: second.user.id, name: 'Ravi Shoveler' },
+      ],
       note: 'Maiden on Saturday',
       state: 'open',
       latest: { number: 1, same_content: true },
@@ -64,10 +82,18 @@ describe('asking for a review', () => {
       expect(mail.textBody).toContain('Their note: "Maiden on Saturday"');
       expect(mail.htmlBody).toContain('Open the review');
     }
-    expect(await modelState(modelId)).toEqual(expect.objectContaining({ review_state: 'pending', cleared_for_maiden: false }));
+    expect(await modelState(modelId)).toEqual(
+      expect.objectContaining({ review_state: 'pending', cleared_for_maiden: false }),
+    );
     const event = await AuditEvent.findOne({ where: { workspaceId: workspace.id, action: 'review.requested' } });
-    expect(event?.details).toMatchObject({ model_name: 'Kestrel', number: 1, reviewers: [{ name: 'Ines Greylag' }, { name: 'Ravi Shoveler' }] });
-    const trail: { action: string; model: unknown }[] = (await owner.get(`/api/workspaces/${workspace.id}/audit`).expect(200)).body.data;
+    expect(event?.details).toMatchObject({
+      model_name: 'Kestrel',
+      number: 1,
+      reviewers: [{ name: 'Ines Greylag' }, { name: 'Ravi Shoveler' }],
+    });
+    const trail: { action: string; model: unknown }[] = (
+      await owner.get(`/api/workspaces/${workspace.id}/audit`).expect(200)
+    ).body.data;
     expect(trail.find((entry) => entry.action === 'review.requested')!.model).toEqual({ id: modelId, name: 'Kestrel' });
   });
 
@@ -79,8 +105,13 @@ describe('asking for a review', () => {
     const outsider = clientFor(t.app, t.config, await createUser());
     expect((await ask(revision.id, [outsider]).expect(422)).body.error.code).toBe('invalid-reviewers');
     expect((await ask(revision.id, [author], owner).expect(422)).body.error.code).toBe('reviewer-is-author');
-    expect((await ask(revision.id, [reviewer, reviewer]).expect(400)).body.error.details.fields.reviewers).toMatch(/once/);
-    expect((await author.post(`/api/revisions/${revision.id}/reviews`, { reviewers: [] }).expect(400)).body.error.details.fields.reviewers).toMatch(/at least one/);
+    expect((await ask(revision.id, [reviewer, reviewer]).expect(400)).body.error.details.fields.reviewers).toMatch(
+      /once/,
+    );
+    expect(
+      (await author.post(`/api/revisions/${revision.id}/reviews`, { reviewers: [] }).expect(400)).body.error.details
+        .fields.reviewers,
+    ).toMatch(/at least one/);
 
     const first = await ask(revision.id, [reviewer]).expect(201);
     const again = await ask(revision.id, [second]).expect(409);
@@ -127,12 +158,18 @@ describe('the rules of sign-off', () => {
   });
 
   it('a revision with check errors cannot be approved (422 has-errors), but changes can be asked', async () => {
-    const created = await createModelVia(author, workspace.id, { name: 'Meadowlark', yaml: fixture('invalid/channel-shared.yaml') });
+    const created = await createModelVia(author, workspace.id, {
+      name: 'Meadowlark',
+      yaml: fixture('invalid/channel-shared.yaml'),
+    });
     expect(created.revision).toMatchObject({ number: 1 });
     const review = await reviewOf(created.revision.id);
     const refused = await verdict(reviewer, review, { verdict: 'approve' }).expect(422);
     expect(refused.body.error).toMatchObject({ code: 'has-errors', details: { errors: 1 } });
-    const changes = await verdict(reviewer, review, { verdict: 'request-changes', body: 'Channel 4 carries two functions.' }).expect(201);
+    const changes = await verdict(reviewer, review, {
+      verdict: 'request-changes',
+      body: 'Channel 4 carries two functions.',
+    }).expect(201);
     expect(changes.body.data.review.state).toBe('changes-requested');
     expect((await modelState(created.model.id)).review_state).toBe('changes-requested');
   });
@@ -140,29 +177,52 @@ describe('the rules of sign-off', () => {
   it('viewers give no verdicts (403)', async () => {
     const { revision } = await scaleModel();
     const review = await reviewOf(revision.id);
-    expect((await verdict(viewer, review, { verdict: 'comment', body: 'Looks fine' }).expect(403)).body.error.code).toBe('role-too-low');
+    expect(
+      (await verdict(viewer, review, { verdict: 'comment', body: 'Looks fine' }).expect(403)).body.error.code,
+    ).toBe('role-too-low');
   });
 
   it('an approval clears the model for its maiden and mails the requester, pinned to the content hash', async () => {
     const { modelId, revision } = await scaleModel();
     const review = await reviewOf(revision.id);
-    const approved = await verdict(reviewer, review, { verdict: 'approve', body: 'Checked against the wing receiver on the bench.' }).expect(201);
-    expect(approved.body.data).toMatchObject({ verdict: 'approve', reviewer: { id: reviewer.user.id }, content_hash: revision.content_hash, review: { state: 'approved' } });
-    expect(await modelState(modelId)).toEqual(expect.objectContaining({ review_state: 'approved', cleared_for_maiden: true }));
+    const approved = await verdict(reviewer, review, {
+      verdict: 'approve',
+      body: 'Checked against the wing receiver on the bench.',
+    }).expect(201);
+    expect(approved.body.data).toMatchObject({
+      verdict: 'approve',
+      reviewer: { id: reviewer.user.id },
+      content_hash: revision.content_hash,
+      review: { state: 'approved' },
+    });
+    expect(await modelState(modelId)).toEqual(
+      expect.objectContaining({ review_state: 'approved', cleared_for_maiden: true }),
+    );
     const [mail] = await mailTo(author.user.email);
     expect(mail.subject).toBe('Ines Greylag approved Kestrel, revision 1');
     expect(mail.textBody).toContain('Checked against the wing receiver on the bench.');
     expect(mail.textBody).toContain(`/w/${workspace.id}/reviews/${review}`);
 
     const hangar = await viewer.get(`/api/workspaces/${workspace.id}/models`).expect(200);
-    expect(hangar.body.data.find((model: { id: string }) => model.id === modelId)).toMatchObject({ review_state: 'approved', cleared_for_maiden: true });
+    expect(hangar.body.data.find((model: { id: string }) => model.id === modelId)).toMatchObject({
+      review_state: 'approved',
+      cleared_for_maiden: true,
+    });
   });
 
   it('a later revision that changes the setup makes the approval stale', async () => {
     const { modelId, revision } = await scaleModel();
     await verdict(reviewer, await reviewOf(revision.id), { verdict: 'approve' }).expect(201);
-    await saveVia(author, modelId, 1, edit(SCALE(), '{ pin: 7, ch: 15, failsafe: 1500 }', '{ pin: 7, ch: 15, failsafe: 1400 }'), 'Cowl flaps fail safe shut');
-    expect(await modelState(modelId)).toEqual(expect.objectContaining({ review_state: 'stale', cleared_for_maiden: false }));
+    await saveVia(
+      author,
+      modelId,
+      1,
+      edit(SCALE(), '{ pin: 7, ch: 15, failsafe: 1500 }', '{ pin: 7, ch: 15, failsafe: 1400 }'),
+      'Cowl flaps fail safe shut',
+    );
+    expect(await modelState(modelId)).toEqual(
+      expect.objectContaining({ review_state: 'stale', cleared_for_maiden: false }),
+    );
   });
 
   it('a formatting-only revision (comments, spacing) keeps the approval', async () => {
@@ -171,7 +231,9 @@ describe('the rules of sign-off', () => {
     const reformatted = `# Re-read at the field, nothing changed.\n${edit(SCALE(), '{ pin: 7, ch: 15, failsafe: 1500 }', '{ pin: 7,   ch: 15,   failsafe: 1500 }   # cowl')}`;
     const saved = await saveVia(author, modelId, 1, reformatted, 'Notes only');
     expect(saved.content_hash).toBe(revision.content_hash);
-    expect(await modelState(modelId)).toEqual(expect.objectContaining({ review_state: 'approved', cleared_for_maiden: true }));
+    expect(await modelState(modelId)).toEqual(
+      expect.objectContaining({ review_state: 'approved', cleared_for_maiden: true }),
+    );
   });
 
   it('is cleared only while the latest revision is approved: a revision with errors is not', async () => {
@@ -189,7 +251,10 @@ describe('the rules of sign-off', () => {
     const { modelId, revision } = await scaleModel();
     const review = await reviewOf(revision.id, [reviewer, second]);
     await verdict(reviewer, review, { verdict: 'approve' }).expect(201);
-    expect((await verdict(second, review, { verdict: 'request-changes', body: 'Throttle failsafe first.' }).expect(201)).body.data.review.state).toBe('changes-requested');
+    expect(
+      (await verdict(second, review, { verdict: 'request-changes', body: 'Throttle failsafe first.' }).expect(201)).body
+        .data.review.state,
+    ).toBe('changes-requested');
     expect((await modelState(modelId)).review_state).toBe('changes-requested');
     await verdict(second, review, { verdict: 'comment', body: 'Measured again.' }).expect(201);
     expect((await modelState(modelId)).review_state).toBe('changes-requested');
@@ -201,8 +266,12 @@ describe('the rules of sign-off', () => {
     const { revision } = await scaleModel();
     const review = await reviewOf(revision.id);
     const given = await verdict(reviewer, review, { verdict: 'approve' }).expect(201);
-    await expect(t.sequelize.query(`UPDATE review_verdicts SET verdict = 'comment' WHERE id = '${given.body.data.id}'`)).rejects.toThrow(/verdicts are permanent/);
-    await expect(t.sequelize.query(`DELETE FROM review_verdicts WHERE id = '${given.body.data.id}'`)).rejects.toThrow(/verdicts are permanent/);
+    await expect(
+      t.sequelize.query(`UPDATE review_verdicts SET verdict = 'comment' WHERE id = '${given.body.data.id}'`),
+    ).rejects.toThrow(/verdicts are permanent/);
+    await expect(t.sequelize.query(`DELETE FROM review_verdicts WHERE id = '${given.body.data.id}'`)).rejects.toThrow(
+      /verdicts are permanent/,
+    );
   });
 
   it('refuses an unknown verdict or checklist item and stores nothing', async () => {
@@ -217,11 +286,24 @@ describe('the rules of sign-off', () => {
 describe('the review page', () => {
   it('compares with the parent when nothing is approved, then with the last approved revision', async () => {
     const { modelId, revision } = await scaleModel();
-    const second1 = await saveVia(author, modelId, 1, edit(SCALE(), '{ pin: 3, ch: 11, failsafe: hold }', '{ pin: 3, ch: 11, failsafe: 1500 }'), 'Landing light fails on');
+    const second1 = await saveVia(
+      author,
+      modelId,
+      1,
+      edit(SCALE(), '{ pin: 3, ch: 11, failsafe: hold }', '{ pin: 3, ch: 11, failsafe: 1500 }'),
+      'Landing light fails on',
+    );
     const first = await reviewOf(second1.id);
     const page = await viewer.get(`/api/reviews/${first}`).expect(200);
     expect(page.body.data.base).toMatchObject({ kind: 'parent', revision: { id: revision.id, number: 1 } });
-    expect(page.body.data.compare.changes).toEqual([expect.objectContaining({ kind: 'changed', path: 'receivers[id=wing].map[pin=3].failsafe', before: 'hold', after: 1500 })]);
+    expect(page.body.data.compare.changes).toEqual([
+      expect.objectContaining({
+        kind: 'changed',
+        path: 'receivers[id=wing].map[pin=3].failsafe',
+        before: 'hold',
+        after: 1500,
+      }),
+    ]);
     expect(page.body.data.compare.text).toBeDefined();
     expect(page.body.data.findings).toEqual(expect.any(Array));
     expect(page.body.data.checklist.map((item: { id: string }) => item.id)).toEqual([
@@ -234,34 +316,74 @@ describe('the review page', () => {
       'receiver-power',
     ]);
     // [cap-658] failsafe with the model restrained; [ama-safety-code] range check before the first flight
-    expect(page.body.data.checklist.find((item: { id: string }) => item.id === 'failsafe-tested').source.label).toBe('cap-658');
-    expect(page.body.data.checklist.find((item: { id: string }) => item.id === 'range-check').source.label).toBe('ama-safety-code');
+    expect(page.body.data.checklist.find((item: { id: string }) => item.id === 'failsafe-tested').source.label).toBe(
+      'cap-658',
+    );
+    expect(page.body.data.checklist.find((item: { id: string }) => item.id === 'range-check').source.label).toBe(
+      'ama-safety-code',
+    );
     expect(page.body.data.can).toMatchObject({ verdict: false, approve: false, comment: false });
-    expect((await reviewer.get(`/api/reviews/${first}`).expect(200)).body.data.can).toMatchObject({ verdict: true, approve: true, comment: true, tick: true });
-    expect((await author.get(`/api/reviews/${first}`).expect(200)).body.data.can).toMatchObject({ verdict: true, approve: false, approve_refusal: { code: 'own-revision' } });
+    expect((await reviewer.get(`/api/reviews/${first}`).expect(200)).body.data.can).toMatchObject({
+      verdict: true,
+      approve: true,
+      comment: true,
+      tick: true,
+    });
+    expect((await author.get(`/api/reviews/${first}`).expect(200)).body.data.can).toMatchObject({
+      verdict: true,
+      approve: false,
+      approve_refusal: { code: 'own-revision' },
+    });
 
     await verdict(reviewer, first, { verdict: 'approve' }).expect(201);
-    const third = await saveVia(author, modelId, 2, edit(SCALE(), '{ pin: 3, ch: 11, failsafe: hold }', '{ pin: 3, ch: 11, failsafe: 1200 }'), 'Dimmer on loss');
-    await saveVia(author, modelId, 3, edit(SCALE(), '{ pin: 3, ch: 11, failsafe: hold }', '{ pin: 3, ch: 11, failsafe: 1100 }'), 'Dimmer still');
+    const third = await saveVia(
+      author,
+      modelId,
+      2,
+      edit(SCALE(), '{ pin: 3, ch: 11, failsafe: hold }', '{ pin: 3, ch: 11, failsafe: 1200 }'),
+      'Dimmer on loss',
+    );
+    await saveVia(
+      author,
+      modelId,
+      3,
+      edit(SCALE(), '{ pin: 3, ch: 11, failsafe: hold }', '{ pin: 3, ch: 11, failsafe: 1100 }'),
+      'Dimmer still',
+    );
     const fourth = (await author.get(`/api/models/${modelId}`).expect(200)).body.data.latest;
     const later = await reviewOf(fourth.id);
     const laterPage = await reviewer.get(`/api/reviews/${later}`).expect(200);
     expect(laterPage.body.data.base).toMatchObject({ kind: 'approved', revision: { id: second1.id, number: 2 } });
-    expect(laterPage.body.data.compare.changes).toEqual([expect.objectContaining({ path: 'receivers[id=wing].map[pin=3].failsafe', before: 1500, after: 1100 })]);
+    expect(laterPage.body.data.compare.changes).toEqual([
+      expect.objectContaining({ path: 'receivers[id=wing].map[pin=3].failsafe', before: 1500, after: 1100 }),
+    ]);
     expect(third.number).toBe(3);
   });
 
   it('ticks and unticks checklist items, with the verdict or on their own', async () => {
     const { revision } = await scaleModel();
     const review = await reviewOf(revision.id);
-    const ticked = await reviewer.post(`/api/reviews/${review}/checklist`, { item: 'range-check', ticked: true }).expect(200);
-    expect(ticked.body.data.find((item: { id: string }) => item.id === 'range-check')).toMatchObject({ ticked: true, ticked_by: { id: reviewer.user.id } });
-    await verdict(reviewer, review, { verdict: 'comment', checklist: { 'failsafe-tested': true, 'range-check': false } }).expect(201);
+    const ticked = await reviewer
+      .post(`/api/reviews/${review}/checklist`, { item: 'range-check', ticked: true })
+      .expect(200);
+    expect(ticked.body.data.find((item: { id: string }) => item.id === 'range-check')).toMatchObject({
+      ticked: true,
+      ticked_by: { id: reviewer.user.id },
+    });
+    await verdict(reviewer, review, {
+      verdict: 'comment',
+      checklist: { 'failsafe-tested': true, 'range-check': false },
+    }).expect(201);
     const page = await reviewer.get(`/api/reviews/${review}`).expect(200);
-    const state = Object.fromEntries(page.body.data.checklist.map((item: { id: string; ticked: boolean }) => [item.id, item.ticked]));
+    const state = Object.fromEntries(
+      page.body.data.checklist.map((item: { id: string; ticked: boolean }) => [item.id, item.ticked]),
+    );
     expect(state).toMatchObject({ 'failsafe-tested': true, 'range-check': false, 'battery-charge': false });
     await viewer.post(`/api/reviews/${review}/checklist`, { item: 'range-check', ticked: true }).expect(403);
-    expect((await reviewer.post(`/api/reviews/${review}/checklist`, { item: 'engine-run', ticked: true }).expect(400)).body.error.details.fields.item).toBeDefined();
+    expect(
+      (await reviewer.post(`/api/reviews/${review}/checklist`, { item: 'engine-run', ticked: true }).expect(400)).body
+        .error.details.fields.item,
+    ).toBeDefined();
   });
 });
 
@@ -269,18 +391,53 @@ describe('anchored comments', () => {
   it('are shown on later revisions while their path still exists, and not after it is gone', async () => {
     const { modelId, revision } = await scaleModel();
     const review = await reviewOf(revision.id);
-    const anchored = await reviewer.post(`/api/reviews/${review}/comments`, { path: 'receivers[id=wing].map[pin=3]', body: 'Landing light should fail on, not hold.' }).expect(201);
-    expect(anchored.body.data).toMatchObject({ path: 'receivers[id=wing].map[pin=3]', author: { id: reviewer.user.id }, revision: { number: 1 }, carried: false });
+    const anchored = await reviewer
+      .post(`/api/reviews/${review}/comments`, {
+        path: 'receivers[id=wing].map[pin=3]',
+        body: 'Landing light should fail on, not hold.',
+      })
+      .expect(201);
+    expect(anchored.body.data).toMatchObject({
+      path: 'receivers[id=wing].map[pin=3]',
+      author: { id: reviewer.user.id },
+      revision: { number: 1 },
+      carried: false,
+    });
     await reviewer.post(`/api/reviews/${review}/comments`, { body: 'General: looks tidy.' }).expect(201);
 
-    const two = await saveVia(author, modelId, 1, edit(SCALE(), '{ pin: 3, ch: 11, failsafe: hold }', '{ pin: 3, ch: 11, failsafe: 1500 }'), 'Fail on');
+    const two = await saveVia(
+      author,
+      modelId,
+      1,
+      edit(SCALE(), '{ pin: 3, ch: 11, failsafe: hold }', '{ pin: 3, ch: 11, failsafe: 1500 }'),
+      'Fail on',
+    );
     const onTwo = await viewer.get(`/api/revisions/${two.id}/comments`).expect(200);
-    expect(onTwo.body.data).toEqual([expect.objectContaining({ path: 'receivers[id=wing].map[pin=3]', body: 'Landing light should fail on, not hold.', carried: true, revision: { id: revision.id, number: 1 } })]);
+    expect(onTwo.body.data).toEqual([
+      expect.objectContaining({
+        path: 'receivers[id=wing].map[pin=3]',
+        body: 'Landing light should fail on, not hold.',
+        carried: true,
+        revision: { id: revision.id, number: 1 },
+      }),
+    ]);
     const reviewTwo = await reviewOf(two.id);
-    expect((await reviewer.get(`/api/reviews/${reviewTwo}`).expect(200)).body.data.comments).toEqual([expect.objectContaining({ path: 'receivers[id=wing].map[pin=3]', carried: true })]);
+    expect((await reviewer.get(`/api/reviews/${reviewTwo}`).expect(200)).body.data.comments).toEqual([
+      expect.objectContaining({ path: 'receivers[id=wing].map[pin=3]', carried: true }),
+    ]);
 
-    const withoutPin = edit(edit(SCALE(), '      - { pin: 3, ch: 11, failsafe: hold }\n', ''), '  - { id: landing,    from: light-switch,   to: 11 }                           # on only at the far position\n', '');
-    const three = await saveVia(author, modelId, 2, withoutPin.replace('  - { ch: 11, function: landing-light, role: light }\n', ''), 'Landing light removed');
+    const withoutPin = edit(
+      edit(SCALE(), '      - { pin: 3, ch: 11, failsafe: hold }\n', ''),
+      '  - { id: landing,    from: light-switch,   to: 11 }                           # on only at the far position\n',
+      '',
+    );
+    const three = await saveVia(
+      author,
+      modelId,
+      2,
+      withoutPin.replace('  - { ch: 11, function: landing-light, role: light }\n', ''),
+      'Landing light removed',
+    );
     expect((await viewer.get(`/api/revisions/${three.id}/comments`).expect(200)).body.data).toEqual([]);
     expect((await viewer.get(`/api/revisions/${revision.id}/comments`).expect(200)).body.data).toHaveLength(2);
   });
@@ -288,9 +445,23 @@ describe('anchored comments', () => {
   it('refuses a path that is not in the reviewed revision or cannot be read; viewers cannot comment', async () => {
     const { revision } = await scaleModel();
     const review = await reviewOf(revision.id);
-    expect((await reviewer.post(`/api/reviews/${review}/comments`, { path: 'receivers[id=tail].map[pin=1]', body: 'Where?' }).expect(422)).body.error.code).toBe('path-not-found');
-    expect((await reviewer.post(`/api/reviews/${review}/comments`, { path: 'receivers[id=wing', body: 'Broken' }).expect(422)).body.error.code).toBe('invalid-path');
-    expect((await reviewer.post(`/api/reviews/${review}/comments`, { body: '' }).expect(400)).body.error.details.fields.body).toBeDefined();
+    expect(
+      (
+        await reviewer
+          .post(`/api/reviews/${review}/comments`, { path: 'receivers[id=tail].map[pin=1]', body: 'Where?' })
+          .expect(422)
+      ).body.error.code,
+    ).toBe('path-not-found');
+    expect(
+      (
+        await reviewer
+          .post(`/api/reviews/${review}/comments`, { path: 'receivers[id=wing', body: 'Broken' })
+          .expect(422)
+      ).body.error.code,
+    ).toBe('invalid-path');
+    expect(
+      (await reviewer.post(`/api/reviews/${review}/comments`, { body: '' }).expect(400)).body.error.details.fields.body,
+    ).toBeDefined();
     await viewer.post(`/api/reviews/${review}/comments`, { body: 'Nice' }).expect(403);
   });
 });

@@ -5,7 +5,17 @@ import { analyzeSetup } from '../../shared/analyze';
 import { AuditEvent, Revision, SetupModel } from '../../api/models';
 import { createRoleFixture, type RoleFixture } from './helpers/factories';
 import { useTestApp } from './helpers/test-app';
-import { ALIAS_BOMB, clientFor, createModelVia, edit, fixture, SCALE, saveVia, TRAINER, type Client } from './models-support';
+import {
+  ALIAS_BOMB,
+  clientFor,
+  createModelVia,
+  edit,
+  fixture,
+  SCALE,
+  saveVia,
+  TRAINER,
+  type Client,
+} from './models-support';
 
 const t = useTestApp();
 let roles: RoleFixture;
@@ -20,11 +30,22 @@ const revisionCount = (modelId: string) => Revision.count({ where: { modelId } }
 
 describe('POST /api/models/:id/revisions', () => {
   it('saves on the latest base: number 2, parent revision 1, the content hash of the document, the findings', async () => {
-    const { model, revision: first } = await createModelVia(editor, roles.workspace.id, { name: 'Meadowlark 40', yaml: TRAINER() });
+    const { model, revision: first } = await createModelVia(editor, roles.workspace.id, {
+      name: 'Meadowlark 40',
+      yaml: TRAINER(),
+    });
     const yaml = edit(TRAINER(), 'expo: 30,', 'expo: 35,');
-    const response = await editor.post(`/api/models/${model.id}/revisions`, { base: 1, message: 'More aileron expo', yaml }).expect(201);
+    const response = await editor
+      .post(`/api/models/${model.id}/revisions`, { base: 1, message: 'More aileron expo', yaml })
+      .expect(201);
     const saved = response.body.data;
-    expect(saved).toMatchObject({ number: 2, parent_id: first.id, message: 'More aileron expo', origin: 'save', author: { id: roles.members.editor.id } });
+    expect(saved).toMatchObject({
+      number: 2,
+      parent_id: first.id,
+      message: 'More aileron expo',
+      origin: 'save',
+      author: { id: roles.members.editor.id },
+    });
     expect(saved.content_hash).toBe(contentHash(analyzeSetup(yaml).data));
     expect(saved.content_hash).not.toBe(first.content_hash);
     expect(saved.findings).toEqual(analyzeSetup(yaml).findings);
@@ -35,7 +56,9 @@ describe('POST /api/models/:id/revisions', () => {
     const { model } = await createModelVia(editor, roles.workspace.id, { name: 'Stale base', yaml: TRAINER() });
     await saveVia(editor, model.id, 1, edit(TRAINER(), 'expo: 30,', 'expo: 31,'));
     await saveVia(editor, model.id, 2, edit(TRAINER(), 'expo: 30,', 'expo: 32,'));
-    const response = await editor.post(`/api/models/${model.id}/revisions`, { base: 2, message: 'late', yaml: TRAINER() }).expect(409);
+    const response = await editor
+      .post(`/api/models/${model.id}/revisions`, { base: 2, message: 'late', yaml: TRAINER() })
+      .expect(409);
     expect(response.body.error).toMatchObject({ code: 'stale-base', details: { base: 2, latest: 3 } });
     expect(response.body.error.message).toMatch(/revision 3/);
     expect(await revisionCount(model.id)).toBe(3);
@@ -46,12 +69,19 @@ describe('POST /api/models/:id/revisions', () => {
   it('ten concurrent saves on one base: exactly one 201, nine 409, and the numbers stay gapless', async () => {
     const { model } = await createModelVia(editor, roles.workspace.id, { name: 'Race', yaml: TRAINER() });
     const texts = Array.from({ length: 10 }, (_, index) => edit(TRAINER(), 'expo: 30,', `expo: ${40 + index},`));
-    const responses = await Promise.all(texts.map((yaml, index) => editor.post(`/api/models/${model.id}/revisions`, { base: 1, message: `racer ${index}`, yaml })));
+    const responses = await Promise.all(
+      texts.map((yaml, index) =>
+        editor.post(`/api/models/${model.id}/revisions`, { base: 1, message: `racer ${index}`, yaml }),
+      ),
+    );
     const statuses = responses.map((response) => response.status).sort();
     expect(statuses).toEqual([201, 409, 409, 409, 409, 409, 409, 409, 409, 409]);
-    for (const response of responses.filter((r) => r.status === 409)) expect(response.body.error.details.latest).toBe(2);
+    for (const response of responses.filter((r) => r.status === 409))
+      expect(response.body.error.details.latest).toBe(2);
 
-    const numbers = (await Revision.findAll({ where: { modelId: model.id }, order: [['number', 'ASC']] })).map((revision) => revision.number);
+    const numbers = (await Revision.findAll({ where: { modelId: model.id }, order: [['number', 'ASC']] })).map(
+      (revision) => revision.number,
+    );
     expect(numbers).toEqual([1, 2]);
     const winner = responses.find((response) => response.status === 201)!.body.data;
     const stored = await Revision.findByPk(winner.id);
@@ -62,8 +92,11 @@ describe('POST /api/models/:id/revisions', () => {
   it('ten concurrent saves, each retried on the latest base after a 409, all land with numbers 2-11', async () => {
     const { model } = await createModelVia(editor, roles.workspace.id, { name: 'Queue', yaml: TRAINER() });
     const saveUntilAccepted = async (index: number): Promise<number> => {
-      for (let base = 1; ; ) {
-        const response = await editor.post(`/api/models/${model.id}/revisions`, { base, yaml: edit(TRAINER(), 'expo: 30,', `expo: ${50 + index},`) });
+      for (let base = 1; ;) {
+        const response = await editor.post(`/api/models/${model.id}/revisions`, {
+          base,
+          yaml: edit(TRAINER(), 'expo: 30,', `expo: ${50 + index},`),
+        });
         if (response.status === 201) return response.body.data.number;
         expect(response.status).toBe(409);
         base = response.body.error.details.latest;
@@ -79,13 +112,24 @@ describe('POST /api/models/:id/revisions', () => {
     ['a list instead of a mapping', '- format: bindery-setup/1\n'],
     ['a duplicate key', 'format: bindery-setup/1\nformat: bindery-setup/1\n'],
   ])('refuses %s with 422 unreadable-setup and the syntax findings, storing nothing', async (_label, yaml) => {
-    const { model } = await createModelVia(editor, roles.workspace.id, { name: `Unreadable ${_label}`, yaml: TRAINER() });
+    const { model } = await createModelVia(editor, roles.workspace.id, {
+      name: `Unreadable ${_label}`,
+      yaml: TRAINER(),
+    });
     const events = await AuditEvent.count();
-    const response = await editor.post(`/api/models/${model.id}/revisions`, { base: 1, message: 'bad', yaml }).expect(422);
+    const response = await editor
+      .post(`/api/models/${model.id}/revisions`, { base: 1, message: 'bad', yaml })
+      .expect(422);
     expect(response.body.error.code).toBe('unreadable-setup');
     const findings = response.body.error.details.findings;
     expect(findings.length).toBeGreaterThan(0);
-    for (const finding of findings) expect(finding).toMatchObject({ rule: 'syntax', severity: 'error', line: expect.any(Number), column: expect.any(Number) });
+    for (const finding of findings)
+      expect(finding).toMatchObject({
+        rule: 'syntax',
+        severity: 'error',
+        line: expect.any(Number),
+        column: expect.any(Number),
+      });
     expect(await revisionCount(model.id)).toBe(1);
     expect(await AuditEvent.count()).toBe(events);
   });
@@ -101,7 +145,11 @@ describe('POST /api/models/:id/revisions', () => {
   it('saves a readable setup that has check errors, with its findings and counts', async () => {
     const { model } = await createModelVia(editor, roles.workspace.id, { name: 'Has errors', yaml: TRAINER() });
     const yaml = fixture('pairs/remap-second-receiver.before.yaml');
-    const saved = (await editor.post(`/api/models/${model.id}/revisions`, { base: 1, message: 'wing receiver bound fresh', yaml }).expect(201)).body.data;
+    const saved = (
+      await editor
+        .post(`/api/models/${model.id}/revisions`, { base: 1, message: 'wing receiver bound fresh', yaml })
+        .expect(201)
+    ).body.data;
     expect(saved.error_count).toBe(analyzeSetup(yaml).counts.errors);
     expect(saved.error_count).toBeGreaterThan(0);
     expect(saved.findings.map((finding: { rule: string }) => finding.rule)).toContain('function-unrouted');
@@ -119,9 +167,13 @@ describe('POST /api/models/:id/revisions', () => {
   it('refuses a setup over 512 KB with 413 and a NUL character with 422', async () => {
     const { model } = await createModelVia(editor, roles.workspace.id, { name: 'Limits', yaml: TRAINER() });
     const huge = `${TRAINER()}\n# ${'x'.repeat(530 * 1024)}\n`;
-    expect((await editor.post(`/api/models/${model.id}/revisions`, { base: 1, yaml: huge }).expect(413)).body.error.code).toBe('too-large');
+    expect(
+      (await editor.post(`/api/models/${model.id}/revisions`, { base: 1, yaml: huge }).expect(413)).body.error.code,
+    ).toBe('too-large');
     const nul = edit(TRAINER(), 'Meadowlark 40', 'Meadow\u0000lark');
-    expect((await editor.post(`/api/models/${model.id}/revisions`, { base: 1, yaml: nul }).expect(422)).body.error.code).toBe('unreadable-setup');
+    expect(
+      (await editor.post(`/api/models/${model.id}/revisions`, { base: 1, yaml: nul }).expect(422)).body.error.code,
+    ).toBe('unreadable-setup');
     expect(await revisionCount(model.id)).toBe(1);
   });
 
@@ -147,7 +199,8 @@ describe('GET /api/models/:id/revisions (history)', () => {
   beforeAll(async () => {
     const { model } = await createModelVia(editor, roles.workspace.id, { name: 'History', yaml: TRAINER() });
     modelId = model.id;
-    for (let base = 1; base < 7; base += 1) await saveVia(editor, modelId, base, edit(TRAINER(), 'expo: 30,', `expo: ${30 + base},`), `step ${base + 1}`);
+    for (let base = 1; base < 7; base += 1)
+      await saveVia(editor, modelId, base, edit(TRAINER(), 'expo: 30,', `expo: ${30 + base},`), `step ${base + 1}`);
   });
 
   it('pages newest first with next_before until the first revision', async () => {
@@ -165,15 +218,24 @@ describe('GET /api/models/:id/revisions (history)', () => {
     const body = (await editor.get(`/api/models/${modelId}/revisions`).expect(200)).body;
     expect(body.pagination).toMatchObject({ limit: 50, next_before: null });
     expect(body.data).toHaveLength(7);
-    expect(body.data[0]).toMatchObject({ number: 7, message: 'step 7', author: { id: roles.members.editor.id, name: 'The editor' }, tags: [], error_count: 0 });
+    expect(body.data[0]).toMatchObject({
+      number: 7,
+      message: 'step 7',
+      author: { id: roles.members.editor.id, name: 'The editor' },
+      tags: [],
+      error_count: 0,
+    });
     expect(body.data[0]).not.toHaveProperty('yaml');
     expect(body.data[0].content_hash).toMatch(/^[0-9a-f]{64}$/);
   });
 
-  it.each(['limit=0', 'limit=101', 'limit=abc', 'limit=2.5', 'before=0', 'before=x'])('refuses %s with 400', async (query) => {
-    const response = await editor.get(`/api/models/${modelId}/revisions?${query}`).expect(400);
-    expect(response.body.error.code).toBe('invalid-input');
-  });
+  it.each(['limit=0', 'limit=101', 'limit=abc', 'limit=2.5', 'before=0', 'before=x'])(
+    'refuses %s with 400',
+    async (query) => {
+      const response = await editor.get(`/api/models/${modelId}/revisions?${query}`).expect(400);
+      expect(response.body.error.code).toBe('invalid-input');
+    },
+  );
 });
 
 describe('GET /api/revisions/:id', () => {
@@ -183,18 +245,28 @@ describe('GET /api/revisions/:id', () => {
   it('answers the revision with yaml, document, findings, tags and author', async () => {
     const { model, revision } = await createModelVia(editor, roles.workspace.id, { name: 'Möwe 40', yaml: exotic });
     const body = (await editor.get(`/api/revisions/${revision.id}`).expect(200)).body.data;
-    expect(body).toMatchObject({ id: revision.id, number: 1, yaml: exotic, tags: [], author: { id: roles.members.editor.id }, model: { id: model.id, name: 'Möwe 40' } });
+    expect(body).toMatchObject({
+      id: revision.id,
+      number: 1,
+      yaml: exotic,
+      tags: [],
+      author: { id: roles.members.editor.id },
+      model: { id: model.id, name: 'Möwe 40' },
+    });
     expect(body.document).toEqual(analyzeSetup(exotic).data);
     expect(body.findings).toEqual(analyzeSetup(exotic).findings);
   });
 
   it('answers ?format=yaml with the exact bytes as application/yaml, and ?download=1 as a named attachment', async () => {
     const { revision } = await createModelVia(editor, roles.workspace.id, { name: 'Möwe 40 / Ørsted?', yaml: exotic });
-    const raw = await editor.get(`/api/revisions/${revision.id}?format=yaml`).buffer(true).parse((res, done) => {
-      const chunks: Buffer[] = [];
-      res.on('data', (chunk: Buffer) => chunks.push(chunk));
-      res.on('end', () => done(null, Buffer.concat(chunks)));
-    });
+    const raw = await editor
+      .get(`/api/revisions/${revision.id}?format=yaml`)
+      .buffer(true)
+      .parse((res, done) => {
+        const chunks: Buffer[] = [];
+        res.on('data', (chunk: Buffer) => chunks.push(chunk));
+        res.on('end', () => done(null, Buffer.concat(chunks)));
+      });
     expect(raw.status).toBe(200);
     expect(raw.headers['content-type']).toMatch(/^application\/yaml/);
     expect(Buffer.compare(raw.body as Buffer, Buffer.from(exotic, 'utf8'))).toBe(0);
@@ -217,7 +289,9 @@ describe('GET /api/revisions/:id', () => {
 
   it('is 404 for an unknown id or one that is not a UUID, and 400 for an unknown format', async () => {
     const { revision } = await createModelVia(editor, roles.workspace.id, { name: 'Formats', yaml: TRAINER() });
-    expect((await editor.get('/api/revisions/4b0f5d9e-5d1e-4c1b-9d2f-1a2b3c4d5e6f').expect(404)).body.error.code).toBe('revision-not-found');
+    expect((await editor.get('/api/revisions/4b0f5d9e-5d1e-4c1b-9d2f-1a2b3c4d5e6f').expect(404)).body.error.code).toBe(
+      'revision-not-found',
+    );
     await editor.get('/api/revisions/12').expect(404);
     await editor.get(`/api/revisions/${revision.id}?format=toml`).expect(400);
   });
@@ -225,11 +299,22 @@ describe('GET /api/revisions/:id', () => {
 
 describe('POST /api/models/:id/revert', () => {
   it('makes a new revision with the old text and hash, recording which revision came back', async () => {
-    const { model, revision: first } = await createModelVia(editor, roles.workspace.id, { name: 'Revert', yaml: TRAINER() });
+    const { model, revision: first } = await createModelVia(editor, roles.workspace.id, {
+      name: 'Revert',
+      yaml: TRAINER(),
+    });
     await saveVia(editor, model.id, 1, edit(TRAINER(), 'expo: 30,', 'expo: 60,'));
     await saveVia(editor, model.id, 2, fixture('pairs/remap-second-receiver.before.yaml'));
-    const reverted = (await editor.post(`/api/models/${model.id}/revert`, { number: 1, base: 3 }).expect(201)).body.data;
-    expect(reverted).toMatchObject({ number: 4, origin: 'revert', source_revision_id: first.id, content_hash: first.content_hash, message: 'Revert to revision 1', error_count: 0 });
+    const reverted = (await editor.post(`/api/models/${model.id}/revert`, { number: 1, base: 3 }).expect(201)).body
+      .data;
+    expect(reverted).toMatchObject({
+      number: 4,
+      origin: 'revert',
+      source_revision_id: first.id,
+      content_hash: first.content_hash,
+      message: 'Revert to revision 1',
+      error_count: 0,
+    });
     const stored = await Revision.findByPk(reverted.id);
     expect(stored!.yamlText).toBe(TRAINER());
     expect(await revisionCount(model.id)).toBe(4);
@@ -238,9 +323,19 @@ describe('POST /api/models/:id/revert', () => {
   it('takes a message, refuses a stale base with 409 and an unknown number with 404', async () => {
     const { model } = await createModelVia(editor, roles.workspace.id, { name: 'Revert rules', yaml: TRAINER() });
     await saveVia(editor, model.id, 1, SCALE());
-    expect((await editor.post(`/api/models/${model.id}/revert`, { number: 1, base: 2, message: 'Back to the trainer' }).expect(201)).body.data.message).toBe('Back to the trainer');
-    expect((await editor.post(`/api/models/${model.id}/revert`, { number: 1, base: 2 }).expect(409)).body.error).toMatchObject({ code: 'stale-base', details: { latest: 3 } });
-    expect((await editor.post(`/api/models/${model.id}/revert`, { number: 9, base: 3 }).expect(404)).body.error.code).toBe('revision-not-found');
+    expect(
+      (
+        await editor
+          .post(`/api/models/${model.id}/revert`, { number: 1, base: 2, message: 'Back to the trainer' })
+          .expect(201)
+      ).body.data.message,
+    ).toBe('Back to the trainer');
+    expect(
+      (await editor.post(`/api/models/${model.id}/revert`, { number: 1, base: 2 }).expect(409)).body.error,
+    ).toMatchObject({ code: 'stale-base', details: { latest: 3 } });
+    expect(
+      (await editor.post(`/api/models/${model.id}/revert`, { number: 9, base: 3 }).expect(404)).body.error.code,
+    ).toBe('revision-not-found');
     await editor.post(`/api/models/${model.id}/revert`, { base: 3 }).expect(400);
     expect(await revisionCount(model.id)).toBe(3);
   });
@@ -248,29 +343,49 @@ describe('POST /api/models/:id/revert', () => {
 
 describe('tags', () => {
   it('adds, lists, refuses a name taken by another revision, and removes', async () => {
-    const { model, revision: first } = await createModelVia(editor, roles.workspace.id, { name: 'Tagged', yaml: TRAINER() });
+    const { model, revision: first } = await createModelVia(editor, roles.workspace.id, {
+      name: 'Tagged',
+      yaml: TRAINER(),
+    });
     const second = await saveVia(editor, model.id, 1, SCALE());
     const added = await editor.post(`/api/revisions/${first.id}/tags`, { name: 'maiden' }).expect(201);
     expect(added.body.data).toEqual({ revision_id: first.id, number: 1, tags: ['maiden'] });
     await editor.post(`/api/revisions/${first.id}/tags`, { name: 'season-2026' }).expect(201);
-    expect((await editor.post(`/api/revisions/${first.id}/tags`, { name: 'maiden' }).expect(200)).body.data.tags).toEqual(['maiden', 'season-2026']);
+    expect(
+      (await editor.post(`/api/revisions/${first.id}/tags`, { name: 'maiden' }).expect(200)).body.data.tags,
+    ).toEqual(['maiden', 'season-2026']);
 
     const taken = await editor.post(`/api/revisions/${second.id}/tags`, { name: 'maiden' }).expect(409);
     expect(taken.body.error).toMatchObject({ code: 'tag-taken', details: { name: 'maiden', number: 1 } });
 
     const history = (await editor.get(`/api/models/${model.id}/revisions`).expect(200)).body.data;
-    expect(history.find((revision: { number: number }) => revision.number === 1).tags).toEqual(['maiden', 'season-2026']);
-    expect((await editor.get(`/api/revisions/${first.id}`).expect(200)).body.data.tags).toEqual(['maiden', 'season-2026']);
+    expect(history.find((revision: { number: number }) => revision.number === 1).tags).toEqual([
+      'maiden',
+      'season-2026',
+    ]);
+    expect((await editor.get(`/api/revisions/${first.id}`).expect(200)).body.data.tags).toEqual([
+      'maiden',
+      'season-2026',
+    ]);
 
-    expect((await editor.delete(`/api/revisions/${first.id}/tags/maiden`).expect(200)).body.data.tags).toEqual(['season-2026']);
-    expect((await editor.delete(`/api/revisions/${first.id}/tags/maiden`).expect(404)).body.error.code).toBe('tag-not-found');
+    expect((await editor.delete(`/api/revisions/${first.id}/tags/maiden`).expect(200)).body.data.tags).toEqual([
+      'season-2026',
+    ]);
+    expect((await editor.delete(`/api/revisions/${first.id}/tags/maiden`).expect(404)).body.error.code).toBe(
+      'tag-not-found',
+    );
     await editor.post(`/api/revisions/${second.id}/tags`, { name: 'maiden' }).expect(201);
   });
 
-  it.each(['', 'Season 2026', 'x'.repeat(41), '-leading', 'ünïcode', 'a/b'])('refuses the tag name %j with 400', async (name) => {
-    const { revision } = await createModelVia(editor, roles.workspace.id, { name: 'Tag names', yaml: TRAINER() });
-    expect((await editor.post(`/api/revisions/${revision.id}/tags`, { name }).expect(400)).body.error.code).toBe('invalid-input');
-  });
+  it.each(['', 'Season 2026', 'x'.repeat(41), '-leading', 'ünïcode', 'a/b'])(
+    'refuses the tag name %j with 400',
+    async (name) => {
+      const { revision } = await createModelVia(editor, roles.workspace.id, { name: 'Tag names', yaml: TRAINER() });
+      expect((await editor.post(`/api/revisions/${revision.id}/tags`, { name }).expect(400)).body.error.code).toBe(
+        'invalid-input',
+      );
+    },
+  );
 
   it('lets the same name stand on revisions of two different models', async () => {
     const one = await createModelVia(editor, roles.workspace.id, { name: 'One', yaml: TRAINER() });
@@ -283,11 +398,20 @@ describe('tags', () => {
 describe('the database keeps history immutable', () => {
   it('refuses a direct SQL UPDATE, DELETE and TRUNCATE of revisions', async () => {
     const { revision } = await createModelVia(editor, roles.workspace.id, { name: 'Immutable', yaml: TRAINER() });
-    await expect(t.sequelize.query(`UPDATE revisions SET message = 'rewritten' WHERE id = $1`, { bind: [revision.id] })).rejects.toThrow(/revisions are immutable: UPDATE/);
-    await expect(t.sequelize.query(`UPDATE revisions SET yaml_text = '' WHERE id = $1`, { bind: [revision.id] })).rejects.toThrow(/immutable/);
-    await expect(t.sequelize.query(`DELETE FROM revisions WHERE id = $1`, { bind: [revision.id] })).rejects.toThrow(/revisions are immutable: DELETE/);
+    await expect(
+      t.sequelize.query(`UPDATE revisions SET message = 'rewritten' WHERE id = $1`, { bind: [revision.id] }),
+    ).rejects.toThrow(/revisions are immutable: UPDATE/);
+    await expect(
+      t.sequelize.query(`UPDATE revisions SET yaml_text = '' WHERE id = $1`, { bind: [revision.id] }),
+    ).rejects.toThrow(/immutable/);
+    await expect(t.sequelize.query(`DELETE FROM revisions WHERE id = $1`, { bind: [revision.id] })).rejects.toThrow(
+      /revisions are immutable: DELETE/,
+    );
     await expect(t.sequelize.query('TRUNCATE revisions CASCADE')).rejects.toThrow(/revisions are immutable: TRUNCATE/);
-    const [row] = await t.sequelize.query<{ message: string }>('SELECT message FROM revisions WHERE id = $1', { bind: [revision.id], type: QueryTypes.SELECT });
+    const [row] = await t.sequelize.query<{ message: string }>('SELECT message FROM revisions WHERE id = $1', {
+      bind: [revision.id],
+      type: QueryTypes.SELECT,
+    });
     expect(row.message).toBe('First revision');
   });
 

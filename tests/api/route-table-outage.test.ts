@@ -35,7 +35,10 @@ beforeAll(async () => {
   sequelize = createSequelize(cluster.url);
   await migrate(sequelize);
   mailServer = await startLocalMailServer();
-  mail = createMailService({ host: mailServer.host, port: mailServer.port, secure: false, ignoreTLS: true, auth: null }, { from: 'Bindery <bindery@test.example>', appUrl: 'http://bindery.test', outboxEnabled: true });
+  mail = createMailService(
+    { host: mailServer.host, port: mailServer.port, secure: false, ignoreTLS: true, auth: null },
+    { from: 'Bindery <bindery@test.example>', appUrl: 'http://bindery.test', outboxEnabled: true },
+  );
   app = createApp({ sequelize, config, mail });
 });
 
@@ -52,7 +55,8 @@ describe('every route while the database is down', () => {
     const world = await buildSampleWorld({ app, config } as MailTestApp);
     const headers = await world.headersOf('owner');
     const calls: { key: string; method: string; call: Call }[] = [];
-    for (const entry of ROUTE_TABLE) calls.push({ key: routeKey(entry), method: entry.method, call: await world.samples[routeKey(entry)]('owner') });
+    for (const entry of ROUTE_TABLE)
+      calls.push({ key: routeKey(entry), method: entry.method, call: await world.samples[routeKey(entry)]('owner') });
 
     await cluster.stop();
     const answers: string[] = [];
@@ -68,9 +72,16 @@ describe('every route while the database is down', () => {
       const code = key === 'GET /api/health' ? response.body.data?.database : response.body.error?.code;
       answers.push(`${key} ${response.status} ${code ?? ''}`.trim());
     }
-    expect(answers.filter((answer) => / 5\d\d/.test(answer) && !/ 503 (database-unavailable|down)$/.test(answer)), 'answers other than 503 database-unavailable').toEqual([]);
+    expect(
+      answers.filter((answer) => / 5\d\d/.test(answer) && !/ 503 (database-unavailable|down)$/.test(answer)),
+      'answers other than 503 database-unavailable',
+    ).toEqual([]);
     // Only the routes that never touch the database answer anything but 503.
-    expect(answers.filter((answer) => !/ 503 /.test(answer))).toEqual(['POST /api/check 200', 'GET /api/schema/setup-1.json 200', 'POST /api/auth/sign-out 200']);
+    expect(answers.filter((answer) => !/ 503 /.test(answer))).toEqual([
+      'POST /api/check 200',
+      'GET /api/schema/setup-1.json 200',
+      'POST /api/auth/sign-out 200',
+    ]);
 
     await cluster.start();
     await request(app).get('/api/health').expect(200);

@@ -26,11 +26,19 @@ function expectedFor(access: Access, caller: Caller): 'success' | 401 | 403 | 40
 
 describe('the route table', () => {
   it('names every route the app has registered, and no route it has not', () => {
-    const registered = registeredRoutes(t.app as never).map(routeKey).sort();
+    const registered = registeredRoutes(t.app as never)
+      .map(routeKey)
+      .sort();
     const listed = ROUTE_TABLE.map(routeKey).sort();
     expect(new Set(listed).size, 'a route is listed twice').toBe(listed.length);
-    expect(registered.filter((key) => !listed.includes(key)), 'registered routes missing from api/routes/route-table.ts').toEqual([]);
-    expect(listed.filter((key) => !registered.includes(key)), 'table entries that name no registered route').toEqual([]);
+    expect(
+      registered.filter((key) => !listed.includes(key)),
+      'registered routes missing from api/routes/route-table.ts',
+    ).toEqual([]);
+    expect(
+      listed.filter((key) => !registered.includes(key)),
+      'table entries that name no registered route',
+    ).toEqual([]);
   });
 
   it('has a request sample for every entry, so every route is called below', () => {

@@ -88,12 +88,27 @@ describe('cross-site request forgery', () => {
   });
 
   it('leaves safe methods, Bearer-token callers and callers that are not browsers alone', async () => {
-    await request(t.app).get('/api/me').set('Host', HOST).set('Cookie', cookie).set('Origin', FOREIGN_ORIGIN).set('Sec-Fetch-Site', 'cross-site').expect(200);
+    await request(t.app)
+      .get('/api/me')
+      .set('Host', HOST)
+      .set('Cookie', cookie)
+      .set('Origin', FOREIGN_ORIGIN)
+      .set('Sec-Fetch-Site', 'cross-site')
+      .expect(200);
     const user = await createUser();
     await addMember(await createWorkspace({ name: 'Script field' }), user, 'owner');
-    await request(t.app).post('/api/workspaces').set(bearer(tokenFor(user, t.config))).set('Origin', FOREIGN_ORIGIN).send({ name: 'From a script' }).expect(201);
+    await request(t.app)
+      .post('/api/workspaces')
+      .set(bearer(tokenFor(user, t.config)))
+      .set('Origin', FOREIGN_ORIGIN)
+      .send({ name: 'From a script' })
+      .expect(201);
     // A command-line client holding a cookie sends neither Origin nor Sec-Fetch-Site.
-    await request(t.app).post(`/api/workspaces/${workspaceId}/models`).set('Cookie', cookie).send({ name: 'From curl' }).expect(201);
+    await request(t.app)
+      .post(`/api/workspaces/${workspaceId}/models`)
+      .set('Cookie', cookie)
+      .send({ name: 'From curl' })
+      .expect(201);
   });
 });
 
@@ -101,7 +116,10 @@ describe('CORS', () => {
   it('grants no other origin anything unless CORS_ORIGINS is configured', async () => {
     const simple = await request(t.app).get('/api/health').set('Origin', FOREIGN_ORIGIN);
     expect(simple.headers['access-control-allow-origin']).toBeUndefined();
-    const preflight = await request(t.app).options(`/api/workspaces/${workspaceId}/models`).set('Origin', FOREIGN_ORIGIN).set('Access-Control-Request-Method', 'POST');
+    const preflight = await request(t.app)
+      .options(`/api/workspaces/${workspaceId}/models`)
+      .set('Origin', FOREIGN_ORIGIN)
+      .set('Access-Control-Request-Method', 'POST');
     expect(preflight.headers['access-control-allow-origin']).toBeUndefined();
     expect(preflight.headers['access-control-allow-methods']).toBeUndefined();
   });
@@ -111,10 +129,20 @@ describe('CORS', () => {
     const { app, config } = t.appWith({ corsOrigins: [listed] });
     // That app signs with its own key, so the session is made for it.
     const cookie = `${config.cookieName}=${tokenFor(editor, config)}`;
-    const preflight = await request(app).options(`/api/workspaces/${workspaceId}/models`).set('Origin', listed).set('Access-Control-Request-Method', 'POST').expect(204);
-    expect(preflight.headers).toMatchObject({ 'access-control-allow-origin': listed, 'access-control-allow-credentials': 'true' });
+    const preflight = await request(app)
+      .options(`/api/workspaces/${workspaceId}/models`)
+      .set('Origin', listed)
+      .set('Access-Control-Request-Method', 'POST')
+      .expect(204);
+    expect(preflight.headers).toMatchObject({
+      'access-control-allow-origin': listed,
+      'access-control-allow-credentials': 'true',
+    });
     expect(preflight.headers['access-control-allow-methods']).toContain('POST');
-    const other = await request(app).options('/api/health').set('Origin', FOREIGN_ORIGIN).set('Access-Control-Request-Method', 'GET');
+    const other = await request(app)
+      .options('/api/health')
+      .set('Origin', FOREIGN_ORIGIN)
+      .set('Access-Control-Request-Method', 'GET');
     expect(other.headers['access-control-allow-origin']).toBeUndefined();
 
     const created = await request(app)
@@ -125,12 +153,20 @@ describe('CORS', () => {
       .send({ name: 'From the club client' })
       .expect(201);
     expect(created.headers['access-control-allow-origin']).toBe(listed);
-    await request(app).post(`/api/workspaces/${workspaceId}/models`).set('Cookie', cookie).set('Origin', FOREIGN_ORIGIN).send({ name: 'Not listed' }).expect(403);
+    await request(app)
+      .post(`/api/workspaces/${workspaceId}/models`)
+      .set('Cookie', cookie)
+      .set('Origin', FOREIGN_ORIGIN)
+      .send({ name: 'Not listed' })
+      .expect(403);
   });
 
   it('reads CORS_ORIGINS as bare http(s) origins and refuses anything else', () => {
     expect(parseCorsOrigins(undefined)).toEqual([]);
-    expect(parseCorsOrigins(' https://a.example , http://127.0.0.1:5173 ')).toEqual(['https://a.example', 'http://127.0.0.1:5173']);
+    expect(parseCorsOrigins(' https://a.example , http://127.0.0.1:5173 ')).toEqual([
+      'https://a.example',
+      'http://127.0.0.1:5173',
+    ]);
     expect(() => parseCorsOrigins('https://a.example/path')).toThrow(/no path/);
     expect(() => parseCorsOrigins('ftp://a.example')).toThrow(/http/);
     expect(() => parseCorsOrigins('not an origin')).toThrow(/CORS_ORIGINS/);
@@ -142,7 +178,10 @@ describe('Content-Security-Policy on the served app', () => {
   beforeAll(() => {
     webDir = mkdtempSync(path.join(os.tmpdir(), 'bindery-csp-'));
     mkdirSync(path.join(webDir, 'assets'));
-    writeFileSync(path.join(webDir, 'index.html'), '<!doctype html><title>Bindery</title><div id="root"></div><script type="module" src="/assets/main.js"></script>');
+    writeFileSync(
+      path.join(webDir, 'index.html'),
+      '<!doctype html><title>Bindery</title><div id="root"></div><script type="module" src="/assets/main.js"></script>',
+    );
     writeFileSync(path.join(webDir, 'assets', 'main.js'), 'export {}');
   });
   afterAll(() => rmSync(webDir, { recursive: true, force: true }));
@@ -202,10 +241,18 @@ describe('download file names', () => {
     const workspace = await createWorkspace({ name: 'Names', owner: user });
     const headers = bearer(tokenFor(user, t.config));
     const name = '../"Mustang" <P-51>; r=1';
-    const { revision } = (await request(t.app).post(`/api/workspaces/${workspace.id}/models`).set(headers).send({ name }).expect(201)).body.data;
-    const urls = [`/api/revisions/${revision.id}?download=1`, `/api/revisions/${revision.id}/patch?from=${revision.id}&download=1`, `/api/revisions/${revision.id}/field-sheet.pdf`];
+    const { revision } = (
+      await request(t.app).post(`/api/workspaces/${workspace.id}/models`).set(headers).send({ name }).expect(201)
+    ).body.data;
+    const urls = [
+      `/api/revisions/${revision.id}?download=1`,
+      `/api/revisions/${revision.id}/patch?from=${revision.id}&download=1`,
+      `/api/revisions/${revision.id}/field-sheet.pdf`,
+    ];
     for (const url of urls) {
-      const disposition = String((await request(t.app).get(url).set(headers).expect(200)).headers['content-disposition']);
+      const disposition = String(
+        (await request(t.app).get(url).set(headers).expect(200)).headers['content-disposition'],
+      );
       expect(disposition).toMatch(/^attachment; filename="?[A-Za-z0-9._ -]+"?$/);
       expect(disposition).toContain('mustang-p-51-r-1');
     }
@@ -219,7 +266,11 @@ describe('HTML in names and messages', () => {
     const headers = bearer(tokenFor(user, t.config));
     const name = '<img src=x onerror="alert(1)">';
     const message = '<script>alert("saved")</script> & more';
-    const created = await request(t.app).post(`/api/workspaces/${workspace.id}/models`).set(headers).send({ name, message }).expect(201);
+    const created = await request(t.app)
+      .post(`/api/workspaces/${workspace.id}/models`)
+      .set(headers)
+      .send({ name, message })
+      .expect(201);
     expect(created.headers['content-type']).toMatch(/^application\/json/);
     expect(created.headers['x-content-type-options']).toBe('nosniff');
     const { model, revision } = created.body.data;
@@ -243,8 +294,15 @@ describe('password change and sign-out everywhere end sessions', () => {
   it('a wrong current password changes nothing', async () => {
     const user = await createUser();
     const token = tokenFor(user, t.config);
-    const response = await request(t.app).post('/api/auth/password').set(bearer(token)).send({ current: 'not-my-password', password: NEW_PASSWORD }).expect(403);
-    expect(response.body.error).toMatchObject({ code: 'wrong-password', details: { fields: { current: expect.any(String) } } });
+    const response = await request(t.app)
+      .post('/api/auth/password')
+      .set(bearer(token))
+      .send({ current: 'not-my-password', password: NEW_PASSWORD })
+      .expect(403);
+    expect(response.body.error).toMatchObject({
+      code: 'wrong-password',
+      details: { fields: { current: expect.any(String) } },
+    });
     await request(t.app).get('/api/me').set(bearer(token)).expect(200);
     await signIn(t.app, user.email);
   });
@@ -252,11 +310,22 @@ describe('password change and sign-out everywhere end sessions', () => {
   it('refuses a new password that is too short, and unknown fields', async () => {
     const user = await createUser();
     const headers = bearer(tokenFor(user, t.config));
-    const short = await request(t.app).post('/api/auth/password').set(headers).send({ current: TEST_PASSWORD, password: 'short' }).expect(400);
+    const short = await request(t.app)
+      .post('/api/auth/password')
+      .set(headers)
+      .send({ current: TEST_PASSWORD, password: 'short' })
+      .expect(400);
     expect(short.body.error.details.fields).toHaveProperty('password');
-    const unknown = await request(t.app).post('/api/auth/password').set(headers).send({ current: TEST_PASSWORD, password: NEW_PASSWORD, user_id: 'x' }).expect(400);
+    const unknown = await request(t.app)
+      .post('/api/auth/password')
+      .set(headers)
+      .send({ current: TEST_PASSWORD, password: NEW_PASSWORD, user_id: 'x' })
+      .expect(400);
     expect(unknown.body.error.details.fields).toHaveProperty('user_id');
-    await request(t.app).post('/api/auth/password').send({ current: TEST_PASSWORD, password: NEW_PASSWORD }).expect(401);
+    await request(t.app)
+      .post('/api/auth/password')
+      .send({ current: TEST_PASSWORD, password: NEW_PASSWORD })
+      .expect(401);
   });
 
   it('ends every session of the account and signs the asking device in again with a new cookie', async () => {
@@ -274,8 +343,13 @@ describe('password change and sign-out everywhere end sessions', () => {
     expect(newCookie).toMatch(/^bindery_session=[^;]+;.*HttpOnly/);
     expect(newCookie).toMatch(/SameSite=Lax/);
 
-    for (const old of [laptop.cookie]) expect((await request(t.app).get('/api/me').set('Cookie', old).expect(401)).body.error.code).toBe('session-ended');
-    expect((await request(t.app).get('/api/me').set(bearer(phone.token)).expect(401)).body.error.code).toBe('session-ended');
+    for (const old of [laptop.cookie])
+      expect((await request(t.app).get('/api/me').set('Cookie', old).expect(401)).body.error.code).toBe(
+        'session-ended',
+      );
+    expect((await request(t.app).get('/api/me').set(bearer(phone.token)).expect(401)).body.error.code).toBe(
+      'session-ended',
+    );
     await request(t.app).get('/api/me').set('Cookie', newCookie.split(';')[0]).expect(200);
     await request(t.app).get('/api/me').set(bearer(response.body.data.token)).expect(200);
 
@@ -288,8 +362,12 @@ describe('password change and sign-out everywhere end sessions', () => {
     const one = await signIn(t.app, user.email);
     const two = await signIn(t.app, user.email);
     await request(t.app).post('/api/auth/sign-out-everywhere').set(bearer(one.token)).expect(200);
-    expect((await request(t.app).get('/api/me').set('Cookie', two.cookie).expect(401)).body.error.code).toBe('session-ended');
-    expect((await request(t.app).get('/api/me').set(bearer(one.token)).expect(401)).body.error.code).toBe('session-ended');
+    expect((await request(t.app).get('/api/me').set('Cookie', two.cookie).expect(401)).body.error.code).toBe(
+      'session-ended',
+    );
+    expect((await request(t.app).get('/api/me').set(bearer(one.token)).expect(401)).body.error.code).toBe(
+      'session-ended',
+    );
     await signIn(t.app, user.email);
   });
 
@@ -297,8 +375,17 @@ describe('password change and sign-out everywhere end sessions', () => {
     const { app, config } = t.appWith({ signInLimits: { windowMs: 60_000, perAccount: 2, perAddress: 100 } });
     const user = await createUser();
     const headers = bearer(tokenFor(user, config));
-    for (let attempt = 0; attempt < 2; attempt++) await request(app).post('/api/auth/password').set(headers).send({ current: `guess-${attempt}`, password: NEW_PASSWORD }).expect(403);
-    const limited = await request(app).post('/api/auth/password').set(headers).send({ current: TEST_PASSWORD, password: NEW_PASSWORD }).expect(429);
+    for (let attempt = 0; attempt < 2; attempt++)
+      await request(app)
+        .post('/api/auth/password')
+        .set(headers)
+        .send({ current: `guess-${attempt}`, password: NEW_PASSWORD })
+        .expect(403);
+    const limited = await request(app)
+      .post('/api/auth/password')
+      .set(headers)
+      .send({ current: TEST_PASSWORD, password: NEW_PASSWORD })
+      .expect(429);
     expect(limited.body.error.code).toBe('rate-limited');
   });
 });

@@ -11,18 +11,47 @@ describe('a review’s state from its verdicts', () => {
     ['no verdicts', [], 'open'],
     ['comments only', [{ reviewerId: 'r1', verdict: 'comment', createdAt: at(1) }], 'open'],
     ['one approval', [{ reviewerId: 'r1', verdict: 'approve', createdAt: at(1) }], 'approved'],
-    ['approval, then changes asked by another', [{ reviewerId: 'r1', verdict: 'approve', createdAt: at(1) }, { reviewerId: 'r2', verdict: 'request-changes', createdAt: at(2) }], 'changes-requested'],
-    ['changes asked, then the same reviewer approves', [{ reviewerId: 'r1', verdict: 'request-changes', createdAt: at(1) }, { reviewerId: 'r1', verdict: 'approve', createdAt: at(2) }], 'approved'],
-    ['changes asked, then a comment', [{ reviewerId: 'r1', verdict: 'request-changes', createdAt: at(1) }, { reviewerId: 'r1', verdict: 'comment', createdAt: at(2) }], 'changes-requested'],
+    [
+      'approval, then changes asked by another',
+      [
+        { reviewerId: 'r1', verdict: 'approve', createdAt: at(1) },
+        { reviewerId: 'r2', verdict: 'request-changes', createdAt: at(2) },
+      ],
+      'changes-requested',
+    ],
+    [
+      'changes asked, then the same reviewer approves',
+      [
+        { reviewerId: 'r1', verdict: 'request-changes', createdAt: at(1) },
+        { reviewerId: 'r1', verdict: 'approve', createdAt: at(2) },
+      ],
+      'approved',
+    ],
+    [
+      'changes asked, then a comment',
+      [
+        { reviewerId: 'r1', verdict: 'request-changes', createdAt: at(1) },
+        { reviewerId: 'r1', verdict: 'comment', createdAt: at(2) },
+      ],
+      'changes-requested',
+    ],
   ] as const)('%s → %s', (_label, verdicts, state) => {
     expect(reviewStateFromVerdicts(verdicts).state).toBe(state);
   });
 });
 
 describe('a model’s review state', () => {
-  const approved = (hash: string, minute: number): ReviewFact => ({ state: 'approved', contentHash: hash, decidedAt: at(minute) });
+  const approved = (hash: string, minute: number): ReviewFact => ({
+    state: 'approved',
+    contentHash: hash,
+    decidedAt: at(minute),
+  });
   const open = (hash: string): ReviewFact => ({ state: 'open', contentHash: hash, decidedAt: null });
-  const changes = (hash: string, minute: number): ReviewFact => ({ state: 'changes-requested', contentHash: hash, decidedAt: at(minute) });
+  const changes = (hash: string, minute: number): ReviewFact => ({
+    state: 'changes-requested',
+    contentHash: hash,
+    decidedAt: at(minute),
+  });
   const clean = (hash: string) => ({ contentHash: hash, errorCount: 0 });
 
   it.each([

@@ -31,7 +31,11 @@ describe('session tokens', () => {
   });
 
   it('rejects a token signed with another secret', async () => {
-    const token = jwt.sign({ sv: 1 }, 'some-other-secret-that-is-long-enough', { algorithm: 'HS256', subject: pilot.id, expiresIn: 3600 });
+    const token = jwt.sign({ sv: 1 }, 'some-other-secret-that-is-long-enough', {
+      algorithm: 'HS256',
+      subject: pilot.id,
+      expiresIn: 3600,
+    });
     expect((await me(bearer(token)).expect(401)).body.error.code).toBe('invalid-token');
   });
 
@@ -46,7 +50,9 @@ describe('session tokens', () => {
   });
 
   it('rejects an expired token with session-expired', async () => {
-    const token = jwt.sign({ sv: 1, sub: pilot.id, iat: now() - 7200, exp: now() - 3600 }, t.config.jwtSecret, { algorithm: 'HS256' });
+    const token = jwt.sign({ sv: 1, sub: pilot.id, iat: now() - 7200, exp: now() - 3600 }, t.config.jwtSecret, {
+      algorithm: 'HS256',
+    });
     const response = await me(bearer(token)).expect(401);
     expect(response.body.error.code).toBe('session-expired');
   });
@@ -63,7 +69,7 @@ describe('session tokens', () => {
     expect((await me(bearer(token)).expect(401)).body.error.code).toBe('session-ended');
   });
 
-  it('rejects a token after the user\'s session version was raised', async () => {
+  it("rejects a token after the user's session version was raised", async () => {
     const user = await createUser({ email: uniqueEmail('version') });
     const token = tokenFor(user, t.config);
     await user.increment('sessionVersion');

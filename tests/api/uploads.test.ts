@@ -20,8 +20,20 @@ describe('POST /api/models/:id/upload', () => {
   it('saves an uploaded .yaml file as the next revision, byte for byte', async () => {
     const { model } = await createModelVia(editor, roles.workspace.id, { name: 'Upload target', yaml: TRAINER() });
     const text = `# exported on the bench\r\n${SCALE()}`;
-    const response = await editor.upload(`/api/models/${model.id}/upload`, text, { name: 'kestrel.yaml', type: 'application/octet-stream' }, { base: 1, message: 'From the laptop' }).expect(201);
-    expect(response.body.data).toMatchObject({ number: 2, origin: 'upload', message: 'From the laptop', error_count: 0 });
+    const response = await editor
+      .upload(
+        `/api/models/${model.id}/upload`,
+        text,
+        { name: 'kestrel.yaml', type: 'application/octet-stream' },
+        { base: 1, message: 'From the laptop' },
+      )
+      .expect(201);
+    expect(response.body.data).toMatchObject({
+      number: 2,
+      origin: 'upload',
+      message: 'From the laptop',
+      error_count: 0,
+    });
     expect((await Revision.findByPk(response.body.data.id))!.yamlText).toBe(text);
     const download = await editor.get(`/api/revisions/${response.body.data.id}?format=yaml`).expect(200);
     expect(download.text).toBe(text);
@@ -33,7 +45,9 @@ describe('POST /api/models/:id/upload', () => {
     ['a .YAML file sent as application/x-yaml', 'SETUP.YAML', 'application/x-yaml'],
   ])('accepts %s, naming the file in the default message', async (_label, name, type) => {
     const { model } = await createModelVia(editor, roles.workspace.id, { name: `Accepts ${name}`, yaml: TRAINER() });
-    const response = await editor.upload(`/api/models/${model.id}/upload`, GLIDER(), { name, type }, { base: 1 }).expect(201);
+    const response = await editor
+      .upload(`/api/models/${model.id}/upload`, GLIDER(), { name, type }, { base: 1 })
+      .expect(201);
     expect(response.body.data.message).toBe(`Uploaded ${name}`);
   });
 
@@ -61,7 +75,9 @@ describe('POST /api/models/:id/upload', () => {
     ['JSON', 'setup.json', 'application/json', '{"format": "bindery-setup/1"}'],
   ])('answers %s with 415 and stores nothing', async (_label, name, type, text) => {
     const { model } = await createModelVia(editor, roles.workspace.id, { name: `Refuses ${name}`, yaml: TRAINER() });
-    const response = await editor.upload(`/api/models/${model.id}/upload`, text, { name, type }, { base: 1 }).expect(415);
+    const response = await editor
+      .upload(`/api/models/${model.id}/upload`, text, { name, type }, { base: 1 })
+      .expect(415);
     expect(response.body.error.code).toBe('unsupported-media-type');
     expect(await revisionCount(model.id)).toBe(1);
   });
@@ -82,23 +98,43 @@ describe('POST /api/models/:id/upload', () => {
   it('refuses a stale base (409), a missing base or file (400) and an unreadable file or alias bomb (422)', async () => {
     const { model } = await createModelVia(editor, roles.workspace.id, { name: 'Upload rules', yaml: TRAINER() });
     const url = `/api/models/${model.id}/upload`;
-    expect((await editor.upload(url, GLIDER(), {}, { base: 2 }).expect(409)).body.error).toMatchObject({ code: 'stale-base', details: { latest: 1 } });
+    expect((await editor.upload(url, GLIDER(), {}, { base: 2 }).expect(409)).body.error).toMatchObject({
+      code: 'stale-base',
+      details: { latest: 1 },
+    });
     expect((await editor.upload(url, GLIDER(), {}).expect(400)).body.error.details.fields).toHaveProperty('base');
-    expect((await editor.upload(url, GLIDER(), {}, { base: '1.0' }).expect(400)).body.error.details.fields).toHaveProperty('base');
-    expect((await editor.upload(url, GLIDER(), {}, { base: 1, colour: 'red' }).expect(400)).body.error.details.fields).toHaveProperty('colour');
+    expect(
+      (await editor.upload(url, GLIDER(), {}, { base: '1.0' }).expect(400)).body.error.details.fields,
+    ).toHaveProperty('base');
+    expect(
+      (await editor.upload(url, GLIDER(), {}, { base: 1, colour: 'red' }).expect(400)).body.error.details.fields,
+    ).toHaveProperty('colour');
     const noFile = await request(t.app).post(url).set(editor.headers).field('base', '1').expect(400);
     expect(noFile.body.error.code).toBe('file-missing');
-    const wrongField = await request(t.app).post(url).set(editor.headers).field('base', '1').attach('setup', Buffer.from(GLIDER()), 'g.yaml').expect(400);
+    const wrongField = await request(t.app)
+      .post(url)
+      .set(editor.headers)
+      .field('base', '1')
+      .attach('setup', Buffer.from(GLIDER()), 'g.yaml')
+      .expect(400);
     expect(wrongField.body.error.code).toBe('invalid-upload');
-    expect((await editor.upload(url, 'model: [1,\n', {}, { base: 1 }).expect(422)).body.error.code).toBe('unreadable-setup');
-    expect((await editor.upload(url, ALIAS_BOMB, {}, { base: 1 }).expect(422)).body.error.code).toBe('unreadable-setup');
+    expect((await editor.upload(url, 'model: [1,\n', {}, { base: 1 }).expect(422)).body.error.code).toBe(
+      'unreadable-setup',
+    );
+    expect((await editor.upload(url, ALIAS_BOMB, {}, { base: 1 }).expect(422)).body.error.code).toBe(
+      'unreadable-setup',
+    );
     expect(await revisionCount(model.id)).toBe(1);
   });
 
   it('answers a malformed multipart body with 400, not a crash', async () => {
     const { model } = await createModelVia(editor, roles.workspace.id, { name: 'Malformed', yaml: TRAINER() });
     const url = `/api/models/${model.id}/upload`;
-    const noBoundary = await request(t.app).post(url).set(editor.headers).set('Content-Type', 'multipart/form-data').send('--x\r\n');
+    const noBoundary = await request(t.app)
+      .post(url)
+      .set(editor.headers)
+      .set('Content-Type', 'multipart/form-data')
+      .send('--x\r\n');
     expect(noBoundary.status).toBe(400);
     expect(noBoundary.body.error.code).toBe('malformed-upload');
     const cutOff = await request(t.app)
@@ -113,17 +149,26 @@ describe('POST /api/models/:id/upload', () => {
   it('is refused to viewers and reviewers before the file is read, and 404 outside the workspace', async () => {
     const { model } = await createModelVia(editor, roles.workspace.id, { name: 'Upload roles', yaml: TRAINER() });
     for (const role of ['viewer', 'reviewer'] as const) {
-      const response = await clientFor(t.app, t.config, roles.members[role]).upload(`/api/models/${model.id}/upload`, GLIDER(), {}, { base: 1 }).expect(403);
+      const response = await clientFor(t.app, t.config, roles.members[role])
+        .upload(`/api/models/${model.id}/upload`, GLIDER(), {}, { base: 1 })
+        .expect(403);
       expect(response.body.error.code).toBe('role-too-low');
     }
-    await clientFor(t.app, t.config, roles.outsider).upload(`/api/models/${model.id}/upload`, GLIDER(), {}, { base: 1 }).expect(404);
+    await clientFor(t.app, t.config, roles.outsider)
+      .upload(`/api/models/${model.id}/upload`, GLIDER(), {}, { base: 1 })
+      .expect(404);
     expect(await revisionCount(model.id)).toBe(1);
   });
 });
 
 describe('POST /api/workspaces/:ws/models/upload', () => {
   it("creates a model from a file, named after the setup's own model name", async () => {
-    const response = await editor.upload(`/api/workspaces/${roles.workspace.id}/models/upload`, GLIDER(), { name: 'club-glider.yml', type: 'text/plain' }).expect(201);
+    const response = await editor
+      .upload(`/api/workspaces/${roles.workspace.id}/models/upload`, GLIDER(), {
+        name: 'club-glider.yml',
+        type: 'text/plain',
+      })
+      .expect(201);
     const { model, revision } = response.body.data;
     expect(model).toMatchObject({ name: 'Sedge 3.4', airframe: 'glider', latest: { number: 1 } });
     expect(revision).toMatchObject({ number: 1, origin: 'upload', message: 'Uploaded club-glider.yml' });
@@ -131,10 +176,21 @@ describe('POST /api/workspaces/:ws/models/upload', () => {
   });
 
   it('takes a name and message from the form, and falls back to the file name for a setup without a name', async () => {
-    const named = await editor.upload(`/api/workspaces/${roles.workspace.id}/models/upload`, TRAINER(), {}, { name: 'Club trainer', message: 'Saturday setup' }).expect(201);
+    const named = await editor
+      .upload(
+        `/api/workspaces/${roles.workspace.id}/models/upload`,
+        TRAINER(),
+        {},
+        { name: 'Club trainer', message: 'Saturday setup' },
+      )
+      .expect(201);
     expect(named.body.data.model.name).toBe('Club trainer');
     expect(named.body.data.revision.message).toBe('Saturday setup');
-    const nameless = await editor.upload(`/api/workspaces/${roles.workspace.id}/models/upload`, 'format: bindery-setup/1\n', { name: 'half-done.yaml' }).expect(201);
+    const nameless = await editor
+      .upload(`/api/workspaces/${roles.workspace.id}/models/upload`, 'format: bindery-setup/1\n', {
+        name: 'half-done.yaml',
+      })
+      .expect(201);
     expect(nameless.body.data.model.name).toBe('half-done');
     expect(nameless.body.data.revision.error_count).toBeGreaterThan(0);
   });

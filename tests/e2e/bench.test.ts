@@ -7,7 +7,8 @@ import { expectNoProblems, signedIn } from './support/session';
 
 const browser = useBrowser();
 
-const rowCells = async (row: import('playwright-core').Locator) => (await row.getByRole('cell').allTextContents()).map((cell) => cell.replace(/\s+/g, ' ').trim());
+const rowCells = async (row: import('playwright-core').Locator) =>
+  (await row.getByRole('cell').allTextContents()).map((cell) => cell.replace(/\s+/g, ' ').trim());
 
 describe('journey: the bench', () => {
   it('moves the elevator stick of the Kestrel to full and reads the pulse on its channel and pin, then the failsafe on link loss', async () => {
@@ -19,7 +20,9 @@ describe('journey: the bench', () => {
     await page.getByRole('heading', { name: 'Bench', exact: true }).waitFor();
 
     const channels = page.getByRole('table', { name: /Each channel's value and pulse/ });
-    const elevatorChannel = channels.getByRole('row').filter({ has: page.getByRole('cell', { name: '2', exact: true }) });
+    const elevatorChannel = channels
+      .getByRole('row')
+      .filter({ has: page.getByRole('cell', { name: '2', exact: true }) });
     await elevatorChannel.waitFor();
     expect((await rowCells(elevatorChannel)).at(-1)).toBe('1500');
 
@@ -32,17 +35,26 @@ describe('journey: the bench', () => {
     await channels.getByRole('cell', { name: '1960', exact: true }).waitFor();
     expect((await rowCells(elevatorChannel)).slice(-2)).toEqual(['92', '1960']);
     const fuselagePins = page.getByRole('table', { name: /^Pins of Fuselage receiver/ });
-    const pin2 = fuselagePins.getByRole('row').filter({ has: page.getByRole('cell', { name: '2', exact: true }) }).first();
+    const pin2 = fuselagePins
+      .getByRole('row')
+      .filter({ has: page.getByRole('cell', { name: '2', exact: true }) })
+      .first();
     expect(await rowCells(pin2)).toContain('1960');
     await saveScreenshot(page, 'journey-06-bench-elevator-up');
 
     // Link lost: every pin goes to its failsafe, the motor's pin 3 to its 1000 us stop.
     await page.getByLabel('Simulate link loss').check();
     const lost = page.getByRole('table', { name: /^Pins of Fuselage receiver.*with the link lost/ });
-    const pin3 = lost.getByRole('row').filter({ has: page.getByRole('cell', { name: '3', exact: true }) }).first();
+    const pin3 = lost
+      .getByRole('row')
+      .filter({ has: page.getByRole('cell', { name: '3', exact: true }) })
+      .first();
     await pin3.waitFor();
     expect(await rowCells(pin3)).toContain('1000');
-    const pin2Lost = lost.getByRole('row').filter({ has: page.getByRole('cell', { name: '2', exact: true }) }).first();
+    const pin2Lost = lost
+      .getByRole('row')
+      .filter({ has: page.getByRole('cell', { name: '2', exact: true }) })
+      .first();
     expect(await rowCells(pin2Lost)).toContain('1500');
     await saveScreenshot(page, 'journey-06-bench-link-lost');
     expectNoProblems(visit);

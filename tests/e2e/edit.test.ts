@@ -60,7 +60,9 @@ describe('journey: edit in the text and in the forms, then save', () => {
 
     await page.getByRole('button', { name: 'Save revision…' }).click();
     const dialog = page.getByRole('dialog', { name: 'Save as revision 2' });
-    await dialog.getByLabel('What changed').fill('Wing pin 1 failsafe 1500 -> 1450 us: tailwheel a touch left of centre');
+    await dialog
+      .getByLabel('What changed')
+      .fill('Wing pin 1 failsafe 1500 -> 1450 us: tailwheel a touch left of centre');
     await dialog.getByRole('button', { name: 'Save revision' }).click();
     await page.getByRole('region', { name: 'Notifications' }).getByText('Saved revision 2').waitFor();
     await page.getByText('No unsaved changes').waitFor();
@@ -96,7 +98,10 @@ describe('journey: two tabs on one model', () => {
     await replaceSelection(first, '  weight_g: 6350');
     await first.getByText('Unsaved changes').waitFor();
     await first.getByRole('button', { name: 'Save revision…' }).click();
-    await first.getByRole('dialog', { name: 'Save as revision 2' }).getByLabel('What changed').fill('Weighed after the new retracts: 6350 g');
+    await first
+      .getByRole('dialog', { name: 'Save as revision 2' })
+      .getByLabel('What changed')
+      .fill('Weighed after the new retracts: 6350 g');
     await first.getByRole('dialog').getByRole('button', { name: 'Save revision' }).click();
     await first.getByRole('region', { name: 'Notifications' }).getByText('Saved revision 2').waitFor();
 
@@ -119,9 +124,15 @@ describe('journey: two tabs on one model', () => {
     expect(before.map((revision) => revision.number)).toEqual([2, 1]);
 
     await refusal.getByRole('button', { name: 'Load revision 2 and re-apply my text' }).click();
-    await second.getByRole('region', { name: 'Notifications' }).getByText('Your text now stands on revision 2').waitFor();
+    await second
+      .getByRole('region', { name: 'Notifications' })
+      .getByText('Your text now stands on revision 2')
+      .waitFor();
     await second.getByRole('button', { name: 'Save revision…' }).click();
-    await second.getByRole('dialog', { name: 'Save as revision 3' }).getByLabel('What changed').fill('Shorter notes, on top of the new weight');
+    await second
+      .getByRole('dialog', { name: 'Save as revision 3' })
+      .getByLabel('What changed')
+      .fill('Shorter notes, on top of the new weight');
     await second.getByRole('dialog').getByRole('button', { name: 'Save revision' }).click();
     await second.getByRole('region', { name: 'Notifications' }).getByText('Saved revision 3').waitFor();
 

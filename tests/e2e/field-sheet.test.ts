@@ -45,7 +45,10 @@ describe('journey: print the field sheet and download its PDF', () => {
     expect(printed.text).not.toContain('Download PDF');
     await page.emulateMedia({ media: 'screen' });
 
-    const [download] = await Promise.all([page.waitForEvent('download'), page.getByRole('link', { name: 'Download PDF' }).click()]);
+    const [download] = await Promise.all([
+      page.waitForEvent('download'),
+      page.getByRole('link', { name: 'Download PDF' }).click(),
+    ]);
     expect(download.suggestedFilename()).toMatch(/^kestrel-mk-ii.*-r12-field-sheet\.pdf$/);
     const bytes = readFileSync((await download.path())!);
     expect(bytes.subarray(0, 5).toString('latin1')).toBe('%PDF-');

@@ -25,8 +25,16 @@ describe('journey: compare two revisions from the History', () => {
 
     await page.waitForURL(/\/compare\?/);
     await page.getByRole('heading', { name: 'Changes by section', exact: true }).waitFor();
-    expect(await page.getByLabel('Older (from)').evaluate((select: HTMLSelectElement) => select.selectedOptions[0]?.textContent ?? '')).toMatch(/^r3\b/);
-    expect(await page.getByLabel('Newer (to)').evaluate((select: HTMLSelectElement) => select.selectedOptions[0]?.textContent ?? '')).toMatch(/^r4\b/);
+    expect(
+      await page
+        .getByLabel('Older (from)')
+        .evaluate((select: HTMLSelectElement) => select.selectedOptions[0]?.textContent ?? ''),
+    ).toMatch(/^r3\b/);
+    expect(
+      await page
+        .getByLabel('Newer (to)')
+        .evaluate((select: HTMLSelectElement) => select.selectedOptions[0]?.textContent ?? ''),
+    ).toMatch(/^r4\b/);
 
     const changes = page.getByRole('region', { name: 'Changes by section' });
     const failsafeChange = changes.getByRole('listitem').filter({ hasText: 'receivers[id=wing].map[pin=1].failsafe' });
@@ -42,7 +50,13 @@ describe('journey: compare two revisions from the History', () => {
     expect(await rows.count()).toBe(1);
     const cells = await rows.first().getByRole('cell').allTextContents();
     // Receiver, pin, channel, before, after (the arrow before "after" is drawn, not read out).
-    expect(cells.map((cell) => cell.replace(/\s+/g, ' ').replace('->', '').trim())).toEqual(['wing', '1', '9', '988 us', '1500 us']);
+    expect(cells.map((cell) => cell.replace(/\s+/g, ' ').replace('->', '').trim())).toEqual([
+      'wing',
+      '1',
+      '9',
+      '988 us',
+      '1500 us',
+    ]);
     await saveScreenshot(page, 'journey-05-compare');
     expectNoProblems(visit);
     await visit.context.close();

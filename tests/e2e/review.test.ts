@@ -12,7 +12,11 @@ describe('journey: review and sign-off before the maiden', () => {
     const editor = demoAccount('editor');
     const reviewer = demoAccount('reviewer');
     // A model of the editor's own, so the reviewer is not its author and the demo's reviews stay as seeded.
-    const { model } = await createModel(await apiAs(editor), 'Dunlin trainer (review journey)', fixtureText('valid/trainer-single-receiver.yaml'));
+    const { model } = await createModel(
+      await apiAs(editor),
+      'Dunlin trainer (review journey)',
+      fixtureText('valid/trainer-single-receiver.yaml'),
+    );
 
     const asking = await signedIn(browser(), editor);
     await asking.page.goto(`${baseUrl}/models/${model.id}/reviews`);
@@ -48,10 +52,15 @@ describe('journey: review and sign-off before the maiden', () => {
     }
     const verdict = page.getByRole('form', { name: 'Give a verdict' });
     await verdict.getByRole('radio', { name: /^Approve/ }).check();
-    await verdict.getByLabel('What you found').fill('Rates, expo and failsafes as planned; range check done with Tomas.');
+    await verdict
+      .getByLabel('What you found')
+      .fill('Rates, expo and failsafes as planned; range check done with Tomas.');
     await saveScreenshot(page, 'journey-07-verdict');
     await verdict.getByRole('button', { name: 'Approve' }).click();
-    await page.getByRole('region', { name: 'Notifications' }).getByText('Approved: the requester has been told').waitFor();
+    await page
+      .getByRole('region', { name: 'Notifications' })
+      .getByText('Approved: the requester has been told')
+      .waitFor();
     await page.getByText('Cleared for its maiden').waitFor();
     await saveScreenshot(page, 'journey-07-approved');
     expectNoProblems(reviewing);

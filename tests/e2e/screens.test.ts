@@ -31,10 +31,28 @@ const heading = (page: Page, name: string) => page.getByRole('heading', { name, 
 
 const SCREENS: Screen[] = [
   { name: 'sign-in', signedOut: true, path: () => '/sign-in', ready: (page) => heading(page, 'Sign in') },
-  { name: 'create-account', signedOut: true, path: () => '/create-account', ready: (page) => heading(page, 'Create account') },
-  { name: 'reset-password', signedOut: true, path: () => '/reset-password', ready: (page) => heading(page, 'Reset password') },
-  { name: 'hangar', path: () => `/w/${ids.workspace}/hangar`, ready: (page) => page.getByRole('link', { name: 'Kestrel Mk II' }).waitFor() },
-  { name: 'overview', path: () => `/models/${ids.kestrel}/overview`, ready: (page) => page.getByRole('heading', { name: 'Findings of revision 12' }).waitFor() },
+  {
+    name: 'create-account',
+    signedOut: true,
+    path: () => '/create-account',
+    ready: (page) => heading(page, 'Create account'),
+  },
+  {
+    name: 'reset-password',
+    signedOut: true,
+    path: () => '/reset-password',
+    ready: (page) => heading(page, 'Reset password'),
+  },
+  {
+    name: 'hangar',
+    path: () => `/w/${ids.workspace}/hangar`,
+    ready: (page) => page.getByRole('link', { name: 'Kestrel Mk II' }).waitFor(),
+  },
+  {
+    name: 'overview',
+    path: () => `/models/${ids.kestrel}/overview`,
+    ready: (page) => page.getByRole('heading', { name: 'Findings of revision 12' }).waitFor(),
+  },
   {
     name: 'edit',
     windowOnly: true,
@@ -44,17 +62,61 @@ const SCREENS: Screen[] = [
       await page.getByText('The setup passes every check.').waitFor();
     },
   },
-  { name: 'bench', path: () => `/models/${ids.kestrel}/bench`, ready: (page) => page.getByRole('heading', { name: 'Mix curves' }).waitFor() },
-  { name: 'history', path: () => `/models/${ids.kestrel}/history`, ready: (page) => page.getByText('First channel plan: the fuselage receiver carries channels 1-8').waitFor() },
-  { name: 'compare', path: () => `/models/${ids.kestrel}/compare`, ready: (page) => heading(page, 'What now moves differently') },
-  { name: 'model-reviews', path: () => `/models/${ids.kestrel}/reviews`, ready: (page) => page.getByRole('link', { name: 'Revision 12', exact: true }).waitFor() },
-  { name: 'reviews', path: () => `/w/${ids.workspace}/reviews`, ready: (page) => page.getByRole('link', { name: 'Kestrel Mk II, revision 12' }).first().waitFor() },
-  { name: 'review', path: () => `/w/${ids.workspace}/reviews/${ids.kestrelReview}`, ready: (page) => heading(page, 'Pre-maiden checklist') },
-  { name: 'shelf', path: () => `/w/${ids.workspace}/shelf`, ready: (page) => page.getByRole('link', { name: 'Pipit trainer unit' }).waitFor() },
-  { name: 'shelf-unit', path: () => `/w/${ids.workspace}/shelf/${ids.pipit}`, ready: (page) => heading(page, 'Settings it holds') },
-  { name: 'team', path: () => `/w/${ids.workspace}/team`, ready: (page) => page.getByText('viewer@demo.example').first().waitFor() },
-  { name: 'field-sheet', path: () => `/models/${ids.kestrel}/sheet`, ready: (page) => page.getByText('Revision 12, the latest.').waitFor() },
-  { name: 'outbox', path: () => '/outbox', ready: (page) => page.getByRole('list', { name: 'Caught messages' }).waitFor() },
+  {
+    name: 'bench',
+    path: () => `/models/${ids.kestrel}/bench`,
+    ready: (page) => page.getByRole('heading', { name: 'Mix curves' }).waitFor(),
+  },
+  {
+    name: 'history',
+    path: () => `/models/${ids.kestrel}/history`,
+    ready: (page) => page.getByText('First channel plan: the fuselage receiver carries channels 1-8').waitFor(),
+  },
+  {
+    name: 'compare',
+    path: () => `/models/${ids.kestrel}/compare`,
+    ready: (page) => heading(page, 'What now moves differently'),
+  },
+  {
+    name: 'model-reviews',
+    path: () => `/models/${ids.kestrel}/reviews`,
+    ready: (page) => page.getByRole('link', { name: 'Revision 12', exact: true }).waitFor(),
+  },
+  {
+    name: 'reviews',
+    path: () => `/w/${ids.workspace}/reviews`,
+    ready: (page) => page.getByRole('link', { name: 'Kestrel Mk II, revision 12' }).first().waitFor(),
+  },
+  {
+    name: 'review',
+    path: () => `/w/${ids.workspace}/reviews/${ids.kestrelReview}`,
+    ready: (page) => heading(page, 'Pre-maiden checklist'),
+  },
+  {
+    name: 'shelf',
+    path: () => `/w/${ids.workspace}/shelf`,
+    ready: (page) => page.getByRole('link', { name: 'Pipit trainer unit' }).waitFor(),
+  },
+  {
+    name: 'shelf-unit',
+    path: () => `/w/${ids.workspace}/shelf/${ids.pipit}`,
+    ready: (page) => heading(page, 'Settings it holds'),
+  },
+  {
+    name: 'team',
+    path: () => `/w/${ids.workspace}/team`,
+    ready: (page) => page.getByText('viewer@demo.example').first().waitFor(),
+  },
+  {
+    name: 'field-sheet',
+    path: () => `/models/${ids.kestrel}/sheet`,
+    ready: (page) => page.getByText('Revision 12, the latest.').waitFor(),
+  },
+  {
+    name: 'outbox',
+    path: () => '/outbox',
+    ready: (page) => page.getByRole('list', { name: 'Caught messages' }).waitFor(),
+  },
   { name: 'account', path: () => '/account', ready: (page) => heading(page, 'Account') },
   { name: 'not-found', path: () => '/no-such-place', ready: (page) => heading(page, 'Page not found') },
 ];
@@ -93,21 +155,30 @@ async function show(screen: Screen, viewport: ViewportName): Promise<{ visit: Vi
 }
 
 describe('every screen with the demo data', () => {
-  it.each(SCREENS.map((screen) => [screen.name, screen] as const))('%s: no serious accessibility finding at 1280 px, fits 768 px', async (_name, screen) => {
-    const desktop = await show(screen, 'desktop');
-    expect(await desktop.visit.page.title()).toMatch(/Bindery$/);
-    expect(await seriousA11yViolations(desktop.visit.page)).toEqual([]);
-    await saveScreenshot(desktop.visit.page, `screen-${screen.name}-1280`, { fullPage: !screen.windowOnly });
+  it.each(SCREENS.map((screen) => [screen.name, screen] as const))(
+    '%s: no serious accessibility finding at 1280 px, fits 768 px',
+    async (_name, screen) => {
+      const desktop = await show(screen, 'desktop');
+      expect(await desktop.visit.page.title()).toMatch(/Bindery$/);
+      expect(await seriousA11yViolations(desktop.visit.page)).toEqual([]);
+      await saveScreenshot(desktop.visit.page, `screen-${screen.name}-1280`, { fullPage: !screen.windowOnly });
 
-    const tablet = await show(screen, 'tablet');
-    const overflow = await tablet.visit.page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
-    expect(overflow, 'the page scrolls sideways at 768 px').toBeLessThanOrEqual(0);
-    await saveScreenshot(tablet.visit.page, `screen-${screen.name}-768`, { fullPage: !screen.windowOnly });
+      const tablet = await show(screen, 'tablet');
+      const overflow = await tablet.visit.page.evaluate(
+        () => document.documentElement.scrollWidth - document.documentElement.clientWidth,
+      );
+      expect(overflow, 'the page scrolls sideways at 768 px').toBeLessThanOrEqual(0);
+      await saveScreenshot(tablet.visit.page, `screen-${screen.name}-768`, { fullPage: !screen.windowOnly });
 
-    for (const { visit, problemsBefore } of [desktop, tablet]) {
-      // A signed-out page asks who is signed in and is told nobody (401), as it should.
-      const allowed = screen.signedOut || screen.name === 'not-found' ? [401] : [];
-      expect(visit.problems.all.slice(problemsBefore).filter((problem) => !allowed.some((status) => problem.includes(`status of ${status}`)))).toEqual([]);
-    }
-  });
+      for (const { visit, problemsBefore } of [desktop, tablet]) {
+        // A signed-out page asks who is signed in and is told nobody (401), as it should.
+        const allowed = screen.signedOut || screen.name === 'not-found' ? [401] : [];
+        expect(
+          visit.problems.all
+            .slice(problemsBefore)
+            .filter((problem) => !allowed.some((status) => problem.includes(`status of ${status}`))),
+        ).toEqual([]);
+      }
+    },
+  );
 });

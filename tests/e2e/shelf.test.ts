@@ -21,7 +21,9 @@ describe('journey: a receiver from the Shelf into an airframe, through the reuse
     const slot = page.getByLabel('Receiver slot');
     await slot.locator('option', { hasText: /^wing/ }).waitFor({ state: 'attached' });
     await slot.selectOption({ index: 2 });
-    expect(await slot.evaluate((select: HTMLSelectElement) => select.selectedOptions[0]?.textContent ?? '')).toMatch(/^wing\b/);
+    expect(await slot.evaluate((select: HTMLSelectElement) => select.selectedOptions[0]?.textContent ?? '')).toMatch(
+      /^wing\b/,
+    );
 
     // The unit left a trainer with pins 1-8 on channels 1-8, telemetry on and pin 3 failing
     // safe to 988 us (fixtures/reuse/trainer-unit.yaml); the wing slot carries 9-16 silently
@@ -30,7 +32,10 @@ describe('journey: a receiver from the Shelf into an airframe, through the reuse
     await page.getByText('What would have to change on the unit').waitFor();
     await saveScreenshot(page, 'journey-09-reuse-preview');
     await page.getByRole('button', { name: 'Install it here' }).click();
-    await page.getByRole('region', { name: 'Notifications' }).getByText('Pipit trainer unit is in slot wing of Kestrel Mk II').waitFor();
+    await page
+      .getByRole('region', { name: 'Notifications' })
+      .getByText('Pipit trainer unit is in slot wing of Kestrel Mk II')
+      .waitFor();
 
     const bench = page.getByRole('group', { name: 'Program these on the unit' });
     const ticks = bench.getByRole('checkbox');

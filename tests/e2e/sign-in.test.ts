@@ -19,11 +19,16 @@ describe('journey: sign in and out', () => {
     await signInThroughForm(page, owner);
     await page.waitForURL(/\/w\/[0-9a-f-]{36}\/hangar/);
     await page.getByText(owner.name, { exact: true }).waitFor();
-    const chosen = await page.getByRole('combobox', { name: 'Workspace' }).evaluate((select: HTMLSelectElement) => select.selectedOptions[0]?.textContent ?? '');
+    const chosen = await page
+      .getByRole('combobox', { name: 'Workspace' })
+      .evaluate((select: HTMLSelectElement) => select.selectedOptions[0]?.textContent ?? '');
     expect(chosen).toBe(`${DEMO_WORKSPACE_NAME} (owner)`);
     await page.getByRole('link', { name: 'Kestrel Mk II' }).waitFor();
     const cookies = await visit.context.cookies();
-    expect(cookies.find((cookie) => cookie.name === 'bindery_session')).toMatchObject({ httpOnly: true, sameSite: 'Lax' });
+    expect(cookies.find((cookie) => cookie.name === 'bindery_session')).toMatchObject({
+      httpOnly: true,
+      sameSite: 'Lax',
+    });
     expect(await page.evaluate(() => document.cookie)).not.toContain('bindery_session');
     await saveScreenshot(page, 'journey-01-signed-in');
 

@@ -30,7 +30,9 @@ describe('the browser watcher of the journeys', () => {
     await second.evaluate(() => setTimeout(() => alert('a dialog')));
 
     await expect.poll(() => visit.problems.csp.length).toBeGreaterThan(0);
-    await expect.poll(() => visit.problems.all.some((problem) => problem.includes('unexpected alert dialog: a dialog'))).toBe(true);
+    await expect
+      .poll(() => visit.problems.all.some((problem) => problem.includes('unexpected alert dialog: a dialog')))
+      .toBe(true);
     const seen = visit.problems.unexpected([401]).join('\n');
     expect(seen).toContain('a console error');
     expect(seen).toContain('page error: an uncaught error');
@@ -44,7 +46,9 @@ describe('the browser watcher of the journeys', () => {
     await visit.page.goto(`${baseUrl}/sign-in`);
     await visit.page.getByRole('button', { name: 'Sign in' }).waitFor();
     expect(await seriousA11yViolations(visit.page)).toEqual([]);
-    await visit.page.evaluate(() => document.querySelector('main, form')?.append(Object.assign(document.createElement('input'), { type: 'text' })));
+    await visit.page.evaluate(() =>
+      document.querySelector('main, form')?.append(Object.assign(document.createElement('input'), { type: 'text' })),
+    );
     const found = await seriousA11yViolations(visit.page);
     expect(found.some((line) => line.startsWith('critical label:'))).toBe(true);
     // axe ran from the DevTools protocol, so the page's policy saw no script of ours.

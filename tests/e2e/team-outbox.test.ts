@@ -49,7 +49,9 @@ describe('journey: invite a member and read the mail in the Outbox', () => {
     await join.getByRole('button', { name: 'Create account and join' }).click();
     await newcomer.page.getByRole('button', { name: 'Sign out' }).waitFor();
     await newcomer.page.getByText('Kit Fairweather', { exact: true }).waitFor();
-    const workspace = await newcomer.page.getByRole('combobox', { name: 'Workspace' }).evaluate((select: HTMLSelectElement) => select.selectedOptions[0]?.textContent ?? '');
+    const workspace = await newcomer.page
+      .getByRole('combobox', { name: 'Workspace' })
+      .evaluate((select: HTMLSelectElement) => select.selectedOptions[0]?.textContent ?? '');
     expect(workspace).toBe(`${DEMO_WORKSPACE_NAME} (editor)`);
     expectNoProblems(newcomer, [401]);
     await newcomer.context.close();

@@ -27,7 +27,9 @@ describe('journey: markup in what pilots type is shown as text', () => {
     await page.getByRole('link', { name: payload, exact: true }).waitFor();
     await saveScreenshot(page, 'journey-11-markup-as-text');
     expect(await page.locator('img[src="x"]').count()).toBe(0);
-    expect(await page.evaluate(() => [...document.images].filter((image) => image.getAttribute('src') === 'x').length)).toBe(0);
+    expect(
+      await page.evaluate(() => [...document.images].filter((image) => image.getAttribute('src') === 'x').length),
+    ).toBe(0);
     expect(dialogs).toBe(0);
     expectNoProblems(visit);
     await visit.context.close();

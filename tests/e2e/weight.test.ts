@@ -33,7 +33,9 @@ describe('weight of the first page', () => {
     await visit.page.getByRole('link', { name: 'Kestrel Mk II' }).waitFor();
     await visit.page.waitForLoadState('networkidle');
     const withHangar = scripts.total();
-    console.log(`[e2e] gzipped JavaScript: sign-in page ${(signInPage / 1024).toFixed(1)} KB, with the hangar ${(withHangar / 1024).toFixed(1)} KB, in ${scripts.files.size} files`);
+    console.log(
+      `[e2e] gzipped JavaScript: sign-in page ${(signInPage / 1024).toFixed(1)} KB, with the hangar ${(withHangar / 1024).toFixed(1)} KB, in ${scripts.files.size} files`,
+    );
 
     expect(signInPage).toBeLessThan(BUDGET);
     expect(withHangar).toBeLessThan(BUDGET);

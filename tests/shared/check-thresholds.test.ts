@@ -22,7 +22,9 @@ describe('pulse-out-of-range', () => {
     [2300, false],
     [2301, true],
   ])('a failsafe of %i us is out of range: %s', (pulse, fires) => {
-    expect(rulesWith(aileronPin, `      - { pin: 1, ch: 1, failsafe: ${pulse} }`).includes('pulse-out-of-range')).toBe(fires);
+    expect(rulesWith(aileronPin, `      - { pin: 1, ch: 1, failsafe: ${pulse} }`).includes('pulse-out-of-range')).toBe(
+      fires,
+    );
   });
 
   it.each([
@@ -31,7 +33,10 @@ describe('pulse-out-of-range', () => {
     ['high_us: 2300', false],
     ['high_us: 2301', true],
   ])('a travel with %s is out of range: %s', (field, fires) => {
-    const rules = rulesWith('  - { ch: 1, function: aileron,  role: aileron }', `  - { ch: 1, function: aileron,  role: aileron, travel: { ${field} } }`);
+    const rules = rulesWith(
+      '  - { ch: 1, function: aileron,  role: aileron }',
+      `  - { ch: 1, function: aileron,  role: aileron, travel: { ${field} } }`,
+    );
     expect(rules.includes('pulse-out-of-range')).toBe(fires);
   });
 });
@@ -43,13 +48,17 @@ describe('failsafe-throttle', () => {
     [1051, true],
     [980, false],
   ])('a throttle failsafe of %i us (idle 1000 us) fires: %s', (pulse, fires) => {
-    expect(rulesWith(motorPin, `      - { pin: 3, ch: 3, failsafe: ${pulse} }`).includes('failsafe-throttle')).toBe(fires);
+    expect(rulesWith(motorPin, `      - { pin: 3, ch: 3, failsafe: ${pulse} }`).includes('failsafe-throttle')).toBe(
+      fires,
+    );
   });
 
   it('measures toward full power from the idle end of a reversed travel', () => {
     const reversed = trainer.replace(motorChannel, `${motorChannel} travel: { reverse: true },`);
     const at = (pulse: number) =>
-      analyzeSetup(reversed.replace(motorPin, `      - { pin: 3, ch: 3, failsafe: ${pulse} }`)).findings.map((f) => f.rule);
+      analyzeSetup(reversed.replace(motorPin, `      - { pin: 3, ch: 3, failsafe: ${pulse} }`)).findings.map(
+        (f) => f.rule,
+      );
     expect(at(1950)).not.toContain('failsafe-throttle');
     expect(at(1949)).toContain('failsafe-throttle');
     expect(at(1000)).toContain('failsafe-throttle');
@@ -67,16 +76,18 @@ describe('failsafe-endstop', () => {
     [1974, false],
     [1975, true],
   ])('an aileron failsafe of %i us (travel 1000-2000) warns: %s', (pulse, fires) => {
-    expect(rulesWith(aileronPin, `      - { pin: 1, ch: 1, failsafe: ${pulse} }`).includes('failsafe-endstop')).toBe(fires);
+    expect(rulesWith(aileronPin, `      - { pin: 1, ch: 1, failsafe: ${pulse} }`).includes('failsafe-endstop')).toBe(
+      fires,
+    );
   });
 });
 
 describe('heavy-model-failsafe', () => {
   // [cap-658] a failsafe is an absolute requirement for models over 7 kg
   const unset = (weight: number) =>
-    analyzeSetup(trainer.replace('weight_g: 2400', `weight_g: ${weight}`).replace(motorPin, '      - { pin: 3, ch: 3 }')).findings.map(
-      (f) => f.rule,
-    );
+    analyzeSetup(
+      trainer.replace('weight_g: 2400', `weight_g: ${weight}`).replace(motorPin, '      - { pin: 3, ch: 3 }'),
+    ).findings.map((f) => f.rule);
 
   it('applies above 7000 g only', () => {
     expect(unset(7000)).not.toContain('heavy-model-failsafe');

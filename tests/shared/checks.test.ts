@@ -60,7 +60,10 @@ describe.each(invalid)('invalid fixture $name', (fixture) => {
   it(`reports ${fixture.rule} at ${fixture.path || 'the text'}, line ${fixture.line}`, () => {
     const hits = analysis.findings.filter((finding) => finding.rule === fixture.rule);
     expect(hits.length).toBeGreaterThan(0);
-    expect(hits.map((finding) => ({ path: finding.path, line: finding.line }))).toContainEqual({ path: fixture.path, line: fixture.line });
+    expect(hits.map((finding) => ({ path: finding.path, line: finding.line }))).toContainEqual({
+      path: fixture.path,
+      line: fixture.line,
+    });
   });
 
   it('reports nothing else of weight than what it says comes along', () => {
@@ -91,13 +94,18 @@ describe.each(valid)('valid fixture $name', (fixture) => {
 
 describe('messages name the things involved', () => {
   const byName = new Map(invalid.map((fixture) => [fixture.name, analyzeSetup(fixture.text)]));
-  const message = (name: string, rule: string) => byName.get(name)!.findings.find((finding) => finding.rule === rule)!.message;
+  const message = (name: string, rule: string) =>
+    byName.get(name)!.findings.find((finding) => finding.rule === rule)!.message;
 
   it.each([
     ['channel-shared', 'channel-shared', 'Channel 4 carries both rudder and tow-release'],
     ['duplicate-id--map-pin', 'duplicate-id', 'pin 4 twice'],
     ['failsafe-throttle--pulse', 'failsafe-throttle', '1350 us'],
-    ['pair-split', 'pair-split', 'flap-left (channel 5) is on receiver cabin but flap-right (channel 6) is on receiver tail'],
+    [
+      'pair-split',
+      'pair-split',
+      'flap-left (channel 5) is on receiver cabin but flap-right (channel 6) is on receiver tail',
+    ],
     ['unknown-control', 'unknown-control', 'yaw-stick'],
     ['mix-saturates', 'mix-saturates', '+130 % with aileron-stick at +100 % and rudder-stick at +100 %'],
     ['unknown-key', 'unknown-key', '"colour"'],

@@ -33,9 +33,18 @@ describe('check', () => {
     async () => {
       const cases = [
         ...validFixtures().map((f) => ({ file: f.file, code: 0 })),
-        ...['schema', 'syntax', 'syntax--not-a-mapping', 'channel-shared', 'failsafe-throttle', 'mix-saturates', 'telemetry-none'].map(
-          (name) => ({ file: fixture(`invalid/${name}.yaml`), code: ['mix-saturates', 'telemetry-none'].includes(name) ? 0 : 1 }),
-        ),
+        ...[
+          'schema',
+          'syntax',
+          'syntax--not-a-mapping',
+          'channel-shared',
+          'failsafe-throttle',
+          'mix-saturates',
+          'telemetry-none',
+        ].map((name) => ({
+          file: fixture(`invalid/${name}.yaml`),
+          code: ['mix-saturates', 'telemetry-none'].includes(name) ? 0 : 1,
+        })),
       ];
       const runs = await Promise.all(cases.map((c) => run('check', [c.file, '--json'])));
       runs.forEach((result, i) => {
@@ -59,7 +68,9 @@ describe('check', () => {
       expect(result.code).toBe(1);
       const lines = result.stdout.trim().split('\n');
       expect(lines[0]).toMatch(new RegExp(`^${expected.line}:\\d+  warning  failsafe-unset  Pin 3 `));
-      expect(lines[1]).toMatch(new RegExp(`^${expected.line}:\\d+  error  heavy-model-failsafe  The model weighs 7800 g`));
+      expect(lines[1]).toMatch(
+        new RegExp(`^${expected.line}:\\d+  error  heavy-model-failsafe  The model weighs 7800 g`),
+      );
       expect(lines[2]).toMatch(/heavy-model-failsafe\.yaml: 1 error, 1 warning, 0 infos$/);
     },
     TIMEOUT,

@@ -53,7 +53,10 @@ describe('content hash', () => {
     const rewritten = text
       .replace(/#.*$/gm, '')
       .replace('  - { id: rate-switch,    kind: switch }', '  - id: rate-switch\n    kind: switch\n    positions: 2')
-      .replace('  - { id: motor,    from: throttle-stick, to: 3 }', '  - { id: motor, from: throttle-stick, to: 3, weight: 100, offset: 0, expo: 0 }')
+      .replace(
+        '  - { id: motor,    from: throttle-stick, to: 3 }',
+        '  - { id: motor, from: throttle-stick, to: 3, weight: 100, offset: 0, expo: 0 }',
+      )
       .replace('    outputs: 6\n', '    outputs: 6\n    role: primary\n    telemetry: true\n');
     expect(rewritten).not.toBe(text);
     expect(contentHash(dataOf(rewritten))).toBe(hash);
@@ -67,7 +70,10 @@ describe('content hash', () => {
   });
 
   it('is stable under reordering keys and reformatting (property)', () => {
-    const fixtures = validFixtures().map((fixture) => ({ data: dataOf(fixture.text), hash: contentHash(dataOf(fixture.text)) }));
+    const fixtures = validFixtures().map((fixture) => ({
+      data: dataOf(fixture.text),
+      hash: contentHash(dataOf(fixture.text)),
+    }));
     fc.assert(
       fc.property(
         fc.constantFrom(...fixtures),
@@ -85,7 +91,9 @@ describe('content hash', () => {
             collectionStyle: style.flow ? 'flow' : 'any',
             lineWidth: 0,
           });
-          const reformatted = style.comment ? `# reformatted\n${document.replace(/\n(?=.)/g, '  # a note\n')}` : document;
+          const reformatted = style.comment
+            ? `# reformatted\n${document.replace(/\n(?=.)/g, '  # a note\n')}`
+            : document;
           expect(contentHash(dataOf(reformatted))).toBe(expected);
         },
       ),

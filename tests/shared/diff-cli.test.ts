@@ -37,7 +37,8 @@ describe('npm run diff (scripts/cli/diff.ts)', { timeout: 60_000 }, () => {
     expect(result.code).toBe(0);
     const out = JSON.parse(result.stdout);
     expect(Object.keys(out).sort()).toEqual(['changes', 'counts']);
-    for (const change of out.changes) expect(Object.keys(change).sort()).toEqual(['after', 'before', 'kind', 'path', 'summary']);
+    for (const change of out.changes)
+      expect(Object.keys(change).sort()).toEqual(['after', 'before', 'kind', 'path', 'summary']);
     expect(out.counts).toEqual({ added: 4, removed: 0, changed: 1, renamed: 0, moved: 0 });
   });
 
@@ -64,7 +65,13 @@ describe('npm run diff (scripts/cli/diff.ts)', { timeout: 60_000 }, () => {
     const broken = join(dir, 'broken.yaml');
     writeFileSync(broken, 'receivers: [1,\n');
     const good = pairFile('renames', 'before');
-    for (const args of [[join(dir, 'missing.yaml'), good], [dir, good], [good, broken], [good], [good, good, '--colour']]) {
+    for (const args of [
+      [join(dir, 'missing.yaml'), good],
+      [dir, good],
+      [good, broken],
+      [good],
+      [good, good, '--colour'],
+    ]) {
       const result = run(...args);
       expect(result.code, args.join(' ')).toBe(2);
       expect(result.stdout).toBe('');

@@ -108,9 +108,15 @@ describe('outputs delta', () => {
     // 1500 us centre (FORMAT.md evaluation, default travel [arduino-servo]). The rates
     // and expo changes do not show at these positions: rates need the rate switch and
     // the stick moved together, and expo does not change the end points [expo-cubic].
-    expect(outputsDelta(before, after).map((row) => [row.position.label, row.receiver, row.pin, row.before_us, row.after_us])).toEqual([
-      ['flap-switch at position 2', 'main', 2, 1460, 1440],
-    ]);
+    expect(
+      outputsDelta(before, after).map((row) => [
+        row.position.label,
+        row.receiver,
+        row.pin,
+        row.before_us,
+        row.after_us,
+      ]),
+    ).toEqual([['flap-switch at position 2', 'main', 2, 1460, 1440]]);
   });
 
   it('exercises a renamed control under its new name on both sides: the renames pair changes no pulse', () => {
@@ -120,7 +126,15 @@ describe('outputs delta', () => {
 
   it('lists an added receiver pin at rest and where it moves, not at every position', () => {
     const { before, after } = setups('receiver-added');
-    expect(outputsDelta(before, after).map((row) => [row.position.label, row.receiver, row.pin, row.before_us, row.after_us])).toEqual([
+    expect(
+      outputsDelta(before, after).map((row) => [
+        row.position.label,
+        row.receiver,
+        row.pin,
+        row.before_us,
+        row.after_us,
+      ]),
+    ).toEqual([
       ['at rest (axes centred, switches at position 0)', 'tail', 1, null, 1000],
       ['release-switch at position 1', 'tail', 1, null, 2000],
     ]);
@@ -133,7 +147,9 @@ describe('compareRevisions', () => {
     const comparison = compareRevisions(before, after);
     expect(comparison.counts.changed).toBe(1);
     expect(comparison.changes[0].path).toBe('receivers[id=wing].map[pin=3].failsafe');
-    expect(where(comparison.findings_delta.resolved)).toEqual(['failsafe-endstop receivers[id=wing].map[pin=3].failsafe']);
+    expect(where(comparison.findings_delta.resolved)).toEqual([
+      'failsafe-endstop receivers[id=wing].map[pin=3].failsafe',
+    ]);
     expect(comparison.outputs_delta).toHaveLength(1);
     expect(comparison.text.added).toBeGreaterThan(0);
     expect(JSON.parse(JSON.stringify(comparison))).toEqual(comparison);

@@ -3,7 +3,14 @@ import { fileURLToPath } from 'node:url';
 import { analyzeSetup, type Analysis } from '../../shared/analyze';
 
 // The before/after fixture pairs of fixtures/pairs/ (each file says what it shows).
-export const PAIRS = ['remap-second-receiver', 'failsafe-fix', 'trim-tuning', 'renames', 'receiver-added', 'reorder'] as const;
+export const PAIRS = [
+  'remap-second-receiver',
+  'failsafe-fix',
+  'trim-tuning',
+  'renames',
+  'receiver-added',
+  'reorder',
+] as const;
 export type PairName = (typeof PAIRS)[number];
 
 export interface PairSide extends Analysis {

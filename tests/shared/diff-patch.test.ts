@@ -26,7 +26,9 @@ describe('JSON Patch export', () => {
   it('uses index pointers and small operations: one replace for a failsafe, moves for a reordered list', () => {
     const { before, after } = loadPair('failsafe-fix');
     // [rfc-6901] the wing receiver is /receivers/1, its pin 3 entry /map/2.
-    expect(jsonPatch(before.data, after.data)).toEqual([{ op: 'replace', path: '/receivers/1/map/2/failsafe', value: 1500 }]);
+    expect(jsonPatch(before.data, after.data)).toEqual([
+      { op: 'replace', path: '/receivers/1/map/2/failsafe', value: 1500 },
+    ]);
     const reorder = loadPair('reorder');
     const ops = jsonPatch(reorder.before.data, reorder.after.data);
     expect(ops.length).toBeGreaterThan(0);
@@ -44,9 +46,13 @@ describe('JSON Patch export', () => {
   it('round-trips generated pairs of setup-like documents (property)', () => {
     const id = fc.constantFrom('a', 'b', 'c', 'd', 'e');
     const small = fc.integer({ min: 1, max: 6 });
-    const extra = fc.dictionary(fc.constantFrom('note', 'x/y', 'k~1', 'weight'), fc.jsonValue({ maxDepth: 2 }), { maxKeys: 2 });
+    const extra = fc.dictionary(fc.constantFrom('note', 'x/y', 'k~1', 'weight'), fc.jsonValue({ maxDepth: 2 }), {
+      maxKeys: 2,
+    });
     const entry = (key: string, keyValue: fc.Arbitrary<unknown>) =>
-      fc.tuple(keyValue, extra, fc.option(small, { nil: undefined })).map(([value, rest, n]) => ({ ...rest, [key]: value, ...(n === undefined ? {} : { n }) }));
+      fc
+        .tuple(keyValue, extra, fc.option(small, { nil: undefined }))
+        .map(([value, rest, n]) => ({ ...rest, [key]: value, ...(n === undefined ? {} : { n }) }));
     const receiver = fc
       .tuple(entry('id', id), fc.array(entry('pin', small), { maxLength: 5 }))
       .map(([base, map]) => ({ ...base, map }));
@@ -73,7 +79,9 @@ describe('JSON Patch export', () => {
   // The reference implementation refuses to touch `__proto__` keys (for its own safety),
   // so generated values with one are checked by the next test instead.
   const hasProtoKey = (value: unknown): boolean =>
-    typeof value === 'object' && value !== null && (Object.prototype.hasOwnProperty.call(value, '__proto__') || Object.values(value).some(hasProtoKey));
+    typeof value === 'object' &&
+    value !== null &&
+    (Object.prototype.hasOwnProperty.call(value, '__proto__') || Object.values(value).some(hasProtoKey));
 
   it('round-trips arbitrary JSON values (property)', () => {
     fc.assert(
@@ -87,7 +95,9 @@ describe('JSON Patch export', () => {
 
   it('keeps a key named __proto__ as an ordinary key', () => {
     const withKey = (value: unknown) => JSON.parse(`{"model": {"__proto__": ${JSON.stringify(value)}}}`) as unknown;
-    expect(jsonPatch(withKey({ x: 1 }), withKey({ x: 2 }))).toEqual([{ op: 'replace', path: '/model/__proto__/x', value: 2 }]);
+    expect(jsonPatch(withKey({ x: 1 }), withKey({ x: 2 }))).toEqual([
+      { op: 'replace', path: '/model/__proto__/x', value: 2 },
+    ]);
     expect(jsonPatch(withKey({}), { model: {} })).toEqual([{ op: 'remove', path: '/model/__proto__' }]);
     const [add] = jsonPatch({ model: {} }, withKey({ a: 1 }));
     expect(add).toMatchObject({ op: 'add', path: '/model/__proto__' });

@@ -6,7 +6,8 @@ import { loadPair, PAIRS } from './diff-pairs';
 type Doc = Record<string, any>;
 
 const clone = <T>(value: T): T => structuredClone(value);
-const summaries = (before: unknown, after: unknown) => diffSetups(before, after).changes.map((change) => change.summary);
+const summaries = (before: unknown, after: unknown) =>
+  diffSetups(before, after).changes.map((change) => change.summary);
 
 describe('identity matching', () => {
   it('matches every list by identity key: the reordered fixture only has moves, one per reordered list', () => {
@@ -23,7 +24,8 @@ describe('identity matching', () => {
 
   it('reports no added, removed, changed or renamed entries for any reordering of every list (property)', () => {
     const base = loadPair('failsafe-fix').after.data as Doc;
-    const permutation = (items: unknown[]) => fc.shuffledSubarray(items, { minLength: items.length, maxLength: items.length });
+    const permutation = (items: unknown[]) =>
+      fc.shuffledSubarray(items, { minLength: items.length, maxLength: items.length });
     const shuffledDoc = fc
       .record({
         controls: permutation(base.controls),
@@ -37,7 +39,10 @@ describe('identity matching', () => {
         doc.controls = clone(controls);
         doc.channels = clone(channels);
         doc.mixes = clone(mixes);
-        doc.receivers = (receivers as number[]).map((index) => ({ ...clone(base.receivers[index]), map: clone(maps[index]) }));
+        doc.receivers = (receivers as number[]).map((index) => ({
+          ...clone(base.receivers[index]),
+          map: clone(maps[index]),
+        }));
         return doc;
       });
     fc.assert(
@@ -132,7 +137,13 @@ describe('renames', () => {
     moved.receivers[0].map[7].pin = 9;
     moved.receivers[0].outputs = 8;
     expect(diffSetups(doc, moved).changes).toMatchObject([
-      { kind: 'renamed', path: 'receivers[id=main].map[pin=8]', before: 8, after: 9, summary: 'Main receiver: channel 8 (lights) moved from pin 8 to pin 9' },
+      {
+        kind: 'renamed',
+        path: 'receivers[id=main].map[pin=8]',
+        before: 8,
+        after: 9,
+        summary: 'Main receiver: channel 8 (lights) moved from pin 8 to pin 9',
+      },
     ]);
   });
 
@@ -202,7 +213,10 @@ describe('sentences and paths', () => {
       ['added', 'receivers', 'Receiver tail added (8 outputs, telemetry off)'],
     ]);
     const tail = added.changes.find((change) => change.path === 'receivers[id=tail]');
-    expect(tail).toMatchObject({ before: null, after: { id: 'tail', outputs: 8, telemetry: false, role: 'secondary' } });
+    expect(tail).toMatchObject({
+      before: null,
+      after: { id: 'tail', outputs: 8, telemetry: false, role: 'secondary' },
+    });
     const removed = diffSetups(after.data, before.data);
     expect(removed.counts).toEqual({ added: 0, removed: 4, changed: 1, renamed: 0, moved: 0 });
     expect(removed.changes.map((change) => change.summary)).toContain('Receiver tail removed');
@@ -243,7 +257,8 @@ describe('sentences and paths', () => {
 
 describe('typed text in sentences', () => {
   const doc = loadPair('trim-tuning').before.data as Doc;
-  const NOTES = 'Scale low wing, flaps on the three-position switch, maiden planned for the May fly-in at the club field.';
+  const NOTES =
+    'Scale low wing, flaps on the three-position switch, maiden planned for the May fly-in at the club field.';
 
   it('quotes names, labels and notes, and leaves numbers, choices and ids bare', () => {
     const next = clone(doc);
@@ -267,13 +282,19 @@ describe('typed text in sentences', () => {
   it('cuts long text with an ellipsis, and shows both sides from near their first difference', () => {
     const noted = clone(doc);
     noted.model.notes = NOTES;
-    expect(summaries(doc, noted)).toEqual(['Model notes: unset -> “Scale low wing, flaps on the three-position switch, maiden…”']);
+    expect(summaries(doc, noted)).toEqual([
+      'Model notes: unset -> “Scale low wing, flaps on the three-position switch, maiden…”',
+    ]);
     const later = clone(noted);
     later.model.notes = NOTES.replace('May', 'June');
-    expect(summaries(noted, later)).toEqual(['Model notes: “…maiden planned for the May fly-in at the club field.” -> “…maiden planned for the June fly-in at the club field.”']);
+    expect(summaries(noted, later)).toEqual([
+      'Model notes: “…maiden planned for the May fly-in at the club field.” -> “…maiden planned for the June fly-in at the club field.”',
+    ]);
     const short = clone(noted);
     short.model.notes = 'Scale low wing.';
-    expect(summaries(noted, short)).toEqual(['Model notes: “Scale low wing, flaps on the three-position switch, maiden…” -> “Scale low wing.”']);
+    expect(summaries(noted, short)).toEqual([
+      'Model notes: “Scale low wing, flaps on the three-position switch, maiden…” -> “Scale low wing.”',
+    ]);
   });
 });
 

@@ -36,7 +36,9 @@ describe('text diff', () => {
     const diff = textDiff(before.text, after.text);
     const changedRows = diff.rows.filter((row) => row.kind !== 'same');
     // The header comment and the one failsafe line differ.
-    expect(changedRows.some((row) => row.left?.text.includes('failsafe: 988') && row.right?.text.includes('failsafe: 1500'))).toBe(true);
+    expect(
+      changedRows.some((row) => row.left?.text.includes('failsafe: 988') && row.right?.text.includes('failsafe: 1500')),
+    ).toBe(true);
     expect(diff.hunks.length).toBe(2);
     const covered = diff.hunks.reduce((sum, hunk) => sum + hunk.end - hunk.start, 0);
     expect(covered).toBeLessThan(diff.rows.length / 4);
@@ -45,7 +47,9 @@ describe('text diff', () => {
     }
     // Every line of each text appears once, in order, on its side.
     expect(diff.rows.flatMap((row) => (row.left ? [row.left.text] : []))).toEqual(before.text.split('\n').slice(0, -1));
-    expect(diff.rows.flatMap((row) => (row.right ? [row.right.text] : []))).toEqual(after.text.split('\n').slice(0, -1));
+    expect(diff.rows.flatMap((row) => (row.right ? [row.right.text] : []))).toEqual(
+      after.text.split('\n').slice(0, -1),
+    );
   });
 
   it('falls back to one changed block, keeping the common start and end, when the texts differ too much', () => {
@@ -57,7 +61,11 @@ describe('text diff', () => {
     expect(diff.removed).toBe(600);
     expect(diff.added).toBe(600);
     expect(diff.rows[0].kind).toBe('same');
-    expect(diff.rows[diff.rows.length - 1]).toEqual({ kind: 'same', left: { line: 602, text: 'end' }, right: { line: 602, text: 'end' } });
+    expect(diff.rows[diff.rows.length - 1]).toEqual({
+      kind: 'same',
+      left: { line: 602, text: 'end' },
+      right: { line: 602, text: 'end' },
+    });
     expect(diff.rows.filter((row) => row.kind === 'changed')).toHaveLength(600);
     expect(textDiff(asLines('ABCABBA'), asLines('CBABAC')).exact).toBe(true);
   });

@@ -75,7 +75,9 @@ describe('pulses', () => {
     expect(pulseFor(reversed, -100)).toBe(2000);
     expect(idlePulse(reversed)).toBe(2000);
     // The demo's right aileron is reversed: with the stick at +50 % it moves opposite the left one.
-    expect(channel(demo, { 'aileron-stick': 50 }, 1).pulse_us + channel(demo, { 'aileron-stick': 50 }, 6).pulse_us).toBe(3000);
+    expect(
+      channel(demo, { 'aileron-stick': 50 }, 1).pulse_us + channel(demo, { 'aileron-stick': 50 }, 6).pulse_us,
+    ).toBe(3000);
   });
 
   it('an uneven travel scales each side on its own and rounds to the microsecond', () => {
@@ -115,21 +117,33 @@ describe('rates, expo and mixing', () => {
   it('the sum is clamped to -100..100', () => {
     const text = readFixture('invalid/mix-saturates.yaml');
     const setup = setupOf(text);
-    expect(channel(setup, { 'rudder-stick': 100, 'aileron-stick': 100 }, 4)).toMatchObject({ value: 100, pulse_us: 2000 });
-    expect(channel(setup, { 'rudder-stick': -100, 'aileron-stick': -100 }, 4)).toMatchObject({ value: -100, pulse_us: 1000 });
+    expect(channel(setup, { 'rudder-stick': 100, 'aileron-stick': 100 }, 4)).toMatchObject({
+      value: 100,
+      pulse_us: 2000,
+    });
+    expect(channel(setup, { 'rudder-stick': -100, 'aileron-stick': -100 }, 4)).toMatchObject({
+      value: -100,
+      pulse_us: 1000,
+    });
   });
 });
 
 describe('cut', () => {
   it('overrides the stick while its switch is at the cut position', () => {
-    expect(channel(trainer, { 'throttle-stick': 100, 'motor-arm': 0 }, 3)).toMatchObject({ value: -100, pulse_us: 1000 });
-    expect(channel(trainer, { 'throttle-stick': 100, 'motor-arm': 1 }, 3)).toMatchObject({ value: 100, pulse_us: 2000 });
+    expect(channel(trainer, { 'throttle-stick': 100, 'motor-arm': 0 }, 3)).toMatchObject({
+      value: -100,
+      pulse_us: 1000,
+    });
+    expect(channel(trainer, { 'throttle-stick': 100, 'motor-arm': 1 }, 3)).toMatchObject({
+      value: 100,
+      pulse_us: 2000,
+    });
     expect(channel(trainer, { 'throttle-stick': 0, 'motor-arm': 1 }, 3)).toMatchObject({ value: 0, pulse_us: 1500 });
   });
 });
 
 describe('receiver pins', () => {
-  it('carry their channel\'s pulse and their failsafe; the second receiver carries 9-16', () => {
+  it("carry their channel's pulse and their failsafe; the second receiver carries 9-16", () => {
     const out = evaluate(demo, { 'rudder-stick': 100 });
     const wing = out.receivers.find((r) => r.id === 'wing')!;
     expect(wing.pins.map((p) => p.ch)).toEqual([9, 10, 11, 12, 13, 14, 15, 16]);

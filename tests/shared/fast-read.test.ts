@@ -20,36 +20,109 @@ function expectSameOrDeclined(text: string): 'same' | 'declined' {
 }
 
 describe('the fast reader on the fixtures', () => {
-  it.each(validFixtures().map((fixture) => [fixture.name, fixture.text]))('reads %s to the reference data and hash', (_, text) => {
-    const fast = readSetupFast(text);
-    const full = parseYaml(text);
-    expect(fast).not.toBeNull();
-    expect(fast).toStrictEqual(full.data);
-    expect(contentHash(fast)).toBe(contentHash(full.data));
-    expect(analyzeSetupFast(text)).toStrictEqual(analyzeSetupFully(text));
-  });
+  it.each(validFixtures().map((fixture) => [fixture.name, fixture.text]))(
+    'reads %s to the reference data and hash',
+    (_, text) => {
+      const fast = readSetupFast(text);
+      const full = parseYaml(text);
+      expect(fast).not.toBeNull();
+      expect(fast).toStrictEqual(full.data);
+      expect(contentHash(fast)).toBe(contentHash(full.data));
+      expect(analyzeSetupFast(text)).toStrictEqual(analyzeSetupFully(text));
+    },
+  );
 
-  it.each(invalidFixtures().map((fixture) => [fixture.name, fixture.text]))('leaves %s, which has findings, to the reference', (_, text) => {
-    expect(analyzeSetupFast(text)).toBeNull();
-    expect(analyzeSetup(text)).toStrictEqual(analyzeSetupFully(text));
-  });
+  it.each(invalidFixtures().map((fixture) => [fixture.name, fixture.text]))(
+    'leaves %s, which has findings, to the reference',
+    (_, text) => {
+      expect(analyzeSetupFast(text)).toBeNull();
+      expect(analyzeSetup(text)).toStrictEqual(analyzeSetupFully(text));
+    },
+  );
 });
 
 describe('the fast reader on scalar forms', () => {
   // [yaml-1.2] 10.3.2: the core schema's null, bool, int and float forms; everything
   // else (yes/no/on/off, timestamps, 0b, underscores) is a string in YAML 1.2.
   it.each([
-    'yes', 'no', 'on', 'off', 'Yes', 'TRUE', 'True', 'true', 'False', 'false',
-    'null', 'Null', 'NULL', '~', '',
-    '0o17', '0O17', '0x1F', '0X1F', '+0x1F', '0b101', '012', '+12', '-12', '0', '-0', '1_000',
-    '1e3', '1E3', '1e+3', '-1.5e-3', '.5', '5.', '-.5', '1.50', '0.0', '-0.0',
-    '.inf', '+.inf', '-.inf', '.Inf', '.INF', '.nan', '.NaN', '.NAN', 'inf', 'nan',
-    '1e400', '-1e309', '1'.repeat(400), '5e-324', '1e-400', '9007199254740993',
-    '2026-01-01', '2026-01-01T10:00:00Z', '12:30', '1:20:30',
-    '"12"', "'12'", '"0x1F"', '"true"', "'it''s'", '"\\x41\\u00e9\\N\\_\\t"', '"a\\\n  b"', "'a\n  b'",
-    '!!binary aGVsbG8=', '!!str 12', '!!int "12"', '!custom x', '&a 1', 'a # comment', 'a#b',
-    '|\n  one\n  two\n', '>-\n  one\n  two\n', '|2+\n   kept\n\n', 'folded\n  plain\n\n  lines',
-    '[1, 0x1F, .inf, ~, yes]', '{a: 1, b: [x, "y"]}',
+    'yes',
+    'no',
+    'on',
+    'off',
+    'Yes',
+    'TRUE',
+    'True',
+    'true',
+    'False',
+    'false',
+    'null',
+    'Null',
+    'NULL',
+    '~',
+    '',
+    '0o17',
+    '0O17',
+    '0x1F',
+    '0X1F',
+    '+0x1F',
+    '0b101',
+    '012',
+    '+12',
+    '-12',
+    '0',
+    '-0',
+    '1_000',
+    '1e3',
+    '1E3',
+    '1e+3',
+    '-1.5e-3',
+    '.5',
+    '5.',
+    '-.5',
+    '1.50',
+    '0.0',
+    '-0.0',
+    '.inf',
+    '+.inf',
+    '-.inf',
+    '.Inf',
+    '.INF',
+    '.nan',
+    '.NaN',
+    '.NAN',
+    'inf',
+    'nan',
+    '1e400',
+    '-1e309',
+    '1'.repeat(400),
+    '5e-324',
+    '1e-400',
+    '9007199254740993',
+    '2026-01-01',
+    '2026-01-01T10:00:00Z',
+    '12:30',
+    '1:20:30',
+    '"12"',
+    "'12'",
+    '"0x1F"',
+    '"true"',
+    "'it''s'",
+    '"\\x41\\u00e9\\N\\_\\t"',
+    '"a\\\n  b"',
+    "'a\n  b'",
+    '!!binary aGVsbG8=',
+    '!!str 12',
+    '!!int "12"',
+    '!custom x',
+    '&a 1',
+    'a # comment',
+    'a#b',
+    '|\n  one\n  two\n',
+    '>-\n  one\n  two\n',
+    '|2+\n   kept\n\n',
+    'folded\n  plain\n\n  lines',
+    '[1, 0x1F, .inf, ~, yes]',
+    '{a: 1, b: [x, "y"]}',
   ])('reads `k: %s` as the reference does, or declines', (value) => {
     expectSameOrDeclined(`k: ${value}\n`);
   });
@@ -96,7 +169,33 @@ describe('the fast reader on damaged text', () => {
   const edit = fc.record({
     at: fc.nat({ max: base.length }),
     remove: fc.nat({ max: 4 }),
-    insert: fc.oneof(fc.constantFrom('\t', ' ', '  ', '\n', ':', '- ', '#', '"', "'", '[', ']', '{', '}', ',', '?', '|', '>', '---\n', '~', '0x', '.', 'e9'), fc.string({ maxLength: 3 })),
+    insert: fc.oneof(
+      fc.constantFrom(
+        '\t',
+        ' ',
+        '  ',
+        '\n',
+        ':',
+        '- ',
+        '#',
+        '"',
+        "'",
+        '[',
+        ']',
+        '{',
+        '}',
+        ',',
+        '?',
+        '|',
+        '>',
+        '---\n',
+        '~',
+        '0x',
+        '.',
+        'e9',
+      ),
+      fc.string({ maxLength: 3 }),
+    ),
   });
 
   it('is never more lenient than the reference, nor reads differently', () => {

@@ -133,7 +133,9 @@ describe('semantic paths', () => {
   });
 
   it('are built from data paths with identity keys where the list has one', () => {
-    expect(toSemanticPath(parsed.data, ['receivers', 0, 'map', 1, 'failsafe'])).toBe('receivers[id=wing].map[pin=3].failsafe');
+    expect(toSemanticPath(parsed.data, ['receivers', 0, 'map', 1, 'failsafe'])).toBe(
+      'receivers[id=wing].map[pin=3].failsafe',
+    );
     expect(toSemanticPath({ mixes: [{ rates: { weights: [1, 2] } }] }, ['mixes', 0, 'rates', 'weights', 1])).toBe(
       'mixes[0].rates.weights[1]',
     );
@@ -155,15 +157,48 @@ describe('parse, property-based', () => {
 
   it('never throws on YAML-looking noise', () => {
     const pieces = fc.constantFrom(
-      'format: bindery-setup/1\n', 'model:', ' name: X', '\n', '  ', '- ', '? ', ': ', '[', ']', '{', '}', ',', '&a ', '*a',
-      '!!str ', '"q"', "'s'", '|\n  x\n', '# c\n', '---\n', '...\n', 'receivers:\n', '  - id: r\n', '    map: [{pin: 1, ch: 1}]\n',
-      'channels: [', '{ ch: 1, function: f, role: aux }', '\t', '~', 'null', '1e999', '0x1F', '.nan', '<<: *a\n',
+      'format: bindery-setup/1\n',
+      'model:',
+      ' name: X',
+      '\n',
+      '  ',
+      '- ',
+      '? ',
+      ': ',
+      '[',
+      ']',
+      '{',
+      '}',
+      ',',
+      '&a ',
+      '*a',
+      '!!str ',
+      '"q"',
+      "'s'",
+      '|\n  x\n',
+      '# c\n',
+      '---\n',
+      '...\n',
+      'receivers:\n',
+      '  - id: r\n',
+      '    map: [{pin: 1, ch: 1}]\n',
+      'channels: [',
+      '{ ch: 1, function: f, role: aux }',
+      '\t',
+      '~',
+      'null',
+      '1e999',
+      '0x1F',
+      '.nan',
+      '<<: *a\n',
     );
     fc.assert(
       fc.property(fc.array(pieces, { maxLength: 60 }), (parts) => {
         const analysis = analyzeSetup(parts.join(''));
         expect(typeof analysis.readable).toBe('boolean');
-        expect(analysis.counts.errors + analysis.counts.warnings + analysis.counts.infos).toBe(analysis.findings.length);
+        expect(analysis.counts.errors + analysis.counts.warnings + analysis.counts.infos).toBe(
+          analysis.findings.length,
+        );
       }),
       { numRuns: 500 },
     );

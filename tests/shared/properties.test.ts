@@ -18,14 +18,22 @@ const percent = (limit: number) => fc.double({ min: -limit, max: limit, noNaN: t
 
 const control = fc.oneof(
   fc.record({ id: slug, kind: fc.constantFrom('axis', 'knob', 'slider') }),
-  fc.record({ id: slug, kind: fc.constant('switch'), positions: fc.constantFrom(2, 3) }, { requiredKeys: ['id', 'kind'] }),
+  fc.record(
+    { id: slug, kind: fc.constant('switch'), positions: fc.constantFrom(2, 3) },
+    { requiredKeys: ['id', 'kind'] },
+  ),
 );
 
 const orderedTravel = fc
   .uniqueArray(fc.integer({ min: 600, max: 2400 }), { minLength: 3, maxLength: 3 })
   .chain((pulses) => {
     const [low_us, center_us, high_us] = [...pulses].sort((a, b) => a - b);
-    return fc.record({ low_us: fc.constant(low_us), center_us: fc.constant(center_us), high_us: fc.constant(high_us), reverse: fc.boolean() });
+    return fc.record({
+      low_us: fc.constant(low_us),
+      center_us: fc.constant(center_us),
+      high_us: fc.constant(high_us),
+      reverse: fc.boolean(),
+    });
   });
 
 const channel = fc.record(
@@ -49,7 +57,10 @@ const mix = fc.record(
     offset: percent(100),
     expo: fc.double({ min: 0, max: 100, noNaN: true }),
     rates: fc.record({ control: slug, weights: fc.array(percent(200), { minLength: 2, maxLength: 3 }) }),
-    active: fc.record({ control: slug, positions: fc.array(fc.integer({ min: 0, max: 3 }), { minLength: 1, maxLength: 3 }) }),
+    active: fc.record({
+      control: slug,
+      positions: fc.array(fc.integer({ min: 0, max: 3 }), { minLength: 1, maxLength: 3 }),
+    }),
   },
   { requiredKeys: ['id', 'from', 'to'] },
 );
@@ -79,7 +90,11 @@ const setupData = fc.record(
   {
     format: fc.constant('bindery-setup/1'),
     model: fc.record(
-      { name: fc.constantFrom('Random', 'Heavy one'), airframe: fc.constantFrom(...AIRFRAMES), weight_g: fc.integer({ min: 1, max: 20_000 }) },
+      {
+        name: fc.constantFrom('Random', 'Heavy one'),
+        airframe: fc.constantFrom(...AIRFRAMES),
+        weight_g: fc.integer({ min: 1, max: 20_000 }),
+      },
       { requiredKeys: ['name', 'airframe'] },
     ),
     link: fc.record({ channels: fc.integer({ min: 4, max: 32 }) }),
@@ -113,7 +128,7 @@ describe('checks on random valid documents', () => {
 });
 
 describe('evaluation on random valid documents', () => {
-  it('gives pulses within each channel\'s travel, whatever the control positions', () => {
+  it("gives pulses within each channel's travel, whatever the control positions", () => {
     fc.assert(
       fc.property(setupData, positions, (data, at) => {
         const { setup } = analyzeSetup(stringify(data));
@@ -162,38 +177,49 @@ const writers: Record<string, (data: unknown) => string> = {
 };
 
 describe('the fast reader on random valid documents', () => {
-  it.each(Object.keys(writers))('reads %s text to the same data as the reference reader, or declines', (style) => {
-    let read = 0;
-    fc.assert(
-      fc.property(setupData, (data) => {
-        const text = writers[style](data);
-        const fast = readSetupFast(text);
-        if (fast === null) return;
-        read += 1;
-        const full = parseYaml(text);
-        expect(full.readable).toBe(true);
-        expect(fast).toStrictEqual(full.data);
-        expect(contentHash(fast)).toBe(contentHash(full.data));
-      }),
-      { numRuns: 200, seed: 20260101 },
-    );
-    // The property says nothing if the fast reader declines everything.
-    expect(read).toBeGreaterThan(150);
-  }, 60_000);
+  it.each(Object.keys(writers))(
+    'reads %s text to the same data as the reference reader, or declines',
+    (style) => {
+      let read = 0;
+      fc.assert(
+        fc.property(setupData, (data) => {
+          const text = writers[style](data);
+          const fast = readSetupFast(text);
+          if (fast === null) return;
+          read += 1;
+          const full = parseYaml(text);
+          expect(full.readable).toBe(true);
+          expect(fast).toStrictEqual(full.data);
+          expect(contentHash(fast)).toBe(contentHash(full.data));
+        }),
+        { numRuns: 200, seed: 20260101 },
+      );
+      // The property says nothing if the fast reader declines everything.
+      expect(read).toBeGreaterThan(150);
+    },
+    60_000,
+  );
 
   it('gives the same analysis as the reference for setups with no findings, whatever the names', () => {
     // Random setups nearly always have findings, so these start from the finding-free
     // fixtures and vary the free text, which is where scalar forms differ most.
-    const clean = validFixtures().map((fixture) => parseYaml(fixture.text).data as Record<string, Record<string, unknown>>);
+    const clean = validFixtures().map(
+      (fixture) => parseYaml(fixture.text).data as Record<string, Record<string, unknown>>,
+    );
     let answered = 0;
     fc.assert(
-      fc.property(fc.constantFrom(...clean), fc.string({ minLength: 1, maxLength: 40 }), fc.constantFrom(...Object.keys(writers)), (base, name, style) => {
-        const text = writers[style]({ ...base, model: { ...base.model, name } });
-        const fast = analyzeSetupFast(text);
-        if (fast === null) return;
-        answered += 1;
-        expect(fast).toStrictEqual(analyzeSetupFully(text));
-      }),
+      fc.property(
+        fc.constantFrom(...clean),
+        fc.string({ minLength: 1, maxLength: 40 }),
+        fc.constantFrom(...Object.keys(writers)),
+        (base, name, style) => {
+          const text = writers[style]({ ...base, model: { ...base.model, name } });
+          const fast = analyzeSetupFast(text);
+          if (fast === null) return;
+          answered += 1;
+          expect(fast).toStrictEqual(analyzeSetupFully(text));
+        },
+      ),
       { numRuns: 300, seed: 20260102 },
     );
     expect(answered).toBeGreaterThan(200);

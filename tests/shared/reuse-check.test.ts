@@ -7,7 +7,8 @@ import type { Setup } from '../../shared/format/schema';
 import { findSlot, findingsForSlot, reuseCheck, type ReuseUnit } from '../../shared/reuse/reuse-check';
 import { storedSettingsSchema } from '../../shared/reuse/stored-settings';
 
-const fixture = (path: string) => readFileSync(fileURLToPath(new URL(`../../fixtures/${path}`, import.meta.url)), 'utf8');
+const fixture = (path: string) =>
+  readFileSync(fileURLToPath(new URL(`../../fixtures/${path}`, import.meta.url)), 'utf8');
 
 function loadSetup(name: string): Analysis & { setup: Setup } {
   const analysis = analyzeSetup(fixture(`valid/${name}.yaml`));
@@ -33,7 +34,9 @@ describe('a unit from a single-receiver model moved into the secondary slot of a
 
   it('remaps pins 1-8 from channels 1-8 to 9-16', () => {
     const remaps = check.changes.filter((change) => change.setting === 'ch');
-    expect(remaps.map(({ pin, from, to }) => [pin, from, to])).toEqual([1, 2, 3, 4, 5, 6, 7, 8].map((pin) => [pin, pin, pin + 8]));
+    expect(remaps.map(({ pin, from, to }) => [pin, from, to])).toEqual(
+      [1, 2, 3, 4, 5, 6, 7, 8].map((pin) => [pin, pin, pin + 8]),
+    );
     expect(remaps[2].summary).toBe('Pin 3: carries channel 3, must carry channel 11');
   });
 
@@ -51,7 +54,9 @@ describe('a unit from a single-receiver model moved into the secondary slot of a
 
   it('switches telemetry off, as a setting of the whole unit', () => {
     const telemetry = check.changes.filter((change) => change.setting === 'telemetry');
-    expect(telemetry).toEqual([{ pin: null, setting: 'telemetry', from: true, to: false, summary: 'Telemetry: on, switch it off' }]);
+    expect(telemetry).toEqual([
+      { pin: null, setting: 'telemetry', from: true, to: false, summary: 'Telemetry: on, switch it off' },
+    ]);
   });
 
   it('is not ready, lists the changes pin by pin with telemetry last, and targets the slot’s settings', () => {
@@ -62,7 +67,13 @@ describe('a unit from a single-receiver model moved into the secondary slot of a
       telemetry: false,
       pins: slot(sixteen, 'wing').map.map(({ pin, ch, failsafe }) => ({ pin, ch, failsafe })),
     });
-    expect(check.slot).toEqual({ id: 'wing', label: 'Wing receiver (red tape)', role: 'secondary', outputs: 8, telemetry: false });
+    expect(check.slot).toEqual({
+      id: 'wing',
+      label: 'Wing receiver (red tape)',
+      role: 'secondary',
+      outputs: 8,
+      telemetry: false,
+    });
   });
 });
 
@@ -79,7 +90,15 @@ describe('a unit already programmed for its slot', () => {
 
   it('stays ready whatever the setup’s own findings are: they are reported, not counted as changes', () => {
     const check = reuseCheck(loadUnit('wing-unit'), slot(sixteen, 'wing'), [
-      { rule: 'failsafe-unset', severity: 'warning', message: 'm', hint: 'h', path: 'receivers[id=wing].map[pin=3].failsafe', line: 1, column: 1 },
+      {
+        rule: 'failsafe-unset',
+        severity: 'warning',
+        message: 'm',
+        hint: 'h',
+        path: 'receivers[id=wing].map[pin=3].failsafe',
+        line: 1,
+        column: 1,
+      },
     ]);
     expect(check.ready).toBe(true);
     expect(check.findings.map((finding) => finding.rule)).toEqual(['failsafe-unset']);
@@ -110,29 +129,52 @@ describe('output counts', () => {
 describe('pins and failsafes the slot leaves alone', () => {
   it('notes pins the unit drives that the slot does not use, and keeps them in the target', () => {
     const unit = loadUnit('six-output-unit');
-    const withSpare: ReuseUnit = { ...unit, stored: { ...unit.stored!, pins: [...unit.stored!.pins, { pin: 5, ch: 5, failsafe: 1500 }] } };
+    const withSpare: ReuseUnit = {
+      ...unit,
+      stored: { ...unit.stored!, pins: [...unit.stored!.pins, { pin: 5, ch: 5, failsafe: 1500 }] },
+    };
     const check = reuseCheck(withSpare, slot(trainer, 'cabin'));
     expect(check.ready).toBe(true);
     expect(check.notes).toEqual([
-      { kind: 'pin-unused', pin: 5, blocking: false, message: 'Pin 5: carries channel 5, which this slot does not use; leave it unplugged.' },
+      {
+        kind: 'pin-unused',
+        pin: 5,
+        blocking: false,
+        message: 'Pin 5: carries channel 5, which this slot does not use; leave it unplugged.',
+      },
     ]);
     expect(check.target.pins.find((entry) => entry.pin === 5)).toEqual({ pin: 5, ch: 5, failsafe: 1500 });
   });
 
   it('asks to clear a left-over failsafe where the slot sets none, and asks nothing where neither does', () => {
     const cabin = slot(trainer, 'cabin');
-    const unset = { ...cabin, map: cabin.map.map((entry) => (entry.pin === 3 || entry.pin === 4 ? { pin: entry.pin, ch: entry.ch } : entry)) };
+    const unset = {
+      ...cabin,
+      map: cabin.map.map((entry) => (entry.pin === 3 || entry.pin === 4 ? { pin: entry.pin, ch: entry.ch } : entry)),
+    };
     const unit = loadUnit('six-output-unit');
-    const stored = { ...unit.stored!, pins: unit.stored!.pins.map((entry) => (entry.pin === 4 ? { ...entry, failsafe: null } : entry)) };
+    const stored = {
+      ...unit.stored!,
+      pins: unit.stored!.pins.map((entry) => (entry.pin === 4 ? { ...entry, failsafe: null } : entry)),
+    };
     const check = reuseCheck({ ...unit, stored }, unset);
     expect(check.changes).toEqual([
-      { pin: 3, setting: 'failsafe', from: 1000, to: null, summary: 'Pin 3: failsafe 1000 us, clear it to the receiver default (the setup sets none)' },
+      {
+        pin: 3,
+        setting: 'failsafe',
+        from: 1000,
+        to: null,
+        summary: 'Pin 3: failsafe 1000 us, clear it to the receiver default (the setup sets none)',
+      },
     ]);
   });
 
   it('names a pin the unit leaves without a failsafe', () => {
     const unit = loadUnit('six-output-unit');
-    const stored = { ...unit.stored!, pins: unit.stored!.pins.map((entry) => (entry.pin === 4 ? { ...entry, failsafe: null } : entry)) };
+    const stored = {
+      ...unit.stored!,
+      pins: unit.stored!.pins.map((entry) => (entry.pin === 4 ? { ...entry, failsafe: null } : entry)),
+    };
     expect(reuseCheck({ ...unit, stored }, slot(trainer, 'cabin')).changes).toEqual([
       { pin: 4, setting: 'failsafe', from: null, to: 1500, summary: 'Pin 4: no failsafe, set 1500 us' },
     ]);
@@ -140,8 +182,13 @@ describe('pins and failsafes the slot leaves alone', () => {
 
   it('says "off (no pulses)" when the slot stops a pin on signal loss', () => {
     const cabin = slot(trainer, 'cabin');
-    const off = { ...cabin, map: cabin.map.map((entry) => (entry.pin === 3 ? { ...entry, failsafe: 'off' as const } : entry)) };
-    expect(reuseCheck(loadUnit('six-output-unit'), off).changes.map((change) => change.summary)).toEqual(['Pin 3: failsafe 1000 us, set off (no pulses)']);
+    const off = {
+      ...cabin,
+      map: cabin.map.map((entry) => (entry.pin === 3 ? { ...entry, failsafe: 'off' as const } : entry)),
+    };
+    expect(reuseCheck(loadUnit('six-output-unit'), off).changes.map((change) => change.summary)).toEqual([
+      'Pin 3: failsafe 1000 us, set off (no pulses)',
+    ]);
   });
 });
 
@@ -179,10 +226,28 @@ describe('the slot’s findings', () => {
 
 describe('stored settings', () => {
   it('refuses a pin listed twice and a failsafe pulse out of range', () => {
-    expect(storedSettingsSchema.safeParse({ telemetry: true, pins: [{ pin: 1, ch: 1 }, { pin: 1, ch: 2 }] }).success).toBe(false);
+    expect(
+      storedSettingsSchema.safeParse({
+        telemetry: true,
+        pins: [
+          { pin: 1, ch: 1 },
+          { pin: 1, ch: 2 },
+        ],
+      }).success,
+    ).toBe(false);
     // [arduino-servo]: 700-2300 us is the range servos answer to.
-    expect(storedSettingsSchema.safeParse({ telemetry: true, pins: [{ pin: 1, ch: 1, failsafe: 2400 }] }).success).toBe(false);
-    expect(storedSettingsSchema.parse({ telemetry: false, pins: [{ pin: 2, ch: 2 }, { pin: 1, ch: 1, failsafe: 'hold' }] })).toEqual({
+    expect(storedSettingsSchema.safeParse({ telemetry: true, pins: [{ pin: 1, ch: 1, failsafe: 2400 }] }).success).toBe(
+      false,
+    );
+    expect(
+      storedSettingsSchema.parse({
+        telemetry: false,
+        pins: [
+          { pin: 2, ch: 2 },
+          { pin: 1, ch: 1, failsafe: 'hold' },
+        ],
+      }),
+    ).toEqual({
       telemetry: false,
       pins: [
         { pin: 1, ch: 1, failsafe: 'hold' },

@@ -52,7 +52,11 @@ const mutations: [string, (d: Record<string, any>) => void, boolean][] = [
   ['power supply solar', (d) => (d.power.receiver_supply = 'solar'), false],
   ['unknown keys everywhere', (d) => ((d.extra = 1), (d.model.colour = 'red'), (d.mixes[0].note = 'x')), true],
   ['no mixes, no power', (d) => (delete d.mixes, delete d.power), true],
-  ['failsafe off and hold', (d) => ((d.receivers[0].map[0].failsafe = 'off'), (d.receivers[0].map[1].failsafe = 'hold')), true],
+  [
+    'failsafe off and hold',
+    (d) => ((d.receivers[0].map[0].failsafe = 'off'), (d.receivers[0].map[1].failsafe = 'hold')),
+    true,
+  ],
   ['a 3-position switch with labels', (d) => ((d.controls[4].positions = 3), (d.controls[4].label = 'Rates')), true],
 ];
 
@@ -68,13 +72,12 @@ describe('the published JSON Schema', () => {
   });
 
   // [json-schema-2020-12] ajv's 2020-12 validator must agree with the zod schema.
-  it.each([...validFixtures(), ...invalidFixtures()].filter((f) => parseYaml(f.text).readable).map((f) => [f.name, f.text]))(
-    'agrees with zod on fixture %s',
-    (_, text) => {
-      const data = dataOf(text);
-      expect(validate(data)).toBe(setupSchema.safeParse(data).success);
-    },
-  );
+  it.each(
+    [...validFixtures(), ...invalidFixtures()].filter((f) => parseYaml(f.text).readable).map((f) => [f.name, f.text]),
+  )('agrees with zod on fixture %s', (_, text) => {
+    const data = dataOf(text);
+    expect(validate(data)).toBe(setupSchema.safeParse(data).success);
+  });
 
   it.each(mutations)('agrees with zod on the trainer with %s', (_, mutate, accepted) => {
     const data = structuredClone(trainer);
@@ -99,7 +102,12 @@ describe('defaults', () => {
   it('fill in the rest of a travel that is given in part', () => {
     const data = structuredClone(trainer);
     data.channels[0].travel = { reverse: true };
-    expect(setupSchema.parse(data).channels[0].travel).toEqual({ low_us: 1000, center_us: 1500, high_us: 2000, reverse: true });
+    expect(setupSchema.parse(data).channels[0].travel).toEqual({
+      low_us: 1000,
+      center_us: 1500,
+      high_us: 2000,
+      reverse: true,
+    });
   });
 
   it('leave an unset failsafe unset', () => {

@@ -27,7 +27,11 @@ function load(folder: string): ValidFixture[] {
   return readdirSync(dir)
     .filter((name) => name.endsWith('.yaml'))
     .sort()
-    .map((name) => ({ name: name.replace(/\.yaml$/, ''), file: `${dir}${name}`, text: readFileSync(`${dir}${name}`, 'utf8') }));
+    .map((name) => ({
+      name: name.replace(/\.yaml$/, ''),
+      file: `${dir}${name}`,
+      text: readFileSync(`${dir}${name}`, 'utf8'),
+    }));
 }
 
 export function validFixtures(): ValidFixture[] {
@@ -37,7 +41,11 @@ export function validFixtures(): ValidFixture[] {
 export function invalidFixtures(): InvalidFixture[] {
   return load('invalid').map((fixture) => {
     const lines = fixture.text.split('\n');
-    const header = (key: string) => lines.find((line) => line.startsWith(`# ${key}: `))?.slice(key.length + 4).trim();
+    const header = (key: string) =>
+      lines
+        .find((line) => line.startsWith(`# ${key}: `))
+        ?.slice(key.length + 4)
+        .trim();
     const expect = header('expect');
     if (expect === undefined) throw new Error(`${fixture.name}: no "# expect:" line`);
     const marked = lines.findIndex((line, i) => i > 0 && !line.startsWith('# ') && line.includes('# <-'));
@@ -47,7 +55,10 @@ export function invalidFixtures(): InvalidFixture[] {
       rule: fixture.name.split('--')[0],
       path: expect === '(no path)' ? '' : expect,
       line: marked + 1,
-      also: (header('also') ?? '').split(',').map((rule) => rule.trim()).filter(Boolean),
+      also: (header('also') ?? '')
+        .split(',')
+        .map((rule) => rule.trim())
+        .filter(Boolean),
     };
   });
 }

@@ -24,7 +24,10 @@ export function fakeServer(routes: Record<string, FakeHandler>) {
   const requests: FakeRequest[] = [];
 
   const fetch = vi.fn(async (input: RequestInfo | URL, init: RequestInit = {}) => {
-    const url = new URL(typeof input === 'string' ? input : input instanceof URL ? input.href : input.url, 'http://bindery.test');
+    const url = new URL(
+      typeof input === 'string' ? input : input instanceof URL ? input.href : input.url,
+      'http://bindery.test',
+    );
     const method = (init.method ?? 'GET').toUpperCase();
     const text = typeof init.body === 'string' ? init.body : undefined;
     const request: FakeRequest = {
@@ -40,7 +43,10 @@ export function fakeServer(routes: Record<string, FakeHandler>) {
     const handler = routes[`${method} ${url.pathname}`];
     const answer: FakeAnswer = handler
       ? await handler(request)
-      : { status: 404, body: { error: { code: 'not-found', message: `No route ${method} ${url.pathname}`, details: null } } };
+      : {
+          status: 404,
+          body: { error: { code: 'not-found', message: `No route ${method} ${url.pathname}`, details: null } },
+        };
     const status = answer.status ?? 200;
     return new Response(answer.body === undefined ? null : JSON.stringify(answer.body), {
       status,
@@ -49,7 +55,11 @@ export function fakeServer(routes: Record<string, FakeHandler>) {
   });
 
   vi.stubGlobal('fetch', fetch);
-  return { requests, fetch, called: (method: string, path: string) => requests.filter((r) => r.method === method && r.path === path) };
+  return {
+    requests,
+    fetch,
+    called: (method: string, path: string) => requests.filter((r) => r.method === method && r.path === path),
+  };
 }
 
 export const apiError = (status: number, code: string, message: string, details: unknown = null): FakeAnswer => ({
@@ -60,7 +70,11 @@ export const apiError = (status: number, code: string, message: string, details:
 export const CLUB = '5f0c2e7a-4d4c-4591-9e2d-8a3b5c7e0117';
 export const BUILDERS = '9b2d4f0e-36c2-44a7-8e32-1d0c8f5a4b29';
 
-export const demoUser = { id: 'c41e7b20-9a3f-4d18-b6e5-2f7a0d9c8e11', email: 'wren@hollowfield.example', name: 'Wren Calloway' };
+export const demoUser = {
+  id: 'c41e7b20-9a3f-4d18-b6e5-2f7a0d9c8e11',
+  email: 'wren@hollowfield.example',
+  name: 'Wren Calloway',
+};
 
 export const demoWorkspaces = [
   { id: CLUB, name: 'Hollowfield Aero Club', role: 'owner' },
@@ -77,7 +91,9 @@ export function sessionRoutes(options: { signedIn?: boolean; password?: string; 
   const workspaces = options.workspaces ?? demoWorkspaces;
   const routes: Record<string, FakeHandler> = {
     'GET /api/me': () =>
-      state.signedIn ? { body: { data: { user: demoUser, workspaces } } } : apiError(401, 'unauthenticated', 'Sign in first.'),
+      state.signedIn
+        ? { body: { data: { user: demoUser, workspaces } } }
+        : apiError(401, 'unauthenticated', 'Sign in first.'),
     'POST /api/auth/sign-in': (request) => {
       const body = request.body as { email?: string; password?: string };
       if (body.email !== demoUser.email || body.password !== password) {

@@ -18,11 +18,17 @@ const HomeScreen = lazyScreen(() => import('./routes/home'), 'HomeScreen');
 const NotFoundScreen = lazyScreen(() => import('./routes/not-found'), 'NotFoundScreen');
 const TeamScreen = lazyScreen(() => import('../features/team/components/team-screen'), 'TeamScreen');
 const InvitationScreen = lazyScreen(() => import('../features/team/components/invitation-screen'), 'InvitationScreen');
-const ResetPasswordConfirmScreen = lazyScreen(() => import('./routes/auth/reset-password-confirm'), 'ResetPasswordConfirmScreen');
+const ResetPasswordConfirmScreen = lazyScreen(
+  () => import('./routes/auth/reset-password-confirm'),
+  'ResetPasswordConfirmScreen',
+);
 const OutboxScreen = lazyScreen(() => import('../features/outbox/components/outbox-screen'), 'OutboxScreen');
 const ReviewsScreen = lazyScreen(() => import('../features/reviews/components/reviews-screen'), 'ReviewsScreen');
 const ReviewScreen = lazyScreen(() => import('../features/reviews/components/review-screen'), 'ReviewScreen');
-const ModelReviewsScreen = lazyScreen(() => import('../features/reviews/components/model-reviews-screen'), 'ModelReviewsScreen');
+const ModelReviewsScreen = lazyScreen(
+  () => import('../features/reviews/components/model-reviews-screen'),
+  'ModelReviewsScreen',
+);
 const EditScreen = lazyScreen(() => import('../features/editor/components/edit-screen'), 'EditScreen');
 const BenchScreen = lazyScreen(() => import('../features/bench/components/bench-screen'), 'BenchScreen');
 const HangarScreen = lazyScreen(() => import('../features/models/components/hangar-screen'), 'HangarScreen');
@@ -31,7 +37,10 @@ const HistoryScreen = lazyScreen(() => import('../features/history/components/hi
 const CompareScreen = lazyScreen(() => import('../features/compare/components/compare-screen'), 'CompareScreen');
 const ShelfScreen = lazyScreen(() => import('../features/shelf/components/shelf-screen'), 'ShelfScreen');
 const UnitScreen = lazyScreen(() => import('../features/shelf/components/unit-screen'), 'UnitScreen');
-const FieldSheetScreen = lazyScreen(() => import('../features/field-sheet/components/field-sheet-screen'), 'FieldSheetScreen');
+const FieldSheetScreen = lazyScreen(
+  () => import('../features/field-sheet/components/field-sheet-screen'),
+  'FieldSheetScreen',
+);
 const AccountScreen = lazyScreen(() => import('../features/account/components/account-screen'), 'AccountScreen');
 
 interface Screen extends FrameLink {
@@ -58,9 +67,7 @@ export const modelScreens: Screen[] = [
 ];
 
 /** Tools for development, outside any workspace. */
-export const devScreens: Screen[] = [
-  { path: '/outbox', label: 'Outbox', element: <OutboxScreen /> },
-];
+export const devScreens: Screen[] = [{ path: '/outbox', label: 'Outbox', element: <OutboxScreen /> }];
 
 const frameLinks = (screens: Screen[]): FrameLink[] => screens.map(({ path, label }) => ({ path, label }));
 

@@ -35,7 +35,13 @@ interface DemoUnit {
 
 const UNITS: DemoUnit[] = [
   {
-    fields: { label: 'Kestrel fuselage unit', mark: 'Blue tape', mark_colour: 'blue', outputs: 8, notes: 'Primary: the only unit that reports telemetry in the Kestrel.' },
+    fields: {
+      label: 'Kestrel fuselage unit',
+      mark: 'Blue tape',
+      mark_colour: 'blue',
+      outputs: 8,
+      notes: 'Primary: the only unit that reports telemetry in the Kestrel.',
+    },
     addedAt: '2025-02-08T10:00:00Z',
     by: 'owner',
     stay: { model: 'Kestrel Mk II', slot: 'fuselage', at: '2025-02-08T10:30:00Z', by: 'owner' },
@@ -48,33 +54,59 @@ const UNITS: DemoUnit[] = [
   },
   { fixture: 'trainer-unit.yaml', addedAt: '2026-04-20T18:00:00Z', by: 'editor' },
   {
-    fields: { label: 'Spare 8-output unit', outputs: 8, notes: 'New in the box from the winter swap meet; not bound to anything yet.' },
+    fields: {
+      label: 'Spare 8-output unit',
+      outputs: 8,
+      notes: 'New in the box from the winter swap meet; not bound to anything yet.',
+    },
     addedAt: '2026-01-17T11:00:00Z',
     by: 'owner',
   },
 ];
 
 const fixtureFields = (name: string): Record<string, unknown> =>
-  parse(readFileSync(fileURLToPath(new URL(`../../../fixtures/reuse/${name}`, import.meta.url)), 'utf8')) as Record<string, unknown>;
+  parse(readFileSync(fileURLToPath(new URL(`../../../fixtures/reuse/${name}`, import.meta.url)), 'utf8')) as Record<
+    string,
+    unknown
+  >;
 
 /** The unit's reuse check against the slot in the revision that was the model's latest at `at`. */
-async function checkInSlot(model: SetupModel, slot: string, receiver: Receiver, at: Date, transaction: Transaction): Promise<{ revision: Revision; check: ReuseCheck }> {
-  const revision = await Revision.findOne({ where: { modelId: model.id, createdAt: { [Op.lte]: at } }, order: [['number', 'DESC']], transaction });
+async function checkInSlot(
+  model: SetupModel,
+  slot: string,
+  receiver: Receiver,
+  at: Date,
+  transaction: Transaction,
+): Promise<{ revision: Revision; check: ReuseCheck }> {
+  const revision = await Revision.findOne({
+    where: { modelId: model.id, createdAt: { [Op.lte]: at } },
+    order: [['number', 'DESC']],
+    transaction,
+  });
   const setup = revision && setupOf(revision);
   const found = setup && findSlot(setup, slot);
-  if (!revision || !found) throw new Error(`Demo seed: ${model.name} had no receiver slot "${slot}" on ${at.toISOString()}; step 0002 makes it.`);
+  if (!revision || !found)
+    throw new Error(
+      `Demo seed: ${model.name} had no receiver slot "${slot}" on ${at.toISOString()}; step 0002 makes it.`,
+    );
   return { revision, check: reuseCheck({ outputs: receiver.outputs, stored: receiver.storedSettings ?? null }, found) };
 }
 
 export async function run({ sequelize }: SeedContext): Promise<void> {
   await sequelize.transaction(async (transaction) => {
-    const workspace = await Workspace.findOne({ where: { name: DEMO_WORKSPACE_NAME }, order: [['createdAt', 'ASC']], transaction });
-    if (!workspace) throw new Error(`Demo seed: the workspace "${DEMO_WORKSPACE_NAME}" is missing; step 0001 makes it.`);
+    const workspace = await Workspace.findOne({
+      where: { name: DEMO_WORKSPACE_NAME },
+      order: [['createdAt', 'ASC']],
+      transaction,
+    });
+    if (!workspace)
+      throw new Error(`Demo seed: the workspace "${DEMO_WORKSPACE_NAME}" is missing; step 0001 makes it.`);
     const members = {
       owner: await User.findOne({ where: { email: 'owner@demo.example' }, transaction }),
       editor: await User.findOne({ where: { email: 'editor@demo.example' }, transaction }),
     };
-    if (!members.owner || !members.editor) throw new Error('Demo seed: the demo accounts are missing; step 0001 makes them.');
+    if (!members.owner || !members.editor)
+      throw new Error('Demo seed: the demo accounts are missing; step 0001 makes them.');
     const who = (by: 'owner' | 'editor') => members[by]!;
 
     for (const unit of UNITS) {
@@ -97,19 +129,36 @@ export async function run({ sequelize }: SeedContext): Promise<void> {
         { transaction, silent: true },
       );
       await recordReceiverEvent(
-        { workspaceId: workspace.id, actor: who(unit.by), action: 'receiver.added', receiverId: receiver.id, createdAt: addedAt, details: { label: receiver.label, outputs: receiver.outputs, stored_settings: receiver.storedSettings } },
+        {
+          workspaceId: workspace.id,
+          actor: who(unit.by),
+          action: 'receiver.added',
+          receiverId: receiver.id,
+          createdAt: addedAt,
+          details: { label: receiver.label, outputs: receiver.outputs, stored_settings: receiver.storedSettings },
+        },
         transaction,
       );
       if (!unit.stay) continue;
 
-      const model = await SetupModel.findOne({ where: { workspaceId: workspace.id, name: unit.stay.model }, transaction });
+      const model = await SetupModel.findOne({
+        where: { workspaceId: workspace.id, name: unit.stay.model },
+        transaction,
+      });
       if (!model) throw new Error(`Demo seed: the model "${unit.stay.model}" is missing; step 0002 makes it.`);
       const at = new Date(unit.stay.at);
       const { revision, check } = await checkInSlot(model, unit.stay.slot, receiver, at, transaction);
       const { changes, target } = check;
       const before = receiver.storedSettings ?? null;
       const install = await ReceiverInstall.create(
-        { receiverId: receiver.id, modelId: model.id, slot: unit.stay.slot, revisionId: revision.id, installedAt: at, installedBy: who(unit.stay.by).id },
+        {
+          receiverId: receiver.id,
+          modelId: model.id,
+          slot: unit.stay.slot,
+          revisionId: revision.id,
+          installedAt: at,
+          installedBy: who(unit.stay.by).id,
+        },
         { transaction },
       );
       await recordReceiverEvent(
@@ -119,7 +168,17 @@ export async function run({ sequelize }: SeedContext): Promise<void> {
           action: 'receiver.installed',
           receiverId: receiver.id,
           createdAt: at,
-          details: { install_id: install.id, model_id: model.id, model_name: model.name, slot: unit.stay.slot, revision_id: revision.id, revision_number: revision.number, ready: changes.length === 0, changes: changes.length, moved_from: null },
+          details: {
+            install_id: install.id,
+            model_id: model.id,
+            model_name: model.name,
+            slot: unit.stay.slot,
+            revision_id: revision.id,
+            revision_number: revision.number,
+            ready: changes.length === 0,
+            changes: changes.length,
+            moved_from: null,
+          },
         },
         transaction,
       );
@@ -133,7 +192,17 @@ export async function run({ sequelize }: SeedContext): Promise<void> {
           action: 'receiver.settings-applied',
           receiverId: receiver.id,
           createdAt: appliedAt,
-          details: { install_id: install.id, model_id: model.id, model_name: model.name, slot: unit.stay.slot, revision_id: revision.id, revision_number: revision.number, changes, before, after: target },
+          details: {
+            install_id: install.id,
+            model_id: model.id,
+            model_name: model.name,
+            slot: unit.stay.slot,
+            revision_id: revision.id,
+            revision_number: revision.number,
+            changes,
+            before,
+            after: target,
+          },
         },
         transaction,
       );

@@ -2,7 +2,17 @@ import type { Transaction } from 'sequelize';
 import { recordAuditEvent } from '../../commands/record-audit-event';
 import { composeMailFrom } from '../../mail/seeded-mail';
 import { reviewRequestedMail, verdictMail } from '../../mail/messages';
-import { ChecklistTick, OutboxMessage, Review, ReviewComment, ReviewVerdict, Revision, SetupModel, User, Workspace } from '../../models';
+import {
+  ChecklistTick,
+  OutboxMessage,
+  Review,
+  ReviewComment,
+  ReviewVerdict,
+  Revision,
+  SetupModel,
+  User,
+  Workspace,
+} from '../../models';
 import type { Verdict } from '../../models/ReviewVerdict';
 import { CHECKLIST_IDS, PRE_MAIDEN_CHECKLIST } from '../../reviews/checklist';
 import { reviewStateFromVerdicts } from '../../reviews/sign-off';
@@ -15,7 +25,11 @@ import type { SeedContext } from '../index';
 // mails these sent sit in the outbox. All invented.
 
 type Person = 'owner' | 'editor' | 'reviewer';
-const EMAILS: Record<Person, string> = { owner: 'owner@demo.example', editor: 'editor@demo.example', reviewer: 'reviewer@demo.example' };
+const EMAILS: Record<Person, string> = {
+  owner: 'owner@demo.example',
+  editor: 'editor@demo.example',
+  reviewer: 'reviewer@demo.example',
+};
 
 interface PlannedVerdict {
   by: Person;
@@ -46,9 +60,23 @@ const PLAN: PlannedReview[] = [
     reviewers: ['reviewer'],
     note: 'New students start on Saturday; please look over the softer elevator.',
     at: '2026-03-14T10:05:00Z',
-    verdicts: [{ by: 'reviewer', verdict: 'approve', body: 'Rates and expo as planned. Failsafe and range checked at the field with Hattie.', at: '2026-03-15T09:40:00Z' }],
+    verdicts: [
+      {
+        by: 'reviewer',
+        verdict: 'approve',
+        body: 'Rates and expo as planned. Failsafe and range checked at the field with Hattie.',
+        at: '2026-03-15T09:40:00Z',
+      },
+    ],
     ticks: CHECKLIST_IDS,
-    comments: [{ by: 'reviewer', path: 'mixes[id=elevator]', body: 'Expo 25 feels right on the buddy lead.', at: '2026-03-15T09:35:00Z' }],
+    comments: [
+      {
+        by: 'reviewer',
+        path: 'mixes[id=elevator]',
+        body: 'Expo 25 feels right on the buddy lead.',
+        at: '2026-03-15T09:35:00Z',
+      },
+    ],
     mails: ['verdict'],
   },
   {
@@ -60,8 +88,18 @@ const PLAN: PlannedReview[] = [
     verdicts: [],
     ticks: ['control-directions', 'throws-measured'],
     comments: [
-      { by: 'reviewer', path: 'receivers[id=wing].map[pin=1]', body: 'Tailwheel pin fails safe to 1500: confirm it centres with the transmitter switched off.', at: '2026-03-21T18:12:00Z' },
-      { by: 'reviewer', path: 'receivers[id=fuselage].map[pin=3]', body: 'Motor failsafe 1000 us: check the ESC reads that as stopped, propeller off.', at: '2026-03-21T18:15:00Z' },
+      {
+        by: 'reviewer',
+        path: 'receivers[id=wing].map[pin=1]',
+        body: 'Tailwheel pin fails safe to 1500: confirm it centres with the transmitter switched off.',
+        at: '2026-03-21T18:12:00Z',
+      },
+      {
+        by: 'reviewer',
+        path: 'receivers[id=fuselage].map[pin=3]',
+        body: 'Motor failsafe 1000 us: check the ESC reads that as stopped, propeller off.',
+        at: '2026-03-21T18:15:00Z',
+      },
     ],
     mails: ['requested'],
   },
@@ -72,7 +110,14 @@ const PLAN: PlannedReview[] = [
     reviewers: ['reviewer'],
     note: 'Crow landing setup for the first slope session.',
     at: '2025-03-01T20:00:00Z',
-    verdicts: [{ by: 'reviewer', verdict: 'approve', body: 'Crow mixes check out; ailerons go up, flaps down.', at: '2025-03-02T08:30:00Z' }],
+    verdicts: [
+      {
+        by: 'reviewer',
+        verdict: 'approve',
+        body: 'Crow mixes check out; ailerons go up, flaps down.',
+        at: '2025-03-02T08:30:00Z',
+      },
+    ],
     ticks: CHECKLIST_IDS,
     comments: [],
     mails: [],
@@ -84,29 +129,69 @@ const PLAN: PlannedReview[] = [
     note: 'The Sedge layout on the longer wing; softer ailerons.',
     at: '2026-04-18T13:00:00Z',
     verdicts: [
-      { by: 'editor', verdict: 'comment', body: 'Same servos as my Sedge, so the throws should carry over.', at: '2026-04-18T19:00:00Z' },
-      { by: 'reviewer', verdict: 'request-changes', body: 'With the longer wing, measure the aileron throws again before the maiden.', at: '2026-04-19T08:10:00Z' },
+      {
+        by: 'editor',
+        verdict: 'comment',
+        body: 'Same servos as my Sedge, so the throws should carry over.',
+        at: '2026-04-18T19:00:00Z',
+      },
+      {
+        by: 'reviewer',
+        verdict: 'request-changes',
+        body: 'With the longer wing, measure the aileron throws again before the maiden.',
+        at: '2026-04-19T08:10:00Z',
+      },
     ],
     ticks: ['control-directions'],
-    comments: [{ by: 'reviewer', path: 'mixes[id=ail-left]', body: 'Weight 65 may be too little on the 3.6 m wing.', at: '2026-04-19T08:05:00Z' }],
+    comments: [
+      {
+        by: 'reviewer',
+        path: 'mixes[id=ail-left]',
+        body: 'Weight 65 may be too little on the 3.6 m wing.',
+        at: '2026-04-19T08:05:00Z',
+      },
+    ],
     mails: ['verdict'],
   },
 ];
 
 const APP_URL = (process.env.APP_URL || `http://127.0.0.1:${process.env.PORT || 3000}`).replace(/\/+$/, '');
 
-async function seedReview(plan: PlannedReview, workspace: Workspace, people: Record<Person, User>, transaction: Transaction): Promise<void> {
+async function seedReview(
+  plan: PlannedReview,
+  workspace: Workspace,
+  people: Record<Person, User>,
+  transaction: Transaction,
+): Promise<void> {
   const model = await SetupModel.findOne({ where: { workspaceId: workspace.id, name: plan.model }, transaction });
   if (!model) throw new Error(`Demo seed: the model "${plan.model}" is missing; step 0002 makes it.`);
-  const revision = await Revision.findOne({ where: { modelId: model.id, ...(plan.number ? { number: plan.number } : {}) }, order: [['number', 'DESC']], transaction });
+  const revision = await Revision.findOne({
+    where: { modelId: model.id, ...(plan.number ? { number: plan.number } : {}) },
+    order: [['number', 'DESC']],
+    transaction,
+  });
   if (!revision) throw new Error(`Demo seed: "${plan.model}" has no revision ${plan.number ?? ''}.`);
   const requester = people[plan.by];
   const reviewers = plan.reviewers.map((person) => people[person]);
 
-  const facts = plan.verdicts.map((verdict) => ({ reviewerId: people[verdict.by].id, verdict: verdict.verdict, createdAt: new Date(verdict.at) }));
+  const facts = plan.verdicts.map((verdict) => ({
+    reviewerId: people[verdict.by].id,
+    verdict: verdict.verdict,
+    createdAt: new Date(verdict.at),
+  }));
   const { state, decidedAt } = reviewStateFromVerdicts(facts);
   const review = await Review.create(
-    { revisionId: revision.id, modelId: model.id, workspaceId: workspace.id, requestedBy: requester.id, reviewerIds: reviewers.map((user) => user.id), note: plan.note, state, decidedAt, createdAt: new Date(plan.at) },
+    {
+      revisionId: revision.id,
+      modelId: model.id,
+      workspaceId: workspace.id,
+      requestedBy: requester.id,
+      reviewerIds: reviewers.map((user) => user.id),
+      note: plan.note,
+      state,
+      decidedAt,
+      createdAt: new Date(plan.at),
+    },
     { transaction },
   );
   const reviewUrl = `${APP_URL}/w/${workspace.id}/reviews/${review.id}`;
@@ -117,27 +202,66 @@ async function seedReview(plan: PlannedReview, workspace: Workspace, people: Rec
       action: 'review.requested',
       subjectType: 'review',
       subjectId: review.id,
-      details: { model_id: model.id, model_name: model.name, revision_id: revision.id, number: revision.number, reviewers: reviewers.map((user) => ({ id: user.id, name: user.name })) },
+      details: {
+        model_id: model.id,
+        model_name: model.name,
+        revision_id: revision.id,
+        number: revision.number,
+        reviewers: reviewers.map((user) => ({ id: user.id, name: user.name })),
+      },
       createdAt: new Date(plan.at),
     },
     transaction,
   );
   if (plan.mails.includes('requested')) {
     for (const reviewer of reviewers) {
-      const mail = reviewRequestedMail({ to: reviewer.email, reviewer: reviewer.name, requester: requester.name, model: model.name, revision: revision.number, workspace: workspace.name, note: plan.note, errors: revision.errorCount, warnings: revision.warningCount, url: reviewUrl });
+      const mail = reviewRequestedMail({
+        to: reviewer.email,
+        reviewer: reviewer.name,
+        requester: requester.name,
+        model: model.name,
+        revision: revision.number,
+        workspace: workspace.name,
+        note: plan.note,
+        errors: revision.errorCount,
+        warnings: revision.warningCount,
+        url: reviewUrl,
+      });
       await OutboxMessage.create({ ...composeMailFrom(mail), receivedAt: new Date(plan.at) }, { transaction });
     }
   }
-  for (const item of plan.ticks) await ChecklistTick.create({ reviewId: review.id, item, tickedBy: reviewers[0].id, tickedAt: new Date(plan.verdicts[0]?.at ?? plan.at) }, { transaction });
+  for (const item of plan.ticks)
+    await ChecklistTick.create(
+      { reviewId: review.id, item, tickedBy: reviewers[0].id, tickedAt: new Date(plan.verdicts[0]?.at ?? plan.at) },
+      { transaction },
+    );
   for (const comment of plan.comments) {
     await ReviewComment.create(
-      { reviewId: review.id, revisionId: revision.id, modelId: model.id, path: comment.path, body: comment.body, authorId: people[comment.by].id, createdAt: new Date(comment.at) },
+      {
+        reviewId: review.id,
+        revisionId: revision.id,
+        modelId: model.id,
+        path: comment.path,
+        body: comment.body,
+        authorId: people[comment.by].id,
+        createdAt: new Date(comment.at),
+      },
       { transaction },
     );
   }
   for (const planned of plan.verdicts) {
     const by = people[planned.by];
-    await ReviewVerdict.create({ reviewId: review.id, reviewerId: by.id, verdict: planned.verdict, body: planned.body, contentHash: revision.contentHash, createdAt: new Date(planned.at) }, { transaction });
+    await ReviewVerdict.create(
+      {
+        reviewId: review.id,
+        reviewerId: by.id,
+        verdict: planned.verdict,
+        body: planned.body,
+        contentHash: revision.contentHash,
+        createdAt: new Date(planned.at),
+      },
+      { transaction },
+    );
     await recordAuditEvent(
       {
         workspaceId: workspace.id,
@@ -145,7 +269,14 @@ async function seedReview(plan: PlannedReview, workspace: Workspace, people: Rec
         action: 'review.verdict',
         subjectType: 'review',
         subjectId: review.id,
-        details: { verdict: planned.verdict, model_id: model.id, model_name: model.name, revision_id: revision.id, number: revision.number, content_hash: revision.contentHash },
+        details: {
+          verdict: planned.verdict,
+          model_id: model.id,
+          model_name: model.name,
+          revision_id: revision.id,
+          number: revision.number,
+          content_hash: revision.contentHash,
+        },
         createdAt: new Date(planned.at),
       },
       transaction,
@@ -171,8 +302,13 @@ async function seedReview(plan: PlannedReview, workspace: Workspace, people: Rec
 
 export async function run({ sequelize }: SeedContext): Promise<void> {
   await sequelize.transaction(async (transaction) => {
-    const workspace = await Workspace.findOne({ where: { name: DEMO_WORKSPACE_NAME }, order: [['createdAt', 'ASC']], transaction });
-    if (!workspace) throw new Error(`Demo seed: the workspace "${DEMO_WORKSPACE_NAME}" is missing; step 0001 makes it.`);
+    const workspace = await Workspace.findOne({
+      where: { name: DEMO_WORKSPACE_NAME },
+      order: [['createdAt', 'ASC']],
+      transaction,
+    });
+    if (!workspace)
+      throw new Error(`Demo seed: the workspace "${DEMO_WORKSPACE_NAME}" is missing; step 0001 makes it.`);
     const people = {} as Record<Person, User>;
     for (const [person, email] of Object.entries(EMAILS) as [Person, string][]) {
       const user = await User.findOne({ where: { email }, transaction });

@@ -56,7 +56,8 @@ export function benchDatabase(): Promise<BenchDatabase> {
   if (!opened) {
     opened = open();
     process.once('beforeExit', () => void closeBenchDatabase());
-    for (const signal of ['SIGINT', 'SIGTERM'] as const) process.once(signal, () => void closeBenchDatabase().finally(() => process.exit(130)));
+    for (const signal of ['SIGINT', 'SIGTERM'] as const)
+      process.once(signal, () => void closeBenchDatabase().finally(() => process.exit(130)));
   }
   return opened;
 }

@@ -12,7 +12,8 @@ export const TEST_PASSWORD = 'runway-lights-4021';
 // bcrypt at cost 12 takes a noticeable moment; users made with the default password
 // share one hash so a file can make dozens of them.
 let defaultHash: Promise<string> | null = null;
-const hashFor = (password: string) => (password === TEST_PASSWORD ? (defaultHash ??= hashPassword(TEST_PASSWORD)) : hashPassword(password));
+const hashFor = (password: string) =>
+  password === TEST_PASSWORD ? (defaultHash ??= hashPassword(TEST_PASSWORD)) : hashPassword(password);
 
 export const uniqueEmail = (label = 'pilot') => `${label}-${randomBytes(5).toString('hex')}@test.example`;
 
@@ -42,7 +43,11 @@ export function tokenFor(user: User, config: AppConfig): string {
 export const bearer = (token: string) => ({ Authorization: `Bearer ${token}` });
 
 /** Signs in over HTTP; answers the token and the session cookie as sent by the server. */
-export async function signIn(app: Express, email: string, password = TEST_PASSWORD): Promise<{ token: string; cookie: string }> {
+export async function signIn(
+  app: Express,
+  email: string,
+  password = TEST_PASSWORD,
+): Promise<{ token: string; cookie: string }> {
   const response = await request(app).post('/api/auth/sign-in').send({ email, password }).expect(200);
   const setCookie = ([] as string[]).concat(response.headers['set-cookie'] ?? []);
   return { token: response.body.data.token, cookie: setCookie[0].split(';')[0] };

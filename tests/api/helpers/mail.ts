@@ -36,7 +36,13 @@ export function useMailTestApp(overrides: ConfigOverrides = {}): MailTestApp {
 
 /** What the local mail server caught for one address, newest first. */
 export function mailTo(address: string): Promise<OutboxMessage[]> {
-  return OutboxMessage.findAll({ where: { envelopeTo: { [Op.contains]: [address.toLowerCase()] } }, order: [['receivedAt', 'DESC'], ['id', 'DESC']] });
+  return OutboxMessage.findAll({
+    where: { envelopeTo: { [Op.contains]: [address.toLowerCase()] } },
+    order: [
+      ['receivedAt', 'DESC'],
+      ['id', 'DESC'],
+    ],
+  });
 }
 
 /** The token of the app link `/<prefix>/<token>` in a mail's text. */

@@ -13,7 +13,11 @@ export interface ApiClient {
 async function call<T>(method: string, path: string, token: string | null, body?: unknown): Promise<T> {
   const response = await fetch(`${baseUrl}/api${path}`, {
     method,
-    headers: { accept: 'application/json', ...(token ? { authorization: `Bearer ${token}` } : {}), ...(body === undefined ? {} : { 'content-type': 'application/json' }) },
+    headers: {
+      accept: 'application/json',
+      ...(token ? { authorization: `Bearer ${token}` } : {}),
+      ...(body === undefined ? {} : { 'content-type': 'application/json' }),
+    },
     body: body === undefined ? undefined : JSON.stringify(body),
   });
   const text = await response.text();
@@ -22,7 +26,10 @@ async function call<T>(method: string, path: string, token: string | null, body?
 }
 
 export async function apiAs(account: DemoAccount): Promise<ApiClient> {
-  const { token } = await call<{ token: string }>('POST', '/auth/sign-in', null, { email: account.email, password: DEMO_PASSWORD });
+  const { token } = await call<{ token: string }>('POST', '/auth/sign-in', null, {
+    email: account.email,
+    password: DEMO_PASSWORD,
+  });
   return {
     get: (path) => call('GET', path, token),
     post: (path, body) => call('POST', path, token, body),
@@ -51,10 +58,15 @@ export async function demoModel(api: ApiClient, name: string): Promise<HangarMod
   return model;
 }
 
-export const fixtureText = (relative: string): string => readFileSync(fileURLToPath(new URL(`../../../fixtures/${relative}`, import.meta.url)), 'utf8');
+export const fixtureText = (relative: string): string =>
+  readFileSync(fileURLToPath(new URL(`../../../fixtures/${relative}`, import.meta.url)), 'utf8');
 
 /** A new model in the demo workspace, so a journey that saves does not change the demo's own models. */
-export async function createModel(api: ApiClient, name: string, yaml: string): Promise<{ model: { id: string; name: string }; revision: { id: string; number: number } }> {
+export async function createModel(
+  api: ApiClient,
+  name: string,
+  yaml: string,
+): Promise<{ model: { id: string; name: string }; revision: { id: string; number: number } }> {
   const workspaceId = await demoWorkspaceId(api);
   return api.post(`/workspaces/${workspaceId}/models`, { name, yaml, message: 'Arranged by a browser test' });
 }

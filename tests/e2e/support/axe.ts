@@ -24,11 +24,22 @@ export async function seriousA11yViolations(page: Page): Promise<string[]> {
   const present = await page.evaluate(() => typeof (window as unknown as { axe?: unknown }).axe === 'object');
   if (!present) await page.evaluate(axeSource);
   const violations = await page.evaluate(async () => {
-    const axe = (window as unknown as { axe: { run(context: Document, options: object): Promise<{ violations: AxeViolation[] }> } }).axe;
-    const result = await axe.run(document, { resultTypes: ['violations'], runOnly: { type: 'tag', values: ['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa', 'wcag22aa', 'best-practice'] } });
+    const axe = (
+      window as unknown as { axe: { run(context: Document, options: object): Promise<{ violations: AxeViolation[] }> } }
+    ).axe;
+    const result = await axe.run(document, {
+      resultTypes: ['violations'],
+      runOnly: { type: 'tag', values: ['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa', 'wcag22aa', 'best-practice'] },
+    });
     return result.violations;
   });
   return violations
     .filter((violation) => violation.impact === 'serious' || violation.impact === 'critical')
-    .map((violation) => `${violation.impact} ${violation.id}: ${violation.help} at ${violation.nodes.map((node) => JSON.stringify(node.target)).slice(0, 5).join(', ')}`);
+    .map(
+      (violation) =>
+        `${violation.impact} ${violation.id}: ${violation.help} at ${violation.nodes
+          .map((node) => JSON.stringify(node.target))
+          .slice(0, 5)
+          .join(', ')}`,
+    );
 }

@@ -3,7 +3,15 @@ import { afterAll, beforeAll } from 'vitest';
 
 // Debian's Chromium with the flags of STACK.md; playwright-core never downloads a browser here.
 export const CHROMIUM_PATH = '/usr/bin/chromium';
-const FLAGS = ['--headless', '--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--no-first-run'];
+const FLAGS = [
+  '--headless',
+  '--no-sandbox',
+  '--disable-gpu',
+  '--disable-background-networking',
+  '--disable-component-update',
+  '--disable-sync',
+  '--no-first-run',
+];
 
 /** Desktop and the tablet a pilot carries to the field. */
 export const VIEWPORTS = {
@@ -31,7 +39,9 @@ export class Problems {
 
   /** The problems left once the answers a journey asked for are set aside. */
   unexpected(allowStatuses: number[] = []): string[] {
-    return this.all.filter((problem) => !allowStatuses.some((status) => problem.includes(`the server responded with a status of ${status}`)));
+    return this.all.filter(
+      (problem) => !allowStatuses.some((status) => problem.includes(`the server responded with a status of ${status}`)),
+    );
   }
 
   get csp(): string[] {
@@ -60,13 +70,20 @@ export interface Visit {
 
 /** A fresh browser context (its own cookies) with one watched page. */
 export async function openVisit(browser: Browser, viewport: ViewportName = 'desktop'): Promise<Visit> {
-  const context = await browser.newContext({ viewport: VIEWPORTS[viewport], acceptDownloads: true, locale: 'en-GB', timezoneId: 'Europe/London' });
+  const context = await browser.newContext({
+    viewport: VIEWPORTS[viewport],
+    acceptDownloads: true,
+    locale: 'en-GB',
+    timezoneId: 'Europe/London',
+  });
   const problems = new Problems();
   await context.exposeBinding('__reportCspViolation', (_source, text: string) => problems.add(`CSP: ${text}`));
   await context.addInitScript(() => {
     document.addEventListener('securitypolicyviolation', (event) => {
       const where = event.sourceFile ? ` (${event.sourceFile}:${event.lineNumber})` : '';
-      (window as unknown as { __reportCspViolation(text: string): void }).__reportCspViolation(`${event.violatedDirective} blocked ${event.blockedURI || 'inline code'} on ${location.pathname}${where}`);
+      (window as unknown as { __reportCspViolation(text: string): void }).__reportCspViolation(
+        `${event.violatedDirective} blocked ${event.blockedURI || 'inline code'} on ${location.pathname}${where}`,
+      );
     });
   });
   context.on('page', (page) => watch(page, problems));

@@ -10,7 +10,11 @@ export const SCREENSHOT_DIR = fileURLToPath(new URL('../../../screenshots', impo
  * Saves the page as screenshots/<name>.png and answers the file's path. `fullPage: false`
  * keeps to the window, for screens whose text editor draws only the lines in view.
  */
-export async function saveScreenshot(page: Page, name: string, { fullPage = true }: { fullPage?: boolean } = {}): Promise<string> {
+export async function saveScreenshot(
+  page: Page,
+  name: string,
+  { fullPage = true }: { fullPage?: boolean } = {},
+): Promise<string> {
   mkdirSync(SCREENSHOT_DIR, { recursive: true });
   const file = path.join(SCREENSHOT_DIR, `${name.replace(/[^a-z0-9-]+/gi, '-')}.png`);
   // Carets and animations would make two pictures of one screen differ.

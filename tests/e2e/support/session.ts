@@ -13,7 +13,11 @@ export async function signInThroughForm(page: Page, account: DemoAccount): Promi
 }
 
 /** A fresh context signed in as a demo account, on the page the sign-in lands on. */
-export async function signedIn(browser: Browser, account: DemoAccount, viewport: ViewportName = 'desktop'): Promise<Visit> {
+export async function signedIn(
+  browser: Browser,
+  account: DemoAccount,
+  viewport: ViewportName = 'desktop',
+): Promise<Visit> {
   const visit = await openVisit(browser, viewport);
   await signInThroughForm(visit.page, account);
   return visit;

@@ -36,7 +36,9 @@ describe('the account screen', () => {
     fakeServer({
       ...sessionRoutes({ signedIn: true }).routes,
       'POST /api/auth/password': () =>
-        apiError(403, 'wrong-password', 'The current password is not right, so the password was not changed.', { fields: { current: 'This is not your current password.' } }),
+        apiError(403, 'wrong-password', 'The current password is not right, so the password was not changed.', {
+          fields: { current: 'This is not your current password.' },
+        }),
     });
     const { user } = renderApp('/account');
     await user.type(await screen.findByLabelText('Current password'), 'guess-guess-guess');

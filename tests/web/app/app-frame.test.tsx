@@ -29,7 +29,11 @@ describe('The signed-in app frame', () => {
     expect(document.title).toBe('Hangar · Bindery');
     const nav = screen.getByRole('navigation', { name: 'Workspace' });
     expect(within(nav).getByRole('link', { name: 'Hangar' })).toHaveAttribute('aria-current', 'page');
-    expect(within(nav).getAllByRole('link').map((link) => link.textContent)).toEqual(['Hangar', 'Shelf', 'Reviews', 'Team']);
+    expect(
+      within(nav)
+        .getAllByRole('link')
+        .map((link) => link.textContent),
+    ).toEqual(['Hangar', 'Shelf', 'Reviews', 'Team']);
     expect(screen.getByText(demoUser.name)).toBeInTheDocument();
   });
 
@@ -52,7 +56,8 @@ describe('The signed-in app frame', () => {
     const { routes } = sessionRoutes({ signedIn: true });
     fakeServer({
       ...routes,
-      'GET /api/me': (request) => (failing ? apiError(403, 'account-locked', 'This account is locked.') : routes['GET /api/me'](request)),
+      'GET /api/me': (request) =>
+        failing ? apiError(403, 'account-locked', 'This account is locked.') : routes['GET /api/me'](request),
     });
     const { user } = renderApp(`/w/${CLUB}/hangar`);
 
@@ -98,15 +103,11 @@ describe('The signed-in app frame', () => {
     expect(await screen.findByRole('heading', { level: 1, name: 'Overview' })).toBeInTheDocument();
     expect(location().pathname).toBe('/models/42/overview');
     const nav = screen.getByRole('navigation', { name: 'Model' });
-    expect(within(nav).getAllByRole('link').map((link) => link.textContent)).toEqual([
-      'Overview',
-      'Edit',
-      'Bench',
-      'History',
-      'Compare',
-      'Reviews',
-      'Field sheet',
-    ]);
+    expect(
+      within(nav)
+        .getAllByRole('link')
+        .map((link) => link.textContent),
+    ).toEqual(['Overview', 'Edit', 'Bench', 'History', 'Compare', 'Reviews', 'Field sheet']);
 
     await user.click(within(nav).getByRole('link', { name: 'Bench' }));
     expect(await screen.findByRole('heading', { level: 1, name: 'Bench' })).toBeInTheDocument();

@@ -10,7 +10,10 @@ const ownerExtras = {
 
 const members = [
   { user: demoUser, role: 'owner' },
-  { user: { id: 'e8a91f3c-27d6-4b0e-a5c4-6d13f2b7a902', email: 'juno@hollowfield.example', name: 'Juno Marsh' }, role: 'reviewer' },
+  {
+    user: { id: 'e8a91f3c-27d6-4b0e-a5c4-6d13f2b7a902', email: 'juno@hollowfield.example', name: 'Juno Marsh' },
+    role: 'reviewer',
+  },
 ];
 
 describe('Team', () => {
@@ -24,7 +27,14 @@ describe('Team', () => {
 
     const table = await screen.findByRole('table', { name: 'Members of this workspace' });
     const rows = within(table).getAllByRole('row').slice(1);
-    expect(rows.map((row) => within(row).getAllByRole('cell').slice(0, 2).map((cell) => cell.textContent))).toEqual([
+    expect(
+      rows.map((row) =>
+        within(row)
+          .getAllByRole('cell')
+          .slice(0, 2)
+          .map((cell) => cell.textContent),
+      ),
+    ).toEqual([
       ['Wren Calloway(you)', 'wren@hollowfield.example'],
       ['Juno Marsh', 'juno@hollowfield.example'],
     ]);
@@ -49,7 +59,8 @@ describe('Team', () => {
     fakeServer({
       ...sessionRoutes({ signedIn: true }).routes,
       ...ownerExtras,
-      [`GET /api/workspaces/${CLUB}/members`]: () => apiError(403, 'forbidden', 'Your role in this workspace does not allow that.'),
+      [`GET /api/workspaces/${CLUB}/members`]: () =>
+        apiError(403, 'forbidden', 'Your role in this workspace does not allow that.'),
     });
     renderApp(`/w/${CLUB}/team`);
 

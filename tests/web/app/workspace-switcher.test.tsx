@@ -8,10 +8,11 @@ describe('Workspace switcher', () => {
     renderApp(`/w/${BUILDERS}/reviews`);
 
     const switcher = await screen.findByRole('combobox', { name: 'Workspace' });
-    expect(within(switcher).getAllByRole('option').map((option) => option.textContent)).toEqual([
-      'Hollowfield Aero Club (owner)',
-      'Tuesday Night Builders (reviewer)',
-    ]);
+    expect(
+      within(switcher)
+        .getAllByRole('option')
+        .map((option) => option.textContent),
+    ).toEqual(['Hollowfield Aero Club (owner)', 'Tuesday Night Builders (reviewer)']);
     expect(switcher).toHaveValue(BUILDERS);
   });
 
@@ -23,7 +24,10 @@ describe('Workspace switcher', () => {
     });
     const { user, location } = renderApp(`/w/${CLUB}/team`);
 
-    await user.selectOptions(await screen.findByRole('combobox', { name: 'Workspace' }), 'Tuesday Night Builders (reviewer)');
+    await user.selectOptions(
+      await screen.findByRole('combobox', { name: 'Workspace' }),
+      'Tuesday Night Builders (reviewer)',
+    );
 
     expect(location().pathname).toBe(`/w/${BUILDERS}/team`);
     expect(await screen.findByRole('heading', { level: 1, name: 'Team' })).toBeInTheDocument();

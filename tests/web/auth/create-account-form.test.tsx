@@ -15,9 +15,13 @@ describe('Create account', () => {
     expect(name).toHaveAttribute('aria-invalid', 'true');
     expect(name).toHaveAccessibleDescription('Enter the name your club mates know you by.');
     expect(name).toHaveFocus();
-    expect(screen.getByLabelText('E-mail')).toHaveAccessibleDescription('Enter an e-mail address like name@example.org.');
+    expect(screen.getByLabelText('E-mail')).toHaveAccessibleDescription(
+      'Enter an e-mail address like name@example.org.',
+    );
     // Nine characters: one short of the minimum of ten.
-    expect(screen.getByLabelText('Password')).toHaveAccessibleDescription('At least 10 characters. Use at least 10 characters.');
+    expect(screen.getByLabelText('Password')).toHaveAccessibleDescription(
+      'At least 10 characters. Use at least 10 characters.',
+    );
     expect(server.fetch).not.toHaveBeenCalled();
   });
 
@@ -49,7 +53,9 @@ describe('Create account', () => {
   it('puts a server message about a field the form lacks at the top of the form', async () => {
     fakeServer({
       'POST /api/auth/sign-up': () =>
-        apiError(422, 'invalid-input', 'Some fields need attention.', { fields: { invitation: 'This invitation has expired.' } }),
+        apiError(422, 'invalid-input', 'Some fields need attention.', {
+          fields: { invitation: 'This invitation has expired.' },
+        }),
     });
     const { user } = renderApp('/create-account');
 

@@ -29,13 +29,16 @@ describe('choosing a new password from a reset link', () => {
     await user.type(screen.getByLabelText('The new password again'), 'crosswind-landing-12');
     await user.click(screen.getByRole('button', { name: 'Set the new password' }));
     await vi.waitFor(() => expect(location().pathname).toBe(`/w/${CLUB}/hangar`));
-    expect(server.called('POST', `/api/auth/password-reset/${TOKEN}`)[0].body).toEqual({ password: 'crosswind-landing-12' });
+    expect(server.called('POST', `/api/auth/password-reset/${TOKEN}`)[0].body).toEqual({
+      password: 'crosswind-landing-12',
+    });
   });
 
   it('says when the link has expired and offers a new one', async () => {
     fakeServer({
       ...sessionRoutes({ signedIn: false }).routes,
-      [`GET /api/auth/password-reset/${TOKEN}`]: () => apiError(401, 'token-expired', 'This password reset link has expired. Ask for a new one.'),
+      [`GET /api/auth/password-reset/${TOKEN}`]: () =>
+        apiError(401, 'token-expired', 'This password reset link has expired. Ask for a new one.'),
     });
     renderApp(`/reset-password/${TOKEN}`);
     expect(await screen.findByRole('alert')).toHaveTextContent('has expired');

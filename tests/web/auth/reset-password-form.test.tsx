@@ -15,7 +15,9 @@ describe('Reset password request', () => {
     await user.type(await screen.findByLabelText('E-mail'), 'wren@hollowfield.example');
     await user.click(screen.getByRole('button', { name: 'Send reset link' }));
 
-    expect(await screen.findByRole('status')).toHaveTextContent('If that address has an account, a reset link is on its way.');
+    expect(await screen.findByRole('status')).toHaveTextContent(
+      'If that address has an account, a reset link is on its way.',
+    );
     expect(server.called('POST', '/api/auth/password-reset')[0].body).toEqual({ email: 'wren@hollowfield.example' });
   });
 

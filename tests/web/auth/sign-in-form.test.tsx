@@ -23,7 +23,10 @@ describe('Sign in', () => {
     expect(screen.getByLabelText('Password')).not.toHaveAttribute('aria-invalid');
     // The field's own message replaces the generic one; nothing is said twice.
     expect(screen.queryByRole('alert')).not.toBeInTheDocument();
-    expect(server.called('POST', '/api/auth/sign-in')[0].body).toEqual({ email: 'wren@hollowfield', password: 'anything-long' });
+    expect(server.called('POST', '/api/auth/sign-in')[0].body).toEqual({
+      email: 'wren@hollowfield',
+      password: 'anything-long',
+    });
   });
 
   it('says so when the password is wrong and stays on the form', async () => {
@@ -71,7 +74,8 @@ describe('Sign in', () => {
 
   it('shows the rate limit’s message when sign-in is refused for too many attempts', async () => {
     fakeServer({
-      'POST /api/auth/sign-in': () => apiError(429, 'rate-limited', 'Too many sign-in attempts. Try again in 15 minutes.'),
+      'POST /api/auth/sign-in': () =>
+        apiError(429, 'rate-limited', 'Too many sign-in attempts. Try again in 15 minutes.'),
     });
     const { user } = renderApp('/sign-in');
 

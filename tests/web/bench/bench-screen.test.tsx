@@ -6,14 +6,22 @@ import { demoSetup, documentOf } from '../editor/setups';
 
 const SLOW = { timeout: 20_000 };
 
-const stored = (number: number, yaml: string, message: string): StoredRevision => ({ id: revisionId(number), number, yaml, document: documentOf(yaml), message });
+const stored = (number: number, yaml: string, message: string): StoredRevision => ({
+  id: revisionId(number),
+  number,
+  yaml,
+  document: documentOf(yaml),
+  message,
+});
 const r7 = stored(7, demoSetup, 'Lights on 10 and 11');
 
 async function openBench(revisions: StoredRevision[] = [r7], path = `/models/${MODEL_ID}/bench`) {
   const server = fakeServer({
     ...sessionRoutes({ signedIn: true }).routes,
     ...modelRoutes(revisions),
-    [`GET /api/models/${MODEL_ID}/revisions`]: () => ({ body: { data: [...revisions].reverse().map(({ yaml: _y, document: _d, ...rest }) => rest), pagination: {} } }),
+    [`GET /api/models/${MODEL_ID}/revisions`]: () => ({
+      body: { data: [...revisions].reverse().map(({ yaml: _y, document: _d, ...rest }) => rest), pagination: {} },
+    }),
   });
   const app = renderApp(path);
   await screen.findByRole('region', { name: 'Controls' });
@@ -29,22 +37,29 @@ function pinRow(receiver: string, pin: number): HTMLElement {
   return row;
 }
 
-const cells = (row: HTMLElement) => within(row).getAllByRole('cell').map((cell) => cell.textContent);
+const cells = (row: HTMLElement) =>
+  within(row)
+    .getAllByRole('cell')
+    .map((cell) => cell.textContent);
 
 describe('Bench', () => {
-  it('puts out every pin at centre with the sticks centred, and full aileron stick gives 2000 us on pin 1', SLOW, async () => {
-    await openBench();
-    // Pin, channel, function, pulse now, failsafe.
-    expect(cells(pinRow('Fuselage receiver (blue tape)', 1))).toEqual(['1', '1', 'aileron-left', '1500', '1500 us']);
+  it(
+    'puts out every pin at centre with the sticks centred, and full aileron stick gives 2000 us on pin 1',
+    SLOW,
+    async () => {
+      await openBench();
+      // Pin, channel, function, pulse now, failsafe.
+      expect(cells(pinRow('Fuselage receiver (blue tape)', 1))).toEqual(['1', '1', 'aileron-left', '1500', '1500 us']);
 
-    fireEvent.change(screen.getByRole('slider', { name: 'aileron-stick' }), { target: { value: '100' } });
+      fireEvent.change(screen.getByRole('slider', { name: 'aileron-stick' }), { target: { value: '100' } });
 
-    // FORMAT.md evaluation: curve(1) = 1 at any expo; default travel puts +100 % at high_us.
-    await waitFor(() => expect(cells(pinRow('Fuselage receiver (blue tape)', 1))[3]).toBe('2000'));
-    // Channel 6, the right aileron, is reversed: the same stick sends it to low_us.
-    expect(cells(pinRow('Fuselage receiver (blue tape)', 6))[3]).toBe('1000');
-    expect(screen.getByRole('slider', { name: 'aileron-stick' })).toHaveAttribute('aria-valuetext', '+100 percent');
-  });
+      // FORMAT.md evaluation: curve(1) = 1 at any expo; default travel puts +100 % at high_us.
+      await waitFor(() => expect(cells(pinRow('Fuselage receiver (blue tape)', 1))[3]).toBe('2000'));
+      // Channel 6, the right aileron, is reversed: the same stick sends it to low_us.
+      expect(cells(pinRow('Fuselage receiver (blue tape)', 6))[3]).toBe('1000');
+      expect(screen.getByRole('slider', { name: 'aileron-stick' })).toHaveAttribute('aria-valuetext', '+100 percent');
+    },
+  );
 
   it('follows the rate switch: the low rate of 60 % gives 1800 us at full stick', SLOW, async () => {
     const { user } = await openBench();
@@ -62,12 +77,20 @@ describe('Bench', () => {
     expect(cells(pinRow('Fuselage receiver (blue tape)', 3))[3]).toBe('1000');
     expect(within(screen.getByRole('region', { name: 'Channels' })).getByText('cut on')).toBeInTheDocument();
 
-    await user.click(within(screen.getByRole('group', { name: /^Arm \(guarded\)/ })).getByRole('radio', { name: /Position 1/ }));
+    await user.click(
+      within(screen.getByRole('group', { name: /^Arm \(guarded\)/ })).getByRole('radio', { name: /Position 1/ }),
+    );
     await waitFor(() => expect(cells(pinRow('Fuselage receiver (blue tape)', 3))[3]).toBe('2000'));
 
     await user.click(screen.getByRole('checkbox', { name: 'Simulate link loss' }));
     expect(cells(pinRow('Fuselage receiver (blue tape)', 3))).toEqual(['3', '3', 'motor', '1000', '1000 us']);
-    expect(cells(pinRow('Fuselage receiver (blue tape)', 5))).toEqual(['5', '5', 'gear', '1000(held)', 'holds last pulse']);
+    expect(cells(pinRow('Fuselage receiver (blue tape)', 5))).toEqual([
+      '5',
+      '5',
+      'gear',
+      '1000(held)',
+      'holds last pulse',
+    ]);
     expect(cells(pinRow('Wing receiver (red tape)', 7))).toEqual(['7', '15', 'cowl-flaps', '1500', '1500 us']);
 
     await user.click(screen.getByRole('button', { name: 'Centre all' }));
@@ -82,14 +105,23 @@ describe('Bench', () => {
     expect(within(curves).getAllByRole('img')).toHaveLength(17);
     fireEvent.change(screen.getByRole('slider', { name: 'elevator-stick' }), { target: { value: '50' } });
     // weight 92, expo 15: 92 * (0.85 * 0.5 + 0.15 * 0.125) = 40.8 % [expo-cubic]
-    const elevator = within(curves).getByRole('img', { name: /^Curve of mix elevator: weight \+92 %, expo 15 %, offset 0 %; input elevator-stick now at \+50 %, adding \+41 % to channel 2\.$/ });
+    const elevator = within(curves).getByRole('img', {
+      name: /^Curve of mix elevator: weight \+92 %, expo 15 %, offset 0 %; input elevator-stick now at \+50 %, adding \+41 % to channel 2\.$/,
+    });
     const caption = within(elevator.closest('figure')!);
     expect(caption.getByText('weight +92 %')).toBeInTheDocument();
     expect(caption.getByText('expo 15 %')).toBeInTheDocument();
   });
 
   it('puts an older revision on the bench when ?revision= names it', SLOW, async () => {
-    const r8 = stored(8, demoSetup.replace('{ id: tailwheel,  from: rudder-stick,   to: 9, weight: 80 }', '{ id: tailwheel,  from: rudder-stick,   to: 9, weight: -80 }'), 'Tailwheel the other way');
+    const r8 = stored(
+      8,
+      demoSetup.replace(
+        '{ id: tailwheel,  from: rudder-stick,   to: 9, weight: 80 }',
+        '{ id: tailwheel,  from: rudder-stick,   to: 9, weight: -80 }',
+      ),
+      'Tailwheel the other way',
+    );
     await openBench([r7, r8], `/models/${MODEL_ID}/bench?revision=${r7.id}`);
     fireEvent.change(screen.getByRole('slider', { name: 'rudder-stick' }), { target: { value: '100' } });
     await waitFor(() => expect(cells(pinRow('Wing receiver (red tape)', 1))[3]).toBe('1900'));

@@ -4,7 +4,10 @@ import { fixtureText, modelRecord, modelRoutes } from '../models/model-data';
 import { renderApp } from '../render-app';
 
 function openCompare(pair: string, search = '') {
-  const model = modelRecord('Kestrel Twin', [fixtureText(`pairs/${pair}.before.yaml`), fixtureText(`pairs/${pair}.after.yaml`)]);
+  const model = modelRecord('Kestrel Twin', [
+    fixtureText(`pairs/${pair}.before.yaml`),
+    fixtureText(`pairs/${pair}.after.yaml`),
+  ]);
   const server = fakeServer({ ...sessionRoutes({ signedIn: true }).routes, ...modelRoutes([model]) });
   const app = renderApp(`/models/${model.id}/compare${search}`);
   return { model, server, ...app };
@@ -39,7 +42,12 @@ describe('Compare', () => {
     await screen.findByRole('region', { name: 'Changes by section' });
 
     const shown = groups();
-    expect(shown.map((group) => group.section)).toEqual(['Controls', 'Channel plan', 'Mixes', 'Receivers and pin maps']);
+    expect(shown.map((group) => group.section)).toEqual([
+      'Controls',
+      'Channel plan',
+      'Mixes',
+      'Receivers and pin maps',
+    ]);
     const mixes = shown.find((group) => group.section === 'Mixes')!;
     expect(mixes.summary).toContain('3 changes');
     expect(mixes.summary).toContain('2 changed');
@@ -49,7 +57,9 @@ describe('Compare', () => {
       'Mix gear: target channel 5 (gear) -> 9 (gear)',
       'Mix flap-trim renamed to camber-trim',
     ]);
-    expect(shown.find((group) => group.section === 'Controls')!.sentences).toEqual(['Control gear-switch renamed to retract-switch']);
+    expect(shown.find((group) => group.section === 'Controls')!.sentences).toEqual([
+      'Control gear-switch renamed to retract-switch',
+    ]);
     expect(screen.getByText('Unchanged: Format, Model, Link, Power.')).toBeInTheDocument();
   });
 
@@ -69,8 +79,14 @@ describe('Compare', () => {
     // The fixture remaps the wing receiver's pin 3 from channel 3 to 11.
     const cells = within(outputs)
       .getAllByRole('row')
-      .map((row) => within(row).queryAllByRole('cell').map((cell) => cell.textContent));
-    expect(cells.some(([receiver, pin, channel]) => receiver === 'wing' && pin === '3' && channel === '3 -> 11')).toBe(true);
+      .map((row) =>
+        within(row)
+          .queryAllByRole('cell')
+          .map((cell) => cell.textContent),
+      );
+    expect(cells.some(([receiver, pin, channel]) => receiver === 'wing' && pin === '3' && channel === '3 -> 11')).toBe(
+      true,
+    );
     const introduced = screen.getByRole('heading', { name: /^Introduced/ }).parentElement!;
     expect(within(introduced).getByText(/bay-door/)).toBeInTheDocument();
   });

@@ -43,12 +43,18 @@ describe('document edits', () => {
 
   it('appends a list entry in the flow style of its siblings, at their indentation', () => {
     const out = applyEdits(setup, [{ kind: 'append', path: ['receivers', 0, 'map'], value: { pin: 3, ch: 3 } }]);
-    expect(out).toBe(setup.replace('      - { pin: 2, ch: 2 }\n', '      - { pin: 2, ch: 2 }\n      - { pin: 3, ch: 3 }\n'));
+    expect(out).toBe(
+      setup.replace('      - { pin: 2, ch: 2 }\n', '      - { pin: 2, ch: 2 }\n      - { pin: 3, ch: 3 }\n'),
+    );
   });
 
   it('appends after a block entry in block style', () => {
-    const out = applyEdits(setup, [{ kind: 'append', path: ['receivers', 1, 'map'], value: { pin: 4, ch: 4, failsafe: 1500 } }]);
-    expect(out.endsWith('      - pin: 3\n        ch: 3\n      - pin: 4\n        ch: 4\n        failsafe: 1500\n')).toBe(true);
+    const out = applyEdits(setup, [
+      { kind: 'append', path: ['receivers', 1, 'map'], value: { pin: 4, ch: 4, failsafe: 1500 } },
+    ]);
+    expect(out.endsWith('      - pin: 3\n        ch: 3\n      - pin: 4\n        ch: 4\n        failsafe: 1500\n')).toBe(
+      true,
+    );
   });
 
   it('removes a list entry line and keeps the others', () => {
@@ -67,7 +73,9 @@ describe('document edits', () => {
 
   it('adds a missing key to a block mapping at its indentation', () => {
     const out = applyEdits(setup, [{ kind: 'set', path: ['receivers', 0, 'telemetry'], value: true }]);
-    expect(out).toContain('    outputs: 8\n    map:\n      - { pin: 1, ch: 1, failsafe: 1500 }\n      - { pin: 2, ch: 2 }\n    telemetry: true\n  - id: wing');
+    expect(out).toContain(
+      '    outputs: 8\n    map:\n      - { pin: 1, ch: 1, failsafe: 1500 }\n      - { pin: 2, ch: 2 }\n    telemetry: true\n  - id: wing',
+    );
   });
 
   it('quotes a string that would read back as something else', () => {

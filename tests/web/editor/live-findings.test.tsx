@@ -6,7 +6,13 @@ import { editorView, typeOver } from './code-editor';
 import { MODEL_ID, modelRoutes, revisionId } from './model-routes';
 import { demoSetup, documentOf } from './setups';
 
-const revision = { id: revisionId(7), number: 7, yaml: demoSetup, document: documentOf(demoSetup), message: 'Lights on 10 and 11' };
+const revision = {
+  id: revisionId(7),
+  number: 7,
+  yaml: demoSetup,
+  document: documentOf(demoSetup),
+  message: 'Lights on 10 and 11',
+};
 
 async function openEditor(path = `/models/${MODEL_ID}/edit`) {
   fakeServer({ ...sessionRoutes({ signedIn: true }).routes, ...modelRoutes([revision]) });
@@ -23,21 +29,25 @@ const SLOW = { timeout: 20_000 };
 beforeEach(() => sessionStorage.clear());
 
 describe('Edit: live findings', () => {
-  it('shows a channel-shared finding while two plan entries share a channel, and drops it once fixed', SLOW, async () => {
-    const { checks } = await openEditor();
-    expect(within(checks).getByText('The setup passes every check.')).toBeInTheDocument();
+  it(
+    'shows a channel-shared finding while two plan entries share a channel, and drops it once fixed',
+    SLOW,
+    async () => {
+      const { checks } = await openEditor();
+      expect(within(checks).getByText('The setup passes every check.')).toBeInTheDocument();
 
-    typeOver('ch: 9,  function: tailwheel', 'ch: 1,  function: tailwheel');
-    const rule = await within(checks).findByText('channel-shared');
-    const item = rule.closest('li')!;
-    expect(within(item).getByText('Error')).toBeInTheDocument();
-    expect(item).toHaveTextContent('line 41:7');
-    expect(within(checks).getByText('1 error')).toBeInTheDocument();
+      typeOver('ch: 9,  function: tailwheel', 'ch: 1,  function: tailwheel');
+      const rule = await within(checks).findByText('channel-shared');
+      const item = rule.closest('li')!;
+      expect(within(item).getByText('Error')).toBeInTheDocument();
+      expect(item).toHaveTextContent('line 41:7');
+      expect(within(checks).getByText('1 error')).toBeInTheDocument();
 
-    typeOver('ch: 1,  function: tailwheel', 'ch: 9,  function: tailwheel');
-    await waitFor(() => expect(within(checks).queryByText('channel-shared')).not.toBeInTheDocument());
-    expect(within(checks).getByText('The setup passes every check.')).toBeInTheDocument();
-  });
+      typeOver('ch: 1,  function: tailwheel', 'ch: 9,  function: tailwheel');
+      await waitFor(() => expect(within(checks).queryByText('channel-shared')).not.toBeInTheDocument());
+      expect(within(checks).getByText('The setup passes every check.')).toBeInTheDocument();
+    },
+  );
 
   it('marks findings in the editor itself: a gutter mark and an underline on the node', SLOW, async () => {
     const { checks } = await openEditor();
@@ -55,7 +65,9 @@ describe('Edit: live findings', () => {
     await waitFor(() => {
       const marked: string[] = [];
       const { state } = editorView();
-      forEachDiagnostic(state, (diagnostic, from, to) => marked.push(`${diagnostic.source} ${state.sliceDoc(from, to)}`));
+      forEachDiagnostic(state, (diagnostic, from, to) =>
+        marked.push(`${diagnostic.source} ${state.sliceDoc(from, to)}`),
+      );
       expect(marked).toContain('failsafe-throttle failsafe: hold');
     });
   });
@@ -68,6 +80,8 @@ describe('Edit: live findings', () => {
       expect(state.selection.main.from).toBe(line.from);
       expect(state.selection.main.to).toBe(line.to);
     });
-    expect(editorView().state.sliceDoc(editorView().state.selection.main.from, editorView().state.selection.main.to)).toBe('  channels: 16');
+    expect(
+      editorView().state.sliceDoc(editorView().state.selection.main.from, editorView().state.selection.main.to),
+    ).toBe('  channels: 16');
   });
 });

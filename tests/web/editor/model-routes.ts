@@ -70,13 +70,20 @@ export function revisionView(revision: StoredRevision) {
 
 /** GET each of these revisions in full. */
 export function revisionRoutes(revisions: readonly StoredRevision[]): Record<string, FakeHandler> {
-  return Object.fromEntries(revisions.map((revision) => [`GET /api/revisions/${revision.id}`, () => ({ body: { data: revisionView(revision) } })]));
+  return Object.fromEntries(
+    revisions.map((revision) => [
+      `GET /api/revisions/${revision.id}`,
+      () => ({ body: { data: revisionView(revision) } }),
+    ]),
+  );
 }
 
 /** GET the model (its latest is the last of `revisions`, read at each request) and each revision. */
 export function modelRoutes(revisions: StoredRevision[], options: { role?: string } = {}): Record<string, FakeHandler> {
   return {
-    [`GET /api/models/${MODEL_ID}`]: () => ({ body: { data: modelView(revisions[revisions.length - 1], options.role) } }),
+    [`GET /api/models/${MODEL_ID}`]: () => ({
+      body: { data: modelView(revisions[revisions.length - 1], options.role) },
+    }),
     ...revisionRoutes(revisions),
   };
 }

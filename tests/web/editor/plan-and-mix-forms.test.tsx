@@ -11,7 +11,13 @@ const SLOW = { timeout: 20_000 };
 beforeEach(() => sessionStorage.clear());
 
 async function openEditor() {
-  const revision = { id: revisionId(7), number: 7, yaml: demoSetup, document: documentOf(demoSetup), message: 'Lights on 10 and 11' };
+  const revision = {
+    id: revisionId(7),
+    number: 7,
+    yaml: demoSetup,
+    document: documentOf(demoSetup),
+    message: 'Lights on 10 and 11',
+  };
   fakeServer({ ...sessionRoutes({ signedIn: true }).routes, ...modelRoutes([revision]) });
   const app = renderApp(`/models/${MODEL_ID}/edit`);
   await waitFor(() => expect(document.querySelector('.cm-editor')).not.toBeNull());
@@ -38,7 +44,11 @@ describe('Edit: the channel plan and mix forms', () => {
     await waitFor(() => expect(text()).toContain('  - { ch: 14, function: canopy-release,        role: payload }\n'));
 
     await user.click(within(plan).getByRole('button', { name: 'Add a channel' }));
-    await waitFor(() => expect(text()).toContain('  - { ch: 16, function: pilot-head,    role: aux }\n  - { ch: 17, function: channel-17, role: aux }\nmixes:'));
+    await waitFor(() =>
+      expect(text()).toContain(
+        '  - { ch: 16, function: pilot-head,    role: aux }\n  - { ch: 17, function: channel-17, role: aux }\nmixes:',
+      ),
+    );
     // Channel 17 is past the link's 16 and carried by no pin: the checks say so at once.
     const checks = screen.getByRole('complementary', { name: 'Checks' });
     expect(await within(checks).findByText('channel-beyond-link')).toBeInTheDocument();
@@ -52,7 +62,9 @@ describe('Edit: the channel plan and mix forms', () => {
 
     await user.selectOptions(within(mixes).getByLabelText('Rates switch of mix elevator'), 'rate-switch');
     await waitFor(() =>
-      expect(text()).toContain('  - { id: elevator,   from: elevator-stick, to: 2, weight: 92, expo: 15, rates: { control: rate-switch, weights: [92, 92] } }\n'),
+      expect(text()).toContain(
+        '  - { id: elevator,   from: elevator-stick, to: 2, weight: 92, expo: 15, rates: { control: rate-switch, weights: [92, 92] } }\n',
+      ),
     );
 
     const low = within(mixes).getByLabelText('Rate weight of mix elevator at position 1');
@@ -61,7 +73,9 @@ describe('Edit: the channel plan and mix forms', () => {
     await waitFor(() => expect(text()).toContain('rates: { control: rate-switch, weights: [92, 70] } }'));
 
     await user.selectOptions(within(mixes).getByLabelText('Rates switch of mix elevator'), 'no rates');
-    await waitFor(() => expect(text()).toContain('  - { id: elevator,   from: elevator-stick, to: 2, weight: 92, expo: 15 }\n'));
+    await waitFor(() =>
+      expect(text()).toContain('  - { id: elevator,   from: elevator-stick, to: 2, weight: 92, expo: 15 }\n'),
+    );
     expect(text()).toBe(demoSetup);
   });
 });

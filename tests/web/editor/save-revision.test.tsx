@@ -10,28 +10,44 @@ const SLOW = { timeout: 20_000 };
 
 beforeEach(() => sessionStorage.clear());
 
-const stored = (number: number, yaml: string, message: string): StoredRevision => ({ id: revisionId(number), number, yaml, document: documentOf(yaml), message });
+const stored = (number: number, yaml: string, message: string): StoredRevision => ({
+  id: revisionId(number),
+  number,
+  yaml,
+  document: documentOf(yaml),
+  message,
+});
 
 const r7 = stored(7, demoSetup, 'Lights on 10 and 11');
 // Saved by a club mate while the pilot was editing revision 7.
-const r8Text = demoSetup.replace('      - { pin: 7, ch: 15, failsafe: 1500 }', '      - { pin: 7, ch: 15, failsafe: 1100 }');
+const r8Text = demoSetup.replace(
+  '      - { pin: 7, ch: 15, failsafe: 1500 }',
+  '      - { pin: 7, ch: 15, failsafe: 1100 }',
+);
 const r8 = stored(8, r8Text, 'Cowl flaps close on failsafe');
 
-const saveRoute = (revisions: StoredRevision[]): FakeHandler => (request) => {
-  const body = request.body as { base: number; message: string; yaml: string };
-  const latest = revisions[revisions.length - 1];
-  if (body.base !== latest.number) {
-    return apiError(409, 'stale-base', `Revision ${body.base} is not the latest: revision ${latest.number} was saved meanwhile.`, {
-      base: body.base,
-      latest: latest.number,
-      latest_id: latest.id,
-    });
-  }
-  const saved = stored(latest.number + 1, body.yaml, body.message);
-  revisions.push(saved);
-  const { yaml: _yaml, document: _document, ...summary } = revisionView(saved);
-  return { status: 201, body: { data: summary } };
-};
+const saveRoute =
+  (revisions: StoredRevision[]): FakeHandler =>
+  (request) => {
+    const body = request.body as { base: number; message: string; yaml: string };
+    const latest = revisions[revisions.length - 1];
+    if (body.base !== latest.number) {
+      return apiError(
+        409,
+        'stale-base',
+        `Revision ${body.base} is not the latest: revision ${latest.number} was saved meanwhile.`,
+        {
+          base: body.base,
+          latest: latest.number,
+          latest_id: latest.id,
+        },
+      );
+    }
+    const saved = stored(latest.number + 1, body.yaml, body.message);
+    revisions.push(saved);
+    const { yaml: _yaml, document: _document, ...summary } = revisionView(saved);
+    return { status: 201, body: { data: summary } };
+  };
 
 /** The editor on the last of `revisions`; `later` can be fetched once a test adds them. */
 async function openEditor(revisions: StoredRevision[], later: StoredRevision[] = []) {
@@ -58,7 +74,9 @@ describe('Edit: saving', () => {
 
     const dialog = screen.getByRole('dialog', { name: 'Save as revision 8' });
     await user.click(within(dialog).getByRole('button', { name: 'Save revision' }));
-    expect(within(dialog).getByText('Say in a few words what this revision changes, for whoever reads the history.')).toBeInTheDocument();
+    expect(
+      within(dialog).getByText('Say in a few words what this revision changes, for whoever reads the history.'),
+    ).toBeInTheDocument();
     expect(server.called('POST', `/api/models/${MODEL_ID}/revisions`)).toHaveLength(0);
 
     await user.type(within(dialog).getByLabelText('What changed'), 'Less tailwheel throw');
@@ -66,48 +84,60 @@ describe('Edit: saving', () => {
 
     expect(await screen.findByText('Saved revision 8')).toBeInTheDocument();
     const [request] = server.called('POST', `/api/models/${MODEL_ID}/revisions`);
-    expect(request.body).toEqual({ base: 7, message: 'Less tailwheel throw', yaml: demoSetup.replace('weight: 80 }', 'weight: 70 }') });
+    expect(request.body).toEqual({
+      base: 7,
+      message: 'Less tailwheel throw',
+      yaml: demoSetup.replace('weight: 80 }', 'weight: 70 }'),
+    });
     expect(screen.queryByRole('dialog')).not.toBeInTheDocument();
     expect(screen.getByText('Editing from revision 8')).toBeInTheDocument();
     expect(screen.getByText('No unsaved changes')).toBeInTheDocument();
     expect(sessionStorage.length).toBe(0);
   });
 
-  it('shows what changed meanwhile when the base is stale, and saves again on the latest only when asked', SLOW, async () => {
-    // The pilot opened revision 7; revision 8 lands before they save.
-    const revisions = [r7];
-    const { user, server } = await openEditor(revisions, [r8]);
-    revisions.push(r8);
+  it(
+    'shows what changed meanwhile when the base is stale, and saves again on the latest only when asked',
+    SLOW,
+    async () => {
+      // The pilot opened revision 7; revision 8 lands before they save.
+      const revisions = [r7];
+      const { user, server } = await openEditor(revisions, [r8]);
+      revisions.push(r8);
 
-    typeOver('weight: 80 }', 'weight: 70 }');
-    await waitFor(() => expect(screen.getByRole('button', { name: 'Save revision…' })).toBeEnabled());
-    await user.click(screen.getByRole('button', { name: 'Save revision…' }));
-    await user.type(screen.getByLabelText('What changed'), 'Less tailwheel throw');
-    await user.click(screen.getByRole('button', { name: 'Save revision' }));
+      typeOver('weight: 80 }', 'weight: 70 }');
+      await waitFor(() => expect(screen.getByRole('button', { name: 'Save revision…' })).toBeEnabled());
+      await user.click(screen.getByRole('button', { name: 'Save revision…' }));
+      await user.type(screen.getByLabelText('What changed'), 'Less tailwheel throw');
+      await user.click(screen.getByRole('button', { name: 'Save revision' }));
 
-    const panel = await screen.findByRole('alert', { name: /Not saved: revision 8 was saved while you were editing/ });
-    expect(panel).toHaveTextContent('Your edit started from revision 7; the latest is revision 8');
-    const meanwhile = diffSetups(r7.document, r8.document).changes;
-    expect(meanwhile).toHaveLength(1);
-    expect(await within(panel).findByText(meanwhile[0].summary)).toBeInTheDocument();
-    // Saving the pilot's text as it is would undo the club mate's failsafe and make their own change.
-    const mine = diffSetups(r8.document, documentOf(demoSetup.replace('weight: 80 }', 'weight: 70 }'))).changes.map((change) => change.summary);
-    expect(mine).toHaveLength(2);
-    for (const sentence of mine) expect(within(panel).getByText(sentence)).toBeInTheDocument();
-    expect(editorView().state.doc.toString()).toContain('weight: 70 }');
-    expect(server.called('POST', `/api/models/${MODEL_ID}/revisions`)).toHaveLength(1);
+      const panel = await screen.findByRole('alert', {
+        name: /Not saved: revision 8 was saved while you were editing/,
+      });
+      expect(panel).toHaveTextContent('Your edit started from revision 7; the latest is revision 8');
+      const meanwhile = diffSetups(r7.document, r8.document).changes;
+      expect(meanwhile).toHaveLength(1);
+      expect(await within(panel).findByText(meanwhile[0].summary)).toBeInTheDocument();
+      // Saving the pilot's text as it is would undo the club mate's failsafe and make their own change.
+      const mine = diffSetups(r8.document, documentOf(demoSetup.replace('weight: 80 }', 'weight: 70 }'))).changes.map(
+        (change) => change.summary,
+      );
+      expect(mine).toHaveLength(2);
+      for (const sentence of mine) expect(within(panel).getByText(sentence)).toBeInTheDocument();
+      expect(editorView().state.doc.toString()).toContain('weight: 70 }');
+      expect(server.called('POST', `/api/models/${MODEL_ID}/revisions`)).toHaveLength(1);
 
-    await user.click(within(panel).getByRole('button', { name: 'Load revision 8 and re-apply my text' }));
-    expect(screen.queryByRole('alert', { name: /Not saved/ })).not.toBeInTheDocument();
-    expect(screen.getByText('Editing from revision 8')).toBeInTheDocument();
+      await user.click(within(panel).getByRole('button', { name: 'Load revision 8 and re-apply my text' }));
+      expect(screen.queryByRole('alert', { name: /Not saved/ })).not.toBeInTheDocument();
+      expect(screen.getByText('Editing from revision 8')).toBeInTheDocument();
 
-    await user.click(screen.getByRole('button', { name: 'Save revision…' }));
-    await user.type(screen.getByLabelText('What changed'), 'Less tailwheel throw');
-    await user.click(screen.getByRole('button', { name: 'Save revision' }));
-    expect(await screen.findByText('Saved revision 9')).toBeInTheDocument();
-    const saves = server.called('POST', `/api/models/${MODEL_ID}/revisions`);
-    expect(saves.map((request) => (request.body as { base: number }).base)).toEqual([7, 8]);
-  });
+      await user.click(screen.getByRole('button', { name: 'Save revision…' }));
+      await user.type(screen.getByLabelText('What changed'), 'Less tailwheel throw');
+      await user.click(screen.getByRole('button', { name: 'Save revision' }));
+      expect(await screen.findByText('Saved revision 9')).toBeInTheDocument();
+      const saves = server.called('POST', `/api/models/${MODEL_ID}/revisions`);
+      expect(saves.map((request) => (request.body as { base: number }).base)).toEqual([7, 8]);
+    },
+  );
 
   it('can start over from the latest revision instead, dropping the edit', SLOW, async () => {
     const revisions = [r7];
@@ -129,7 +159,10 @@ describe('Edit: saving', () => {
 describe('Edit: who may change the setup', () => {
   it('shows a viewer the setup read-only, with no way to save', SLOW, async () => {
     fakeServer({
-      ...sessionRoutes({ signedIn: true, workspaces: [{ id: '5f0c2e7a-4d4c-4591-9e2d-8a3b5c7e0117', name: 'Hollowfield Aero Club', role: 'viewer' }] }).routes,
+      ...sessionRoutes({
+        signedIn: true,
+        workspaces: [{ id: '5f0c2e7a-4d4c-4591-9e2d-8a3b5c7e0117', name: 'Hollowfield Aero Club', role: 'viewer' }],
+      }).routes,
       ...modelRoutes([r7], { role: 'viewer' }),
     });
     renderApp(`/models/${MODEL_ID}/edit`);
@@ -176,7 +209,9 @@ describe('Edit: unsaved changes', () => {
 
     await openEditor([r7]);
     expect(await screen.findByText(/Your unsaved changes from earlier in this tab are back/)).toBeInTheDocument();
-    await waitFor(() => expect(editorView().state.doc.toString()).toBe(demoSetup.replace('weight: 80 }', 'weight: 70 }')));
+    await waitFor(() =>
+      expect(editorView().state.doc.toString()).toBe(demoSetup.replace('weight: 80 }', 'weight: 70 }')),
+    );
     expect(screen.getByText('Editing from revision 7')).toBeInTheDocument();
   });
 });

@@ -47,7 +47,9 @@ describe('Findings list', () => {
   it('opens a finding’s line in the editor', async () => {
     const { router, user } = renderList(findings, 'model-7');
     const unrouted = findings.find((finding) => finding.rule === 'heavy-model-failsafe')!;
-    await user.click(screen.getByRole('link', { name: new RegExp(unrouted.message.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')) }));
+    await user.click(
+      screen.getByRole('link', { name: new RegExp(unrouted.message.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')) }),
+    );
     expect(router.state.location.pathname).toBe('/models/model-7/edit');
     expect(screen.getByText(`editor at ?line=${unrouted.line}`)).toBeInTheDocument();
   });

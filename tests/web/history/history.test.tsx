@@ -4,11 +4,15 @@ import { fixtureText, modelRecord, modelRoutes, revisionOf, summaryOf } from '..
 import { renderApp } from '../render-app';
 
 function threeRevisions(extra = {}) {
-  return modelRecord('Kestrel Twin', [
-    fixtureText('pairs/trim-tuning.before.yaml'),
-    fixtureText('pairs/trim-tuning.after.yaml'),
-    fixtureText('pairs/trim-tuning.before.yaml'),
-  ], extra);
+  return modelRecord(
+    'Kestrel Twin',
+    [
+      fixtureText('pairs/trim-tuning.before.yaml'),
+      fixtureText('pairs/trim-tuning.after.yaml'),
+      fixtureText('pairs/trim-tuning.before.yaml'),
+    ],
+    extra,
+  );
 }
 
 const pick = (number: number) => screen.getByRole('checkbox', { name: `Pick revision ${number} to compare` });
@@ -62,7 +66,10 @@ describe('History', () => {
       ...modelRoutes([model]),
       [`POST /api/models/${model.id}/revert`]: ({ body }) => {
         const { number } = body as { number: number };
-        const revision = revisionOf(model.id, 4, model.revisions[number - 1].yaml, { origin: 'revert', source_revision_id: model.revisions[number - 1].id });
+        const revision = revisionOf(model.id, 4, model.revisions[number - 1].yaml, {
+          origin: 'revert',
+          source_revision_id: model.revisions[number - 1].id,
+        });
         model.revisions.push(revision);
         return { status: 201, body: { data: { ...summaryOf(revision), findings: revision.findings } } };
       },
@@ -79,7 +86,11 @@ describe('History', () => {
     await user.click(within(dialog).getByRole('button', { name: 'Revert' }));
 
     await waitFor(() => expect(screen.queryByRole('dialog')).not.toBeInTheDocument());
-    expect(server.called('POST', `/api/models/${model.id}/revert`)[0].body).toEqual({ number: 2, base: 3, message: 'Back to the softer rates' });
+    expect(server.called('POST', `/api/models/${model.id}/revert`)[0].body).toEqual({
+      number: 2,
+      base: 3,
+      message: 'Back to the softer rates',
+    });
     expect(await screen.findByRole('article', { name: /^r4/ })).toHaveTextContent('a revert to r2');
   });
 
@@ -115,7 +126,9 @@ describe('History', () => {
     expect(server.called('POST', `/api/revisions/${target.id}/tags`)[0].body).toEqual({ name: 'maiden' });
 
     await user.click(remove);
-    await waitFor(() => expect(screen.queryByRole('button', { name: 'Remove tag maiden from revision 1' })).not.toBeInTheDocument());
+    await waitFor(() =>
+      expect(screen.queryByRole('button', { name: 'Remove tag maiden from revision 1' })).not.toBeInTheDocument(),
+    );
   });
 
   it('offers a reviewer no revert and no tag editing', async () => {

@@ -2,7 +2,10 @@ import { ApiError, apiRequest, api } from '../../../web/lib/api-client';
 import { vi } from 'vitest';
 
 function answer(status: number, body: string | null, contentType = 'application/json') {
-  vi.stubGlobal('fetch', vi.fn(async () => new Response(body, { status, headers: body ? { 'Content-Type': contentType } : {} })));
+  vi.stubGlobal(
+    'fetch',
+    vi.fn(async () => new Response(body, { status, headers: body ? { 'Content-Type': contentType } : {} })),
+  );
 }
 
 async function failure(promise: Promise<unknown>): Promise<ApiError> {
@@ -25,7 +28,11 @@ describe('api client', () => {
     answer(
       422,
       JSON.stringify({
-        error: { code: 'invalid-input', message: 'Some fields need attention.', details: { fields: { email: 'Required.', name: ['Too long.'] } } },
+        error: {
+          code: 'invalid-input',
+          message: 'Some fields need attention.',
+          details: { fields: { email: 'Required.', name: ['Too long.'] } },
+        },
       }),
     );
     const error = await failure(api.post('/api/auth/sign-up', {}));
@@ -51,7 +58,10 @@ describe('api client', () => {
   });
 
   it('reports a connection that failed as a network error', async () => {
-    vi.stubGlobal('fetch', vi.fn(async () => Promise.reject(new TypeError('Failed to fetch'))));
+    vi.stubGlobal(
+      'fetch',
+      vi.fn(async () => Promise.reject(new TypeError('Failed to fetch'))),
+    );
     const error = await failure(api.get('/api/me'));
     expect(error.status).toBe(0);
     expect(error.code).toBe('network-error');
@@ -67,7 +77,11 @@ describe('api client', () => {
 
     const calls = fetch.mock.calls as unknown as [string, RequestInit][];
     expect(calls[0][1]).toMatchObject({ method: 'POST', credentials: 'same-origin', body: undefined });
-    expect(calls[1][1]).toMatchObject({ method: 'POST', body: 'version: 1\n', headers: { 'Content-Type': 'text/yaml' } });
+    expect(calls[1][1]).toMatchObject({
+      method: 'POST',
+      body: 'version: 1\n',
+      headers: { 'Content-Type': 'text/yaml' },
+    });
     expect(calls[2][1]).toMatchObject({
       method: 'POST',
       credentials: 'same-origin',

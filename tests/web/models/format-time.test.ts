@@ -24,8 +24,12 @@ describe('timeAgo', () => {
   it('gives the date, not a vague count, from about a month away', () => {
     expect(timeAgo(ago(31 * DAY), { now: NOW, locale: 'en-GB' })).toBe('14 Oct 2026');
     // About 20 months back: the date, where counting gave "2 years ago".
-    expect(timeAgo(new Date(Date.UTC(2025, 2, 14, 12)).toISOString(), { now: NOW, locale: 'en-GB' })).toBe('14 Mar 2025');
-    expect(timeAgo(new Date(Date.UTC(2025, 2, 14, 12)).toISOString(), { now: NOW, locale: 'en-US' })).toBe('Mar 14, 2025');
+    expect(timeAgo(new Date(Date.UTC(2025, 2, 14, 12)).toISOString(), { now: NOW, locale: 'en-GB' })).toBe(
+      '14 Mar 2025',
+    );
+    expect(timeAgo(new Date(Date.UTC(2025, 2, 14, 12)).toISOString(), { now: NOW, locale: 'en-US' })).toBe(
+      'Mar 14, 2025',
+    );
     expect(timeAgo(new Date(NOW + 45 * DAY).toISOString(), { now: NOW, locale: 'en-GB' })).toBe('29 Dec 2026');
   });
 

@@ -8,18 +8,31 @@ import { fixtureText, modelRecord, modelRoutes, modelView, type ModelRecord } fr
 // checks' own: a clean trainer, a sport model with a shared channel, a 16-channel scale model.
 function hangarModels(): ModelRecord[] {
   return [
-    modelRecord('Wren Trainer', [fixtureText('valid/trainer-single-receiver.yaml')], { airframe: 'airplane', review_state: 'approved' }),
-    modelRecord('Meadowlark 40', [fixtureText('valid/trainer-single-receiver.yaml'), fixtureText('invalid/channel-shared.yaml')], {
+    modelRecord('Wren Trainer', [fixtureText('valid/trainer-single-receiver.yaml')], {
       airframe: 'airplane',
-      review_state: 'pending',
+      review_state: 'approved',
     }),
-    modelRecord('Albatross Scale', [1, 2, 3].map(() => fixtureText('valid/scale-16-channel-two-receivers.yaml')), { airframe: 'glider' }),
+    modelRecord(
+      'Meadowlark 40',
+      [fixtureText('valid/trainer-single-receiver.yaml'), fixtureText('invalid/channel-shared.yaml')],
+      {
+        airframe: 'airplane',
+        review_state: 'pending',
+      },
+    ),
+    modelRecord(
+      'Albatross Scale',
+      [1, 2, 3].map(() => fixtureText('valid/scale-16-channel-two-receivers.yaml')),
+      { airframe: 'glider' },
+    ),
   ];
 }
 
 function hangarRoute(models: ModelRecord[], workspace = CLUB): Record<string, FakeHandler> {
   return {
-    [`GET /api/workspaces/${workspace}/models`]: () => ({ body: { data: models.map(modelView), pagination: { limit: 200, offset: 0, total: models.length } } }),
+    [`GET /api/workspaces/${workspace}/models`]: () => ({
+      body: { data: models.map(modelView), pagination: { limit: 200, offset: 0, total: models.length } },
+    }),
   };
 }
 
@@ -39,10 +52,17 @@ describe('Hangar', () => {
     expect(modelNames()).toEqual(['Albatross Scale', 'Meadowlark 40', 'Wren Trainer']);
     const meadowlark = screen.getByRole('row', { name: /Meadowlark 40/ });
     expect(within(meadowlark).getByText('r2')).toBeInTheDocument();
-    expect(within(meadowlark).getByText(`${models[1].revisions[1].error_count} error${models[1].revisions[1].error_count === 1 ? '' : 's'}`)).toBeInTheDocument();
+    expect(
+      within(meadowlark).getByText(
+        `${models[1].revisions[1].error_count} error${models[1].revisions[1].error_count === 1 ? '' : 's'}`,
+      ),
+    ).toBeInTheDocument();
     expect(within(meadowlark).getByText('Review pending')).toBeInTheDocument();
     expect(within(screen.getByRole('row', { name: /Wren Trainer/ })).getByText('Approved')).toBeInTheDocument();
-    expect(within(meadowlark).getByRole('link', { name: 'Meadowlark 40' })).toHaveAttribute('href', `/models/${models[1].id}/overview`);
+    expect(within(meadowlark).getByRole('link', { name: 'Meadowlark 40' })).toHaveAttribute(
+      'href',
+      `/models/${models[1].id}/overview`,
+    );
   });
 
   it('sorts by a column heading, and the other way on a second click', async () => {
@@ -108,7 +128,10 @@ describe('Hangar', () => {
       ...sessionRoutes({ signedIn: true }).routes,
       ...hangarRoute([]),
       ...modelRoutes([created]),
-      [`POST /api/workspaces/${CLUB}/models`]: () => ({ status: 201, body: { data: { model: modelView(created), revision: created.revisions[0] } } }),
+      [`POST /api/workspaces/${CLUB}/models`]: () => ({
+        status: 201,
+        body: { data: { model: modelView(created), revision: created.revisions[0] } },
+      }),
     });
     const { user, location } = renderApp(`/w/${CLUB}/hangar`);
     await user.click(await screen.findByRole('button', { name: 'New model' }));
@@ -150,7 +173,10 @@ describe('New model from a file', () => {
     await user.click(within(dialog).getByRole('button', { name: 'Upload and create' }));
     expect(within(dialog).getByText('Choose a .yaml or .yml file.')).toBeInTheDocument();
 
-    await user.upload(within(dialog).getByLabelText('Setup file'), new File([text], 'broken.yaml', { type: 'application/yaml' }));
+    await user.upload(
+      within(dialog).getByLabelText('Setup file'),
+      new File([text], 'broken.yaml', { type: 'application/yaml' }),
+    );
     await user.click(within(dialog).getByRole('button', { name: 'Upload and create' }));
 
     expect(await within(dialog).findByRole('alert')).toHaveTextContent('nothing was saved');

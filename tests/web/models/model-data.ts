@@ -14,7 +14,8 @@ export const fixtureText = (name: string) => readFileSync(path.join(root, 'fixtu
 
 let counter = 0;
 /** A fresh UUID-shaped id, readable in a failure message. */
-export const uuid = (prefix: number) => `00000000-0000-4000-8000-${String(prefix).padStart(4, '0')}${String(++counter).padStart(8, '0')}`;
+export const uuid = (prefix: number) =>
+  `00000000-0000-4000-8000-${String(prefix).padStart(4, '0')}${String(++counter).padStart(8, '0')}`;
 
 export interface RevisionRecord {
   id: string;
@@ -36,7 +37,12 @@ export interface RevisionRecord {
   findings: ReturnType<typeof analyzeSetup>['findings'];
 }
 
-export function revisionOf(modelId: string, number: number, yaml: string, extra: Partial<RevisionRecord> = {}): RevisionRecord {
+export function revisionOf(
+  modelId: string,
+  number: number,
+  yaml: string,
+  extra: Partial<RevisionRecord> = {},
+): RevisionRecord {
   const analysis = analyzeSetup(yaml);
   return {
     id: uuid(number),
@@ -60,7 +66,8 @@ export function revisionOf(modelId: string, number: number, yaml: string, extra:
   };
 }
 
-export const summaryOf = ({ yaml: _yaml, document: _document, findings: _findings, ...summary }: RevisionRecord) => summary;
+export const summaryOf = ({ yaml: _yaml, document: _document, findings: _findings, ...summary }: RevisionRecord) =>
+  summary;
 
 export interface ModelRecord {
   id: string;
@@ -130,12 +137,18 @@ export function modelRoutes(models: ModelRecord[]): Record<string, FakeHandler> 
     routes[`GET /api/models/${model.id}/revisions`] = ({ url }) => {
       const limit = Number(url.searchParams.get('limit') ?? 50);
       const before = url.searchParams.get('before');
-      const older = [...model.revisions].sort((a, b) => b.number - a.number).filter((revision) => before === null || revision.number < Number(before));
+      const older = [...model.revisions]
+        .sort((a, b) => b.number - a.number)
+        .filter((revision) => before === null || revision.number < Number(before));
       const page = older.slice(0, limit);
       return {
         body: {
           data: page.map(summaryOf),
-          pagination: { limit, before: before === null ? null : Number(before), next_before: older.length > limit ? page[page.length - 1].number : null },
+          pagination: {
+            limit,
+            before: before === null ? null : Number(before),
+            next_before: older.length > limit ? page[page.length - 1].number : null,
+          },
         },
       };
     };
@@ -149,7 +162,11 @@ export function modelRoutes(models: ModelRecord[]): Record<string, FakeHandler> 
     const side = (id: string | null) => all().find(({ revision }) => revision.id === id);
     const from = side(url.searchParams.get('from'));
     const to = side(url.searchParams.get('to'));
-    if (!from || !to) return { status: 404, body: { error: { code: 'not-found', message: 'That revision was not found.', details: null } } };
+    if (!from || !to)
+      return {
+        status: 404,
+        body: { error: { code: 'not-found', message: 'That revision was not found.', details: null } },
+      };
     const present = ({ model, revision }: { model: ModelRecord; revision: RevisionRecord }) => ({
       ...summaryOf(revision),
       model: { id: model.id, name: model.name, workspace_id: model.workspace_id },

@@ -15,15 +15,30 @@ const invitation = {
   size_bytes: 300,
   received_at: new Date().toISOString(),
 };
-const reset = { ...invitation, id: 'm1', to: ['juno@example.org'], subject: 'Choose a new Bindery password', text: 'Reset: http://127.0.0.1:3000/reset-password/x.y.z', links: ['http://127.0.0.1:3000/reset-password/x.y.z'], received_at: new Date(Date.now() - 60_000).toISOString() };
+const reset = {
+  ...invitation,
+  id: 'm1',
+  to: ['juno@example.org'],
+  subject: 'Choose a new Bindery password',
+  text: 'Reset: http://127.0.0.1:3000/reset-password/x.y.z',
+  links: ['http://127.0.0.1:3000/reset-password/x.y.z'],
+  received_at: new Date(Date.now() - 60_000).toISOString(),
+};
 
 describe('Outbox', () => {
   it('lists caught mail newest first and shows the open one with clickable links', async () => {
-    fakeServer({ ...sessionRoutes({ signedIn: true }).routes, 'GET /api/outbox': () => ({ body: { data: [invitation, reset], pagination: { total: 2 } } }) });
+    fakeServer({
+      ...sessionRoutes({ signedIn: true }).routes,
+      'GET /api/outbox': () => ({ body: { data: [invitation, reset], pagination: { total: 2 } } }),
+    });
     const { user } = renderApp('/outbox');
 
     const list = await screen.findByRole('list', { name: 'Caught messages' });
-    expect(within(list).getAllByRole('button').map((button) => button.textContent)).toEqual([
+    expect(
+      within(list)
+        .getAllByRole('button')
+        .map((button) => button.textContent),
+    ).toEqual([
       expect.stringContaining('invites you to Hollowfield Aero Club'),
       expect.stringContaining('Choose a new Bindery password'),
     ]);
@@ -34,17 +49,26 @@ describe('Outbox', () => {
 
     await user.click(within(list).getByRole('button', { name: /Choose a new Bindery password/ }));
     expect(screen.getByRole('heading', { name: 'Choose a new Bindery password', level: 2 })).toBeInTheDocument();
-    expect(screen.getAllByRole('link', { name: 'http://127.0.0.1:3000/reset-password/x.y.z' })[0]).toHaveAttribute('href', 'http://127.0.0.1:3000/reset-password/x.y.z');
+    expect(screen.getAllByRole('link', { name: 'http://127.0.0.1:3000/reset-password/x.y.z' })[0]).toHaveAttribute(
+      'href',
+      'http://127.0.0.1:3000/reset-password/x.y.z',
+    );
   });
 
   it('says so when nothing has been sent yet', async () => {
-    fakeServer({ ...sessionRoutes({ signedIn: true }).routes, 'GET /api/outbox': () => ({ body: { data: [], pagination: { total: 0 } } }) });
+    fakeServer({
+      ...sessionRoutes({ signedIn: true }).routes,
+      'GET /api/outbox': () => ({ body: { data: [], pagination: { total: 0 } } }),
+    });
     renderApp('/outbox');
     expect(await screen.findByRole('heading', { name: 'No mail yet' })).toBeInTheDocument();
   });
 
   it('explains that a server with real mail has no outbox', async () => {
-    fakeServer({ ...sessionRoutes({ signedIn: true }).routes, 'GET /api/outbox': () => apiError(404, 'no-such-route', 'There is no GET /api/outbox.') });
+    fakeServer({
+      ...sessionRoutes({ signedIn: true }).routes,
+      'GET /api/outbox': () => apiError(404, 'no-such-route', 'There is no GET /api/outbox.'),
+    });
     renderApp('/outbox');
     expect(await screen.findByRole('heading', { name: 'No outbox on this server' })).toBeInTheDocument();
   });

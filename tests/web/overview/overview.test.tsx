@@ -19,7 +19,11 @@ describe('Overview', () => {
 
     const row = within(grid).getByRole('row', { name: /^4 / });
     const functionCell = within(row).getAllByRole('cell')[0];
-    expect(within(functionCell).getAllByRole('listitem').map((item) => item.textContent)).toEqual(['rudderrudder', 'tow-releaseaux']);
+    expect(
+      within(functionCell)
+        .getAllByRole('listitem')
+        .map((item) => item.textContent),
+    ).toEqual(['rudderrudder', 'tow-releaseaux']);
     expect(within(row).getByText('Conflict: shared channel')).toBeInTheDocument();
     expect(within(channelRow(3)).queryByText('Conflict: shared channel')).not.toBeInTheDocument();
     // The receiver column shows the pin that carries channel 4 and its failsafe.
@@ -46,12 +50,18 @@ describe('Overview', () => {
     const { model, user, location } = openOverview('invalid/channel-shared.yaml');
     await screen.findByRole('table', { name: /Channel plan/ });
 
-    expect(within(screen.getByRole('columnheader', { name: /Receiver cabin/ })).getByText('Sends telemetry')).toBeInTheDocument();
+    expect(
+      within(screen.getByRole('columnheader', { name: /Receiver cabin/ })).getByText('Sends telemetry'),
+    ).toBeInTheDocument();
     const finding = model.revisions[0].findings.find((f) => f.rule === 'channel-shared')!;
     const findings = screen.getByRole('region', { name: /Findings of revision 1/ });
-    const link = within(findings).getByRole('link', { name: new RegExp(finding.message.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')) });
+    const link = within(findings).getByRole('link', {
+      name: new RegExp(finding.message.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')),
+    });
     expect(link).toHaveAttribute('href', `/models/${model.id}/edit?line=${finding.line}`);
-    expect(screen.getByRole('region', { name: 'Cautions before programming or flying' })).toHaveTextContent('propeller removed');
+    expect(screen.getByRole('region', { name: 'Cautions before programming or flying' })).toHaveTextContent(
+      'propeller removed',
+    );
 
     await user.click(link);
     await waitFor(() => expect(location().pathname).toBe(`/models/${model.id}/edit`));
@@ -59,7 +69,10 @@ describe('Overview', () => {
   });
 
   it('says so when the model cannot be loaded', async () => {
-    fakeServer({ ...sessionRoutes({ signedIn: true }).routes, 'GET /api/models/missing': () => apiError(404, 'not-found', 'That model was not found.') });
+    fakeServer({
+      ...sessionRoutes({ signedIn: true }).routes,
+      'GET /api/models/missing': () => apiError(404, 'not-found', 'That model was not found.'),
+    });
     renderApp('/models/missing/overview');
     expect(await screen.findByRole('alert')).toHaveTextContent('That model was not found.');
     expect(screen.getByRole('heading', { level: 1, name: 'Overview' })).toBeInTheDocument();

@@ -4,15 +4,27 @@ import { renderApp } from '../render-app';
 import { MODEL, ines, reviewDetail, summaryOf } from './review-data';
 
 const open = summaryOf(reviewDetail(), { reviewers: [{ id: demoUser.id, name: demoUser.name }] });
-const decided = summaryOf(reviewDetail(), { id: '66666666-6666-4666-8666-666666666666', model: { id: MODEL, name: 'Meadowlark 40' }, state: 'approved', decided_at: '2026-04-03T09:00:00.000Z', latest: { id: 'x', number: 5, same_content: false } });
+const decided = summaryOf(reviewDetail(), {
+  id: '66666666-6666-4666-8666-666666666666',
+  model: { id: MODEL, name: 'Meadowlark 40' },
+  state: 'approved',
+  decided_at: '2026-04-03T09:00:00.000Z',
+  latest: { id: 'x', number: 5, same_content: false },
+});
 
 describe('the workspace’s reviews', () => {
   it('lists open reviews apart from decided ones, with links to each', async () => {
-    fakeServer({ ...sessionRoutes({ signedIn: true }).routes, [`GET /api/workspaces/${CLUB}/reviews`]: () => ({ body: { data: [decided, open] } }) });
+    fakeServer({
+      ...sessionRoutes({ signedIn: true }).routes,
+      [`GET /api/workspaces/${CLUB}/reviews`]: () => ({ body: { data: [decided, open] } }),
+    });
     renderApp(`/w/${CLUB}/reviews`);
 
     const openTable = await screen.findByRole('table', { name: 'Open reviews' });
-    expect(within(openTable).getByRole('link', { name: 'Kestrel Mk II, revision 4' })).toHaveAttribute('href', `/w/${CLUB}/reviews/${open.id}`);
+    expect(within(openTable).getByRole('link', { name: 'Kestrel Mk II, revision 4' })).toHaveAttribute(
+      'href',
+      `/w/${CLUB}/reviews/${open.id}`,
+    );
     expect(within(openTable).getByText('Review pending')).toBeInTheDocument();
     expect(screen.getByText('1 open, 1 asking you')).toBeInTheDocument();
     const past = screen.getByRole('table', { name: 'Decided reviews' });
@@ -21,7 +33,10 @@ describe('the workspace’s reviews', () => {
   });
 
   it('says how to start when there are none', async () => {
-    fakeServer({ ...sessionRoutes({ signedIn: true }).routes, [`GET /api/workspaces/${CLUB}/reviews`]: () => ({ body: { data: [] } }) });
+    fakeServer({
+      ...sessionRoutes({ signedIn: true }).routes,
+      [`GET /api/workspaces/${CLUB}/reviews`]: () => ({ body: { data: [] } }),
+    });
     renderApp(`/w/${CLUB}/reviews`);
     expect(await screen.findByRole('heading', { name: 'No reviews yet' })).toBeInTheDocument();
   });
@@ -38,7 +53,17 @@ describe('the model’s Reviews tab', () => {
     created_by: demoUser.id,
     created_at: '2026-01-01T00:00:00.000Z',
     updated_at: '2026-01-01T00:00:00.000Z',
-    latest: { id: 'rev-12', number: 12, content_hash: 'a'.repeat(64), error_count: 0, warning_count: 0, info_count: 0, message: 'm', created_at: '2026-03-21T09:40:00.000Z', author: { id: demoUser.id, name: demoUser.name } },
+    latest: {
+      id: 'rev-12',
+      number: 12,
+      content_hash: 'a'.repeat(64),
+      error_count: 0,
+      warning_count: 0,
+      info_count: 0,
+      message: 'm',
+      created_at: '2026-03-21T09:40:00.000Z',
+      author: { id: demoUser.id, name: demoUser.name },
+    },
     review_state: 'stale',
     cleared_for_maiden: false,
     role: 'owner',
@@ -58,12 +83,17 @@ describe('the model’s Reviews tab', () => {
           ],
         },
       }),
-      'POST /api/revisions/rev-12/reviews': () => ({ status: 201, body: { data: { ...open, id: 'new-review', reviewers: [ines] } } }),
+      'POST /api/revisions/rev-12/reviews': () => ({
+        status: 201,
+        body: { data: { ...open, id: 'new-review', reviewers: [ines] } },
+      }),
       [`GET /api/reviews/new-review`]: () => ({ body: { data: reviewDetail({ id: 'new-review' }) } }),
     });
     const { user, location } = renderApp(`/models/${MODEL}/reviews`);
 
-    expect(await screen.findByText(/An earlier revision was approved, but the setup has changed since/)).toBeInTheDocument();
+    expect(
+      await screen.findByText(/An earlier revision was approved, but the setup has changed since/),
+    ).toBeInTheDocument();
     await user.click(screen.getByRole('button', { name: 'Request review' }));
     const dialog = await screen.findByRole('dialog', { name: 'Request a review of revision 12' });
     const choices = within(dialog).getAllByRole('checkbox');
@@ -73,6 +103,9 @@ describe('the model’s Reviews tab', () => {
     await user.click(within(dialog).getByRole('button', { name: 'Request review' }));
 
     await vi.waitFor(() => expect(location().pathname).toBe(`/w/${CLUB}/reviews/new-review`));
-    expect(server.called('POST', '/api/revisions/rev-12/reviews')[0].body).toEqual({ reviewers: [ines.id], note: 'Maiden Saturday' });
+    expect(server.called('POST', '/api/revisions/rev-12/reviews')[0].body).toEqual({
+      reviewers: [ines.id],
+      note: 'Maiden Saturday',
+    });
   });
 });

@@ -44,7 +44,10 @@ export function checkFor(unit: ShelfUnit, model: ModelRecord, slotId: string): R
     revision: { id: revision.id, number: revision.number, content_hash: revision.content_hash },
     ...check,
     installed_here: unit.installed?.model.id === model.id && unit.installed.slot === slotId,
-    holder: unit.installed?.model.id === model.id && unit.installed.slot === slotId ? { id: unit.id, label: unit.label } : null,
+    holder:
+      unit.installed?.model.id === model.id && unit.installed.slot === slotId
+        ? { id: unit.id, label: unit.label }
+        : null,
   };
 }
 

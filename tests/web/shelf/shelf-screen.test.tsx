@@ -13,7 +13,12 @@ const installedUnit = unitRecord('wing-unit', {
 });
 const changesUnit = unitRecord('trainer-unit', {
   status: 'installed',
-  installed: { install_id: uuid(7100), model: { id: uuid(9100), name: 'Meadowlark 40' }, slot: 'cabin', since: '2026-02-16T09:40:00.000Z' },
+  installed: {
+    install_id: uuid(7100),
+    model: { id: uuid(9100), name: 'Meadowlark 40' },
+    slot: 'cabin',
+    since: '2026-02-16T09:40:00.000Z',
+  },
   readiness: { state: 'changes', changes: 3, revision: { id: uuid(1), number: 3 }, reason: null },
 });
 const spare = unitRecord(null, { label: 'Spare 8-output unit', mark_colour: 'orange' });
@@ -24,7 +29,9 @@ function shelfServer(units = [installedUnit, changesUnit, spare], ws = CLUB) {
     [`GET /api/workspaces/${ws}/receivers`]: ({ url }) => {
       const q = url.searchParams.get('q')?.toLowerCase();
       const status = url.searchParams.get('status');
-      const shown = units.filter((unit) => (!q || unit.label.toLowerCase().includes(q)) && (!status || unit.status === status));
+      const shown = units.filter(
+        (unit) => (!q || unit.label.toLowerCase().includes(q)) && (!status || unit.status === status),
+      );
       return { body: { data: shown, pagination: { limit: 200, offset: 0, total: shown.length } } };
     },
   });
@@ -37,16 +44,27 @@ describe('Shelf', () => {
     shelfServer();
     renderApp(`/w/${CLUB}/shelf`);
     const table = await screen.findByRole('table', { name: 'Receivers on this workspace’s shelf' });
-    expect(within(table).getAllByRole('columnheader').map((cell) => cell.textContent)).toEqual(['Receiver', 'Mark', 'Outputs', 'Where installed', 'Telemetry']);
+    expect(
+      within(table)
+        .getAllByRole('columnheader')
+        .map((cell) => cell.textContent),
+    ).toEqual(['Receiver', 'Mark', 'Outputs', 'Where installed', 'Telemetry']);
 
-    const wing = within(rowOf('Kestrel wing unit')).getAllByRole('cell').map((cell) => cell.textContent);
+    const wing = within(rowOf('Kestrel wing unit'))
+      .getAllByRole('cell')
+      .map((cell) => cell.textContent);
     expect(wing).toEqual(['Kestrel wing unit', 'Red tape', '8', 'Kestrel Mk II · slot wingReady', 'Off']);
     expect(within(rowOf('Pipit trainer unit')).getByText('3 changes to make')).toBeInTheDocument();
     expect(within(rowOf('Pipit trainer unit')).getByText('Sends')).toBeInTheDocument();
     // A colour without words still reads as words.
-    const spareCells = within(rowOf('Spare 8-output unit')).getAllByRole('cell').map((cell) => cell.textContent);
+    const spareCells = within(rowOf('Spare 8-output unit'))
+      .getAllByRole('cell')
+      .map((cell) => cell.textContent);
     expect(spareCells).toEqual(['Spare 8-output unit', 'orange (no words)', '8', 'Free, on the shelf', 'Not recorded']);
-    expect(within(rowOf('Kestrel wing unit')).getByRole('link', { name: 'Kestrel wing unit' })).toHaveAttribute('href', `/w/${CLUB}/shelf/${installedUnit.id}`);
+    expect(within(rowOf('Kestrel wing unit')).getByRole('link', { name: 'Kestrel wing unit' })).toHaveAttribute(
+      'href',
+      `/w/${CLUB}/shelf/${installedUnit.id}`,
+    );
     expect(document.title).toBe(`Shelf · Hollowfield Aero Club · Bindery`);
   });
 
@@ -63,7 +81,9 @@ describe('Shelf', () => {
     await user.click(screen.getByRole('radio', { name: 'All' }));
     await user.type(screen.getByLabelText('Search receivers'), 'pipit');
     await waitFor(() => expect(screen.queryByText('Spare 8-output unit')).not.toBeInTheDocument());
-    const asked = server.requests.filter((request) => request.path === `/api/workspaces/${CLUB}/receivers`).map((request) => request.url.search);
+    const asked = server.requests
+      .filter((request) => request.path === `/api/workspaces/${CLUB}/receivers`)
+      .map((request) => request.url.search);
     expect(asked).toContain('?limit=200&status=free');
     expect(asked.at(-1)).toBe('?limit=200&q=pipit');
 
@@ -90,7 +110,11 @@ describe('Shelf', () => {
   });
 
   it('shows the server’s error when the shelf cannot be loaded', async () => {
-    fakeServer({ ...sessionRoutes({ signedIn: true }).routes, [`GET /api/workspaces/${CLUB}/receivers`]: () => apiError(503, 'database-unavailable', 'The database is unavailable. Try again shortly.') });
+    fakeServer({
+      ...sessionRoutes({ signedIn: true }).routes,
+      [`GET /api/workspaces/${CLUB}/receivers`]: () =>
+        apiError(503, 'database-unavailable', 'The database is unavailable. Try again shortly.'),
+    });
     renderApp(`/w/${CLUB}/shelf`);
     const alert = await screen.findByRole('alert');
     expect(alert).toHaveTextContent('The shelf could not be loaded');
@@ -104,7 +128,9 @@ describe('Shelf', () => {
       [`GET /api/workspaces/${CLUB}/receivers`]: () => ({ body: { data: [], pagination: { total: 0 } } }),
       [`POST /api/workspaces/${CLUB}/receivers`]: ({ body }) =>
         (body as { outputs: number }).outputs > 32
-          ? apiError(400, 'invalid-input', 'Some fields need attention.', { fields: { outputs: 'At most 32 outputs.' } })
+          ? apiError(400, 'invalid-input', 'Some fields need attention.', {
+              fields: { outputs: 'At most 32 outputs.' },
+            })
           : { status: 201, body: { data: added } },
       [`GET /api/receivers/${added.id}`]: () => ({ body: { data: added } }),
       [`GET /api/receivers/${added.id}/history`]: () => ({ body: { data: history } }),
@@ -124,7 +150,12 @@ describe('Shelf', () => {
     await user.type(within(dialog).getByLabelText('Outputs'), '6');
     await user.click(within(dialog).getByRole('button', { name: 'Add to the shelf' }));
     await waitFor(() => expect(location().pathname).toBe(`/w/${CLUB}/shelf/${added.id}`));
-    expect(server.called('POST', `/api/workspaces/${CLUB}/receivers`).at(-1)!.body).toEqual({ label: 'Heron wing unit', mark: 'Orange dot', mark_colour: 'orange', outputs: 6 });
+    expect(server.called('POST', `/api/workspaces/${CLUB}/receivers`).at(-1)!.body).toEqual({
+      label: 'Heron wing unit',
+      mark: 'Orange dot',
+      mark_colour: 'orange',
+      outputs: 6,
+    });
     expect(await screen.findByRole('heading', { level: 1, name: 'Heron wing unit' })).toBeInTheDocument();
   });
 });

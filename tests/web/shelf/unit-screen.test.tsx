@@ -13,16 +13,29 @@ function unitRoutes(state: { unit: ShelfUnit }, extra: Record<string, FakeHandle
   return {
     ...sessionRoutes({ signedIn: true }).routes,
     ...modelRoutes([kestrel]),
-    [`GET /api/workspaces/${state.unit.workspace_id}/models`]: () => ({ body: { data: [modelView(kestrel)], pagination: { total: 1 } } }),
+    [`GET /api/workspaces/${state.unit.workspace_id}/models`]: () => ({
+      body: { data: [modelView(kestrel)], pagination: { total: 1 } },
+    }),
     [`GET /api/receivers/${id}`]: () => ({ body: { data: state.unit } }),
     [`GET /api/receivers/${id}/history`]: () => ({ body: { data: history } }),
-    [`GET /api/receivers/${id}/reuse-check`]: ({ url }) => ({ body: { data: checkFor(state.unit, kestrel, url.searchParams.get('slot')!) } }),
+    [`GET /api/receivers/${id}/reuse-check`]: ({ url }) => ({
+      body: { data: checkFor(state.unit, kestrel, url.searchParams.get('slot')!) },
+    }),
     ...extra,
   };
 }
 
 function installedIn(unit: ShelfUnit, slot: string): ShelfUnit {
-  return { ...unit, status: 'installed', installed: { install_id: 'stay-1', model: { id: kestrel.id, name: kestrel.name }, slot, since: '2026-04-21T10:00:00.000Z' } };
+  return {
+    ...unit,
+    status: 'installed',
+    installed: {
+      install_id: 'stay-1',
+      model: { id: kestrel.id, name: kestrel.name },
+      slot,
+      since: '2026-04-21T10:00:00.000Z',
+    },
+  };
 }
 
 describe('A unit’s page', () => {
@@ -32,7 +45,11 @@ describe('A unit’s page', () => {
     renderApp(`/w/${CLUB}/shelf/${state.unit.id}`);
     const table = await screen.findByRole('table', { name: 'Stored settings per output pin' });
     const pin3 = within(table).getAllByRole('row')[3];
-    expect(within(pin3).getAllByRole('cell').map((cell) => cell.textContent)).toEqual(['3', '3', '988 us']);
+    expect(
+      within(pin3)
+        .getAllByRole('cell')
+        .map((cell) => cell.textContent),
+    ).toEqual(['3', '3', '988 us']);
     expect(screen.getByText(/Telemetry:/)).toHaveTextContent('Telemetry: sends');
     expect(screen.getByText('Free, on the shelf.')).toBeInTheDocument();
   });
@@ -60,11 +77,17 @@ describe('A unit’s page', () => {
     expect(within(list).getByText('Telemetry: on, switch it off')).toBeInTheDocument();
     // A preview is a list to read, not yet a list to tick.
     expect(within(list).queryByRole('checkbox')).not.toBeInTheDocument();
-    expect(screen.getByRole('region', { name: 'Cautions before programming or flying' })).toHaveTextContent('not a certification');
+    expect(screen.getByRole('region', { name: 'Cautions before programming or flying' })).toHaveTextContent(
+      'not a certification',
+    );
 
     await user.click(screen.getByRole('button', { name: 'Install it here' }));
     await waitFor(() => expect(server.called('POST', `/api/receivers/${state.unit.id}/install`)).toHaveLength(1));
-    expect(server.called('POST', `/api/receivers/${state.unit.id}/install`)[0].body).toEqual({ model: kestrel.id, slot: 'wing', move: false });
+    expect(server.called('POST', `/api/receivers/${state.unit.id}/install`)[0].body).toEqual({
+      model: kestrel.id,
+      slot: 'wing',
+      move: false,
+    });
     expect(await screen.findByRole('heading', { name: 'Before it flies in Kestrel Mk II' })).toBeInTheDocument();
   });
 
@@ -92,7 +115,9 @@ describe('A unit’s page', () => {
 
     await user.click(apply);
     await waitFor(() => expect(server.called('POST', `/api/receivers/${state.unit.id}/apply`)).toHaveLength(1));
-    expect(server.called('POST', `/api/receivers/${state.unit.id}/apply`)[0].body).toEqual({ revision: kestrel.revisions[0].id });
+    expect(server.called('POST', `/api/receivers/${state.unit.id}/apply`)[0].body).toEqual({
+      revision: kestrel.revisions[0].id,
+    });
     expect(await screen.findByText('Ready: nothing to change on the unit')).toBeInTheDocument();
     expect(screen.queryByRole('button', { name: 'I have applied these settings' })).not.toBeInTheDocument();
   });
@@ -103,7 +128,13 @@ describe('A unit’s page', () => {
     renderApp(`/w/${BUILDERS}/shelf/${state.unit.id}`);
     const list = await screen.findByRole('group', { name: 'What would have to change on the unit' });
     expect(within(list).queryByRole('checkbox')).not.toBeInTheDocument();
-    for (const name of ['I have applied these settings', 'Remove', 'Move to another slot', 'Edit details', 'Record what it holds']) {
+    for (const name of [
+      'I have applied these settings',
+      'Remove',
+      'Move to another slot',
+      'Edit details',
+      'Record what it holds',
+    ]) {
       expect(screen.queryByRole('button', { name })).not.toBeInTheDocument();
     }
   });

@@ -21,7 +21,16 @@ describe('the invitation page', () => {
       [`GET /api/invitations/${TOKEN}`]: () => ({ body: { data: preview() } }),
       [`POST /api/invitations/${TOKEN}/accept`]: () => {
         session.state.signedIn = true;
-        return { status: 201, body: { data: { user: demoUser, token: 't', workspace: { id: CLUB, name: 'Hollowfield Aero Club', role: 'reviewer' } } } };
+        return {
+          status: 201,
+          body: {
+            data: {
+              user: demoUser,
+              token: 't',
+              workspace: { id: CLUB, name: 'Hollowfield Aero Club', role: 'reviewer' },
+            },
+          },
+        };
       },
       [`GET /api/workspaces/${CLUB}/models`]: () => ({ body: { data: [], pagination: { total: 0 } } }),
     });
@@ -37,18 +46,27 @@ describe('the invitation page', () => {
     await user.type(screen.getByLabelText('Password'), 'thermal-bubble-77');
     await user.click(screen.getByRole('button', { name: 'Create account and join' }));
     await vi.waitFor(() => expect(location().pathname).toBe(`/w/${CLUB}/hangar`));
-    expect(server.called('POST', `/api/invitations/${TOKEN}/accept`)[0].body).toEqual({ name: 'Nell Whitethroat', password: 'thermal-bubble-77' });
+    expect(server.called('POST', `/api/invitations/${TOKEN}/accept`)[0].body).toEqual({
+      name: 'Nell Whitethroat',
+      password: 'thermal-bubble-77',
+    });
   });
 
   it('lets a signed-in user accept with one button and opens the workspace', async () => {
     let joined = false;
     const server = fakeServer({
       ...sessionRoutes({ signedIn: true }).routes,
-      'GET /api/me': () => ({ body: { data: { user: demoUser, workspaces: joined ? demoWorkspaces : demoWorkspaces.slice(1) } } }),
-      [`GET /api/invitations/${TOKEN}`]: () => ({ body: { data: preview({ email: demoUser.email, account_exists: true }) } }),
+      'GET /api/me': () => ({
+        body: { data: { user: demoUser, workspaces: joined ? demoWorkspaces : demoWorkspaces.slice(1) } },
+      }),
+      [`GET /api/invitations/${TOKEN}`]: () => ({
+        body: { data: preview({ email: demoUser.email, account_exists: true }) },
+      }),
       [`POST /api/invitations/${TOKEN}/accept`]: () => {
         joined = true;
-        return { body: { data: { user: demoUser, workspace: { id: CLUB, name: 'Hollowfield Aero Club', role: 'reviewer' } } } };
+        return {
+          body: { data: { user: demoUser, workspace: { id: CLUB, name: 'Hollowfield Aero Club', role: 'reviewer' } } },
+        };
       },
       [`GET /api/workspaces/${CLUB}/models`]: () => ({ body: { data: [], pagination: { total: 0 } } }),
     });
@@ -73,7 +91,8 @@ describe('the invitation page', () => {
   it('says why a used or expired link cannot be used', async () => {
     fakeServer({
       ...sessionRoutes({ signedIn: false }).routes,
-      [`GET /api/invitations/${TOKEN}`]: () => apiError(410, 'token-used', 'This invitation link has already been used; each one works once.'),
+      [`GET /api/invitations/${TOKEN}`]: () =>
+        apiError(410, 'token-used', 'This invitation link has already been used; each one works once.'),
     });
     renderApp(`/invitations/${TOKEN}`);
     expect(await screen.findByRole('heading', { name: 'This invitation cannot be used' })).toBeInTheDocument();

@@ -19,7 +19,14 @@ function teamRoutes(overrides: Record<string, FakeHandler> = {}) {
     [`GET /api/workspaces/${CLUB}/audit`]: () => ({
       body: {
         data: [
-          { id: 'a1', action: 'member.invited', actor: { id: demoUser.id, name: 'Wren Calloway' }, subject: { type: 'invitation', id: 'i1' }, details: { email: 'pip@example.org', role: 'editor' }, created_at: new Date().toISOString() },
+          {
+            id: 'a1',
+            action: 'member.invited',
+            actor: { id: demoUser.id, name: 'Wren Calloway' },
+            subject: { type: 'invitation', id: 'i1' },
+            details: { email: 'pip@example.org', role: 'editor' },
+            created_at: new Date().toISOString(),
+          },
         ],
         pagination: { total: 1 },
       },
@@ -36,7 +43,18 @@ describe('Team, as an owner', () => {
       ...routes,
       [`POST /api/workspaces/${CLUB}/invitations`]: (request) => {
         const body = request.body as { email: string; role: string };
-        const invitation = { id: 'inv-1', workspace_id: CLUB, email: body.email, role: body.role, status: 'pending', invited_by: { id: demoUser.id, name: 'Wren Calloway' }, expires_at: new Date(Date.now() + 6 * 86_400_000).toISOString(), accepted_at: null, revoked_at: null, created_at: new Date().toISOString() };
+        const invitation = {
+          id: 'inv-1',
+          workspace_id: CLUB,
+          email: body.email,
+          role: body.role,
+          status: 'pending',
+          invited_by: { id: demoUser.id, name: 'Wren Calloway' },
+          expires_at: new Date(Date.now() + 6 * 86_400_000).toISOString(),
+          accepted_at: null,
+          revoked_at: null,
+          created_at: new Date().toISOString(),
+        };
         state.invitations = [invitation];
         return { status: 201, body: { data: invitation } };
       },
@@ -49,11 +67,16 @@ describe('Team, as an owner', () => {
     await user.click(within(form).getByRole('button', { name: 'Send invitation' }));
 
     expect(await within(form).findByRole('status')).toHaveTextContent('An invitation is on its way to pip@example.org');
-    expect(server.called('POST', `/api/workspaces/${CLUB}/invitations`)[0].body).toEqual({ email: 'pip@example.org', role: 'editor' });
+    expect(server.called('POST', `/api/workspaces/${CLUB}/invitations`)[0].body).toEqual({
+      email: 'pip@example.org',
+      role: 'editor',
+    });
     const pending = await screen.findByRole('list', { name: 'Pending invitations' });
     expect(await within(pending).findByText('pip@example.org')).toBeInTheDocument();
     expect(within(pending).getByText('Editor')).toBeInTheDocument();
-    expect(screen.getByRole('list', { name: 'Activity in this workspace' })).toHaveTextContent('Wren Calloway invited pip@example.org as an editor');
+    expect(screen.getByRole('list', { name: 'Activity in this workspace' })).toHaveTextContent(
+      'Wren Calloway invited pip@example.org as an editor',
+    );
   });
 
   it('shows the server’s reason beside the field when an invitation is refused', async () => {
@@ -61,13 +84,17 @@ describe('Team, as an owner', () => {
     fakeServer({
       ...routes,
       [`POST /api/workspaces/${CLUB}/invitations`]: () =>
-        apiError(409, 'already-member', 'juno@hollowfield.example is already a member.', { fields: { email: 'This address already belongs to a member of this workspace.' } }),
+        apiError(409, 'already-member', 'juno@hollowfield.example is already a member.', {
+          fields: { email: 'This address already belongs to a member of this workspace.' },
+        }),
     });
     const { user } = renderApp(`/w/${CLUB}/team`);
     const form = await screen.findByRole('form', { name: 'Invite a member' });
     await user.type(within(form).getByLabelText('E-mail'), 'juno@hollowfield.example');
     await user.click(within(form).getByRole('button', { name: 'Send invitation' }));
-    expect(await within(form).findByText('This address already belongs to a member of this workspace.')).toBeInTheDocument();
+    expect(
+      await within(form).findByText('This address already belongs to a member of this workspace.'),
+    ).toBeInTheDocument();
     expect(within(form).getByLabelText('E-mail')).toHaveAttribute('aria-invalid', 'true');
   });
 
@@ -76,10 +103,17 @@ describe('Team, as an owner', () => {
     const server = fakeServer({
       ...routes,
       [`PATCH /api/workspaces/${CLUB}/members/${juno.id}`]: (request) => {
-        state.members = state.members.map((member) => (member.user.id === juno.id ? { ...member, role: (request.body as { role: string }).role } : member));
+        state.members = state.members.map((member) =>
+          member.user.id === juno.id ? { ...member, role: (request.body as { role: string }).role } : member,
+        );
         return { body: { data: state.members[1] } };
       },
-      [`PATCH /api/workspaces/${CLUB}/members/${demoUser.id}`]: () => apiError(409, 'last-owner', 'A workspace needs an owner: making Wren Calloway an editor would leave it without one.'),
+      [`PATCH /api/workspaces/${CLUB}/members/${demoUser.id}`]: () =>
+        apiError(
+          409,
+          'last-owner',
+          'A workspace needs an owner: making Wren Calloway an editor would leave it without one.',
+        ),
     });
     const { user } = renderApp(`/w/${CLUB}/team`);
 
@@ -128,7 +162,9 @@ describe('Team activity', () => {
       [`GET /api/workspaces/${CLUB}/audit`]: (request) => {
         const limit = Number(request.url.searchParams.get('limit'));
         const offset = Number(request.url.searchParams.get('offset'));
-        return { body: { data: trail.slice(offset, offset + limit), pagination: { limit, offset, total: trail.length } } };
+        return {
+          body: { data: trail.slice(offset, offset + limit), pagination: { limit, offset, total: trail.length } },
+        };
       },
     });
     const server = fakeServer(routes);
@@ -146,7 +182,9 @@ describe('Team activity', () => {
     await waitFor(() => expect(items()).toHaveLength(45));
     expect(items()[44]).toHaveTextContent('Kestrel Mk II: Wren Calloway saved revision 1');
     expect(screen.queryByRole('button', { name: 'Show older activity' })).not.toBeInTheDocument();
-    const offsets = server.called('GET', `/api/workspaces/${CLUB}/audit`).map((request) => request.url.searchParams.get('offset'));
+    const offsets = server
+      .called('GET', `/api/workspaces/${CLUB}/audit`)
+      .map((request) => request.url.searchParams.get('offset'));
     expect([...new Set(offsets)]).toEqual(['0', '20', '40']);
   });
 });
@@ -155,12 +193,25 @@ describe('Team, as a reviewer', () => {
   it('shows roles as words, no invite form and no activity, and offers to leave', async () => {
     const server = fakeServer({
       ...sessionRoutes({ signedIn: true }).routes,
-      [`GET /api/workspaces/${BUILDERS}/members`]: () => ({ body: { data: [{ user: demoUser, role: 'reviewer' }, { user: juno, role: 'owner' }] } }),
+      [`GET /api/workspaces/${BUILDERS}/members`]: () => ({
+        body: {
+          data: [
+            { user: demoUser, role: 'reviewer' },
+            { user: juno, role: 'owner' },
+          ],
+        },
+      }),
     });
     renderApp(`/w/${BUILDERS}/team`);
     const table = await screen.findByRole('table', { name: 'Members of this workspace' });
     const rows = within(table).getAllByRole('row').slice(1);
-    expect(rows.map((row) => within(row).getAllByRole('cell').map((cell) => cell.textContent))).toEqual([
+    expect(
+      rows.map((row) =>
+        within(row)
+          .getAllByRole('cell')
+          .map((cell) => cell.textContent),
+      ),
+    ).toEqual([
       ['Wren Calloway(you)', 'wren@hollowfield.example', 'Reviewer', 'Leave'],
       ['Juno Marsh', 'juno@hollowfield.example', 'Owner', ''],
     ]);

@@ -16,7 +16,13 @@ export function LogoMark({ className }: { className?: string }) {
           <circle cx="19.1" cy="20.7" r="0.95" />
         </g>
       </g>
-      <path d="M21.6 6.6a3.4 3.4 0 0 1 2.6 2.6M21.9 4a6 6 0 0 1 4.9 4.9" fill="none" stroke="#e0d3bb" strokeWidth="1.7" strokeLinecap="round" />
+      <path
+        d="M21.6 6.6a3.4 3.4 0 0 1 2.6 2.6M21.9 4a6 6 0 0 1 4.9 4.9"
+        fill="none"
+        stroke="#e0d3bb"
+        strokeWidth="1.7"
+        strokeLinecap="round"
+      />
     </svg>
   );
 }

@@ -62,12 +62,17 @@ function SignedInFrame({ workspaceLinks, devLinks }: AppFrameProps) {
   const signOut = useSignOut();
   const toast = useToast();
 
-  const items: NavItem[] = fallback ? workspaceLinks.map((link) => ({ to: `/w/${fallback.id}/${link.path}`, label: link.label })) : [];
+  const items: NavItem[] = fallback
+    ? workspaceLinks.map((link) => ({ to: `/w/${fallback.id}/${link.path}`, label: link.label }))
+    : [];
   const devItems: NavItem[] = devLinks.map((link) => ({ to: link.path, label: link.label }));
 
   return (
     <div className="min-h-screen">
-      <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:top-2 focus:left-2 focus:z-50 focus:rounded-md focus:bg-paper-raised focus:px-3 focus:py-2">
+      <a
+        href="#main"
+        className="sr-only focus:not-sr-only focus:absolute focus:top-2 focus:left-2 focus:z-50 focus:rounded-md focus:bg-paper-raised focus:px-3 focus:py-2"
+      >
         Skip to content
       </a>
       <header className="border-b border-ply-300 bg-paper-raised">
@@ -78,7 +83,11 @@ function SignedInFrame({ workspaceLinks, devLinks }: AppFrameProps) {
           </Link>
           <WorkspaceSwitcher />
           <div className="ml-auto flex min-w-0 items-center gap-3">
-            <Link to="/account" className="max-w-48 min-w-0 truncate rounded-md text-sm text-ink-700 lg:max-w-none" title={`${user.email}: account and password`}>
+            <Link
+              to="/account"
+              className="max-w-48 min-w-0 truncate rounded-md text-sm text-ink-700 lg:max-w-none"
+              title={`${user.email}: account and password`}
+            >
               <span className="sr-only lg:not-sr-only">Signed in as </span>
               <span className="font-medium text-ink-900">{user.name}</span>
             </Link>
@@ -101,7 +110,9 @@ function SignedInFrame({ workspaceLinks, devLinks }: AppFrameProps) {
           <NavTabs items={items} label="Workspace" />
           {devItems.length > 0 && (
             <div className="flex items-center gap-1">
-              <span className="hidden text-xs font-medium tracking-wide text-ink-500 uppercase md:inline">Development</span>
+              <span className="hidden text-xs font-medium tracking-wide text-ink-500 uppercase md:inline">
+                Development
+              </span>
               <NavTabs items={devItems} label="Development tools" />
             </div>
           )}

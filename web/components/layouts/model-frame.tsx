@@ -21,7 +21,9 @@ export function ModelFrame({ links }: { links: FrameLink[] }) {
     <div>
       <nav aria-label="Breadcrumb" className="text-sm text-ink-700">
         {workspace ? <Link to={`/w/${workspace.id}/hangar`}>{workspace.name} hangar</Link> : 'Hangar'}
-        <span aria-hidden="true" className="px-1.5 text-ink-500">/</span>
+        <span aria-hidden="true" className="px-1.5 text-ink-500">
+          /
+        </span>
         <span>{model.data?.name ?? 'Model'}</span>
       </nav>
       {model.data && (

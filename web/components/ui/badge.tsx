@@ -1,7 +1,16 @@
 import type { ComponentType, ReactNode, SVGProps } from 'react';
 import type { Severity } from '../../../shared/findings';
 import { cx } from '../../lib/cx';
-import { CheckIcon, ClockIcon, DashedCircleIcon, ErrorIcon, InfoIcon, PencilIcon, StaleIcon, WarningIcon } from './icons';
+import {
+  CheckIcon,
+  ClockIcon,
+  DashedCircleIcon,
+  ErrorIcon,
+  InfoIcon,
+  PencilIcon,
+  StaleIcon,
+  WarningIcon,
+} from './icons';
 
 export type ReviewState = 'none' | 'pending' | 'approved' | 'stale' | 'changes-requested';
 

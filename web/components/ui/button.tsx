@@ -32,7 +32,16 @@ export interface ButtonProps extends ButtonHTMLAttributes<HTMLButtonElement> {
   pending?: boolean;
 }
 
-export function Button({ variant = 'primary', size = 'md', pending = false, className, children, disabled, type, ...props }: ButtonProps) {
+export function Button({
+  variant = 'primary',
+  size = 'md',
+  pending = false,
+  className,
+  children,
+  disabled,
+  type,
+  ...props
+}: ButtonProps) {
   return (
     <button
       type={type ?? 'button'}

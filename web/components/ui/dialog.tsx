@@ -10,7 +10,8 @@ export interface DialogProps {
   children: ReactNode;
 }
 
-const FOCUSABLE = 'a[href], button:not([disabled]), input:not([disabled]), select:not([disabled]), textarea:not([disabled]), [tabindex]:not([tabindex="-1"])';
+const FOCUSABLE =
+  'a[href], button:not([disabled]), input:not([disabled]), select:not([disabled]), textarea:not([disabled]), [tabindex]:not([tabindex="-1"])';
 
 /**
  * A modal panel over the screen. Focus moves in on open, stays inside while it is open
@@ -25,7 +26,9 @@ export function Dialog({ title, description, onClose, children }: DialogProps) {
 
   useEffect(() => {
     const before = document.activeElement as HTMLElement | null;
-    const first = panel.current?.querySelector<HTMLElement>('[data-autofocus]') ?? panel.current?.querySelector<HTMLElement>(FOCUSABLE);
+    const first =
+      panel.current?.querySelector<HTMLElement>('[data-autofocus]') ??
+      panel.current?.querySelector<HTMLElement>(FOCUSABLE);
     first?.focus();
     return () => before?.focus();
   }, []);
@@ -71,7 +74,12 @@ export function Dialog({ title, description, onClose, children }: DialogProps) {
               </p>
             )}
           </div>
-          <button type="button" onClick={() => close.current()} aria-label="Close" className="rounded-sm p-1.5 text-ink-700 hover:bg-ply-100">
+          <button
+            type="button"
+            onClick={() => close.current()}
+            aria-label="Close"
+            className="rounded-sm p-1.5 text-ink-700 hover:bg-ply-100"
+          >
             <CloseIcon />
           </button>
         </div>

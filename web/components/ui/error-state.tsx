@@ -16,7 +16,10 @@ function messageOf(error: unknown): string {
 
 export function ErrorState({ title = 'This could not be loaded', error, onRetry }: ErrorStateProps) {
   return (
-    <div role="alert" className="flex flex-col items-center rounded-lg border border-danger-700/40 bg-danger-100 px-6 py-8 text-center">
+    <div
+      role="alert"
+      className="flex flex-col items-center rounded-lg border border-danger-700/40 bg-danger-100 px-6 py-8 text-center"
+    >
       <ErrorIcon className="text-3xl text-danger-700" />
       <h2 className="mt-2 text-lg font-semibold text-danger-700">{title}</h2>
       <p className="mt-1 max-w-prose text-base text-ink-900">{messageOf(error)}</p>

@@ -14,7 +14,15 @@ export interface TextAreaFieldProps extends Omit<TextareaHTMLAttributes<HTMLText
 export function TextAreaField({ label, error, hint, className, rows = 3, ref, ...props }: TextAreaFieldProps) {
   return (
     <LabelledField label={label} hint={hint} error={error} className={className}>
-      {(control) => <textarea {...control} ref={ref} rows={rows} className={cx('mt-1.5 px-3 py-2', fieldBoxClass(error))} {...props} />}
+      {(control) => (
+        <textarea
+          {...control}
+          ref={ref}
+          rows={rows}
+          className={cx('mt-1.5 px-3 py-2', fieldBoxClass(error))}
+          {...props}
+        />
+      )}
     </LabelledField>
   );
 }

@@ -13,7 +13,9 @@ export interface TextFieldProps extends Omit<InputHTMLAttributes<HTMLInputElemen
 export function TextField({ label, error, hint, className, ref, ...props }: TextFieldProps) {
   return (
     <LabelledField label={label} hint={hint} error={error} className={className}>
-      {(control) => <input {...control} ref={ref} className={cx('mt-1.5 h-10 px-3', fieldBoxClass(error))} {...props} />}
+      {(control) => (
+        <input {...control} ref={ref} className={cx('mt-1.5 h-10 px-3', fieldBoxClass(error))} {...props} />
+      )}
     </LabelledField>
   );
 }

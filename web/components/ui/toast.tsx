@@ -35,13 +35,21 @@ export function ToastProvider({ children }: { children: ReactNode }) {
   const dismiss = useCallback((id: number) => setToasts((all) => all.filter((toast) => toast.id !== id)), []);
   const show = useCallback<ShowToast>((input) => {
     const id = nextId.current++;
-    setToasts((all) => [...all, { id, title: input.title, description: input.description, tone: input.tone ?? 'success' }]);
+    setToasts((all) => [
+      ...all,
+      { id, title: input.title, description: input.description, tone: input.tone ?? 'success' },
+    ]);
   }, []);
 
   return (
     <ToastContext.Provider value={show}>
       {children}
-      <div aria-live="polite" role="region" aria-label="Notifications" className="pointer-events-none fixed right-4 bottom-4 z-50 flex w-[min(24rem,calc(100vw-2rem))] flex-col gap-2">
+      <div
+        aria-live="polite"
+        role="region"
+        aria-label="Notifications"
+        className="pointer-events-none fixed right-4 bottom-4 z-50 flex w-[min(24rem,calc(100vw-2rem))] flex-col gap-2"
+      >
         {toasts.map((toast) => (
           <ToastItem key={toast.id} toast={toast} onDismiss={dismiss} />
         ))}
@@ -59,13 +67,23 @@ function ToastItem({ toast, onDismiss }: { toast: Toast; onDismiss: (id: number)
 
   const { icon: Icon, classes } = look[toast.tone];
   return (
-    <div className={cx('pointer-events-auto flex items-start gap-3 rounded-md border-l-4 bg-paper-raised px-4 py-3 shadow-toast', classes)}>
+    <div
+      className={cx(
+        'pointer-events-auto flex items-start gap-3 rounded-md border-l-4 bg-paper-raised px-4 py-3 shadow-toast',
+        classes,
+      )}
+    >
       <Icon className="mt-1 shrink-0" />
       <div className="min-w-0 flex-1">
         <p className="font-medium text-ink-900">{toast.title}</p>
         {toast.description && <p className="mt-0.5 text-sm text-ink-700">{toast.description}</p>}
       </div>
-      <button type="button" onClick={() => onDismiss(toast.id)} className="rounded-sm p-1 text-ink-700 hover:bg-ply-100" aria-label="Dismiss notification">
+      <button
+        type="button"
+        onClick={() => onDismiss(toast.id)}
+        className="rounded-sm p-1 text-ink-700 hover:bg-ply-100"
+        aria-label="Dismiss notification"
+      >
         <CloseIcon />
       </button>
     </div>

@@ -1,4 +1,11 @@
-import { CHANGE_KINDS, SECTIONS, type Change, type ChangeCounts, type ChangeKind, type Section } from '../../../shared/diff/types';
+import {
+  CHANGE_KINDS,
+  SECTIONS,
+  type Change,
+  type ChangeCounts,
+  type ChangeKind,
+  type Section,
+} from '../../../shared/diff/types';
 
 export interface SectionGroup {
   section: Section;
@@ -33,7 +40,10 @@ const total = (counts: ChangeCounts) => CHANGE_KINDS.reduce((sum, kind) => sum +
  * The changes by section in the format's order: the sections with changes, and the
  * names of those without, which the view folds into one line.
  */
-export function groupChanges(changes: readonly Change[], sections: Partial<Record<Section, ChangeCounts>>): { changed: SectionGroup[]; unchanged: Section[] } {
+export function groupChanges(
+  changes: readonly Change[],
+  sections: Partial<Record<Section, ChangeCounts>>,
+): { changed: SectionGroup[]; unchanged: Section[] } {
   const changed: SectionGroup[] = [];
   const unchanged: Section[] = [];
   for (const section of SECTIONS) {

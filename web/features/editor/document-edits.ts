@@ -1,4 +1,15 @@
-import { isMap, isScalar, isSeq, parseDocument, stringify, type Document, type Node, type Pair, type YAMLMap, type YAMLSeq } from 'yaml';
+import {
+  isMap,
+  isScalar,
+  isSeq,
+  parseDocument,
+  stringify,
+  type Document,
+  type Node,
+  type Pair,
+  type YAMLMap,
+  type YAMLSeq,
+} from 'yaml';
 
 // Form edits on the setup text. Each edit is applied through the yaml package's
 // Document API, which defines what the result means. The text is then changed only
@@ -90,7 +101,8 @@ function splice(text: string, doc: Document.Parsed, edit: DocumentEdit): string 
 
   if (isMap(parent)) {
     const pair = parent.items.find((item) => keyOf(item) === key);
-    if (edit.kind === 'set') return pair ? replaceNode(text, pair.value, edit.value) : insertPair(text, parent, key, edit.value);
+    if (edit.kind === 'set')
+      return pair ? replaceNode(text, pair.value, edit.value) : insertPair(text, parent, key, edit.value);
     return pair ? removePair(text, parent, pair) : text;
   }
   if (isSeq(parent) && typeof key === 'number') {
@@ -100,7 +112,9 @@ function splice(text: string, doc: Document.Parsed, edit: DocumentEdit): string 
     }
     if (key >= parent.items.length) return text;
     const owner = parentPath.length > 0 ? nodeAt(doc, parentPath.slice(0, -1)) : null;
-    const ownerPair = isMap(owner) ? owner.items.find((item) => keyOf(item) === parentPath[parentPath.length - 1]) : undefined;
+    const ownerPair = isMap(owner)
+      ? owner.items.find((item) => keyOf(item) === parentPath[parentPath.length - 1])
+      : undefined;
     return removeItem(text, parent, key, ownerPair);
   }
   return null;
@@ -242,7 +256,10 @@ function appendItem(text: string, seq: YAMLSeq, value: unknown): string | null {
     const keyIndent = ' '.repeat(first[0] - start);
     const lines = Object.entries(value)
       .filter(([, item]) => item !== undefined)
-      .map(([key, item], index) => `${index === 0 ? `${indent}- ` : keyIndent}${renderScalar(key, false)}: ${renderFlow(item)}\n`)
+      .map(
+        ([key, item], index) =>
+          `${index === 0 ? `${indent}- ` : keyIndent}${renderScalar(key, false)}: ${renderFlow(item)}\n`,
+      )
       .join('');
     return lines ? insertLines(text, at, lines) : null;
   }

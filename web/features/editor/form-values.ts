@@ -11,7 +11,8 @@ export interface Indexed {
   entry: Entry;
 }
 
-export const isEntry = (value: unknown): value is Entry => value !== null && typeof value === 'object' && !Array.isArray(value);
+export const isEntry = (value: unknown): value is Entry =>
+  value !== null && typeof value === 'object' && !Array.isArray(value);
 
 export function entryAt(data: unknown, key: string): Entry | null {
   const value = isEntry(data) ? data[key] : undefined;
@@ -32,7 +33,8 @@ export function fieldText(value: unknown): string {
   return String(value);
 }
 
-export const wholeNumber = (value: unknown): number | null => (typeof value === 'number' && Number.isInteger(value) ? value : null);
+export const wholeNumber = (value: unknown): number | null =>
+  typeof value === 'number' && Number.isInteger(value) ? value : null;
 
 export type Parsed<T> = { value: T; error?: undefined } | { value?: undefined; error: string };
 

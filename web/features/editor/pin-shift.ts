@@ -3,13 +3,14 @@ import { wholeNumber, type Indexed } from './form-values';
 
 const HIGHEST_CHANNEL = 32;
 
-export type ShiftResult = { edits: DocumentEdit[]; summary: string; error?: undefined } | { edits?: undefined; error: string };
+export type ShiftResult =
+  { edits: DocumentEdit[]; summary: string; error?: undefined } | { edits?: undefined; error: string };
 
 /** "1-8" for a run, "1, 3, 5-6" otherwise. */
 function describeNumbers(numbers: readonly number[]): string {
   const sorted = [...numbers].sort((a, b) => a - b);
   const runs: string[] = [];
-  for (let i = 0; i < sorted.length; ) {
+  for (let i = 0; i < sorted.length;) {
     let j = i;
     while (j + 1 < sorted.length && sorted[j + 1] === sorted[j] + 1) j += 1;
     runs.push(j === i ? String(sorted[i]) : `${sorted[i]}-${sorted[j]}`);
@@ -25,7 +26,8 @@ function describeNumbers(numbers: readonly number[]): string {
  */
 export function shiftPinChannels(receiverIndex: number, selected: readonly Indexed[], by: number): ShiftResult {
   if (selected.length === 0) return { error: 'Select the pins to shift first.' };
-  if (!Number.isInteger(by) || by === 0) return { error: 'Shift by a whole number of channels other than 0, like 8 or -8.' };
+  if (!Number.isInteger(by) || by === 0)
+    return { error: 'Shift by a whole number of channels other than 0, like 8 or -8.' };
   const edits: DocumentEdit[] = [];
   const pins: number[] = [];
   const channels: number[] = [];
@@ -43,6 +45,9 @@ export function shiftPinChannels(receiverIndex: number, selected: readonly Index
     channels.push(next);
   }
   const one = selected.length === 1;
-  const who = pins.length === selected.length ? `${one ? 'Pin' : 'Pins'} ${describeNumbers(pins)}` : `${selected.length} map entries`;
+  const who =
+    pins.length === selected.length
+      ? `${one ? 'Pin' : 'Pins'} ${describeNumbers(pins)}`
+      : `${selected.length} map entries`;
   return { edits, summary: `${who} now ${one ? 'carries channel' : 'carry channels'} ${describeNumbers(channels)}.` };
 }

@@ -10,7 +10,10 @@ export function togglePick(picked: readonly string[], id: string): string[] {
 }
 
 /** The pair in compare order: the older revision is `from`, the newer `to`. */
-export function comparePair(picked: readonly string[], revisions: readonly RevisionSummary[]): { from: RevisionSummary; to: RevisionSummary } | null {
+export function comparePair(
+  picked: readonly string[],
+  revisions: readonly RevisionSummary[],
+): { from: RevisionSummary; to: RevisionSummary } | null {
   if (picked.length !== 2) return null;
   const chosen = picked.map((id) => revisions.find((revision) => revision.id === id));
   const [a, b] = chosen;

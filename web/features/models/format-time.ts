@@ -17,7 +17,11 @@ const STEPS: [Intl.RelativeTimeFormatUnit, number][] = [
 
 // Formatters are built once per language: lists format many times each render.
 const formatters = new Map<string, Intl.DateTimeFormat | Intl.RelativeTimeFormat>();
-function formatter<T extends Intl.DateTimeFormat | Intl.RelativeTimeFormat>(key: string, locale: string | undefined, make: () => T): T {
+function formatter<T extends Intl.DateTimeFormat | Intl.RelativeTimeFormat>(
+  key: string,
+  locale: string | undefined,
+  make: () => T,
+): T {
   const id = `${key}|${locale ?? ''}`;
   let found = formatters.get(id);
   if (!found) formatters.set(id, (found = make()));
@@ -50,7 +54,13 @@ export function timeAgo(iso: string, { now = Date.now(), locale }: TimeFormatOpt
 }
 
 export const dateOnly = (iso: string, locale?: string): string =>
-  formatter('date', locale, () => new Intl.DateTimeFormat(locale, { day: 'numeric', month: 'short', year: 'numeric' })).format(new Date(iso));
+  formatter(
+    'date',
+    locale,
+    () => new Intl.DateTimeFormat(locale, { day: 'numeric', month: 'short', year: 'numeric' }),
+  ).format(new Date(iso));
 
 export const exactTime = (iso: string, locale?: string): string =>
-  formatter('exact', locale, () => new Intl.DateTimeFormat(locale, { dateStyle: 'medium', timeStyle: 'short' })).format(new Date(iso));
+  formatter('exact', locale, () => new Intl.DateTimeFormat(locale, { dateStyle: 'medium', timeStyle: 'short' })).format(
+    new Date(iso),
+  );

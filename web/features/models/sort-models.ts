@@ -9,7 +9,13 @@ export interface HangarSort {
 }
 
 // Review states in the order that needs a pilot's attention first.
-const REVIEW_ORDER: Record<ReviewState, number> = { 'changes-requested': 0, stale: 1, pending: 2, none: 3, approved: 4 };
+const REVIEW_ORDER: Record<ReviewState, number> = {
+  'changes-requested': 0,
+  stale: 1,
+  pending: 2,
+  none: 3,
+  approved: 4,
+};
 
 const text = new Intl.Collator(undefined, { sensitivity: 'base', numeric: true });
 

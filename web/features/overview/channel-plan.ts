@@ -59,7 +59,8 @@ const record = (value: unknown): Record<string, unknown> =>
 const list = (value: unknown): unknown[] => (Array.isArray(value) ? value : []);
 const int = (value: unknown): number | null => (typeof value === 'number' && Number.isInteger(value) ? value : null);
 const text = (value: unknown): string | null => (typeof value === 'string' ? value : null);
-const failsafeOf = (value: unknown): Failsafe => (typeof value === 'number' || value === 'hold' || value === 'off' ? value : null);
+const failsafeOf = (value: unknown): Failsafe =>
+  typeof value === 'number' || value === 'hold' || value === 'off' ? value : null;
 
 function readReceivers(document: Record<string, unknown>): PlanReceiver[] {
   return list(document.receivers).flatMap((item, index) => {
@@ -88,13 +89,26 @@ const pathMix = /^mixes\[id=([^\]]+)\]/;
 const pathPin = /^receivers\[id=([^\]]+)\]\.map\[pin=(\d+)\]/;
 
 /** The channel a finding is about, from its semantic path. */
-function channelOfFinding(finding: Finding, document: Record<string, unknown>, receivers: PlanReceiver[]): number | null {
+function channelOfFinding(
+  finding: Finding,
+  document: Record<string, unknown>,
+  receivers: PlanReceiver[],
+): number | null {
   const channel = pathChannel.exec(finding.path);
   if (channel) return Number(channel[1]);
   const pin = pathPin.exec(finding.path);
-  if (pin) return receivers.find((receiver) => receiver.id === pin[1])?.map.find((entry) => entry.pin === Number(pin[2]))?.ch ?? null;
+  if (pin)
+    return (
+      receivers.find((receiver) => receiver.id === pin[1])?.map.find((entry) => entry.pin === Number(pin[2]))?.ch ??
+      null
+    );
   const mix = pathMix.exec(finding.path);
-  if (mix) return int(list(document.mixes).map(record).find((entry) => entry.id === mix[1])?.to);
+  if (mix)
+    return int(
+      list(document.mixes)
+        .map(record)
+        .find((entry) => entry.id === mix[1])?.to,
+    );
   return null;
 }
 
@@ -113,21 +127,30 @@ export function buildChannelPlan(document: unknown, findings: readonly Finding[]
     const entry = record(item);
     const ch = int(entry.ch);
     const name = text(entry.function);
-    return ch === null ? [] : [{ ch, function: name ?? `channel ${ch}`, role: text(entry.role), side: text(entry.side) }];
+    return ch === null
+      ? []
+      : [{ ch, function: name ?? `channel ${ch}`, role: text(entry.role), side: text(entry.side) }];
   });
 
-  const used = [...planned.map((entry) => entry.ch), ...receivers.flatMap((receiver) => receiver.map.map((entry) => entry.ch))];
+  const used = [
+    ...planned.map((entry) => entry.ch),
+    ...receivers.flatMap((receiver) => receiver.map.map((entry) => entry.ch)),
+  ];
   const last = Math.min(MAX_CHANNEL, Math.max(linkChannels ?? 0, ...used.filter((ch) => ch >= 1), 0));
 
   const rows: PlanRow[] = [];
   for (let ch = 1; ch <= last; ch++) {
     const pins: Record<string, CarryingPin[]> = {};
     for (const receiver of receivers) {
-      pins[receiver.id] = receiver.map.filter((entry) => entry.ch === ch).map(({ pin, failsafe }) => ({ pin, failsafe }));
+      pins[receiver.id] = receiver.map
+        .filter((entry) => entry.ch === ch)
+        .map(({ pin, failsafe }) => ({ pin, failsafe }));
     }
     rows.push({
       ch,
-      functions: planned.filter((entry) => entry.ch === ch).map((entry) => ({ function: entry.function, role: entry.role, side: entry.side })),
+      functions: planned
+        .filter((entry) => entry.ch === ch)
+        .map((entry) => ({ function: entry.function, role: entry.role, side: entry.side })),
       pins,
       beyondLink: linkChannels !== null && ch > linkChannels,
       marks: [],

@@ -16,7 +16,14 @@ export interface ReviewSummary {
   id: Id;
   workspace_id: Id;
   model: { id: Id; name: string };
-  revision: { id: Id; number: number; content_hash: string; error_count: number; warning_count: number; author: Person | null };
+  revision: {
+    id: Id;
+    number: number;
+    content_hash: string;
+    error_count: number;
+    warning_count: number;
+    author: Person | null;
+  };
   requested_by: Person | null;
   reviewers: Person[];
   note: string;
@@ -69,5 +76,11 @@ export interface ReviewDetail extends Omit<ReviewSummary, 'revision'> {
   verdicts: VerdictEntry[];
   comments: CommentEntry[];
   model_state: { review_state: ReviewState; cleared_for_maiden: boolean };
-  can: { verdict: boolean; approve: boolean; approve_refusal: { code: string; message: string } | null; tick: boolean; comment: boolean };
+  can: {
+    verdict: boolean;
+    approve: boolean;
+    approve_refusal: { code: string; message: string } | null;
+    tick: boolean;
+    comment: boolean;
+  };
 }

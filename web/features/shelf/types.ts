@@ -1,6 +1,12 @@
 // The shelf's shapes as the API answers them (api/presenters/receiver.ts), typed from
 // the server's own presenters so the two cannot drift.
-import type { PresentedInstall, PresentedReceiver, PresentedReceiverEvent, PresentedReuseCheck, Readiness } from '../../../api/presenters/receiver';
+import type {
+  PresentedInstall,
+  PresentedReceiver,
+  PresentedReceiverEvent,
+  PresentedReuseCheck,
+  Readiness,
+} from '../../../api/presenters/receiver';
 
 export type ShelfUnit = PresentedReceiver;
 export type UnitInstall = PresentedInstall;

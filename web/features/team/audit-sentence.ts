@@ -10,18 +10,25 @@ export interface AuditLine {
   link: { to: string; label: string } | null;
 }
 
-const str = (value: unknown): string => (typeof value === 'string' ? value : typeof value === 'number' ? String(value) : '');
+const str = (value: unknown): string =>
+  typeof value === 'string' ? value : typeof value === 'number' ? String(value) : '';
 const quoted = (value: unknown): string => `“${str(value)}”`;
 const article = (role: unknown): string => `${role === 'owner' || role === 'editor' ? 'an' : 'a'} ${str(role)}`;
 
 function names(value: unknown): string {
   if (!Array.isArray(value)) return 'a reviewer';
-  const list = value.map((entry) => (entry && typeof entry === 'object' ? str((entry as { name?: unknown }).name) : str(entry))).filter(Boolean);
+  const list = value
+    .map((entry) => (entry && typeof entry === 'object' ? str((entry as { name?: unknown }).name) : str(entry)))
+    .filter(Boolean);
   if (list.length <= 1) return list[0] ?? 'a reviewer';
   return `${list.slice(0, -1).join(', ')} and ${list[list.length - 1]}`;
 }
 
-const VERDICTS: Record<string, string> = { approve: 'approved', 'request-changes': 'asked for changes to', comment: 'commented on' };
+const VERDICTS: Record<string, string> = {
+  approve: 'approved',
+  'request-changes': 'asked for changes to',
+  comment: 'commented on',
+};
 
 // Events about a model's revisions, tags and reviews say which model; a model's own
 // events name it in their words already.
@@ -30,32 +37,49 @@ const NAMES_ITS_MODEL = /^(revision|tag|review)\./;
 /** One audit event in plain words, with the model it was about and a link to what it concerns. */
 export function auditLine(event: AuditEvent, workspaceId: Id): AuditLine {
   const words = describe(event, workspaceId);
-  const model = NAMES_ITS_MODEL.test(event.action) ? event.model?.name ?? (str(event.details.model_name) || null) : null;
+  const model = NAMES_ITS_MODEL.test(event.action)
+    ? (event.model?.name ?? (str(event.details.model_name) || null))
+    : null;
   return { model, ...words };
 }
 
 function describe(event: AuditEvent, workspaceId: Id): Omit<AuditLine, 'model'> {
   const d = event.details;
   const modelId = event.model?.id ?? d.model_id;
-  const model = (id: unknown, screen: string) => (typeof id === 'string' && id ? { to: `/models/${id}/${screen}`, label: 'Open the model' } : null);
-  const review = event.subject.id ? { to: `/w/${workspaceId}/reviews/${event.subject.id}`, label: 'Open the review' } : null;
-  const receiver = event.subject.id ? { to: `/w/${workspaceId}/shelf/${event.subject.id}`, label: 'Open the receiver' } : null;
+  const model = (id: unknown, screen: string) =>
+    typeof id === 'string' && id ? { to: `/models/${id}/${screen}`, label: 'Open the model' } : null;
+  const review = event.subject.id
+    ? { to: `/w/${workspaceId}/reviews/${event.subject.id}`, label: 'Open the review' }
+    : null;
+  const receiver = event.subject.id
+    ? { to: `/w/${workspaceId}/shelf/${event.subject.id}`, label: 'Open the receiver' }
+    : null;
 
   switch (event.action) {
     case 'model.created':
       return { text: `created the model ${quoted(d.name)}`, link: model(event.subject.id, 'overview') };
     case 'model.renamed':
-      return { text: `renamed the model ${quoted(d.from)} to ${quoted(d.to)}`, link: model(event.subject.id, 'overview') };
+      return {
+        text: `renamed the model ${quoted(d.from)} to ${quoted(d.to)}`,
+        link: model(event.subject.id, 'overview'),
+      };
     case 'model.forked':
-      return { text: `forked revision ${str(d.source_number)} of another model into ${quoted(d.name)}`, link: model(event.subject.id, 'overview') };
+      return {
+        text: `forked revision ${str(d.source_number)} of another model into ${quoted(d.name)}`,
+        link: model(event.subject.id, 'overview'),
+      };
     case 'revision.saved':
     case 'revision.uploaded': {
-      const errors = typeof d.errors === 'number' && d.errors > 0 ? ` (${d.errors} ${d.errors === 1 ? 'error' : 'errors'})` : '';
+      const errors =
+        typeof d.errors === 'number' && d.errors > 0 ? ` (${d.errors} ${d.errors === 1 ? 'error' : 'errors'})` : '';
       const how = event.action === 'revision.uploaded' ? 'uploaded' : 'saved';
       return { text: `${how} revision ${str(d.number)}${errors}`, link: model(modelId, 'history') };
     }
     case 'revision.reverted':
-      return { text: `brought back revision ${str(d.reverted_to)} as revision ${str(d.number)}`, link: model(modelId, 'history') };
+      return {
+        text: `brought back revision ${str(d.reverted_to)} as revision ${str(d.number)}`,
+        link: model(modelId, 'history'),
+      };
     case 'tag.added':
       return { text: `tagged revision ${str(d.number)} ${quoted(d.name)}`, link: model(modelId, 'history') };
     case 'tag.removed':
@@ -77,7 +101,10 @@ function describe(event: AuditEvent, workspaceId: Id): Omit<AuditLine, 'model'> 
     case 'review.verdict':
       return { text: `${VERDICTS[str(d.verdict)] ?? 'gave a verdict on'} revision ${str(d.number)}`, link: review };
     case 'review.commented':
-      return { text: `commented${d.path ? ` on ${str(d.path)}` : ''} in the review of revision ${str(d.number)}`, link: review };
+      return {
+        text: `commented${d.path ? ` on ${str(d.path)}` : ''} in the review of revision ${str(d.number)}`,
+        link: review,
+      };
     case 'receiver.added':
       return { text: `put the receiver ${quoted(d.label)} on the shelf`, link: receiver };
     case 'receiver.updated':

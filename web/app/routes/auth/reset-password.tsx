@@ -3,7 +3,10 @@ import { ResetPasswordForm } from '../../../features/auth/components/reset-passw
 
 export function ResetPasswordScreen() {
   return (
-    <AuthLayout title="Reset password" intro="Enter the e-mail address of your account and we will send you a link to choose a new password.">
+    <AuthLayout
+      title="Reset password"
+      intro="Enter the e-mail address of your account and we will send you a link to choose a new password."
+    >
       <ResetPasswordForm />
     </AuthLayout>
   );

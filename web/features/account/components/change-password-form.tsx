@@ -26,7 +26,8 @@ export function ChangePasswordForm() {
     if (!current) return refuse({ fields: { current: 'Enter your current password.' }, general: null });
     const passwordProblem = validateNewPassword(password);
     if (passwordProblem) return refuse({ fields: { password: passwordProblem }, general: null });
-    if (repeat !== password) return refuse({ fields: { repeat: 'The two passwords differ. Type the same one twice.' }, general: null });
+    if (repeat !== password)
+      return refuse({ fields: { repeat: 'The two passwords differ. Type the same one twice.' }, general: null });
     clear();
     change.mutate(
       { current, password },
@@ -35,7 +36,11 @@ export function ChangePasswordForm() {
           setCurrent('');
           setPassword('');
           setRepeat('');
-          toast({ title: 'Password changed', description: 'Every other place this account was signed in is now signed out.', tone: 'success' });
+          toast({
+            title: 'Password changed',
+            description: 'Every other place this account was signed in is now signed out.',
+            tone: 'success',
+          });
         },
         onError: (error) => refuse(formErrorsFrom(error, FIELDS)),
       },

@@ -8,7 +8,11 @@ export async function checkResetLink(token: string, signal?: AbortSignal): Promi
 }
 
 export function resetLinkQueryOptions(token: string) {
-  return queryOptions({ queryKey: ['password-reset', token], queryFn: ({ signal }) => checkResetLink(token, signal), staleTime: Infinity });
+  return queryOptions({
+    queryKey: ['password-reset', token],
+    queryFn: ({ signal }) => checkResetLink(token, signal),
+    staleTime: Infinity,
+  });
 }
 
 /** Whether a reset link still works, and for which address. */
@@ -17,7 +21,9 @@ export function useResetLink(token: string) {
 }
 
 export async function confirmPasswordReset(token: string, password: string): Promise<{ user: User; token: string }> {
-  return (await api.post<{ user: User; token: string }>(`/api/auth/password-reset/${encodeURIComponent(token)}`, { password })).data;
+  return (
+    await api.post<{ user: User; token: string }>(`/api/auth/password-reset/${encodeURIComponent(token)}`, { password })
+  ).data;
 }
 
 /** Sets the new password (which ends every other session) and loads the fresh session. */

@@ -57,7 +57,12 @@ export function CreateAccountForm() {
         onChange={change('email')}
         error={errors.fields.email}
       />
-      <NewPasswordField name="password" value={values.password} onChange={change('password')} error={errors.fields.password} />
+      <NewPasswordField
+        name="password"
+        value={values.password}
+        onChange={change('password')}
+        error={errors.fields.password}
+      />
       <Button type="submit" className="w-full" pending={signUp.isPending}>
         Create account
       </Button>

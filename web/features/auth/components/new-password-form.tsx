@@ -39,7 +39,8 @@ export function NewPasswordForm({ token }: { token: string }) {
     event.preventDefault();
     const weak = validateNewPassword(password);
     if (weak) return refuse({ fields: { password: weak }, general: null });
-    if (repeat !== password) return refuse({ fields: { repeat: 'The two passwords differ. Type the same one twice.' }, general: null });
+    if (repeat !== password)
+      return refuse({ fields: { repeat: 'The two passwords differ. Type the same one twice.' }, general: null });
     clear();
     confirm.mutate(password, {
       onSuccess: (session) => navigate(landingPath(session, null), { replace: true }),
@@ -51,9 +52,16 @@ export function NewPasswordForm({ token }: { token: string }) {
     <form ref={formRef} onSubmit={onSubmit} noValidate className="space-y-5" aria-label="Choose a new password">
       {errors.general && <FormAlert>{errors.general}</FormAlert>}
       <p className="text-base text-ink-700">
-        For <span className="font-mono text-sm text-ink-900">{link.data.email}</span>. Every other place this account is signed in will be signed out.
+        For <span className="font-mono text-sm text-ink-900">{link.data.email}</span>. Every other place this account is
+        signed in will be signed out.
       </p>
-      <NewPasswordField label="New password" name="password" value={password} onChange={(event) => setPassword(event.target.value)} error={errors.fields.password} />
+      <NewPasswordField
+        label="New password"
+        name="password"
+        value={password}
+        onChange={(event) => setPassword(event.target.value)}
+        error={errors.fields.password}
+      />
       <TextField
         label="The new password again"
         name="repeat"

@@ -29,12 +29,31 @@ export function BenchScreen() {
   const revision = useRevision(asked ?? model.data?.latest?.id);
 
   let body: ReactNode;
-  if (model.isPending || (revision.isPending && (asked || model.data?.latest))) body = <LoadingState label="Loading the setup…" />;
-  else if (model.isError) body = <ErrorState title="This model could not be loaded" error={model.error} onRetry={() => void model.refetch()} />;
-  else if (revision.isError) body = <ErrorState title="This revision could not be loaded" error={revision.error} onRetry={() => void revision.refetch()} />;
-  else if (!revision.data) body = <EmptyState title="This model has no revision yet">Save a setup in the editor to try it on the bench.</EmptyState>;
+  if (model.isPending || (revision.isPending && (asked || model.data?.latest)))
+    body = <LoadingState label="Loading the setup…" />;
+  else if (model.isError)
+    body = (
+      <ErrorState title="This model could not be loaded" error={model.error} onRetry={() => void model.refetch()} />
+    );
+  else if (revision.isError)
+    body = (
+      <ErrorState
+        title="This revision could not be loaded"
+        error={revision.error}
+        onRetry={() => void revision.refetch()}
+      />
+    );
+  else if (!revision.data)
+    body = (
+      <EmptyState title="This model has no revision yet">Save a setup in the editor to try it on the bench.</EmptyState>
+    );
   else if (revision.data.model_id !== model.data.id) {
-    body = <ErrorState title="That revision is not one of this model’s" error={new Error('Pick a revision of this model to put on the bench.')} />;
+    body = (
+      <ErrorState
+        title="That revision is not one of this model’s"
+        error={new Error('Pick a revision of this model to put on the bench.')}
+      />
+    );
   } else body = <BenchForRevision model={model.data} revision={revision.data} />;
 
   return (
@@ -43,7 +62,10 @@ export function BenchScreen() {
         title="Bench"
         documentTitle={model.data ? `Bench · ${model.data.name}` : 'Bench'}
         description="Set sticks, knobs and switches and read what every channel and receiver pin puts out, and what each pin does when the link is lost."
-        actions={model.data && revision.data && <RevisionPicker modelId={model.data.id} current={revision.data} latest={model.data.latest} />}
+        actions={
+          model.data &&
+          revision.data && <RevisionPicker modelId={model.data.id} current={revision.data} latest={model.data.latest} />
+        }
       />
       {body}
     </>
@@ -53,12 +75,18 @@ export function BenchScreen() {
 function BenchForRevision({ model, revision }: { model: SetupModelView; revision: Revision }) {
   const parsed = useMemo(() => setupSchema.safeParse(revision.document), [revision.document]);
   if (!parsed.success) {
-    const blocking = revision.findings.filter((finding) => finding.severity === 'error' && (finding.rule === 'schema' || finding.rule === 'syntax'));
+    const blocking = revision.findings.filter(
+      (finding) => finding.severity === 'error' && (finding.rule === 'schema' || finding.rule === 'syntax'),
+    );
     return (
       <div className="space-y-4">
         <ErrorState
           title={`Revision ${revision.number} cannot go on the bench`}
-          error={new Error('Some fields are missing or of the wrong kind, so its outputs cannot be worked out. Fix these in the editor first.')}
+          error={
+            new Error(
+              'Some fields are missing or of the wrong kind, so its outputs cannot be worked out. Fix these in the editor first.',
+            )
+          }
         />
         <FindingsList findings={blocking.length > 0 ? blocking : revision.findings} modelId={model.id} />
       </div>
@@ -79,7 +107,15 @@ function Bench({ setup }: { setup: Setup }) {
     return byCh;
   }, [setup]);
   const cutOn = useMemo(
-    () => new Set(setup.channels.filter((channel) => channel.cut && switchPositionOf(controls, channel.cut.control, positions) === channel.cut.position).map((channel) => channel.ch)),
+    () =>
+      new Set(
+        setup.channels
+          .filter(
+            (channel) =>
+              channel.cut && switchPositionOf(controls, channel.cut.control, positions) === channel.cut.position,
+          )
+          .map((channel) => channel.ch),
+      ),
     [setup, controls, positions],
   );
   const curves = useMemo(
@@ -109,7 +145,11 @@ function Bench({ setup }: { setup: Setup }) {
           <Button variant="secondary" className="w-full" disabled={!moved} onClick={() => setPositions({})}>
             Centre all
           </Button>
-          <ControlPanel controls={setup.controls} positions={positions} onChange={(id, value) => setPositions((current) => ({ ...current, [id]: value }))} />
+          <ControlPanel
+            controls={setup.controls}
+            positions={positions}
+            onChange={(id, value) => setPositions((current) => ({ ...current, [id]: value }))}
+          />
         </div>
         <ChannelTable outputs={outputs.channels} plan={setup.channels} cutOn={cutOn} />
       </div>
@@ -120,19 +160,30 @@ function Bench({ setup }: { setup: Setup }) {
             Receiver pins
           </h2>
           <label className="flex cursor-pointer items-center gap-2 rounded-md border border-ply-500 bg-paper-raised px-3 py-1.5 text-sm font-medium text-ink-900 has-checked:border-caution-700 has-checked:bg-caution-100">
-            <input type="checkbox" checked={linkLost} onChange={(event) => setLinkLost(event.target.checked)} className="h-4 w-4 accent-caution-700" />
+            <input
+              type="checkbox"
+              checked={linkLost}
+              onChange={(event) => setLinkLost(event.target.checked)}
+              className="h-4 w-4 accent-caution-700"
+            />
             Simulate link loss
           </label>
         </div>
         {linkLost && (
           <p role="status" className="text-sm text-ink-700">
-            The link is lost: each pin shows its failsafe pulse. A pin that holds keeps the pulse it had; a receiver default is whatever the
-            unit was set to, which Bindery does not know.
+            The link is lost: each pin shows its failsafe pulse. A pin that holds keeps the pulse it had; a receiver
+            default is whatever the unit was set to, which Bindery does not know.
           </p>
         )}
         <div className="grid gap-4 lg:grid-cols-2">
           {setup.receivers.map((receiver, index) => (
-            <ReceiverPins key={`${receiver.id}-${index}`} receiver={receiver} output={outputs.receivers[index]} functions={functions} linkLost={linkLost} />
+            <ReceiverPins
+              key={`${receiver.id}-${index}`}
+              receiver={receiver}
+              output={outputs.receivers[index]}
+              functions={functions}
+              linkLost={linkLost}
+            />
           ))}
         </div>
       </section>
@@ -146,8 +197,8 @@ function Bench({ setup }: { setup: Setup }) {
         ) : (
           <>
             <p className="max-w-prose text-sm text-ink-700">
-              Each mix's output against its input, at the rates the switches select now. The dot is where the control sits; a dashed curve is
-              a mix that does not count at these switch positions.
+              Each mix's output against its input, at the rates the switches select now. The dot is where the control
+              sits; a dashed curve is a mix that does not count at these switch positions.
             </p>
             <div className="grid grid-cols-2 gap-3 sm:grid-cols-3 lg:grid-cols-5">
               {curves.map(({ key, ...curve }) => (

@@ -12,14 +12,47 @@ export function BenchTable({ caption, children }: { caption: string; children: R
   );
 }
 
-export function Th({ children, className, numeric = false }: { children?: ReactNode; className?: string; numeric?: boolean }) {
+export function Th({
+  children,
+  className,
+  numeric = false,
+}: {
+  children?: ReactNode;
+  className?: string;
+  numeric?: boolean;
+}) {
   return (
-    <th scope="col" className={cx('border-b-2 border-ply-300 px-2.5 py-2 text-xs font-medium tracking-wide text-ink-700 uppercase', numeric && 'text-right', className)}>
+    <th
+      scope="col"
+      className={cx(
+        'border-b-2 border-ply-300 px-2.5 py-2 text-xs font-medium tracking-wide text-ink-700 uppercase',
+        numeric && 'text-right',
+        className,
+      )}
+    >
       {children}
     </th>
   );
 }
 
-export function Td({ children, className, numeric = false }: { children?: ReactNode; className?: string; numeric?: boolean }) {
-  return <td className={cx('border-b border-ply-100 px-2.5 py-1.5 align-middle', numeric && 'text-right font-mono tabular-nums', className)}>{children}</td>;
+export function Td({
+  children,
+  className,
+  numeric = false,
+}: {
+  children?: ReactNode;
+  className?: string;
+  numeric?: boolean;
+}) {
+  return (
+    <td
+      className={cx(
+        'border-b border-ply-100 px-2.5 py-1.5 align-middle',
+        numeric && 'text-right font-mono tabular-nums',
+        className,
+      )}
+    >
+      {children}
+    </td>
+  );
 }

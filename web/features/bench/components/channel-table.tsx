@@ -11,7 +11,10 @@ function ValueBar({ value }: { value: number }) {
   return (
     <span className="relative block h-2 w-full min-w-16 rounded-full bg-ply-100" aria-hidden="true">
       <span className="absolute top-0 left-1/2 h-full w-px bg-ply-500" />
-      <span className="absolute top-0 h-full rounded-full bg-accent-600" style={value >= 0 ? { left: '50%', width: `${half}%` } : { right: '50%', width: `${half}%` }} />
+      <span
+        className="absolute top-0 h-full rounded-full bg-accent-600"
+        style={value >= 0 ? { left: '50%', width: `${half}%` } : { right: '50%', width: `${half}%` }}
+      />
     </span>
   );
 }

@@ -10,7 +10,15 @@ const signed = (value: number) => `${value > 0 ? '+' : value < 0 ? '−' : ''}${
 
 export const controlName = (control: Control) => control.label ?? control.id;
 
-function ProportionalControl({ control, value, onChange }: { control: Control; value: number; onChange: (value: number) => void }) {
+function ProportionalControl({
+  control,
+  value,
+  onChange,
+}: {
+  control: Control;
+  value: number;
+  onChange: (value: number) => void;
+}) {
   const id = useId();
   return (
     <div>
@@ -44,7 +52,15 @@ function ProportionalControl({ control, value, onChange }: { control: Control; v
   );
 }
 
-function SwitchControl({ control, position, onChange }: { control: Control & { kind: 'switch' }; position: number; onChange: (position: number) => void }) {
+function SwitchControl({
+  control,
+  position,
+  onChange,
+}: {
+  control: Control & { kind: 'switch' };
+  position: number;
+  onChange: (position: number) => void;
+}) {
   const name = useId();
   return (
     <fieldset>
@@ -63,7 +79,14 @@ function SwitchControl({ control, position, onChange }: { control: Control & { k
                 checked ? 'bg-accent-700 font-semibold text-white' : 'bg-paper-raised text-ink-900 hover:bg-ply-100',
               )}
             >
-              <input type="radio" name={name} value={p} checked={checked} onChange={() => onChange(p)} className="sr-only" />
+              <input
+                type="radio"
+                name={name}
+                value={p}
+                checked={checked}
+                onChange={() => onChange(p)}
+                className="sr-only"
+              />
               <span>
                 <span className="sr-only">Position </span>
                 {p}
@@ -98,13 +121,28 @@ export function ControlPanel({ controls, positions, onChange }: ControlPanelProp
         </h2>
         <div className="mt-3 space-y-4">
           {proportional.map((control) => (
-            <ProportionalControl key={control.id} control={control} value={positions[control.id] ?? 0} onChange={(value) => onChange(control.id, value)} />
+            <ProportionalControl
+              key={control.id}
+              control={control}
+              value={positions[control.id] ?? 0}
+              onChange={(value) => onChange(control.id, value)}
+            />
           ))}
         </div>
         {switches.length > 0 && (
-          <div className={cx('grid grid-cols-2 gap-x-3 gap-y-3 md:grid-cols-1 lg:grid-cols-2', proportional.length > 0 && 'mt-5 border-t border-ply-200 pt-4')}>
+          <div
+            className={cx(
+              'grid grid-cols-2 gap-x-3 gap-y-3 md:grid-cols-1 lg:grid-cols-2',
+              proportional.length > 0 && 'mt-5 border-t border-ply-200 pt-4',
+            )}
+          >
             {switches.map((control) => (
-              <SwitchControl key={control.id} control={control} position={positions[control.id] ?? 0} onChange={(value) => onChange(control.id, value)} />
+              <SwitchControl
+                key={control.id}
+                control={control}
+                position={positions[control.id] ?? 0}
+                onChange={(value) => onChange(control.id, value)}
+              />
             ))}
           </div>
         )}

@@ -44,7 +44,15 @@ export function MixCurvePlot({ mix, points, weight, now, active, inputName }: Mi
           <span className="shrink-0 text-xs text-ink-700">→ ch {mix.to}</span>
         </figcaption>
         <svg viewBox={`0 0 ${SIZE} ${SIZE}`} className="mt-1.5 block w-full" role="img" aria-label={label}>
-          <rect x={PAD} y={PAD} width={inner} height={inner} rx={3} className="fill-paper stroke-ply-300" strokeWidth={1} />
+          <rect
+            x={PAD}
+            y={PAD}
+            width={inner}
+            height={inner}
+            rx={3}
+            className="fill-paper stroke-ply-300"
+            strokeWidth={1}
+          />
           {limitsShown && (
             <g className="stroke-caution-700" strokeDasharray="3 3" strokeWidth={0.8}>
               <line x1={PAD} x2={SIZE - PAD} y1={sy(100)} y2={sy(100)} />
@@ -55,9 +63,30 @@ export function MixCurvePlot({ mix, points, weight, now, active, inputName }: Mi
             <line x1={sx(0)} x2={sx(0)} y1={PAD} y2={SIZE - PAD} />
             <line x1={PAD} x2={SIZE - PAD} y1={sy(0)} y2={sy(0)} />
           </g>
-          <polyline points={line} fill="none" className={active ? 'stroke-accent-700' : 'stroke-ink-500'} strokeWidth={2} strokeLinejoin="round" strokeDasharray={active ? undefined : '4 3'} />
-          <line x1={sx(now.x)} x2={sx(now.x)} y1={PAD} y2={SIZE - PAD} className="stroke-caution-700" strokeWidth={0.8} strokeDasharray="2 2" />
-          <circle cx={sx(now.x)} cy={sy(now.y)} r={3.5} className="fill-caution-700 stroke-paper-raised" strokeWidth={1.5} />
+          <polyline
+            points={line}
+            fill="none"
+            className={active ? 'stroke-accent-700' : 'stroke-ink-500'}
+            strokeWidth={2}
+            strokeLinejoin="round"
+            strokeDasharray={active ? undefined : '4 3'}
+          />
+          <line
+            x1={sx(now.x)}
+            x2={sx(now.x)}
+            y1={PAD}
+            y2={SIZE - PAD}
+            className="stroke-caution-700"
+            strokeWidth={0.8}
+            strokeDasharray="2 2"
+          />
+          <circle
+            cx={sx(now.x)}
+            cy={sy(now.y)}
+            r={3.5}
+            className="fill-caution-700 stroke-paper-raised"
+            strokeWidth={1.5}
+          />
         </svg>
         <p className="mt-1 flex flex-wrap gap-x-2 text-xs text-ink-700">
           <span>weight {fmt(weight)} %</span>
@@ -66,7 +95,8 @@ export function MixCurvePlot({ mix, points, weight, now, active, inputName }: Mi
           {mix.rates && <span>rates: {mix.rates.control}</span>}
         </p>
         <p className="text-xs text-ink-700">
-          {inputName} {fmt(now.x)} → {fmt(now.y)} %{!active && <span className="ml-1 font-medium text-ink-900">· not counting here</span>}
+          {inputName} {fmt(now.x)} → {fmt(now.y)} %
+          {!active && <span className="ml-1 font-medium text-ink-900">· not counting here</span>}
         </p>
       </figure>
     </Card>

@@ -34,7 +34,9 @@ export function ReceiverPins({ receiver, output, functions, linkLost }: Receiver
         {output.pins.length === 0 ? (
           <p className="mt-2 text-base text-ink-700">No pin of this receiver is mapped to a channel.</p>
         ) : (
-          <BenchTable caption={`Pins of ${title}: channel, pulse ${linkLost ? 'with the link lost' : 'now'} and failsafe`}>
+          <BenchTable
+            caption={`Pins of ${title}: channel, pulse ${linkLost ? 'with the link lost' : 'now'} and failsafe`}
+          >
             <thead>
               <tr>
                 <Th className="w-12">Pin</Th>
@@ -53,18 +55,24 @@ export function ReceiverPins({ receiver, output, functions, linkLost }: Receiver
                   <tr key={pin.pin} className={cx(linkLost && 'bg-caution-100/40')}>
                     <Td className="font-mono">{pin.pin}</Td>
                     <Td className="font-mono">{pin.ch}</Td>
-                    <Td className="whitespace-nowrap">{functions.get(pin.ch) ?? <span className="text-ink-500">not planned</span>}</Td>
+                    <Td className="whitespace-nowrap">
+                      {functions.get(pin.ch) ?? <span className="text-ink-500">not planned</span>}
+                    </Td>
                     <Td numeric className="font-semibold text-ink-900">
                       {linkLost ? (
                         <>
                           {lost.pulse ?? <span className="font-sans font-normal text-ink-700">{lost.note}</span>}
-                          {lost.pulse !== null && lost.note && <span className="ml-1 font-sans text-xs font-normal text-ink-700">({lost.note})</span>}
+                          {lost.pulse !== null && lost.note && (
+                            <span className="ml-1 font-sans text-xs font-normal text-ink-700">({lost.note})</span>
+                          )}
                         </>
                       ) : (
                         pin.pulse_us
                       )}
                     </Td>
-                    <Td className={pin.failsafe === null ? 'text-caution-700' : 'text-ink-700'}>{failsafeWords(pin.failsafe)}</Td>
+                    <Td className={pin.failsafe === null ? 'text-caution-700' : 'text-ink-700'}>
+                      {failsafeWords(pin.failsafe)}
+                    </Td>
                   </tr>
                 );
               })}

@@ -5,7 +5,15 @@ import { revisionsOf, useRevisions } from '../../models/api/list-revisions';
 import type { LatestRevision, Revision } from '../../models/types';
 
 /** Which revision is on the bench: the latest unless `?revision=` names another. */
-export function RevisionPicker({ modelId, current, latest }: { modelId: string; current: Revision; latest: LatestRevision | null }) {
+export function RevisionPicker({
+  modelId,
+  current,
+  latest,
+}: {
+  modelId: string;
+  current: Revision;
+  latest: LatestRevision | null;
+}) {
   const id = useId();
   const [, setParams] = useSearchParams();
   const history = useRevisions(modelId);
@@ -21,7 +29,9 @@ export function RevisionPicker({ modelId, current, latest }: { modelId: string; 
         <select
           id={id}
           value={current.id}
-          onChange={(event) => setParams(event.target.value === latest?.id ? {} : { revision: event.target.value }, { replace: true })}
+          onChange={(event) =>
+            setParams(event.target.value === latest?.id ? {} : { revision: event.target.value }, { replace: true })
+          }
           className="block h-10 max-w-72 appearance-none truncate rounded-md border border-ply-500 bg-paper-raised pr-9 pl-3 text-base text-ink-900"
         >
           {options.map((revision) => (

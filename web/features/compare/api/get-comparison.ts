@@ -19,7 +19,11 @@ export function comparisonQueryOptions(from: Id, to: Id) {
 
 /** The compare of two revisions; keeps showing the last pair while a newly chosen one loads. */
 export function useComparison(from: Id | null, to: Id | null) {
-  return useQuery({ ...comparisonQueryOptions(from ?? '', to ?? ''), enabled: Boolean(from && to), placeholderData: keepPreviousData });
+  return useQuery({
+    ...comparisonQueryOptions(from ?? '', to ?? ''),
+    enabled: Boolean(from && to),
+    placeholderData: keepPreviousData,
+  });
 }
 
 /** Where the browser downloads the RFC 6902 JSON Patch from `from` to `to`. */

@@ -5,7 +5,13 @@ import { Card } from '../../../components/ui/card';
 import { groupChanges, KIND_WORDS, SECTION_NAMES, valueText } from '../group-changes';
 
 type Tone = 'moss' | 'danger' | 'caution' | 'accent' | 'neutral';
-const KIND_TONES: Record<ChangeKind, Tone> = { added: 'moss', removed: 'danger', changed: 'caution', renamed: 'accent', moved: 'neutral' };
+const KIND_TONES: Record<ChangeKind, Tone> = {
+  added: 'moss',
+  removed: 'danger',
+  changed: 'caution',
+  renamed: 'accent',
+  moved: 'neutral',
+};
 const KIND_SIGNS: Record<ChangeKind, string> = { added: '+', removed: '−', changed: '~', renamed: '→', moved: '↕' };
 
 export function KindBadge({ kind, count }: { kind: ChangeKind; count?: number }) {
@@ -32,10 +38,20 @@ export function KindCounts({ counts }: { counts: ChangeCounts }) {
 }
 
 /** The semantic changes grouped by section, each with its sentence, path and before -> after. */
-export function ChangeList({ changes, sections }: { changes: Change[]; sections: Partial<Record<Section, ChangeCounts>> }) {
+export function ChangeList({
+  changes,
+  sections,
+}: {
+  changes: Change[];
+  sections: Partial<Record<Section, ChangeCounts>>;
+}) {
   const { changed, unchanged } = groupChanges(changes, sections);
   if (changed.length === 0) {
-    return <p className="rounded-lg border border-ply-200 bg-paper-raised px-4 py-3 text-base text-ink-700">The two revisions describe the same setup: no section differs.</p>;
+    return (
+      <p className="rounded-lg border border-ply-200 bg-paper-raised px-4 py-3 text-base text-ink-700">
+        The two revisions describe the same setup: no section differs.
+      </p>
+    );
   }
   return (
     <div className="space-y-3">
@@ -51,7 +67,10 @@ export function ChangeList({ changes, sections }: { changes: Change[]; sections:
             </summary>
             <ul className="divide-y divide-ply-100">
               {group.changes.map((change, index) => (
-                <li key={`${change.path}-${change.kind}-${index}`} className="flex flex-wrap items-start gap-x-3 gap-y-1 px-4 py-2.5">
+                <li
+                  key={`${change.path}-${change.kind}-${index}`}
+                  className="flex flex-wrap items-start gap-x-3 gap-y-1 px-4 py-2.5"
+                >
                   <span className="w-24 shrink-0 pt-0.5">
                     <KindBadge kind={change.kind} />
                   </span>

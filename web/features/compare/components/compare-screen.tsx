@@ -24,7 +24,10 @@ export function CompareScreen() {
 
   let body: ReactNode;
   if (model.isPending) body = <LoadingState label="Loading the revisions…" />;
-  else if (model.isError) body = <ErrorState title="This model could not be loaded" error={model.error} onRetry={() => void model.refetch()} />;
+  else if (model.isError)
+    body = (
+      <ErrorState title="This model could not be loaded" error={model.error} onRetry={() => void model.refetch()} />
+    );
   else body = <Compare model={model.data} />;
 
   return (
@@ -65,37 +68,71 @@ function Compare({ model }: { model: SetupModelView }) {
     });
 
   if (own.isPending) return <LoadingState label="Loading the revisions…" />;
-  if (own.isError && !own.data) return <ErrorState title="The revisions could not be loaded" error={own.error} onRetry={() => void own.refetch()} />;
+  if (own.isError && !own.data)
+    return (
+      <ErrorState title="The revisions could not be loaded" error={own.error} onRetry={() => void own.refetch()} />
+    );
 
   const groups: RevisionGroup[] = [{ label: `${model.name} (this model)`, revisions: ownList }];
-  if (source) groups.push({ label: `${source.model_name} (forked from)`, revisions: revisionsOf(sourceRevisions.data?.pages) });
+  if (source)
+    groups.push({ label: `${source.model_name} (forked from)`, revisions: revisionsOf(sourceRevisions.data?.pages) });
 
   const data = comparison.data;
-  const current = (id: string, side?: CompareSideSummary) => (side && side.id === id ? { id, text: sideLabel(side, model) } : null);
+  const current = (id: string, side?: CompareSideSummary) =>
+    side && side.id === id ? { id, text: sideLabel(side, model) } : null;
 
   return (
     <div className="space-y-8">
       <Card className="px-4 py-4">
         <div className="grid items-end gap-3 sm:grid-cols-[1fr_auto_1fr]">
-          <RevisionPicker label="Older (from)" value={from} groups={groups} current={current(from, data?.from)} onChange={(id) => choose({ from: id })} />
-          <Button variant="secondary" onClick={() => choose({ from: to, to: from })} disabled={!from || !to} className="sm:mb-0">
+          <RevisionPicker
+            label="Older (from)"
+            value={from}
+            groups={groups}
+            current={current(from, data?.from)}
+            onChange={(id) => choose({ from: id })}
+          />
+          <Button
+            variant="secondary"
+            onClick={() => choose({ from: to, to: from })}
+            disabled={!from || !to}
+            className="sm:mb-0"
+          >
             Swap
           </Button>
-          <RevisionPicker label="Newer (to)" value={to} groups={groups} current={current(to, data?.to)} onChange={(id) => choose({ to: id })} />
+          <RevisionPicker
+            label="Newer (to)"
+            value={to}
+            groups={groups}
+            current={current(to, data?.to)}
+            onChange={(id) => choose({ to: id })}
+          />
         </div>
         {own.hasNextPage && (
-          <Button size="sm" variant="quiet" className="mt-2" pending={own.isFetchingNextPage} onClick={() => void own.fetchNextPage()}>
+          <Button
+            size="sm"
+            variant="quiet"
+            className="mt-2"
+            pending={own.isFetchingNextPage}
+            onClick={() => void own.fetchNextPage()}
+          >
             Offer older revisions too
           </Button>
         )}
       </Card>
 
       {!from || !to ? (
-        <EmptyState title="Only one revision so far">Save a second revision, or fork from another model, and the two can be compared here.</EmptyState>
+        <EmptyState title="Only one revision so far">
+          Save a second revision, or fork from another model, and the two can be compared here.
+        </EmptyState>
       ) : comparison.isPending ? (
         <LoadingState label="Comparing…" />
       ) : comparison.isError ? (
-        <ErrorState title="These two revisions could not be compared" error={comparison.error} onRetry={() => void comparison.refetch()} />
+        <ErrorState
+          title="These two revisions could not be compared"
+          error={comparison.error}
+          onRetry={() => void comparison.refetch()}
+        />
       ) : (
         <Result model={model} result={comparison.data} stale={comparison.isPlaceholderData} />
       )}
@@ -103,7 +140,17 @@ function Compare({ model }: { model: SetupModelView }) {
   );
 }
 
-function Section({ id, title, aside, children }: { id: string; title: string; aside?: ReactNode; children: ReactNode }) {
+function Section({
+  id,
+  title,
+  aside,
+  children,
+}: {
+  id: string;
+  title: string;
+  aside?: ReactNode;
+  children: ReactNode;
+}) {
   return (
     <section aria-labelledby={id}>
       <div className="mb-3 flex flex-wrap items-baseline justify-between gap-2">
@@ -147,11 +194,19 @@ function Result({ model, result, stale }: { model: SetupModelView; result: Compa
         <SideCard title="To" side={result.to} model={model} />
         <div className="flex flex-wrap items-center gap-2 sm:col-span-3 lg:col-span-1 lg:flex-col lg:items-end">
           <KindCounts counts={result.counts} />
-          <a href={patchDownloadUrl(result.from.id, result.to.id)} download className={buttonClasses('secondary', 'sm')}>
+          <a
+            href={patchDownloadUrl(result.from.id, result.to.id)}
+            download
+            className={buttonClasses('secondary', 'sm')}
+          >
             Export JSON Patch
           </a>
         </div>
-        {result.from.id === result.to.id && <p className="text-sm text-ink-700 sm:col-span-3 lg:col-span-4">Both sides are the same revision; choose another to see differences.</p>}
+        {result.from.id === result.to.id && (
+          <p className="text-sm text-ink-700 sm:col-span-3 lg:col-span-4">
+            Both sides are the same revision; choose another to see differences.
+          </p>
+        )}
       </Card>
 
       <Section id="changes-heading" title="Changes by section">
@@ -165,7 +220,11 @@ function Result({ model, result, stale }: { model: SetupModelView; result: Compa
       <Section
         id="outputs-delta-heading"
         title="What now moves differently"
-        aside={<p className="text-sm text-ink-700">At rest, each stick and knob at both ends, each switch in each position, and on signal loss.</p>}
+        aside={
+          <p className="text-sm text-ink-700">
+            At rest, each stick and knob at both ends, each switch in each position, and on signal loss.
+          </p>
+        }
       >
         <OutputsDeltaTable deltas={result.outputs_delta} />
       </Section>

@@ -2,7 +2,15 @@ import type { FindingsDelta } from '../../../../shared/diff';
 import { FindingsList } from '../../findings/components/findings-list';
 
 /** What the checks say differently: findings the newer revision brought, and those it cleared. */
-export function FindingsDeltaView({ delta, toModelId, toIsLatest }: { delta: FindingsDelta; toModelId: string; toIsLatest: boolean }) {
+export function FindingsDeltaView({
+  delta,
+  toModelId,
+  toIsLatest,
+}: {
+  delta: FindingsDelta;
+  toModelId: string;
+  toIsLatest: boolean;
+}) {
   return (
     <div className="grid gap-4 lg:grid-cols-2">
       <div>

@@ -19,7 +19,8 @@ export function OutputsDeltaTable({ deltas }: { deltas: OutputDelta[] | null }) 
   if (deltas === null) {
     return (
       <p className="rounded-lg border border-ply-200 bg-paper-raised px-4 py-3 text-base text-ink-700">
-        One of the two revisions has schema errors, so the bench cannot work out its pulses. Fix the errors to see what moves differently.
+        One of the two revisions has schema errors, so the bench cannot work out its pulses. Fix the errors to see what
+        moves differently.
       </p>
     );
   }
@@ -39,23 +40,41 @@ export function OutputsDeltaTable({ deltas }: { deltas: OutputDelta[] | null }) 
         <caption className="sr-only">Receiver pins whose output differs, by control position</caption>
         <thead className="border-b border-ply-200 text-sm text-ink-700">
           <tr>
-            <th scope="col" className="px-4 py-2 font-medium">Receiver</th>
-            <th scope="col" className="px-3 py-2 font-medium">Pin</th>
-            <th scope="col" className="px-3 py-2 font-medium">Channel</th>
-            <th scope="col" className="px-3 py-2 font-medium">Before</th>
-            <th scope="col" className="px-3 py-2 font-medium">After</th>
+            <th scope="col" className="px-4 py-2 font-medium">
+              Receiver
+            </th>
+            <th scope="col" className="px-3 py-2 font-medium">
+              Pin
+            </th>
+            <th scope="col" className="px-3 py-2 font-medium">
+              Channel
+            </th>
+            <th scope="col" className="px-3 py-2 font-medium">
+              Before
+            </th>
+            <th scope="col" className="px-3 py-2 font-medium">
+              After
+            </th>
           </tr>
         </thead>
         <tbody>
           {[...groups.entries()].map(([label, rows]) => (
             <Fragment key={label}>
               <tr className="bg-paper">
-                <th scope="colgroup" colSpan={5} className="border-y border-ply-200 px-4 py-1.5 text-sm font-semibold text-ink-900">
+                <th
+                  scope="colgroup"
+                  colSpan={5}
+                  className="border-y border-ply-200 px-4 py-1.5 text-sm font-semibold text-ink-900"
+                >
                   {label}
                 </th>
               </tr>
               {rows.map((delta) => (
-                <tr key={`${delta.kind}-${delta.receiver}-${delta.pin}`} className="border-b border-ply-100" title={delta.summary}>
+                <tr
+                  key={`${delta.kind}-${delta.receiver}-${delta.pin}`}
+                  className="border-b border-ply-100"
+                  title={delta.summary}
+                >
                   <td className="px-4 py-2 font-mono text-sm">{delta.receiver}</td>
                   <td className="px-3 py-2 font-mono text-sm">{delta.pin}</td>
                   <td className="px-3 py-2 font-mono text-sm">{channelText(delta)}</td>

@@ -12,18 +12,50 @@ const SIGNS: Record<TextRowKind, { left: string; right: string; word: string }> 
   changed: { left: '~', right: '~', word: 'changed' },
 };
 
-const LEFT_TONE: Record<TextRowKind, string> = { same: '', added: 'bg-ply-100/60', removed: 'bg-danger-100', changed: 'bg-caution-100' };
-const RIGHT_TONE: Record<TextRowKind, string> = { same: '', added: 'bg-moss-100', removed: 'bg-ply-100/60', changed: 'bg-caution-100' };
+const LEFT_TONE: Record<TextRowKind, string> = {
+  same: '',
+  added: 'bg-ply-100/60',
+  removed: 'bg-danger-100',
+  changed: 'bg-caution-100',
+};
+const RIGHT_TONE: Record<TextRowKind, string> = {
+  same: '',
+  added: 'bg-moss-100',
+  removed: 'bg-ply-100/60',
+  changed: 'bg-caution-100',
+};
 
-function Side({ side, kind, tone, sign, divider = false }: { side: TextRow['left']; kind: TextRowKind; tone: string; sign: string; divider?: boolean }) {
+function Side({
+  side,
+  kind,
+  tone,
+  sign,
+  divider = false,
+}: {
+  side: TextRow['left'];
+  kind: TextRowKind;
+  tone: string;
+  sign: string;
+  divider?: boolean;
+}) {
   return (
     <>
-      <td className={cx('border-r border-ply-200 px-2 text-right align-top text-ink-500 select-none', divider && 'border-l border-l-ply-500', tone)}>{side?.line ?? ''}</td>
+      <td
+        className={cx(
+          'border-r border-ply-200 px-2 text-right align-top text-ink-500 select-none',
+          divider && 'border-l border-l-ply-500',
+          tone,
+        )}
+      >
+        {side?.line ?? ''}
+      </td>
       <td className={cx('px-1 align-top font-semibold text-ink-700 select-none', tone)}>
         {side && sign}
         {side && kind !== 'same' && <span className="sr-only"> {SIGNS[kind].word}</span>}
       </td>
-      <td className={cx('px-2 align-top whitespace-pre-wrap text-ink-900 [overflow-wrap:anywhere]', tone)}>{side?.text ?? ''}</td>
+      <td className={cx('px-2 align-top whitespace-pre-wrap text-ink-900 [overflow-wrap:anywhere]', tone)}>
+        {side?.text ?? ''}
+      </td>
     </>
   );
 }
@@ -84,7 +116,10 @@ export function TextDiffView({ diff, fromLabel, toLabel }: { diff: TextDiff; fro
             {pieces.map((piece, index) =>
               piece.type === 'gap' ? (
                 <tr key={`gap-${index}`}>
-                  <td colSpan={6} className="border-y border-ply-200 bg-ply-100 px-3 py-1 text-center font-sans text-xs text-ink-700">
+                  <td
+                    colSpan={6}
+                    className="border-y border-ply-200 bg-ply-100 px-3 py-1 text-center font-sans text-xs text-ink-700"
+                  >
                     {piece.count} unchanged {piece.count === 1 ? 'line' : 'lines'}
                   </td>
                 </tr>
@@ -93,7 +128,13 @@ export function TextDiffView({ diff, fromLabel, toLabel }: { diff: TextDiff; fro
                   {diff.rows.slice(piece.start, piece.end).map((row, offset) => (
                     <tr key={piece.start + offset}>
                       <Side side={row.left} kind={row.kind} tone={LEFT_TONE[row.kind]} sign={SIGNS[row.kind].left} />
-                      <Side side={row.right} kind={row.kind} tone={RIGHT_TONE[row.kind]} sign={SIGNS[row.kind].right} divider />
+                      <Side
+                        side={row.right}
+                        kind={row.kind}
+                        tone={RIGHT_TONE[row.kind]}
+                        sign={SIGNS[row.kind].right}
+                        divider
+                      />
                     </tr>
                   ))}
                 </Fragment>

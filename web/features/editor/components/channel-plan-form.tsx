@@ -26,7 +26,8 @@ export function ChannelPlanForm({ data, readOnly, onEdits }: FormProps) {
     <fieldset disabled={readOnly} className="min-w-0">
       <legend className="sr-only">Channel plan</legend>
       <p className="mb-3 text-sm text-ink-700">
-        One function per channel. Travel and cut stay in the text{readOnly ? '.' : '; changes here edit the same document.'}
+        One function per channel. Travel and cut stay in the text
+        {readOnly ? '.' : '; changes here edit the same document.'}
       </p>
       {channels.length === 0 ? (
         <EmptyState title="No channels planned yet">Add the first channel, or write the plan in the text.</EmptyState>
@@ -81,9 +82,13 @@ export function ChannelPlanForm({ data, readOnly, onEdits }: FormProps) {
                     <CellSelect
                       label={`Role, ${name}`}
                       value={role}
-                      onChange={(event) => onEdits([{ kind: 'set', path: ['channels', index, 'role'], value: event.target.value }])}
+                      onChange={(event) =>
+                        onEdits([{ kind: 'set', path: ['channels', index, 'role'], value: event.target.value }])
+                      }
                     >
-                      {!(CHANNEL_ROLES as readonly string[]).includes(role) && <option value={role}>{role || 'choose'}</option>}
+                      {!(CHANNEL_ROLES as readonly string[]).includes(role) && (
+                        <option value={role}>{role || 'choose'}</option>
+                      )}
                       {CHANNEL_ROLES.map((option) => (
                         <option key={option} value={option}>
                           {option}

@@ -29,7 +29,11 @@ const chrome = EditorView.theme({
   },
   '.cm-activeLineGutter': { backgroundColor: 'var(--color-ply-100)', color: 'var(--color-ink-900)' },
   '.cm-lineNumbers .cm-gutterElement': { padding: '0 0.5rem 0 0.75rem' },
-  '.cm-foldPlaceholder': { backgroundColor: 'var(--color-ply-100)', border: '1px solid var(--color-ply-300)', color: 'var(--color-ink-700)' },
+  '.cm-foldPlaceholder': {
+    backgroundColor: 'var(--color-ply-100)',
+    border: '1px solid var(--color-ply-300)',
+    color: 'var(--color-ink-700)',
+  },
   '.cm-tooltip': {
     backgroundColor: 'var(--color-paper-raised)',
     border: '1px solid var(--color-ply-300)',
@@ -44,9 +48,21 @@ const chrome = EditorView.theme({
   '.cm-diagnostic-warning': { borderLeft: '4px solid var(--color-caution-700)' },
   '.cm-diagnostic-info': { borderLeft: '4px solid var(--color-info-700)' },
   '.cm-diagnosticSource': { color: 'var(--color-ink-500)', fontFamily: 'var(--font-mono)', fontSize: '0.75rem' },
-  '.cm-lintRange-error': { backgroundImage: 'none', textDecoration: 'underline wavy var(--color-danger-700)', textUnderlineOffset: '3px' },
-  '.cm-lintRange-warning': { backgroundImage: 'none', textDecoration: 'underline wavy var(--color-caution-700)', textUnderlineOffset: '3px' },
-  '.cm-lintRange-info': { backgroundImage: 'none', textDecoration: 'underline dotted var(--color-info-700)', textUnderlineOffset: '3px' },
+  '.cm-lintRange-error': {
+    backgroundImage: 'none',
+    textDecoration: 'underline wavy var(--color-danger-700)',
+    textUnderlineOffset: '3px',
+  },
+  '.cm-lintRange-warning': {
+    backgroundImage: 'none',
+    textDecoration: 'underline wavy var(--color-caution-700)',
+    textUnderlineOffset: '3px',
+  },
+  '.cm-lintRange-info': {
+    backgroundImage: 'none',
+    textDecoration: 'underline dotted var(--color-info-700)',
+    textUnderlineOffset: '3px',
+  },
   '.cm-panels': { backgroundColor: 'var(--color-paper)', color: 'var(--color-ink-900)' },
   '.cm-searchMatch': { backgroundColor: 'var(--color-caution-100)', outline: '1px solid var(--color-caution-700)' },
 });
@@ -57,7 +73,10 @@ const highlight = HighlightStyle.define([
   { tag: [tags.string, tags.special(tags.string)], color: 'var(--color-moss-700)' },
   { tag: tags.lineComment, color: 'var(--color-ink-500)', fontStyle: 'italic' },
   { tag: [tags.separator, tags.punctuation, tags.brace, tags.squareBracket], color: 'var(--color-ply-500)' },
-  { tag: [tags.labelName, tags.typeName, tags.keyword, tags.meta, tags.attributeValue], color: 'var(--color-caution-700)' },
+  {
+    tag: [tags.labelName, tags.typeName, tags.keyword, tags.meta, tags.attributeValue],
+    color: 'var(--color-caution-700)',
+  },
 ]);
 
 export const editorTheme = [chrome, syntaxHighlighting(highlight)];

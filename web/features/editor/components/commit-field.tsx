@@ -65,7 +65,11 @@ export function CommitField({ label, value, onCommit, className, ...props }: Com
 }
 
 /** A compact select for table cells, drawn like the kit's select fields beside it. */
-export function CellSelect({ label, className, ...props }: SelectHTMLAttributes<HTMLSelectElement> & { label: string }) {
+export function CellSelect({
+  label,
+  className,
+  ...props
+}: SelectHTMLAttributes<HTMLSelectElement> & { label: string }) {
   return (
     <div className={cx('relative', className ?? 'w-full')}>
       <select

@@ -21,7 +21,9 @@ export function EditScreen() {
 
   if (model.isPending) return <LoadingState label="Loading the model…" />;
   if (model.isError) {
-    return <ErrorState title="This model could not be loaded" error={model.error} onRetry={() => void model.refetch()} />;
+    return (
+      <ErrorState title="This model could not be loaded" error={model.error} onRetry={() => void model.refetch()} />
+    );
   }
   if (!model.data.latest) {
     return (
@@ -59,7 +61,11 @@ function EditorLoader({ model, role, canEdit }: { model: SetupModelView; role: R
   if (revision.isError) {
     return (
       <div className="space-y-4">
-        <ErrorState title="The setup could not be loaded" error={revision.error} onRetry={() => void revision.refetch()} />
+        <ErrorState
+          title="The setup could not be loaded"
+          error={revision.error}
+          onRetry={() => void revision.refetch()}
+        />
         {start.draftText !== null && (
           <div className="text-center">
             <Button

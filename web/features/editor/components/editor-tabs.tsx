@@ -16,7 +16,14 @@ export function EditorTabs({ value, onChange }: { value: EditorTab; onChange: (t
 
   const onKeyDown = (event: KeyboardEvent, index: number) => {
     const step = event.key === 'ArrowRight' ? 1 : event.key === 'ArrowLeft' ? -1 : 0;
-    const to = event.key === 'Home' ? 0 : event.key === 'End' ? TABS.length - 1 : step === 0 ? null : (index + step + TABS.length) % TABS.length;
+    const to =
+      event.key === 'Home'
+        ? 0
+        : event.key === 'End'
+          ? TABS.length - 1
+          : step === 0
+            ? null
+            : (index + step + TABS.length) % TABS.length;
     if (to === null) return;
     event.preventDefault();
     onChange(TABS[to].id);
@@ -43,7 +50,9 @@ export function EditorTabs({ value, onChange }: { value: EditorTab; onChange: (t
             onKeyDown={(event) => onKeyDown(event, index)}
             className={cx(
               'inline-flex h-10 items-center border-b-[3px] px-3 text-base',
-              selected ? 'border-accent-700 font-semibold text-ink-900' : 'border-transparent text-ink-700 hover:border-ply-300 hover:text-ink-900',
+              selected
+                ? 'border-accent-700 font-semibold text-ink-900'
+                : 'border-transparent text-ink-700 hover:border-ply-300 hover:text-ink-900',
             )}
           >
             {tab.label}

@@ -4,7 +4,17 @@ import { cx } from '../../../lib/cx';
 // The tables the forms are drawn in: a header row of small caps words, rows ruled
 // like a workbench ledger, scrolling sideways on a narrow tablet rather than squeezing.
 
-export function FormTable({ caption, children, className, tableClassName }: { caption: string; children: ReactNode; className?: string; tableClassName?: string }) {
+export function FormTable({
+  caption,
+  children,
+  className,
+  tableClassName,
+}: {
+  caption: string;
+  children: ReactNode;
+  className?: string;
+  tableClassName?: string;
+}) {
   return (
     <div className={cx('overflow-x-auto rounded-lg border border-ply-200 bg-paper-raised', className)}>
       <table className={cx('w-full border-collapse text-left text-sm', tableClassName)}>
@@ -17,7 +27,13 @@ export function FormTable({ caption, children, className, tableClassName }: { ca
 
 export function HeaderCell({ children, className }: { children?: ReactNode; className?: string }) {
   return (
-    <th scope="col" className={cx('border-b border-ply-200 bg-paper px-2 py-2 text-xs font-medium tracking-wide text-ink-700 uppercase', className)}>
+    <th
+      scope="col"
+      className={cx(
+        'border-b border-ply-200 bg-paper px-2 py-2 text-xs font-medium tracking-wide text-ink-700 uppercase',
+        className,
+      )}
+    >
       {children}
     </th>
   );

@@ -37,8 +37,8 @@ export function LeaveGuard({ dirty }: { dirty: boolean }) {
   return (
     <Dialog title="Leave with unsaved changes?" onClose={() => blocker.reset?.()}>
       <p className="text-base text-ink-700">
-        Your changes are not a revision yet. They stay in this browser tab as a draft and come back when you open the editor again, but
-        they are lost when the tab is closed. Save them as a revision to keep them for good.
+        Your changes are not a revision yet. They stay in this browser tab as a draft and come back when you open the
+        editor again, but they are lost when the tab is closed. Save them as a revision to keep them for good.
       </p>
       <div className="mt-4 flex flex-wrap justify-end gap-2">
         <Button variant="secondary" onClick={() => blocker.proceed?.()}>

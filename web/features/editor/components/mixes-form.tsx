@@ -3,7 +3,16 @@ import { Button } from '../../../components/ui/button';
 import { CloseIcon } from '../../../components/ui/icons';
 import { EmptyState } from '../../../components/ui/empty-state';
 import type { DocumentEdit } from '../document-edits';
-import { entriesAt, entryAt, fieldText, parseNumber, parseWhole, wholeNumber, type Entry, type FormProps } from '../form-values';
+import {
+  entriesAt,
+  entryAt,
+  fieldText,
+  parseNumber,
+  parseWhole,
+  wholeNumber,
+  type Entry,
+  type FormProps,
+} from '../form-values';
 import { CellSelect, CommitField } from './commit-field';
 import { Cell, FormTable, HeaderCell } from './form-table';
 
@@ -48,8 +57,9 @@ export function MixesForm({ data, readOnly, onEdits }: FormProps) {
     <fieldset disabled={readOnly} className="min-w-0">
       <legend className="sr-only">Mixes</legend>
       <p className="mb-3 text-sm text-ink-700">
-        Each mix feeds a control into a channel: weight × expo curve + offset, in percent. Mixes on one channel add up. Rates replace
-        the weight with one per switch position; conditions (<code className="font-mono">active</code>) stay in the text.
+        Each mix feeds a control into a channel: weight × expo curve + offset, in percent. Mixes on one channel add up.
+        Rates replace the weight with one per switch position; conditions (<code className="font-mono">active</code>)
+        stay in the text.
       </p>
       {mixes.length === 0 ? (
         <EmptyState title="No mixes yet">Without mixes no control moves any channel. Add one to start.</EmptyState>
@@ -73,7 +83,15 @@ export function MixesForm({ data, readOnly, onEdits }: FormProps) {
           </thead>
           <tbody>
             {mixes.map(({ index, entry }) => (
-              <MixRow key={index} index={index} mix={entry} controls={controls} switches={switches} readOnly={readOnly} onEdits={onEdits} />
+              <MixRow
+                key={index}
+                index={index}
+                mix={entry}
+                controls={controls}
+                switches={switches}
+                readOnly={readOnly}
+                onEdits={onEdits}
+              />
             ))}
           </tbody>
         </FormTable>
@@ -134,13 +152,21 @@ function MixRow({ index, mix, controls, switches, readOnly, onEdits }: MixRowPro
         />
         {active && (
           <p className="mt-1 text-xs text-ink-700">
-            counts only at {fieldText(active.control)} position {Array.isArray(active.positions) ? active.positions.join(' or ') : '?'}
+            counts only at {fieldText(active.control)} position{' '}
+            {Array.isArray(active.positions) ? active.positions.join(' or ') : '?'}
           </p>
         )}
       </Cell>
       <Cell>
-        <CellSelect className="w-full min-w-32" label={`Control of mix ${id}`} value={from} onChange={(event) => onEdits([{ kind: 'set', path: [...path, 'from'], value: event.target.value }])}>
-          {!controls.some((control) => control.id === from) && <option value={from}>{from || 'choose'} (not a control)</option>}
+        <CellSelect
+          className="w-full min-w-32"
+          label={`Control of mix ${id}`}
+          value={from}
+          onChange={(event) => onEdits([{ kind: 'set', path: [...path, 'from'], value: event.target.value }])}
+        >
+          {!controls.some((control) => control.id === from) && (
+            <option value={from}>{from || 'choose'} (not a control)</option>
+          )}
           {controls.map((control) => (
             <option key={control.id} value={control.id}>
               {control.id}
@@ -184,7 +210,12 @@ function MixRow({ index, mix, controls, switches, readOnly, onEdits }: MixRowPro
         </Cell>
       ))}
       <Cell>
-        <CellSelect className="w-full min-w-32" label={`Rates switch of mix ${id}`} value={ratesControl} onChange={(event) => setRates(event.target.value)}>
+        <CellSelect
+          className="w-full min-w-32"
+          label={`Rates switch of mix ${id}`}
+          value={ratesControl}
+          onChange={(event) => setRates(event.target.value)}
+        >
           <option value="">no rates</option>
           {ratesControl && !ratesSwitch && <option value={ratesControl}>{ratesControl} (not a switch)</option>}
           {switches.map((control) => (
@@ -216,7 +247,14 @@ function MixRow({ index, mix, controls, switches, readOnly, onEdits }: MixRowPro
       </Cell>
       {!readOnly && (
         <Cell className="text-right">
-          <Button variant="quiet" size="sm" className="px-2" aria-label={`Remove mix ${id}`} title={`Remove mix ${id}`} onClick={() => onEdits([{ kind: 'delete', path: [...path] }])}>
+          <Button
+            variant="quiet"
+            size="sm"
+            className="px-2"
+            aria-label={`Remove mix ${id}`}
+            title={`Remove mix ${id}`}
+            onClick={() => onEdits([{ kind: 'delete', path: [...path] }])}
+          >
             <CloseIcon />
           </Button>
         </Cell>

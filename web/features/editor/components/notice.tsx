@@ -9,9 +9,24 @@ const tones: Record<Tone, string> = {
 };
 
 /** A line of news about the edit on show (a restored draft, a read-only role), with its actions. */
-export function Notice({ tone = 'info', icon: Icon, children, actions }: { tone?: Tone; icon: ComponentType<SVGProps<SVGSVGElement>>; children: ReactNode; actions?: ReactNode }) {
+export function Notice({
+  tone = 'info',
+  icon: Icon,
+  children,
+  actions,
+}: {
+  tone?: Tone;
+  icon: ComponentType<SVGProps<SVGSVGElement>>;
+  children: ReactNode;
+  actions?: ReactNode;
+}) {
   return (
-    <div className={cx('flex flex-wrap items-start gap-x-3 gap-y-2 rounded-md border px-4 py-2.5 text-sm text-ink-900', tones[tone])}>
+    <div
+      className={cx(
+        'flex flex-wrap items-start gap-x-3 gap-y-2 rounded-md border px-4 py-2.5 text-sm text-ink-900',
+        tones[tone],
+      )}
+    >
       <Icon className="mt-0.5 shrink-0 text-base" />
       <div className="min-w-0 flex-1 basis-64">{children}</div>
       {actions && <div className="flex flex-wrap gap-2">{actions}</div>}

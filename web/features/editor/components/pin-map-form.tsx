@@ -5,7 +5,15 @@ import { Card } from '../../../components/ui/card';
 import { EmptyState } from '../../../components/ui/empty-state';
 import { FieldError } from '../../../components/ui/field-error';
 import type { DocumentEdit } from '../document-edits';
-import { entriesAt, fieldText, parseWhole, wholeNumber, type Entry, type FormProps, type Indexed } from '../form-values';
+import {
+  entriesAt,
+  fieldText,
+  parseWhole,
+  wholeNumber,
+  type Entry,
+  type FormProps,
+  type Indexed,
+} from '../form-values';
 import { shiftPinChannels } from '../pin-shift';
 import { CommitField } from './commit-field';
 import { FailsafeField } from './failsafe-field';
@@ -28,10 +36,18 @@ export function PinMapForms({ data, readOnly, onEdits }: FormProps) {
     <fieldset disabled={readOnly} className="min-w-0 space-y-5">
       <legend className="sr-only">Pin maps</legend>
       <p className="text-sm text-ink-700">
-        Which output pin carries which channel, and what it does when the link is lost.{readOnly ? '' : ' Changes here edit the same document.'}
+        Which output pin carries which channel, and what it does when the link is lost.
+        {readOnly ? '' : ' Changes here edit the same document.'}
       </p>
       {receivers.map(({ index, entry }) => (
-        <ReceiverPinMap key={index} receiverIndex={index} receiver={entry} functions={functions} readOnly={readOnly} onEdits={onEdits} />
+        <ReceiverPinMap
+          key={index}
+          receiverIndex={index}
+          receiver={entry}
+          functions={functions}
+          readOnly={readOnly}
+          onEdits={onEdits}
+        />
       ))}
     </fieldset>
   );
@@ -131,7 +147,8 @@ function ReceiverPinMap({ receiverIndex, receiver, functions, readOnly, onEdits 
                   />
                 </div>
                 <Button size="sm" variant="secondary" disabled={chosen.length === 0} onClick={shift}>
-                  Shift {chosen.length === 0 ? 'selected pins' : chosen.length === 1 ? '1 pin' : `${chosen.length} pins`}
+                  Shift{' '}
+                  {chosen.length === 0 ? 'selected pins' : chosen.length === 1 ? '1 pin' : `${chosen.length} pins`}
                 </Button>
                 <p className="pb-1 text-sm text-ink-700">
                   {chosen.length === 0 ? 'Tick the pins to move, like pins 1-8 of a second receiver.' : ''}

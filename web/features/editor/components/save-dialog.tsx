@@ -45,7 +45,9 @@ export function SaveDialog({ base, counts, pending, error, onSave, onClose }: Sa
             The checks found
             {counts.errors > 0 && <SeverityBadge severity="error" count={counts.errors} />}
             {counts.warnings > 0 && <SeverityBadge severity="warning" count={counts.warnings} />}
-            {counts.errors > 0 ? 'A revision with errors is kept, but it cannot be approved for flight.' : 'They are saved with the revision.'}
+            {counts.errors > 0
+              ? 'A revision with errors is kept, but it cannot be approved for flight.'
+              : 'They are saved with the revision.'}
           </p>
         )}
         <TextField

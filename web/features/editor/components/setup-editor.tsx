@@ -51,7 +51,12 @@ export interface SetupEditorProps {
 const CHECK_DELAY_MS = 250;
 const MAX_FILE_BYTES = 512 * 1024;
 
-const baseOf = (revision: Revision): EditorBase => ({ id: revision.id, number: revision.number, yaml: revision.yaml, document: revision.document });
+const baseOf = (revision: Revision): EditorBase => ({
+  id: revision.id,
+  number: revision.number,
+  yaml: revision.yaml,
+  document: revision.document,
+});
 
 function fileStem(name: string): string {
   const stem = name
@@ -130,7 +135,11 @@ export function SetupEditor({ model, initialBase, restoredText, canEdit, role }:
       try {
         setText(applyEdits(textRef.current, edits));
       } catch (error) {
-        toast({ tone: 'error', title: 'The form could not change the text', description: error instanceof Error ? error.message : undefined });
+        toast({
+          tone: 'error',
+          title: 'The form could not change the text',
+          description: error instanceof Error ? error.message : undefined,
+        });
       }
     },
     [setText, toast],
@@ -142,21 +151,37 @@ export function SetupEditor({ model, initialBase, restoredText, canEdit, role }:
     event.target.value = '';
     if (!file) return;
     if (!/\.ya?ml$/i.test(file.name)) {
-      toast({ tone: 'error', title: `${file.name} was not opened`, description: 'Open a setup saved as a .yaml or .yml file.' });
+      toast({
+        tone: 'error',
+        title: `${file.name} was not opened`,
+        description: 'Open a setup saved as a .yaml or .yml file.',
+      });
       return;
     }
     if (file.size > MAX_FILE_BYTES) {
-      toast({ tone: 'error', title: `${file.name} was not opened`, description: `It is ${Math.ceil(file.size / 1024)} KB; setups up to 512 KB are accepted.` });
+      toast({
+        tone: 'error',
+        title: `${file.name} was not opened`,
+        description: `It is ${Math.ceil(file.size / 1024)} KB; setups up to 512 KB are accepted.`,
+      });
       return;
     }
     try {
       setText(await readText(file));
     } catch (error) {
-      toast({ tone: 'error', title: `${file.name} could not be read`, description: error instanceof Error ? error.message : undefined });
+      toast({
+        tone: 'error',
+        title: `${file.name} could not be read`,
+        description: error instanceof Error ? error.message : undefined,
+      });
       return;
     }
     setTab('text');
-    toast({ tone: 'info', title: `Opened ${file.name} in the editor`, description: `Look over the findings, then save it as revision ${base.number + 1}.` });
+    toast({
+      tone: 'info',
+      title: `Opened ${file.name} in the editor`,
+      description: `Look over the findings, then save it as revision ${base.number + 1}.`,
+    });
   };
 
   const download = () => {
@@ -188,7 +213,13 @@ export function SetupEditor({ model, initialBase, restoredText, canEdit, role }:
           if (!isStale(error)) return;
           setSaveOpen(false);
           const latest = model.latest;
-          setStale({ info: staleBaseOf(isApiError(error) ? error.details : null) ?? { latest: latest?.number ?? base.number + 1, latestId: latest?.id ?? null }, refused: true });
+          setStale({
+            info: staleBaseOf(isApiError(error) ? error.details : null) ?? {
+              latest: latest?.number ?? base.number + 1,
+              latestId: latest?.id ?? null,
+            },
+            refused: true,
+          });
         },
       },
     );
@@ -219,7 +250,15 @@ export function SetupEditor({ model, initialBase, restoredText, canEdit, role }:
           <>
             {canEdit && (
               <>
-                <input ref={fileInput} type="file" accept=".yaml,.yml,application/yaml,text/yaml" className="sr-only" tabIndex={-1} aria-hidden="true" onChange={(event) => void openFile(event)} />
+                <input
+                  ref={fileInput}
+                  type="file"
+                  accept=".yaml,.yml,application/yaml,text/yaml"
+                  className="sr-only"
+                  tabIndex={-1}
+                  aria-hidden="true"
+                  onChange={(event) => void openFile(event)}
+                />
                 <Button variant="secondary" onClick={() => fileInput.current?.click()}>
                   Open a file…
                 </Button>
@@ -253,8 +292,8 @@ export function SetupEditor({ model, initialBase, restoredText, canEdit, role }:
       <div className="mb-4 space-y-2">
         {!canEdit && (
           <Notice icon={InfoIcon}>
-            You are a <strong className="font-semibold">{role}</strong> in this workspace: you can read and download this setup, but not
-            change it.
+            You are a <strong className="font-semibold">{role}</strong> in this workspace: you can read and download
+            this setup, but not change it.
           </Notice>
         )}
         {restored && dirty && (
@@ -274,13 +313,17 @@ export function SetupEditor({ model, initialBase, restoredText, canEdit, role }:
             tone="caution"
             icon={StaleIcon}
             actions={
-              <Button variant="secondary" size="sm" onClick={() => setStale({ info: { latest: latest.number, latestId: latest.id }, refused: false })}>
+              <Button
+                variant="secondary"
+                size="sm"
+                onClick={() => setStale({ info: { latest: latest.number, latestId: latest.id }, refused: false })}
+              >
                 See what changed
               </Button>
             }
           >
-            Revision {latest.number} has been saved since revision {base.number}, the one this edit started from. Saving will show what
-            changed before anything is stored.
+            Revision {latest.number} has been saved since revision {base.number}, the one this edit started from. Saving
+            will show what changed before anything is stored.
           </Notice>
         )}
       </div>
@@ -347,7 +390,8 @@ export function SetupEditor({ model, initialBase, restoredText, canEdit, role }:
                     </Button>
                   }
                 >
-                  The text is not readable YAML right now, so the forms cannot show it. Fix the syntax finding in the text first.
+                  The text is not readable YAML right now, so the forms cannot show it. Fix the syntax finding in the
+                  text first.
                 </Notice>
               ) : tab === 'plan' ? (
                 <ChannelPlanForm data={formData} readOnly={!canEdit} onEdits={onEdits} />
@@ -384,7 +428,11 @@ export function SetupEditor({ model, initialBase, restoredText, canEdit, role }:
             <SeverityBadge severity="info" count={counts.infos} />
           </p>
           <div className="mt-3 max-h-[calc(100vh-9rem)] overflow-y-auto">
-            <FindingsList findings={checked.analysis.findings} modelId={model.id} emptyText="The setup passes every check." />
+            <FindingsList
+              findings={checked.analysis.findings}
+              modelId={model.id}
+              emptyText="The setup passes every check."
+            />
           </div>
         </aside>
       </div>

@@ -59,7 +59,15 @@ function ChangeList({ title, changes, empty }: { title: string; changes: readonl
  * merged: the pilot either stands their text on the latest revision, knowing what it
  * undoes, or starts again from the latest.
  */
-export function StaleBasePanel({ base, stale, mine, refused, onReapply, onLoadLatest, onDismiss }: StaleBasePanelProps) {
+export function StaleBasePanel({
+  base,
+  stale,
+  mine,
+  refused,
+  onReapply,
+  onLoadLatest,
+  onDismiss,
+}: StaleBasePanelProps) {
   const latest = useRevision(stale.latestId);
   const headingId = useId();
 
@@ -71,8 +79,13 @@ export function StaleBasePanel({ base, stale, mine, refused, onReapply, onLoadLa
     };
   }, [base.document, latest.data, mine]);
 
-  const revisionWord = stale.latest - base.number === 1 ? `Revision ${stale.latest} was` : `Revisions ${base.number + 1}-${stale.latest} were`;
-  const title = refused ? `Not saved: ${revisionWord.toLowerCase()} saved while you were editing` : `${revisionWord} saved since your edit began`;
+  const revisionWord =
+    stale.latest - base.number === 1
+      ? `Revision ${stale.latest} was`
+      : `Revisions ${base.number + 1}-${stale.latest} were`;
+  const title = refused
+    ? `Not saved: ${revisionWord.toLowerCase()} saved while you were editing`
+    : `${revisionWord} saved since your edit began`;
 
   return (
     <section
@@ -87,13 +100,18 @@ export function StaleBasePanel({ base, stale, mine, refused, onReapply, onLoadLa
       <p className="mt-1 max-w-prose text-base text-ink-700">
         Your edit started from revision {base.number}; the latest is revision {stale.latest}
         {latest.data?.author ? `, saved by ${latest.data.author.name}` : ''}
-        {latest.data?.message ? ` (“${latest.data.message}”)` : ''}. Nothing was merged: look at both lists, then choose.
+        {latest.data?.message ? ` (“${latest.data.message}”)` : ''}. Nothing was merged: look at both lists, then
+        choose.
       </p>
       {!stale.latestId ? null : latest.isPending ? (
         <LoadingState label={`Loading revision ${stale.latest}…`} />
       ) : latest.isError ? (
         <div className="mt-3">
-          <ErrorState title={`Revision ${stale.latest} could not be loaded`} error={latest.error} onRetry={() => void latest.refetch()} />
+          <ErrorState
+            title={`Revision ${stale.latest} could not be loaded`}
+            error={latest.error}
+            onRetry={() => void latest.refetch()}
+          />
         </div>
       ) : (
         diffs && (
@@ -123,8 +141,8 @@ export function StaleBasePanel({ base, stale, mine, refused, onReapply, onLoadLa
         </Button>
       </div>
       <p className="mt-2 max-w-prose text-sm text-ink-700">
-        Re-applying keeps your text exactly as it is and saves it on top of revision {stale.latest}: any change in the first list that your
-        text does not also hold is undone by that save, as the second list shows.
+        Re-applying keeps your text exactly as it is and saves it on top of revision {stale.latest}: any change in the
+        first list that your text does not also hold is undone by that save, as the second list shows.
       </p>
     </section>
   );

@@ -7,7 +7,12 @@ import type { FieldSheet } from '../types';
 const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
 /** `?revision=` names a revision by id or by its number in the model; absent means the latest. */
-export async function resolveRevisionId(modelId: Id, param: string | null, latestId: Id | null, signal?: AbortSignal): Promise<Id | null> {
+export async function resolveRevisionId(
+  modelId: Id,
+  param: string | null,
+  latestId: Id | null,
+  signal?: AbortSignal,
+): Promise<Id | null> {
   if (!param) return latestId;
   if (UUID.test(param)) return param;
   if (!/^\d{1,10}$/.test(param)) return null;

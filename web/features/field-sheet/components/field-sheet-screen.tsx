@@ -16,12 +16,24 @@ export function FieldSheetScreen() {
   const model = useModel(modelId);
   const latestId = model.data?.latest?.id ?? null;
   const sheet = useFieldSheet(modelId, param, latestId, model.isSuccess);
-  useDocumentTitle(sheet.data ? `Field sheet · ${sheet.data.model.name} r${sheet.data.revision.number}` : 'Field sheet');
+  useDocumentTitle(
+    sheet.data ? `Field sheet · ${sheet.data.model.name} r${sheet.data.revision.number}` : 'Field sheet',
+  );
 
-  if (model.isPending || (model.isSuccess && sheet.isPending)) return <LoadingState label="Laying out the field sheet…" />;
+  if (model.isPending || (model.isSuccess && sheet.isPending))
+    return <LoadingState label="Laying out the field sheet…" />;
   if (model.isError) return null;
-  if (!model.data.latest) return <ErrorState title="No revision to print yet" error={new Error('Save a first revision of this model, then print its sheet.')} />;
-  if (sheet.isError) return <ErrorState title="This field sheet could not be made" error={sheet.error} onRetry={() => void sheet.refetch()} />;
+  if (!model.data.latest)
+    return (
+      <ErrorState
+        title="No revision to print yet"
+        error={new Error('Save a first revision of this model, then print its sheet.')}
+      />
+    );
+  if (sheet.isError)
+    return (
+      <ErrorState title="This field sheet could not be made" error={sheet.error} onRetry={() => void sheet.refetch()} />
+    );
   if (!sheet.data) return <LoadingState label="Laying out the field sheet…" />;
 
   const isLatest = sheet.data.revision.id === latestId;
@@ -30,7 +42,9 @@ export function FieldSheetScreen() {
       <div className="flex flex-wrap items-center justify-between gap-3 print:hidden">
         <p className="text-base text-ink-700">
           Revision {sheet.data.revision.number}
-          {isLatest ? ', the latest.' : (
+          {isLatest ? (
+            ', the latest.'
+          ) : (
             <>
               {' '}
               of {model.data.latest.number}. <Link to={`/models/${modelId}/sheet`}>Show the latest</Link>

@@ -19,7 +19,8 @@ function Fact({ label, children }: { label: string; children: React.ReactNode })
 /** The sheet itself: what a pilot takes to the bench and the field, on screen and on paper. */
 export function FieldSheet({ sheet }: { sheet: Sheet }) {
   const half = Math.ceil(sheet.channels.length / 2);
-  const columns = sheet.channels.length > 8 ? [sheet.channels.slice(0, half), sheet.channels.slice(half)] : [sheet.channels];
+  const columns =
+    sheet.channels.length > 8 ? [sheet.channels.slice(0, half), sheet.channels.slice(half)] : [sheet.channels];
   const about = [
     sheet.model.airframe,
     sheet.model.wingspan_mm && `span ${sheet.model.wingspan_mm} mm`,
@@ -51,7 +52,8 @@ export function FieldSheet({ sheet }: { sheet: Sheet }) {
         </dl>
         <p className="mt-2 text-sm text-ink-700">
           {about.join(' · ')}
-          {sheet.revision.author && ` · saved by ${sheet.revision.author.name}, ${exactTime(sheet.revision.created_at)}`}
+          {sheet.revision.author &&
+            ` · saved by ${sheet.revision.author.name}, ${exactTime(sheet.revision.created_at)}`}
         </p>
       </header>
 
@@ -62,13 +64,23 @@ export function FieldSheet({ sheet }: { sheet: Sheet }) {
         <div className="mt-1 grid gap-x-6 sm:grid-cols-2 print:grid-cols-2">
           {columns.map((channels, index) => (
             <table key={index} className="w-full text-left text-sm">
-              <caption className="sr-only">Channels {channels[0]?.ch} to {channels[channels.length - 1]?.ch}</caption>
+              <caption className="sr-only">
+                Channels {channels[0]?.ch} to {channels[channels.length - 1]?.ch}
+              </caption>
               <thead className="border-b border-ply-300 text-xs text-ink-700">
                 <tr>
-                  <th scope="col" className="py-1 pr-2 font-medium">Ch</th>
-                  <th scope="col" className="py-1 pr-2 font-medium">Function</th>
-                  <th scope="col" className="py-1 pr-2 font-medium">Role</th>
-                  <th scope="col" className="py-1 font-medium">Notes</th>
+                  <th scope="col" className="py-1 pr-2 font-medium">
+                    Ch
+                  </th>
+                  <th scope="col" className="py-1 pr-2 font-medium">
+                    Function
+                  </th>
+                  <th scope="col" className="py-1 pr-2 font-medium">
+                    Role
+                  </th>
+                  <th scope="col" className="py-1 font-medium">
+                    Notes
+                  </th>
                 </tr>
               </thead>
               <tbody className="divide-y divide-ply-200">
@@ -77,7 +89,9 @@ export function FieldSheet({ sheet }: { sheet: Sheet }) {
                     <td className="py-1 pr-2 font-mono">{channel.ch}</td>
                     <td className="py-1 pr-2">{channel.function}</td>
                     <td className="py-1 pr-2">{channel.side ? `${channel.role} (${channel.side})` : channel.role}</td>
-                    <td className="py-1 text-ink-700">{[channel.reverse && 'reversed', channel.cut && `cut: ${channel.cut}`].filter(Boolean).join(', ')}</td>
+                    <td className="py-1 text-ink-700">
+                      {[channel.reverse && 'reversed', channel.cut && `cut: ${channel.cut}`].filter(Boolean).join(', ')}
+                    </td>
                   </tr>
                 ))}
               </tbody>
@@ -94,7 +108,8 @@ export function FieldSheet({ sheet }: { sheet: Sheet }) {
               {receiver.label && <span className="font-normal text-ink-700"> · slot {receiver.id}</span>}
             </h2>
             <p className="text-sm text-ink-700">
-              {receiver.role}, {receiver.outputs} outputs, telemetry: <strong className="font-semibold text-ink-900">{receiver.telemetry ? 'sends' : 'silent (off)'}</strong>
+              {receiver.role}, {receiver.outputs} outputs, telemetry:{' '}
+              <strong className="font-semibold text-ink-900">{receiver.telemetry ? 'sends' : 'silent (off)'}</strong>
             </p>
             <p className="mb-1 text-sm">
               {receiver.unit ? (

@@ -7,10 +7,18 @@ export function SheetPinTable({ receiver }: { receiver: SheetReceiver }) {
       <caption className="sr-only">Pins of {receiver.label ?? receiver.id}: channel, function and failsafe</caption>
       <thead className="border-b border-ply-300 text-xs text-ink-700">
         <tr>
-          <th scope="col" className="py-1 pr-2 font-medium">Pin</th>
-          <th scope="col" className="py-1 pr-2 font-medium">Ch</th>
-          <th scope="col" className="py-1 pr-2 font-medium">Function</th>
-          <th scope="col" className="py-1 font-medium">Failsafe</th>
+          <th scope="col" className="py-1 pr-2 font-medium">
+            Pin
+          </th>
+          <th scope="col" className="py-1 pr-2 font-medium">
+            Ch
+          </th>
+          <th scope="col" className="py-1 pr-2 font-medium">
+            Function
+          </th>
+          <th scope="col" className="py-1 font-medium">
+            Failsafe
+          </th>
         </tr>
       </thead>
       <tbody className="divide-y divide-ply-200">

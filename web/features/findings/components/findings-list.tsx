@@ -8,7 +8,9 @@ const SEVERITY_ORDER: Record<Severity, number> = { error: 0, warning: 1, info: 2
 
 /** Errors first, then warnings, then notes; within each, in the order of the text. */
 export function orderFindings(findings: readonly Finding[]): Finding[] {
-  return [...findings].sort((a, b) => SEVERITY_ORDER[a.severity] - SEVERITY_ORDER[b.severity] || a.line - b.line || a.column - b.column);
+  return [...findings].sort(
+    (a, b) => SEVERITY_ORDER[a.severity] - SEVERITY_ORDER[b.severity] || a.line - b.line || a.column - b.column,
+  );
 }
 
 /** Where a finding opens in the editor: its line, read by the Edit screen from `?line=`. */
@@ -24,7 +26,12 @@ export interface FindingsListProps {
   className?: string;
 }
 
-export function FindingsList({ findings, modelId, emptyText = 'The checks found nothing to change.', className }: FindingsListProps) {
+export function FindingsList({
+  findings,
+  modelId,
+  emptyText = 'The checks found nothing to change.',
+  className,
+}: FindingsListProps) {
   if (findings.length === 0) {
     return (
       <p className={cx('flex items-center gap-2 text-base text-ink-700', className)}>

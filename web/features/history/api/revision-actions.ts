@@ -31,7 +31,9 @@ export async function addTag({ revisionId, name }: { revisionId: Id; name: strin
 }
 
 export async function removeTag({ revisionId, name }: { revisionId: Id; name: string }): Promise<TagsAnswer> {
-  return (await api.delete<TagsAnswer>(`/api/revisions/${encodeURIComponent(revisionId)}/tags/${encodeURIComponent(name)}`)).data;
+  return (
+    await api.delete<TagsAnswer>(`/api/revisions/${encodeURIComponent(revisionId)}/tags/${encodeURIComponent(name)}`)
+  ).data;
 }
 
 /** A new revision or a tag changes the model's history and its hangar row. */

@@ -7,7 +7,15 @@ import { ForkFields, useForkForm } from '../../models/components/fork-fields';
 import type { RevisionSummary, SetupModelView } from '../../models/types';
 
 /** Copies one revision into a new model in a workspace the user can edit, then opens it. */
-export function ForkDialog({ model, revision, onClose }: { model: SetupModelView; revision: RevisionSummary; onClose: () => void }) {
+export function ForkDialog({
+  model,
+  revision,
+  onClose,
+}: {
+  model: SetupModelView;
+  revision: RevisionSummary;
+  onClose: () => void;
+}) {
   const navigate = useNavigate();
   const toast = useToast();
   const fork = useForkForm({
@@ -18,7 +26,11 @@ export function ForkDialog({ model, revision, onClose }: { model: SetupModelView
     },
   });
   return (
-    <Dialog title={`Fork revision ${revision.number}`} description={`A new model starts from this revision of ${model.name} and remembers where it came from.`} onClose={onClose}>
+    <Dialog
+      title={`Fork revision ${revision.number}`}
+      description={`A new model starts from this revision of ${model.name} and remembers where it came from.`}
+      onClose={onClose}
+    >
       <form noValidate onSubmit={fork.submit} className="space-y-4">
         {fork.errors.general && <FormAlert>{fork.errors.general}</FormAlert>}
         <ForkFields fork={fork} />

@@ -22,7 +22,10 @@ export function HistoryScreen() {
 
   let body: ReactNode;
   if (model.isPending) body = <LoadingState label="Loading the history…" />;
-  else if (model.isError) body = <ErrorState title="This model could not be loaded" error={model.error} onRetry={() => void model.refetch()} />;
+  else if (model.isError)
+    body = (
+      <ErrorState title="This model could not be loaded" error={model.error} onRetry={() => void model.refetch()} />
+    );
   else body = <History model={model.data} />;
 
   return (
@@ -49,14 +52,30 @@ function History({ model }: { model: SetupModelView }) {
   const editable = canEdit(model.role);
 
   if (revisions.isPending) return <LoadingState label="Loading the history…" />;
-  if (revisions.isError && !revisions.data) return <ErrorState title="The history could not be loaded" error={revisions.error} onRetry={() => void revisions.refetch()} />;
-  if (list.length === 0) return <EmptyState title="No revisions yet">The first save of this model's setup starts its history.</EmptyState>;
+  if (revisions.isError && !revisions.data)
+    return (
+      <ErrorState
+        title="The history could not be loaded"
+        error={revisions.error}
+        onRetry={() => void revisions.refetch()}
+      />
+    );
+  if (list.length === 0)
+    return <EmptyState title="No revisions yet">The first save of this model's setup starts its history.</EmptyState>;
 
-  const pickedNumbers = picked.map((id) => list.find((revision) => revision.id === id)?.number).filter((n): n is number => n !== undefined);
+  const pickedNumbers = picked
+    .map((id) => list.find((revision) => revision.id === id)?.number)
+    .filter((n): n is number => n !== undefined);
 
   return (
     <>
-      <div className={cx('sticky top-0 z-10 mb-4 flex flex-wrap items-center gap-3 rounded-lg border border-ply-200 bg-paper/95 px-4 py-2.5 backdrop-blur', CARD_INSET)} aria-live="polite">
+      <div
+        className={cx(
+          'sticky top-0 z-10 mb-4 flex flex-wrap items-center gap-3 rounded-lg border border-ply-200 bg-paper/95 px-4 py-2.5 backdrop-blur',
+          CARD_INSET,
+        )}
+        aria-live="polite"
+      >
         <p className="flex-1 text-sm text-ink-700">
           {picked.length === 0 && 'Tick two revisions to compare them.'}
           {picked.length === 1 && `Revision ${pickedNumbers[0]} picked; tick one more.`}
@@ -67,7 +86,11 @@ function History({ model }: { model: SetupModelView }) {
             Clear
           </Button>
         )}
-        <Button size="sm" disabled={!pair} onClick={() => pair && navigate(`/models/${model.id}/compare${compareSearch(pair.from, pair.to)}`)}>
+        <Button
+          size="sm"
+          disabled={!pair}
+          onClick={() => pair && navigate(`/models/${model.id}/compare${compareSearch(pair.from, pair.to)}`)}
+        >
           {pair ? `Compare r${pair.from.number} with r${pair.to.number}` : 'Compare'}
         </Button>
       </div>
@@ -82,12 +105,22 @@ function History({ model }: { model: SetupModelView }) {
       />
       {revisions.hasNextPage && (
         <div className="mt-2 flex justify-center">
-          <Button variant="secondary" pending={revisions.isFetchingNextPage} onClick={() => void revisions.fetchNextPage()}>
+          <Button
+            variant="secondary"
+            pending={revisions.isFetchingNextPage}
+            onClick={() => void revisions.fetchNextPage()}
+          >
             Show older revisions
           </Button>
         </div>
       )}
-      {revisions.isFetchNextPageError && <ErrorState title="Older revisions could not be loaded" error={revisions.error} onRetry={() => void revisions.fetchNextPage()} />}
+      {revisions.isFetchNextPageError && (
+        <ErrorState
+          title="Older revisions could not be loaded"
+          error={revisions.error}
+          onRetry={() => void revisions.fetchNextPage()}
+        />
+      )}
       {reverting && <RevertDialog model={model} revision={reverting} onClose={() => setReverting(null)} />}
       {forking && <ForkDialog model={model} revision={forking} onClose={() => setForking(null)} />}
     </>

@@ -9,7 +9,15 @@ import type { RevisionSummary, SetupModelView } from '../../models/types';
 import { useRevert } from '../api/revision-actions';
 
 /** Asks for a message, then makes a new revision equal to `revision` on top of the latest. */
-export function RevertDialog({ model, revision, onClose }: { model: SetupModelView; revision: RevisionSummary; onClose: () => void }) {
+export function RevertDialog({
+  model,
+  revision,
+  onClose,
+}: {
+  model: SetupModelView;
+  revision: RevisionSummary;
+  onClose: () => void;
+}) {
   const revert = useRevert(model);
   const toast = useToast();
   const [message, setMessage] = useState(`Revert to revision ${revision.number}`);
@@ -23,13 +31,18 @@ export function RevertDialog({ model, revision, onClose }: { model: SetupModelVi
       { modelId: model.id, number: revision.number, base: latest, message: message.trim() || undefined },
       {
         onSuccess: (created) => {
-          toast({ title: `Revision ${created.number} saved`, description: `It has the content of revision ${revision.number}.` });
+          toast({
+            title: `Revision ${created.number} saved`,
+            description: `It has the content of revision ${revision.number}.`,
+          });
           onClose();
         },
         onError: (failure) => {
           if (isApiError(failure) && failure.code === 'stale-base') {
             const now = (failure.details as { latest?: number } | null)?.latest;
-            setError(`Someone saved revision ${now ?? 'a newer one'} meanwhile. The history is up to date now; look at it and revert again if you still want to.`);
+            setError(
+              `Someone saved revision ${now ?? 'a newer one'} meanwhile. The history is up to date now; look at it and revert again if you still want to.`,
+            );
           } else setError(failure instanceof Error ? failure.message : 'The revert failed.');
         },
       },
@@ -44,7 +57,13 @@ export function RevertDialog({ model, revision, onClose }: { model: SetupModelVi
     >
       <form noValidate onSubmit={submit} className="space-y-4">
         {error && <FormAlert>{error}</FormAlert>}
-        <TextAreaField label="Message" value={message} onChange={(event) => setMessage(event.target.value)} maxLength={2000} data-autofocus />
+        <TextAreaField
+          label="Message"
+          value={message}
+          onChange={(event) => setMessage(event.target.value)}
+          maxLength={2000}
+          data-autofocus
+        />
         <div className="flex justify-end gap-2">
           <Button variant="secondary" onClick={onClose}>
             Cancel

@@ -32,7 +32,15 @@ export interface RevisionTimelineProps {
  */
 export const CARD_INSET = 'ml-[calc(2.25rem+2px)]';
 
-export function RevisionTimeline({ model, revisions, picked, onPick, editable, onRevert, onFork }: RevisionTimelineProps) {
+export function RevisionTimeline({
+  model,
+  revisions,
+  picked,
+  onPick,
+  editable,
+  onRevert,
+  onFork,
+}: RevisionTimelineProps) {
   const latest = model.latest?.number;
   const byId = new Map(revisions.map((revision) => [revision.id, revision]));
   return (
@@ -47,22 +55,39 @@ export function RevisionTimeline({ model, revisions, picked, onPick, editable, o
               aria-hidden="true"
               className={cx(
                 'absolute top-4 -left-[9px] h-4 w-4 rounded-full border-2',
-                isPicked ? 'border-accent-700 bg-accent-700' : revision.number === latest ? 'border-accent-700 bg-paper-raised' : 'border-ply-500 bg-paper',
+                isPicked
+                  ? 'border-accent-700 bg-accent-700'
+                  : revision.number === latest
+                    ? 'border-accent-700 bg-paper-raised'
+                    : 'border-ply-500 bg-paper',
               )}
             />
             <article
               aria-labelledby={`rev-${revision.id}`}
-              className={cx('rounded-lg border bg-paper-raised px-4 py-3 shadow-card', isPicked ? 'border-accent-700 ring-2 ring-accent-600/30' : 'border-ply-200')}
+              className={cx(
+                'rounded-lg border bg-paper-raised px-4 py-3 shadow-card',
+                isPicked ? 'border-accent-700 ring-2 ring-accent-600/30' : 'border-ply-200',
+              )}
             >
               <div className="flex flex-wrap items-start gap-x-3 gap-y-2">
                 <label className="flex shrink-0 cursor-pointer items-center gap-2 pt-0.5">
-                  <input type="checkbox" checked={isPicked} onChange={() => onPick(revision.id)} className="h-4 w-4 accent-accent-700" />
+                  <input
+                    type="checkbox"
+                    checked={isPicked}
+                    onChange={() => onPick(revision.id)}
+                    className="h-4 w-4 accent-accent-700"
+                  />
                   <span className="sr-only">Pick revision {revision.number} to compare</span>
                 </label>
                 <div className="min-w-0 flex-1">
-                  <h3 id={`rev-${revision.id}`} className="flex flex-wrap items-baseline gap-x-2 text-base text-ink-900">
+                  <h3
+                    id={`rev-${revision.id}`}
+                    className="flex flex-wrap items-baseline gap-x-2 text-base text-ink-900"
+                  >
                     <span className="font-mono font-semibold">r{revision.number}</span>
-                    <span className="font-medium break-words">{revision.message || <span className="font-normal text-ink-500">no message</span>}</span>
+                    <span className="font-medium break-words">
+                      {revision.message || <span className="font-normal text-ink-500">no message</span>}
+                    </span>
                     {revision.number === latest && <span className="text-sm font-normal text-accent-700">latest</span>}
                   </h3>
                   <p className="mt-0.5 text-sm text-ink-700">
@@ -79,7 +104,10 @@ export function RevisionTimeline({ model, revisions, picked, onPick, editable, o
                 </div>
                 <div className="flex w-full flex-wrap gap-1.5 pl-7 lg:w-auto lg:justify-end lg:pl-0">
                   {previous && (
-                    <Link to={`/models/${model.id}/compare${compareSearch(previous, revision)}`} className={buttonClasses('quiet', 'sm')}>
+                    <Link
+                      to={`/models/${model.id}/compare${compareSearch(previous, revision)}`}
+                      className={buttonClasses('quiet', 'sm')}
+                    >
                       Changes since r{previous.number}
                     </Link>
                   )}

@@ -14,7 +14,10 @@ export function TagList({ tags }: { tags: string[] }) {
   return (
     <ul className="flex flex-wrap gap-1" aria-label="Tags">
       {tags.map((tag) => (
-        <li key={tag} className="rounded-full border border-accent-700/30 bg-accent-50 px-2 py-0.5 font-mono text-xs text-accent-800">
+        <li
+          key={tag}
+          className="rounded-full border border-accent-700/30 bg-accent-50 px-2 py-0.5 font-mono text-xs text-accent-800"
+        >
           {tag}
         </li>
       ))}
@@ -35,7 +38,8 @@ export function TagEditor({ model, revision }: { model: SetupModelView; revision
   function submit(event: FormEvent) {
     event.preventDefault();
     const tag = name.trim();
-    if (!TAG_PATTERN.test(tag)) return setError('A tag is lower-case letters, digits and dashes, like season-2026 or maiden.');
+    if (!TAG_PATTERN.test(tag))
+      return setError('A tag is lower-case letters, digits and dashes, like season-2026 or maiden.');
     setError(null);
     add.mutate(
       { revisionId: revision.id, name: tag },
@@ -52,7 +56,10 @@ export function TagEditor({ model, revision }: { model: SetupModelView; revision
   return (
     <div className="flex flex-wrap items-center gap-1">
       {revision.tags.map((tag) => (
-        <span key={tag} className="inline-flex items-center gap-0.5 rounded-full border border-accent-700/30 bg-accent-50 py-0.5 pr-0.5 pl-2 font-mono text-xs text-accent-800">
+        <span
+          key={tag}
+          className="inline-flex items-center gap-0.5 rounded-full border border-accent-700/30 bg-accent-50 py-0.5 pr-0.5 pl-2 font-mono text-xs text-accent-800"
+        >
           {tag}
           <button
             type="button"
@@ -61,7 +68,10 @@ export function TagEditor({ model, revision }: { model: SetupModelView; revision
             onClick={() =>
               remove.mutate(
                 { revisionId: revision.id, name: tag },
-                { onError: (failure) => toast({ tone: 'error', title: `Tag ${tag} could not be removed`, description: failure.message }) },
+                {
+                  onError: (failure) =>
+                    toast({ tone: 'error', title: `Tag ${tag} could not be removed`, description: failure.message }),
+                },
               )
             }
             className="rounded-full p-0.5 hover:bg-accent-100"
@@ -100,7 +110,12 @@ export function TagEditor({ model, revision }: { model: SetupModelView; revision
           )}
         </form>
       ) : (
-        <Button size="sm" variant="quiet" onClick={() => setAdding(true)} aria-label={`Add a tag to revision ${revision.number}`}>
+        <Button
+          size="sm"
+          variant="quiet"
+          onClick={() => setAdding(true)}
+          aria-label={`Add a tag to revision ${revision.number}`}
+        >
           + Tag
         </Button>
       )}

@@ -43,7 +43,13 @@ export interface ForkModelInput {
   message?: string;
 }
 
-export async function forkModel({ modelId, number, workspaceId, name, message }: ForkModelInput): Promise<CreatedModel> {
+export async function forkModel({
+  modelId,
+  number,
+  workspaceId,
+  name,
+  message,
+}: ForkModelInput): Promise<CreatedModel> {
   const body = { number, workspace: workspaceId, ...(name ? { name } : {}), ...(message ? { message } : {}) };
   return (await api.post<CreatedModel>(`/api/models/${encodeURIComponent(modelId)}/fork`, body)).data;
 }
@@ -51,7 +57,8 @@ export async function forkModel({ modelId, number, workspaceId, name, message }:
 /** After a new model exists, the hangar it went into is out of date. */
 function useRefreshHangar() {
   const queryClient = useQueryClient();
-  return (created: CreatedModel) => queryClient.invalidateQueries({ queryKey: hangarQueryKey(created.model.workspace_id) });
+  return (created: CreatedModel) =>
+    queryClient.invalidateQueries({ queryKey: hangarQueryKey(created.model.workspace_id) });
 }
 
 export function useCreateModel() {

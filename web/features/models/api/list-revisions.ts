@@ -17,7 +17,10 @@ export async function listRevisions(
 ): Promise<RevisionsPage> {
   const params = new URLSearchParams({ limit: String(limit) });
   if (before !== undefined) params.set('before', String(before));
-  const { data, pagination } = await api.get<RevisionSummary[]>(`/api/models/${encodeURIComponent(modelId)}/revisions?${params}`, signal);
+  const { data, pagination } = await api.get<RevisionSummary[]>(
+    `/api/models/${encodeURIComponent(modelId)}/revisions?${params}`,
+    signal,
+  );
   const next = pagination?.next_before;
   return { revisions: data, nextBefore: typeof next === 'number' ? next : null };
 }

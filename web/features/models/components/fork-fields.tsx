@@ -41,7 +41,7 @@ export function useForkForm({ target, source, onForked }: ForkFormOptions) {
   const [attempt, setAttempt] = useState(0);
 
   const hangar = useHangar(source ? null : sourceWorkspaceId);
-  const sourceModel = source ? null : hangar.data?.models.find((model) => model.id === sourceModelId) ?? null;
+  const sourceModel = source ? null : (hangar.data?.models.find((model) => model.id === sourceModelId) ?? null);
   const sourceName = source?.modelName ?? sourceModel?.name ?? '';
   // Until a revision is picked, the fork copies the source's latest.
   const chosenNumber = number ?? sourceModel?.latest?.number ?? null;
@@ -103,7 +103,12 @@ export function ForkFields({ fork, chooseSource = false }: { fork: ForkForm; cho
     <>
       {chooseSource && (
         <>
-          <SelectField label="From workspace" value={fork.sourceWorkspaceId} onChange={(event) => fork.setSourceWorkspaceId(event.target.value)} data-autofocus>
+          <SelectField
+            label="From workspace"
+            value={fork.sourceWorkspaceId}
+            onChange={(event) => fork.setSourceWorkspaceId(event.target.value)}
+            data-autofocus
+          >
             {fork.workspaces.map((ws) => (
               <option key={ws.id} value={ws.id}>
                 {ws.name}
@@ -118,7 +123,13 @@ export function ForkFields({ fork, chooseSource = false }: { fork: ForkForm; cho
             disabled={fork.hangar.isPending}
           >
             <option value="">
-              {fork.hangar.isPending ? 'Loading models…' : fork.hangar.isError ? 'The models could not be loaded' : fork.hangar.data?.models.length ? 'Choose a model' : 'No models in this workspace'}
+              {fork.hangar.isPending
+                ? 'Loading models…'
+                : fork.hangar.isError
+                  ? 'The models could not be loaded'
+                  : fork.hangar.data?.models.length
+                    ? 'Choose a model'
+                    : 'No models in this workspace'}
             </option>
             {fork.hangar.data?.models.map((model) => (
               <option key={model.id} value={model.id}>
@@ -148,7 +159,9 @@ export function ForkFields({ fork, chooseSource = false }: { fork: ForkForm; cho
       )}
       <TextField
         label="Name of the new model (optional)"
-        hint={fork.sourceName ? `Left empty: “${fork.sourceName} (fork)”.` : 'Left empty: the source’s name with “(fork)”.'}
+        hint={
+          fork.sourceName ? `Left empty: “${fork.sourceName} (fork)”.` : 'Left empty: the source’s name with “(fork)”.'
+        }
         value={fork.name}
         onChange={(event) => fork.setName(event.target.value)}
         error={errors.fields.name}
@@ -170,7 +183,9 @@ function RevisionChoice({ fork }: { fork: ForkForm }) {
       error={fork.errors.fields.number}
       disabled={revisions.isPending}
     >
-      {list.length === 0 && <option value="">{revisions.isPending ? 'Loading revisions…' : 'No revisions could be loaded'}</option>}
+      {list.length === 0 && (
+        <option value="">{revisions.isPending ? 'Loading revisions…' : 'No revisions could be loaded'}</option>
+      )}
       {list.map((revision) => (
         <option key={revision.id} value={revision.number}>
           r{revision.number}

@@ -30,7 +30,10 @@ export function HangarScreen() {
   const query = params.get('q') ?? '';
   const sort = sortFrom(params);
 
-  const shown = useMemo(() => sortModels(searchModels(hangar.data?.models ?? [], query), sort), [hangar.data, query, sort.column, sort.direction]);
+  const shown = useMemo(
+    () => sortModels(searchModels(hangar.data?.models ?? [], query), sort),
+    [hangar.data, query, sort.column, sort.direction],
+  );
 
   if (!inUrl) return null;
   const editor = canEdit(inUrl.role);
@@ -38,7 +41,9 @@ export function HangarScreen() {
   const newModel = editor ? (
     <Button onClick={() => setCreating(true)}>New model</Button>
   ) : (
-    <p className="max-w-xs text-sm text-ink-700">Your role here is {inUrl.role}: you can read the models; owners and editors add them.</p>
+    <p className="max-w-xs text-sm text-ink-700">
+      Your role here is {inUrl.role}: you can read the models; owners and editors add them.
+    </p>
   );
 
   return (
@@ -54,7 +59,10 @@ export function HangarScreen() {
       ) : hangar.isError ? (
         <ErrorState title="The hangar could not be loaded" error={hangar.error} onRetry={() => void hangar.refetch()} />
       ) : hangar.data.models.length === 0 ? (
-        <EmptyState title="No models in this hangar yet" action={editor ? <Button onClick={() => setCreating(true)}>Add the first model</Button> : undefined}>
+        <EmptyState
+          title="No models in this hangar yet"
+          action={editor ? <Button onClick={() => setCreating(true)}>Add the first model</Button> : undefined}
+        >
           {editor
             ? 'Start from a blank setup, bring in a .yaml file, or fork a proven layout from another model.'
             : 'When an owner or editor adds a model, it appears here with its checks and review state.'}
@@ -71,7 +79,9 @@ export function HangarScreen() {
               className="w-full max-w-sm"
             />
             <p className="pb-2 text-sm text-ink-700" aria-live="polite">
-              {query ? `${shown.length} of ${hangar.data.models.length} models` : `${hangar.data.models.length} ${hangar.data.models.length === 1 ? 'model' : 'models'}`}
+              {query
+                ? `${shown.length} of ${hangar.data.models.length} models`
+                : `${hangar.data.models.length} ${hangar.data.models.length === 1 ? 'model' : 'models'}`}
             </p>
           </div>
           {shown.length === 0 ? (

@@ -40,15 +40,27 @@ export function HangarTable({ models, sort, onSort }: HangarTableProps) {
             {COLUMNS.map(({ column, label, className }) => {
               const active = sort.column === column;
               return (
-                <th key={column} scope="col" aria-sort={active ? sort.direction : undefined} className={cx('px-3 py-2 font-medium', className)}>
+                <th
+                  key={column}
+                  scope="col"
+                  aria-sort={active ? sort.direction : undefined}
+                  className={cx('px-3 py-2 font-medium', className)}
+                >
                   <button
                     type="button"
                     onClick={() => toggle(column)}
-                    className={cx('inline-flex items-center gap-1 rounded-sm py-1 whitespace-nowrap hover:text-ink-900', active && 'text-ink-900')}
+                    className={cx(
+                      'inline-flex items-center gap-1 rounded-sm py-1 whitespace-nowrap hover:text-ink-900',
+                      active && 'text-ink-900',
+                    )}
                   >
                     {label}
                     <ChevronDownIcon
-                      className={cx('transition-transform', active ? 'opacity-100' : 'opacity-30', active && sort.direction === 'ascending' && 'rotate-180')}
+                      className={cx(
+                        'transition-transform',
+                        active ? 'opacity-100' : 'opacity-30',
+                        active && sort.direction === 'ascending' && 'rotate-180',
+                      )}
                     />
                   </button>
                 </th>
@@ -70,9 +82,15 @@ export function HangarTable({ models, sort, onSort }: HangarTableProps) {
                 )}
               </td>
               <td className="px-3 py-3 text-ink-700 capitalize">{model.airframe ?? '—'}</td>
-              <td className="px-3 py-3 text-right font-mono text-sm text-ink-900">{model.latest ? `r${model.latest.number}` : '—'}</td>
+              <td className="px-3 py-3 text-right font-mono text-sm text-ink-900">
+                {model.latest ? `r${model.latest.number}` : '—'}
+              </td>
               <td className="px-3 py-3">
-                {model.latest ? <CheckBadges errors={model.latest.error_count} warnings={model.latest.warning_count} /> : '—'}
+                {model.latest ? (
+                  <CheckBadges errors={model.latest.error_count} warnings={model.latest.warning_count} />
+                ) : (
+                  '—'
+                )}
               </td>
               <td className="px-3 py-3">
                 <ReviewStateBadge state={model.review_state} />

@@ -21,7 +21,11 @@ type Mode = 'blank' | 'file' | 'fork';
 const MODES: { mode: Mode; label: string; description: string }[] = [
   { mode: 'blank', label: 'Blank', description: 'A starter setup to edit: one receiver, the four main channels.' },
   { mode: 'file', label: 'From a file', description: 'A .yaml or .yml setup document from your computer.' },
-  { mode: 'fork', label: 'Fork', description: 'A copy of another model’s revision; the new model remembers where it came from.' },
+  {
+    mode: 'fork',
+    label: 'Fork',
+    description: 'A copy of another model’s revision; the new model remembers where it came from.',
+  },
 ];
 
 // The server's limit on an upload (api/middleware/setup-upload.ts); checked here first
@@ -37,7 +41,11 @@ export function NewModelDialog({ workspace, onClose }: { workspace: WorkspaceMem
         <legend id={legendId} className="text-sm font-medium text-ink-900">
           Start from
         </legend>
-        <div role="radiogroup" aria-labelledby={legendId} className="mt-1.5 grid grid-cols-3 gap-1 rounded-md border border-ply-300 bg-paper p-1">
+        <div
+          role="radiogroup"
+          aria-labelledby={legendId}
+          className="mt-1.5 grid grid-cols-3 gap-1 rounded-md border border-ply-300 bg-paper p-1"
+        >
           {MODES.map((option) => (
             <label
               key={option.mode}
@@ -46,7 +54,14 @@ export function NewModelDialog({ workspace, onClose }: { workspace: WorkspaceMem
                 mode === option.mode ? 'bg-paper-raised text-ink-900 shadow-card' : 'text-ink-700 hover:text-ink-900',
               )}
             >
-              <input type="radio" name="new-model-mode" value={option.mode} checked={mode === option.mode} onChange={() => setMode(option.mode)} className="sr-only" />
+              <input
+                type="radio"
+                name="new-model-mode"
+                value={option.mode}
+                checked={mode === option.mode}
+                onChange={() => setMode(option.mode)}
+                className="sr-only"
+              />
               {option.label}
             </label>
           ))}
@@ -85,7 +100,17 @@ function Actions({ onClose, pending, submit }: { onClose: () => void; pending: b
   );
 }
 
-function FormShell({ onSubmit, errors, attempt, children }: { onSubmit: (event: FormEvent) => void; errors: FormErrors; attempt: number; children: ReactNode }) {
+function FormShell({
+  onSubmit,
+  errors,
+  attempt,
+  children,
+}: {
+  onSubmit: (event: FormEvent) => void;
+  errors: FormErrors;
+  attempt: number;
+  children: ReactNode;
+}) {
   const form = useRef<HTMLFormElement>(null);
   useFocusFirstInvalid(form, attempt);
   return (
@@ -110,13 +135,24 @@ function BlankForm({ workspace, onClose }: { workspace: WorkspaceMembership; onC
     setErrors(noFormErrors);
     create.mutate(
       { workspaceId: workspace.id, name: name.trim() },
-      { onSuccess: (created) => open(created, 'Revision 1 is the starter setup.'), onError: (error) => setErrors(formErrorsFrom(error, ['name'])) },
+      {
+        onSuccess: (created) => open(created, 'Revision 1 is the starter setup.'),
+        onError: (error) => setErrors(formErrorsFrom(error, ['name'])),
+      },
     );
   }
 
   return (
     <FormShell onSubmit={submit} errors={errors} attempt={attempt}>
-      <TextField label="Name" value={name} onChange={(event) => setName(event.target.value)} error={errors.fields.name} maxLength={80} autoComplete="off" data-autofocus />
+      <TextField
+        label="Name"
+        value={name}
+        onChange={(event) => setName(event.target.value)}
+        error={errors.fields.name}
+        maxLength={80}
+        autoComplete="off"
+        data-autofocus
+      />
       <Actions onClose={onClose} pending={create.isPending} submit="Create model" />
     </FormShell>
   );
@@ -137,7 +173,11 @@ function FileForm({ workspace, onClose }: { workspace: WorkspaceMembership; onCl
     setAttempt((n) => n + 1);
     setFindings([]);
     if (!file) return setErrors({ fields: { file: 'Choose a .yaml or .yml file.' }, general: null });
-    if (file.size > MAX_FILE_BYTES) return setErrors({ fields: { file: 'The file is larger than 512 KB; a setup is normally a few kilobytes.' }, general: null });
+    if (file.size > MAX_FILE_BYTES)
+      return setErrors({
+        fields: { file: 'The file is larger than 512 KB; a setup is normally a few kilobytes.' },
+        general: null,
+      });
     setErrors(noFormErrors);
     upload.mutate(
       { workspaceId: workspace.id, file, name: name.trim() || undefined },
@@ -191,7 +231,10 @@ function FileForm({ workspace, onClose }: { workspace: WorkspaceMembership; onCl
 
 function ForkForm({ workspace, onClose }: { workspace: WorkspaceMembership; onClose: () => void }) {
   const open = useOpenCreated();
-  const fork = useForkForm({ target: workspace, onForked: (created, source) => open(created, `Revision 1 is a copy of ${source}.`) });
+  const fork = useForkForm({
+    target: workspace,
+    onForked: (created, source) => open(created, `Revision 1 is a copy of ${source}.`),
+  });
   return (
     <FormShell onSubmit={fork.submit} errors={fork.errors} attempt={fork.attempt}>
       <ForkFields fork={fork} chooseSource />

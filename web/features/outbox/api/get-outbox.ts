@@ -14,7 +14,12 @@ export async function getOutbox(signal?: AbortSignal): Promise<OutboxPage> {
 
 export function outboxQueryOptions() {
   // Mail arrives while the screen is open (someone invites, a review is asked for).
-  return queryOptions({ queryKey: ['outbox'], queryFn: ({ signal }) => getOutbox(signal), staleTime: 0, refetchInterval: 10_000 });
+  return queryOptions({
+    queryKey: ['outbox'],
+    queryFn: ({ signal }) => getOutbox(signal),
+    staleTime: 0,
+    refetchInterval: 10_000,
+  });
 }
 
 export function useOutbox() {

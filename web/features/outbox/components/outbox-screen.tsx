@@ -13,7 +13,8 @@ import { useOutbox } from '../api/get-outbox';
 import type { OutboxMessage } from '../types';
 import { LinkedText } from './linked-text';
 
-const DESCRIPTION = 'The mail Bindery sent while it runs with its own local mail server: invitations, password resets, review requests and verdicts. Newest first.';
+const DESCRIPTION =
+  'The mail Bindery sent while it runs with its own local mail server: invitations, password resets, review requests and verdicts. Newest first.';
 
 export function OutboxScreen() {
   const outbox = useOutbox();
@@ -25,14 +26,18 @@ export function OutboxScreen() {
     body =
       isApiError(outbox.error) && outbox.error.status === 404 ? (
         <EmptyState title="No outbox on this server">
-          This Bindery sends mail through a real mail server (SMTP_HOST is set), so there is no local catch to show. The Outbox is there in
-          development and in the demo.
+          This Bindery sends mail through a real mail server (SMTP_HOST is set), so there is no local catch to show. The
+          Outbox is there in development and in the demo.
         </EmptyState>
       ) : (
         <ErrorState title="The outbox could not be loaded" error={outbox.error} onRetry={() => void outbox.refetch()} />
       );
   } else if (outbox.data.messages.length === 0) {
-    body = <EmptyState title="No mail yet">Invite someone on the Team screen, ask for a password reset or request a review: the mail shows up here.</EmptyState>;
+    body = (
+      <EmptyState title="No mail yet">
+        Invite someone on the Team screen, ask for a password reset or request a review: the mail shows up here.
+      </EmptyState>
+    );
   } else {
     const selected = outbox.data.messages.find((message) => message.id === openId) ?? outbox.data.messages[0];
     body = (
@@ -45,7 +50,10 @@ export function OutboxScreen() {
                   type="button"
                   onClick={() => setOpenId(message.id)}
                   aria-current={message.id === selected.id ? 'true' : undefined}
-                  className={cx('block w-full px-4 py-3 text-left hover:bg-ply-100', message.id === selected.id && 'border-l-[3px] border-accent-700 bg-accent-50')}
+                  className={cx(
+                    'block w-full px-4 py-3 text-left hover:bg-ply-100',
+                    message.id === selected.id && 'border-l-[3px] border-accent-700 bg-accent-50',
+                  )}
                 >
                   <span className="block truncate font-medium text-ink-900">{message.subject || '(no subject)'}</span>
                   <span className="mt-0.5 flex items-baseline justify-between gap-2 text-sm text-ink-700">
@@ -57,7 +65,9 @@ export function OutboxScreen() {
             ))}
           </ul>
           {outbox.data.total > outbox.data.messages.length && (
-            <p className="border-t border-ply-200 px-4 py-2 text-sm text-ink-700">The newest {outbox.data.messages.length} of {outbox.data.total}.</p>
+            <p className="border-t border-ply-200 px-4 py-2 text-sm text-ink-700">
+              The newest {outbox.data.messages.length} of {outbox.data.total}.
+            </p>
           )}
         </Card>
         <MessageView message={selected} />
@@ -71,7 +81,12 @@ export function OutboxScreen() {
         title="Outbox"
         description={DESCRIPTION}
         actions={
-          <Button variant="secondary" size="sm" pending={outbox.isFetching && !outbox.isPending} onClick={() => void outbox.refetch()}>
+          <Button
+            variant="secondary"
+            size="sm"
+            pending={outbox.isFetching && !outbox.isPending}
+            onClick={() => void outbox.refetch()}
+          >
             Check for new mail
           </Button>
         }
@@ -102,7 +117,9 @@ function MessageView({ message }: { message: OutboxMessage }) {
       </dl>
       {message.links.length > 0 && (
         <div className="mt-4 rounded-md border border-accent-700/30 bg-accent-50 px-3 py-2">
-          <p className="text-sm font-medium text-ink-900">{message.links.length === 1 ? 'Link in this mail' : 'Links in this mail'}</p>
+          <p className="text-sm font-medium text-ink-900">
+            {message.links.length === 1 ? 'Link in this mail' : 'Links in this mail'}
+          </p>
           <ul className="mt-1 space-y-1">
             {message.links.map((link) => (
               <li key={link}>

@@ -6,7 +6,8 @@ import { failsafeText, type ChannelPlan, type PlanReceiver, type PlanRow } from 
 import { MarkBadge } from './mark-badge';
 import { TelemetryIcon } from './mark-icons';
 
-export const receiverName = (receiver: Pick<PlanReceiver, 'id' | 'label'>) => receiver.label ?? `Receiver ${receiver.id}`;
+export const receiverName = (receiver: Pick<PlanReceiver, 'id' | 'label'>) =>
+  receiver.label ?? `Receiver ${receiver.id}`;
 
 export function TelemetryBadge({ receiver }: { receiver: PlanReceiver }) {
   return receiver.telemetry ? (
@@ -56,7 +57,10 @@ export function ChannelGrid({ plan }: { plan: ChannelPlan }) {
             <Fragment key={row.ch}>
               {linkChannels !== null && row.ch === linkChannels + 1 && (
                 <tr>
-                  <td colSpan={columns} className="border-y-2 border-dashed border-ply-500 bg-ply-100 px-3 py-1.5 text-sm font-medium text-ink-700">
+                  <td
+                    colSpan={columns}
+                    className="border-y-2 border-dashed border-ply-500 bg-ply-100 px-3 py-1.5 text-sm font-medium text-ink-700"
+                  >
                     Beyond the link: it carries {linkChannels} channels, so nothing below reaches a receiver
                   </td>
                 </tr>
@@ -71,7 +75,11 @@ export function ChannelGrid({ plan }: { plan: ChannelPlan }) {
 }
 
 function ChannelRow({ row, receivers }: { row: PlanRow; receivers: PlanReceiver[] }) {
-  const worst = row.marks.some((mark) => mark.finding.severity === 'error') ? 'error' : row.marks.length > 0 ? 'warning' : null;
+  const worst = row.marks.some((mark) => mark.finding.severity === 'error')
+    ? 'error'
+    : row.marks.length > 0
+      ? 'warning'
+      : null;
   return (
     <tr
       className={cx(
@@ -121,7 +129,10 @@ function ChannelRow({ row, receivers }: { row: PlanRow; receivers: PlanReceiver[
             ) : (
               <ul className="flex flex-wrap gap-1">
                 {pins.map((pin) => (
-                  <li key={pin.pin} className="rounded-sm border border-accent-700/30 bg-accent-50 px-1.5 py-0.5 text-sm text-ink-900">
+                  <li
+                    key={pin.pin}
+                    className="rounded-sm border border-accent-700/30 bg-accent-50 px-1.5 py-0.5 text-sm text-ink-900"
+                  >
                     <span className="font-medium">Pin {pin.pin}</span>
                     <span className="ml-1 text-xs text-ink-700">failsafe {failsafeText(pin.failsafe)}</span>
                   </li>

@@ -28,10 +28,26 @@ export function OverviewScreen() {
   const title = model.data ? `Overview · ${model.data.name}` : 'Overview';
 
   let body: ReactNode;
-  if (model.isPending || (model.data?.latest && revision.isPending)) body = <LoadingState label="Loading the channel plan…" />;
-  else if (model.isError) body = <ErrorState title="This model could not be loaded" error={model.error} onRetry={() => void model.refetch()} />;
-  else if (revision.isError) body = <ErrorState title="The latest revision could not be loaded" error={revision.error} onRetry={() => void revision.refetch()} />;
-  else if (!revision.data) body = <EmptyState title="This model has no revision yet">Save a setup in the editor to see its channel plan here.</EmptyState>;
+  if (model.isPending || (model.data?.latest && revision.isPending))
+    body = <LoadingState label="Loading the channel plan…" />;
+  else if (model.isError)
+    body = (
+      <ErrorState title="This model could not be loaded" error={model.error} onRetry={() => void model.refetch()} />
+    );
+  else if (revision.isError)
+    body = (
+      <ErrorState
+        title="The latest revision could not be loaded"
+        error={revision.error}
+        onRetry={() => void revision.refetch()}
+      />
+    );
+  else if (!revision.data)
+    body = (
+      <EmptyState title="This model has no revision yet">
+        Save a setup in the editor to see its channel plan here.
+      </EmptyState>
+    );
   else body = <Overview model={model.data} revision={revision.data} />;
 
   return (
@@ -68,11 +84,15 @@ function Overview({ model, revision }: { model: SetupModelView; revision: Revisi
             Channel plan
           </h2>
           <p className="text-sm text-ink-700">
-            {plan.linkChannels === null ? 'The setup does not say how many channels the link carries.' : `The link carries ${plan.linkChannels} channels.`}
+            {plan.linkChannels === null
+              ? 'The setup does not say how many channels the link carries.'
+              : `The link carries ${plan.linkChannels} channels.`}
           </p>
         </div>
         {plan.rows.length === 0 ? (
-          <EmptyState title="No channel plan to draw">This revision names no channels or receiver pins the overview can read.</EmptyState>
+          <EmptyState title="No channel plan to draw">
+            This revision names no channels or receiver pins the overview can read.
+          </EmptyState>
         ) : (
           <>
             <ChannelGrid plan={plan} />
@@ -139,7 +159,17 @@ function Fact({ label, children }: { label: string; children: ReactNode }) {
   );
 }
 
-function Summary({ model, revision, linkChannels, receivers }: { model: SetupModelView; revision: Revision; linkChannels: number | null; receivers: number }) {
+function Summary({
+  model,
+  revision,
+  linkChannels,
+  receivers,
+}: {
+  model: SetupModelView;
+  revision: Revision;
+  linkChannels: number | null;
+  receivers: number;
+}) {
   const source = model.forked_from;
   return (
     <Card className="px-5 py-4">
@@ -170,7 +200,9 @@ function Summary({ model, revision, linkChannels, receivers }: { model: SetupMod
           </span>
         </Fact>
       </dl>
-      {revision.message && <p className="mt-4 border-t border-ply-100 pt-3 text-sm text-ink-700">“{revision.message}”</p>}
+      {revision.message && (
+        <p className="mt-4 border-t border-ply-100 pt-3 text-sm text-ink-700">“{revision.message}”</p>
+      )}
       {source && (
         <p className="mt-3 border-t border-ply-100 pt-3 text-sm text-ink-700">
           Forked from{' '}
@@ -184,7 +216,9 @@ function Summary({ model, revision, linkChannels, receivers }: { model: SetupMod
           {source.readable && model.latest && (
             <>
               {' · '}
-              <Link to={`/models/${model.id}/compare?from=${source.revision_id}&to=${model.latest.id}`}>Compare with the source</Link>
+              <Link to={`/models/${model.id}/compare?from=${source.revision_id}&to=${model.latest.id}`}>
+                Compare with the source
+              </Link>
             </>
           )}
         </p>

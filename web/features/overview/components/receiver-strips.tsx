@@ -9,7 +9,12 @@ export function ReceiverStrips({ plan }: { plan: ChannelPlan }) {
   return (
     <div className="grid gap-4 lg:grid-cols-2">
       {plan.receivers.map((receiver) => (
-        <ReceiverStrip key={receiver.id} receiver={receiver} functionsOf={functionsOf} linkChannels={plan.linkChannels} />
+        <ReceiverStrip
+          key={receiver.id}
+          receiver={receiver}
+          functionsOf={functionsOf}
+          linkChannels={plan.linkChannels}
+        />
       ))}
     </div>
   );
@@ -47,7 +52,9 @@ function ReceiverStrip({
               key={pin}
               className={cx(
                 'min-w-0 rounded-sm border px-1.5 py-1 text-xs',
-                entries.length === 0 ? 'border-dashed border-ply-300 text-ink-500' : 'border-ply-300 bg-paper text-ink-900',
+                entries.length === 0
+                  ? 'border-dashed border-ply-300 text-ink-500'
+                  : 'border-ply-300 bg-paper text-ink-900',
                 beyondOutputs && 'border-danger-700 bg-danger-100',
               )}
             >
@@ -58,7 +65,9 @@ function ReceiverStrip({
                 return (
                   <span key={index} className="block">
                     <span className="block font-mono">ch {entry.ch}</span>
-                    {linkChannels !== null && entry.ch > linkChannels && <span className="block font-medium text-danger-700">beyond link</span>}
+                    {linkChannels !== null && entry.ch > linkChannels && (
+                      <span className="block font-medium text-danger-700">beyond link</span>
+                    )}
                     <span className="block truncate" title={names.join(', ')}>
                       {names.length > 0 ? names.join(', ') : 'no function'}
                     </span>

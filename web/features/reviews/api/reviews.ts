@@ -8,7 +8,9 @@ export const workspaceReviewsQueryKey = (workspaceId: Id) => ['workspaces', work
 export const modelReviewsQueryKey = (modelId: Id) => ['models', modelId, 'reviews'] as const;
 
 export async function listWorkspaceReviews(workspaceId: Id, signal?: AbortSignal): Promise<ReviewSummary[]> {
-  return (await api.get<ReviewSummary[]>(`/api/workspaces/${encodeURIComponent(workspaceId)}/reviews?limit=200`, signal)).data;
+  return (
+    await api.get<ReviewSummary[]>(`/api/workspaces/${encodeURIComponent(workspaceId)}/reviews?limit=200`, signal)
+  ).data;
 }
 
 export async function listModelReviews(modelId: Id, signal?: AbortSignal): Promise<ReviewSummary[]> {
@@ -20,11 +22,17 @@ export async function getReview(reviewId: Id, signal?: AbortSignal): Promise<Rev
 }
 
 export function workspaceReviewsQueryOptions(workspaceId: Id) {
-  return queryOptions({ queryKey: workspaceReviewsQueryKey(workspaceId), queryFn: ({ signal }) => listWorkspaceReviews(workspaceId, signal) });
+  return queryOptions({
+    queryKey: workspaceReviewsQueryKey(workspaceId),
+    queryFn: ({ signal }) => listWorkspaceReviews(workspaceId, signal),
+  });
 }
 
 export function modelReviewsQueryOptions(modelId: Id) {
-  return queryOptions({ queryKey: modelReviewsQueryKey(modelId), queryFn: ({ signal }) => listModelReviews(modelId, signal) });
+  return queryOptions({
+    queryKey: modelReviewsQueryKey(modelId),
+    queryFn: ({ signal }) => listModelReviews(modelId, signal),
+  });
 }
 
 export function reviewQueryOptions(reviewId: Id) {
@@ -72,17 +80,29 @@ export interface VerdictInput {
   body?: string;
 }
 
-export async function giveVerdict(reviewId: Id, input: VerdictInput): Promise<VerdictEntry & { review: { id: Id; state: string } }> {
-  return (await api.post<VerdictEntry & { review: { id: Id; state: string } }>(`/api/reviews/${encodeURIComponent(reviewId)}/verdicts`, input)).data;
+export async function giveVerdict(
+  reviewId: Id,
+  input: VerdictInput,
+): Promise<VerdictEntry & { review: { id: Id; state: string } }> {
+  return (
+    await api.post<VerdictEntry & { review: { id: Id; state: string } }>(
+      `/api/reviews/${encodeURIComponent(reviewId)}/verdicts`,
+      input,
+    )
+  ).data;
 }
 
 export function useGiveVerdict(review: Pick<ReviewDetail, 'id' | 'workspace_id' | 'model'>) {
   const refresh = useRefreshAfterReview();
-  return useMutation({ mutationFn: (input: VerdictInput) => giveVerdict(review.id, input), onSuccess: () => refresh(review) });
+  return useMutation({
+    mutationFn: (input: VerdictInput) => giveVerdict(review.id, input),
+    onSuccess: () => refresh(review),
+  });
 }
 
 export async function tickItem(reviewId: Id, item: string, ticked: boolean): Promise<ChecklistEntry[]> {
-  return (await api.post<ChecklistEntry[]>(`/api/reviews/${encodeURIComponent(reviewId)}/checklist`, { item, ticked })).data;
+  return (await api.post<ChecklistEntry[]>(`/api/reviews/${encodeURIComponent(reviewId)}/checklist`, { item, ticked }))
+    .data;
 }
 
 /** Ticks at once on screen (a checkbox must answer the click), set right by the server's answer or undone on failure. */
@@ -95,14 +115,20 @@ export function useTickItem(review: Pick<ReviewDetail, 'id'>) {
       await queryClient.cancelQueries({ queryKey: key });
       const before = queryClient.getQueryData<ReviewDetail>(key);
       queryClient.setQueryData<ReviewDetail>(key, (current) =>
-        current ? { ...current, checklist: current.checklist.map((entry) => (entry.id === item ? { ...entry, ticked } : entry)) } : current,
+        current
+          ? {
+              ...current,
+              checklist: current.checklist.map((entry) => (entry.id === item ? { ...entry, ticked } : entry)),
+            }
+          : current,
       );
       return { before };
     },
     onError: (_error, _input, context) => {
       if (context?.before) queryClient.setQueryData(key, context.before);
     },
-    onSuccess: (checklist) => queryClient.setQueryData<ReviewDetail>(key, (current) => (current ? { ...current, checklist } : current)),
+    onSuccess: (checklist) =>
+      queryClient.setQueryData<ReviewDetail>(key, (current) => (current ? { ...current, checklist } : current)),
   });
 }
 
@@ -115,7 +141,9 @@ export function useAddComment(review: Pick<ReviewDetail, 'id' | 'workspace_id'>)
   return useMutation({
     mutationFn: (input: { path?: string; body: string }) => addComment(review.id, input),
     onSuccess: (comment) => {
-      queryClient.setQueryData<ReviewDetail>(reviewQueryKey(review.id), (current) => (current ? { ...current, comments: [...current.comments, comment] } : current));
+      queryClient.setQueryData<ReviewDetail>(reviewQueryKey(review.id), (current) =>
+        current ? { ...current, comments: [...current.comments, comment] } : current,
+      );
       void queryClient.invalidateQueries({ queryKey: ['workspaces', review.workspace_id, 'audit'] });
     },
   });

@@ -18,7 +18,9 @@ export function ChecklistPanel({ review }: { review: ReviewDetail }) {
           {done} of {review.checklist.length} ticked
         </span>
       </div>
-      <p className="mt-0.5 text-sm text-ink-700">Checks made on the model itself, not in the document: tick each one when it has been done.</p>
+      <p className="mt-0.5 text-sm text-ink-700">
+        Checks made on the model itself, not in the document: tick each one when it has been done.
+      </p>
       <ul className="mt-3 space-y-3">
         {review.checklist.map((item) => {
           const id = `check-${item.id}`;
@@ -32,7 +34,10 @@ export function ChecklistPanel({ review }: { review: ReviewDetail }) {
                 onChange={(event) =>
                   tick.mutate(
                     { item: item.id, ticked: event.target.checked },
-                    { onError: (error) => toast({ title: `Could not change “${item.label}”`, description: error.message, tone: 'error' }) },
+                    {
+                      onError: (error) =>
+                        toast({ title: `Could not change “${item.label}”`, description: error.message, tone: 'error' }),
+                    },
                   )
                 }
                 aria-describedby={`${id}-detail`}

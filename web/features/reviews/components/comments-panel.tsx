@@ -41,7 +41,9 @@ export function CommentsPanel({ review }: { review: ReviewDetail }) {
   return (
     <Card className="p-5">
       <h2 className="text-lg font-semibold text-ink-900">Comments</h2>
-      <p className="mt-0.5 text-sm text-ink-700">A comment anchored to a place in the setup stays on later revisions for as long as that place exists.</p>
+      <p className="mt-0.5 text-sm text-ink-700">
+        A comment anchored to a place in the setup stays on later revisions for as long as that place exists.
+      </p>
       {review.comments.length === 0 ? (
         <p className="mt-3 text-base text-ink-700">No comments yet.</p>
       ) : (
@@ -51,7 +53,13 @@ export function CommentsPanel({ review }: { review: ReviewDetail }) {
               <div className="flex flex-wrap items-center gap-x-2 gap-y-1 text-sm">
                 <span className="font-medium text-ink-900">{comment.author?.name ?? 'Former member'}</span>
                 <TimeAgo iso={comment.created_at} className="text-ink-500" />
-                {comment.path ? <code className="rounded-sm bg-ply-100 px-1.5 py-0.5 font-mono text-xs break-all text-ink-700">{comment.path}</code> : <Badge>Whole revision</Badge>}
+                {comment.path ? (
+                  <code className="rounded-sm bg-ply-100 px-1.5 py-0.5 font-mono text-xs break-all text-ink-700">
+                    {comment.path}
+                  </code>
+                ) : (
+                  <Badge>Whole revision</Badge>
+                )}
                 {comment.carried && <Badge tone="info">From revision {comment.revision.number}</Badge>}
               </div>
               <p className="mt-1 text-base whitespace-pre-wrap text-ink-900">{comment.body}</p>
@@ -76,7 +84,14 @@ export function CommentsPanel({ review }: { review: ReviewDetail }) {
               <option key={suggestion} value={suggestion} />
             ))}
           </datalist>
-          <TextAreaField label="Comment" name="comment" maxLength={4000} value={body} onChange={(event) => setBody(event.target.value)} error={errors?.fields.body} />
+          <TextAreaField
+            label="Comment"
+            name="comment"
+            maxLength={4000}
+            value={body}
+            onChange={(event) => setBody(event.target.value)}
+            error={errors?.fields.body}
+          />
           <Button type="submit" variant="secondary" pending={add.isPending} disabled={body.trim() === ''}>
             Add comment
           </Button>

@@ -19,7 +19,8 @@ const STATE_SENTENCES = {
   none: 'Nobody has reviewed this model yet.',
   pending: 'A review of the latest revision is waiting for a verdict.',
   approved: 'The latest revision is approved.',
-  stale: 'An earlier revision was approved, but the setup has changed since: the latest revision needs a review of its own.',
+  stale:
+    'An earlier revision was approved, but the setup has changed since: the latest revision needs a review of its own.',
   'changes-requested': 'A reviewer asked for changes to the latest revision.',
 } as const;
 
@@ -32,7 +33,9 @@ export function ModelReviewsScreen() {
 
   if (model.isPending) return <LoadingState label="Loading the model…" />;
   if (model.isError) return null;
-  const openOnLatest = reviews.data?.find((review) => review.state === 'open' && review.revision.id === model.data.latest?.id);
+  const openOnLatest = reviews.data?.find(
+    (review) => review.state === 'open' && review.revision.id === model.data.latest?.id,
+  );
 
   return (
     <>
@@ -40,7 +43,9 @@ export function ModelReviewsScreen() {
         title="Reviews"
         documentTitle={`Reviews · ${model.data.name}`}
         description="A second pilot signs off the revision that will fly. An approval holds while the setup stays as approved."
-        actions={<RequestAction model={model.data} openReviewId={openOnLatest?.id ?? null} onAsk={() => setAsking(true)} />}
+        actions={
+          <RequestAction model={model.data} openReviewId={openOnLatest?.id ?? null} onAsk={() => setAsking(true)} />
+        }
       />
       <Card className="mb-6 flex flex-wrap items-center gap-3 px-4 py-3">
         <ReviewStateBadge state={model.data.review_state} />
@@ -55,10 +60,16 @@ export function ModelReviewsScreen() {
       {reviews.isPending ? (
         <LoadingState label="Loading the reviews…" />
       ) : reviews.isError ? (
-        <ErrorState title="The reviews could not be loaded" error={reviews.error} onRetry={() => void reviews.refetch()} />
+        <ErrorState
+          title="The reviews could not be loaded"
+          error={reviews.error}
+          onRetry={() => void reviews.refetch()}
+        />
       ) : reviews.data.length === 0 ? (
         <EmptyState title="No reviews of this model yet">
-          {canEdit(model.data.role) ? 'Request a review when the setup is ready to fly.' : 'Owners and editors ask for reviews; reviewers then give their verdicts here.'}
+          {canEdit(model.data.role)
+            ? 'Request a review when the setup is ready to fly.'
+            : 'Owners and editors ask for reviews; reviewers then give their verdicts here.'}
         </EmptyState>
       ) : (
         <ReviewTable reviews={reviews.data} caption={`Reviews of ${model.data.name}`} showModel={false} />
@@ -67,7 +78,15 @@ export function ModelReviewsScreen() {
   );
 }
 
-function RequestAction({ model, openReviewId, onAsk }: { model: SetupModelView; openReviewId: string | null; onAsk: () => void }) {
+function RequestAction({
+  model,
+  openReviewId,
+  onAsk,
+}: {
+  model: SetupModelView;
+  openReviewId: string | null;
+  onAsk: () => void;
+}) {
   if (!canEdit(model.role) || !model.latest) return null;
   if (openReviewId) {
     return (

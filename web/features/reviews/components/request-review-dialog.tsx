@@ -28,7 +28,9 @@ export function RequestReviewDialog({ model, onClose }: { model: SetupModelView;
 
   const { user } = useSession();
   // Neither the author (who may not approve it) nor the one asking.
-  const candidates = (members.data ?? []).filter((member) => MAY_REVIEW.has(member.role) && member.user.id !== latest.author?.id && member.user.id !== user.id);
+  const candidates = (members.data ?? []).filter(
+    (member) => MAY_REVIEW.has(member.role) && member.user.id !== latest.author?.id && member.user.id !== user.id,
+  );
 
   const onSubmit = (event: FormEvent<HTMLFormElement>) => {
     event.preventDefault();
@@ -36,7 +38,9 @@ export function RequestReviewDialog({ model, onClose }: { model: SetupModelView;
       { revisionId: latest.id, reviewers: chosen, ...(note.trim() ? { note: note.trim() } : {}) },
       {
         onSuccess: (review) => {
-          toast({ title: `Review requested: ${review.reviewers.map((reviewer) => reviewer.name).join(', ')} will get an e-mail` });
+          toast({
+            title: `Review requested: ${review.reviewers.map((reviewer) => reviewer.name).join(', ')} will get an e-mail`,
+          });
           onClose();
           void navigate(`/w/${review.workspace_id}/reviews/${review.id}`);
         },
@@ -45,7 +49,11 @@ export function RequestReviewDialog({ model, onClose }: { model: SetupModelView;
   };
 
   return (
-    <Dialog title={`Request a review of revision ${latest.number}`} description="Choose who should look it over before the maiden. Each gets an e-mail with a link to the review." onClose={onClose}>
+    <Dialog
+      title={`Request a review of revision ${latest.number}`}
+      description="Choose who should look it over before the maiden. Each gets an e-mail with a link to the review."
+      onClose={onClose}
+    >
       {members.isPending ? (
         <LoadingState label="Loading the members…" />
       ) : members.isError ? (
@@ -56,7 +64,10 @@ export function RequestReviewDialog({ model, onClose }: { model: SetupModelView;
           <fieldset>
             <legend className="text-sm font-medium text-ink-900">Reviewers</legend>
             {candidates.length === 0 ? (
-              <p className="mt-1 text-sm text-ink-700">Nobody else here may review this revision: a reviewer needs the reviewer role or higher and cannot be its author. Invite one on the Team screen.</p>
+              <p className="mt-1 text-sm text-ink-700">
+                Nobody else here may review this revision: a reviewer needs the reviewer role or higher and cannot be
+                its author. Invite one on the Team screen.
+              </p>
             ) : (
               <ul className="mt-2 space-y-1.5">
                 {candidates.map((member) => (
@@ -66,7 +77,13 @@ export function RequestReviewDialog({ model, onClose }: { model: SetupModelView;
                         type="checkbox"
                         className="h-4 w-4 accent-accent-700"
                         checked={chosen.includes(member.user.id)}
-                        onChange={(event) => setChosen((current) => (event.target.checked ? [...current, member.user.id] : current.filter((id) => id !== member.user.id)))}
+                        onChange={(event) =>
+                          setChosen((current) =>
+                            event.target.checked
+                              ? [...current, member.user.id]
+                              : current.filter((id) => id !== member.user.id),
+                          )
+                        }
                       />
                       <span className="flex-1 text-ink-900">{member.user.name}</span>
                       <RoleBadge role={member.role} />
@@ -77,7 +94,15 @@ export function RequestReviewDialog({ model, onClose }: { model: SetupModelView;
             )}
             {errors?.fields.reviewers && <p className="mt-1.5 text-sm text-danger-700">{errors.fields.reviewers}</p>}
           </fieldset>
-          <TextAreaField label="Note (optional)" name="note" maxLength={2000} value={note} onChange={(event) => setNote(event.target.value)} placeholder="When it should fly, what changed, what to look at." error={errors?.fields.note} />
+          <TextAreaField
+            label="Note (optional)"
+            name="note"
+            maxLength={2000}
+            value={note}
+            onChange={(event) => setNote(event.target.value)}
+            placeholder="When it should fly, what changed, what to look at."
+            error={errors?.fields.note}
+          />
           <div className="flex justify-end gap-2">
             <Button variant="secondary" onClick={onClose}>
               Cancel

@@ -20,7 +20,11 @@ import { ChecklistPanel } from './checklist-panel';
 import { RequestStateBadge, VerdictBadge } from './review-badges';
 import { VerdictForm } from './verdict-form';
 
-const BASE_WORDS = { approved: 'the last approved revision', parent: 'the revision before it', 'fork-source': 'the revision it was forked from' } as const;
+const BASE_WORDS = {
+  approved: 'the last approved revision',
+  parent: 'the revision before it',
+  'fork-source': 'the revision it was forked from',
+} as const;
 
 /** `/w/:wsId/reviews/:reviewId`: one review, everything the reviewer needs on one page. */
 export function ReviewScreen() {
@@ -28,7 +32,10 @@ export function ReviewScreen() {
   const review = useReview(reviewId);
 
   if (review.isPending) return <LoadingState label="Loading the review…" />;
-  if (review.isError) return <ErrorState title="This review could not be loaded" error={review.error} onRetry={() => void review.refetch()} />;
+  if (review.isError)
+    return (
+      <ErrorState title="This review could not be loaded" error={review.error} onRetry={() => void review.refetch()} />
+    );
   return <ReviewPage review={review.data} />;
 }
 
@@ -40,7 +47,9 @@ function ReviewPage({ review }: { review: ReviewDetail }) {
     <>
       <nav aria-label="Breadcrumb" className="mb-2 text-sm text-ink-700">
         <Link to={`/w/${review.workspace_id}/reviews`}>Reviews</Link>
-        <span aria-hidden="true" className="px-1.5 text-ink-500">/</span>
+        <span aria-hidden="true" className="px-1.5 text-ink-500">
+          /
+        </span>
         <span>{title}</span>
       </nav>
       <PageHeader
@@ -48,7 +57,9 @@ function ReviewPage({ review }: { review: ReviewDetail }) {
         documentTitle={`Review · ${title}`}
         description={
           <>
-            {review.requested_by?.name ?? 'A former member'} asked {review.reviewers.map((reviewer) => reviewer.name).join(', ')} to review it <TimeAgo iso={review.created_at} inSentence />.
+            {review.requested_by?.name ?? 'A former member'} asked{' '}
+            {review.reviewers.map((reviewer) => reviewer.name).join(', ')} to review it{' '}
+            <TimeAgo iso={review.created_at} inSentence />.
           </>
         }
         actions={
@@ -75,15 +86,24 @@ function ReviewPage({ review }: { review: ReviewDetail }) {
               <>
                 <p className="mb-3 text-sm text-ink-700">
                   Compared with {BASE_WORDS[review.base.kind]}, revision {review.base.revision.number}
-                  {review.base.revision.author && ` by ${review.base.revision.author.name}`}: “{review.base.revision.message}”.
+                  {review.base.revision.author && ` by ${review.base.revision.author.name}`}: “
+                  {review.base.revision.message}”.
                 </p>
                 <ChangeList changes={review.compare.changes} sections={review.compare.sections} />
-                <details className="mt-4 rounded-lg border border-ply-200 bg-paper-raised px-4 py-3" open={review.compare.findings_delta.introduced.length > 0}>
+                <details
+                  className="mt-4 rounded-lg border border-ply-200 bg-paper-raised px-4 py-3"
+                  open={review.compare.findings_delta.introduced.length > 0}
+                >
                   <summary className="cursor-pointer font-medium text-ink-900">
-                    What the checks say differently ({review.compare.findings_delta.introduced.length} new, {review.compare.findings_delta.resolved.length} resolved)
+                    What the checks say differently ({review.compare.findings_delta.introduced.length} new,{' '}
+                    {review.compare.findings_delta.resolved.length} resolved)
                   </summary>
                   <div className="mt-3">
-                    <FindingsDeltaView delta={review.compare.findings_delta} toModelId={review.model.id} toIsLatest={review.latest?.id === review.revision.id} />
+                    <FindingsDeltaView
+                      delta={review.compare.findings_delta}
+                      toModelId={review.model.id}
+                      toIsLatest={review.latest?.id === review.revision.id}
+                    />
                   </div>
                 </details>
                 <details className="mt-3 rounded-lg border border-ply-200 bg-paper-raised px-4 py-3">
@@ -95,7 +115,11 @@ function ReviewPage({ review }: { review: ReviewDetail }) {
                 <details className="mt-3 rounded-lg border border-ply-200 bg-paper-raised px-4 py-3">
                   <summary className="cursor-pointer font-medium text-ink-900">The YAML side by side</summary>
                   <div className="mt-3">
-                    <TextDiffView diff={review.compare.text} fromLabel={`Revision ${review.base.revision.number}`} toLabel={`Revision ${review.revision.number}`} />
+                    <TextDiffView
+                      diff={review.compare.text}
+                      fromLabel={`Revision ${review.base.revision.number}`}
+                      toLabel={`Revision ${review.revision.number}`}
+                    />
                   </div>
                 </details>
               </>
@@ -114,7 +138,11 @@ function ReviewPage({ review }: { review: ReviewDetail }) {
               </h2>
               <CheckBadges errors={review.revision.error_count} warnings={review.revision.warning_count} />
             </div>
-            <FindingsList findings={review.findings} modelId={review.latest?.id === review.revision.id ? review.model.id : undefined} emptyText="The checks found nothing in this revision." />
+            <FindingsList
+              findings={review.findings}
+              modelId={review.latest?.id === review.revision.id ? review.model.id : undefined}
+              emptyText="The checks found nothing in this revision."
+            />
           </section>
 
           <CommentsPanel review={review} />
@@ -124,7 +152,9 @@ function ReviewPage({ review }: { review: ReviewDetail }) {
           {review.can.verdict ? (
             <VerdictForm review={review} />
           ) : (
-            <Card className="p-5 text-sm text-ink-700">Reviewers, editors and owners give verdicts; your role here lets you read the review.</Card>
+            <Card className="p-5 text-sm text-ink-700">
+              Reviewers, editors and owners give verdicts; your role here lets you read the review.
+            </Card>
           )}
           <ChecklistPanel review={review} />
           <Verdicts review={review} />

@@ -8,7 +8,15 @@ import type { ReviewSummary } from '../types';
 import { RequestStateBadge } from './review-badges';
 
 /** Review requests in a table: what is reviewed, who asked whom, where it stands. */
-export function ReviewTable({ reviews, caption, showModel = true }: { reviews: ReviewSummary[]; caption: string; showModel?: boolean }) {
+export function ReviewTable({
+  reviews,
+  caption,
+  showModel = true,
+}: {
+  reviews: ReviewSummary[];
+  caption: string;
+  showModel?: boolean;
+}) {
   return (
     <Card className="overflow-x-auto">
       <table className="w-full min-w-[40rem] table-fixed text-left text-base">
@@ -21,10 +29,18 @@ export function ReviewTable({ reviews, caption, showModel = true }: { reviews: R
         </colgroup>
         <thead className="border-b border-ply-200 text-sm text-ink-700">
           <tr>
-            <th scope="col" className="px-4 py-3 font-medium">{showModel ? 'Model and revision' : 'Revision'}</th>
-            <th scope="col" className="px-4 py-3 font-medium">Asked by</th>
-            <th scope="col" className="px-4 py-3 font-medium">Reviewers</th>
-            <th scope="col" className="px-4 py-3 font-medium">State</th>
+            <th scope="col" className="px-4 py-3 font-medium">
+              {showModel ? 'Model and revision' : 'Revision'}
+            </th>
+            <th scope="col" className="px-4 py-3 font-medium">
+              Asked by
+            </th>
+            <th scope="col" className="px-4 py-3 font-medium">
+              Reviewers
+            </th>
+            <th scope="col" className="px-4 py-3 font-medium">
+              State
+            </th>
           </tr>
         </thead>
         <tbody className="divide-y divide-ply-100">
@@ -32,7 +48,9 @@ export function ReviewTable({ reviews, caption, showModel = true }: { reviews: R
             <tr key={review.id} className="align-top">
               <td className="px-4 py-3">
                 <Link to={`/w/${review.workspace_id}/reviews/${review.id}`} className="font-medium">
-                  {showModel ? `${review.model.name}, revision ${review.revision.number}` : `Revision ${review.revision.number}`}
+                  {showModel
+                    ? `${review.model.name}, revision ${review.revision.number}`
+                    : `Revision ${review.revision.number}`}
                 </Link>
                 <div className="mt-1 flex flex-wrap items-center gap-1.5">
                   <CheckBadges errors={review.revision.error_count} warnings={review.revision.warning_count} />
@@ -48,7 +66,9 @@ export function ReviewTable({ reviews, caption, showModel = true }: { reviews: R
                 <span className="block text-base text-ink-900">{review.requested_by?.name ?? 'Former member'}</span>
                 <TimeAgo iso={review.created_at} />
               </td>
-              <td className="px-4 py-3 text-sm text-ink-900">{review.reviewers.map((reviewer) => reviewer.name).join(', ')}</td>
+              <td className="px-4 py-3 text-sm text-ink-900">
+                {review.reviewers.map((reviewer) => reviewer.name).join(', ')}
+              </td>
               <td className="px-4 py-3">
                 <RequestStateBadge state={review.state} />
                 {review.decided_at && (

@@ -17,7 +17,14 @@ export function ReviewsScreen() {
 
   let body;
   if (reviews.isPending) body = <LoadingState label="Loading the reviews…" />;
-  else if (reviews.isError) body = <ErrorState title="The reviews could not be loaded" error={reviews.error} onRetry={() => void reviews.refetch()} />;
+  else if (reviews.isError)
+    body = (
+      <ErrorState
+        title="The reviews could not be loaded"
+        error={reviews.error}
+        onRetry={() => void reviews.refetch()}
+      />
+    );
   else if (reviews.data.length === 0) {
     body = (
       <EmptyState title="No reviews yet" action={<Link to={`/w/${inUrl.id}/hangar`}>Go to the hangar</Link>}>
@@ -39,13 +46,21 @@ export function ReviewsScreen() {
               {open.length} open{mine > 0 && `, ${mine} asking you`}
             </span>
           </div>
-          {open.length === 0 ? <p className="text-base text-ink-700">Nothing is waiting: every review has a verdict.</p> : <ReviewTable reviews={open} caption="Open reviews" />}
+          {open.length === 0 ? (
+            <p className="text-base text-ink-700">Nothing is waiting: every review has a verdict.</p>
+          ) : (
+            <ReviewTable reviews={open} caption="Open reviews" />
+          )}
         </section>
         <section aria-labelledby="past-reviews">
           <h2 id="past-reviews" className="mb-3 text-lg font-semibold text-ink-900">
             Decided
           </h2>
-          {past.length === 0 ? <p className="text-base text-ink-700">No review has been decided yet.</p> : <ReviewTable reviews={past} caption="Decided reviews" />}
+          {past.length === 0 ? (
+            <p className="text-base text-ink-700">No review has been decided yet.</p>
+          ) : (
+            <ReviewTable reviews={past} caption="Decided reviews" />
+          )}
         </section>
       </div>
     );

@@ -13,7 +13,11 @@ import type { ReviewDetail, Verdict, VerdictEntry } from '../types';
 
 const CHOICES: { value: Verdict; label: string; hint: string }[] = [
   { value: 'approve', label: 'Approve', hint: 'Signs off this content for the maiden.' },
-  { value: 'request-changes', label: 'Ask for changes', hint: 'Holds the maiden until the setup changes or you approve.' },
+  {
+    value: 'request-changes',
+    label: 'Ask for changes',
+    hint: 'Holds the maiden until the setup changes or you approve.',
+  },
   { value: 'comment', label: 'Comment', hint: 'A remark that changes nothing.' },
 ];
 
@@ -23,8 +27,14 @@ function standingVerdict(verdicts: readonly VerdictEntry[], userId: Id): Verdict
 }
 
 const STANDING_WORDS: Record<Exclude<Verdict, 'comment'>, { said: string; otherwise: string }> = {
-  approve: { said: 'You approved this revision', otherwise: 'If you find a problem after all, ask for changes; a comment leaves your approval standing.' },
-  'request-changes': { said: 'You asked for changes to this revision', otherwise: 'If it is fine as it is after all, approve it; a comment leaves your request standing.' },
+  approve: {
+    said: 'You approved this revision',
+    otherwise: 'If you find a problem after all, ask for changes; a comment leaves your approval standing.',
+  },
+  'request-changes': {
+    said: 'You asked for changes to this revision',
+    otherwise: 'If it is fine as it is after all, approve it; a comment leaves your request standing.',
+  },
 };
 
 export function VerdictForm({ review }: { review: ReviewDetail }) {
@@ -34,7 +44,8 @@ export function VerdictForm({ review }: { review: ReviewDetail }) {
   const choices = CHOICES.filter((choice) => choice.value !== standing?.verdict);
   // Until the caller picks, approving is suggested to a reviewer who has not said anything yet.
   const [picked, setPicked] = useState<Verdict | null>(null);
-  const offered = (value: Verdict) => choices.some((choice) => choice.value === value) && (value !== 'approve' || review.can.approve);
+  const offered = (value: Verdict) =>
+    choices.some((choice) => choice.value === value) && (value !== 'approve' || review.can.approve);
   const suggested: Verdict = !standing && review.can.approve ? 'approve' : 'comment';
   const verdict: Verdict = picked !== null && offered(picked) ? picked : suggested;
   const [body, setBody] = useState('');
@@ -50,7 +61,14 @@ export function VerdictForm({ review }: { review: ReviewDetail }) {
         onSuccess: () => {
           setBody('');
           setPicked(null);
-          toast({ title: verdict === 'approve' ? 'Approved: the requester has been told' : verdict === 'request-changes' ? 'Changes asked for: the requester has been told' : 'Comment recorded' });
+          toast({
+            title:
+              verdict === 'approve'
+                ? 'Approved: the requester has been told'
+                : verdict === 'request-changes'
+                  ? 'Changes asked for: the requester has been told'
+                  : 'Comment recorded',
+          });
         },
       },
     );
@@ -94,7 +112,9 @@ export function VerdictForm({ review }: { review: ReviewDetail }) {
                   />
                   <span>
                     <span className="block font-medium text-ink-900">{choice.label}</span>
-                    <span className="block text-sm text-ink-700">{disabled && review.can.approve_refusal ? review.can.approve_refusal.message : choice.hint}</span>
+                    <span className="block text-sm text-ink-700">
+                      {disabled && review.can.approve_refusal ? review.can.approve_refusal.message : choice.hint}
+                    </span>
                   </span>
                 </label>
               );
@@ -103,10 +123,19 @@ export function VerdictForm({ review }: { review: ReviewDetail }) {
         </fieldset>
         {verdict === 'approve' && unticked > 0 && (
           <p className="text-sm text-caution-700">
-            {unticked} checklist {unticked === 1 ? 'item is' : 'items are'} not ticked yet; the approval records what was ticked.
+            {unticked} checklist {unticked === 1 ? 'item is' : 'items are'} not ticked yet; the approval records what
+            was ticked.
           </p>
         )}
-        <TextAreaField label="What you found" name="body" rows={4} maxLength={4000} value={body} onChange={(event) => setBody(event.target.value)} placeholder="What you checked, and anything the pilot should know." />
+        <TextAreaField
+          label="What you found"
+          name="body"
+          rows={4}
+          maxLength={4000}
+          value={body}
+          onChange={(event) => setBody(event.target.value)}
+          placeholder="What you checked, and anything the pilot should know."
+        />
         <Button type="submit" pending={give.isPending} variant={verdict === 'request-changes' ? 'danger' : 'primary'}>
           {CHOICES.find((choice) => choice.value === verdict)?.label}
         </Button>

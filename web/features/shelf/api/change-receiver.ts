@@ -19,7 +19,8 @@ function useRefresh() {
 export function useAddReceiver(workspaceId: Id) {
   const refresh = useRefresh();
   return useMutation({
-    mutationFn: async (input: CreateReceiverInput) => (await api.post<ShelfUnit>(`/api/workspaces/${encodeURIComponent(workspaceId)}/receivers`, input)).data,
+    mutationFn: async (input: CreateReceiverInput) =>
+      (await api.post<ShelfUnit>(`/api/workspaces/${encodeURIComponent(workspaceId)}/receivers`, input)).data,
     onSuccess: refresh,
   });
 }
@@ -27,7 +28,8 @@ export function useAddReceiver(workspaceId: Id) {
 export function useUpdateReceiver(receiverId: Id) {
   const refresh = useRefresh();
   return useMutation({
-    mutationFn: async (input: UpdateReceiverInput) => (await api.patch<ShelfUnit>(`/api/receivers/${encodeURIComponent(receiverId)}`, input)).data,
+    mutationFn: async (input: UpdateReceiverInput) =>
+      (await api.patch<ShelfUnit>(`/api/receivers/${encodeURIComponent(receiverId)}`, input)).data,
     onSuccess: refresh,
   });
 }
@@ -44,7 +46,12 @@ export function useInstallReceiver(receiverId: Id) {
 export function useRemoveReceiver(receiverId: Id) {
   const refresh = useRefresh();
   return useMutation({
-    mutationFn: async () => (await api.post<{ receiver: ShelfUnit; install: UnitInstall }>(`/api/receivers/${encodeURIComponent(receiverId)}/remove`)).data,
+    mutationFn: async () =>
+      (
+        await api.post<{ receiver: ShelfUnit; install: UnitInstall }>(
+          `/api/receivers/${encodeURIComponent(receiverId)}/remove`,
+        )
+      ).data,
     onSuccess: (data) => refresh(data.receiver),
   });
 }
@@ -53,7 +60,8 @@ export function useRemoveReceiver(receiverId: Id) {
 export function useApplySettings(receiverId: Id) {
   const refresh = useRefresh();
   return useMutation({
-    mutationFn: async (input: { revision: Id }) => (await api.post<Applied>(`/api/receivers/${encodeURIComponent(receiverId)}/apply`, input)).data,
+    mutationFn: async (input: { revision: Id }) =>
+      (await api.post<Applied>(`/api/receivers/${encodeURIComponent(receiverId)}/apply`, input)).data,
     onSuccess: (data) => refresh(data.receiver),
   });
 }

@@ -10,7 +10,10 @@ export async function getReceiver(receiverId: Id, signal?: AbortSignal): Promise
 }
 
 export function receiverQueryOptions(receiverId: Id) {
-  return queryOptions({ queryKey: receiverQueryKey(receiverId), queryFn: ({ signal }) => getReceiver(receiverId, signal) });
+  return queryOptions({
+    queryKey: receiverQueryKey(receiverId),
+    queryFn: ({ signal }) => getReceiver(receiverId, signal),
+  });
 }
 
 /** One unit: its record, stored settings, where it is and whether it is ready there. */

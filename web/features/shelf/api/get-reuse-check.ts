@@ -4,9 +4,16 @@ import type { Id } from '../../../types/api';
 import type { ReuseCheckView } from '../types';
 import { receiverQueryKey } from './get-receiver';
 
-export async function getReuseCheck(receiverId: Id, modelId: Id, slot: string, signal?: AbortSignal): Promise<ReuseCheckView> {
+export async function getReuseCheck(
+  receiverId: Id,
+  modelId: Id,
+  slot: string,
+  signal?: AbortSignal,
+): Promise<ReuseCheckView> {
   const params = new URLSearchParams({ model: modelId, slot });
-  return (await api.get<ReuseCheckView>(`/api/receivers/${encodeURIComponent(receiverId)}/reuse-check?${params}`, signal)).data;
+  return (
+    await api.get<ReuseCheckView>(`/api/receivers/${encodeURIComponent(receiverId)}/reuse-check?${params}`, signal)
+  ).data;
 }
 
 export function reuseCheckQueryOptions(receiverId: Id, modelId: Id, slot: string) {

@@ -19,7 +19,10 @@ export async function listReceivers(workspaceId: Id, filter: ShelfFilter, signal
   const params = new URLSearchParams({ limit: String(SHELF_PAGE_SIZE) });
   if (filter.q) params.set('q', filter.q);
   if (filter.status) params.set('status', filter.status);
-  const { data, pagination } = await api.get<ShelfUnit[]>(`/api/workspaces/${encodeURIComponent(workspaceId)}/receivers?${params}`, signal);
+  const { data, pagination } = await api.get<ShelfUnit[]>(
+    `/api/workspaces/${encodeURIComponent(workspaceId)}/receivers?${params}`,
+    signal,
+  );
   return { units: data, total: typeof pagination?.total === 'number' ? pagination.total : data.length };
 }
 

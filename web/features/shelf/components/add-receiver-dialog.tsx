@@ -10,7 +10,11 @@ export function AddReceiverDialog({ workspace, onClose }: { workspace: Workspace
   const navigate = useNavigate();
   const toast = useToast();
   return (
-    <Dialog title="Add a receiver to the shelf" description="Its settings can be recorded on its own page, or applied from a model slot once it is installed." onClose={onClose}>
+    <Dialog
+      title="Add a receiver to the shelf"
+      description="Its settings can be recorded on its own page, or applied from a model slot once it is installed."
+      onClose={onClose}
+    >
       <ReceiverFieldsForm
         submitLabel="Add to the shelf"
         pending={add.isPending}

@@ -8,13 +8,22 @@ import type { ShelfUnit } from '../types';
 import { ReuseChecklist } from './reuse-checklist';
 
 /** The installed unit against its slot in the model's latest revision, ending in "I have applied these settings". */
-export function CurrentSlotCheck({ unit, editor }: { unit: ShelfUnit & { installed: NonNullable<ShelfUnit['installed']> }; editor: boolean }) {
+export function CurrentSlotCheck({
+  unit,
+  editor,
+}: {
+  unit: ShelfUnit & { installed: NonNullable<ShelfUnit['installed']> };
+  editor: boolean;
+}) {
   const check = useReuseCheck(unit.id, { modelId: unit.installed.model.id, slot: unit.installed.slot });
   const apply = useApplySettings(unit.id);
   const toast = useToast();
 
   if (check.isPending) return <LoadingState label="Checking the unit against its slot…" />;
-  if (check.isError) return <ErrorState title="The reuse check could not run" error={check.error} onRetry={() => void check.refetch()} />;
+  if (check.isError)
+    return (
+      <ErrorState title="The reuse check could not run" error={check.error} onRetry={() => void check.refetch()} />
+    );
   const blocked = check.data.notes.some((note) => note.blocking);
 
   return (
@@ -31,7 +40,11 @@ export function CurrentSlotCheck({ unit, editor }: { unit: ShelfUnit & { install
                 apply.mutate(
                   { revision: check.data.revision.id },
                   {
-                    onSuccess: () => toast({ title: 'Settings recorded', description: `${unit.label} now holds what slot ${unit.installed.slot} asks for.` }),
+                    onSuccess: () =>
+                      toast({
+                        title: 'Settings recorded',
+                        description: `${unit.label} now holds what slot ${unit.installed.slot} asks for.`,
+                      }),
                     onError: () => void check.refetch(),
                   },
                 )

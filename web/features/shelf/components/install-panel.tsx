@@ -16,7 +16,14 @@ import { ReuseChecklist } from './reuse-checklist';
 /** The receiver slots of a stored revision's setup; none when it does not pass the schema. */
 function slotsOf(document: unknown): { id: string; label: string | null; role: string; outputs: number }[] {
   const parsed = setupSchema.safeParse(document);
-  return parsed.success ? parsed.data.receivers.map((receiver) => ({ id: receiver.id, label: receiver.label ?? null, role: receiver.role, outputs: receiver.outputs })) : [];
+  return parsed.success
+    ? parsed.data.receivers.map((receiver) => ({
+        id: receiver.id,
+        label: receiver.label ?? null,
+        role: receiver.role,
+        outputs: receiver.outputs,
+      }))
+    : [];
 }
 
 /**
@@ -37,7 +44,10 @@ export function InstallPanel({ unit, onDone }: { unit: ShelfUnit; onDone: () => 
   const moving = unit.installed !== null;
 
   if (hangar.isPending) return <LoadingState label="Loading the hangar…" />;
-  if (hangar.isError) return <ErrorState title="The models could not be loaded" error={hangar.error} onRetry={() => void hangar.refetch()} />;
+  if (hangar.isError)
+    return (
+      <ErrorState title="The models could not be loaded" error={hangar.error} onRetry={() => void hangar.refetch()} />
+    );
 
   const confirm = () =>
     install.mutate(
@@ -46,7 +56,9 @@ export function InstallPanel({ unit, onDone }: { unit: ShelfUnit; onDone: () => 
         onSuccess: (installed) => {
           toast({
             title: `${unit.label} is in slot ${slot} of ${installed.model.name}`,
-            description: installed.ready ? 'Its settings already match.' : `${installed.changes.length} settings to change before it flies.`,
+            description: installed.ready
+              ? 'Its settings already match.'
+              : `${installed.changes.length} settings to change before it flies.`,
           });
           onDone();
         },
@@ -71,11 +83,25 @@ export function InstallPanel({ unit, onDone }: { unit: ShelfUnit; onDone: () => 
             </option>
           ))}
         </SelectField>
-        <SelectField label="Receiver slot" value={slot} onChange={(event) => setSlot(event.target.value)} disabled={!model || latest.isPending}>
-          <option value="">{!model ? 'Choose a model first' : latest.isPending ? 'Loading its receivers…' : slots.length === 0 ? 'No readable receivers' : 'Choose a slot…'}</option>
+        <SelectField
+          label="Receiver slot"
+          value={slot}
+          onChange={(event) => setSlot(event.target.value)}
+          disabled={!model || latest.isPending}
+        >
+          <option value="">
+            {!model
+              ? 'Choose a model first'
+              : latest.isPending
+                ? 'Loading its receivers…'
+                : slots.length === 0
+                  ? 'No readable receivers'
+                  : 'Choose a slot…'}
+          </option>
           {slots.map((candidate) => (
             <option key={candidate.id} value={candidate.id}>
-              {candidate.id}{candidate.label ? ` · ${candidate.label}` : ''} · {candidate.role}, {candidate.outputs} outputs
+              {candidate.id}
+              {candidate.label ? ` · ${candidate.label}` : ''} · {candidate.role}, {candidate.outputs} outputs
             </option>
           ))}
         </SelectField>
@@ -97,11 +123,16 @@ export function InstallPanel({ unit, onDone }: { unit: ShelfUnit; onDone: () => 
               <>
                 {check.data.holder && check.data.holder.id !== unit.id && (
                   <p role="status" className="w-full text-base text-caution-700">
-                    Slot {slot} holds <Link to={`/w/${unit.workspace_id}/shelf/${check.data.holder.id}`}>{check.data.holder.label}</Link> now: take it out first
-                    to put this unit in.
+                    Slot {slot} holds{' '}
+                    <Link to={`/w/${unit.workspace_id}/shelf/${check.data.holder.id}`}>{check.data.holder.label}</Link>{' '}
+                    now: take it out first to put this unit in.
                   </p>
                 )}
-                <Button onClick={confirm} pending={install.isPending} disabled={Boolean(check.data.holder) || check.data.installed_here}>
+                <Button
+                  onClick={confirm}
+                  pending={install.isPending}
+                  disabled={Boolean(check.data.holder) || check.data.installed_here}
+                >
                   {moving ? 'Move it here' : 'Install it here'}
                 </Button>
                 <Button variant="secondary" onClick={onDone}>

@@ -2,7 +2,15 @@ import { MARK_SWATCHES, type MarkColour } from '../../../../shared/reuse/receive
 import { cx } from '../../../lib/cx';
 
 /** The mark on a unit's case: its words, with a swatch of its colour beside them (never the colour alone). */
-export function MarkLabel({ mark, colour, className }: { mark: string | null; colour: MarkColour | null; className?: string }) {
+export function MarkLabel({
+  mark,
+  colour,
+  className,
+}: {
+  mark: string | null;
+  colour: MarkColour | null;
+  className?: string;
+}) {
   if (!mark && !colour) return <span className={cx('text-ink-500', className)}>No mark</span>;
   return (
     <span className={cx('inline-flex items-start gap-1.5', className)}>
@@ -15,7 +23,9 @@ export function MarkLabel({ mark, colour, className }: { mark: string | null; co
         />
       )}
       <span>{mark ?? `${colour} (no words)`}</span>
-      {colour && mark && !mark.toLowerCase().includes(colour) && <span className="text-sm text-ink-500">({colour})</span>}
+      {colour && mark && !mark.toLowerCase().includes(colour) && (
+        <span className="text-sm text-ink-500">({colour})</span>
+      )}
     </span>
   );
 }

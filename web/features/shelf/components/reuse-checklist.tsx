@@ -40,8 +40,9 @@ export function ReuseChecklist({ check, tickable = false, action }: ReuseCheckli
     <div className="space-y-5">
       <div>
         <p className="text-sm text-ink-700">
-          Against slot <strong className="font-semibold text-ink-900">{slotName}</strong> of {check.model.name}, revision {check.revision.number}: {check.slot.role},{' '}
-          {check.slot.outputs} outputs, telemetry {check.slot.telemetry ? 'on' : 'off'}.
+          Against slot <strong className="font-semibold text-ink-900">{slotName}</strong> of {check.model.name},
+          revision {check.revision.number}: {check.slot.role}, {check.slot.outputs} outputs, telemetry{' '}
+          {check.slot.telemetry ? 'on' : 'off'}.
         </p>
         <div className="mt-2">
           {check.ready ? (
@@ -61,7 +62,11 @@ export function ReuseChecklist({ check, tickable = false, action }: ReuseCheckli
       </div>
 
       {blocking.map((note) => (
-        <div key={note.kind} role="alert" className="flex items-start gap-2 rounded-md border border-danger-700 bg-danger-100 px-3 py-2.5 text-base text-danger-700">
+        <div
+          key={note.kind}
+          role="alert"
+          className="flex items-start gap-2 rounded-md border border-danger-700 bg-danger-100 px-3 py-2.5 text-base text-danger-700"
+        >
           <ErrorIcon className="mt-1 shrink-0" />
           <p>{note.message}</p>
         </div>
@@ -69,7 +74,9 @@ export function ReuseChecklist({ check, tickable = false, action }: ReuseCheckli
 
       {check.changes.length > 0 && (
         <fieldset>
-          <legend className="text-base font-semibold text-ink-900">{tickable ? 'Program these on the unit' : 'What would have to change on the unit'}</legend>
+          <legend className="text-base font-semibold text-ink-900">
+            {tickable ? 'Program these on the unit' : 'What would have to change on the unit'}
+          </legend>
           {tickable && <p className="text-sm text-ink-700">Tick each one as it is done at the bench.</p>}
           <ul className="mt-2 divide-y divide-ply-100 rounded-lg border border-ply-200 bg-paper-raised">
             {check.changes.map((change) => {
@@ -78,8 +85,15 @@ export function ReuseChecklist({ check, tickable = false, action }: ReuseCheckli
                 <li key={key}>
                   {tickable ? (
                     <label className="flex cursor-pointer items-start gap-3 px-3 py-2.5 hover:bg-paper">
-                      <input type="checkbox" checked={keys.has(key)} onChange={() => toggle(key)} className="mt-1 h-4 w-4 shrink-0 accent-accent-700" />
-                      <span className={keys.has(key) ? 'text-ink-700 line-through decoration-ink-500' : 'text-ink-900'}>{change.summary}</span>
+                      <input
+                        type="checkbox"
+                        checked={keys.has(key)}
+                        onChange={() => toggle(key)}
+                        className="mt-1 h-4 w-4 shrink-0 accent-accent-700"
+                      />
+                      <span className={keys.has(key) ? 'text-ink-700 line-through decoration-ink-500' : 'text-ink-900'}>
+                        {change.summary}
+                      </span>
                     </label>
                   ) : (
                     <p className="flex items-start gap-3 px-3 py-2.5 text-ink-900">
@@ -107,7 +121,12 @@ export function ReuseChecklist({ check, tickable = false, action }: ReuseCheckli
 
       <section>
         <h3 className="text-base font-semibold text-ink-900">The model’s findings for this slot</h3>
-        <FindingsList className="mt-2" findings={check.findings} modelId={check.model.id} emptyText="The checks found nothing in this slot." />
+        <FindingsList
+          className="mt-2"
+          findings={check.findings}
+          modelId={check.model.id}
+          emptyText="The checks found nothing in this slot."
+        />
       </section>
 
       <CautionsPanel headingLevel={3} />

@@ -20,7 +20,8 @@ const FILTERS: { value: ShelfStatus | null; label: string }[] = [
   { value: 'free', label: 'Free' },
 ];
 
-const statusFrom = (value: string | null): ShelfStatus | null => (value === 'installed' || value === 'free' ? value : null);
+const statusFrom = (value: string | null): ShelfStatus | null =>
+  value === 'installed' || value === 'free' ? value : null;
 
 export function ShelfScreen() {
   const { inUrl } = useCurrentWorkspace();
@@ -46,7 +47,9 @@ export function ShelfScreen() {
           editor ? (
             <Button onClick={() => setAdding(true)}>Add receiver</Button>
           ) : (
-            <p className="max-w-xs text-sm text-ink-700">Your role here is {inUrl.role}: you can read the shelf; owners and editors change it.</p>
+            <p className="max-w-xs text-sm text-ink-700">
+              Your role here is {inUrl.role}: you can read the shelf; owners and editors change it.
+            </p>
           )
         }
       />
@@ -74,7 +77,13 @@ export function ShelfScreen() {
                     active ? 'bg-accent-700 font-medium text-white' : 'text-ink-700 hover:bg-ply-100',
                   )}
                 >
-                  <input type="radio" name="shelf-status" className="sr-only" checked={active} onChange={() => update({ status: filter.value })} />
+                  <input
+                    type="radio"
+                    name="shelf-status"
+                    className="sr-only"
+                    checked={active}
+                    onChange={() => update({ status: filter.value })}
+                  />
                   {filter.label}
                 </label>
               );
@@ -106,7 +115,10 @@ export function ShelfScreen() {
             The search looks at each unit’s label, the mark on its case and its notes.
           </EmptyState>
         ) : (
-          <EmptyState title="The shelf is empty" action={editor ? <Button onClick={() => setAdding(true)}>Add the first receiver</Button> : undefined}>
+          <EmptyState
+            title="The shelf is empty"
+            action={editor ? <Button onClick={() => setAdding(true)}>Add the first receiver</Button> : undefined}
+          >
             Add each physical receiver with the mark on its case, so the club knows which unit holds which settings.
           </EmptyState>
         )

@@ -12,11 +12,21 @@ export function ShelfTable({ units, workspaceId }: { units: ShelfUnit[]; workspa
         <caption className="sr-only">Receivers on this workspace’s shelf</caption>
         <thead className="border-b border-ply-200 text-sm text-ink-700">
           <tr>
-            <th scope="col" className="px-3 py-2.5 font-medium">Receiver</th>
-            <th scope="col" className="px-3 py-2.5 font-medium">Mark</th>
-            <th scope="col" className="px-3 py-2.5 text-right font-medium">Outputs</th>
-            <th scope="col" className="px-3 py-2.5 font-medium">Where installed</th>
-            <th scope="col" className="px-3 py-2.5 font-medium">Telemetry</th>
+            <th scope="col" className="px-3 py-2.5 font-medium">
+              Receiver
+            </th>
+            <th scope="col" className="px-3 py-2.5 font-medium">
+              Mark
+            </th>
+            <th scope="col" className="px-3 py-2.5 text-right font-medium">
+              Outputs
+            </th>
+            <th scope="col" className="px-3 py-2.5 font-medium">
+              Where installed
+            </th>
+            <th scope="col" className="px-3 py-2.5 font-medium">
+              Telemetry
+            </th>
           </tr>
         </thead>
         <tbody className="divide-y divide-ply-100">
@@ -26,7 +36,11 @@ export function ShelfTable({ units, workspaceId }: { units: ShelfUnit[]; workspa
                 <Link to={`/w/${workspaceId}/shelf/${unit.id}`} className="font-medium">
                   {unit.label}
                 </Link>
-                {unit.notes && <span className="mt-0.5 block max-w-[12rem] truncate text-sm text-ink-500 lg:max-w-xs">{unit.notes}</span>}
+                {unit.notes && (
+                  <span className="mt-0.5 block max-w-[12rem] truncate text-sm text-ink-500 lg:max-w-xs">
+                    {unit.notes}
+                  </span>
+                )}
               </td>
               <td className="min-w-[9.5rem] px-3 py-3 text-ink-900">
                 <MarkLabel mark={unit.mark} colour={unit.mark_colour} />
@@ -36,7 +50,9 @@ export function ShelfTable({ units, workspaceId }: { units: ShelfUnit[]; workspa
                 {unit.installed ? (
                   <div className="flex flex-col items-start gap-1">
                     <span>
-                      <Link to={`/models/${unit.installed.model.id}/overview`}>{unit.installed.model.name ?? 'A model'}</Link>
+                      <Link to={`/models/${unit.installed.model.id}/overview`}>
+                        {unit.installed.model.name ?? 'A model'}
+                      </Link>
                       <span className="text-ink-700">
                         {' '}
                         · slot <code className="font-mono text-sm">{unit.installed.slot}</code>

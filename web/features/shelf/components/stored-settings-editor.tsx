@@ -23,18 +23,33 @@ function failsafeOf(text: string): StoredFailsafe | string {
 }
 
 /** Record what the unit holds now, read off the unit itself: a channel and a failsafe per pin, and telemetry. */
-export function StoredSettingsEditor({ receiverId, outputs, settings, onDone }: { receiverId: string; outputs: number; settings: StoredSettings | null; onDone: () => void }) {
+export function StoredSettingsEditor({
+  receiverId,
+  outputs,
+  settings,
+  onDone,
+}: {
+  receiverId: string;
+  outputs: number;
+  settings: StoredSettings | null;
+  onDone: () => void;
+}) {
   const update = useUpdateReceiver(receiverId);
   const byPin = new Map((settings?.pins ?? []).map((entry) => [entry.pin, entry]));
   const [telemetry, setTelemetry] = useState(settings?.telemetry ?? true);
-  const [rows, setRows] = useState<Row[]>(() => Array.from({ length: outputs }, (_, index) => rowOf(byPin.get(index + 1))));
+  const [rows, setRows] = useState<Row[]>(() =>
+    Array.from({ length: outputs }, (_, index) => rowOf(byPin.get(index + 1))),
+  );
   const fields = isApiError(update.error) ? update.error.fields : {};
 
-  const set = (index: number, change: Partial<Row>) => setRows((all) => all.map((row, i) => (i === index ? { ...row, ...change } : row)));
+  const set = (index: number, change: Partial<Row>) =>
+    setRows((all) => all.map((row, i) => (i === index ? { ...row, ...change } : row)));
 
   function submit(event: FormEvent) {
     event.preventDefault();
-    const pins = rows.flatMap((row, index) => (row.ch.trim() === '' ? [] : [{ pin: index + 1, ch: Number(row.ch), failsafe: failsafeOf(row.failsafe) }]));
+    const pins = rows.flatMap((row, index) =>
+      row.ch.trim() === '' ? [] : [{ pin: index + 1, ch: Number(row.ch), failsafe: failsafeOf(row.failsafe) }],
+    );
     update.mutate({ stored_settings: { telemetry, pins: pins as StoredSettings['pins'] } }, { onSuccess: onDone });
   }
 
@@ -42,17 +57,30 @@ export function StoredSettingsEditor({ receiverId, outputs, settings, onDone }: 
     <form onSubmit={submit} noValidate className="space-y-3">
       {update.error && <FormAlert>{update.error.message}</FormAlert>}
       <label className="flex items-center gap-2 text-base text-ink-900">
-        <input type="checkbox" checked={telemetry} onChange={(event) => setTelemetry(event.target.checked)} className="h-4 w-4 accent-accent-700" />
+        <input
+          type="checkbox"
+          checked={telemetry}
+          onChange={(event) => setTelemetry(event.target.checked)}
+          className="h-4 w-4 accent-accent-700"
+        />
         The unit sends telemetry
       </label>
       <div className="overflow-x-auto rounded-lg border border-ply-200 bg-paper-raised">
         <table className="w-full text-left text-base">
-          <caption className="sr-only">Settings per output pin; leave the channel empty for a pin that carries none</caption>
+          <caption className="sr-only">
+            Settings per output pin; leave the channel empty for a pin that carries none
+          </caption>
           <thead className="border-b border-ply-200 text-sm text-ink-700">
             <tr>
-              <th scope="col" className="px-3 py-2 font-medium">Pin</th>
-              <th scope="col" className="px-3 py-2 font-medium">Channel</th>
-              <th scope="col" className="px-3 py-2 font-medium">Failsafe (us, hold, off or empty)</th>
+              <th scope="col" className="px-3 py-2 font-medium">
+                Pin
+              </th>
+              <th scope="col" className="px-3 py-2 font-medium">
+                Channel
+              </th>
+              <th scope="col" className="px-3 py-2 font-medium">
+                Failsafe (us, hold, off or empty)
+              </th>
             </tr>
           </thead>
           <tbody className="divide-y divide-ply-100">

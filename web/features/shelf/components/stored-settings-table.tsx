@@ -2,7 +2,15 @@ import { describeFailsafe, type StoredSettings } from '../../../../shared/reuse/
 import { exactTime } from '../../models/format-time';
 
 /** What the unit itself holds, pin by pin, as last recorded. */
-export function StoredSettingsTable({ settings, outputs, recordedAt }: { settings: StoredSettings | null; outputs: number; recordedAt: string | null }) {
+export function StoredSettingsTable({
+  settings,
+  outputs,
+  recordedAt,
+}: {
+  settings: StoredSettings | null;
+  outputs: number;
+  recordedAt: string | null;
+}) {
   if (!settings) {
     return (
       <p className="rounded-md border border-dashed border-ply-300 bg-paper px-4 py-3 text-base text-ink-700">
@@ -28,9 +36,15 @@ export function StoredSettingsTable({ settings, outputs, recordedAt }: { setting
           <caption className="sr-only">Stored settings per output pin</caption>
           <thead className="border-b border-ply-200 text-sm text-ink-700">
             <tr>
-              <th scope="col" className="px-3 py-2 font-medium">Pin</th>
-              <th scope="col" className="px-3 py-2 font-medium">Carries channel</th>
-              <th scope="col" className="px-3 py-2 font-medium">Failsafe</th>
+              <th scope="col" className="px-3 py-2 font-medium">
+                Pin
+              </th>
+              <th scope="col" className="px-3 py-2 font-medium">
+                Carries channel
+              </th>
+              <th scope="col" className="px-3 py-2 font-medium">
+                Failsafe
+              </th>
             </tr>
           </thead>
           <tbody className="divide-y divide-ply-100 font-mono text-sm">
@@ -39,8 +53,12 @@ export function StoredSettingsTable({ settings, outputs, recordedAt }: { setting
               return (
                 <tr key={pin}>
                   <td className="px-3 py-1.5">{pin}</td>
-                  <td className="px-3 py-1.5">{entry ? entry.ch : <span className="font-sans text-ink-500">none</span>}</td>
-                  <td className="px-3 py-1.5">{entry ? describeFailsafe(entry.failsafe) : <span className="font-sans text-ink-500">—</span>}</td>
+                  <td className="px-3 py-1.5">
+                    {entry ? entry.ch : <span className="font-sans text-ink-500">none</span>}
+                  </td>
+                  <td className="px-3 py-1.5">
+                    {entry ? describeFailsafe(entry.failsafe) : <span className="font-sans text-ink-500">—</span>}
+                  </td>
                 </tr>
               );
             })}

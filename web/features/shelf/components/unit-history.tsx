@@ -8,7 +8,8 @@ import { useReceiverHistory } from '../api/get-receiver';
 import type { UnitEvent } from '../types';
 
 const text = (value: unknown): string | null => (typeof value === 'string' ? value : null);
-const count = (value: unknown): number | null => (typeof value === 'number' ? value : Array.isArray(value) ? value.length : null);
+const count = (value: unknown): number | null =>
+  typeof value === 'number' ? value : Array.isArray(value) ? value.length : null;
 
 /** One line per recorded event, in the pilot's words. */
 function describe(event: UnitEvent): string {
@@ -25,12 +26,16 @@ function describe(event: UnitEvent): string {
       return `Installed in ${where} (revision ${String(d.revision_number ?? '?')}; ${state})${moved}`;
     }
     case 'receiver.removed':
-      return d.moved_to ? `Left ${where} for slot ${(d.moved_to as { slot?: string }).slot} of ${(d.moved_to as { model_name?: string }).model_name ?? 'a model'}` : `Removed from ${where}, back on the shelf`;
+      return d.moved_to
+        ? `Left ${where} for slot ${(d.moved_to as { slot?: string }).slot} of ${(d.moved_to as { model_name?: string }).model_name ?? 'a model'}`
+        : `Removed from ${where}, back on the shelf`;
     case 'receiver.settings-applied':
       return `Settings of ${where} applied (revision ${String(d.revision_number ?? '?')}, ${count(d.changes) ?? 0} changes)`;
     case 'receiver.updated': {
       const after = (d.after ?? {}) as Record<string, unknown>;
-      const names = Object.keys(after).map((key) => (key === 'stored_settings' ? 'stored settings recorded' : key.replace('_', ' ')));
+      const names = Object.keys(after).map((key) =>
+        key === 'stored_settings' ? 'stored settings recorded' : key.replace('_', ' '),
+      );
       return `Record changed: ${names.join(', ')}`;
     }
     default:
@@ -41,7 +46,14 @@ function describe(event: UnitEvent): string {
 export function UnitHistory({ receiverId }: { receiverId: string }) {
   const history = useReceiverHistory(receiverId);
   if (history.isPending) return <LoadingState label="Loading the history…" />;
-  if (history.isError) return <ErrorState title="The history could not be loaded" error={history.error} onRetry={() => void history.refetch()} />;
+  if (history.isError)
+    return (
+      <ErrorState
+        title="The history could not be loaded"
+        error={history.error}
+        onRetry={() => void history.refetch()}
+      />
+    );
   const { installs, events } = history.data;
   return (
     <div className="grid gap-6 lg:grid-cols-2">
@@ -61,7 +73,12 @@ export function UnitHistory({ receiverId }: { receiverId: string }) {
                   </span>
                 </p>
                 <p className="text-sm text-ink-700">
-                  <time dateTime={stay.from}>{exactTime(stay.from)}</time> to {stay.to ? <time dateTime={stay.to}>{exactTime(stay.to)}</time> : <strong className="font-semibold text-ink-900">now</strong>}
+                  <time dateTime={stay.from}>{exactTime(stay.from)}</time> to{' '}
+                  {stay.to ? (
+                    <time dateTime={stay.to}>{exactTime(stay.to)}</time>
+                  ) : (
+                    <strong className="font-semibold text-ink-900">now</strong>
+                  )}
                 </p>
               </li>
             ))}

@@ -22,7 +22,15 @@ import { StoredSettingsEditor } from './stored-settings-editor';
 import { StoredSettingsTable } from './stored-settings-table';
 import { UnitHistory } from './unit-history';
 
-function Section({ title, children, actions }: { title: string; children: React.ReactNode; actions?: React.ReactNode }) {
+function Section({
+  title,
+  children,
+  actions,
+}: {
+  title: string;
+  children: React.ReactNode;
+  actions?: React.ReactNode;
+}) {
   return (
     <Card className="px-5 py-4">
       <section>
@@ -56,7 +64,11 @@ function RemoveDialog({ unit, onClose }: { unit: ShelfUnit; onClose: () => void 
   const remove = useRemoveReceiver(unit.id);
   const toast = useToast();
   return (
-    <Dialog title={`Take ${unit.label} out?`} description="It goes back on the shelf, free, keeping the settings it holds; its history keeps this stay." onClose={onClose}>
+    <Dialog
+      title={`Take ${unit.label} out?`}
+      description="It goes back on the shelf, free, keeping the settings it holds; its history keeps this stay."
+      onClose={onClose}
+    >
       {remove.error && (
         <p role="alert" className="mb-3 text-sm text-danger-700">
           {remove.error.message}
@@ -98,12 +110,26 @@ export function UnitScreen() {
   const breadcrumb = (
     <nav aria-label="Breadcrumb" className="mb-2 text-sm text-ink-700">
       <Link to={shelfPath}>Shelf</Link>
-      <span aria-hidden="true" className="px-1.5 text-ink-500">/</span>
+      <span aria-hidden="true" className="px-1.5 text-ink-500">
+        /
+      </span>
       <span>{unit.data?.label ?? 'Receiver'}</span>
     </nav>
   );
-  if (unit.isPending) return (<>{breadcrumb}<LoadingState label="Loading the receiver…" /></>);
-  if (unit.isError) return (<>{breadcrumb}<ErrorState title="This receiver could not be loaded" error={unit.error} onRetry={() => void unit.refetch()} /></>);
+  if (unit.isPending)
+    return (
+      <>
+        {breadcrumb}
+        <LoadingState label="Loading the receiver…" />
+      </>
+    );
+  if (unit.isError)
+    return (
+      <>
+        {breadcrumb}
+        <ErrorState title="This receiver could not be loaded" error={unit.error} onRetry={() => void unit.refetch()} />
+      </>
+    );
 
   const data = unit.data;
   const editor = canEdit(inUrl.role);
@@ -157,7 +183,8 @@ export function UnitScreen() {
             {installed ? (
               <div className="space-y-2">
                 <p className="text-base">
-                  In <Link to={`/models/${installed.model.id}/overview`}>{installed.model.name}</Link>, slot <code className="font-mono text-sm">{installed.slot}</code>, since{' '}
+                  In <Link to={`/models/${installed.model.id}/overview`}>{installed.model.name}</Link>, slot{' '}
+                  <code className="font-mono text-sm">{installed.slot}</code>, since{' '}
                   <time dateTime={installed.since}>{exactTime(installed.since)}</time>.
                 </p>
                 {data.readiness && <ReadinessBadge readiness={data.readiness} />}
@@ -181,9 +208,18 @@ export function UnitScreen() {
             }
           >
             {recording ? (
-              <StoredSettingsEditor receiverId={data.id} outputs={data.outputs} settings={data.stored_settings} onDone={() => setRecording(false)} />
+              <StoredSettingsEditor
+                receiverId={data.id}
+                outputs={data.outputs}
+                settings={data.stored_settings}
+                onDone={() => setRecording(false)}
+              />
             ) : (
-              <StoredSettingsTable settings={data.stored_settings} outputs={data.outputs} recordedAt={data.settings_recorded_at} />
+              <StoredSettingsTable
+                settings={data.stored_settings}
+                outputs={data.outputs}
+                recordedAt={data.settings_recorded_at}
+              />
             )}
           </Section>
         </div>

@@ -10,7 +10,11 @@ export async function getInvitation(token: string, signal?: AbortSignal): Promis
 }
 
 export function invitationQueryOptions(token: string) {
-  return queryOptions({ queryKey: ['invitations', token], queryFn: ({ signal }) => getInvitation(token, signal), staleTime: Infinity });
+  return queryOptions({
+    queryKey: ['invitations', token],
+    queryFn: ({ signal }) => getInvitation(token, signal),
+    staleTime: Infinity,
+  });
 }
 
 export function useInvitation(token: string) {
@@ -23,7 +27,10 @@ export interface AcceptAnswer {
 }
 
 /** Joins as the signed-in user, or with a name and password creates the invited account. */
-export async function acceptInvitation(token: string, account?: { name: string; password: string }): Promise<AcceptAnswer> {
+export async function acceptInvitation(
+  token: string,
+  account?: { name: string; password: string },
+): Promise<AcceptAnswer> {
   return (await api.post<AcceptAnswer>(`/api/invitations/${encodeURIComponent(token)}/accept`, account ?? {})).data;
 }
 

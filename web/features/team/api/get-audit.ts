@@ -16,7 +16,10 @@ export interface AuditPage {
 
 export async function getAudit(workspaceId: Id, offset: number, signal?: AbortSignal): Promise<AuditPage> {
   const params = new URLSearchParams({ limit: String(AUDIT_PAGE_SIZE), offset: String(offset) });
-  const { data, pagination } = await api.get<AuditEvent[]>(`/api/workspaces/${encodeURIComponent(workspaceId)}/audit?${params}`, signal);
+  const { data, pagination } = await api.get<AuditEvent[]>(
+    `/api/workspaces/${encodeURIComponent(workspaceId)}/audit?${params}`,
+    signal,
+  );
   const total = typeof pagination?.total === 'number' ? pagination.total : offset + data.length;
   const end = offset + data.length;
   return { events: data, nextOffset: data.length > 0 && end < total ? end : null, total };

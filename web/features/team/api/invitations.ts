@@ -11,7 +11,10 @@ export async function listInvitations(workspaceId: Id, signal?: AbortSignal): Pr
 }
 
 export function invitationsQueryOptions(workspaceId: Id) {
-  return queryOptions({ queryKey: invitationsQueryKey(workspaceId), queryFn: ({ signal }) => listInvitations(workspaceId, signal) });
+  return queryOptions({
+    queryKey: invitationsQueryKey(workspaceId),
+    queryFn: ({ signal }) => listInvitations(workspaceId, signal),
+  });
 }
 
 /** Pending invitations; only owners may read them, so the query waits for `enabled`. */
@@ -29,7 +32,11 @@ export async function inviteMember(workspaceId: Id, input: InviteInput): Promise
 }
 
 export async function revokeInvitation(workspaceId: Id, invitationId: Id): Promise<Invitation> {
-  return (await api.delete<Invitation>(`/api/workspaces/${encodeURIComponent(workspaceId)}/invitations/${encodeURIComponent(invitationId)}`)).data;
+  return (
+    await api.delete<Invitation>(
+      `/api/workspaces/${encodeURIComponent(workspaceId)}/invitations/${encodeURIComponent(invitationId)}`,
+    )
+  ).data;
 }
 
 function useRefreshTeam(workspaceId: Id) {
@@ -47,5 +54,8 @@ export function useInviteMember(workspaceId: Id) {
 
 export function useRevokeInvitation(workspaceId: Id) {
   const refresh = useRefreshTeam(workspaceId);
-  return useMutation({ mutationFn: (invitationId: Id) => revokeInvitation(workspaceId, invitationId), onSuccess: refresh });
+  return useMutation({
+    mutationFn: (invitationId: Id) => revokeInvitation(workspaceId, invitationId),
+    onSuccess: refresh,
+  });
 }

@@ -5,7 +5,8 @@ import type { Id, Member, Role } from '../../../types/api';
 import { auditQueryKey } from './get-audit';
 import { membersQueryOptions } from './get-members';
 
-const memberPath = (workspaceId: Id, userId: Id) => `/api/workspaces/${encodeURIComponent(workspaceId)}/members/${encodeURIComponent(userId)}`;
+const memberPath = (workspaceId: Id, userId: Id) =>
+  `/api/workspaces/${encodeURIComponent(workspaceId)}/members/${encodeURIComponent(userId)}`;
 
 export async function changeRole(workspaceId: Id, userId: Id, role: Role): Promise<Member> {
   return (await api.patch<Member>(memberPath(workspaceId, userId), { role })).data;
@@ -27,7 +28,10 @@ function useRefreshMembers(workspaceId: Id) {
 
 export function useChangeRole(workspaceId: Id) {
   const refresh = useRefreshMembers(workspaceId);
-  return useMutation({ mutationFn: ({ userId, role }: { userId: Id; role: Role }) => changeRole(workspaceId, userId, role), onSuccess: refresh });
+  return useMutation({
+    mutationFn: ({ userId, role }: { userId: Id; role: Role }) => changeRole(workspaceId, userId, role),
+    onSuccess: refresh,
+  });
 }
 
 export function useRemoveMember(workspaceId: Id) {

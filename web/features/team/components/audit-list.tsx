@@ -17,12 +17,18 @@ export function AuditList({ workspaceId }: { workspaceId: Id }) {
   return (
     <Card className="p-5">
       <h2 className="text-lg font-semibold text-ink-900">Activity</h2>
-      <p className="mt-0.5 text-sm text-ink-700">Who saved, reverted, forked, invited, changed a role, asked for a review or gave a verdict, and when.</p>
+      <p className="mt-0.5 text-sm text-ink-700">
+        Who saved, reverted, forked, invited, changed a role, asked for a review or gave a verdict, and when.
+      </p>
       {audit.isPending ? (
         <LoadingState label="Loading the activity…" />
       ) : audit.isError && events.length === 0 ? (
         <div className="mt-3">
-          <ErrorState title="The activity could not be loaded" error={audit.error} onRetry={() => void audit.refetch()} />
+          <ErrorState
+            title="The activity could not be loaded"
+            error={audit.error}
+            onRetry={() => void audit.refetch()}
+          />
         </div>
       ) : events.length === 0 ? (
         <p className="mt-3 text-sm text-ink-700">Nothing has happened in this workspace yet.</p>
@@ -35,7 +41,8 @@ export function AuditList({ workspaceId }: { workspaceId: Id }) {
                 <li key={event.id} className="flex flex-wrap items-baseline gap-x-2 gap-y-0.5 py-2.5 text-base">
                   <span className="min-w-0 flex-1">
                     {line.model && <span className="text-ink-700">{line.model}: </span>}
-                    <span className="font-medium text-ink-900">{event.actor?.name ?? 'Someone'}</span> <span className="text-ink-700">{line.text}</span>
+                    <span className="font-medium text-ink-900">{event.actor?.name ?? 'Someone'}</span>{' '}
+                    <span className="text-ink-700">{line.text}</span>
                     {line.link && (
                       <>
                         {' · '}
@@ -50,10 +57,21 @@ export function AuditList({ workspaceId }: { workspaceId: Id }) {
               );
             })}
           </ol>
-          {audit.isFetchNextPageError && <ErrorState title="Older activity could not be loaded" error={audit.error} onRetry={() => void audit.fetchNextPage()} />}
+          {audit.isFetchNextPageError && (
+            <ErrorState
+              title="Older activity could not be loaded"
+              error={audit.error}
+              onRetry={() => void audit.fetchNextPage()}
+            />
+          )}
           {audit.hasNextPage && (
             <div className="mt-3 flex flex-wrap items-center gap-3">
-              <Button variant="secondary" size="sm" pending={audit.isFetchingNextPage} onClick={() => void audit.fetchNextPage()}>
+              <Button
+                variant="secondary"
+                size="sm"
+                pending={audit.isFetchingNextPage}
+                onClick={() => void audit.fetchNextPage()}
+              >
                 Show older activity
               </Button>
               <span className="text-sm text-ink-700">

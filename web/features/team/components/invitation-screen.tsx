@@ -38,7 +38,8 @@ export function InvitationScreen() {
       <AuthLayout title="This invitation cannot be used">
         <FormAlert>{invitation.error.message}</FormAlert>
         <p className="mt-4 text-sm text-ink-700">
-          Each invitation link works once and for seven days. Ask the workspace owner for a new one, or <Link to="/sign-in">sign in</Link>.
+          Each invitation link works once and for seven days. Ask the workspace owner for a new one, or{' '}
+          <Link to="/sign-in">sign in</Link>.
         </p>
       </AuthLayout>
     );
@@ -59,9 +60,13 @@ export function InvitationScreen() {
       ) : signedOut && preview.account_exists ? (
         <div className="space-y-4">
           <p className="text-base text-ink-700">
-            An account for <span className="font-mono text-sm text-ink-900">{preview.email}</span> exists already. Sign in with it to accept.
+            An account for <span className="font-mono text-sm text-ink-900">{preview.email}</span> exists already. Sign
+            in with it to accept.
           </p>
-          <Link to={`/sign-in?next=${encodeURIComponent(`/invitations/${token}`)}`} className={`${buttonClasses('primary')} w-full no-underline hover:text-white`}>
+          <Link
+            to={`/sign-in?next=${encodeURIComponent(`/invitations/${token}`)}`}
+            className={`${buttonClasses('primary')} w-full no-underline hover:text-white`}
+          >
             Sign in to accept
           </Link>
         </div>
@@ -94,11 +99,7 @@ function JoinAsMember({ accept, preview, session }: { accept: Accept; preview: I
         <span className="font-mono text-sm">{session.user.email}</span>).
         {otherAddress && ` The invitation was sent to ${preview.email}; accepting adds this account.`}
       </p>
-      <Button
-        className="w-full"
-        pending={accept.isPending}
-        onClick={() => accept.mutate(undefined)}
-      >
+      <Button className="w-full" pending={accept.isPending} onClick={() => accept.mutate(undefined)}>
         Accept and join {preview.workspace.name}
       </Button>
     </div>
@@ -123,7 +124,14 @@ function NewAccountForm({ accept, token, preview }: { accept: Accept; token: str
     clear();
     accept.mutate(
       { name: values.name.trim(), password: values.password },
-      { onError: (error) => refuse(isApiError(error) && error.code === 'account-exists' ? { fields: {}, general: error.message } : formErrorsFrom(error, FIELDS)) },
+      {
+        onError: (error) =>
+          refuse(
+            isApiError(error) && error.code === 'account-exists'
+              ? { fields: {}, general: error.message }
+              : formErrorsFrom(error, FIELDS),
+          ),
+      },
     );
   };
 
@@ -134,13 +142,27 @@ function NewAccountForm({ accept, token, preview }: { accept: Accept; token: str
         <p className="text-sm font-medium text-ink-900">E-mail</p>
         <p className="mt-1 font-mono text-sm text-ink-700">{preview.email}</p>
       </div>
-      <TextField label="Name" name="name" autoComplete="name" value={values.name} onChange={(event) => setValues((v) => ({ ...v, name: event.target.value }))} error={errors.fields.name} />
-      <NewPasswordField name="password" value={values.password} onChange={(event) => setValues((v) => ({ ...v, password: event.target.value }))} error={errors.fields.password} />
+      <TextField
+        label="Name"
+        name="name"
+        autoComplete="name"
+        value={values.name}
+        onChange={(event) => setValues((v) => ({ ...v, name: event.target.value }))}
+        error={errors.fields.name}
+      />
+      <NewPasswordField
+        name="password"
+        value={values.password}
+        onChange={(event) => setValues((v) => ({ ...v, password: event.target.value }))}
+        error={errors.fields.password}
+      />
       <Button type="submit" className="w-full" pending={accept.isPending}>
         Create account and join
       </Button>
       <p className="text-sm text-ink-700">
-        Have an account under another address? <Link to={`/sign-in?next=${encodeURIComponent(`/invitations/${token}`)}`}>Sign in</Link> and open this link again.
+        Have an account under another address?{' '}
+        <Link to={`/sign-in?next=${encodeURIComponent(`/invitations/${token}`)}`}>Sign in</Link> and open this link
+        again.
       </p>
     </form>
   );

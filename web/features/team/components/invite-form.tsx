@@ -42,7 +42,9 @@ export function InviteForm({ workspaceId }: { workspaceId: Id }) {
   return (
     <Card className="p-5">
       <h2 className="text-lg font-semibold text-ink-900">Invite a member</h2>
-      <p className="mt-0.5 text-sm text-ink-700">Bindery e-mails a link that adds them with the role you choose, or creates their account.</p>
+      <p className="mt-0.5 text-sm text-ink-700">
+        Bindery e-mails a link that adds them with the role you choose, or creates their account.
+      </p>
       <form ref={formRef} onSubmit={onSubmit} noValidate className="mt-4 space-y-4" aria-label="Invite a member">
         {errors.general && <FormAlert>{errors.general}</FormAlert>}
         {sent && <FormAlert tone="success">{sent}</FormAlert>}
@@ -58,7 +60,13 @@ export function InviteForm({ workspaceId }: { workspaceId: Id }) {
             onChange={(event) => setEmail(event.target.value)}
             error={errors.fields.email}
           />
-          <SelectField label="Role" name="role" value={role} onChange={(event) => setRole(event.target.value as Role)} error={errors.fields.role}>
+          <SelectField
+            label="Role"
+            name="role"
+            value={role}
+            onChange={(event) => setRole(event.target.value as Role)}
+            error={errors.fields.role}
+          >
             {ROLE_CHOICES.map((choice) => (
               <option key={choice.value} value={choice.value}>
                 {choice.label}
@@ -67,7 +75,8 @@ export function InviteForm({ workspaceId }: { workspaceId: Id }) {
           </SelectField>
         </div>
         <p className="text-sm text-ink-700">
-          {ROLE_CHOICES.find((choice) => choice.value === role)?.label}: {ROLE_CHOICES.find((choice) => choice.value === role)?.hint}.
+          {ROLE_CHOICES.find((choice) => choice.value === role)?.label}:{' '}
+          {ROLE_CHOICES.find((choice) => choice.value === role)?.hint}.
         </p>
         <Button type="submit" pending={invite.isPending}>
           Send invitation

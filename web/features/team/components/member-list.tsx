@@ -22,9 +22,18 @@ export function MemberList({ workspace }: { workspace: WorkspaceMembership }) {
   const owner = workspace.role === 'owner';
 
   if (members.isPending) return <LoadingState label="Loading members…" />;
-  if (members.isError) return <ErrorState title="The member list could not be loaded" error={members.error} onRetry={() => void members.refetch()} />;
+  if (members.isError)
+    return (
+      <ErrorState
+        title="The member list could not be loaded"
+        error={members.error}
+        onRetry={() => void members.refetch()}
+      />
+    );
   if (members.data.length === 0) {
-    return <EmptyState title="No members yet">Invite club mates to share this workspace's models and receivers.</EmptyState>;
+    return (
+      <EmptyState title="No members yet">Invite club mates to share this workspace's models and receivers.</EmptyState>
+    );
   }
 
   return (
@@ -34,9 +43,15 @@ export function MemberList({ workspace }: { workspace: WorkspaceMembership }) {
           <caption className="sr-only">Members of this workspace</caption>
           <thead className="border-b border-ply-200 text-sm text-ink-700">
             <tr>
-              <th scope="col" className="px-4 py-3 font-medium">Name</th>
-              <th scope="col" className="px-4 py-3 font-medium">E-mail</th>
-              <th scope="col" className="px-4 py-3 font-medium">Role</th>
+              <th scope="col" className="px-4 py-3 font-medium">
+                Name
+              </th>
+              <th scope="col" className="px-4 py-3 font-medium">
+                E-mail
+              </th>
+              <th scope="col" className="px-4 py-3 font-medium">
+                Role
+              </th>
               <th scope="col" className="px-4 py-3 font-medium">
                 <span className="sr-only">Actions</span>
               </th>
@@ -50,7 +65,9 @@ export function MemberList({ workspace }: { workspace: WorkspaceMembership }) {
                   {member.user.id === user.id && <span className="ml-2 text-sm font-normal text-ink-700">(you)</span>}
                 </td>
                 <td className="px-4 py-3 font-mono text-sm break-all text-ink-700">{member.user.email}</td>
-                <td className="px-4 py-3">{owner ? <RoleChoice workspace={workspace} member={member} /> : <RoleBadge role={member.role} />}</td>
+                <td className="px-4 py-3">
+                  {owner ? <RoleChoice workspace={workspace} member={member} /> : <RoleBadge role={member.role} />}
+                </td>
                 <td className="px-4 py-3 text-right">
                   {member.user.id === user.id ? (
                     <Button variant="secondary" size="sm" onClick={() => setRemoving(member)}>
@@ -58,7 +75,12 @@ export function MemberList({ workspace }: { workspace: WorkspaceMembership }) {
                     </Button>
                   ) : (
                     owner && (
-                      <Button variant="quiet" size="sm" aria-label={`Remove ${member.user.name}`} onClick={() => setRemoving(member)}>
+                      <Button
+                        variant="quiet"
+                        size="sm"
+                        aria-label={`Remove ${member.user.name}`}
+                        onClick={() => setRemoving(member)}
+                      >
                         Remove
                       </Button>
                     )
@@ -70,10 +92,17 @@ export function MemberList({ workspace }: { workspace: WorkspaceMembership }) {
         </table>
       </Card>
       <p className="mt-4 max-w-prose text-sm text-ink-700">
-        Owners manage members and roles; editors change models, revisions and receivers; reviewers read everything and give
-        verdicts; viewers read. A workspace always keeps at least one owner.
+        Owners manage members and roles; editors change models, revisions and receivers; reviewers read everything and
+        give verdicts; viewers read. A workspace always keeps at least one owner.
       </p>
-      {removing && <RemoveDialog workspace={workspace} member={removing} self={removing.user.id === user.id} onClose={() => setRemoving(null)} />}
+      {removing && (
+        <RemoveDialog
+          workspace={workspace}
+          member={removing}
+          self={removing.user.id === user.id}
+          onClose={() => setRemoving(null)}
+        />
+      )}
     </>
   );
 }
@@ -94,7 +123,12 @@ function RoleChoice({ workspace, member }: { workspace: WorkspaceMembership; mem
           { userId: member.user.id, role },
           {
             onSuccess: () => toast({ title: `${member.user.name} is now ${roleWord(role, true)}` }),
-            onError: (error) => toast({ title: `Could not change ${member.user.name}'s role`, description: error.message, tone: 'error' }),
+            onError: (error) =>
+              toast({
+                title: `Could not change ${member.user.name}'s role`,
+                description: error.message,
+                tone: 'error',
+              }),
           },
         );
       }}
@@ -108,7 +142,17 @@ function RoleChoice({ workspace, member }: { workspace: WorkspaceMembership; mem
   );
 }
 
-function RemoveDialog({ workspace, member, self, onClose }: { workspace: WorkspaceMembership; member: Member; self: boolean; onClose: () => void }) {
+function RemoveDialog({
+  workspace,
+  member,
+  self,
+  onClose,
+}: {
+  workspace: WorkspaceMembership;
+  member: Member;
+  self: boolean;
+  onClose: () => void;
+}) {
   const remove = useRemoveMember(workspace.id);
   const toast = useToast();
   const navigate = useNavigate();

@@ -20,7 +20,11 @@ export function PendingInvitations({ workspaceId }: { workspaceId: Id }) {
         <LoadingState label="Loading invitations…" />
       ) : invitations.isError ? (
         <div className="mt-3">
-          <ErrorState title="The invitations could not be loaded" error={invitations.error} onRetry={() => void invitations.refetch()} />
+          <ErrorState
+            title="The invitations could not be loaded"
+            error={invitations.error}
+            onRetry={() => void invitations.refetch()}
+          />
         </div>
       ) : invitations.data.length === 0 ? (
         <p className="mt-2 text-sm text-ink-700">No invitation is waiting for an answer.</p>
@@ -32,7 +36,8 @@ export function PendingInvitations({ workspaceId }: { workspaceId: Id }) {
               <RoleBadge role={invitation.role} />
               <span className="text-sm text-ink-700">
                 sent <TimeAgo iso={invitation.created_at} />
-                {invitation.invited_by && ` by ${invitation.invited_by.name}`}, expires <TimeAgo iso={invitation.expires_at} />
+                {invitation.invited_by && ` by ${invitation.invited_by.name}`}, expires{' '}
+                <TimeAgo iso={invitation.expires_at} />
               </span>
               <Button
                 variant="quiet"
@@ -42,8 +47,10 @@ export function PendingInvitations({ workspaceId }: { workspaceId: Id }) {
                 disabled={revoke.isPending}
                 onClick={() =>
                   revoke.mutate(invitation.id, {
-                    onSuccess: () => toast({ title: `The invitation to ${invitation.email} was withdrawn`, tone: 'info' }),
-                    onError: (error) => toast({ title: 'Could not withdraw the invitation', description: error.message, tone: 'error' }),
+                    onSuccess: () =>
+                      toast({ title: `The invitation to ${invitation.email} was withdrawn`, tone: 'info' }),
+                    onError: (error) =>
+                      toast({ title: 'Could not withdraw the invitation', description: error.message, tone: 'error' }),
                   })
                 }
               >

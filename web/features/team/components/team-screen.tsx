@@ -11,7 +11,11 @@ export function TeamScreen() {
   const owner = inUrl.role === 'owner';
   return (
     <>
-      <PageHeader title="Team" documentTitle={`Team · ${inUrl.name}`} description={`Who shares ${inUrl.name}, and what each may do.`} />
+      <PageHeader
+        title="Team"
+        documentTitle={`Team · ${inUrl.name}`}
+        description={`Who shares ${inUrl.name}, and what each may do.`}
+      />
       <section aria-labelledby="members-heading">
         <h2 id="members-heading" className="sr-only">
           Members
