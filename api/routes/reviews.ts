@@ -77,14 +77,12 @@ export function reviewsRouter(context: AppContext): Router {
       body: input.body ?? '',
       checklist: input.checklist ?? {},
     });
-    res
-      .status(201)
-      .json({
-        data: {
-          ...presentVerdict(verdict, new Map([[user.id, user]])),
-          review: { id: review.id, state: review.state, decided_at: review.decidedAt?.toISOString() ?? null },
-        },
-      });
+    res.status(201).json({
+      data: {
+        ...presentVerdict(verdict, new Map([[user.id, user]])),
+        review: { id: review.id, state: review.state, decided_at: review.decidedAt?.toISOString() ?? null },
+      },
+    });
   });
 
   router.post('/reviews/:id/checklist', signedIn, async (req, res) => {

@@ -101,12 +101,10 @@ function bodyCase(valid: Record<string, unknown>): fc.Arbitrary<BodyCase> {
         .map(([key, value]): BodyCase => ({ kind: 'json', value: { ...valid, [key]: value } }))
     : hostileValue.map((value): BodyCase => ({ kind: 'json', value: { field: value } }));
   const dropped = keys.length
-    ? fc
-        .constantFrom(...keys)
-        .map((key): BodyCase => ({
-          kind: 'json',
-          value: Object.fromEntries(Object.entries(valid).filter(([k]) => k !== key)),
-        }))
+    ? fc.constantFrom(...keys).map((key): BodyCase => ({
+        kind: 'json',
+        value: Object.fromEntries(Object.entries(valid).filter(([k]) => k !== key)),
+      }))
     : swapped;
   const added = fc
     .tuple(
@@ -122,13 +120,11 @@ function bodyCase(valid: Record<string, unknown>): fc.Arbitrary<BodyCase> {
       return { kind: 'json', value: body };
     });
   const anything = fc.jsonValue({ maxDepth: 5 }).map((value): BodyCase => ({ kind: 'json', value }));
-  const nested = fc
-    .integer({ min: 50, max: 5_000 })
-    .map((depth): BodyCase => ({
-      kind: 'raw',
-      type: 'application/json',
-      text: `${'{"a":['.repeat(depth)}1${']}'.repeat(depth)}`,
-    }));
+  const nested = fc.integer({ min: 50, max: 5_000 }).map((depth): BodyCase => ({
+    kind: 'raw',
+    type: 'application/json',
+    text: `${'{"a":['.repeat(depth)}1${']}'.repeat(depth)}`,
+  }));
   const raw = fc
     .tuple(
       fc.constantFrom(...CONTENT_TYPES),
