@@ -2,8 +2,9 @@ import { QueryTypes } from 'sequelize';
 import { Revision } from './models';
 import { modelReviewState, type ReviewFact } from './reviews/sign-off';
 
-export const REVIEW_STATES = ['none', 'pending', 'approved', 'stale', 'changes-requested'] as const;
-export type ReviewState = (typeof REVIEW_STATES)[number];
+import type { ReviewState } from '../shared/contract/review-state';
+
+export { clearedForMaiden, REVIEW_STATES, type ReviewState } from '../shared/contract/review-state';
 
 type LatestRevision = Pick<Revision, 'id' | 'modelId' | 'contentHash' | 'errorCount'>;
 
@@ -37,6 +38,3 @@ export async function reviewStateOf(revisions: readonly LatestRevision[]): Promi
     states.set(revision.id, modelReviewState(revision, byModel.get(revision.modelId) ?? []));
   return states;
 }
-
-/** A model is cleared for its maiden when its latest revision is approved (DESIGN.md, capability 8); approval needs a revision without errors. */
-export const clearedForMaiden = (state: ReviewState): boolean => state === 'approved';

@@ -1,12 +1,15 @@
-// npm test: every test, from a fresh clone. First the vitest projects (shared, api,
-// web; the api project's global setup runs a throwaway PostgreSQL of its own), then
-// the browser tests against the built app. Prints each runner's own summary and a
-// closing total; exits non-zero when anything failed.
+// npm test: every check and test, from a fresh clone. First what the machine lacks
+// (PostgreSQL's server programs, Chromium), then the static checks (types, lint,
+// format), then the vitest projects (shared, api, web; the api project's global setup
+// runs a throwaway PostgreSQL of its own), then the browser tests against the built
+// app. Prints each runner's own summary and a closing total; exits non-zero when
+// anything failed.
 import { existsSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { bin } from './lib/paths';
 import { runCommand } from './lib/run-command';
+import { ensureTestPrerequisites } from './lib/test-prerequisites';
 
 interface RunTotals {
   label: string;
@@ -51,12 +54,36 @@ async function runVitest(label: string, args: string[]): Promise<RunTotals> {
   };
 }
 
+interface StaticCheck {
+  label: string;
+  exitCode: number;
+}
+
+const STATIC_CHECKS: { label: string; command: string; args: string[] }[] = [
+  { label: 'types (tsc)', command: bin('tsc'), args: ['--noEmit', '-p', 'tsconfig.json'] },
+  { label: 'lint (eslint)', command: bin('eslint'), args: ['--max-warnings=0', '.'] },
+  { label: 'format (prettier)', command: bin('prettier'), args: ['--check', '--log-level=warn', '.'] },
+];
+
+async function runStaticChecks(): Promise<StaticCheck[]> {
+  const results: StaticCheck[] = [];
+  for (const check of STATIC_CHECKS) {
+    console.log(`\n=== ${check.label} ===`);
+    results.push({ label: check.label, exitCode: await runCommand(check.command, check.args, { env }) });
+  }
+  return results;
+}
+
 async function main(): Promise<number> {
+  await ensureTestPrerequisites();
+  const checks = await runStaticChecks();
   const runs = [
     await runVitest('unit, api and component tests', []),
     await runVitest('browser tests', ['--config', 'tests/e2e/vitest.config.ts']),
   ];
   console.log('\n=== summary ===');
+  for (const check of checks)
+    console.log(`${check.label}: ${check.exitCode === 0 ? 'clean' : `failed (exit ${check.exitCode})`}`);
   for (const run of runs) {
     const state = run.reported
       ? `${run.passed} passed, ${run.failed} failed, ${run.skipped} skipped`
@@ -64,8 +91,10 @@ async function main(): Promise<number> {
     console.log(`${run.label}: ${state}${run.exitCode !== 0 ? ` (exit ${run.exitCode})` : ''}`);
   }
   const sum = (key: 'passed' | 'failed' | 'skipped') => runs.reduce((total, run) => total + run[key], 0);
-  const failed = runs.some((run) => run.exitCode !== 0);
-  console.log(`Total: ${sum('passed')} passed, ${sum('failed')} failed, ${sum('skipped')} skipped`);
+  const failed = runs.some((run) => run.exitCode !== 0) || checks.some((check) => check.exitCode !== 0);
+  // A failed static check counts as a failure in the closing line, so it never reads as all-clear.
+  const failedChecks = checks.filter((check) => check.exitCode !== 0).length;
+  console.log(`Total: ${sum('passed')} passed, ${sum('failed') + failedChecks} failed, ${sum('skipped')} skipped`);
   return failed ? 1 : 0;
 }
 

@@ -1,6 +1,6 @@
-// The usual cautions where a setup is about to be programmed or flown (DESIGN.md,
+// The usual cautions where a setup is about to be programmed or flown (docs/design.md,
 // capability 11), written once for the screens, the field sheet and its PDF. Sources as
-// SOURCES.md names them: [back-feed] is common practice, [ama-safety-code], [cap-658]
+// docs/sources.md names them: [back-feed] is common practice, [ama-safety-code], [cap-658]
 // and [turbine-failsafe] are published rules.
 
 export interface Caution {

@@ -3,6 +3,9 @@ import { existsSync, mkdirSync, readFileSync, readdirSync, rmSync, chmodSync } f
 import net from 'node:net';
 import path from 'node:path';
 import { createDatabase } from './databases';
+import { ensureDebianPackage, isRoot, MissingPackageError } from './debian-package';
+
+export { isRoot };
 
 // A PostgreSQL cluster of the project's own: initdb into a folder, pg_ctl on
 // 127.0.0.1 and a port of its own, the unix socket kept in the data folder.
@@ -17,8 +20,6 @@ export class ClusterError extends Error {
 }
 
 type Log = (line: string) => void;
-
-export const isRoot = (): boolean => process.getuid?.() === 0;
 
 interface RunResult {
   code: number;
@@ -63,27 +64,18 @@ function newestBinDir(): string | null {
 
 /** The newest installed PostgreSQL server binaries; installs Debian's package when root. */
 export async function findPostgresBinaries(log: Log = console.log): Promise<string> {
-  const found = newestBinDir();
-  if (found) return found;
-  if (!isRoot()) {
-    throw new ClusterError(
-      `PostgreSQL's server programs were not found under ${PG_ROOT}/*/bin. Install Debian's "postgresql" package ` +
-        '(sudo apt-get install -y postgresql) or set DATABASE_URL to an existing server, then run this again.',
-    );
+  try {
+    await ensureDebianPackage({
+      name: 'postgresql',
+      purpose: 'The database (or set DATABASE_URL to an existing server)',
+      isPresent: () => newestBinDir() !== null,
+      log,
+    });
+  } catch (error) {
+    if (error instanceof MissingPackageError) throw new ClusterError(error.message);
+    throw error;
   }
-  log('PostgreSQL is not installed; installing Debian\'s "postgresql" package (apt-get)...');
-  const env = { ...process.env, DEBIAN_FRONTEND: 'noninteractive' };
-  for (const args of [['update'], ['install', '-y', 'postgresql']]) {
-    const result = await run('apt-get', args, { env, inherit: true });
-    if (result.code !== 0)
-      throw new ClusterError(
-        `apt-get ${args.join(' ')} failed (exit ${result.code}); install "postgresql" by hand or set DATABASE_URL.`,
-      );
-  }
-  const installed = newestBinDir();
-  if (!installed)
-    throw new ClusterError(`apt-get installed "postgresql" but no server programs appeared under ${PG_ROOT}/*/bin.`);
-  return installed;
+  return newestBinDir() as string;
 }
 
 /** Whether the user the server will run as can reach (search) this existing folder. */

@@ -1,70 +1,14 @@
 import type { Transaction } from 'sequelize';
-import type { Finding, FindingCounts } from '../../shared/findings';
-import type { Failsafe } from '../../shared/format/schema';
-import type { MarkColour } from '../../shared/reuse/receiver-fields';
 import { Unprocessable } from '../errors';
 import { Receiver, ReceiverInstall, type Revision, type SetupModel, User } from '../models';
 import { setupOf } from '../queries/receiver-slot';
-import { reviewStateOf, type ReviewState } from '../review-state';
-import { CAUTIONS, CAUTIONS_HEADING, type Caution } from '../../shared/cautions';
+import { reviewStateOf } from '../review-state';
+import { CAUTIONS, CAUTIONS_HEADING } from '../../shared/cautions';
+import type { FieldSheet, SheetPin, SheetReceiver } from '../../shared/contract/field-sheet';
+
+export type { FieldSheet, SheetPin, SheetReceiver };
 
 export const SHORT_HASH_LENGTH = 12;
-
-export interface SheetPin {
-  pin: number;
-  ch: number;
-  /** The channel plan's function for that channel; null when the plan has none. */
-  function: string | null;
-  role: string | null;
-  failsafe: Failsafe | null;
-}
-
-export interface SheetUnit {
-  id: string;
-  label: string;
-  mark: string | null;
-  mark_colour: MarkColour | null;
-}
-
-export interface SheetReceiver {
-  id: string;
-  label: string | null;
-  role: 'primary' | 'secondary';
-  outputs: number;
-  telemetry: boolean;
-  pins: SheetPin[];
-  /** The shelf unit installed in this slot now, when one is. */
-  unit: SheetUnit | null;
-}
-
-export interface FieldSheet {
-  model: {
-    id: string;
-    name: string;
-    setup_name: string;
-    airframe: string;
-    wingspan_mm: number | null;
-    weight_g: number | null;
-  };
-  revision: {
-    id: string;
-    number: number;
-    content_hash: string;
-    short_hash: string;
-    created_at: string;
-    message: string;
-    author: { id: string; name: string } | null;
-  };
-  review_state: ReviewState;
-  link: { channels: number; packet_rate_hz: number | null };
-  channels: { ch: number; function: string; role: string; side: string | null; reverse: boolean; cut: string | null }[];
-  receivers: SheetReceiver[];
-  receiver_supply: string | null;
-  counts: FindingCounts;
-  /** Errors and warnings, to be read before flying. */
-  findings: Finding[];
-  cautions: { heading: string; items: readonly Caution[] };
-}
 
 /** Everything the printed sheet shows for one revision; 422 when the revision has no valid setup to print. */
 export async function fieldSheetOf(

@@ -1,5 +1,5 @@
 import type { Revision, SetupModel } from '../models';
-import type { Role } from '../policies/roles';
+import type { Role } from '../../shared/contract/roles';
 import { clearedForMaiden, type ReviewState } from '../review-state';
 import { presentLatest } from './revision';
 

@@ -1,16 +1,15 @@
 import type { ReuseCheck } from '../../shared/reuse/reuse-check';
 import type { AuditEvent, Receiver, ReceiverInstall, Revision, SetupModel } from '../models';
+import type {
+  PresentedInstall,
+  PresentedReceiver,
+  PresentedReceiverEvent,
+  PresentedReuseCheck,
+  Readiness,
+} from '../../shared/contract/receiver';
 import { presentAuthor } from './revision';
 
-/** How an installed unit stands against its slot in the model's latest revision. */
-export interface Readiness {
-  /** ready: nothing to change; changes: settings to program; blocked: cannot fly there; unchecked: no valid slot to check against. */
-  state: 'ready' | 'changes' | 'blocked' | 'unchecked';
-  changes: number;
-  revision: { id: string; number: number } | null;
-  /** Why the check could not run, when unchecked. */
-  reason: string | null;
-}
+export type { PresentedInstall, PresentedReceiver, PresentedReceiverEvent, PresentedReuseCheck, Readiness };
 
 const iso = (date: Date | null | undefined) => (date ? date.toISOString() : null);
 
@@ -19,7 +18,7 @@ const presentModelRef = (model: SetupModel | undefined, modelId: string) => ({
   name: model?.name ?? null,
 });
 
-export function presentInstall(install: ReceiverInstall) {
+export function presentInstall(install: ReceiverInstall): PresentedInstall {
   return {
     id: install.id,
     receiver_id: install.receiverId,
@@ -39,7 +38,7 @@ export interface ReceiverView {
   readiness?: Readiness | null;
 }
 
-export function presentReceiver(receiver: Receiver, view: ReceiverView) {
+export function presentReceiver(receiver: Receiver, view: ReceiverView): PresentedReceiver {
   const install = view.install;
   return {
     id: receiver.id,
@@ -67,8 +66,6 @@ export function presentReceiver(receiver: Receiver, view: ReceiverView) {
   };
 }
 
-export type PresentedReceiver = ReturnType<typeof presentReceiver>;
-
 /**
  * The reuse check as the API answers it: the contract's `changes` and `ready`, what
  * they were found against, and which unit holds the slot now (`holder`, null when free).
@@ -80,7 +77,7 @@ export function presentReuseCheck(
   check: ReuseCheck,
   install: ReceiverInstall | null,
   holder: Pick<Receiver, 'id' | 'label'> | null = null,
-) {
+): PresentedReuseCheck {
   return {
     receiver_id: receiver.id,
     model: { id: model.id, name: model.name },
@@ -96,10 +93,7 @@ export function presentReuseCheck(
   };
 }
 
-export type PresentedInstall = ReturnType<typeof presentInstall>;
-export type PresentedReuseCheck = ReturnType<typeof presentReuseCheck>;
-
-export function presentReceiverEvent(event: AuditEvent) {
+export function presentReceiverEvent(event: AuditEvent): PresentedReceiverEvent {
   return {
     id: event.id,
     action: event.action,
@@ -108,5 +102,3 @@ export function presentReceiverEvent(event: AuditEvent) {
     at: event.createdAt.toISOString(),
   };
 }
-
-export type PresentedReceiverEvent = ReturnType<typeof presentReceiverEvent>;

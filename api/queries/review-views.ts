@@ -5,7 +5,7 @@ import { approvalRefusal } from '../commands/give-verdict';
 import { ChecklistTick, Review, ReviewComment, ReviewVerdict, Revision, SetupModel, User } from '../models';
 import type { ReviewAccess } from '../policies/review';
 import { REVIEW_POLICY } from '../policies/review';
-import { roleAtLeast } from '../policies/roles';
+import { roleAtLeast } from '../../shared/contract/roles';
 import {
   presentChecklist,
   presentComment,

@@ -1,6 +1,6 @@
 // The pre-maiden checklist a reviewer works through. The field checks cannot be made
 // from the setup document; the reviewer ticks each one as confirmed. Sources are the
-// labels of SOURCES.md; items without one say so.
+// labels of docs/sources.md; items without one say so.
 
 export interface ChecklistItem {
   id: string;

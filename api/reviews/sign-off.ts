@@ -2,7 +2,7 @@ import type { ReviewRequestState } from '../models/Review';
 import type { Verdict } from '../models/ReviewVerdict';
 import type { ReviewState } from '../review-state';
 
-// The rules of sign-off, as pure functions over the recorded verdicts (DESIGN.md,
+// The rules of sign-off, as pure functions over the recorded verdicts (docs/design.md,
 // capability 8): an approval is pinned to a content hash, so it holds for any later
 // revision with the same hash (a change of comments or formatting only) and goes
 // stale when the content changes.

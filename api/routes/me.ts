@@ -1,32 +1,54 @@
-import { Router } from 'express';
+import { Router, type Request, type RequestHandler, type Response } from 'express';
 import type { AppContext } from '../context';
+import { Unauthorized } from '../errors';
 import { authenticate, currentUser } from '../middleware/authenticate';
-import { Membership, Workspace } from '../models';
+import { Membership, Workspace, type User } from '../models';
 import { presentUser } from '../presenters/user';
+
+async function sessionOf(user: User) {
+  const memberships = await Membership.findAll({
+    where: { userId: user.id },
+    include: [{ model: Workspace, as: 'workspace', required: true }],
+    order: [
+      [{ model: Workspace, as: 'workspace' }, 'name', 'ASC'],
+      ['createdAt', 'ASC'],
+    ],
+  });
+  return {
+    user: presentUser(user),
+    workspaces: memberships.map((membership) => ({
+      id: membership.workspaceId,
+      name: membership.workspace!.name,
+      role: membership.role,
+    })),
+  };
+}
+
+/** Whether the request carries a valid session: the same checks as `authenticate`, answered as a boolean. */
+async function isSignedIn(check: RequestHandler, req: Request, res: Response): Promise<boolean> {
+  try {
+    await new Promise<void>((resolve, reject) => {
+      Promise.resolve(check(req, res, (error?: unknown) => (error ? reject(error) : resolve()))).catch(reject);
+    });
+    return true;
+  } catch (error) {
+    if (error instanceof Unauthorized) return false;
+    throw error;
+  }
+}
 
 export function meRouter({ config }: AppContext): Router {
   const router = Router();
+  const check = authenticate(config);
 
-  router.get('/me', authenticate(config), async (req, res) => {
-    const user = currentUser(req);
-    const memberships = await Membership.findAll({
-      where: { userId: user.id },
-      include: [{ model: Workspace, as: 'workspace', required: true }],
-      order: [
-        [{ model: Workspace, as: 'workspace' }, 'name', 'ASC'],
-        ['createdAt', 'ASC'],
-      ],
-    });
-    res.json({
-      data: {
-        user: presentUser(user),
-        workspaces: memberships.map((membership) => ({
-          id: membership.workspaceId,
-          name: membership.workspace!.name,
-          role: membership.role,
-        })),
-      },
-    });
+  router.get('/me', check, async (req, res) => {
+    res.json({ data: await sessionOf(currentUser(req)) });
+  });
+
+  // The client's first question on every visit. Signed out is an answer, not an error,
+  // so a signed-out visit makes no request that fails (a 401 would be logged by the browser).
+  router.get('/session', async (req, res) => {
+    res.json({ data: (await isSignedIn(check, req, res)) ? await sessionOf(currentUser(req)) : null });
   });
 
   return router;

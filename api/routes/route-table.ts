@@ -1,4 +1,4 @@
-import type { Role } from '../policies/roles';
+import type { Role } from '../../shared/contract/roles';
 
 // Every API route and the lowest access that may use it, in one table. The policies
 // in api/policies/ decide at run time; tests/api/route-table.test.ts calls every route
@@ -51,6 +51,7 @@ export const ROUTE_TABLE: readonly RouteEntry[] = [
     note: 'the mailed token is the credential',
   },
   { method: 'GET', path: '/api/me', access: 'signed-in' },
+  { method: 'GET', path: '/api/session', access: 'public' },
 
   { method: 'POST', path: '/api/workspaces', access: 'signed-in' },
   { method: 'GET', path: '/api/workspaces/:ws', access: 'viewer' },

@@ -2,7 +2,7 @@ import { analyzeSetup } from '../../shared/analyze';
 import { findingLine, readCommandLine } from './command-line';
 import { failUnreadable, readSetupFile } from './read-setup-file';
 
-// `npm run --silent check -- FILE [--json]` (FORMAT.md, "Command line"): the findings.
+// `npm run --silent check -- FILE [--json]` (docs/format.md, "Command line"): the findings.
 // Exit 0 readable without errors, 1 with errors (syntax and schema included), 2 unreadable.
 
 const USAGE = 'usage: npm run --silent check -- FILE [--json]';

@@ -2,7 +2,7 @@ import { parseArgs } from 'node:util';
 import type { Finding } from '../../shared/findings';
 import { failUnreadable } from './read-setup-file';
 
-// The arguments every command-line tool takes (FORMAT.md, "Command line"): its files,
+// The arguments every command-line tool takes (docs/format.md, "Command line"): its files,
 // --json, and for the bench view --set CONTROL=VALUE; anything else is exit 2 with the usage.
 
 export type CommandLine = { ok: true; json: boolean; files: string[]; sets: string[] } | { ok: false; exitCode: 2 };

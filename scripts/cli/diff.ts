@@ -4,7 +4,7 @@ import { CHANGE_KINDS } from '../../shared/diff/types';
 import { readCommandLine } from './command-line';
 import { failUnreadable, readSetupFile } from './read-setup-file';
 
-// `npm run --silent diff -- OLD NEW [--json]` (FORMAT.md, "Command line"): what changed
+// `npm run --silent diff -- OLD NEW [--json]` (docs/format.md, "Command line"): what changed
 // between two setup files. Exit 0 when both files are readable, 2 otherwise. A file
 // that parses but breaks the schema is readable: its changes are listed like any other.
 

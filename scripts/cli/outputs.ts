@@ -4,7 +4,7 @@ import type { Setup } from '../../shared/format/schema';
 import { findingLine, readCommandLine } from './command-line';
 import { failUnreadable, readSetupFile } from './read-setup-file';
 
-// `npm run --silent outputs -- FILE [--set CONTROL=VALUE ...] [--json]` (FORMAT.md,
+// `npm run --silent outputs -- FILE [--set CONTROL=VALUE ...] [--json]` (docs/format.md,
 // "Command line"): the bench view. Axes, knobs and sliders take a percent, switches a
 // 0-based position; unset controls sit at 0 or position 0.
 

@@ -1,6 +1,6 @@
 import { readFileSync, statSync } from 'node:fs';
 
-// Shared by the command-line tools (FORMAT.md, "Command line"): reading a setup file,
+// Shared by the command-line tools (docs/format.md, "Command line"): reading a setup file,
 // and the exit-2 answer when a file or the arguments cannot be used.
 
 /** Files beyond this are not read into memory at all; setups over 512 KB are refused anyway. */

@@ -5,7 +5,7 @@ const PULSE = 'a pulse in microseconds (a number)';
 const POSITION = 'a switch position (a whole number, 0 for the first position)';
 
 // What each field must be, in words, keyed by its path with list indices written [].
-// Used to explain schema findings in the terms of FORMAT.md's field table.
+// Used to explain schema findings in the terms of docs/format.md's field table.
 export const FIELD_DESCRIPTIONS: Record<string, string> = {
   '': 'a mapping of format, model, link, controls, channels, mixes, receivers and power',
   format: `exactly "${FORMAT_ID}"`,

@@ -1,7 +1,7 @@
 import type { Check, CheckResult } from './check';
 import { ref } from './refs';
 
-// Above this weight a throttle failsafe is an absolute requirement (see SOURCES.md, cap-658).
+// Above this weight a throttle failsafe is an absolute requirement (see docs/sources.md, cap-658).
 export const HEAVY_MODEL_G = 7000;
 
 export const heavyModelFailsafe: Check = {

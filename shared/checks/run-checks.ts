@@ -35,7 +35,7 @@ import { schema, validateSetup } from './schema';
 import { syntax } from './syntax';
 import { unknownKey } from './unknown-key';
 
-/** The semantic checks, run on schema-valid setups, in FORMAT.md's catalogue order. */
+/** The semantic checks, run on schema-valid setups, in docs/format.md's catalogue order. */
 export const SETUP_CHECKS: readonly Check[] = [
   duplicateId,
   channelShared,

@@ -210,7 +210,7 @@ class Walker {
 
 /**
  * The semantic diff of two setup documents (plain data, schema-valid or not; never
- * throws). Lists are matched by the identity keys of FORMAT.md. Each change has a
+ * throws). Lists are matched by the identity keys of docs/format.md. Each change has a
  * semantic path, the values before and after (null for "none") and a sentence.
  *
  * - added / removed: a list entry, or a section or object field (a cut, a rates

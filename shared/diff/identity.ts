@@ -1,6 +1,6 @@
 import { deepEqual, isPlainObject, withoutKey } from './plain';
 
-// The identity keys of FORMAT.md: list entries are matched between revisions by
+// The identity keys of docs/format.md: list entries are matched between revisions by
 // these, never by their position in the list.
 export const LIST_KEYS: Readonly<Record<string, string>> = {
   controls: 'id',

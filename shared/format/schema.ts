@@ -2,7 +2,7 @@ import { z } from 'zod';
 
 // The setup document, format bindery-setup/1 (see docs/format.md). Objects are loose:
 // unknown keys survive validation and are reported by the `unknown-key` check instead
-// of failing the schema, because FORMAT.md says they are kept, never dropped.
+// of failing the schema, because docs/format.md says they are kept, never dropped.
 
 export const FORMAT_ID = 'bindery-setup/1';
 

@@ -3,7 +3,7 @@ import { createModel } from '../../api/commands/create-model';
 import { saveRevision } from '../../api/commands/save-revision';
 import { tagRevision } from '../../api/commands/tag-revision';
 import { Workspace } from '../../api/models';
-import type { Role } from '../../api/policies/roles';
+import type { Role } from '../../shared/contract/roles';
 import { createRoleFixture, type RoleFixture } from './helpers/factories';
 import { useTestApp } from './helpers/test-app';
 import { clientFor, GLIDER, TRAINER, type Client } from './models-support';

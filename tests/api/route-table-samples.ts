@@ -3,7 +3,7 @@ import request from 'supertest';
 import { expect } from 'vitest';
 import { signLinkToken } from '../../api/auth/link-tokens';
 import { Invitation, PasswordReset, Revision, Tag, type User } from '../../api/models';
-import type { Role } from '../../api/policies/roles';
+import type { Role } from '../../shared/contract/roles';
 import { CHECKLIST_IDS } from '../../api/reviews/checklist';
 import {
   addMember,
@@ -189,6 +189,7 @@ export async function buildSampleWorld(t: MailTestApp): Promise<SampleWorld> {
       body: { password: 'a-brand-new-password' },
     }),
     'GET /api/me': async () => ({ url: '/api/me' }),
+    'GET /api/session': async () => ({ url: '/api/session' }),
 
     'POST /api/workspaces': async () => ({ url: '/api/workspaces', body: { name: fresh('Field') } }),
     'GET /api/workspaces/:ws': async () => ({ url: `/api/workspaces/${ws}` }),

@@ -1,5 +1,5 @@
 import { beforeAll, describe, expect, it } from 'vitest';
-import { roleAtLeast } from '../../api/policies/roles';
+import { roleAtLeast } from '../../shared/contract/roles';
 import { registeredRoutes, ROUTE_TABLE, routeKey, type Access } from '../../api/routes/route-table';
 import { useMailTestApp } from './helpers/mail';
 import { buildSampleWorld, CALLERS, type Caller, type SampleWorld } from './route-table-samples';

@@ -171,8 +171,9 @@ describe('every screen with the demo data', () => {
       await saveScreenshot(tablet.visit.page, `screen-${screen.name}-768`, { fullPage: !screen.windowOnly });
 
       for (const { visit, problemsBefore } of [desktop, tablet]) {
-        // A signed-out page asks who is signed in and is told nobody (401), as it should.
-        const allowed = screen.signedOut || screen.name === 'not-found' ? [401] : [];
+        // Signed out is an answer (200, no user), never a failed request; only a page that
+        // is not there may log its own 404.
+        const allowed: number[] = [];
         expect(
           visit.problems.all
             .slice(problemsBefore)

@@ -6,7 +6,7 @@ import { baseUrl, demoAccount } from './support/demo';
 import { signInThroughForm } from './support/session';
 
 const browser = useBrowser();
-// DESIGN.md, performance budgets: the first page's JavaScript under 250 KB gzipped.
+// docs/design.md, performance budgets: the first page's JavaScript under 250 KB gzipped.
 const BUDGET = 250 * 1024;
 
 /** Every script the page fetched from here on, gzipped as a server would send it. */

@@ -3,7 +3,7 @@ import { analyzeSetup } from '../../shared/analyze';
 import { CATALOGUE } from '../../shared/checks/run-checks';
 import { invalidFixtures, validFixtures } from './setup-fixtures';
 
-// FORMAT.md's check catalogue, in its order: the contract for rule ids and severities.
+// docs/format.md's check catalogue, in its order: the contract for rule ids and severities.
 const CONTRACT: [string, string][] = [
   ['syntax', 'error'],
   ['schema', 'error'],
@@ -40,7 +40,7 @@ const invalid = invalidFixtures();
 const valid = validFixtures();
 
 describe('the check catalogue', () => {
-  it('has exactly the checks of FORMAT.md, with their severities, in order', () => {
+  it('has exactly the checks of docs/format.md, with their severities, in order', () => {
     expect(CATALOGUE.map((check) => [check.id, check.severity])).toEqual(CONTRACT);
   });
 

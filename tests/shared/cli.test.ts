@@ -3,7 +3,7 @@ import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
 import { FIXTURES_DIR, invalidFixtures, validFixtures } from './setup-fixtures';
 
-// The check and outputs commands, run as a user runs them (FORMAT.md, "Command line").
+// The check and outputs commands, run as a user runs them (docs/format.md, "Command line").
 const ROOT = fileURLToPath(new URL('../../', import.meta.url));
 
 interface Run {

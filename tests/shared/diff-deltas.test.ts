@@ -105,7 +105,7 @@ describe('outputs delta', () => {
     const { before, after } = setups('trim-tuning');
     // Flap trim -8 -> -12 % on the elevator channel (ch 2) with the stick centred and
     // the flap switch fully down: -8 % of 500 us is -40 us, -12 % is -60 us from the
-    // 1500 us centre (FORMAT.md evaluation, default travel [arduino-servo]). The rates
+    // 1500 us centre (docs/format.md evaluation, default travel [arduino-servo]). The rates
     // and expo changes do not show at these positions: rates need the rate switch and
     // the stick moved together, and expo does not change the end points [expo-cubic].
     expect(

@@ -45,7 +45,7 @@ describe('control values', () => {
   const two = { id: 'gear-switch', kind: 'switch', positions: 2 } as const;
 
   it('a 3-position switch gives -100, 0, +100', () => {
-    // FORMAT.md, Evaluation 1: -100 + 200 p / (n - 1)
+    // docs/format.md, Evaluation 1: -100 + 200 p / (n - 1)
     expect([0, 1, 2].map((p) => controlValue(three, p))).toEqual([-100, 0, 100]);
   });
 

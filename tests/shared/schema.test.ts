@@ -90,7 +90,7 @@ describe('the published JSON Schema', () => {
 describe('defaults', () => {
   const setup = setupSchema.parse(trainer);
 
-  it('fill in what FORMAT.md says', () => {
+  it('fill in what docs/format.md says', () => {
     expect(setup.controls.find((c) => c.id === 'rate-switch')).toMatchObject({ kind: 'switch', positions: 2 });
     expect(setup.controls.find((c) => c.id === 'aileron-stick')).not.toHaveProperty('positions');
     // [arduino-servo] the default travel is 1000 / 1500 / 2000 microseconds

@@ -90,10 +90,7 @@ export function sessionRoutes(options: { signedIn?: boolean; password?: string; 
   const password = options.password ?? 'bindery-demo-1';
   const workspaces = options.workspaces ?? demoWorkspaces;
   const routes: Record<string, FakeHandler> = {
-    'GET /api/me': () =>
-      state.signedIn
-        ? { body: { data: { user: demoUser, workspaces } } }
-        : apiError(401, 'unauthenticated', 'Sign in first.'),
+    'GET /api/session': () => ({ body: { data: state.signedIn ? { user: demoUser, workspaces } : null } }),
     'POST /api/auth/sign-in': (request) => {
       const body = request.body as { email?: string; password?: string };
       if (body.email !== demoUser.email || body.password !== password) {

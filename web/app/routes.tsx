@@ -1,7 +1,7 @@
 import { Suspense } from 'react';
 import { Navigate, Outlet, type RouteObject } from 'react-router-dom';
-import { AppFrame, type FrameLink } from '../components/layouts/app-frame';
-import { ModelFrame } from '../components/layouts/model-frame';
+import { AppFrame, type FrameLink } from './layouts/app-frame';
+import { ModelFrame } from './layouts/model-frame';
 import { LoadingState } from '../components/ui/loading-state';
 import { WorkspaceScope } from '../features/workspaces/components/workspace-scope';
 import { lazyScreen } from './lazy-screen';

@@ -1,9 +1,11 @@
-// Shapes the API answers with for accounts and workspaces (DESIGN.md, API contract).
+// Shapes the API answers with for accounts and workspaces (docs/design.md, API contract).
 
 /** Records are keyed by UUID. */
 export type Id = string;
 
-export type Role = 'owner' | 'editor' | 'reviewer' | 'viewer';
+import type { Role } from '../../shared/contract/roles';
+
+export type { Role };
 
 export interface User {
   id: Id;

@@ -5,7 +5,7 @@ import { hashPassword } from '../../../api/auth/passwords';
 import { signSession } from '../../../api/auth/tokens';
 import type { AppConfig } from '../../../api/config';
 import { Membership, User, Workspace } from '../../../api/models';
-import type { Role } from '../../../api/policies/roles';
+import type { Role } from '../../../shared/contract/roles';
 
 export const TEST_PASSWORD = 'runway-lights-4021';
 

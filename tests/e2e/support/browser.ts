@@ -1,8 +1,9 @@
 import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
 import { afterAll, beforeAll } from 'vitest';
+import { CHROMIUM_PATH } from '../../../scripts/lib/chromium-path';
 
-// Debian's Chromium with the flags of STACK.md; playwright-core never downloads a browser here.
-export const CHROMIUM_PATH = '/usr/bin/chromium';
+// Debian's Chromium, headless, with the flags it needs in a container without a GPU or a sandbox
+// (DEVELOPERS.md, "Browser tests"); playwright-core never downloads a browser here.
 const FLAGS = [
   '--headless',
   '--no-sandbox',

@@ -53,7 +53,7 @@ describe('Bench', () => {
 
       fireEvent.change(screen.getByRole('slider', { name: 'aileron-stick' }), { target: { value: '100' } });
 
-      // FORMAT.md evaluation: curve(1) = 1 at any expo; default travel puts +100 % at high_us.
+      // docs/format.md evaluation: curve(1) = 1 at any expo; default travel puts +100 % at high_us.
       await waitFor(() => expect(cells(pinRow('Fuselage receiver (blue tape)', 1))[3]).toBe('2000'));
       // Channel 6, the right aileron, is reversed: the same stick sends it to low_us.
       expect(cells(pinRow('Fuselage receiver (blue tape)', 6))[3]).toBe('1000');
@@ -66,7 +66,7 @@ describe('Bench', () => {
     fireEvent.change(screen.getByRole('slider', { name: 'aileron-stick' }), { target: { value: '100' } });
     const rates = screen.getByRole('group', { name: 'rate-switch' });
     await user.click(within(rates).getByRole('radio', { name: /Position 1/ }));
-    // 1500 + 0.60 * 500 by the evaluation rules of FORMAT.md.
+    // 1500 + 0.60 * 500 by the evaluation rules of docs/format.md.
     await waitFor(() => expect(cells(pinRow('Fuselage receiver (blue tape)', 1))[3]).toBe('1800'));
   });
 

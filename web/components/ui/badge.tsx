@@ -1,4 +1,5 @@
 import type { ComponentType, ReactNode, SVGProps } from 'react';
+import type { ReviewState } from '../../../shared/contract/review-state';
 import type { Severity } from '../../../shared/findings';
 import { cx } from '../../lib/cx';
 import {
@@ -12,7 +13,7 @@ import {
   WarningIcon,
 } from './icons';
 
-export type ReviewState = 'none' | 'pending' | 'approved' | 'stale' | 'changes-requested';
+export type { ReviewState };
 
 type Tone = 'danger' | 'caution' | 'info' | 'moss' | 'accent' | 'neutral';
 

@@ -1,2 +1,2 @@
-// The sheet as the API answers it (api/field-sheet/field-sheet-data.ts).
-export type { FieldSheet, SheetPin, SheetReceiver, SheetUnit } from '../../../api/field-sheet/field-sheet-data';
+// The sheet as the API answers it (built by the server, shape in shared/contract).
+export type { FieldSheet, SheetPin, SheetReceiver, SheetUnit } from '../../../shared/contract/field-sheet';

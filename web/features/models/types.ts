@@ -1,9 +1,11 @@
-// Shapes the API answers with for models and revisions (DESIGN.md, API contract;
+// Shapes the API answers with for models and revisions (docs/design.md, API contract;
 // api/presenters/model.ts and api/presenters/revision.ts on the server).
 import type { Finding } from '../../../shared/findings';
 import type { Id, Role } from '../../types/api';
 
-export type ReviewState = 'none' | 'pending' | 'approved' | 'stale' | 'changes-requested';
+import type { ReviewState } from '../../../shared/contract/review-state';
+
+export type { ReviewState };
 
 export type RevisionOrigin = 'create' | 'save' | 'upload' | 'revert' | 'fork';
 

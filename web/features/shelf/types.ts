@@ -1,12 +1,12 @@
-// The shelf's shapes as the API answers them (api/presenters/receiver.ts), typed from
-// the server's own presenters so the two cannot drift.
+// The shelf's shapes as the API answers them: written once in shared/contract, where the
+// server's presenters are typed against them, so the two cannot drift.
 import type {
   PresentedInstall,
   PresentedReceiver,
   PresentedReceiverEvent,
   PresentedReuseCheck,
   Readiness,
-} from '../../../api/presenters/receiver';
+} from '../../../shared/contract/receiver';
 
 export type ShelfUnit = PresentedReceiver;
 export type UnitInstall = PresentedInstall;

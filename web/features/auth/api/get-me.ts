@@ -1,10 +1,16 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { api } from '../../../lib/api-client';
+import { api, ApiError } from '../../../lib/api-client';
 import { SESSION_QUERY_KEY } from '../../../lib/query-client';
 import type { Session } from '../../../types/api';
 
+/**
+ * The session: `/api/session` answers 200 with null when signed out, so the first visit
+ * logs no failed request; the screens still see signed-out as the 401 they handle.
+ */
 export async function getMe(signal?: AbortSignal): Promise<Session> {
-  return (await api.get<Session>('/api/me', signal)).data;
+  const session = (await api.get<Session | null>('/api/session', signal)).data;
+  if (!session) throw new ApiError(401, { code: 'signed-out', message: 'Sign in to continue.' });
+  return session;
 }
 
 export function meQueryOptions() {
@@ -15,7 +21,7 @@ export function meQueryOptions() {
   });
 }
 
-/** The signed-in user and their workspaces; answers a 401 ApiError when signed out. */
+/** The signed-in user and their workspaces; a 401 ApiError (made here, not by the server) when signed out. */
 export function useMe() {
   return useQuery(meQueryOptions());
 }

@@ -3,8 +3,8 @@ import { Link, Outlet, useParams } from 'react-router-dom';
 import { useSession } from '../../features/auth/hooks/use-session';
 import { useModel } from '../../features/models/api/get-model';
 import { useCurrentWorkspace } from '../../features/workspaces/hooks/use-current-workspace';
-import { LoadingState } from '../ui/loading-state';
-import { NavTabs } from './nav-tabs';
+import { LoadingState } from '../../components/ui/loading-state';
+import { NavTabs } from '../../components/layouts/nav-tabs';
 import type { FrameLink } from './app-frame';
 
 /** A model's screens under one sub-navigation, so moving between them keeps the place. */

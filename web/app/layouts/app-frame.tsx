@@ -6,12 +6,12 @@ import { SessionContext, useSession } from '../../features/auth/hooks/use-sessio
 import { WorkspaceSwitcher } from '../../features/workspaces/components/workspace-switcher';
 import { useCurrentWorkspace } from '../../features/workspaces/hooks/use-current-workspace';
 import { isUnauthorized } from '../../lib/api-client';
-import { LogoMark } from '../brand/logo-mark';
-import { Button } from '../ui/button';
-import { ErrorState } from '../ui/error-state';
-import { LoadingState } from '../ui/loading-state';
-import { useToast } from '../ui/toast';
-import { NavTabs, type NavItem } from './nav-tabs';
+import { LogoMark } from '../../components/brand/logo-mark';
+import { Button } from '../../components/ui/button';
+import { ErrorState } from '../../components/ui/error-state';
+import { LoadingState } from '../../components/ui/loading-state';
+import { useToast } from '../../components/ui/toast';
+import { NavTabs, type NavItem } from '../../components/layouts/nav-tabs';
 
 export interface FrameLink {
   /** The path under `/w/:wsId/`, or an absolute path for links outside a workspace. */
