@@ -1,6 +1,7 @@
 // Lint: typescript-eslint with type information, the rules of hooks, and the layers of
 // the code as import rules (DEVELOPERS.md, "Layers"). Formatting is Prettier's job.
 import js from '@eslint/js';
+import globals from 'globals';
 import tseslint from 'typescript-eslint';
 import reactHooks from 'eslint-plugin-react-hooks';
 import { importX } from 'eslint-plugin-import-x';
@@ -73,6 +74,15 @@ export default tseslint.config(
     rules: {
       'import-x/no-cycle': ['error', { ignoreExternal: true }],
       'import-x/no-restricted-paths': ['error', { zones: LAYERS }],
+      // Names with a leading underscore are parameters or fields left out on purpose.
+      '@typescript-eslint/no-unused-vars': [
+        'error',
+        { argsIgnorePattern: '^_', varsIgnorePattern: '^_', ignoreRestSiblings: true },
+      ],
+      // \`declare global { namespace Express ... }\` is how Express's Request is extended.
+      '@typescript-eslint/no-namespace': ['error', { allowDeclarations: true }],
+      // Several patterns exist to find and refuse control characters in names and files.
+      'no-control-regex': 'off',
     },
   },
   {
@@ -96,5 +106,6 @@ export default tseslint.config(
   {
     files: ['**/*.js', '**/*.mjs'],
     ...tseslint.configs.disableTypeChecked,
+    languageOptions: { ...tseslint.configs.disableTypeChecked.languageOptions, globals: { ...globals.node } },
   },
 );

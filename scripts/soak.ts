@@ -82,11 +82,11 @@ async function startApi(
     env: { ...process.env, BENCH_DATABASE_URL: databaseUrl, BENCH_JWT_SECRET: jwtSecret },
     stdio: ['ignore', 'pipe', 'pipe'],
   });
-  child.stderr!.pipe(createWriteStream(logFile));
+  child.stderr.pipe(createWriteStream(logFile));
   const url = await new Promise<string>((resolve, reject) => {
     let output = '';
     child.once('exit', (code) => reject(new Error(`the API exited before it listened (code ${code}); see ${logFile}`)));
-    child.stdout!.on('data', (chunk: Buffer) => {
+    child.stdout.on('data', (chunk: Buffer) => {
       output += chunk.toString('utf8');
       if (output.includes('\n')) resolve(output.split('\n')[0].trim());
     });

@@ -64,7 +64,7 @@ export function describeError(error: unknown): ErrorBody | null {
   }
   if (error instanceof BaseError && UNAVAILABLE_MESSAGE.test(error.message)) return databaseUnavailable;
   if (error && typeof error === 'object') {
-    const parsed = bodyParserError(error as { type?: unknown });
+    const parsed = bodyParserError(error);
     if (parsed) return parsed;
     // Other client errors raised by Express itself (e.g. a path that cannot be decoded).
     const status = (error as { status?: unknown }).status;

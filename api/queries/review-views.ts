@@ -169,8 +169,8 @@ export async function reviewDetail(access: ReviewAccess, caller: User) {
     base: base ? { kind: base.kind, revision: summarise(base.revision) } : null,
     compare: base
       ? compareRevisions(
-          { text: base.revision.yamlText, data: base.revision.document, findings: base.revision.findings as Finding[] },
-          { text: revision.yamlText, data: revision.document, findings: revision.findings as Finding[] },
+          { text: base.revision.yamlText, data: base.revision.document, findings: base.revision.findings },
+          { text: revision.yamlText, data: revision.document, findings: revision.findings },
         )
       : null,
     checklist: presentChecklist(ticks, users),

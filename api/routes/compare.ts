@@ -14,7 +14,7 @@ import { compareQuery } from './model-inputs';
 const sideOf = ({ revision }: RevisionAccess): CompareSide => ({
   text: revision.yamlText,
   data: revision.document,
-  findings: revision.findings as Finding[],
+  findings: revision.findings,
 });
 
 export function compareRouter({ config }: AppContext): Router {

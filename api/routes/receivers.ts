@@ -78,7 +78,7 @@ export function receiversRouter({ sequelize, config }: AppContext): Router {
     }
     if (status)
       conditions.push(
-        literal(status === 'installed' ? OPEN_INSTALL : `NOT ${OPEN_INSTALL}`) as unknown as WhereOptions<Receiver>,
+        literal(status === 'installed' ? OPEN_INSTALL : `NOT ${OPEN_INSTALL}`),
       );
     const { rows, count } = await Receiver.findAndCountAll({
       where: { [Op.and]: conditions },

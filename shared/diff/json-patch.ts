@@ -20,5 +20,5 @@ export function jsonPatch(before: unknown, after: unknown): JsonPatchOperation[]
     return op.op === 'move'
       ? { ...op, from: pointer(op.from), path: pointer(op.path) }
       : { ...op, path: pointer(op.path), ...value };
-  }) as JsonPatchOperation[];
+  });
 }

@@ -45,7 +45,7 @@ function copy(value: unknown, options: CopyOptions, seen: Set<object>): unknown 
     case 'symbol':
       return undefined;
   }
-  const object = value as object;
+  const object = value;
   if (seen.has(object)) return null;
   if (object instanceof Date) return Number.isNaN(object.getTime()) ? null : object.toISOString();
   seen.add(object);

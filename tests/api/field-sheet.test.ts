@@ -43,7 +43,7 @@ async function sheetText(
 ): Promise<{ text: string; pages: number; headers: Record<string, string> }> {
   const response = await binary(viewer.get(`/api/revisions/${revisionId}/field-sheet.pdf`)).expect(200);
   const pdf = await pdfParse(response.body as Buffer);
-  return { text: pdf.text, pages: pdf.numpages, headers: response.headers as Record<string, string> };
+  return { text: pdf.text, pages: pdf.numpages, headers: response.headers };
 }
 
 // pdf-parse joins the pieces of one printed line without spaces.

@@ -4,9 +4,9 @@ import { act } from '@testing-library/react';
 // jsdom lays nothing out, and its Range has no client rectangles, which CodeMirror
 // asks for when it measures the text it draws. Empty rectangles say "nothing drawn
 // here", which is true in jsdom; the document and its transactions are unaffected.
-const emptyRects = (): DOMRectList => Object.assign([], { item: () => null }) as unknown as DOMRectList;
+const emptyRects = (): DOMRectList => Object.assign([], { item: () => null });
 const emptyRect = (): DOMRect =>
-  ({ x: 0, y: 0, width: 0, height: 0, top: 0, right: 0, bottom: 0, left: 0, toJSON: () => ({}) }) as DOMRect;
+  ({ x: 0, y: 0, width: 0, height: 0, top: 0, right: 0, bottom: 0, left: 0, toJSON: () => ({}) });
 Range.prototype.getClientRects ??= emptyRects;
 Range.prototype.getBoundingClientRect ??= emptyRect;
 

@@ -34,7 +34,7 @@ describe('Findings list', () => {
     const rank = { Error: 0, Warning: 1, Info: 2 } as Record<string, number>;
     expect(findings.map((finding) => finding.severity)).toEqual(['warning', 'error']);
     expect(severities).toEqual(['Error', 'Warning']);
-    expect(severities.map((word) => rank[word!])).toEqual([...severities.map((word) => rank[word!])].sort());
+    expect(severities.map((word) => rank[word])).toEqual([...severities.map((word) => rank[word])].sort());
 
     const unrouted = findings.find((finding) => finding.rule === 'heavy-model-failsafe')!;
     const item = items.find((candidate) => candidate.textContent?.includes(unrouted.message))!;

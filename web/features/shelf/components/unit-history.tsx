@@ -13,7 +13,7 @@ const count = (value: unknown): number | null =>
 
 /** One line per recorded event, in the pilot's words. */
 function describe(event: UnitEvent): string {
-  const d = event.details as Record<string, unknown>;
+  const d = event.details;
   const where = `slot ${text(d.slot) ?? '?'} of ${text(d.model_name) ?? 'a model'}`;
   switch (event.action) {
     case 'receiver.added':
