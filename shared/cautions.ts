@@ -29,7 +29,7 @@ export const CAUTIONS: readonly Caution[] = [
   },
   {
     title: 'Heavy models and turbines',
-    body: 'UK rules require the failsafe to bring the throttle to idle for models over 7 kg and for turbines (CAA CAP 658, now CAP 722F). A turbine must go to idle or shut down within 2 seconds of failsafe.',
+    body: 'UK rules require the failsafe to bring the throttle to idle for models over 7 kg and for turbines (CAA CAP 658, now CAP 722F). After a failsafe a turbine must go to idle or shut down within the time your code of practice or the event sets (for example two seconds).',
   },
   {
     title: 'Your national body and local law come first',

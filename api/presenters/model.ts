@@ -1,4 +1,5 @@
 import type { Revision, SetupModel } from '../models';
+import type { ForkSource as PresentedForkSource, SetupModelView } from '../../shared/contract/model';
 import type { Role } from '../../shared/contract/roles';
 import { clearedForMaiden, type ReviewState } from '../review-state';
 import { presentLatest } from './revision';
@@ -18,7 +19,7 @@ export interface ModelView {
   forkedFrom?: ForkSource | null;
 }
 
-function presentForkSource(source: ForkSource | null | undefined) {
+function presentForkSource(source: ForkSource | null | undefined): PresentedForkSource | null {
   if (!source) return null;
   return {
     revision_id: source.revision.id,
@@ -30,7 +31,7 @@ function presentForkSource(source: ForkSource | null | undefined) {
   };
 }
 
-export function presentModel(model: SetupModel, view: ModelView) {
+export function presentModel(model: SetupModel, view: ModelView): SetupModelView {
   return {
     id: model.id,
     workspace_id: model.workspaceId,
@@ -48,4 +49,4 @@ export function presentModel(model: SetupModel, view: ModelView) {
   };
 }
 
-export type PresentedModel = ReturnType<typeof presentModel>;
+export type PresentedModel = SetupModelView;

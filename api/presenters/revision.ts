@@ -1,6 +1,13 @@
+import type {
+  Author,
+  LatestRevision,
+  Revision as PresentedRevision,
+  RevisionSummary,
+  SavedRevision,
+} from '../../shared/contract/model';
 import type { Revision, User } from '../models';
 
-export function presentAuthor(user: User | null | undefined) {
+export function presentAuthor(user: User | null | undefined): Author | null {
   return user ? { id: user.id, name: user.name } : null;
 }
 
@@ -8,7 +15,7 @@ export function presentAuthor(user: User | null | undefined) {
 export function presentRevisionSummary(
   revision: Revision,
   tags: readonly string[] = revision.tags?.map((tag) => tag.name) ?? [],
-) {
+): RevisionSummary {
   return {
     id: revision.id,
     model_id: revision.modelId,
@@ -28,12 +35,12 @@ export function presentRevisionSummary(
 }
 
 /** What a save answers: the summary and the findings the checks gave. */
-export function presentSavedRevision(revision: Revision) {
+export function presentSavedRevision(revision: Revision): SavedRevision {
   return { ...presentRevisionSummary(revision), findings: revision.findings };
 }
 
 /** Everything about one revision, its exact YAML text included. */
-export function presentRevision(revision: Revision, tags?: readonly string[]) {
+export function presentRevision(revision: Revision, tags?: readonly string[]): PresentedRevision {
   return {
     ...presentRevisionSummary(revision, tags),
     yaml: revision.yamlText,
@@ -43,7 +50,7 @@ export function presentRevision(revision: Revision, tags?: readonly string[]) {
 }
 
 /** The latest revision as the hangar and the model page show it. */
-export function presentLatest(revision: Revision) {
+export function presentLatest(revision: Revision): LatestRevision {
   return {
     id: revision.id,
     number: revision.number,
@@ -57,5 +64,4 @@ export function presentLatest(revision: Revision) {
   };
 }
 
-export type PresentedRevisionSummary = ReturnType<typeof presentRevisionSummary>;
-export type PresentedRevision = ReturnType<typeof presentRevision>;
+export type { PresentedRevision, RevisionSummary as PresentedRevisionSummary };

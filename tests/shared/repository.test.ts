@@ -44,7 +44,7 @@ describe('the repository is self-contained', () => {
     const sources = read('docs/sources.md');
     const cited = new Set<string>();
     for (const file of tracked.filter((name) => /^(?:shared|api|web|tests|scripts)\/.*\.tsx?$/.test(name))) {
-      for (const match of read(file).matchAll(/\/\/.*?\[([a-z][a-z0-9]*(?:-[a-z0-9]+)+)\]/g)) cited.add(match[1]);
+      for (const match of read(file).matchAll(/\/\/.*?\[([a-z][a-z0-9]*(?:-[a-z0-9.]+)+)\]/g)) cited.add(match[1]);
     }
     expect(cited.size).toBeGreaterThan(0);
     const missing = [...cited].filter((label) => !sources.includes(`[${label}]`));
