@@ -29,6 +29,8 @@ export default defineConfig({
           environment: 'jsdom',
           include: ['tests/web/**/*.test.tsx', 'tests/web/**/*.test.ts'],
           setupFiles: ['tests/web/setup.ts'],
+          // Component journeys type and wait like a user; a busy 2-core machine needs room.
+          testTimeout: 15_000,
         },
       },
     ],

@@ -56,8 +56,8 @@ describe('The signed-in app frame', () => {
     const { routes } = sessionRoutes({ signedIn: true });
     fakeServer({
       ...routes,
-      'GET /api/me': (request) =>
-        failing ? apiError(403, 'account-locked', 'This account is locked.') : routes['GET /api/me'](request),
+      'GET /api/session': (request) =>
+        failing ? apiError(403, 'account-locked', 'This account is locked.') : routes['GET /api/session'](request),
     });
     const { user } = renderApp(`/w/${CLUB}/hangar`);
 

@@ -2,6 +2,7 @@ import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { analyzeSetup } from '../../../shared/analyze';
+import type { Revision } from '../../../shared/contract/model';
 import { compareRevisions } from '../../../shared/diff';
 import { CLUB, demoUser, type FakeHandler } from '../fake-server';
 
@@ -17,25 +18,8 @@ let counter = 0;
 export const uuid = (prefix: number) =>
   `00000000-0000-4000-8000-${String(prefix).padStart(4, '0')}${String(++counter).padStart(8, '0')}`;
 
-export interface RevisionRecord {
-  id: string;
-  model_id: string;
-  number: number;
-  parent_id: string | null;
-  author: { id: string; name: string } | null;
-  message: string;
-  content_hash: string;
-  error_count: number;
-  warning_count: number;
-  info_count: number;
-  origin: string;
-  source_revision_id: string | null;
-  tags: string[];
-  created_at: string;
-  yaml: string;
-  document: unknown;
-  findings: ReturnType<typeof analyzeSetup>['findings'];
-}
+/** A revision in full as the API answers it (shared/contract), held by the fake. */
+export type RevisionRecord = Revision;
 
 export function revisionOf(
   modelId: string,

@@ -56,7 +56,7 @@ describe('the invitation page', () => {
     let joined = false;
     const server = fakeServer({
       ...sessionRoutes({ signedIn: true }).routes,
-      'GET /api/me': () => ({
+      'GET /api/session': () => ({
         body: { data: { user: demoUser, workspaces: joined ? demoWorkspaces : demoWorkspaces.slice(1) } },
       }),
       [`GET /api/invitations/${TOKEN}`]: () => ({
