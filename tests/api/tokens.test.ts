@@ -88,3 +88,24 @@ describe('session tokens', () => {
     expect((await me({ Cookie: 'bindery_session=abc.def.ghi' }).expect(401)).body.error.code).toBe('invalid-token');
   });
 });
+
+describe('GET /api/session', () => {
+  const session = (headers: Record<string, string> = {}) => request(t.app).get('/api/session').set(headers);
+
+  it('answers signed out as 200 with no user, so a first visit logs no failed request', async () => {
+    expect((await session().expect(200)).body).toEqual({ data: null });
+  });
+
+  it('answers the same for a token that is not valid, and never names who it was for', async () => {
+    const [header, , signature] = tokenFor(pilot, t.config).split('.');
+    const forged = [header, b64({ sv: 1, sub: other.id, iat: now(), exp: now() + 3600 }), signature].join('.');
+    expect((await session(bearer(forged)).expect(200)).body).toEqual({ data: null });
+  });
+
+  it('answers the signed-in user and their workspaces as /api/me does', async () => {
+    const headers = bearer(tokenFor(pilot, t.config));
+    const [fromSession, fromMe] = await Promise.all([session(headers).expect(200), me(headers).expect(200)]);
+    expect(fromSession.body.data.user.id).toBe(pilot.id);
+    expect(fromSession.body).toEqual(fromMe.body);
+  });
+});
