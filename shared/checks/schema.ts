@@ -1,5 +1,6 @@
 import type { $ZodIssue } from 'zod/v4/core';
 import { setupSchema, type Setup } from '../format/schema';
+import { plainText } from '../parse/plain-text';
 import { toSemanticPath, type DataPath } from '../parse/semantic-path';
 import type { CheckResult, ReadCheck } from './check';
 import { FIELD_DESCRIPTIONS, fieldPattern } from './field-descriptions';
@@ -30,7 +31,7 @@ function shown(value: unknown): string {
     return `the text ${JSON.stringify(text)}`;
   }
   if (typeof value === 'number' && !Number.isFinite(value)) return 'not a finite number';
-  return String(value);
+  return plainText(value);
 }
 
 function describeIssue(issue: $ZodIssue, data: unknown): CheckResult {

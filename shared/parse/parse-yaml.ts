@@ -28,7 +28,7 @@ export interface ParsedText {
   /** False when the text is not YAML we accept or its root is not a mapping. */
   readable: boolean;
   /** The plain value of the document, unknown keys included; null when unreadable. */
-  data: unknown | null;
+  data: unknown;
   document: Document.Parsed | null;
   lineCounter: LineCounter;
   problems: TextProblem[];

@@ -41,7 +41,7 @@ export function toSemanticPath(data: unknown, dataPath: DataPath): string {
   for (let i = 0; i < dataPath.length; i += 1) {
     const step = dataPath[i];
     if (typeof step === 'number') {
-      const item = Array.isArray(value) ? value[step] : undefined;
+      const item: unknown = Array.isArray(value) ? value[step] : undefined;
       const key = identityKeyOf(dataPath.slice(0, i));
       const identity =
         key && item !== null && typeof item === 'object'

@@ -1,4 +1,5 @@
 import { isAlias, isMap, isScalar, isSeq, type Document, type LineCounter, type Node } from 'yaml';
+import { plainText } from './plain-text';
 import type { PathStep } from './semantic-path';
 
 export interface SourcePosition {
@@ -13,7 +14,7 @@ function startOf(node: AnyNode): number | null {
 }
 
 function scalarText(node: unknown): string | null {
-  return isScalar(node) && node.value !== null && node.value !== undefined ? String(node.value) : null;
+  return isScalar(node) && node.value !== null && node.value !== undefined ? plainText(node.value) : null;
 }
 
 /**
@@ -23,12 +24,12 @@ function scalarText(node: unknown): string | null {
  * far is used.
  */
 export function locate(document: Document, lineCounter: LineCounter, steps: readonly PathStep[]): SourcePosition {
-  let node: AnyNode = document.contents as AnyNode;
+  let node: AnyNode = document.contents;
   let offset = startOf(node) ?? 0;
   for (const step of steps) {
-    if (isAlias(node)) node = node.resolve(document) as AnyNode;
-    let next: AnyNode = undefined;
-    let at: number | null = null;
+    if (isAlias(node)) node = node.resolve(document);
+    let next: AnyNode;
+    let at: number | null;
     if ('key' in step) {
       if (!isMap(node)) break;
       const pair = node.items.find((candidate) => scalarText(candidate.key) === step.key);

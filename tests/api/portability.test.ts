@@ -222,7 +222,7 @@ describe('a whole workspace as a git bundle', () => {
       'ridge-runner/maiden',
       'ridge-runner/season-2026',
     ]);
-    const total = (await Revision.count({ where: { modelId: before.map((model) => model.id) } })) as number;
+    const total = await Revision.count({ where: { modelId: before.map((model) => model.id) } });
     expect(Number(git(clone, 'rev-list', '--count', 'HEAD').trim())).toBe(total);
     const times = git(clone, 'log', '--reverse', '--format=%at').trim().split('\n').map(Number);
     expect([...times].sort((x, y) => x - y)).toEqual(times);

@@ -79,9 +79,9 @@ export async function buildSampleWorld(t: MailTestApp): Promise<SampleWorld> {
     return bearer(tokenFor(user, t.config));
   };
   const send = async (method: string, call: Call, caller: Caller): Promise<request.Response> => {
-    let test = request(t.app)
-      [method.toLowerCase() as 'get' | 'post' | 'patch' | 'delete'](call.url)
-      .set(await headersOf(caller));
+    const verb = method.toLowerCase() as 'get' | 'post' | 'patch' | 'delete';
+    const agent = request(t.app);
+    let test = agent[verb](call.url).set(await headersOf(caller));
     if (call.upload) {
       for (const [key, value] of Object.entries(call.upload.fields ?? {})) test = test.field(key, value);
       return test.attach('file', call.upload.file, { filename: call.upload.name, contentType: call.upload.type });

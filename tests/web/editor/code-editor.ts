@@ -5,10 +5,19 @@ import { act } from '@testing-library/react';
 // asks for when it measures the text it draws. Empty rectangles say "nothing drawn
 // here", which is true in jsdom; the document and its transactions are unaffected.
 const emptyRects = (): DOMRectList => Object.assign([], { item: () => null });
-const emptyRect = (): DOMRect =>
-  ({ x: 0, y: 0, width: 0, height: 0, top: 0, right: 0, bottom: 0, left: 0, toJSON: () => ({}) });
-Range.prototype.getClientRects ??= emptyRects;
-Range.prototype.getBoundingClientRect ??= emptyRect;
+const emptyRect = (): DOMRect => ({
+  x: 0,
+  y: 0,
+  width: 0,
+  height: 0,
+  top: 0,
+  right: 0,
+  bottom: 0,
+  left: 0,
+  toJSON: () => ({}),
+});
+if (!Range.prototype.getClientRects) Range.prototype.getClientRects = emptyRects;
+if (!Range.prototype.getBoundingClientRect) Range.prototype.getBoundingClientRect = emptyRect;
 
 /** The real CodeMirror view the Edit screen drew. */
 export function editorView(): EditorView {

@@ -183,7 +183,8 @@ describe('New model from a file', () => {
     const [syntax] = analyzeSetup(text).findings;
     expect(within(dialog).getByText(syntax.message)).toBeInTheDocument();
     expect(within(dialog).getByText(`line ${syntax.line}:${syntax.column}`)).toBeInTheDocument();
-    const sent = server.fetch.mock.calls.find(([url]) => String(url).endsWith('/models/upload'))![1]!.body as FormData;
+    const sent = server.fetch.mock.calls.find(([url]) => typeof url === 'string' && url.endsWith('/models/upload'))![1]!
+      .body as FormData;
     expect((sent.get('file') as File).name).toBe('broken.yaml');
   });
 });

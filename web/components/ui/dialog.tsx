@@ -21,8 +21,6 @@ export function Dialog({ title, description, onClose, children }: DialogProps) {
   const panel = useRef<HTMLDivElement>(null);
   const titleId = useId();
   const descriptionId = useId();
-  const close = useRef(onClose);
-  close.current = onClose;
 
   useEffect(() => {
     const before = document.activeElement as HTMLElement | null;
@@ -36,7 +34,7 @@ export function Dialog({ title, description, onClose, children }: DialogProps) {
   function onKeyDown(event: React.KeyboardEvent) {
     if (event.key === 'Escape') {
       event.stopPropagation();
-      close.current();
+      onClose();
       return;
     }
     if (event.key !== 'Tab' || !panel.current) return;
@@ -76,7 +74,7 @@ export function Dialog({ title, description, onClose, children }: DialogProps) {
           </div>
           <button
             type="button"
-            onClick={() => close.current()}
+            onClick={onClose}
             aria-label="Close"
             className="rounded-sm p-1.5 text-ink-700 hover:bg-ply-100"
           >

@@ -10,6 +10,7 @@ import {
   type YAMLMap,
   type YAMLSeq,
 } from 'yaml';
+import { plainText } from '../../../shared/parse/plain-text';
 
 // Form edits on the setup text. Each edit is applied through the yaml package's
 // Document API, which defines what the result means. The text is then changed only
@@ -42,7 +43,7 @@ function parse(text: string): Document.Parsed {
 }
 
 /** The plain value of a readable setup text, or null when the YAML has errors. */
-export function readDocumentData(text: string): unknown | null {
+export function readDocumentData(text: string): unknown {
   const doc = parse(text);
   return doc.errors.length > 0 ? null : doc.toJS();
 }
@@ -61,7 +62,7 @@ function applyEdit(text: string, edit: DocumentEdit): string {
   else if (edit.kind === 'delete') expected.deleteIn(edit.path);
   else if (expected.hasIn(edit.path)) expected.addIn(edit.path, edit.value);
   else expected.setIn(edit.path, [edit.value]);
-  const wanted = expected.toJS();
+  const wanted: unknown = expected.toJS();
 
   const spliced = splice(text, doc, edit);
   if (spliced !== null) {
@@ -146,7 +147,7 @@ function renderScalar(value: unknown, inFlow: boolean): string {
   if (value === null || value === undefined) return 'null';
   if (typeof value === 'number') return Number.isFinite(value) ? String(value) : stringify(value).trim();
   if (typeof value === 'boolean') return String(value);
-  const text = String(value);
+  const text = plainText(value);
   const plain = stringify(text, { lineWidth: 0 }).replace(/\n$/, '');
   if (plain.includes('\n') || (inFlow && /[,[\]{}]/.test(plain) && !/^["']/.test(plain))) return JSON.stringify(text);
   return plain;

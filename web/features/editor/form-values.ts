@@ -1,3 +1,4 @@
+import { plainText } from '../../../shared/parse/plain-text';
 import type { DocumentEdit } from './document-edits';
 
 // Reading the plain YAML value for the forms. The forms show whatever the text holds,
@@ -29,8 +30,7 @@ export function entriesAt(data: unknown, key: string): Indexed[] {
 /** A value as a form field shows it. */
 export function fieldText(value: unknown): string {
   if (value === undefined || value === null) return '';
-  if (typeof value === 'object') return JSON.stringify(value);
-  return String(value);
+  return plainText(value);
 }
 
 export const wholeNumber = (value: unknown): number | null =>

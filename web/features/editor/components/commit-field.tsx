@@ -1,4 +1,4 @@
-import { useEffect, useId, useState, type InputHTMLAttributes, type SelectHTMLAttributes } from 'react';
+import { useId, useState, type InputHTMLAttributes, type SelectHTMLAttributes } from 'react';
 import { FieldError } from '../../../components/ui/field-error';
 import { ChevronDownIcon } from '../../../components/ui/icons';
 import { cx } from '../../../lib/cx';
@@ -21,10 +21,13 @@ export function CommitField({ label, value, onCommit, className, ...props }: Com
   const [error, setError] = useState<string | null>(null);
   const errorId = useId();
 
-  useEffect(() => {
+  // A new value from the document replaces the draft and its message.
+  const [shownValue, setShownValue] = useState(value);
+  if (value !== shownValue) {
+    setShownValue(value);
     setDraft(value);
     setError(null);
-  }, [value]);
+  }
 
   const commit = () => {
     const typed = draft.trim();

@@ -71,7 +71,7 @@ function fileStem(name: string): string {
 function readText(file: File): Promise<string> {
   return new Promise((resolve, reject) => {
     const reader = new FileReader();
-    reader.onload = () => resolve(String(reader.result ?? ''));
+    reader.onload = () => resolve(typeof reader.result === 'string' ? reader.result : '');
     reader.onerror = () => reject(reader.error ?? new Error(`${file.name} could not be read.`));
     reader.readAsText(file);
   });
@@ -124,9 +124,12 @@ export function SetupEditor({ model, initialBase, restoredText, canEdit, role }:
     () => (Number.isInteger(lineParam) && lineParam > 0 ? { line: lineParam, key: location.key } : null),
     [lineParam, location.key],
   );
-  useEffect(() => {
+  // A new jump (a link to a line) shows the text, where the line is.
+  const [lastJump, setLastJump] = useState(jump);
+  if (jump !== lastJump) {
+    setLastJump(jump);
     if (jump) setTab('text');
-  }, [jump]);
+  }
 
   const formData = useMemo(() => (tab === 'text' ? null : readDocumentData(text)), [tab, text]);
 

@@ -28,11 +28,11 @@ export function HangarScreen() {
   const [creating, setCreating] = useState(false);
   const hangar = useHangar(inUrl?.id ?? null);
   const query = params.get('q') ?? '';
-  const sort = sortFrom(params);
+  const { column, direction } = sortFrom(params);
 
   const shown = useMemo(
-    () => sortModels(searchModels(hangar.data?.models ?? [], query), sort),
-    [hangar.data, query, sort.column, sort.direction],
+    () => sortModels(searchModels(hangar.data?.models ?? [], query), { column, direction }),
+    [hangar.data, query, column, direction],
   );
 
   if (!inUrl) return null;
@@ -98,7 +98,7 @@ export function HangarScreen() {
           ) : (
             <HangarTable
               models={shown}
-              sort={sort}
+              sort={{ column, direction }}
               onSort={(next) => update({ sort: next.column, dir: next.direction === 'ascending' ? 'asc' : 'desc' })}
             />
           )}

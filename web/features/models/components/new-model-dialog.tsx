@@ -83,7 +83,7 @@ function useOpenCreated() {
   const toast = useToast();
   return (created: CreatedModel, how: string) => {
     toast({ title: `${created.model.name} is in the hangar`, description: how });
-    navigate(`/models/${created.model.id}/overview`);
+    void navigate(`/models/${created.model.id}/overview`);
   };
 }
 

@@ -26,7 +26,7 @@ export function AddReceiverDialog({ workspace, onClose }: { workspace: Workspace
             {
               onSuccess: (unit) => {
                 toast({ title: `${unit.label} is on the shelf` });
-                navigate(`/w/${workspace.id}/shelf/${unit.id}`);
+                void navigate(`/w/${workspace.id}/shelf/${unit.id}`);
               },
             },
           )

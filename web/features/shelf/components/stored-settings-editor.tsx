@@ -15,7 +15,8 @@ function rowOf(entry: { ch: number; failsafe: StoredFailsafe } | undefined): Row
   return { ch: String(entry.ch), failsafe: entry.failsafe === null ? '' : String(entry.failsafe) };
 }
 
-function failsafeOf(text: string): StoredFailsafe | string {
+/** The failsafe as the format stores it; any other text as typed, for the server to refuse with its reason. */
+function failsafeOf(text: string): number | string | null {
   const value = text.trim().toLowerCase();
   if (value === '') return null;
   if (value === 'hold' || value === 'off') return value;

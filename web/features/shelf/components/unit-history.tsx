@@ -1,4 +1,5 @@
 import { Link } from 'react-router-dom';
+import { plainText } from '../../../../shared/parse/plain-text';
 import { EmptyState } from '../../../components/ui/empty-state';
 import { ErrorState } from '../../../components/ui/error-state';
 import { LoadingState } from '../../../components/ui/loading-state';
@@ -23,14 +24,14 @@ function describe(event: UnitEvent): string {
       const from = d.moved_from as { slot?: string; model_name?: string } | null;
       const moved = from ? `, moved from slot ${from.slot} of ${from.model_name ?? 'a model'}` : '';
       const state = d.ready ? 'its settings already matched' : `${changes ?? 'some'} settings to change`;
-      return `Installed in ${where} (revision ${String(d.revision_number ?? '?')}; ${state})${moved}`;
+      return `Installed in ${where} (revision ${plainText(d.revision_number ?? '?')}; ${state})${moved}`;
     }
     case 'receiver.removed':
       return d.moved_to
         ? `Left ${where} for slot ${(d.moved_to as { slot?: string }).slot} of ${(d.moved_to as { model_name?: string }).model_name ?? 'a model'}`
         : `Removed from ${where}, back on the shelf`;
     case 'receiver.settings-applied':
-      return `Settings of ${where} applied (revision ${String(d.revision_number ?? '?')}, ${count(d.changes) ?? 0} changes)`;
+      return `Settings of ${where} applied (revision ${plainText(d.revision_number ?? '?')}, ${count(d.changes) ?? 0} changes)`;
     case 'receiver.updated': {
       const after = (d.after ?? {}) as Record<string, unknown>;
       const names = Object.keys(after).map((key) =>
