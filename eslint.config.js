@@ -7,7 +7,7 @@ import reactHooks from 'eslint-plugin-react-hooks';
 import { importX } from 'eslint-plugin-import-x';
 import { createTypeScriptImportResolver } from 'eslint-import-resolver-typescript';
 
-// Each zone: code under \`target\` may not import from \`from\`. Dependencies point down:
+// Each zone: code under `target` may not import from `from`. Dependencies point down:
 // shared (pure) <- api, web; inside the API routes -> commands / queries -> models.
 const LAYERS = [
   {
@@ -79,14 +79,14 @@ export default tseslint.config(
         'error',
         { argsIgnorePattern: '^_', varsIgnorePattern: '^_', ignoreRestSiblings: true },
       ],
-      // \`declare global { namespace Express ... }\` is how Express's Request is extended.
+      // `declare global { namespace Express ... }` is how Express's Request is extended.
       '@typescript-eslint/no-namespace': ['error', { allowDeclarations: true }],
       // Several patterns exist to find and refuse control characters in names and files.
       'no-control-regex': 'off',
     },
   },
   {
-    // Tests read JSON answers (supertest's body is \`any\`) whose shape they then assert,
+    // Tests read JSON answers (supertest's body is `any`) whose shape they then assert,
     // fakes are async to match the interfaces they stand in for, and a few tests write
     // deliberately wrong values deep into parsed documents.
     files: ['tests/**/*.{ts,tsx}'],
