@@ -44,12 +44,14 @@ beforeAll(async () => {
 
 async function planOfHistoryPage(url: string): Promise<PlanNode> {
   const statements: string[] = [];
-  const logging = t.sequelize.options.logging;
-  t.sequelize.options.logging = (sql: string) => void statements.push(sql);
+  // Sequelize reads its `logging` option on every query; its typings leave `options` out.
+  const options = (t.sequelize as unknown as { options: { logging: unknown } }).options;
+  const logging = options.logging;
+  options.logging = (sql: string) => void statements.push(sql);
   try {
     await editor.get(url).expect(200);
   } finally {
-    t.sequelize.options.logging = logging;
+    options.logging = logging;
   }
   const history = statements
     .map((line) => line.replace(/^Executing \([^)]*\): /, ''))
