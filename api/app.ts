@@ -1,3 +1,4 @@
+import compression from 'compression';
 import cookieParser from 'cookie-parser';
 import express, { type Express } from 'express';
 import helmet from 'helmet';
@@ -76,6 +77,9 @@ export function createApp(context: AppContext): Express {
   app.disable('x-powered-by');
   app.set('trust proxy', config.trustProxy);
   app.use(securityHeaders(config.cookieSecure));
+  // gzip for answers over 1 KB when the client accepts it: a large compare's JSON
+  // shrinks several times, which matters more on a pilot's phone link than the CPU.
+  app.use(compression());
 
   const api = express.Router();
   const cors = corsIfConfigured(config.corsOrigins);

@@ -14,7 +14,7 @@ async function main(): Promise<void> {
   exitOnSignals();
   const port = portFromEnv(process.env);
   const config = configFromEnv(process.env, { dataDir, webDir: null });
-  const sequelize = await prepareDatabase();
+  const { sequelize } = await prepareDatabase();
   // Links in mails lead to Vite's dev server, which serves the client here.
   const mail = await startMail(process.env, 'http://127.0.0.1:5173');
   onShutdown('the mail server', () => mail.close());

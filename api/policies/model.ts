@@ -77,18 +77,26 @@ export async function authorizeModel(req: Request, modelId: unknown, action: Mod
   return { model, role };
 }
 
-/** Loads the revision with its model; `full` includes the YAML text, document and findings. */
+type LargeField = 'yamlText' | 'document' | 'findings';
+const LARGE_FIELDS: readonly LargeField[] = ['yamlText', 'document', 'findings'];
+
+/**
+ * Loads the revision with its model; `full` includes the YAML text, document and
+ * findings, `fields` only the ones named (each is read, sent and parsed only if needed).
+ */
 export async function authorizeRevision(
   req: Request,
   revisionId: unknown,
   action: ModelAction,
-  options: { full?: boolean } = {},
+  options: { full?: boolean; fields?: readonly LargeField[] } = {},
 ): Promise<RevisionAccess> {
   const notFound = new NotFound('No such revision.', { code: 'revision-not-found' });
   const id = idSchema.safeParse(revisionId);
   if (!id.success) throw notFound;
   const revision = await Revision.findByPk(id.data, {
-    attributes: options.full ? undefined : { exclude: ['yamlText', 'document', 'findings'] },
+    attributes: options.full
+      ? undefined
+      : { exclude: LARGE_FIELDS.filter((field) => !options.fields?.includes(field)) },
     include: [{ model: SetupModel, as: 'model', required: true }],
   });
   if (!revision?.model) throw notFound;

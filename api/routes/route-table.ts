@@ -98,6 +98,7 @@ export const ROUTE_TABLE: readonly RouteEntry[] = [
   { method: 'DELETE', path: '/api/revisions/:id/tags/:name', access: 'editor' },
   { method: 'GET', path: '/api/revisions/:id/patch', access: 'viewer' },
   { method: 'GET', path: '/api/compare', access: 'viewer', note: 'each side authorised on its own' },
+  { method: 'GET', path: '/api/compare/text', access: 'viewer', note: 'each side authorised on its own' },
   { method: 'GET', path: '/api/revisions/:id/field-sheet', access: 'viewer' },
   { method: 'GET', path: '/api/revisions/:id/field-sheet.pdf', access: 'viewer' },
   { method: 'GET', path: '/api/models/:id/export.git', access: 'viewer' },

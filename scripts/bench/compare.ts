@@ -160,7 +160,8 @@ if (repo) {
         `compare / git diff, ${pair} revisions: ${ratio.toFixed(2)} (${median(ours).toFixed(3)} ms vs ${median(theirs).toFixed(3)} ms, git including its process start)`,
       );
     }
-    if (lines.length > 0) console.log(lines.join('\n'));
+    // With --json the runner prints these ratios inside its JSON document.
+    if (lines.length > 0 && !process.argv.includes('--json')) console.log(lines.join('\n'));
   });
 } else {
   console.log('git is not available: the git reference timings are skipped.');

@@ -1,4 +1,5 @@
 import { readdirSync } from 'node:fs';
+import os from 'node:os';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 import { measure, type Benchmark, type SizeCheck } from './benchmark';
 import type { AsyncBenchmark } from './support/async-benchmark';
@@ -9,6 +10,8 @@ import { closeBenchDatabase } from './support/bench-database';
 // against a real server and database) or `sizeChecks` (kilobytes), in file name order,
 // and prints the median and p95 of each with its budget. A script, not a test: the numbers depend on the machine
 // and its load. WORDs keep only the benchmarks whose names contain one of them.
+// `--json` prints every figure as one JSON document instead (name, median, p95, budget,
+// within; the machine's load average beside them), from which the README table is made.
 
 interface BenchModule {
   benchmarks?: Benchmark[];
@@ -17,11 +20,37 @@ interface BenchModule {
 }
 
 const folder = fileURLToPath(new URL('.', import.meta.url));
-const only = process.argv.slice(2);
+const asJson = process.argv.includes('--json');
+const only = process.argv.slice(2).filter((word) => word !== '--json');
+
+interface Figure {
+  name: string;
+  unit: 'ms' | 'KB';
+  median: number;
+  p95: number | null;
+  budget: { on: 'median' | 'p95' | 'size'; below: number } | null;
+  within: boolean | null;
+}
+const figures: Figure[] = [];
 const wanted = (name: string) => only.length === 0 || only.some((word) => name.includes(word));
 
 function ms(value: number): string {
   return `${value.toFixed(3)} ms`;
+}
+
+// Bindery's figure over the reference measured in the same run on the same files.
+const REFERENCE_PAIRS = [
+  ['compare, demo revisions', 'git (reference): git diff, demo revisions'],
+  ['compare, stress revisions', 'git (reference): git diff, stress revisions'],
+  ['save a revision via the API, 1 client', 'git (reference): store a revision as a commit'],
+] as const;
+
+function referenceRatios(all: readonly Figure[]) {
+  return REFERENCE_PAIRS.flatMap(([ours, theirs]) => {
+    const a = all.find((figure) => figure.name.startsWith(ours));
+    const b = all.find((figure) => figure.name === theirs);
+    return a && b ? [{ name: `${a.name} / ${b.name}`, median_ratio: a.median / b.median }] : [];
+  });
 }
 
 async function main(): Promise<number> {
@@ -38,6 +67,14 @@ async function main(): Promise<number> {
   ) => {
     const figure = budgetOn === 'p95' ? timing.p95 : timing.median;
     const within = budgetMs === undefined ? '' : figure < budgetMs ? 'within' : 'OVER';
+    figures.push({
+      name,
+      unit: 'ms',
+      median: timing.median,
+      p95: timing.p95,
+      budget: budgetMs === undefined ? null : { on: budgetOn, below: budgetMs },
+      within: budgetMs === undefined ? null : figure < budgetMs,
+    });
     if (within === 'OVER') over += 1;
     rows.push([
       name,
@@ -64,12 +101,31 @@ async function main(): Promise<number> {
       if (!wanted(check.name)) continue;
       const kilobytes = await check.measure();
       if (kilobytes >= check.budgetKb) over += 1;
+      figures.push({
+        name: check.name,
+        unit: 'KB',
+        median: kilobytes,
+        p95: null,
+        budget: { on: 'size', below: check.budgetKb },
+        within: kilobytes < check.budgetKb,
+      });
       sizes.push(
         `${check.name}: ${kilobytes.toFixed(1)} KB (budget < ${check.budgetKb} KB: ${kilobytes < check.budgetKb ? 'within' : 'OVER'})`,
       );
     }
   }
   await closeBenchDatabase();
+  if (asJson) {
+    const report = {
+      node: process.version,
+      cpus: os.availableParallelism(),
+      load_average: os.loadavg(),
+      figures,
+      ratios: referenceRatios(figures),
+    };
+    console.log(JSON.stringify(report, null, 2));
+    return 0;
+  }
   const widths = rows[0].map((_, column) => Math.max(...rows.map((cells) => cells[column].length)));
   for (const cells of rows)
     console.log(

@@ -7,7 +7,9 @@ import { openLocalDatabase } from './local-database';
 import { onShutdown } from './shutdown';
 
 /** The database npm start and npm run dev work on: running, migrated, the demo seeded once. */
-export async function prepareDatabase(log: (line: string) => void = console.log): Promise<Sequelize> {
+export async function prepareDatabase(
+  log: (line: string) => void = console.log,
+): Promise<{ sequelize: Sequelize; url: string }> {
   const database = await openLocalDatabase(log);
   const { cluster } = database;
   if (cluster) onShutdown('PostgreSQL', () => cluster.stop());
@@ -25,5 +27,5 @@ export async function prepareDatabase(log: (line: string) => void = console.log)
     const seeded = await seedDemo(sequelize);
     if (seeded.length > 0) log(`Seeded the demo: ${seeded.join(', ')}`);
   }
-  return sequelize;
+  return { sequelize, url: database.url };
 }

@@ -15,27 +15,52 @@ export interface CompareSide {
   setup?: Setup | null;
 }
 
-export interface Comparison extends SetupDiff {
-  findings_delta: FindingsDelta;
+/**
+ * The shape of `compareContent`'s answer. Stored compares (the API's compare cache) are
+ * keyed by it: bump it whenever that answer changes (a field added, renamed or computed
+ * differently), so no process serves a shape an older build stored.
+ */
+export const COMPARE_FORMAT_VERSION = 1;
+
+/** What differs between two documents: a function of their content alone (their content hashes). */
+export interface ContentComparison extends SetupDiff {
   /** null when either revision is not schema-valid: the bench cannot evaluate it. */
   outputs_delta: OutputDelta[] | null;
+}
+
+export interface Comparison extends ContentComparison {
+  findings_delta: FindingsDelta;
   text: TextDiff;
 }
 
-function setupOf(side: CompareSide): Setup | null {
+function setupOf(side: Pick<CompareSide, 'data' | 'setup'>): Setup | null {
   if (side.setup !== undefined) return side.setup;
   const parsed = setupSchema.safeParse(side.data);
   return parsed.success ? parsed.data : null;
 }
 
-/** Everything the compare view shows for two revisions (of one model or of two). */
-export function compareRevisions(before: CompareSide, after: CompareSide): Comparison {
+/**
+ * The costly part of a compare, which depends on the two documents only. Findings carry
+ * line numbers (which move with comments and formatting, not with the content hash) and
+ * the text diff depends on the text, so both stay outside it.
+ */
+export function compareContent(
+  before: Pick<CompareSide, 'data' | 'setup'>,
+  after: Pick<CompareSide, 'data' | 'setup'>,
+): ContentComparison {
   const beforeSetup = setupOf(before);
   const afterSetup = setupOf(after);
   return {
     ...diffSetups(before.data, after.data),
-    findings_delta: findingsDelta(before.findings, after.findings),
     outputs_delta: beforeSetup && afterSetup ? outputsDelta(beforeSetup, afterSetup) : null,
+  };
+}
+
+/** Everything the compare view shows for two revisions (of one model or of two). */
+export function compareRevisions(before: CompareSide, after: CompareSide): Comparison {
+  return {
+    ...compareContent(before, after),
+    findings_delta: findingsDelta(before.findings, after.findings),
     text: textDiff(before.text, after.text),
   };
 }

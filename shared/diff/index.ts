@@ -1,5 +1,12 @@
 export { diffSetups } from './diff-setups';
-export { compareRevisions, type CompareSide, type Comparison } from './compare';
+export {
+  COMPARE_FORMAT_VERSION,
+  compareContent,
+  compareRevisions,
+  type CompareSide,
+  type Comparison,
+  type ContentComparison,
+} from './compare';
 export { findingsDelta, type FindingsDelta } from './findings-delta';
 export { outputsDelta, renamedControls, standardPositions, type OutputDelta, type PositionSet } from './outputs-delta';
 export { jsonPatch, type JsonPatchOperation } from './json-patch';

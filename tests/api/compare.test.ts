@@ -1,5 +1,8 @@
 import { applyPatch, deepClone } from 'fast-json-patch';
+import { QueryTypes } from 'sequelize';
 import { beforeAll, describe, expect, it } from 'vitest';
+import { analyzeSetup } from '../../shared/analyze';
+import { COMPARE_FORMAT_VERSION, compareRevisions, textDiff } from '../../shared/diff';
 import { createRoleFixture, type RoleFixture } from './helpers/factories';
 import { useTestApp } from './helpers/test-app';
 import { clientFor, createModelVia, edit, fixture, SCALE, saveVia, TRAINER, type Client } from './models-support';
@@ -32,10 +35,10 @@ beforeAll(async () => {
 });
 
 describe('GET /api/compare', () => {
-  it('answers the change list, counts, sections, findings delta, outputs delta and text for two revisions of one model', async () => {
+  it('answers the change list, counts, sections, findings delta and outputs delta for two revisions of one model', async () => {
     const body = (await viewer.get(`/api/compare?from=${before.id}&to=${after.id}`).expect(200)).body.data;
     expect(Object.keys(body).sort()).toEqual(
-      ['changes', 'counts', 'findings_delta', 'from', 'outputs_delta', 'sections', 'text', 'to'].sort(),
+      ['changes', 'counts', 'findings_delta', 'from', 'outputs_delta', 'sections', 'to'].sort(),
     );
     expect(body.from).toMatchObject({ id: before.id, number: 1, model: { id: modelId, name: 'Kestrel Mk II' } });
     expect(body.to).toMatchObject({ id: after.id, number: 2, message: 'Wing pin 3 failsafe 988 -> 1500' });
@@ -56,8 +59,24 @@ describe('GET /api/compare', () => {
     expect(body.findings_delta.introduced).toEqual([]);
     expect(body.findings_delta.resolved.map((finding: { rule: string }) => finding.rule)).toEqual(['failsafe-endstop']);
     expect(Array.isArray(body.outputs_delta)).toBe(true);
-    expect(body.text.removed).toBeGreaterThan(0);
-    expect(body.text.rows.some((row: { kind: string }) => row.kind === 'changed')).toBe(true);
+  });
+
+  it('sends the YAML text diff from its own route, only when asked', async () => {
+    const text = (await viewer.get(`/api/compare/text?from=${before.id}&to=${after.id}`).expect(200)).body.data;
+    expect(text).toEqual(textDiff(fixture('pairs/failsafe-fix.before.yaml'), fixture('pairs/failsafe-fix.after.yaml')));
+    expect(text.removed).toBeGreaterThan(0);
+    expect(text.rows.some((row: { kind: string }) => row.kind === 'changed')).toBe(true);
+    const outsider = clientFor(t.app, t.config, roles.outsider);
+    await outsider.get(`/api/compare/text?from=${before.id}&to=${after.id}`).expect(404);
+  });
+
+  it('compresses the answers for a client that accepts gzip', async () => {
+    const response = await viewer
+      .get(`/api/compare/text?from=${before.id}&to=${after.id}`)
+      .set('Accept-Encoding', 'gzip')
+      .expect(200);
+    expect(response.headers['content-encoding']).toBe('gzip');
+    expect(response.body.data.rows.length).toBeGreaterThan(0);
   });
 
   it('compares revisions of two models, each side read-checked', async () => {
@@ -102,6 +121,84 @@ describe('GET /api/compare', () => {
     const body = (await viewer.get(`/api/compare?from=${after.id}&to=${broken.id}`).expect(200)).body.data;
     expect(body.outputs_delta).toBeNull();
     expect(body.findings_delta.introduced.some((finding: { rule: string }) => finding.rule === 'schema')).toBe(true);
+  });
+});
+
+describe('the compare cache', () => {
+  const cached = (fromHash: string, toHash: string) =>
+    t.sequelize.query<{ result: string; format_version: number }>(
+      'SELECT result, format_version FROM compare_cache WHERE from_hash = $fromHash AND to_hash = $toHash',
+      { bind: { fromHash, toHash }, type: QueryTypes.SELECT },
+    );
+
+  it('answers from the cache exactly what a fresh compute gives, keyed by both content hashes and the format version', async () => {
+    const yamlBefore = fixture('pairs/failsafe-fix.before.yaml');
+    const yamlAfter = fixture('pairs/failsafe-fix.after.yaml');
+    const { model, revision } = await createModelVia(editor, roles.workspace.id, { name: 'Cache', yaml: yamlBefore });
+    const saved = await saveVia(editor, model.id, 1, yamlAfter);
+    // The first describe compared the same two documents (in another model): the row is
+    // shared by content; it is removed so this compare computes afresh.
+    await t.sequelize.query('DELETE FROM compare_cache WHERE from_hash = $fromHash AND to_hash = $toHash', {
+      bind: { fromHash: revision.content_hash, toHash: saved.content_hash },
+    });
+
+    const first = (await viewer.get(`/api/compare?from=${revision.id}&to=${saved.id}`).expect(200)).body.data;
+    const rows = await cached(revision.content_hash, saved.content_hash);
+    expect(rows.map((row) => row.format_version)).toEqual([COMPARE_FORMAT_VERSION]);
+    const second = (await viewer.get(`/api/compare?from=${revision.id}&to=${saved.id}`).expect(200)).body.data;
+    expect(second).toEqual(first);
+
+    const beforeAnalysis = analyzeSetup(yamlBefore);
+    const afterAnalysis = analyzeSetup(yamlAfter);
+    const fresh = compareRevisions(
+      { text: yamlBefore, data: beforeAnalysis.data, findings: beforeAnalysis.findings },
+      { text: yamlAfter, data: afterAnalysis.data, findings: afterAnalysis.findings },
+    );
+    const { text: _text, ...withoutText } = fresh;
+    const { from: _from, to: _to, ...answered } = second;
+    expect(answered).toEqual(JSON.parse(JSON.stringify(withoutText)));
+  });
+
+  it('is what the answer is built from: a row in the table is served as it stands', async () => {
+    const { model, revision } = await createModelVia(editor, roles.workspace.id, { name: 'Planted', yaml: TRAINER() });
+    const saved = await saveVia(editor, model.id, 1, edit(TRAINER(), 'expo: 30,', 'expo: 45,'));
+    // A planted row with a marker proves the route reads the table rather than recomputing.
+    await t.sequelize.query(
+      'INSERT INTO compare_cache (from_hash, to_hash, format_version, result) VALUES ($fromHash, $toHash, $version, $result)',
+      {
+        bind: {
+          fromHash: revision.content_hash,
+          toHash: saved.content_hash,
+          version: COMPARE_FORMAT_VERSION,
+          result: JSON.stringify({ changes: [], counts: { planted: 1 }, sections: {}, outputs_delta: null }),
+        },
+      },
+    );
+    const body = (await viewer.get(`/api/compare?from=${revision.id}&to=${saved.id}`).expect(200)).body.data;
+    expect(body.counts).toEqual({ planted: 1 });
+    // A row of another format version is never served.
+    await t.sequelize.query('UPDATE compare_cache SET format_version = format_version - 1 WHERE to_hash = $toHash', {
+      bind: { toHash: saved.content_hash },
+    });
+    const fresh = (await viewer.get(`/api/compare?from=${revision.id}&to=${saved.id}`).expect(200)).body.data;
+    expect(fresh.counts.changed).toBe(1);
+  });
+
+  it('is shared by two app instances on one database', async () => {
+    const yaml = edit(TRAINER(), 'expo: 30,', 'expo: 47,');
+    const { model, revision } = await createModelVia(editor, roles.workspace.id, { name: 'Shared', yaml: TRAINER() });
+    const saved = await saveVia(editor, model.id, 1, yaml);
+    const other = t.appWith({});
+    const otherViewer = clientFor(other.app, other.config, roles.members.viewer);
+    const fromOther = (await otherViewer.get(`/api/compare?from=${revision.id}&to=${saved.id}`).expect(200)).body.data;
+    const [row] = await cached(revision.content_hash, saved.content_hash);
+    expect(JSON.parse(row.result).counts).toEqual(fromOther.counts);
+    await t.sequelize.query(
+      "UPDATE compare_cache SET result = jsonb_set(result::jsonb, '{counts,moved}', '99')::text WHERE to_hash = $toHash",
+      { bind: { toHash: saved.content_hash } },
+    );
+    const fromThis = (await viewer.get(`/api/compare?from=${revision.id}&to=${saved.id}`).expect(200)).body.data;
+    expect(fromThis.counts.moved).toBe(99);
   });
 });
 

@@ -276,6 +276,7 @@ export async function buildSampleWorld(t: MailTestApp): Promise<SampleWorld> {
       url: `/api/revisions/${secondRevisionId}/patch?from=${firstRevisionId}`,
     }),
     'GET /api/compare': async () => ({ url: `/api/compare?from=${firstRevisionId}&to=${secondRevisionId}` }),
+    'GET /api/compare/text': async () => ({ url: `/api/compare/text?from=${firstRevisionId}&to=${secondRevisionId}` }),
     'GET /api/revisions/:id/field-sheet': async () => ({ url: `/api/revisions/${secondRevisionId}/field-sheet` }),
     'GET /api/revisions/:id/field-sheet.pdf': async () => ({
       url: `/api/revisions/${secondRevisionId}/field-sheet.pdf`,

@@ -101,4 +101,13 @@ describe('Compare', () => {
       `/api/revisions/${model.revisions[0].id}/patch?from=${model.revisions[1].id}&download=1`,
     );
   });
+
+  it('fetches the YAML text difference only when the reader opens it', async () => {
+    const { server, user } = openCompare('trim-tuning');
+    await screen.findByRole('region', { name: 'Changes by section' });
+    expect(server.called('GET', '/api/compare/text')).toHaveLength(0);
+    await user.click(screen.getByText('Show the line-by-line difference'));
+    expect((await screen.findAllByText(/only in/)).length).toBeGreaterThan(0);
+    expect(server.called('GET', '/api/compare/text')).toHaveLength(1);
+  });
 });

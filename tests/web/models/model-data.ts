@@ -3,7 +3,7 @@ import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { analyzeSetup } from '../../../shared/analyze';
 import type { Revision } from '../../../shared/contract/model';
-import { compareRevisions } from '../../../shared/diff';
+import { compareRevisions, textDiff } from '../../../shared/diff';
 import { CLUB, demoUser, type FakeHandler } from '../fake-server';
 
 // Models and revisions as the API presents them, built from the repository's fixture
@@ -159,7 +159,19 @@ export function modelRoutes(models: ModelRecord[]): Record<string, FakeHandler> 
       { text: from.revision.yaml, data: from.revision.document, findings: from.revision.findings },
       { text: to.revision.yaml, data: to.revision.document, findings: to.revision.findings },
     );
-    return { body: { data: { from: present(from), to: present(to), ...comparison } } };
+    const { text: _text, ...withoutText } = comparison;
+    return { body: { data: { from: present(from), to: present(to), ...withoutText } } };
+  };
+  routes['GET /api/compare/text'] = ({ url }) => {
+    const side = (id: string | null) => all().find(({ revision }) => revision.id === id);
+    const from = side(url.searchParams.get('from'));
+    const to = side(url.searchParams.get('to'));
+    if (!from || !to)
+      return {
+        status: 404,
+        body: { error: { code: 'not-found', message: 'That revision was not found.', details: null } },
+      };
+    return { body: { data: textDiff(from.revision.yaml, to.revision.yaml) } };
   };
   return routes;
 }

@@ -6,8 +6,11 @@ export interface CompareSideSummary extends RevisionSummary {
   model: RevisionModelRef;
 }
 
-/** `GET /api/compare`: the two revisions and everything that differs between them. */
-export interface CompareResult extends Comparison {
+/**
+ * `GET /api/compare`: the two revisions and everything that differs between them, but
+ * the text diff, which `GET /api/compare/text` sends when the reader opens it.
+ */
+export interface CompareResult extends Omit<Comparison, 'text'> {
   from: CompareSideSummary;
   to: CompareSideSummary;
 }

@@ -1,5 +1,6 @@
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
 import { api } from '../../../lib/api-client';
+import type { TextDiff } from '../../../../shared/diff';
 import type { Id } from '../../../types/api';
 import type { CompareResult } from '../types';
 
@@ -29,3 +30,18 @@ export function useComparison(from: Id | null, to: Id | null) {
 /** Where the browser downloads the RFC 6902 JSON Patch from `from` to `to`. */
 export const patchDownloadUrl = (from: Id, to: Id) =>
   `/api/revisions/${encodeURIComponent(to)}/patch?${new URLSearchParams({ from, download: '1' })}`;
+
+export async function getTextDiff(from: Id, to: Id, signal?: AbortSignal): Promise<TextDiff> {
+  const params = new URLSearchParams({ from, to });
+  return (await api.get<TextDiff>(`/api/compare/text?${params}`, signal)).data;
+}
+
+/** The line-by-line diff of the two stored texts, fetched only once the reader opens it. */
+export function useTextDiff(from: Id, to: Id, enabled: boolean) {
+  return useQuery({
+    queryKey: ['compare-text', from, to],
+    queryFn: ({ signal }) => getTextDiff(from, to, signal),
+    staleTime: Infinity,
+    enabled,
+  });
+}

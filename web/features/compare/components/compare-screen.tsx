@@ -1,4 +1,4 @@
-import type { ReactNode } from 'react';
+import { useState, type ReactNode } from 'react';
 import { useParams, useSearchParams } from 'react-router-dom';
 import { Button, buttonClasses } from '../../../components/ui/button';
 import { Card } from '../../../components/ui/card';
@@ -10,7 +10,7 @@ import { useModel } from '../../models/api/get-model';
 import { revisionsOf, useRevisions } from '../../models/api/list-revisions';
 import { TimeAgo } from '../../models/components/time-ago';
 import type { SetupModelView } from '../../models/types';
-import { patchDownloadUrl, useComparison } from '../api/get-comparison';
+import { patchDownloadUrl, useComparison, useTextDiff } from '../api/get-comparison';
 import type { CompareResult, CompareSideSummary } from '../types';
 import { ChangeList, KindCounts } from './change-list';
 import { FindingsDeltaView } from './findings-delta';
@@ -140,6 +140,44 @@ function Compare({ model }: { model: SetupModelView }) {
   );
 }
 
+// The text diff of two large setups is most of a compare's weight and few readers
+// open it, so it is fetched when they do.
+function LazyTextDiff({
+  from,
+  to,
+  fromLabel,
+  toLabel,
+}: {
+  from: string;
+  to: string;
+  fromLabel: string;
+  toLabel: string;
+}) {
+  const [open, setOpen] = useState(false);
+  const diff = useTextDiff(from, to, open);
+  return (
+    <details
+      className="rounded-lg border border-ply-200 bg-paper-raised px-4 py-3"
+      onToggle={(event) => setOpen(event.currentTarget.open)}
+    >
+      <summary className="cursor-pointer font-medium text-ink-900">Show the line-by-line difference</summary>
+      <div className="mt-3">
+        {diff.isPending ? (
+          <LoadingState label="Loading the text difference…" />
+        ) : diff.isError ? (
+          <ErrorState
+            title="The text difference could not be loaded"
+            error={diff.error}
+            onRetry={() => void diff.refetch()}
+          />
+        ) : (
+          <TextDiffView diff={diff.data} fromLabel={fromLabel} toLabel={toLabel} />
+        )}
+      </div>
+    </details>
+  );
+}
+
 function Section({
   id,
   title,
@@ -230,7 +268,7 @@ function Result({ model, result, stale }: { model: SetupModelView; result: Compa
       </Section>
 
       <Section id="text-heading" title="The YAML text">
-        <TextDiffView diff={result.text} fromLabel={fromLabel} toLabel={toLabel} />
+        <LazyTextDiff from={result.from.id} to={result.to.id} fromLabel={fromLabel} toLabel={toLabel} />
       </Section>
     </div>
   );
