@@ -4,6 +4,7 @@ import { expect } from 'vitest';
 import { signLinkToken } from '../../api/auth/link-tokens';
 import { Invitation, PasswordReset, Revision, Tag, type User } from '../../api/models';
 import type { Role } from '../../api/policies/roles';
+import { queueImportJob } from '../../api/portability/import-jobs';
 import { CHECKLIST_IDS } from '../../api/reviews/checklist';
 import {
   addMember,
@@ -159,6 +160,14 @@ export async function buildSampleWorld(t: MailTestApp): Promise<SampleWorld> {
         .set(await headersOf('owner')),
     ).expect(200)
   ).body as Buffer;
+  // Queued only: no import worker runs here, the job routes just read it.
+  const importJobId = await queueImportJob(t.sequelize, {
+    workspaceId: ws,
+    requestedBy: roles.members.owner.id,
+    fileName: 'history.bundle',
+    modelName: null,
+    bundle,
+  });
 
   const samples: Record<string, Sample> = {
     'GET /api/health': async () => ({ url: '/api/health' }),
@@ -285,6 +294,8 @@ export async function buildSampleWorld(t: MailTestApp): Promise<SampleWorld> {
       url: `/api/workspaces/${ws}/import`,
       upload: { file: bundle, name: 'history.bundle', type: 'application/octet-stream' },
     }),
+    'GET /api/workspaces/:ws/imports': async () => ({ url: `/api/workspaces/${ws}/imports` }),
+    'GET /api/workspaces/:ws/imports/:id': async () => ({ url: `/api/workspaces/${ws}/imports/${importJobId}` }),
 
     'POST /api/revisions/:id/reviews': async () => ({
       url: `/api/revisions/${(await freshModel()).revisionId}/reviews`,
