@@ -150,8 +150,9 @@ export function portabilityRouter({ sequelize, config }: AppContext): Router {
       modelName: fields.name ?? null,
       bundle: upload.bundle,
     });
-    importJobSignals.emit('queued');
+    // Read before the worker is told, so the answer shows the job as it was queued.
     const [job] = await presentImportJobs([(await findImportJob(sequelize, workspace.id, id))!], role, user);
+    importJobSignals.emit('queued');
     res.status(202).location(`/api/workspaces/${workspace.id}/imports/${id}`).json({ data: job });
   });
 
