@@ -8,7 +8,7 @@ import {
   MAX_SETUP_BYTES,
 } from '../../api/portability/import-limits';
 import { createRoleFixture, type RoleFixture } from './helpers/factories';
-import { bundleOf, setupCommits } from './helpers/git-history';
+import { bundleOf, setupCommits } from '../../scripts/lib/fake-git-history';
 import { importDone, importFailed, queueImport, useImportWorker, waitForImport } from './helpers/imports';
 import { useTestApp } from './helpers/test-app';
 import { clientFor, edit, TRAINER, type Client } from './models-support';
