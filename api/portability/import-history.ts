@@ -6,6 +6,7 @@ import { message as messageField } from '../routes/model-inputs';
 import { parseCommitMessage } from './commit-message';
 import { SETUP_FILE } from './export-history';
 import { GitError, withGit, type Git } from './git-cli';
+import { LineTooLong } from './git-stream';
 import {
   EARLIEST_AUTHOR_DATE,
   FUTURE_AUTHOR_SLACK_MS,
@@ -44,7 +45,6 @@ export interface ImportedModel {
   /** Tags by name, each on a revision (index into `revisions`). */
   tags: { name: string; index: number }[];
 }
-
 
 export interface ImportProgress {
   commits_total: number;
@@ -332,6 +332,7 @@ export async function readHistoryBundle(bundle: Buffer, report: ReportProgress):
   try {
     return await readWithGit(bundle, report);
   } catch (error) {
+    if (error instanceof LineTooLong) throw notABundle('git printed a line of it longer than any history has');
     if (error instanceof GitError)
       throw notABundle(
         error.stderr.includes('prerequisite') ? 'it needs commits from another repository' : 'git could not read it',
