@@ -148,18 +148,9 @@ async function historyHead(git: Git, repo: string): Promise<string> {
  * read line by line (newest first, so a history past the commit limit is refused at
  * the limit, not after git has listed all of it).
  */
-function firstParentLine(git: Git, repo: string, head: string, report: ReportProgress): Promise<FirstParentLine> {
-  const args = [
-    '-c',
-    'core.quotePath=false',
-    'log',
-    '--first-parent',
-    '--root',
-    '--raw',
-    '--no-abbrev',
-    '--no-renames',
-  ];
-  args.push('--diff-merges=first-parent', '--format=%x00%H', head);
+function firstParentLine(git: Git, repo: string, head: string): Promise<FirstParentLine> {
+  const args = ['-c', 'core.quotePath=false', 'log', '--first-parent', '--root', '--raw', '--no-abbrev'];
+  args.push('--no-renames', '--diff-merges=first-parent', '--format=%x00%H', head);
   return git.stream(args, { cwd: repo }, async (out) => {
     const commits: string[] = [];
     const changes = new Map<string, SetupChange[]>();
@@ -169,7 +160,6 @@ function firstParentLine(git: Git, repo: string, head: string, report: ReportPro
       if (line.startsWith('\u0000')) {
         commits.push(line.slice(1));
         if (commits.length > MAX_IMPORT_COMMITS) throw tooMany('commits', 'too-many-commits', MAX_IMPORT_COMMITS);
-        if (commits.length % REPORT_EVERY === 0) await report({ commits_total: commits.length });
         continue;
       }
       const change = RAW_CHANGE.exec(line);
@@ -347,7 +337,7 @@ function readWithGit(bundle: Buffer, report: ReportProgress): Promise<ImportedMo
     const repo = path.join(git.dir, 'history.git');
     await writeFile(file, bundle);
     await git.run(['clone', '--quiet', '--bare', file, repo]);
-    const line = await firstParentLine(git, repo, await historyHead(git, repo), report);
+    const line = await firstParentLine(git, repo, await historyHead(git, repo));
     const { commits } = line;
     if (commits.length === 0) throw notABundle('it holds no commits');
     await report({ commits_total: commits.length });

@@ -4,7 +4,6 @@ import { expect } from 'vitest';
 import { signLinkToken } from '../../api/auth/link-tokens';
 import { Invitation, PasswordReset, Revision, Tag, type User } from '../../api/models';
 import type { Role } from '../../api/policies/roles';
-import { queueImportJob } from '../../api/portability/import-jobs';
 import { CHECKLIST_IDS } from '../../api/reviews/checklist';
 import {
   addMember,
@@ -161,13 +160,13 @@ export async function buildSampleWorld(t: MailTestApp): Promise<SampleWorld> {
     ).expect(200)
   ).body as Buffer;
   // Queued only: no import worker runs here, the job routes just read it.
-  const importJobId = await queueImportJob(t.sequelize, {
-    workspaceId: ws,
-    requestedBy: roles.members.owner.id,
-    fileName: 'history.bundle',
-    modelName: null,
-    bundle,
-  });
+  const importJobId: string = (
+    await request(t.app)
+      .post(`/api/workspaces/${ws}/import`)
+      .set(await headersOf('owner'))
+      .attach('file', bundle, { filename: 'history.bundle', contentType: 'application/octet-stream' })
+      .expect(202)
+  ).body.data.id;
 
   const samples: Record<string, Sample> = {
     'GET /api/health': async () => ({ url: '/api/health' }),
