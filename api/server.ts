@@ -1,6 +1,7 @@
 import type { Server } from 'node:http';
 import { createApp } from './app';
 import type { AppContext } from './context';
+import { startImportWorker } from './portability/import-worker';
 
 export interface RunningServer {
   server: Server;
@@ -17,12 +18,14 @@ export function portFromEnv(env: NodeJS.ProcessEnv): number {
   return port;
 }
 
-/** Listens on 127.0.0.1; port 0 takes a free one (see `url`). */
+/** Listens on 127.0.0.1; port 0 takes a free one (see `url`). Runs the history import worker beside it. */
 export function startServer(context: AppContext, port: number, host = '127.0.0.1'): Promise<RunningServer> {
   const app = createApp(context);
+  const worker = startImportWorker(context.sequelize, { logErrors: context.config.logErrors });
   return new Promise((resolve, reject) => {
     const server = app.listen(port, host);
     server.once('error', (error: NodeJS.ErrnoException) => {
+      void worker.stop();
       reject(
         error.code === 'EADDRINUSE'
           ? new Error(`Port ${port} on ${host} is already in use: stop what uses it or set PORT to another port.`)
@@ -35,11 +38,14 @@ export function startServer(context: AppContext, port: number, host = '127.0.0.1
       resolve({
         server,
         url: `http://${host}:${actual}`,
-        close: () =>
-          new Promise<void>((done, fail) => {
+        close: async () => {
+          await new Promise<void>((done, fail) => {
             server.close((error) => (error ? fail(error) : done()));
             server.closeAllConnections();
-          }),
+          });
+          // The job in hand finishes (or fails) before the database goes away.
+          await worker.stop();
+        },
       });
     });
   });

@@ -2,6 +2,7 @@ import { spawn } from 'node:child_process';
 import { mkdtemp, rm } from 'node:fs/promises';
 import os from 'node:os';
 import path from 'node:path';
+import { streamGit, type GitStream } from './git-stream';
 
 // The git command line in a temporary folder of its own. No system or user
 // configuration is read (GIT_CONFIG_NOSYSTEM, GIT_CONFIG_GLOBAL, HOME), so what the
@@ -28,9 +29,15 @@ export interface Git {
   dir: string;
   run(args: string[], options?: { input?: string | Buffer; cwd?: string }): Promise<GitResult>;
   text(args: string[], options?: { input?: string | Buffer; cwd?: string }): Promise<string>;
+  /** Reads git's output as it arrives (see git-stream.ts). */
+  stream<T>(
+    args: string[],
+    options: { cwd?: string; input?: string },
+    read: (stream: GitStream) => Promise<T>,
+  ): Promise<T>;
 }
 
-function gitEnv(home: string): NodeJS.ProcessEnv {
+export function gitEnv(home: string): NodeJS.ProcessEnv {
   return {
     PATH: process.env.PATH ?? '/usr/bin:/bin',
     HOME: home,
@@ -49,7 +56,7 @@ function gitEnv(home: string): NodeJS.ProcessEnv {
 }
 
 // A crafted upload (a pack that inflates to gigabytes) must not keep git busy for long.
-const GIT_TIMEOUT_MS = 60_000;
+export const GIT_TIMEOUT_MS = 60_000;
 
 function runGit(args: string[], cwd: string, env: NodeJS.ProcessEnv, input?: string | Buffer): Promise<GitResult> {
   return new Promise((resolve, reject) => {
@@ -97,6 +104,7 @@ export async function withGit<T>(work: (git: Git) => Promise<T>): Promise<T> {
     run: (args, options = {}) => runGit(args, options.cwd ?? dir, env, options.input),
     text: async (args, options = {}) =>
       (await runGit(args, options.cwd ?? dir, env, options.input)).stdout.toString('utf8'),
+    stream: (args, options, read) => streamGit(args, { cwd: options.cwd ?? dir, env, input: options.input }, read),
   };
   try {
     return await work(git);

@@ -5,7 +5,7 @@ import { recordAuditEvent } from '../commands/record-audit-event';
 import { appendRevision, checkSetupText, type CheckedSetup, type LockedModel } from '../commands/save-revision';
 import { HttpError } from '../errors';
 import { Tag, type SetupModel, type User, type Workspace } from '../models';
-import type { ImportedModel } from './import-history';
+import type { ImportedModel, ReportProgress } from './import-history';
 
 export interface ImportResult {
   model: SetupModel;
@@ -29,11 +29,17 @@ function nameFor(imported: ImportedModel, setups: CheckedSetup[], override: stri
   return 'Imported model';
 }
 
+// Reading and checking a setup takes a few milliseconds of the one thread every
+// request shares; the import lets the others in between batches of this many.
+const BATCH = 25;
+const nextTurn = () => new Promise<void>((resolve) => setImmediate(resolve));
+
 /** Every setup read and checked before anything is written; one bad text refuses the whole import. */
-function checkAll(imported: ImportedModel): CheckedSetup[] {
-  return imported.revisions.map((revision, index) => {
+async function checkAll(imported: ImportedModel, done: () => Promise<void>): Promise<CheckedSetup[]> {
+  const setups: CheckedSetup[] = [];
+  for (const [index, revision] of imported.revisions.entries()) {
     try {
-      return checkSetupText(revision.text);
+      setups.push(checkSetupText(revision.text));
     } catch (error) {
       if (!(error instanceof HttpError)) throw error;
       const where = `${imported.folder ? `${imported.folder}/` : ''}setup.yaml in commit ${revision.commit.slice(0, 12)} (revision ${index + 1})`;
@@ -41,7 +47,9 @@ function checkAll(imported: ImportedModel): CheckedSetup[] {
         details: { ...error.details, commit: revision.commit, revision: index + 1 },
       });
     }
-  });
+    if (setups.length % BATCH === 0) await done();
+  }
+  return setups;
 }
 
 /**
@@ -53,11 +61,23 @@ function checkAll(imported: ImportedModel): CheckedSetup[] {
 export async function importModels(
   sequelize: Sequelize,
   input: { workspace: Workspace; author: User; models: ImportedModel[]; name?: string },
+  report: ReportProgress,
 ): Promise<ImportResult[]> {
-  const checked = input.models
-    .filter((model) => model.revisions.length > 0)
-    .map((model) => ({ model, setups: checkAll(model) }));
-  return sequelize.transaction(async (transaction) => {
+  let checkedCount = 0;
+  const checkedBatch = async () => {
+    checkedCount += BATCH;
+    await report({ revisions_checked: checkedCount });
+    await nextTurn();
+  };
+  const checked: { model: ImportedModel; setups: CheckedSetup[] }[] = [];
+  for (const model of input.models.filter((candidate) => candidate.revisions.length > 0))
+    checked.push({ model, setups: await checkAll(model, checkedBatch) });
+  await report({ revisions_checked: checked.reduce((sum, entry) => sum + entry.setups.length, 0) });
+  let stored = 0;
+  const storedOne = async () => {
+    if (++stored % BATCH === 0) await report({ revisions_stored: stored });
+  };
+  const results = await sequelize.transaction(async (transaction) => {
     const results: ImportResult[] = [];
     for (const { model: imported, setups } of checked) {
       const name = nameFor(imported, setups, input.models.length === 1 ? input.name : undefined);
@@ -77,6 +97,7 @@ export async function importModels(
       );
       const locked: LockedModel = { model: created.model, latest: created.revision };
       const revisionIds = [created.revision.id];
+      await storedOne();
       for (const [index, revision] of rest.entries()) {
         const appended = await appendRevision(
           sequelize,
@@ -87,6 +108,7 @@ export async function importModels(
         );
         locked.latest = appended;
         revisionIds.push(appended.id);
+        await storedOne();
       }
       await Tag.bulkCreate(
         imported.tags.map((tag) => ({
@@ -123,4 +145,6 @@ export async function importModels(
     }
     return results;
   });
+  await report({ revisions_stored: stored });
+  return results;
 }

@@ -103,7 +103,14 @@ export const ROUTE_TABLE: readonly RouteEntry[] = [
   { method: 'GET', path: '/api/revisions/:id/field-sheet.pdf', access: 'viewer' },
   { method: 'GET', path: '/api/models/:id/export.git', access: 'viewer' },
   { method: 'GET', path: '/api/workspaces/:ws/export.git', access: 'viewer' },
-  { method: 'POST', path: '/api/workspaces/:ws/import', access: 'editor' },
+  {
+    method: 'POST',
+    path: '/api/workspaces/:ws/import',
+    access: 'editor',
+    note: 'answers 202 with a job; the import worker does the work',
+  },
+  { method: 'GET', path: '/api/workspaces/:ws/imports', access: 'editor' },
+  { method: 'GET', path: '/api/workspaces/:ws/imports/:id', access: 'editor' },
 
   { method: 'POST', path: '/api/revisions/:id/reviews', access: 'editor' },
   { method: 'GET', path: '/api/workspaces/:ws/reviews', access: 'viewer' },

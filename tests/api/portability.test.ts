@@ -7,10 +7,12 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { Revision, SetupModel, Tag } from '../../api/models';
 import { parseCommitMessage, formatCommitMessage } from '../../api/portability/commit-message';
 import { createRoleFixture, type RoleFixture } from './helpers/factories';
+import { importDone, importFailed, queueImport, useImportWorker } from './helpers/imports';
 import { useTestApp } from './helpers/test-app';
 import { clientFor, edit, GLIDER, TRAINER, type Client } from './models-support';
 
 const t = useTestApp();
+useImportWorker(t);
 let roles: RoleFixture;
 let editor: Client;
 let outsider: Client;
@@ -58,14 +60,6 @@ function cloneBundle(bundle: Buffer, name: string): string {
   execFileSync('git', ['clone', '--quiet', file, target], { env: gitEnv });
   return target;
 }
-
-const importBundle = (client: Client, workspaceId: string, bundle: Buffer, fields: Record<string, string> = {}) =>
-  client.upload(
-    `/api/workspaces/${workspaceId}/import`,
-    bundle,
-    { name: 'history.bundle', type: 'application/octet-stream' },
-    fields,
-  );
 
 interface Built {
   modelId: string;
@@ -170,8 +164,9 @@ describe('a model’s history as a git bundle', () => {
   });
 
   it('imports as a new model with the same revisions in order: texts, content hashes, messages, times and tags', async () => {
-    const response = await importBundle(outsider, roles.otherWorkspace.id, bundle).expect(201);
-    const [result] = response.body.data.models;
+    const job = await importDone(outsider, roles.otherWorkspace.id, bundle);
+    expect(job.progress).toMatchObject({ commits_total: 5, commits_read: 5, revisions_total: 5, revisions_stored: 5 });
+    const [result] = job.models;
     expect(result).toMatchObject({
       model: { name: 'Tern "1800" / club', workspace_id: roles.otherWorkspace.id },
       revisions: 5,
@@ -190,10 +185,8 @@ describe('a model’s history as a git bundle', () => {
   });
 
   it('takes a name for the new model from the form', async () => {
-    const response = await importBundle(editor, roles.workspace.id, bundle, { name: 'Tern, second airframe' }).expect(
-      201,
-    );
-    expect(response.body.data.models[0].model.name).toBe('Tern, second airframe');
+    const job = await importDone(editor, roles.workspace.id, bundle, { name: 'Tern, second airframe' });
+    expect(job.models[0].model.name).toBe('Tern, second airframe');
   });
 });
 
@@ -227,10 +220,7 @@ describe('a whole workspace as a git bundle', () => {
     const times = git(clone, 'log', '--reverse', '--format=%at').trim().split('\n').map(Number);
     expect([...times].sort((x, y) => x - y)).toEqual(times);
 
-    const imported = (await importBundle(editor, roles.workspace.id, bundle).expect(201)).body.data.models as {
-      model: { id: string; name: string };
-      revisions: number;
-    }[];
+    const imported = (await importDone(editor, roles.workspace.id, bundle)).models;
     expect(imported).toHaveLength(before.length);
     const originalHashes = await Promise.all(
       before.map(async (model) =>
@@ -274,12 +264,8 @@ describe('a repository kept by hand', () => {
     git(repo, 'tag', 'Not_A_Slug', 'HEAD');
     git(repo, 'bundle', 'create', '--quiet', path.join(folder, 'by-hand.bundle'), '--all');
 
-    const response = await importBundle(
-      editor,
-      roles.workspace.id,
-      readFileSync(path.join(folder, 'by-hand.bundle')),
-    ).expect(201);
-    const [result] = response.body.data.models;
+    const [result] = (await importDone(editor, roles.workspace.id, readFileSync(path.join(folder, 'by-hand.bundle'))))
+      .models;
     expect(result).toMatchObject({ revisions: 2, tags: 1 });
     const history = await historyOf(result.model.id);
     expect(history.map(({ message, yamlText, seconds }) => ({ message, yamlText, seconds }))).toEqual([
@@ -293,9 +279,9 @@ describe('a repository kept by hand', () => {
 describe('refusals', () => {
   it('refuses a file that is not a git bundle, and unreadable setups in a history, storing nothing', async () => {
     const before = await SetupModel.count();
-    const notBundle = await importBundle(editor, roles.workspace.id, Buffer.from('model: {name: x}\n')).expect(415);
+    const notBundle = await queueImport(editor, roles.workspace.id, Buffer.from('model: {name: x}\n')).expect(415);
     expect(notBundle.body.error.code).toBe('not-a-git-bundle');
-    const truncated = await importBundle(
+    const truncated = await queueImport(
       editor,
       roles.workspace.id,
       Buffer.from('# v2 git bundle\nabc refs/heads/main\n\nPACKgarbage'),
@@ -310,13 +296,9 @@ describe('refusals', () => {
     writeFileSync(path.join(repo, 'setup.yaml'), 'model: [unclosed\n');
     git(repo, 'commit', '--quiet', '-am', 'broken');
     git(repo, 'bundle', 'create', '--quiet', path.join(folder, 'broken.bundle'), '--all');
-    const unreadable = await importBundle(
-      editor,
-      roles.workspace.id,
-      readFileSync(path.join(folder, 'broken.bundle')),
-    ).expect(422);
-    expect(unreadable.body.error).toMatchObject({ code: 'unreadable-setup', details: { revision: 2 } });
-    expect(unreadable.body.error.message).toContain('revision 2');
+    const unreadable = await importFailed(editor, roles.workspace.id, readFileSync(path.join(folder, 'broken.bundle')));
+    expect(unreadable).toMatchObject({ status: 422, code: 'unreadable-setup', details: { revision: 2 } });
+    expect(unreadable.message).toContain('revision 2');
 
     const empty = path.join(folder, 'no-setup');
     git(folder, 'init', '--quiet', '--initial-branch', 'main', empty);
@@ -325,8 +307,7 @@ describe('refusals', () => {
     git(empty, 'commit', '--quiet', '-m', 'readme');
     git(empty, 'bundle', 'create', '--quiet', path.join(folder, 'no-setup.bundle'), '--all');
     expect(
-      (await importBundle(editor, roles.workspace.id, readFileSync(path.join(folder, 'no-setup.bundle'))).expect(422))
-        .body.error.code,
+      (await importFailed(editor, roles.workspace.id, readFileSync(path.join(folder, 'no-setup.bundle')))).code,
     ).toBe('no-setup-in-history');
 
     await editor.post(`/api/workspaces/${roles.workspace.id}/import`, { file: 'x' }).expect(415);
@@ -339,8 +320,8 @@ describe('refusals', () => {
     await binary(outsider.get(`/api/models/${modelId}/export.git`)).expect(404);
     await binary(outsider.get(`/api/workspaces/${roles.workspace.id}/export.git`)).expect(404);
     const viewer = clientFor(t.app, t.config, roles.members.viewer);
-    expect((await importBundle(viewer, roles.workspace.id, bundle).expect(403)).body.error.code).toBe('role-too-low');
-    await importBundle(outsider, roles.workspace.id, bundle).expect(404);
+    expect((await queueImport(viewer, roles.workspace.id, bundle).expect(403)).body.error.code).toBe('role-too-low');
+    await queueImport(outsider, roles.workspace.id, bundle).expect(404);
     await request(t.app).get(`/api/models/${modelId}/export.git`).expect(401);
   });
 });

@@ -159,6 +159,14 @@ export async function buildSampleWorld(t: MailTestApp): Promise<SampleWorld> {
         .set(await headersOf('owner')),
     ).expect(200)
   ).body as Buffer;
+  // Queued only: no import worker runs here, the job routes just read it.
+  const importJobId: string = (
+    await request(t.app)
+      .post(`/api/workspaces/${ws}/import`)
+      .set(await headersOf('owner'))
+      .attach('file', bundle, { filename: 'history.bundle', contentType: 'application/octet-stream' })
+      .expect(202)
+  ).body.data.id;
 
   const samples: Record<string, Sample> = {
     'GET /api/health': async () => ({ url: '/api/health' }),
@@ -287,6 +295,8 @@ export async function buildSampleWorld(t: MailTestApp): Promise<SampleWorld> {
       url: `/api/workspaces/${ws}/import`,
       upload: { file: bundle, name: 'history.bundle', type: 'application/octet-stream' },
     }),
+    'GET /api/workspaces/:ws/imports': async () => ({ url: `/api/workspaces/${ws}/imports` }),
+    'GET /api/workspaces/:ws/imports/:id': async () => ({ url: `/api/workspaces/${ws}/imports/${importJobId}` }),
 
     'POST /api/revisions/:id/reviews': async () => ({
       url: `/api/revisions/${(await freshModel()).revisionId}/reviews`,

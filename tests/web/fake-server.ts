@@ -9,6 +9,8 @@ export interface FakeRequest {
   path: string;
   url: URL;
   body: unknown;
+  /** A multipart upload as the client built it. */
+  form: FormData | undefined;
   credentials: RequestCredentials | undefined;
   headers: Headers;
 }
@@ -35,6 +37,7 @@ export function fakeServer(routes: Record<string, FakeHandler>) {
       path: url.pathname,
       url,
       body: text === undefined ? undefined : JSON.parse(text),
+      form: init.body instanceof FormData ? init.body : undefined,
       credentials: init.credentials,
       headers: new Headers(init.headers),
     };

@@ -16,6 +16,7 @@ const CreateAccountScreen = lazyScreen(() => import('./routes/auth/create-accoun
 const ResetPasswordScreen = lazyScreen(() => import('./routes/auth/reset-password'), 'ResetPasswordScreen');
 const HomeScreen = lazyScreen(() => import('./routes/home'), 'HomeScreen');
 const NotFoundScreen = lazyScreen(() => import('./routes/not-found'), 'NotFoundScreen');
+const BackupsScreen = lazyScreen(() => import('../features/backups/components/backups-screen'), 'BackupsScreen');
 const TeamScreen = lazyScreen(() => import('../features/team/components/team-screen'), 'TeamScreen');
 const InvitationScreen = lazyScreen(() => import('../features/team/components/invitation-screen'), 'InvitationScreen');
 const ResetPasswordConfirmScreen = lazyScreen(
@@ -53,6 +54,7 @@ export const workspaceScreens: Screen[] = [
   { path: 'shelf', label: 'Shelf', element: <ShelfScreen /> },
   { path: 'reviews', label: 'Reviews', element: <ReviewsScreen /> },
   { path: 'team', label: 'Team', element: <TeamScreen /> },
+  { path: 'backups', label: 'Backups', element: <BackupsScreen /> },
 ];
 
 /** Screens of one model, under `/models/:modelId/`. */

@@ -33,7 +33,7 @@ describe('The signed-in app frame', () => {
       within(nav)
         .getAllByRole('link')
         .map((link) => link.textContent),
-    ).toEqual(['Hangar', 'Shelf', 'Reviews', 'Team']);
+    ).toEqual(['Hangar', 'Shelf', 'Reviews', 'Team', 'Backups']);
     expect(screen.getByText(demoUser.name)).toBeInTheDocument();
   });
 
