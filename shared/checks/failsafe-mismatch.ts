@@ -1,6 +1,6 @@
 import type { Failsafe } from '../format/schema';
 import type { Check, CheckResult } from './check';
-import { channelName } from './context';
+import { capitalize, channelName } from './context';
 import { ref } from './refs';
 
 // Two servos on one surface fed by two receivers fight when only one of them goes to
@@ -34,7 +34,7 @@ export const failsafeMismatch: Check = {
       );
       if (!other) continue;
       results.push({
-        message: `${channelName(ctx, ch)} is on pin ${first.entry.pin} of receiver ${first.receiver.id} failing safe to ${describe(first.entry.failsafe)} and on pin ${other.entry.pin} of receiver ${other.receiver.id} failing safe to ${describe(other.entry.failsafe)}: when only one of them loses the link, servos on one surface pull against each other.`,
+        message: `${capitalize(channelName(ctx, ch))} is on pin ${first.entry.pin} of receiver ${first.receiver.id} failing safe to ${describe(first.entry.failsafe)} and on pin ${other.entry.pin} of receiver ${other.receiver.id} failing safe to ${describe(other.entry.failsafe)}: when only one of them loses the link, servos on one surface pull against each other.`,
         hint: 'Give every pin that carries this channel the same failsafe pulse.',
         ...ref.pin(setup, other.receiverIndex, other.entryIndex, 'failsafe'),
       });

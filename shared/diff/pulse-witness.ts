@@ -98,12 +98,16 @@ const GRID: number[] = (() => {
   const steps = [100, 50, 25, 10, 5, 1];
   const seen = new Set<number>();
   const order: number[] = [];
-  for (const step of steps)
-    for (let p = -100; p <= 100; p += step)
-      if (!seen.has(p)) {
-        seen.add(p);
-        order.push(p);
-      }
+  for (const step of steps) {
+    const row: number[] = [];
+    for (let p = -100; p <= 100; p += step) if (!seen.has(p)) row.push(p);
+    // Centre first, then outward, the negative side before the positive.
+    row.sort((p, q) => Math.abs(p) - Math.abs(q) || p - q);
+    for (const p of row) {
+      seen.add(p);
+      order.push(p);
+    }
+  }
   return order;
 })();
 

@@ -162,7 +162,7 @@ describe('receiver pins', () => {
     const out = evaluate(trainer);
     expect(Object.keys(out)).toEqual(['channels', 'receivers']);
     expect(Object.keys(out.channels[0])).toEqual(['ch', 'function', 'value', 'pulse_us']);
-    expect(Object.keys(out.receivers[0])).toEqual(['id', 'pins']);
+    expect(Object.keys(out.receivers[0])).toEqual(['id', 'lost', 'pins']);
     expect(Object.keys(out.receivers[0].pins[0])).toEqual(['pin', 'ch', 'pulse_us', 'failsafe']);
   });
 });
