@@ -1,5 +1,6 @@
 import type { Finding } from '../findings';
 import { setupSchema, type Setup } from '../format/schema';
+import { changeFindings, type ChangeFinding } from './change-findings';
 import { diffSetups } from './diff-setups';
 import { findingsDelta, type FindingsDelta } from './findings-delta';
 import { outputsDelta, type OutputDelta } from './outputs-delta';
@@ -19,6 +20,8 @@ export interface Comparison extends SetupDiff {
   findings_delta: FindingsDelta;
   /** null when either revision is not schema-valid: the bench cannot evaluate it. */
   outputs_delta: OutputDelta[] | null;
+  /** Mistakes between the two revisions; null when either is not schema-valid. */
+  change_findings: ChangeFinding[] | null;
   text: TextDiff;
 }
 
@@ -36,6 +39,7 @@ export function compareRevisions(before: CompareSide, after: CompareSide): Compa
     ...diffSetups(before.data, after.data),
     findings_delta: findingsDelta(before.findings, after.findings),
     outputs_delta: beforeSetup && afterSetup ? outputsDelta(beforeSetup, afterSetup) : null,
+    change_findings: beforeSetup && afterSetup ? changeFindings(beforeSetup, afterSetup) : null,
     text: textDiff(before.text, after.text),
   };
 }

@@ -1,4 +1,5 @@
 export { diffSetups } from './diff-setups';
+export { changeFindings, failsafeMeaningChanged, type ChangeFinding } from './change-findings';
 export { compareRevisions, type CompareSide, type Comparison } from './compare';
 export { findingsDelta, type FindingsDelta } from './findings-delta';
 export { outputsDelta, renamedControls, REST_LABEL, type OutputDelta, type PositionSet } from './outputs-delta';
