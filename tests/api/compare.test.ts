@@ -174,10 +174,10 @@ describe('GET /api/compare sees every change in behaviour (second edition)', () 
       3,
       edit(
         SCALE(),
-        '{ ch: 9,  function: tailwheel,     role: steering }',
-        '{ ch: 9,  function: tailwheel,     role: steering, travel: { reverse: true } }',
+        'function: motor,         role: throttle,',
+        'function: motor,         role: throttle, travel: { reverse: true },',
       ),
-      'Reverse the tailwheel',
+      'Reverse the motor channel',
     );
     const body = (await viewer.get(`/api/compare?from=${base.id}&to=${reversed.id}`).expect(200)).body.data;
     // Fuselage pin 3 keeps 1000 us: through the old travel -100 % (stopped), through the
