@@ -1,7 +1,16 @@
-import { evaluate, pinPulse, type PinOutput } from '../evaluate/evaluate';
+import { channelValue, pinPulse, pulseFor, type PinOutput } from '../evaluate/evaluate';
 import { restPositions } from '../evaluate/rest';
 import type { Setup } from '../format/schema';
-import { axesOf, channelForm, pinKey, pinSources, sameForm, switchesOf, type PinSource } from './channel-form';
+import {
+  axesOf,
+  channelForm,
+  pinKey,
+  pinSources,
+  sameForm,
+  switchesOf,
+  type ChannelForm,
+  type PinSource,
+} from './channel-form';
 import { LIST_KEYS, matchList } from './identity';
 import { toBare } from './plain';
 import { lineOf, witnesses } from './pulse-witness';
@@ -142,9 +151,15 @@ interface Context {
   names: Map<string, string>;
   /** The new-revision name of an old revision's control. */
   globalOld: (id: string) => string;
+  leftPins: Map<string, PinSource>;
+  rightPins: Map<string, PinSource>;
 }
 
-/** The bench pulse of one pin at a position (new-revision names) and link state. */
+/**
+ * The bench pulse of one pin at a position (new-revision names) and link state,
+ * computed as evaluate() does (the same channelValue and pulseFor), from the pin's
+ * channel only, so that a reported position is exactly what the bench shows.
+ */
 function benchPulse(
   ctx: Context,
   side: 'before' | 'after',
@@ -153,14 +168,12 @@ function benchPulse(
   set: Record<string, number>,
   lost: boolean,
 ): number | null | undefined {
-  const setup = ctx[side];
-  const positions = { ...ctx.rest, ...set };
-  const outputs = evaluate(
-    setup,
-    side === 'before' ? translate(positions, ctx.oldNames) : positions,
-    lost ? new Set([receiver]) : new Set(),
-  );
-  return outputs.receivers.find((r) => r.id === receiver)?.pins.find((p) => p.pin === pin)?.pulse_us;
+  const source = (side === 'before' ? ctx.leftPins : ctx.rightPins).get(pinKey(receiver, pin));
+  if (!source) return undefined;
+  const named = { ...ctx.rest, ...set };
+  const positions = side === 'before' ? translate(named, ctx.oldNames) : named;
+  const value = channelValue(source.ch, source.cut, source.mixes, source.controls, positions);
+  return pinPulse(pulseFor(source.travel, value), source.failsafe, lost);
 }
 
 function label(ctx: Context, set: Record<string, number>, lost: string[]): string {
@@ -172,6 +185,24 @@ function label(ctx: Context, set: Record<string, number>, lost: string[]): strin
   const where = parts.length === 0 ? REST_LABEL : `${parts.join(', ')}, the rest at rest`;
   if (lost.length === 0) return where;
   return `${where}, ${lost.map((id) => ctx.names.get(id) ?? id).join(' and ')} lost`;
+}
+
+/**
+ * The axes along which to search: those whose coefficients differ between the forms,
+ * or every axis when the travel or the cut differs (then any stick can show it).
+ */
+function changedAxes(left: ChannelForm, right: ChannelForm, axes: string[]): string[] {
+  if (left.cut || right.cut) return axes;
+  const t = left.travel;
+  const u = right.travel;
+  if (t.low_us !== u.low_us || t.center_us !== u.center_us || t.high_us !== u.high_us || t.reverse !== u.reverse)
+    return axes;
+  const differs = (name: string) =>
+    Math.abs((left.a.get(name) ?? 0) - (right.a.get(name) ?? 0)) > 1e-9 ||
+    Math.abs((left.b.get(name) ?? 0) - (right.b.get(name) ?? 0)) > 1e-9;
+  const changed = axes.filter(differs);
+  // Only the constant differs: any one axis carries the line.
+  return changed.length > 0 ? changed : axes.slice(0, 1);
 }
 
 /**
@@ -190,8 +221,9 @@ function livePoint(
   const leftForm = channelForm(left, switches, globalOld);
   const rightForm = channelForm(right, switches, (id) => id);
   if (sameForm(leftForm, rightForm)) return null;
-  const axes = [...new Set([...axesOf(left, globalOld), ...axesOf(right, (id) => id)])];
-  const restX = new Map(axes.map((axis) => [axis, (ctx.rest[axis] ?? 0) / 100]));
+  const allAxes = [...new Set([...axesOf(left, globalOld), ...axesOf(right, (id) => id)])];
+  const axes = changedAxes(leftForm, rightForm, allAxes);
+  const restX = new Map(allAxes.map((axis) => [axis, (ctx.rest[axis] ?? 0) / 100]));
   const check = (set: Record<string, number>) =>
     benchPulse(ctx, 'before', receiver, pin, set, false) !== benchPulse(ctx, 'after', receiver, pin, set, false);
 
@@ -240,9 +272,10 @@ export function outputsDelta(before: Setup, after: Setup): OutputDelta[] {
     ]),
     names: receiverNames(before, after),
     globalOld,
+    leftPins: pinSources(before, (id) => oldNames.get(id) ?? id),
+    rightPins: pinSources(after, (id) => id),
   };
-  const leftPins = pinSources(before, (id) => oldNames.get(id) ?? id);
-  const rightPins = pinSources(after, (id) => id);
+  const { leftPins, rightPins } = ctx;
   const deltas: OutputDelta[] = [];
   const push = (
     kind: OutputDelta['kind'],
