@@ -23,7 +23,8 @@ export function applyAccepted(setup: Setup, findings: Finding[]): { findings: Fi
   const entries = setup.accepted ?? [];
   if (entries.length === 0) return { findings, results: [] };
   const reasons = new Map<string, string>();
-  for (const entry of entries) if (!reasons.has(key(entry.rule, entry.path))) reasons.set(key(entry.rule, entry.path), entry.reason);
+  for (const entry of entries)
+    if (!reasons.has(key(entry.rule, entry.path))) reasons.set(key(entry.rule, entry.path), entry.reason);
   const errors = new Set(findings.filter((f) => f.severity === 'error').map((f) => key(f.rule, f.path)));
   const results: CheckResult[] = [];
   entries.forEach((entry, i) => {

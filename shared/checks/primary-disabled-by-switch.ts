@@ -44,7 +44,10 @@ export const primaryDisabledBySwitch: Check = {
         });
       }
 
-      const position = disablingPosition(sticks.map((s) => s.mix), ctx.controls);
+      const position = disablingPosition(
+        sticks.map((s) => s.mix),
+        ctx.controls,
+      );
       if (position) {
         results.push({
           message: `With ${position} no mix from a stick is active on channel ${channel.ch} (${channel.function}), so the ${channel.role} does not respond to the sticks there.`,

@@ -91,19 +91,21 @@ export const cutSchema = z.looseObject({
   value: z.number().min(-100).max(100),
 });
 
-export const channelSchema = z.looseObject({
-  ch: channelNumber(),
-  function: slug(),
-  role: z.enum(CHANNEL_ROLES),
-  side: z.enum(SIDES).optional(),
-  travel: travelSchema.default({ ...DEFAULT_TRAVEL }),
-  cut: cutSchema.optional(),
-  // Throttle channels only; the default depends on the airframe (see throttleStop).
-  stop: z.enum(THROTTLE_STOPS).optional(),
-}).superRefine((channel, ctx) => {
-  if (channel.stop !== undefined && channel.role !== 'throttle')
-    ctx.addIssue({ code: 'custom', path: ['stop'], message: 'stop is only for throttle channels' });
-});
+export const channelSchema = z
+  .looseObject({
+    ch: channelNumber(),
+    function: slug(),
+    role: z.enum(CHANNEL_ROLES),
+    side: z.enum(SIDES).optional(),
+    travel: travelSchema.default({ ...DEFAULT_TRAVEL }),
+    cut: cutSchema.optional(),
+    // Throttle channels only; the default depends on the airframe (see throttleStop).
+    stop: z.enum(THROTTLE_STOPS).optional(),
+  })
+  .superRefine((channel, ctx) => {
+    if (channel.stop !== undefined && channel.role !== 'throttle')
+      ctx.addIssue({ code: 'custom', path: ['stop'], message: 'stop is only for throttle channels' });
+  });
 
 export const ratesSchema = z.looseObject({
   control: slug(),
