@@ -3,9 +3,10 @@ import type { Finding } from '../../shared/findings';
 import { failUnreadable } from './read-setup-file';
 
 // The arguments every command-line tool takes (docs/format.md, "Command line"): its files,
-// --json, and for the bench view --set CONTROL=VALUE; anything else is exit 2 with the usage.
+// --json, and for the bench view --set CONTROL=VALUE and --lost RECEIVER; anything else is exit 2 with the usage.
 
-export type CommandLine = { ok: true; json: boolean; files: string[]; sets: string[] } | { ok: false; exitCode: 2 };
+export type CommandLine =
+  { ok: true; json: boolean; files: string[]; sets: string[]; lost: string[] } | { ok: false; exitCode: 2 };
 
 const COUNT_WORDS: Record<number, string> = { 1: 'one file', 2: 'two files' };
 
@@ -17,11 +18,16 @@ export function readCommandLine(
   let json = argv.includes('--json');
   let files: string[];
   let sets: string[];
+  let lost: string[];
   try {
     const parsed = parseArgs({
       args: argv,
       options: takesSet
-        ? { json: { type: 'boolean' }, set: { type: 'string', multiple: true } }
+        ? {
+            json: { type: 'boolean' },
+            set: { type: 'string', multiple: true },
+            lost: { type: 'string', multiple: true },
+          }
         : { json: { type: 'boolean' } },
       allowPositionals: true,
       strict: true,
@@ -29,6 +35,7 @@ export function readCommandLine(
     json = parsed.values.json === true;
     files = parsed.positionals;
     sets = (parsed.values as { set?: string[] }).set ?? [];
+    lost = (parsed.values as { lost?: string[] }).lost ?? [];
   } catch (error) {
     return { ok: false, exitCode: failUnreadable(json, `${(error as Error).message}\n${usage}`) };
   }
@@ -37,7 +44,7 @@ export function readCommandLine(
       ok: false,
       exitCode: failUnreadable(json, `expected ${COUNT_WORDS[count]}, got ${files.length}\n${usage}`),
     };
-  return { ok: true, json, files, sets };
+  return { ok: true, json, files, sets, lost };
 }
 
 /** One finding as a line of the human output: where, how bad, which check, what. */

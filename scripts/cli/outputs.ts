@@ -1,14 +1,31 @@
 import { analyzeSetup } from '../../shared/analyze';
-import { evaluate, type Outputs } from '../../shared/evaluate/evaluate';
+import { evaluate, type LinkLoss, type Outputs } from '../../shared/evaluate/evaluate';
+import { fromRest } from '../../shared/evaluate/rest';
 import type { Setup } from '../../shared/format/schema';
 import { findingLine, readCommandLine } from './command-line';
 import { failUnreadable, readSetupFile } from './read-setup-file';
 
-// `npm run --silent outputs -- FILE [--set CONTROL=VALUE ...] [--json]` (docs/format.md,
-// "Command line"): the bench view. Axes, knobs and sliders take a percent, switches a
-// 0-based position; unset controls sit at 0 or position 0.
+// `npm run --silent outputs -- FILE [--set CONTROL=VALUE ...] [--lost RECEIVER ...] [--json]`
+// (docs/format.md, "Command line"): the bench view. Axes, knobs and sliders take a percent,
+// switches a 0-based position; unset controls sit at rest (evaluation rule 8: 0 or
+// position 0, a throttle's stick at its stop). --lost takes receivers off the link
+// (rule 9); `--lost all` takes every one.
 
-const USAGE = 'usage: npm run --silent outputs -- FILE [--set CONTROL=VALUE ...] [--json]';
+const USAGE = 'usage: npm run --silent outputs -- FILE [--set CONTROL=VALUE ...] [--lost RECEIVER|all ...] [--json]';
+
+type Loss = { ok: true; lost: LinkLoss } | { ok: false; message: string };
+
+function parseLost(setup: Setup, ids: readonly string[]): Loss {
+  if (ids.includes('all')) return { ok: true, lost: 'all' };
+  const known = new Set(setup.receivers.map((receiver) => receiver.id));
+  const unknown = ids.find((id) => !known.has(id));
+  if (unknown !== undefined)
+    return {
+      ok: false,
+      message: `--lost ${unknown}: no receiver ${unknown} (receivers: ${[...known].join(', ')}, or all)`,
+    };
+  return { ok: true, lost: new Set(ids) };
+}
 
 type Settings = { ok: true; positions: Record<string, number> } | { ok: false; message: string };
 
@@ -63,10 +80,11 @@ function humanOutputs(outputs: Outputs): string {
     );
   }
   for (const receiver of outputs.receivers) {
-    lines.push('', `Receiver ${receiver.id}`);
+    lines.push('', `Receiver ${receiver.id}${receiver.lost ? ' (link lost: failsafe)' : ''}`);
     for (const pin of receiver.pins) {
+      const pulse = pin.pulse_us === null ? 'no pulses' : `${pin.pulse_us} us`;
       lines.push(
-        `  pin ${String(pin.pin).padStart(2)}  ch ${String(pin.ch).padStart(2)}  ${pin.pulse_us} us  failsafe ${describeFailsafe(pin.failsafe)}`,
+        `  pin ${String(pin.pin).padStart(2)}  ch ${String(pin.ch).padStart(2)}  ${pulse}  failsafe ${describeFailsafe(pin.failsafe)}`,
       );
     }
   }
@@ -96,7 +114,10 @@ function main(argv: string[]): number {
   const settings = parseSettings(analysis.setup, sets);
   if (!settings.ok) return failUnreadable(json, `${settings.message}\n${USAGE}`);
 
-  const outputs = evaluate(analysis.setup, settings.positions);
+  const loss = parseLost(analysis.setup, args.lost);
+  if (!loss.ok) return failUnreadable(json, `${loss.message}\n${USAGE}`);
+
+  const outputs = evaluate(analysis.setup, fromRest(analysis.setup, settings.positions), loss.lost);
   if (json) process.stdout.write(`${JSON.stringify(outputs)}\n`);
   else {
     let text = humanOutputs(outputs);

@@ -1,5 +1,6 @@
 import type { Finding } from '../findings';
 import { setupSchema, type Setup } from '../format/schema';
+import { changeFindings, type ChangeFinding } from './change-findings';
 import { diffSetups } from './diff-setups';
 import { findingsDelta, type FindingsDelta } from './findings-delta';
 import { outputsDelta, type OutputDelta } from './outputs-delta';
@@ -20,12 +21,14 @@ export interface CompareSide {
  * keyed by it: bump it whenever that answer changes (a field added, renamed or computed
  * differently), so no process serves a shape an older build stored.
  */
-export const COMPARE_FORMAT_VERSION = 1;
+export const COMPARE_FORMAT_VERSION = 2;
 
 /** What differs between two documents: a function of their content alone (their content hashes). */
 export interface ContentComparison extends SetupDiff {
   /** null when either revision is not schema-valid: the bench cannot evaluate it. */
   outputs_delta: OutputDelta[] | null;
+  /** Mistakes between the two revisions; null when either is not schema-valid. */
+  change_findings: ChangeFinding[] | null;
 }
 
 export interface Comparison extends ContentComparison {
@@ -53,6 +56,7 @@ export function compareContent(
   return {
     ...diffSetups(before.data, after.data),
     outputs_delta: beforeSetup && afterSetup ? outputsDelta(beforeSetup, afterSetup) : null,
+    change_findings: beforeSetup && afterSetup ? changeFindings(beforeSetup, afterSetup) : null,
   };
 }
 

@@ -1,4 +1,5 @@
 export { diffSetups } from './diff-setups';
+export { changeFindings, failsafeMeaningChanged, type ChangeFinding } from './change-findings';
 export {
   COMPARE_FORMAT_VERSION,
   compareContent,
@@ -8,7 +9,7 @@ export {
   type ContentComparison,
 } from './compare';
 export { findingsDelta, type FindingsDelta } from './findings-delta';
-export { outputsDelta, renamedControls, standardPositions, type OutputDelta, type PositionSet } from './outputs-delta';
+export { outputsDelta, renamedControls, REST_LABEL, type OutputDelta, type PositionSet } from './outputs-delta';
 export { jsonPatch, type JsonPatchOperation } from './json-patch';
 export { textDiff, type TextDiff, type TextHunk, type TextRow, type TextRowKind } from './text-diff';
 export {

@@ -38,7 +38,7 @@ describe('GET /api/compare', () => {
   it('answers the change list, counts, sections, findings delta and outputs delta for two revisions of one model', async () => {
     const body = (await viewer.get(`/api/compare?from=${before.id}&to=${after.id}`).expect(200)).body.data;
     expect(Object.keys(body).sort()).toEqual(
-      ['changes', 'counts', 'findings_delta', 'from', 'outputs_delta', 'sections', 'to'].sort(),
+      ['change_findings', 'changes', 'counts', 'findings_delta', 'from', 'outputs_delta', 'sections', 'to'].sort(),
     );
     expect(body.from).toMatchObject({ id: before.id, number: 1, model: { id: modelId, name: 'Kestrel Mk II' } });
     expect(body.to).toMatchObject({ id: after.id, number: 2, message: 'Wing pin 3 failsafe 988 -> 1500' });
@@ -199,6 +199,80 @@ describe('the compare cache', () => {
     );
     const fromThis = (await viewer.get(`/api/compare?from=${revision.id}&to=${saved.id}`).expect(200)).body.data;
     expect(fromThis.counts.moved).toBe(99);
+  });
+});
+
+describe('GET /api/compare sees every change in behaviour (second edition)', () => {
+  let demo: string;
+  let base: { id: string };
+
+  beforeAll(async () => {
+    const created = await createModelVia(editor, roles.workspace.id, { name: 'Kestrel behaviour', yaml: SCALE() });
+    demo = created.model.id;
+    base = created.revision;
+  });
+
+  it('reports what moves differently when only the elevator expo changed (15 -> 20)', async () => {
+    const expo = await saveVia(editor, demo, 1, edit(SCALE(), 'weight: 92, expo: 15', 'weight: 92, expo: 20'), 'Expo');
+    const body = (await viewer.get(`/api/compare?from=${base.id}&to=${expo.id}`).expect(200)).body.data;
+    // Fuselage pin 2 (elevator, default travel [arduino-servo]), stick at -50 %, flaps up:
+    // [expo-cubic] 92 * (0.85 * -0.5 + 0.15 * -0.125) = -40.825 % -> 1500 - 204.125 = 1295.9 -> 1296 us;
+    // 92 * (0.8 * -0.5 + 0.2 * -0.125) = -39.1 % -> 1500 - 195.5 = 1304.5 -> 1305 us.
+    expect(body.outputs_delta[0]).toMatchObject({
+      kind: 'pulse',
+      receiver: 'fuselage',
+      pin: 2,
+      position: { set: { 'elevator-stick': -50, 'flap-switch': 0 }, lost: [] },
+      before_us: 1296,
+      after_us: 1305,
+    });
+    expect(body.outputs_delta.every((row: { pin: number }) => row.pin === 2)).toBe(true);
+    expect(body.change_findings).toEqual([]);
+  });
+
+  it('reports what moves differently when only the low aileron rate changed (60 -> 65)', async () => {
+    const rates = await saveVia(
+      editor,
+      demo,
+      2,
+      SCALE().replaceAll('weights: [100, 60]', 'weights: [100, 65]'),
+      'Rates',
+    );
+    const body = (await viewer.get(`/api/compare?from=${base.id}&to=${rates.id}`).expect(200)).body.data;
+    // Low rate at full left stick: 1500 - 0.60 * 500 = 1200 us before, 1500 - 0.65 * 500 = 1175 us after on
+    // pin 1; pin 6 is reversed, so 1800 -> 1825 us.
+    expect(
+      body.outputs_delta.map((row: { pin: number; before_us: number; after_us: number; position: { set: object } }) => [
+        row.pin,
+        row.position.set,
+        row.before_us,
+        row.after_us,
+      ]),
+    ).toEqual([
+      [1, { 'rate-switch': 1, 'aileron-stick': -100 }, 1200, 1175],
+      [6, { 'rate-switch': 1, 'aileron-stick': -100 }, 1800, 1825],
+    ]);
+  });
+
+  it('warns in change_findings when a channel is reversed but its failsafe number stays', async () => {
+    const reversed = await saveVia(
+      editor,
+      demo,
+      3,
+      edit(
+        SCALE(),
+        'function: motor,         role: throttle,',
+        'function: motor,         role: throttle, travel: { reverse: true },',
+      ),
+      'Reverse the motor channel',
+    );
+    const body = (await viewer.get(`/api/compare?from=${base.id}&to=${reversed.id}`).expect(200)).body.data;
+    // Fuselage pin 3 keeps 1000 us: through the old travel -100 % (stopped), through the
+    // reversed one +100 % (full power).
+    expect(body.change_findings).toMatchObject([
+      { rule: 'failsafe-meaning-changed', severity: 'warning', path: 'receivers[id=fuselage].map[pin=3].failsafe' },
+    ]);
+    expect(body.change_findings[0].message).toContain('-100 % of travel and now means 100 %');
   });
 });
 
