@@ -17,7 +17,7 @@ async function main(): Promise<void> {
   const config = configFromEnv(process.env, { dataDir, webDir: webDist });
   const sequelize = await prepareDatabase();
   await buildClientIfStale();
-  const mail = await startMail(process.env, `http://127.0.0.1:${port}`);
+  const mail = await startMail(process.env, `http://127.0.0.1:${port}`, sequelize);
   onShutdown('the mail server', () => mail.close());
   const server = await startServer({ sequelize, config, mail: mail.service }, port, process.env.HOST ?? '127.0.0.1');
   onShutdown('the web server', () => server.close());

@@ -113,7 +113,7 @@ export async function giveVerdict(
     const recipientIds = [...new Set([review.requestedBy, revision.authorId])].filter((id) => id !== user.id);
     const recipients = await User.findAll({ where: { id: recipientIds }, transaction });
     for (const recipient of recipients) {
-      await mail.send(
+      await mail.queue(
         verdictMail({
           to: recipient.email,
           recipient: recipient.name,
@@ -127,6 +127,7 @@ export async function giveVerdict(
           items: PRE_MAIDEN_CHECKLIST.length,
           url: appLink(mail, `/w/${review.workspaceId}/reviews/${review.id}`),
         }),
+        transaction,
       );
     }
     return { verdict, review };

@@ -99,7 +99,7 @@ export async function requestReview(sequelize: Sequelize, mail: MailService, inp
       transaction,
     );
     for (const reviewer of reviewers) {
-      await mail.send(
+      await mail.queue(
         reviewRequestedMail({
           to: reviewer.email,
           reviewer: reviewer.name,
@@ -112,6 +112,7 @@ export async function requestReview(sequelize: Sequelize, mail: MailService, inp
           warnings: input.revision.warningCount,
           url: appLink(mail, `/w/${input.workspace.id}/reviews/${review.id}`),
         }),
+        transaction,
       );
     }
     return review;

@@ -5,6 +5,7 @@ import * as modelsAndRevisions from './0002-models-and-revisions';
 import * as mailAndTeam from './0003-mail-and-team';
 import * as receivers from './0004-receivers';
 import * as reviews from './0005-reviews';
+import * as mailQueue from './0006-mail-queue';
 
 export interface MigrationModule {
   up: MigrationFn<MigrationContext>;
@@ -19,4 +20,5 @@ export const migrations: { name: string; module: MigrationModule }[] = [
   { name: '0003-mail-and-team', module: mailAndTeam },
   { name: '0004-receivers', module: receivers },
   { name: '0005-reviews', module: reviews },
+  { name: '0006-mail-queue', module: mailQueue },
 ];
