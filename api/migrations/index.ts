@@ -6,6 +6,7 @@ import * as mailAndTeam from './0003-mail-and-team';
 import * as receivers from './0004-receivers';
 import * as reviews from './0005-reviews';
 import * as mailQueue from './0006-mail-queue';
+import * as revokedSessions from './0007-revoked-sessions';
 
 export interface MigrationModule {
   up: MigrationFn<MigrationContext>;
@@ -21,4 +22,5 @@ export const migrations: { name: string; module: MigrationModule }[] = [
   { name: '0004-receivers', module: receivers },
   { name: '0005-reviews', module: reviews },
   { name: '0006-mail-queue', module: mailQueue },
+  { name: '0007-revoked-sessions', module: revokedSessions },
 ];
