@@ -10,7 +10,7 @@ import { RateLimited, Unauthorized } from '../errors';
 import { authenticate, currentUser, tokenFrom } from '../middleware/authenticate';
 import { User } from '../models';
 import { presentUser } from '../presenters/user';
-import { parseInput } from '../validation';
+import { SINGLE_LINE_MESSAGE, parseInput, singleLine } from '../validation';
 
 const signUpSchema = z.object({
   email: z
@@ -24,7 +24,8 @@ const signUpSchema = z.object({
     .string({ error: 'Enter your name.' })
     .trim()
     .min(1, 'Enter your name.')
-    .max(100, 'Keep the name to 100 characters.'),
+    .max(100, 'Keep the name to 100 characters.')
+    .refine(singleLine, SINGLE_LINE_MESSAGE),
   password: z
     .string({ error: 'Choose a password.' })
     .min(PASSWORD_MIN_LENGTH, `Use at least ${PASSWORD_MIN_LENGTH} characters.`)
