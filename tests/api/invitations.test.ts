@@ -113,7 +113,9 @@ describe('inviting by e-mail', () => {
       expect(refused.body.error.details).toEqual({ invited_email: invited, signed_in_email: caller.email });
     }
     expect(await Membership.count({ where: { workspaceId: workspace.id, userId: stranger.id } })).toBe(0);
-    expect(await AuditEvent.count({ where: { workspaceId: workspace.id, action: 'member.joined', actorId: stranger.id } })).toBe(0);
+    expect(
+      await AuditEvent.count({ where: { workspaceId: workspace.id, action: 'member.joined', actorId: stranger.id } }),
+    ).toBe(0);
     // The link still works for the invited address, in any letter case.
     const invitee = await createUser({ email: invited.toUpperCase() });
     await request(t.app)
