@@ -31,3 +31,12 @@ export function parseInput<S extends z.ZodType>(
 
 // Ids in paths: anything that is not a UUID cannot name a record, so it is simply not found.
 export const idSchema = z.uuid();
+
+// Names and titles are one line of text. NUL cannot be stored faithfully, and CR/LF in a
+// name that reaches a mail subject would add header lines; every other control
+// character is refused with them, so the rule is the same everywhere.
+const CONTROL = /[\u0000-\u001f\u007f]/;
+export const SINGLE_LINE_MESSAGE = 'Use one line of plain text: no line breaks, tabs or control characters.';
+
+/** The one refinement every single-line name or title field shares. */
+export const singleLine = (value: string): boolean => !CONTROL.test(value);

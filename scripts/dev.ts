@@ -16,7 +16,7 @@ async function main(): Promise<void> {
   const config = configFromEnv(process.env, { dataDir, webDir: null });
   const { sequelize } = await prepareDatabase();
   // Links in mails lead to Vite's dev server, which serves the client here.
-  const mail = await startMail(process.env, 'http://127.0.0.1:5173');
+  const mail = await startMail(process.env, 'http://127.0.0.1:5173', sequelize);
   onShutdown('the mail server', () => mail.close());
   const server = await startServer({ sequelize, config, mail: mail.service }, port);
   onShutdown('the API server', () => server.close());

@@ -1,7 +1,8 @@
 // One API process on a database that is already migrated (DATABASE_URL): what each
 // worker of `npm start` runs, and what the multi-process tests start twice. It runs no
-// migration, no seed and no background loop, so any number of these can share one
-// PostgreSQL: everything they share lives there.
+// migration and no seed. Its background loops (mail delivery, import jobs) claim their
+// rows with FOR UPDATE SKIP LOCKED, so any number of these can share one PostgreSQL:
+// everything they share lives there.
 import { configFromEnv } from '../api/config';
 import { createSequelize } from '../api/db/sequelize';
 import { startMail } from '../api/mail/start-mail';
@@ -19,9 +20,9 @@ async function main(): Promise<void> {
   const sequelize = createSequelize(url);
   onShutdown('the database connections', () => sequelize.close());
   // Each process runs its own local mail server when no SMTP_HOST is set; in a cluster
-  // the workers share its port like the web port, and every one stores into the same
-  // outbox table.
-  const mail = await startMail(process.env, process.env.APP_URL ?? `http://127.0.0.1:${port}`);
+  // the workers share its port like the web port, and every one delivers from and
+  // stores into the same outbox table.
+  const mail = await startMail(process.env, process.env.APP_URL ?? `http://127.0.0.1:${port}`, sequelize);
   onShutdown('the mail server', () => mail.close());
   const server = await startServer({ sequelize, config, mail: mail.service }, port, process.env.HOST ?? '127.0.0.1');
   onShutdown('the web server', () => server.close());

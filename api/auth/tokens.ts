@@ -1,11 +1,18 @@
 import jwt from 'jsonwebtoken';
-import { createSecretKey, type KeyObject } from 'node:crypto';
+import { createSecretKey, randomUUID, type KeyObject } from 'node:crypto';
 import { z } from 'zod';
 import type { AppConfig } from '../config';
 
 const ALGORITHM = 'HS256';
 
-const claimsSchema = z.object({ sub: z.uuid(), sv: z.number().int().positive() });
+// exp and jti are required: a token that never expires, or that cannot be signed out
+// on its own, is refused even when its signature is right.
+const claimsSchema = z.object({
+  sub: z.uuid(),
+  sv: z.number().int().positive(),
+  jti: z.uuid(),
+  exp: z.number().int().positive(),
+});
 export type SessionClaims = z.output<typeof claimsSchema>;
 
 // jsonwebtoken, handed a string, first tries to read it as a public key on every call
@@ -25,6 +32,7 @@ export function signSession(user: { id: string; sessionVersion: number }, config
     algorithm: ALGORITHM,
     expiresIn: config.tokenTtlSeconds,
     subject: user.id,
+    jwtid: randomUUID(),
   });
 }
 

@@ -1,7 +1,7 @@
 import { UniqueConstraintError, type Sequelize, type Transaction } from 'sequelize';
 import { hashPassword } from '../auth/passwords';
 import { linkExpired, linkUsed } from '../auth/link-tokens';
-import { Conflict, HttpError, NotFound } from '../errors';
+import { Conflict, Forbidden, HttpError, NotFound } from '../errors';
 import { Invitation, Membership, User, Workspace } from '../models';
 import { emailTaken } from './create-account';
 import { createWorkspace } from './create-workspace';
@@ -72,7 +72,20 @@ async function join(
   return membership;
 }
 
-/** The signed-in user takes the invitation's role in its workspace. */
+/**
+ * An invitation is for one address: only the account with that address may take it, or
+ * anyone holding the link could join as whoever they are (and the audit would record
+ * the invited address against them).
+ */
+export function wrongAccount(invitation: Invitation, user: User): Forbidden | null {
+  if (user.email.toLowerCase() === invitation.email.toLowerCase()) return null;
+  return new Forbidden(
+    `This invitation is for ${invitation.email}, and you are signed in as ${user.email}. Sign out, then sign in or create an account with ${invitation.email} to accept it.`,
+    { code: 'wrong-account', details: { invited_email: invitation.email, signed_in_email: user.email } },
+  );
+}
+
+/** The signed-in user, whose address is the invited one, takes the invitation's role in its workspace. */
 export async function acceptAsMember(
   sequelize: Sequelize,
   invitationId: string,
@@ -80,6 +93,8 @@ export async function acceptAsMember(
 ): Promise<{ invitation: Invitation & { workspace: Workspace }; membership: Membership }> {
   return sequelize.transaction(async (transaction) => {
     const invitation = await openInvitation(invitationId, transaction);
+    const refusal = wrongAccount(invitation, user);
+    if (refusal) throw refusal;
     const existing = await Membership.findOne({
       where: { workspaceId: invitation.workspaceId, userId: user.id },
       transaction,

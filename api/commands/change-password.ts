@@ -2,11 +2,13 @@ import type { Sequelize } from 'sequelize';
 import { hashPassword, verifyPassword } from '../auth/passwords';
 import { Forbidden } from '../errors';
 import { User } from '../models';
+import { closeOpenResets } from './reset-password';
 
 /**
  * Sets a new password after the current one is given again, and raises the session
  * version so every session of the account ends, the one that may have leaked
- * included; the caller re-issues a session for the device that asked.
+ * included; the caller re-issues a session for the device that asked. Reset links
+ * mailed before stop working too: one may sit in a mailbox someone else can read.
  */
 export async function changePassword(
   sequelize: Sequelize,
@@ -24,6 +26,7 @@ export async function changePassword(
     const locked = await User.findByPk(user.id, { lock: transaction.LOCK.UPDATE, transaction, rejectOnEmpty: true });
     await locked.update({ passwordHash }, { transaction });
     await locked.increment('sessionVersion', { transaction });
+    await closeOpenResets(locked.id, transaction);
     return locked.reload({ transaction });
   });
 }

@@ -6,6 +6,7 @@ import { verdictMail } from '../mail/messages';
 import { ChecklistTick, Review, ReviewVerdict, User } from '../models';
 import type { Verdict } from '../models/ReviewVerdict';
 import { PRE_MAIDEN_CHECKLIST } from '../reviews/checklist';
+import { contributorsOf } from '../reviews/contributors';
 import { reviewStateFromVerdicts } from '../reviews/sign-off';
 import type { ReviewAccess } from '../policies/review';
 import { recordAuditEvent } from './record-audit-event';
@@ -37,13 +38,22 @@ export async function setTicks(
   }
 }
 
-/** Why this user may not give this verdict on this revision, if they may not. */
-export function approvalRefusal(access: Pick<ReviewAccess, 'review'>, user: User): Forbidden | Unprocessable | null {
+/** Why this user may not approve this revision, if they may not. */
+export async function approvalRefusal(
+  access: Pick<ReviewAccess, 'review'>,
+  user: User,
+): Promise<Forbidden | Unprocessable | null> {
   const { revision } = access.review;
   if (revision.authorId === user.id) {
     return new Forbidden('Nobody approves their own revision: ask another reviewer to sign it off.', {
       code: 'own-revision',
     });
+  }
+  if ((await contributorsOf(revision)).has(user.id)) {
+    return new Forbidden(
+      `You wrote part of what revision ${revision.number} would sign off (a revision since the last approved setup, or one with this same content), so you cannot approve it: ask another reviewer.`,
+      { code: 'own-change' },
+    );
   }
   if (revision.errorCount > 0) {
     return new Unprocessable(
@@ -66,7 +76,7 @@ export async function giveVerdict(
   input: VerdictInput,
 ): Promise<{ verdict: ReviewVerdict; review: Review }> {
   if (input.verdict === 'approve') {
-    const refusal = approvalRefusal(access, user);
+    const refusal = await approvalRefusal(access, user);
     if (refusal) throw refusal;
   }
   const { revision, model } = access.review;
@@ -113,7 +123,7 @@ export async function giveVerdict(
     const recipientIds = [...new Set([review.requestedBy, revision.authorId])].filter((id) => id !== user.id);
     const recipients = await User.findAll({ where: { id: recipientIds }, transaction });
     for (const recipient of recipients) {
-      await mail.send(
+      await mail.queue(
         verdictMail({
           to: recipient.email,
           recipient: recipient.name,
@@ -127,6 +137,7 @@ export async function giveVerdict(
           items: PRE_MAIDEN_CHECKLIST.length,
           url: appLink(mail, `/w/${review.workspaceId}/reviews/${review.id}`),
         }),
+        transaction,
       );
     }
     return { verdict, review };

@@ -20,8 +20,9 @@ export interface InviteInput {
 
 /**
  * A new invitation, mailed. Inviting an address again replaces its open invitation, so
- * only the newest link works. The mail goes out inside the transaction: when it cannot
- * be sent, no invitation is left behind.
+ * only the newest link works. The mail is queued in the same transaction, so there is
+ * never an invitation without its mail nor a mail without its invitation; the delivery
+ * loop sends it after commit and retries when the mail server is away.
  */
 export async function inviteMember(
   sequelize: Sequelize,
@@ -72,7 +73,7 @@ export async function inviteMember(
       transaction,
     );
     const token = signLinkToken('invitation', invitation.id, invitation.expiresAt, config);
-    await mail.send(
+    await mail.queue(
       invitationMail({
         to: invitation.email,
         inviter: input.inviter.name,
@@ -81,6 +82,7 @@ export async function inviteMember(
         url: appLink(mail, `/invitations/${token}`),
         expiresAt: invitation.expiresAt,
       }),
+      transaction,
     );
     return invitation;
   });

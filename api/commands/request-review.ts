@@ -5,6 +5,7 @@ import type { MailService } from '../mail/mail-service';
 import { reviewRequestedMail } from '../mail/messages';
 import { Membership, Review, User, type Revision, type SetupModel, type Workspace } from '../models';
 import { roleAtLeast } from '../../shared/contract/roles';
+import { contributorsOf } from '../reviews/contributors';
 import { recordAuditEvent } from './record-audit-event';
 
 export interface ReviewRequest {
@@ -39,14 +40,19 @@ async function checkReviewers(input: ReviewRequest): Promise<User[]> {
       tooLow,
     );
   }
-  if (input.reviewerIds.includes(input.revision.authorId)) {
-    throw new Unprocessable('The author of a revision cannot review it: nobody signs off their own setup.', {
-      code: 'reviewer-is-author',
-      details: {
-        fields: { reviewers: 'Choose reviewers other than the author of this revision.' },
-        user_ids: [input.revision.authorId],
+  const contributors = await contributorsOf(input.revision);
+  const authors = input.reviewerIds.filter((id) => contributors.has(id));
+  if (authors.length > 0) {
+    throw new Unprocessable(
+      'An author of what this review would sign off cannot review it: nobody signs off their own setup.',
+      {
+        code: 'reviewer-is-author',
+        details: {
+          fields: { reviewers: 'Choose reviewers who wrote none of the revisions since the last approved setup.' },
+          user_ids: authors,
+        },
       },
-    });
+    );
   }
   return input.reviewerIds.map((id) => byUser.get(id)!.user!);
 }
@@ -99,7 +105,7 @@ export async function requestReview(sequelize: Sequelize, mail: MailService, inp
       transaction,
     );
     for (const reviewer of reviewers) {
-      await mail.send(
+      await mail.queue(
         reviewRequestedMail({
           to: reviewer.email,
           reviewer: reviewer.name,
@@ -112,6 +118,7 @@ export async function requestReview(sequelize: Sequelize, mail: MailService, inp
           warnings: input.revision.warningCount,
           url: appLink(mail, `/w/${input.workspace.id}/reviews/${review.id}`),
         }),
+        transaction,
       );
     }
     return review;

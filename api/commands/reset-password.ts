@@ -1,39 +1,53 @@
-import type { Sequelize } from 'sequelize';
+import { randomUUID } from 'node:crypto';
+import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
 import { linkExpired, linkUsed, signLinkToken } from '../auth/link-tokens';
 import { hashPassword } from '../auth/passwords';
 import type { AppConfig } from '../config';
 import { NotFound } from '../errors';
 import { appLink } from '../mail/context';
-import type { MailService } from '../mail/mail-service';
+import { queuedRow, type MailService } from '../mail/mail-service';
 import { passwordResetMail } from '../mail/messages';
 import { PasswordReset, User } from '../models';
 
 export const PASSWORD_RESET_TTL_MS = 60 * 60 * 1000;
 
-/** Mails a reset link when an account has this address; says nothing either way. */
+/**
+ * Queues a reset link when an account has this address; says nothing either way, and
+ * takes the same path either way so the answer's timing does not tell: one lookup, the
+ * link signed and the mail composed, then one statement that writes the reset and its
+ * queued mail only when the account exists. No SMTP happens in the request.
+ */
 export async function requestPasswordReset(
   sequelize: Sequelize,
   config: AppConfig,
   mail: MailService,
   email: string,
 ): Promise<void> {
-  const user = await User.findOne({ where: { email } });
-  if (!user) return;
-  await sequelize.transaction(async (transaction) => {
-    const reset = await PasswordReset.create(
-      { userId: user.id, expiresAt: new Date(Date.now() + PASSWORD_RESET_TTL_MS) },
-      { transaction },
-    );
-    const token = signLinkToken('password-reset', reset.id, reset.expiresAt, config);
-    await mail.send(
-      passwordResetMail({
-        to: user.email,
-        name: user.name,
-        url: appLink(mail, `/reset-password/${token}`),
-        expiresAt: reset.expiresAt,
-      }),
-    );
-  });
+  const account = await User.findOne({ where: { email }, attributes: ['name'] });
+  const resetId = randomUUID();
+  const expiresAt = new Date(Date.now() + PASSWORD_RESET_TTL_MS);
+  const token = signLinkToken('password-reset', resetId, expiresAt, config);
+  const row = queuedRow(
+    passwordResetMail({
+      to: email,
+      name: account?.name ?? 'pilot',
+      url: appLink(mail, `/reset-password/${token}`),
+      expiresAt,
+    }),
+    mail.from,
+  );
+  await sequelize.query(
+    `WITH account AS (SELECT id FROM users WHERE email = $email),
+          reset AS (INSERT INTO password_resets (id, user_id, expires_at)
+                    SELECT $resetId, id, $expiresAt FROM account RETURNING id)
+     INSERT INTO outbox (message_id, envelope_from, envelope_to, from_header, to_header, subject,
+                         text_body, html_body, size_bytes, state, next_attempt_at)
+     SELECT $messageId, $envelopeFrom, $envelopeTo, $fromHeader, $toHeader, $subject,
+            $textBody, $htmlBody, $sizeBytes, 'pending', now()
+       FROM reset`,
+    { bind: { email, resetId, expiresAt, ...row }, type: QueryTypes.INSERT },
+  );
+  mail.deliverSoon();
 }
 
 const resetNotFound = () => new NotFound('This password reset no longer exists.', { code: 'reset-not-found' });
@@ -68,7 +82,12 @@ export async function resetPassword(sequelize: Sequelize, id: string, password: 
     const user = reset.user;
     await user.update({ passwordHash }, { transaction });
     await user.increment('sessionVersion', { transaction });
-    await PasswordReset.update({ usedAt: new Date() }, { where: { userId: user.id, usedAt: null }, transaction });
+    await closeOpenResets(user.id, transaction);
     return user.reload({ transaction });
   });
+}
+
+/** Uses up every open reset link of an account: a new password makes the older links moot. */
+export async function closeOpenResets(userId: string, transaction: Transaction): Promise<void> {
+  await PasswordReset.update({ usedAt: new Date() }, { where: { userId, usedAt: null }, transaction });
 }

@@ -21,9 +21,9 @@ function addressText(value: AddressObject | AddressObject[] | undefined): string
 
 /**
  * A mail server on loopback that stands in for a hosted one: every message it is
- * handed is parsed and stored in the outbox table before the SMTP transaction is
- * answered, so a send that succeeded can be read back at once. Only this process's
- * own mailer talks to it (127.0.0.1, no relaying anywhere).
+ * handed is parsed and recorded in the outbox table before the SMTP transaction is
+ * answered, so a delivery that succeeded can be read back at once. Only Bindery's own
+ * delivery loop talks to it (127.0.0.1, no relaying anywhere).
  */
 export function startLocalMailServer(options: { port?: number | null; host?: string } = {}): Promise<LocalMailServer> {
   const host = options.host ?? '127.0.0.1';
@@ -37,10 +37,9 @@ export function startLocalMailServer(options: { port?: number | null; host?: str
       simpleParser(stream)
         .then(async (mail) => {
           const html = typeof mail.html === 'string' ? mail.html : null;
-          await OutboxMessage.create({
-            messageId: mail.messageId ?? null,
+          const caught = {
             envelopeFrom: session.envelope.mailFrom ? session.envelope.mailFrom.address : null,
-            envelopeTo: session.envelope.rcptTo.map((recipient) => recipient.address),
+            envelopeTo: session.envelope.rcptTo.map((recipient) => recipient.address.toLowerCase()),
             fromHeader: addressText(mail.from),
             toHeader: addressText(mail.to),
             subject: mail.subject ?? '',
@@ -49,6 +48,20 @@ export function startLocalMailServer(options: { port?: number | null; host?: str
             sizeBytes: html
               ? Buffer.byteLength(html) + Buffer.byteLength(mail.text ?? '')
               : Buffer.byteLength(mail.text ?? ''),
+            receivedAt: new Date(),
+          };
+          // Our own queued mail: the catch is written onto its queue row, as parsed back
+          // from the wire, so the Outbox shows what really travelled.
+          if (mail.messageId) {
+            const [updated] = await OutboxMessage.update(caught, { where: { messageId: mail.messageId } });
+            if (updated > 0) return;
+          }
+          await OutboxMessage.create({
+            ...caught,
+            messageId: mail.messageId ?? null,
+            state: 'delivered',
+            nextAttemptAt: null,
+            deliveredAt: caught.receivedAt,
           });
         })
         .then(

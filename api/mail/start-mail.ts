@@ -1,35 +1,51 @@
+import type { Sequelize } from 'sequelize';
+import { startMailDelivery, type DeliveryOptions, type MailDelivery } from './delivery';
 import { startLocalMailServer } from './local-mail-server';
-import { createMailService, type MailService } from './mail-service';
+import { createMailer, createMailService, type MailService } from './mail-service';
 import { mailSettingsFromEnv } from './mail-settings';
 
 export interface RunningMail {
   service: MailService;
+  delivery: MailDelivery;
   /** One line for the console: where mail goes. */
   description: string;
   close(): Promise<void>;
 }
 
 /**
- * The mail of a running app: through SMTP_HOST when it is set, otherwise through a
- * local mail server started here, whose catch the Outbox screen shows.
+ * The mail of a running app: queued in the outbox table and delivered by this process's
+ * delivery loop, through SMTP_HOST when it is set, otherwise through a local mail
+ * server started here, whose catch the Outbox screen shows.
  */
-export async function startMail(env: NodeJS.ProcessEnv, fallbackAppUrl: string): Promise<RunningMail> {
+export async function startMail(
+  env: NodeJS.ProcessEnv,
+  fallbackAppUrl: string,
+  sequelize: Sequelize,
+  deliveryOptions: Partial<DeliveryOptions> = {},
+): Promise<RunningMail> {
   const settings = mailSettingsFromEnv(env, fallbackAppUrl);
   if (settings.mode === 'smtp') {
-    const service = createMailService(
-      {
-        host: settings.host,
-        port: settings.port,
-        secure: settings.secure,
-        ignoreTLS: false,
-        auth: settings.user ? { user: settings.user, pass: settings.password ?? '' } : null,
-      },
-      { from: settings.from, appUrl: settings.appUrl, outboxEnabled: false },
-    );
+    const mailer = createMailer({
+      host: settings.host,
+      port: settings.port,
+      secure: settings.secure,
+      ignoreTLS: false,
+      auth: settings.user ? { user: settings.user, pass: settings.password ?? '' } : null,
+    });
+    const delivery = startMailDelivery(sequelize, mailer, deliveryOptions);
     return {
-      service,
+      service: createMailService({
+        from: settings.from,
+        appUrl: settings.appUrl,
+        outboxEnabled: false,
+        wake: delivery.wake,
+      }),
+      delivery,
       description: `Mail goes out through ${settings.host}:${settings.port}.`,
-      close: async () => service.close(),
+      close: async () => {
+        await delivery.stop();
+        mailer.close();
+      },
     };
   }
   let server;
@@ -43,15 +59,20 @@ export async function startMail(env: NodeJS.ProcessEnv, fallbackAppUrl: string):
       );
     throw error;
   }
-  const service = createMailService(
-    { host: server.host, port: server.port, secure: false, ignoreTLS: true, auth: null },
-    { from: settings.from, appUrl: settings.appUrl, outboxEnabled: true },
-  );
+  const mailer = createMailer({ host: server.host, port: server.port, secure: false, ignoreTLS: true, auth: null });
+  const delivery = startMailDelivery(sequelize, mailer, deliveryOptions);
   return {
-    service,
+    service: createMailService({
+      from: settings.from,
+      appUrl: settings.appUrl,
+      outboxEnabled: true,
+      wake: delivery.wake,
+    }),
+    delivery,
     description: `Mail is caught by the local mail server on ${server.host}:${server.port}; read it on the Outbox screen.`,
     close: async () => {
-      service.close();
+      await delivery.stop();
+      mailer.close();
       await server.close();
     },
   };

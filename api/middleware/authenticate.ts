@@ -1,5 +1,6 @@
 import type { NextFunction, Request, RequestHandler, Response } from 'express';
-import { verifySession } from '../auth/tokens';
+import { QueryTypes } from 'sequelize';
+import { verifySession, type SessionClaims } from '../auth/tokens';
 import type { AppConfig } from '../config';
 import { Unauthorized } from '../errors';
 import { User } from '../models';
@@ -13,7 +14,7 @@ declare global {
   }
 }
 
-function tokenFrom(req: Request, cookieName: string): string | null {
+export function tokenFrom(req: Request, cookieName: string): string | null {
   const header = req.get('authorization');
   if (header !== undefined) {
     const match = /^Bearer\s+(\S+)\s*$/i.exec(header);
@@ -35,13 +36,21 @@ export function authenticate(config: AppConfig): RequestHandler {
         ? new Unauthorized('Your session has expired. Sign in again.', { code: 'session-expired' })
         : new Unauthorized('The session token is not valid. Sign in again.', { code: 'invalid-token' });
     }
-    const user = await User.findByPk(result.claims.sub);
-    if (!user || user.sessionVersion !== result.claims.sv) {
+    const [user, revoked] = await Promise.all([User.findByPk(result.claims.sub), isRevoked(result.claims)]);
+    if (!user || user.sessionVersion !== result.claims.sv || revoked) {
       throw new Unauthorized('This session has ended. Sign in again.', { code: 'session-ended' });
     }
     req.user = user;
     next();
   };
+}
+
+async function isRevoked(claims: SessionClaims): Promise<boolean> {
+  const rows = await User.sequelize!.query('SELECT 1 FROM revoked_sessions WHERE jti = $jti', {
+    bind: { jti: claims.jti },
+    type: QueryTypes.SELECT,
+  });
+  return rows.length > 0;
 }
 
 /** The caller set by `authenticate`; a route mounted without it is a programming error. */

@@ -5,6 +5,8 @@ import * as modelsAndRevisions from './0002-models-and-revisions';
 import * as mailAndTeam from './0003-mail-and-team';
 import * as receivers from './0004-receivers';
 import * as reviews from './0005-reviews';
+import * as mailQueue from './0006-mail-queue';
+import * as revokedSessions from './0007-revoked-sessions';
 import * as importJobs from './0010-import-jobs';
 import * as compareCache from './0012-compare-cache';
 
@@ -21,6 +23,8 @@ export const migrations: { name: string; module: MigrationModule }[] = [
   { name: '0003-mail-and-team', module: mailAndTeam },
   { name: '0004-receivers', module: receivers },
   { name: '0005-reviews', module: reviews },
+  { name: '0006-mail-queue', module: mailQueue },
+  { name: '0007-revoked-sessions', module: revokedSessions },
   { name: '0010-import-jobs', module: importJobs },
   { name: '0012-compare-cache', module: compareCache },
 ];

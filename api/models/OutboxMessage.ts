@@ -7,7 +7,13 @@ import {
   type Sequelize,
 } from 'sequelize';
 
-/** A message the local mail server caught (development and demo mode only): the `outbox` table. */
+export type OutboxState = 'pending' | 'delivered' | 'failed';
+
+/**
+ * The `outbox` table: the mail queue. Commands queue a message (pending) in their own
+ * transaction; the delivery loop sends it after commit and records the outcome. With the
+ * local mail server, what it caught is written back onto the same row (`receivedAt`).
+ */
 export class OutboxMessage extends Model<InferAttributes<OutboxMessage>, InferCreationAttributes<OutboxMessage>> {
   declare id: CreationOptional<string>;
   declare messageId: string | null;
@@ -19,7 +25,14 @@ export class OutboxMessage extends Model<InferAttributes<OutboxMessage>, InferCr
   declare textBody: string;
   declare htmlBody: string | null;
   declare sizeBytes: number;
-  declare receivedAt: CreationOptional<Date>;
+  declare state: CreationOptional<OutboxState>;
+  declare attempts: CreationOptional<number>;
+  declare nextAttemptAt: Date | null;
+  declare lastError: CreationOptional<string | null>;
+  declare queuedAt: CreationOptional<Date>;
+  declare deliveredAt: CreationOptional<Date | null>;
+  /** When the local mail server caught it; null until then, and always with a real SMTP host. */
+  declare receivedAt: CreationOptional<Date | null>;
 
   static initModel(sequelize: Sequelize): void {
     OutboxMessage.init(
@@ -34,7 +47,13 @@ export class OutboxMessage extends Model<InferAttributes<OutboxMessage>, InferCr
         textBody: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
         htmlBody: { type: DataTypes.TEXT, allowNull: true },
         sizeBytes: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
-        receivedAt: { type: DataTypes.DATE, allowNull: false, defaultValue: DataTypes.NOW },
+        state: { type: DataTypes.TEXT, allowNull: false, defaultValue: 'pending' },
+        attempts: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
+        nextAttemptAt: { type: DataTypes.DATE, allowNull: true },
+        lastError: { type: DataTypes.TEXT, allowNull: true },
+        queuedAt: { type: DataTypes.DATE, allowNull: false, defaultValue: DataTypes.NOW },
+        deliveredAt: { type: DataTypes.DATE, allowNull: true },
+        receivedAt: { type: DataTypes.DATE, allowNull: true },
       },
       { sequelize, tableName: 'outbox', modelName: 'OutboxMessage', underscored: true, timestamps: false },
     );

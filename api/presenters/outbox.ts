@@ -19,6 +19,8 @@ export function presentOutboxMessage(message: OutboxMessage) {
     html: message.htmlBody,
     links: linksIn(message.textBody),
     size_bytes: message.sizeBytes,
-    received_at: message.receivedAt.toISOString(),
+    state: message.state,
+    // The Outbox lists caught mail only, which always has a catch time.
+    received_at: (message.receivedAt ?? message.queuedAt).toISOString(),
   };
 }

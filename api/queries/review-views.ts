@@ -156,7 +156,7 @@ export async function reviewDetail(access: ReviewAccess, caller: User) {
   const latest = context.latest.get(review.modelId);
   const modelState = latest ? ((await reviewStateOf([latest])).get(latest.id) ?? 'none') : 'none';
   const canVerdict = roleAtLeast(access.role, REVIEW_POLICY.verdict);
-  const refusal = canVerdict ? approvalRefusal(access, caller) : null;
+  const refusal = canVerdict ? await approvalRefusal(access, caller) : null;
   const summarise = (entry: Revision) => {
     entry.author = users.get(entry.authorId);
     return presentRevisionSummary(entry, []);

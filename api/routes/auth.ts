@@ -3,14 +3,14 @@ import { rateLimit, type AugmentedRequest, type RateLimitRequestHandler } from '
 import { z } from 'zod';
 import { PASSWORD_MAX_BYTES, PASSWORD_MIN_LENGTH, verifyPassword } from '../auth/passwords';
 import { clearSessionCookie, setSessionCookie } from '../auth/session-cookie';
-import { signSession } from '../auth/tokens';
+import { signSession, verifySession } from '../auth/tokens';
 import { createAccount } from '../commands/create-account';
 import type { AppContext } from '../context';
 import { RateLimited, Unauthorized } from '../errors';
-import { authenticate, currentUser } from '../middleware/authenticate';
+import { authenticate, currentUser, tokenFrom } from '../middleware/authenticate';
 import { User } from '../models';
 import { presentUser } from '../presenters/user';
-import { parseInput } from '../validation';
+import { SINGLE_LINE_MESSAGE, parseInput, singleLine } from '../validation';
 
 const signUpSchema = z.object({
   email: z
@@ -24,7 +24,8 @@ const signUpSchema = z.object({
     .string({ error: 'Enter your name.' })
     .trim()
     .min(1, 'Enter your name.')
-    .max(100, 'Keep the name to 100 characters.'),
+    .max(100, 'Keep the name to 100 characters.')
+    .refine(singleLine, SINGLE_LINE_MESSAGE),
   password: z
     .string({ error: 'Choose a password.' })
     .min(PASSWORD_MIN_LENGTH, `Use at least ${PASSWORD_MIN_LENGTH} characters.`)
@@ -109,7 +110,20 @@ export function authRouter(context: AppContext): Router {
   });
 
   // Needs no valid session: a browser holding an expired cookie must still be able to drop it.
-  router.post('/auth/sign-out', (_req, res) => {
+  // A valid token it was sent with is revoked on the server, so a copy of it stops working too.
+  router.post('/auth/sign-out', async (req, res) => {
+    const token = tokenFrom(req, config.cookieName);
+    const result = token ? verifySession(token, config) : null;
+    if (result?.ok) {
+      await sequelize.query(
+        `INSERT INTO revoked_sessions (jti, user_id, expires_at)
+         SELECT $jti, id, to_timestamp($exp) FROM users WHERE id = $sub
+         ON CONFLICT (jti) DO NOTHING`,
+        { bind: { jti: result.claims.jti, sub: result.claims.sub, exp: result.claims.exp } },
+      );
+      // Revocations are needed only until the token would have expired anyway.
+      await sequelize.query('DELETE FROM revoked_sessions WHERE expires_at < now()');
+    }
     clearSessionCookie(res, config);
     res.json({ data: { signed_out: true } });
   });

@@ -1,3 +1,4 @@
+import { SINGLE_LINE_MESSAGE, singleLine } from '../validation';
 import { z } from 'zod';
 import { AIRFRAMES, SLUG_PATTERN } from '../../shared/format/schema';
 
@@ -8,7 +9,7 @@ export const modelName = z
   .trim()
   .min(1, 'Give the model a name.')
   .max(80, 'Keep the name to 80 characters.')
-  .regex(/^[^\u0000-\u001f\u007f]*$/, 'A name has no line breaks or control characters.');
+  .refine(singleLine, SINGLE_LINE_MESSAGE);
 
 export const message = z
   .string({ error: 'A message is text.' })

@@ -3,24 +3,20 @@ import { Op } from 'sequelize';
 import { z } from 'zod';
 import type { AppContext } from '../context';
 import { NotFound } from '../errors';
-import { authenticate } from '../middleware/authenticate';
+import { authenticate, currentUser } from '../middleware/authenticate';
 import { OutboxMessage } from '../models';
 import { presentOutboxMessage } from '../presenters/outbox';
 import { parseInput } from '../validation';
 import { pageSchema } from './team-inputs';
 
-const outboxQuery = pageSchema.extend({
-  to: z
-    .string({ error: 'to is an e-mail address.' })
-    .trim()
-    .toLowerCase()
-    .max(254, 'to is an e-mail address.')
-    .optional(),
-});
+// `to` is gone: asking for another address's mail is refused as an unknown parameter.
+const outboxQuery = z.strictObject(pageSchema.shape);
 
 /**
- * The mail the local mail server caught. It exists only while that server is in use
- * (development and the demo); with a real SMTP host there is no outbox to read.
+ * The mail the local mail server caught for the signed-in account's own address. It
+ * exists only while that server is in use (development and the demo); with a real SMTP
+ * host there is no outbox to read. It stands in for the account's inbox and never shows
+ * anyone else's mail: a reset or invitation link is a credential.
  */
 export function outboxRouter(context: AppContext): Router {
   const router = Router();
@@ -34,12 +30,11 @@ export function outboxRouter(context: AppContext): Router {
     },
     authenticate(context.config),
     async (req, res) => {
-      const { limit, offset, to } = parseInput(outboxQuery, req.query, 'The paging parameters are not valid.');
-      const where = to ? { envelopeTo: { [Op.contains]: [to] } } : {};
+      const { limit, offset } = parseInput(outboxQuery, req.query, 'The paging parameters are not valid.');
       const { rows, count } = await OutboxMessage.findAndCountAll({
-        where,
+        where: { envelopeTo: { [Op.contains]: [currentUser(req).email] }, receivedAt: { [Op.ne]: null } },
         order: [
-          ['receivedAt', 'DESC'],
+          ['queuedAt', 'DESC'],
           ['id', 'DESC'],
         ],
         limit,

@@ -1,3 +1,4 @@
+import { SINGLE_LINE_MESSAGE, singleLine } from '../validation';
 import { z } from 'zod';
 import { PASSWORD_MAX_BYTES, PASSWORD_MIN_LENGTH } from '../auth/passwords';
 import { ROLES } from '../../shared/contract/roles';
@@ -18,7 +19,8 @@ export const nameField = z
   .string({ error: 'Enter your name.' })
   .trim()
   .min(1, 'Enter your name.')
-  .max(100, 'Keep the name to 100 characters.');
+  .max(100, 'Keep the name to 100 characters.')
+  .refine(singleLine, SINGLE_LINE_MESSAGE);
 
 export const passwordField = z
   .string({ error: 'Choose a password.' })

@@ -6,13 +6,14 @@ import { authenticate, currentUser } from '../middleware/authenticate';
 import { Membership, User } from '../models';
 import { requireRole } from '../policies/workspace';
 import { presentMember, presentWorkspace } from '../presenters/workspace';
-import { parseInput } from '../validation';
+import { SINGLE_LINE_MESSAGE, parseInput, singleLine } from '../validation';
 
 const workspaceName = z
   .string({ error: 'Give the workspace a name.' })
   .trim()
   .min(1, 'Give the workspace a name.')
-  .max(100, 'Keep the name to 100 characters.');
+  .max(100, 'Keep the name to 100 characters.')
+  .refine(singleLine, SINGLE_LINE_MESSAGE);
 
 const createSchema = z.object({ name: workspaceName });
 // Strict: a misspelt field in a change would otherwise be dropped without a word.

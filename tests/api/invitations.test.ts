@@ -98,6 +98,47 @@ describe('inviting by e-mail', () => {
     expect(membership?.role).toBe('editor');
   });
 
+  it('refuses any other signed-in account, the owner included (403 wrong-account), and changes nothing', async () => {
+    const invited = uniqueEmail('meant-for');
+    const token = await invitedToken(invited, 'editor');
+    const stranger = await createUser({ email: uniqueEmail('stranger') });
+    for (const caller of [stranger, owner]) {
+      const refused = await request(t.app)
+        .post(`/api/invitations/${token}/accept`)
+        .set(bearer(tokenFor(caller, t.config)))
+        .expect(403);
+      expect(refused.body.error.code).toBe('wrong-account');
+      expect(refused.body.error.message).toContain(`This invitation is for ${invited}`);
+      expect(refused.body.error.message).toMatch(/Sign out/);
+      expect(refused.body.error.details).toEqual({ invited_email: invited, signed_in_email: caller.email });
+    }
+    expect(await Membership.count({ where: { workspaceId: workspace.id, userId: stranger.id } })).toBe(0);
+    expect(
+      await AuditEvent.count({ where: { workspaceId: workspace.id, action: 'member.joined', actorId: stranger.id } }),
+    ).toBe(0);
+    // The link still works for the invited address, in any letter case.
+    const invitee = await createUser({ email: invited.toUpperCase() });
+    await request(t.app)
+      .post(`/api/invitations/${token}/accept`)
+      .set(bearer(tokenFor(invitee, t.config)))
+      .expect(200);
+  });
+
+  it('a new account made from the link has the invited address, whatever else is sent', async () => {
+    const invited = uniqueEmail('fixed');
+    const token = await invitedToken(invited);
+    const refused = await request(t.app)
+      .post(`/api/invitations/${token}/accept`)
+      .send({ name: 'Sly', password: 'thermal-bubble-77', email: uniqueEmail('other') })
+      .expect(400);
+    expect(refused.body.error.details.fields.email).toBe('This field is not known here.');
+    const created = await request(t.app)
+      .post(`/api/invitations/${token}/accept`)
+      .send({ name: 'Fixed Address', password: 'thermal-bubble-77' })
+      .expect(201);
+    expect(created.body.data.user.email).toBe(invited);
+  });
+
   it('refuses a member who is already in the workspace without using up the link', async () => {
     const pilot = await createUser({ email: uniqueEmail('double') });
     const token = await invitedToken(pilot.email);

@@ -60,6 +60,22 @@ describe('password reset by e-mail', () => {
     await signIn(t.app, pilot.email, NEW_PASSWORD);
   });
 
+  it('a link mailed before the password was changed stops working after the change', async () => {
+    const token = await resetToken(pilot);
+    const session = await signIn(t.app, pilot.email);
+    await request(t.app)
+      .post('/api/auth/password')
+      .set(bearer(session.token))
+      .send({ current: TEST_PASSWORD, password: NEW_PASSWORD })
+      .expect(200);
+    const old = await request(t.app)
+      .post(`/api/auth/password-reset/${token}`)
+      .send({ password: 'another-password-9' })
+      .expect(410);
+    expect(old.body.error.code).toBe('token-used');
+    await signIn(t.app, pilot.email, NEW_PASSWORD);
+  });
+
   it('a link works once, and using one closes the account’s other open links', async () => {
     const first = await resetToken(pilot);
     const second = await resetToken(pilot);

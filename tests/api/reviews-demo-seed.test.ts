@@ -37,26 +37,33 @@ describe('the demo reviews (seed step 0004)', () => {
     });
   });
 
-  it('keeps the mails those reviews sent in the outbox, each linking to a review that opens', async () => {
-    const outbox = await request(t.app)
-      .get('/api/outbox')
-      .set(bearer(tokenFor(owner, t.config)))
-      .expect(200);
-    expect(outbox.body.data.map((mail: { subject: string }) => mail.subject)).toEqual([
+  it('keeps the mails those reviews sent in the outbox, each in its recipient’s own, linking to a review that opens', async () => {
+    const subjects: string[] = [];
+    for (const email of ['owner@demo.example', 'editor@demo.example', 'reviewer@demo.example', 'viewer@demo.example']) {
+      const recipient = (await User.findOne({ where: { email } }))!;
+      const outbox = await request(t.app)
+        .get('/api/outbox')
+        .set(bearer(tokenFor(recipient, t.config)))
+        .expect(200);
+      for (const mail of outbox.body.data as { subject: string; to: string[]; links: string[] }[]) {
+        expect(mail.to).toEqual([email]);
+        subjects.push(mail.subject);
+        const path = new URL(mail.links[0]).pathname;
+        const reviewId = /^\/w\/[0-9a-f-]+\/reviews\/([0-9a-f-]+)$/.exec(path)?.[1];
+        expect(reviewId).toBeDefined();
+        await request(t.app)
+          .get(`/api/reviews/${reviewId}`)
+          .set(bearer(tokenFor(owner, t.config)))
+          .expect(200);
+      }
+    }
+    expect(subjects.sort()).toEqual([
+      'Ines Marchbank approved Meadowlark 40, revision 3',
       'Ines Marchbank asked for changes to Heron 3.6, revision 3',
       'Review requested: Kestrel Mk II, revision 12',
-      'Ines Marchbank approved Meadowlark 40, revision 3',
     ]);
-    for (const mail of outbox.body.data as { links: string[] }[]) {
-      const path = new URL(mail.links[0]).pathname;
-      const reviewId = /^\/w\/[0-9a-f-]+\/reviews\/([0-9a-f-]+)$/.exec(path)?.[1];
-      expect(reviewId).toBeDefined();
-      await request(t.app)
-        .get(`/api/reviews/${reviewId}`)
-        .set(bearer(tokenFor(owner, t.config)))
-        .expect(200);
-    }
     expect(await OutboxMessage.count()).toBe(3);
+    expect(await OutboxMessage.count({ where: { state: 'delivered' } })).toBe(3);
   });
 
   it('carries the pending review’s anchored comments and the approved review’s full checklist', async () => {

@@ -157,6 +157,32 @@ describe('the rules of sign-off', () => {
     await verdict(author, review, { verdict: 'comment', body: 'Pins checked on the bench.' }).expect(201);
   });
 
+  it('nobody approves a change they wrote that someone else saved again (403 own-change, issue 12)', async () => {
+    const created = await createModelVia(owner, workspace.id, { name: 'Shrike', yaml: SCALE(), message: 'First plan' });
+    const modelId = created.model.id;
+    await verdict(reviewer, await reviewOf(created.revision.id), { verdict: 'approve' }).expect(201);
+    const changed = edit(SCALE(), '{ pin: 7, ch: 15, failsafe: 1500 }', '{ pin: 7, ch: 15, failsafe: 1400 }');
+    const second = await saveVia(author, modelId, 1, changed, 'Cowl flap fails safe further closed');
+    const resaved = await saveVia(owner, modelId, 2, `# Looked over by the owner.\n${changed}`, 'Comment only');
+    expect(resaved.content_hash).toBe(second.content_hash);
+
+    const review = await reviewOf(resaved.id);
+    const refused = await verdict(author, review, { verdict: 'approve' }).expect(403);
+    expect(refused.body.error.code).toBe('own-change');
+    expect(await ReviewVerdict.count({ where: { reviewId: review } })).toBe(0);
+    expect(await modelState(modelId)).toEqual(expect.objectContaining({ cleared_for_maiden: false }));
+    const page = await author.get(`/api/reviews/${review}`).expect(200);
+    expect(page.body.data.can).toMatchObject({ approve: false, approve_refusal: { code: 'own-change' } });
+
+    // Nor can the author of the change be asked to review the re-saved revision.
+    const asked = await ask(resaved.id, [author], owner);
+    expect(asked.status).toBe(422);
+    expect(asked.body.error.code).toBe('reviewer-is-author');
+
+    await verdict(reviewer, review, { verdict: 'approve' }).expect(201);
+    expect(await modelState(modelId)).toEqual(expect.objectContaining({ cleared_for_maiden: true }));
+  });
+
   it('a revision with check errors cannot be approved (422 has-errors), but changes can be asked', async () => {
     const created = await createModelVia(author, workspace.id, {
       name: 'Meadowlark',

@@ -9,10 +9,9 @@ import { createApp } from '../../api/app';
 import { startCluster, type Cluster } from '../../api/db/cluster';
 import { migrate } from '../../api/db/migrate';
 import { createSequelize } from '../../api/db/sequelize';
-import { startLocalMailServer, type LocalMailServer } from '../../api/mail/local-mail-server';
-import { createMailService, type MailService } from '../../api/mail/mail-service';
+import type { RunningMail } from '../../api/mail/start-mail';
 import { ROUTE_TABLE, routeKey } from '../../api/routes/route-table';
-import type { MailTestApp } from './helpers/mail';
+import { startTestMail, type MailTestApp } from './helpers/mail';
 import { testConfig } from './helpers/test-app';
 import { buildSampleWorld, type Call } from './route-table-samples';
 
@@ -23,8 +22,7 @@ import { buildSampleWorld, type Call } from './route-table-samples';
 let folder: string;
 let cluster: Cluster;
 let sequelize: Sequelize;
-let mailServer: LocalMailServer;
-let mail: MailService;
+let mail: RunningMail;
 let app: Express;
 const config = testConfig();
 
@@ -34,17 +32,12 @@ beforeAll(async () => {
   cluster = await startCluster({ dataDir: path.join(folder, 'pg'), database: 'bindery_outage', throwaway: true });
   sequelize = createSequelize(cluster.url);
   await migrate(sequelize);
-  mailServer = await startLocalMailServer();
-  mail = createMailService(
-    { host: mailServer.host, port: mailServer.port, secure: false, ignoreTLS: true, auth: null },
-    { from: 'Bindery <bindery@test.example>', appUrl: 'http://bindery.test', outboxEnabled: true },
-  );
-  app = createApp({ sequelize, config, mail });
+  mail = await startTestMail(sequelize);
+  app = createApp({ sequelize, config, mail: mail.service });
 });
 
 afterAll(async () => {
-  mail?.close();
-  await mailServer?.close();
+  await mail?.close();
   await sequelize?.close();
   await cluster?.remove();
   rmSync(folder, { recursive: true, force: true });

@@ -2,7 +2,8 @@ import jwt from 'jsonwebtoken';
 import request from 'supertest';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { User } from '../../api/models';
-import { bearer, createUser, tokenFor, uniqueEmail } from './helpers/factories';
+import { randomUUID } from 'node:crypto';
+import { bearer, createUser, signIn, tokenFor, uniqueEmail } from './helpers/factories';
 import { useTestApp } from './helpers/test-app';
 
 const t = useTestApp();
@@ -60,6 +61,36 @@ describe('session tokens', () => {
   it('rejects a well-signed token without the session version', async () => {
     const token = jwt.sign({}, t.config.jwtSecret, { algorithm: 'HS256', subject: pilot.id, expiresIn: 3600 });
     expect((await me(bearer(token)).expect(401)).body.error.code).toBe('invalid-token');
+  });
+
+  it('rejects a well-signed token without an expiry, or without an id that sign-out could revoke', async () => {
+    const forever = jwt.sign({ sv: 1, jti: randomUUID() }, t.config.jwtSecret, {
+      algorithm: 'HS256',
+      subject: pilot.id,
+    });
+    expect((await me(bearer(forever)).expect(401)).body.error.code).toBe('invalid-token');
+    const anonymous = jwt.sign({ sv: 1 }, t.config.jwtSecret, {
+      algorithm: 'HS256',
+      subject: pilot.id,
+      expiresIn: 3600,
+    });
+    expect((await me(bearer(anonymous)).expect(401)).body.error.code).toBe('invalid-token');
+  });
+
+  it('sign-out revokes the token it was sent with on the server; other sessions go on', async () => {
+    const copied = await signIn(t.app, pilot.email);
+    const elsewhere = await signIn(t.app, pilot.email);
+    await me(bearer(copied.token)).expect(200);
+    await request(t.app).post('/api/auth/sign-out').set('Cookie', copied.cookie).expect(200);
+    // A copy of the token (stolen, or a second tab) no longer works, by header or cookie.
+    expect((await me(bearer(copied.token)).expect(401)).body.error.code).toBe('session-ended');
+    await me({ Cookie: copied.cookie }).expect(401);
+    await me(bearer(elsewhere.token)).expect(200);
+    await request(t.app).post('/api/auth/sign-out').set(bearer(elsewhere.token)).expect(200);
+    await me(bearer(elsewhere.token)).expect(401);
+    // Signing out twice, or with an expired or broken cookie, still just clears it.
+    await request(t.app).post('/api/auth/sign-out').set('Cookie', copied.cookie).expect(200);
+    await request(t.app).post('/api/auth/sign-out').set('Cookie', 'bindery_session=abc.def.ghi').expect(200);
   });
 
   it('rejects a token of a user who no longer exists', async () => {

@@ -60,7 +60,7 @@ export default async function setup(project: TestProject): Promise<() => Promise
     });
     const port = await freePort();
     // Only the local catch: an SMTP_HOST of the caller's must not receive test mail.
-    mail = await startMail({}, `http://127.0.0.1:${port}`);
+    mail = await startMail({}, `http://127.0.0.1:${port}`, sequelize, { pollMs: 200 });
     const server = await startServer({ sequelize, config, mail: mail.service }, port);
     project.provide('e2eBaseUrl', server.url);
     return async () => {

@@ -227,7 +227,7 @@ async function seedReview(
         warnings: revision.warningCount,
         url: reviewUrl,
       });
-      await OutboxMessage.create({ ...composeMailFrom(mail), receivedAt: new Date(plan.at) }, { transaction });
+      await OutboxMessage.create(composeMailFrom(mail, new Date(plan.at)), { transaction });
     }
   }
   for (const item of plan.ticks)
@@ -295,7 +295,7 @@ async function seedReview(
         items: PRE_MAIDEN_CHECKLIST.length,
         url: reviewUrl,
       });
-      await OutboxMessage.create({ ...composeMailFrom(mail), receivedAt: new Date(planned.at) }, { transaction });
+      await OutboxMessage.create(composeMailFrom(mail, new Date(planned.at)), { transaction });
     }
   }
 }

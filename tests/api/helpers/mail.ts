@@ -1,45 +1,58 @@
 import { afterAll, beforeAll } from 'vitest';
-import { createApp } from '../../../api/app';
-import { startLocalMailServer, type LocalMailServer } from '../../../api/mail/local-mail-server';
-import { createMailService, type MailService } from '../../../api/mail/mail-service';
+import type { Sequelize } from 'sequelize';
 import { Op } from 'sequelize';
+import { createApp } from '../../../api/app';
+import type { DeliveryOptions } from '../../../api/mail/delivery';
+import { startMail, type RunningMail } from '../../../api/mail/start-mail';
 import { OutboxMessage } from '../../../api/models';
 import { useTestApp, type ConfigOverrides, type TestApp } from './test-app';
 
 export const TEST_APP_URL = 'http://bindery.test';
+export const TEST_FROM = 'Bindery <bindery@test.example>';
 
 export interface MailTestApp extends TestApp {
-  mail: MailService;
-  mailServer: LocalMailServer;
+  mail: RunningMail;
 }
 
+// The delivery loop of the file's app, so `mailTo` can let it finish first.
+let current: RunningMail | null = null;
+
 /**
- * Like useTestApp, with a real local mail server (smtp-server on a free loopback port)
- * whose catch lands in this file's own database, and the app sending through it.
+ * The mail of a running app as `npm start` wires it (queue, delivery loop, local mail
+ * server on a free loopback port), on the given database.
  */
+export async function startTestMail(sequelize: Sequelize, delivery: Partial<DeliveryOptions> = {}) {
+  const mail = await startMail({ APP_URL: TEST_APP_URL, MAIL_FROM: TEST_FROM }, TEST_APP_URL, sequelize, {
+    pollMs: 200,
+    ...delivery,
+  });
+  current = mail;
+  return mail;
+}
+
+/** Like useTestApp, with the app's mail queued, delivered and caught by a real local mail server. */
 export function useMailTestApp(overrides: ConfigOverrides = {}): MailTestApp {
   const handle = useTestApp(overrides) as MailTestApp;
   beforeAll(async () => {
-    handle.mailServer = await startLocalMailServer();
-    handle.mail = createMailService(
-      { host: handle.mailServer.host, port: handle.mailServer.port, secure: false, ignoreTLS: true, auth: null },
-      { from: 'Bindery <bindery@test.example>', appUrl: TEST_APP_URL, outboxEnabled: true },
-    );
-    handle.app = createApp({ sequelize: handle.sequelize, config: handle.config, mail: handle.mail });
+    handle.mail = await startTestMail(handle.sequelize);
+    handle.app = createApp({ sequelize: handle.sequelize, config: handle.config, mail: handle.mail.service });
   });
   afterAll(async () => {
-    handle.mail?.close();
-    await handle.mailServer?.close();
+    await handle.mail?.close();
   });
   return handle;
 }
 
-/** What the local mail server caught for one address, newest first. */
-export function mailTo(address: string): Promise<OutboxMessage[]> {
+/**
+ * What the local mail server caught for one address, newest first, once every message
+ * due has gone through SMTP.
+ */
+export async function mailTo(address: string): Promise<OutboxMessage[]> {
+  await current?.delivery.drain();
   return OutboxMessage.findAll({
-    where: { envelopeTo: { [Op.contains]: [address.toLowerCase()] } },
+    where: { envelopeTo: { [Op.contains]: [address.toLowerCase()] }, receivedAt: { [Op.ne]: null } },
     order: [
-      ['receivedAt', 'DESC'],
+      ['queuedAt', 'DESC'],
       ['id', 'DESC'],
     ],
   });

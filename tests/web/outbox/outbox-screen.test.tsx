@@ -62,6 +62,7 @@ describe('Outbox', () => {
     });
     renderApp('/outbox');
     expect(await screen.findByRole('heading', { name: 'No mail yet' })).toBeInTheDocument();
+    expect(screen.getByText(/shows only mail addressed to the account you are signed in with/)).toBeInTheDocument();
   });
 
   it('explains that a server with real mail has no outbox', async () => {

@@ -78,6 +78,24 @@ describe('the invitation page', () => {
     expect(screen.queryByText(/already a member/)).not.toBeInTheDocument();
   });
 
+  it('tells an account under another address that the invitation is not theirs, and lets them switch', async () => {
+    const session = sessionRoutes({ signedIn: true, workspaces: demoWorkspaces.slice(1) });
+    const server = fakeServer({
+      ...session.routes,
+      [`GET /api/invitations/${TOKEN}`]: () => ({ body: { data: preview({ account_exists: true }) } }),
+    });
+    const { user, location } = renderApp(`/invitations/${TOKEN}`);
+    expect(await screen.findByRole('alert')).toHaveTextContent(
+      `This invitation is for newcomer@hollowfield.example, and you are signed in as ${demoUser.email}.`,
+    );
+    expect(screen.queryByRole('button', { name: /Accept and join/ })).not.toBeInTheDocument();
+    await user.click(screen.getByRole('button', { name: 'Sign out and switch account' }));
+    expect(await screen.findByRole('link', { name: 'Sign in to accept' })).toBeInTheDocument();
+    expect(location().pathname).toBe(`/invitations/${TOKEN}`);
+    expect(server.called('POST', '/api/auth/sign-out')).toHaveLength(1);
+    expect(server.called('POST', `/api/invitations/${TOKEN}/accept`)).toHaveLength(0);
+  });
+
   it('sends someone with an account to sign in first', async () => {
     fakeServer({
       ...sessionRoutes({ signedIn: false }).routes,

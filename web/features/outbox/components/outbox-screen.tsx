@@ -14,7 +14,12 @@ import type { OutboxMessage } from '../types';
 import { LinkedText } from './linked-text';
 
 const DESCRIPTION =
-  'The mail Bindery sent while it runs with its own local mail server: invitations, password resets, review requests and verdicts. Newest first.';
+  'The mail Bindery sent to your own address while it runs with its own local mail server: invitations, password resets, review requests and verdicts. Newest first.';
+
+// Mail links are credentials (a reset link takes over an account), so the server lists
+// only the signed-in account's own mail; the screen says so, so nobody looks for more.
+const OWN_MAIL_ONLY =
+  'A development convenience standing in for your inbox: it shows only mail addressed to the account you are signed in with, never anyone else’s. To read mail sent to another address, sign in as that account.';
 
 export function OutboxScreen() {
   const outbox = useOutbox();
@@ -35,7 +40,7 @@ export function OutboxScreen() {
   } else if (outbox.data.messages.length === 0) {
     body = (
       <EmptyState title="No mail yet">
-        Invite someone on the Team screen, ask for a password reset or request a review: the mail shows up here.
+        Mail sent to your address shows up here: an invitation, a password reset, a review request or a verdict.
       </EmptyState>
     );
   } else {
@@ -91,6 +96,7 @@ export function OutboxScreen() {
           </Button>
         }
       />
+      <p className="mb-4 rounded-md border border-ply-200 bg-ply-100 px-3 py-2 text-sm text-ink-700">{OWN_MAIL_ONLY}</p>
       {body}
     </>
   );

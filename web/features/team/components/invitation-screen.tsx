@@ -1,3 +1,4 @@
+import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { useRef, useState, type FormEvent } from 'react';
 import { Link, useParams } from 'react-router-dom';
 import { AuthLayout } from '../../../components/layouts/auth-layout';
@@ -10,6 +11,7 @@ import { isApiError, isUnauthorized } from '../../../lib/api-client';
 import { formErrorsFrom } from '../../../lib/form-errors';
 import type { Session } from '../../../types/api';
 import { useMe } from '../../auth/api/get-me';
+import { signOut } from '../../auth/api/sign-out';
 import { NewPasswordField } from '../../auth/components/new-password-field';
 import { validateName, validateNewPassword } from '../../auth/validate';
 import { useAcceptInvitation, useInvitation } from '../api/accept-invitation';
@@ -91,17 +93,45 @@ function JoinAsMember({ accept, preview, session }: { accept: Accept; preview: I
       </div>
     );
   }
+  if (otherAddress) return <WrongAccount preview={preview} session={session} />;
   return (
     <div className="space-y-4">
       {accept.isError && <FormAlert>{accept.error.message}</FormAlert>}
       <p className="text-base text-ink-700">
         You are signed in as <span className="font-medium text-ink-900">{session.user.name}</span> (
         <span className="font-mono text-sm">{session.user.email}</span>).
-        {otherAddress && ` The invitation was sent to ${preview.email}; accepting adds this account.`}
       </p>
       <Button className="w-full" pending={accept.isPending} onClick={() => accept.mutate(undefined)}>
         Accept and join {preview.workspace.name}
       </Button>
+    </div>
+  );
+}
+
+/**
+ * An invitation belongs to the address it was sent to (the server answers 403 to any
+ * other account), so a pilot signed in under another address is shown the way to switch
+ * instead of a button that cannot work. Signing out keeps them on this page, which then
+ * offers to sign in with, or create, the invited account.
+ */
+function WrongAccount({ preview, session }: { preview: InvitationPreview; session: Session }) {
+  const queryClient = useQueryClient();
+  const switchAccount = useMutation({
+    mutationFn: signOut,
+    onSuccess: () => queryClient.resetQueries(),
+  });
+  return (
+    <div className="space-y-4">
+      <FormAlert>
+        {`This invitation is for ${preview.email}, and you are signed in as ${session.user.email}. Only the account with the invited address can accept it.`}
+      </FormAlert>
+      {switchAccount.isError && <FormAlert>{switchAccount.error.message}</FormAlert>}
+      <Button className="w-full" pending={switchAccount.isPending} onClick={() => switchAccount.mutate()}>
+        Sign out and switch account
+      </Button>
+      <p className="text-sm text-ink-700">
+        If the invitation should have gone to {session.user.email}, ask the workspace owner to invite that address.
+      </p>
     </div>
   );
 }
