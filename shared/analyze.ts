@@ -1,5 +1,5 @@
 import { LineCounter } from 'yaml';
-import { countFindings, type Finding, type FindingCounts } from './findings';
+import { countFindings, type AnalysisCounts, type Finding } from './findings';
 import type { Setup } from './format/schema';
 import { runChecks } from './checks/run-checks';
 import { readSetupFast } from './parse/fast-read';
@@ -12,9 +12,10 @@ export interface Analysis {
   data: unknown | null;
   /** The schema-valid setup with defaults applied; null when there are schema errors. */
   setup: Setup | null;
-  /** Sorted by line, then column. */
+  /** Sorted by line, then column; accepted ones carry `accepted` (their reason). */
   findings: Finding[];
-  counts: FindingCounts;
+  /** Open findings by severity; accepted ones apart. */
+  counts: AnalysisCounts;
 }
 
 /**

@@ -10,6 +10,8 @@ export interface Finding {
   line: number;
   /** 1-based */
   column: number;
+  /** The pilot's reason, when the setup's `accepted` list accepts this warning or info. */
+  accepted?: string;
 }
 
 export interface FindingCounts {
@@ -18,10 +20,17 @@ export interface FindingCounts {
   infos: number;
 }
 
-export function countFindings(findings: readonly Pick<Finding, 'severity'>[]): FindingCounts {
-  const counts: FindingCounts = { errors: 0, warnings: 0, infos: 0 };
+/** Open findings by severity, and the accepted ones apart. */
+export interface AnalysisCounts extends FindingCounts {
+  accepted: number;
+}
+
+/** Counts the open findings by severity; accepted findings are counted apart, not as open. */
+export function countFindings(findings: readonly Pick<Finding, 'severity' | 'accepted'>[]): AnalysisCounts {
+  const counts: AnalysisCounts = { errors: 0, warnings: 0, infos: 0, accepted: 0 };
   for (const finding of findings) {
-    if (finding.severity === 'error') counts.errors += 1;
+    if (finding.accepted !== undefined) counts.accepted += 1;
+    else if (finding.severity === 'error') counts.errors += 1;
     else if (finding.severity === 'warning') counts.warnings += 1;
     else counts.infos += 1;
   }

@@ -1,4 +1,4 @@
-import { AIRFRAMES, CHANNEL_ROLES, FORMAT_ID, RECEIVER_SUPPLIES } from '../format/schema';
+import { AIRFRAMES, CHANNEL_ROLES, FORMAT_ID, MOTORS, RECEIVER_SUPPLIES, THROTTLE_STOPS } from '../format/schema';
 
 const SLUG = 'an id of lower-case letters, digits and dashes, starting with a letter or digit, at most 40 characters';
 const PULSE = 'a pulse in microseconds (a number)';
@@ -7,7 +7,7 @@ const POSITION = 'a switch position (a whole number, 0 for the first position)';
 // What each field must be, in words, keyed by its path with list indices written [].
 // Used to explain schema findings in the terms of docs/format.md's field table.
 export const FIELD_DESCRIPTIONS: Record<string, string> = {
-  '': 'a mapping of format, model, link, controls, channels, mixes, receivers and power',
+  '': 'a mapping of format, model, link, controls, channels, mixes, receivers, power and accepted',
   format: `exactly "${FORMAT_ID}"`,
   model: 'a mapping with name and airframe',
   'model.name': 'a text of 1 to 80 characters',
@@ -16,6 +16,7 @@ export const FIELD_DESCRIPTIONS: Record<string, string> = {
   'model.length_mm': 'a number of millimetres above 0',
   'model.weight_g': 'a number of grams above 0',
   'model.notes': 'a text',
+  'model.motor': `one of ${MOTORS.join(', ')}`,
   link: 'a mapping with channels',
   'link.channels': 'a whole number from 4 to 32',
   'link.packet_rate_hz': 'a number above 0',
@@ -40,6 +41,7 @@ export const FIELD_DESCRIPTIONS: Record<string, string> = {
   'channels[].cut.control': 'the id of a switch',
   'channels[].cut.position': POSITION,
   'channels[].cut.value': 'a percent from -100 to 100',
+  'channels[].stop': `${THROTTLE_STOPS.join(' or ')}, and only on a throttle channel`,
   mixes: 'a list of mixes',
   'mixes[]': 'a mapping with id, from and to',
   'mixes[].id': SLUG,
@@ -70,6 +72,11 @@ export const FIELD_DESCRIPTIONS: Record<string, string> = {
   'receivers[].map[].failsafe': 'a pulse in microseconds, hold or off',
   power: 'a mapping with receiver_supply',
   'power.receiver_supply': `one of ${RECEIVER_SUPPLIES.join(', ')}`,
+  accepted: 'a list of accepted findings',
+  'accepted[]': 'a mapping of rule, path and reason',
+  'accepted[].rule': 'the id of a check',
+  'accepted[].path': 'the path of the finding, as the check reports it',
+  'accepted[].reason': 'a text saying why the finding is accepted',
 };
 
 export function fieldPattern(dataPath: readonly (string | number)[]): string {

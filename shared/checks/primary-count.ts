@@ -14,7 +14,7 @@ export const primaryCount: Check = {
     if (primaries.length === 0) {
       return [
         {
-          message: `None of the ${setup.receivers.length} receivers has the role primary, so it is unclear which one the others back up.`,
+          message: `None of the ${setup.receivers.length} receivers has the role primary, so it is unclear which one is the main unit: the one that should carry the main controls and send telemetry.`,
           hint: 'Set role: primary on the receiver that carries the main controls.',
           ...ref.root('receivers'),
         },

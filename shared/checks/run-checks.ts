@@ -31,6 +31,13 @@ import { pairSplit } from './pair-split';
 import { primaryControlsOnSecondary } from './primary-controls-on-secondary';
 import { powerDoubleSupply } from './power-double-supply';
 import { controlUnused } from './control-unused';
+import { failsafeNoPulses } from './failsafe-no-pulses';
+import { failsafePayload } from './failsafe-payload';
+import { failsafeMismatch } from './failsafe-mismatch';
+import { telemetryOnSecondary } from './telemetry-on-secondary';
+import { primaryDisabledBySwitch } from './primary-disabled-by-switch';
+import { cutNotAtStop } from './cut-not-at-stop';
+import { acceptedError, applyAccepted } from './accepted';
 import { schema, validateSetup } from './schema';
 import { syntax } from './syntax';
 import { unknownKey } from './unknown-key';
@@ -63,10 +70,23 @@ export const SETUP_CHECKS: readonly Check[] = [
   primaryControlsOnSecondary,
   powerDoubleSupply,
   controlUnused,
+  // Second edition of the safety model, in docs/format.md's order.
+  failsafeNoPulses,
+  failsafePayload,
+  failsafeMismatch,
+  telemetryOnSecondary,
+  primaryDisabledBySwitch,
+  cutNotAtStop,
 ];
 
 /** Every check in the catalogue, for documentation and the client. */
-export const CATALOGUE: readonly (ReadCheck | DataCheck | Check)[] = [syntax, schema, unknownKey, ...SETUP_CHECKS];
+export const CATALOGUE: readonly (ReadCheck | DataCheck | Check)[] = [
+  syntax,
+  schema,
+  unknownKey,
+  ...SETUP_CHECKS,
+  acceptedError,
+];
 
 export interface CheckRun {
   setup: Setup | null;
@@ -110,6 +130,10 @@ export function runChecks(parsed: ParsedText): CheckRun {
     for (const check of SETUP_CHECKS) {
       for (const result of check.check(setup, ctx)) findings.push(toFinding(parsed, check.id, check.severity, result));
     }
+    const accepted = applyAccepted(setup, findings);
+    for (const result of accepted.results)
+      accepted.findings.push(toFinding(parsed, acceptedError.id, acceptedError.severity, result));
+    return { setup, findings: accepted.findings.sort(byPosition) };
   }
   return { setup, findings: findings.sort(byPosition) };
 }

@@ -1,4 +1,5 @@
 import {
+  acceptedSchema,
   activeSchema,
   channelSchema,
   cutSchema,
@@ -49,6 +50,7 @@ const TREE: KeyTree = {
       keys: keysOf(receiverSchema),
       lists: { map: { keys: keysOf(pinMapEntrySchema) } },
     },
+    accepted: { keys: keysOf(acceptedSchema) },
   },
 };
 

@@ -1,26 +1,33 @@
-import { evaluate, type PinOutput } from '../evaluate/evaluate';
+import { evaluate, pinPulse, type PinOutput } from '../evaluate/evaluate';
+import { restPositions } from '../evaluate/rest';
 import type { Setup } from '../format/schema';
+import { axesOf, channelForm, pinKey, pinSources, sameForm, switchesOf, type PinSource } from './channel-form';
 import { LIST_KEYS, matchList } from './identity';
 import { toBare } from './plain';
+import { lineOf, witnesses } from './pulse-witness';
 
-/** A named set of control positions; `set` holds only the controls moved from rest. */
+/**
+ * A position of the controls and a state of the link: `set` gives the controls the
+ * entry depends on (new-revision ids; axes in percent, switches by position), every
+ * other control is at rest (evaluation rule 8); `lost` the receivers that have lost
+ * the link, the others keep it.
+ */
 export interface PositionSet {
   label: string;
   set: Record<string, number>;
+  lost: string[];
 }
 
 type Failsafe = PinOutput['failsafe'];
 
 /**
- * One receiver pin that behaves differently in the new revision.
+ * One receiver pin that behaves differently in the new revision, at one position.
  *
- * - kind `pulse`: at `position`, the pin's pulse. `before_us` / `after_us` are null
- *   where the pin does not exist on that side (a receiver or map entry added or
- *   removed).
- * - kind `failsafe`: what the pin does on signal loss (a pulse, "hold", "off", or null
- *   for the receiver's default); `position` is the pseudo-position "signal lost".
- *   Only pins present on both sides, since a pin that appears or disappears already
- *   shows in its pulse rows.
+ * - kind `pulse`: with the link up, the pin's pulse at `position`. `before_us` /
+ *   `after_us` are null where the pin does not exist on that side.
+ * - kind `failsafe`: with the pin's receiver lost (`position.lost`), what it sends at
+ *   `position` (null for no pulses or the receiver's default); `failsafe_before` /
+ *   `failsafe_after` say what each side is set to.
  *
  * `ch_before` / `ch_after` say which channel the pin carries on each side, so a view
  * can tell a remap from a changed mix.
@@ -32,48 +39,19 @@ export interface OutputDelta {
   pin: number;
   ch_before: number | null;
   ch_after: number | null;
-  before_us: number | Failsafe;
-  after_us: number | Failsafe;
+  before_us: number | null;
+  after_us: number | null;
+  failsafe_before?: Failsafe;
+  failsafe_after?: Failsafe;
   summary: string;
 }
 
-export const REST: PositionSet = { label: 'at rest (axes centred, switches at position 0)', set: {} };
-export const SIGNAL_LOST: PositionSet = { label: 'on signal loss', set: {} };
+export const REST_LABEL = 'at rest (throttle at its stop, other axes centred, switches at position 0)';
 
-function signed(value: number): string {
-  return value > 0 ? `+${value}` : String(value);
-}
-
-// The standard positions: everything at rest; each axis, knob or slider at -100 and
-// +100 with the others at rest; each switch in each position other than 0 (position 0
-// is rest already) with the others at rest. Controls of both revisions take part, so a
-// control that exists on one side only is still exercised; evaluate ignores positions
-// of controls a setup does not have and keeps a switch within its own positions.
-// `set` names the new revision's controls; a control renamed between the revisions
-// (matched as the diff matches them) is exercised once, under its new name, and
-// `renamedControls` maps that name back for the old revision.
-export function standardPositions(before: Setup, after: Setup): PositionSet[] {
-  const sets: PositionSet[] = [REST];
-  const seen = new Set<string>([REST.label]);
-  const add = (set: PositionSet) => {
-    if (seen.has(set.label)) return;
-    seen.add(set.label);
-    sets.push(set);
-  };
-  const renamedFrom = new Set(renamedControls(before, after).values());
-  const controls = [...after.controls, ...before.controls.filter((control) => !renamedFrom.has(control.id))];
-  for (const control of controls) {
-    if (control.kind === 'switch') {
-      for (let position = 1; position < control.positions; position++) {
-        add({ label: `${control.id} at position ${position}`, set: { [control.id]: position } });
-      }
-    } else {
-      for (const value of [-100, 100])
-        add({ label: `${control.id} at ${signed(value)} %`, set: { [control.id]: value } });
-    }
-  }
-  return sets;
-}
+/** Beyond this many switch combinations for one pin, each switch is moved on its own from rest. */
+const COMBINATION_LIMIT = 59049;
+/** How many candidate points are checked against the full bench evaluation per line. */
+const VERIFY_LIMIT = 64;
 
 /** New control id -> old id, for controls renamed with nothing else changed. */
 export function renamedControls(before: Setup, after: Setup): Map<string, string> {
@@ -88,32 +66,23 @@ export function renamedControls(before: Setup, after: Setup): Map<string, string
   return renamed;
 }
 
-function translate(set: Record<string, number>, names: Map<string, string>): Record<string, number> {
+function translate(set: Readonly<Record<string, number>>, names: Map<string, string>): Record<string, number> {
   const result: Record<string, number> = {};
   for (const [id, value] of Object.entries(set)) result[names.get(id) ?? id] = value;
   return result;
 }
 
-interface PinState {
-  ch: number;
-  pulse: number;
-  failsafe: Failsafe;
-}
-
-function pinStates(setup: Setup, set: Record<string, number>): Map<string, PinState> {
-  const states = new Map<string, PinState>();
-  for (const receiver of evaluate(setup, set).receivers) {
-    for (const pin of receiver.pins) {
-      const id = pinKey(receiver.id, pin.pin);
-      // A duplicate pin (reported by duplicate-id) keeps its first entry.
-      if (!states.has(id)) states.set(id, { ch: pin.ch, pulse: pin.pulse_us, failsafe: pin.failsafe });
+function receiverNames(before: Setup, after: Setup): Map<string, string> {
+  const names = new Map<string, string>();
+  for (const setup of [before, after]) {
+    for (const receiver of setup.receivers) {
+      names.set(
+        receiver.id,
+        receiver.label && receiver.label.trim() !== '' ? receiver.label : `Receiver ${receiver.id}`,
+      );
     }
   }
-  return states;
-}
-
-function pinKey(receiver: string, pin: number): string {
-  return `${receiver}\u0000${pin}`;
+  return names;
 }
 
 function pinOrder(before: Setup, after: Setup): { receiver: string; pin: number; key: string }[] {
@@ -132,86 +101,228 @@ function pinOrder(before: Setup, after: Setup): { receiver: string; pin: number;
   return order;
 }
 
-function receiverNames(before: Setup, after: Setup): Map<string, string> {
-  const names = new Map<string, string>();
-  for (const setup of [before, after]) {
-    for (const receiver of setup.receivers) {
-      names.set(
-        receiver.id,
-        receiver.label && receiver.label.trim() !== '' ? receiver.label : `Receiver ${receiver.id}`,
-      );
+function pulseText(value: number | null, lost: boolean): string {
+  if (value !== null) return `${value} us`;
+  return lost ? 'no pulses' : 'no output';
+}
+
+function percent(value: number): string {
+  const rounded = Math.round(value * 100) / 100;
+  return `${rounded > 0 ? '+' : ''}${rounded} %`;
+}
+
+/** Every switch combination of `switches` (name -> positions), position 0 first. */
+function* combinations(switches: Map<string, number>): Generator<Record<string, number>> {
+  const names = [...switches.keys()];
+  const sizes = names.map((name) => switches.get(name)!);
+  let total = 1;
+  for (const size of sizes) total *= size;
+  if (total > COMBINATION_LIMIT) {
+    yield {};
+    for (const [i, name] of names.entries()) for (let p = 1; p < sizes[i]; p += 1) yield { [name]: p };
+    return;
+  }
+  const position = new Array<number>(names.length).fill(0);
+  for (let n = 0; n < total; n += 1) {
+    yield Object.fromEntries(names.map((name, i) => [name, position[i]]));
+    for (let i = 0; i < names.length; i += 1) {
+      position[i] += 1;
+      if (position[i] < sizes[i]) break;
+      position[i] = 0;
     }
   }
-  return names;
 }
 
-function pulseText(value: number | null): string {
-  return value === null ? 'no output' : `${value} us`;
+interface Context {
+  before: Setup;
+  after: Setup;
+  oldNames: Map<string, string>;
+  rest: Record<string, number>;
+  kinds: Map<string, string>;
+  names: Map<string, string>;
+  /** The new-revision name of an old revision's control. */
+  globalOld: (id: string) => string;
 }
 
-function failsafeText(value: Failsafe): string {
-  if (value === null) return 'receiver default';
-  if (value === 'hold') return 'hold last pulse';
-  if (value === 'off') return 'stop pulses';
-  return `${value} us`;
+/** The bench pulse of one pin at a position (new-revision names) and link state. */
+function benchPulse(
+  ctx: Context,
+  side: 'before' | 'after',
+  receiver: string,
+  pin: number,
+  set: Record<string, number>,
+  lost: boolean,
+): number | null | undefined {
+  const setup = ctx[side];
+  const positions = { ...ctx.rest, ...set };
+  const outputs = evaluate(
+    setup,
+    side === 'before' ? translate(positions, ctx.oldNames) : positions,
+    lost ? new Set([receiver]) : new Set(),
+  );
+  return outputs.receivers.find((r) => r.id === receiver)?.pins.find((p) => p.pin === pin)?.pulse_us;
+}
+
+function label(ctx: Context, set: Record<string, number>, lost: string[]): string {
+  const parts: string[] = [];
+  for (const [id, value] of Object.entries(set)) {
+    if ((ctx.rest[id] ?? 0) === value) continue;
+    parts.push(ctx.kinds.get(id) === 'switch' ? `${id} at position ${value}` : `${id} at ${percent(value)}`);
+  }
+  const where = parts.length === 0 ? REST_LABEL : `${parts.join(', ')}, the rest at rest`;
+  if (lost.length === 0) return where;
+  return `${where}, ${lost.map((id) => ctx.names.get(id) ?? id).join(' and ')} lost`;
 }
 
 /**
- * Which receiver pins output a different pulse in `after` than in `before` at the
- * standard positions, and which fail safe differently. Both setups must be
- * schema-valid (Setup, defaults applied).
+ * A position (switches at `switches`, sticks along the lines searched) where the two
+ * sources give different pulses with the link up; null when they agree everywhere.
  */
-export function outputsDelta(before: Setup, after: Setup): OutputDelta[] {
-  const names = receiverNames(before, after);
-  const pins = pinOrder(before, after);
-  const oldNames = renamedControls(before, after);
-  const deltas: OutputDelta[] = [];
-  const restLeft = pinStates(before, {});
-  const restRight = pinStates(after, {});
-  for (const position of standardPositions(before, after)) {
-    const atRest = position === REST;
-    const left = atRest ? restLeft : pinStates(before, translate(position.set, oldNames));
-    const right = atRest ? restRight : pinStates(after, position.set);
-    for (const { receiver, pin, key } of pins) {
-      const a = left.get(key);
-      const b = right.get(key);
-      const beforeUs = a ? a.pulse : null;
-      const afterUs = b ? b.pulse : null;
-      if (beforeUs === afterUs) continue;
-      // A pin on one side only is listed at rest and wherever it moves from there, not
-      // at every position with the same pulse.
-      if (!atRest && (a === undefined || b === undefined)) {
-        const rest = (a ? restLeft : restRight).get(key);
-        if (rest && rest.pulse === (a ?? b)?.pulse) continue;
+function livePoint(
+  ctx: Context,
+  receiver: string,
+  pin: number,
+  left: PinSource,
+  right: PinSource,
+  switches: Record<string, number>,
+  globalOld: (id: string) => string,
+): Record<string, number> | null {
+  const leftForm = channelForm(left, switches, globalOld);
+  const rightForm = channelForm(right, switches, (id) => id);
+  if (sameForm(leftForm, rightForm)) return null;
+  const axes = [...new Set([...axesOf(left, globalOld), ...axesOf(right, (id) => id)])];
+  const restX = new Map(axes.map((axis) => [axis, (ctx.rest[axis] ?? 0) / 100]));
+  const check = (set: Record<string, number>) =>
+    benchPulse(ctx, 'before', receiver, pin, set, false) !== benchPulse(ctx, 'after', receiver, pin, set, false);
+
+  if (axes.length === 0) {
+    return check(switches) ? { ...switches } : null;
+  }
+  // Along each axis in turn, the others at rest, then the others at each end.
+  const holds: Map<string, number>[] = [restX];
+  for (const other of axes) for (const end of [-1, 1]) holds.push(new Map(restX).set(other, end));
+  for (const held of holds) {
+    for (const axis of axes) {
+      if (held.get(axis) !== restX.get(axis) && held !== restX) continue;
+      let tried = 0;
+      for (const x of witnesses(lineOf(leftForm, axis, held), lineOf(rightForm, axis, held))) {
+        const set: Record<string, number> = { ...switches };
+        for (const [name, value] of held) set[name] = value * 100;
+        set[axis] = x * 100;
+        if (check(set)) return set;
+        if (++tried >= VERIFY_LIMIT) break;
       }
-      deltas.push({
-        kind: 'pulse',
-        position,
-        receiver,
-        pin,
-        ch_before: a?.ch ?? null,
-        ch_after: b?.ch ?? null,
-        before_us: beforeUs,
-        after_us: afterUs,
-        summary: `${names.get(receiver)} pin ${pin}, ${position.label}: ${pulseText(beforeUs)} -> ${pulseText(afterUs)}`,
-      });
     }
   }
-  for (const { receiver, pin, key } of pins) {
-    const a = restLeft.get(key);
-    const b = restRight.get(key);
-    if (!a || !b || a.failsafe === b.failsafe) continue;
+  return null;
+}
+
+/**
+ * Which receiver pins behave differently in `after` than in `before`, at some position
+ * of the controls or state of the link; empty exactly when none does. Every pin is
+ * compared in every combination of the switches its channel depends on (on either
+ * side), along each stick exactly (see pulse-witness.ts), and with its receiver lost.
+ * Each entry names one position where the pin differs: one per switch combination for
+ * the live link, one for the lost receiver. Both setups must be schema-valid.
+ */
+export function outputsDelta(before: Setup, after: Setup): OutputDelta[] {
+  const oldNames = renamedControls(before, after);
+  const newNames = new Map([...oldNames].map(([now, was]) => [was, now]));
+  const globalOld = (id: string) => newNames.get(id) ?? id;
+  const ctx: Context = {
+    before,
+    after,
+    oldNames,
+    rest: { ...translate(restPositions(before), newNames), ...restPositions(after) },
+    kinds: new Map([
+      ...before.controls.map((c) => [globalOld(c.id), c.kind] as const),
+      ...after.controls.map((c) => [c.id, c.kind] as const),
+    ]),
+    names: receiverNames(before, after),
+    globalOld,
+  };
+  const leftPins = pinSources(before, (id) => oldNames.get(id) ?? id);
+  const rightPins = pinSources(after, (id) => id);
+  const deltas: OutputDelta[] = [];
+  const push = (
+    kind: OutputDelta['kind'],
+    receiver: string,
+    pin: number,
+    set: Record<string, number>,
+    lost: string[],
+    left: PinSource | undefined,
+    right: PinSource | undefined,
+  ) => {
+    const isLost = lost.length > 0;
+    const beforeUs = left ? (benchPulse(ctx, 'before', receiver, pin, set, isLost) ?? null) : null;
+    const afterUs = right ? (benchPulse(ctx, 'after', receiver, pin, set, isLost) ?? null) : null;
+    const position = { label: label(ctx, set, lost), set, lost };
     deltas.push({
-      kind: 'failsafe',
-      position: SIGNAL_LOST,
+      kind,
+      position,
       receiver,
       pin,
-      ch_before: a.ch,
-      ch_after: b.ch,
-      before_us: a.failsafe,
-      after_us: b.failsafe,
-      summary: `${names.get(receiver)} pin ${pin}, ${SIGNAL_LOST.label}: ${failsafeText(a.failsafe)} -> ${failsafeText(b.failsafe)}`,
+      ch_before: left?.ch ?? null,
+      ch_after: right?.ch ?? null,
+      before_us: beforeUs,
+      after_us: afterUs,
+      ...(kind === 'failsafe'
+        ? { failsafe_before: left!.failsafe ?? null, failsafe_after: right!.failsafe ?? null }
+        : {}),
+      summary: `${ctx.names.get(receiver)} pin ${pin}, ${position.label}: ${pulseText(beforeUs, isLost)} -> ${pulseText(afterUs, isLost)}`,
     });
+  };
+
+  for (const { receiver, pin, key } of pinOrder(before, after)) {
+    const left = leftPins.get(key);
+    const right = rightPins.get(key);
+    if (!left || !right) {
+      // A pin on one side only: once, at rest.
+      push('pulse', receiver, pin, {}, [], left, right);
+      continue;
+    }
+    const switches = switchesOf(right, (id) => id);
+    for (const [name, size] of switchesOf(left, globalOld)) switches.set(name, Math.max(size, switches.get(name) ?? 0));
+    let liveAt: Record<string, number> | null = null;
+    for (const state of combinations(switches)) {
+      const point = livePoint(ctx, receiver, pin, left, right, state, globalOld);
+      if (!point) continue;
+      liveAt ??= point;
+      push('pulse', receiver, pin, point, [], left, right);
+    }
+    const lost = lostPoint(ctx, receiver, pin, left, right, switches, liveAt);
+    if (lost) push('failsafe', receiver, pin, lost, [receiver], left, right);
   }
   return deltas;
+}
+
+/**
+ * A position where the pin sends something different once its receiver is lost; null
+ * when it sends the same everywhere. Both `hold`: the held pulse is the live one, which
+ * the live entries cover. A pulse against `hold` differs wherever the held pulse is
+ * not that number: at rest, in some switch combination, or at the live witness.
+ */
+function lostPoint(
+  ctx: Context,
+  receiver: string,
+  pin: number,
+  left: PinSource,
+  right: PinSource,
+  switches: Map<string, number>,
+  liveAt: Record<string, number> | null,
+): Record<string, number> | null {
+  const a = left.failsafe;
+  const b = right.failsafe;
+  if (a === 'hold' && b === 'hold') return null;
+  if (a !== 'hold' && b !== 'hold') return pinPulse(0, a, true) === pinPulse(0, b, true) ? null : {};
+  const differs = (set: Record<string, number>) =>
+    benchPulse(ctx, 'before', receiver, pin, set, true) !== benchPulse(ctx, 'after', receiver, pin, set, true);
+  const axes = [...new Set([...axesOf(right, (id) => id), ...axesOf(left, ctx.globalOld)])];
+  const candidates: Record<string, number>[] = [];
+  for (const state of combinations(switches)) {
+    candidates.push(state);
+    for (const axis of axes) for (const end of [-100, 100]) candidates.push({ ...state, [axis]: end });
+  }
+  if (liveAt) candidates.push(liveAt);
+  return candidates.find(differs) ?? null;
 }

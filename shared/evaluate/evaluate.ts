@@ -24,14 +24,20 @@ export interface ChannelOutput {
 export interface PinOutput {
   pin: number;
   ch: number;
-  pulse_us: number;
+  /** null when the receiver has lost the link and the pin sends nothing (`off`) or its default (unset). */
+  pulse_us: number | null;
   failsafe: number | 'hold' | 'off' | null;
 }
 
 export interface ReceiverOutput {
   id: string;
+  /** Whether this receiver has lost the link (evaluation rule 9). */
+  lost: boolean;
   pins: PinOutput[];
 }
+
+/** Which receivers have lost the link: none, some by id, or all of them. */
+export type LinkLoss = ReadonlySet<string> | 'all';
 
 export interface Outputs {
   channels: ChannelOutput[];
@@ -85,11 +91,19 @@ export function channelValue(
 
 /** The pulse in microseconds for channel value v (percent) through a travel. */
 export function pulseFor(travel: Travel, value: number): number {
+  return roundPulse(unroundedPulse(travel, value));
+}
+
+/** The pulse before rounding: linear in v on each side of centre (rule 5). */
+export function unroundedPulse(travel: Travel, value: number): number {
   const v = travel.reverse ? -value : value;
-  const pulse =
-    v >= 0
-      ? travel.center_us + (v / 100) * (travel.high_us - travel.center_us)
-      : travel.center_us + (v / 100) * (travel.center_us - travel.low_us);
+  return v >= 0
+    ? travel.center_us + (v / 100) * (travel.high_us - travel.center_us)
+    : travel.center_us + (v / 100) * (travel.center_us - travel.low_us);
+}
+
+/** Rounds a pulse to the nearest microsecond as rule 5 does. */
+export function roundPulse(pulse: number): number {
   return Math.round(clean(pulse));
 }
 
@@ -109,8 +123,24 @@ function round2(value: number): number {
   return rounded === 0 ? 0 : rounded;
 }
 
-/** The bench view: every channel's value and pulse, and every receiver pin's pulse and failsafe. */
-export function evaluate(setup: Setup, positions: Positions = {}): Outputs {
+/**
+ * Evaluation rule 9: what a pin sends. A receiver with the link follows the controls;
+ * a lost one sends the failsafe pulse, for `hold` the pulse it had when the link went
+ * (the pulse of the current positions), and nothing for `off` or an unset failsafe
+ * (the receiver's own default, which the setup does not know).
+ */
+export function pinPulse(live: number, failsafe: Failsafe, lost: boolean): number | null {
+  if (!lost || failsafe === 'hold') return live;
+  return typeof failsafe === 'number' ? failsafe : null;
+}
+
+/**
+ * The bench view: every channel's value and pulse, and every receiver pin's pulse and
+ * failsafe, with the receivers in `lost` out of the link. Controls missing from
+ * `positions` sit at 0 or position 0; callers that start from rest pass
+ * `fromRest(setup, positions)`.
+ */
+export function evaluate(setup: Setup, positions: Positions = {}, lost: LinkLoss = new Set()): Outputs {
   const controls = controlsById(setup.controls);
   const mixesByTarget = new Map<number, Mix[]>();
   for (const mix of setup.mixes) {
@@ -148,17 +178,21 @@ export function evaluate(setup: Setup, positions: Positions = {}): Outputs {
     return pulse;
   };
 
-  const receivers = setup.receivers.map((receiver) => ({
-    id: receiver.id,
-    pins: [...receiver.map]
-      .sort((a, b) => a.pin - b.pin)
-      .map((entry) => ({
-        pin: entry.pin,
-        ch: entry.ch,
-        pulse_us: pulseOf(entry.ch),
-        failsafe: failsafeOut(entry.failsafe),
-      })),
-  }));
+  const receivers = setup.receivers.map((receiver) => {
+    const isLost = lost === 'all' || lost.has(receiver.id);
+    return {
+      id: receiver.id,
+      lost: isLost,
+      pins: [...receiver.map]
+        .sort((a, b) => a.pin - b.pin)
+        .map((entry) => ({
+          pin: entry.pin,
+          ch: entry.ch,
+          pulse_us: pinPulse(pulseOf(entry.ch), entry.failsafe, isLost),
+          failsafe: failsafeOut(entry.failsafe),
+        })),
+    };
+  });
 
   return { channels, receivers };
 }

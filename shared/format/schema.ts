@@ -30,7 +30,14 @@ export const CHANNEL_ROLES = [
   'light',
   'payload',
   'aux',
+  'collective',
+  'gyro',
+  'mode',
 ] as const;
+/** What drives the model (second edition): absent means electric for a powered airframe. */
+export const MOTORS = ['electric', 'fuel', 'turbine', 'none'] as const;
+/** Where a throttle channel's motor stops (second edition, evaluation rule 7). */
+export const THROTTLE_STOPS = ['low', 'center'] as const;
 export const SIDES = ['left', 'right'] as const;
 export const RECEIVER_ROLES = ['primary', 'secondary'] as const;
 export const RECEIVER_SUPPLIES = ['esc-bec', 'separate-pack', 'both'] as const;
@@ -46,6 +53,7 @@ export const modelSchema = z.looseObject({
   length_mm: z.number().positive().optional(),
   weight_g: z.number().positive().optional(),
   notes: z.string().optional(),
+  motor: z.enum(MOTORS).optional(),
 });
 
 export const linkSchema = z.looseObject({
@@ -90,6 +98,11 @@ export const channelSchema = z.looseObject({
   side: z.enum(SIDES).optional(),
   travel: travelSchema.default({ ...DEFAULT_TRAVEL }),
   cut: cutSchema.optional(),
+  // Throttle channels only; the default depends on the airframe (see throttleStop).
+  stop: z.enum(THROTTLE_STOPS).optional(),
+}).superRefine((channel, ctx) => {
+  if (channel.stop !== undefined && channel.role !== 'throttle')
+    ctx.addIssue({ code: 'custom', path: ['stop'], message: 'stop is only for throttle channels' });
 });
 
 export const ratesSchema = z.looseObject({
@@ -134,6 +147,13 @@ export const powerSchema = z.looseObject({
   receiver_supply: z.enum(RECEIVER_SUPPLIES).optional(),
 });
 
+// A warning or info the pilot has looked at and accepts; identity key rule + path.
+export const acceptedSchema = z.looseObject({
+  rule: z.string().min(1),
+  path: z.string(),
+  reason: z.string().min(1),
+});
+
 export const setupSchema = z.looseObject({
   format: z.literal(FORMAT_ID),
   model: modelSchema,
@@ -143,6 +163,7 @@ export const setupSchema = z.looseObject({
   mixes: z.array(mixSchema).default([]),
   receivers: z.array(receiverSchema).min(1),
   power: powerSchema.optional(),
+  accepted: z.array(acceptedSchema).optional(),
 });
 
 export type Setup = z.output<typeof setupSchema>;
@@ -161,3 +182,6 @@ export type Receiver = z.output<typeof receiverSchema>;
 export type PinMapEntry = z.output<typeof pinMapEntrySchema>;
 export type Failsafe = z.output<typeof failsafeSchema>;
 export type Power = z.output<typeof powerSchema>;
+export type Accepted = z.output<typeof acceptedSchema>;
+export type Motor = (typeof MOTORS)[number];
+export type ThrottleStop = (typeof THROTTLE_STOPS)[number];

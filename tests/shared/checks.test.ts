@@ -34,6 +34,15 @@ const CONTRACT: [string, string][] = [
   ['primary-controls-on-secondary', 'warning'],
   ['power-double-supply', 'warning'],
   ['control-unused', 'info'],
+  // Second edition of the safety model.
+  ['failsafe-no-pulses', 'warning'],
+  ['failsafe-payload', 'warning'],
+  ['failsafe-mismatch', 'warning'],
+  ['telemetry-on-secondary', 'warning'],
+  ['primary-disabled-by-switch', 'warning'],
+  ['cut-not-at-stop', 'warning'],
+  // The project's addition: an accepted entry that names an error.
+  ['accepted-error', 'error'],
 ];
 
 const invalid = invalidFixtures();
@@ -124,7 +133,7 @@ describe('findings', () => {
 
   it('are counted by severity', () => {
     const analysis = analyzeSetup(invalid.find((fixture) => fixture.name === 'heavy-model-failsafe')!.text);
-    expect(analysis.counts).toEqual({ errors: 1, warnings: 1, infos: 0 });
+    expect(analysis.counts).toEqual({ errors: 1, warnings: 1, infos: 0, accepted: 0 });
   });
 
   it('of unknown keys come with schema findings, and the unknown key is kept in the data', () => {

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import type { Finding } from '../../shared/findings';
 import type { Setup } from '../../shared/format/schema';
-import { compareRevisions, findingsDelta, outputsDelta, standardPositions } from '../../shared/diff';
+import { compareRevisions, findingsDelta, outputsDelta, REST_LABEL } from '../../shared/diff';
 import { loadPair } from './diff-pairs';
 
 const where = (findings: Finding[]) => findings.map((finding) => `${finding.rule} ${finding.path}`);
@@ -16,10 +16,21 @@ describe('findings delta', () => {
   it('shows the remap resolving the unrouted channels and introducing the left-over failsafe', () => {
     const { before, after } = loadPair('remap-second-receiver');
     const delta = findingsDelta(before.findings, after.findings);
-    expect(where(delta.resolved)).toEqual(
-      [9, 10, 11, 12, 13, 14, 15, 16].map((ch) => `function-unrouted channels[ch=${ch}]`),
+    // Before the remap the wing receiver's pin 3 carried the motor too, failing safe to
+    // 988 us against the fuselage's 1000 us (failsafe-mismatch, more than 10 us apart).
+    expect(where(delta.resolved).sort()).toEqual(
+      [
+        'failsafe-mismatch receivers[id=wing].map[pin=3].failsafe',
+        ...[9, 10, 11, 12, 13, 14, 15, 16].map((ch) => `function-unrouted channels[ch=${ch}]`),
+      ].sort(),
     );
-    expect(where(delta.introduced)).toEqual(['failsafe-endstop receivers[id=wing].map[pin=3].failsafe']);
+    // After it, the left-over 988 us sits on an aux channel, and the tow release and the
+    // smoke (payloads, at rest at 1000 us) fail safe to 1500 us, which would release them.
+    expect(where(delta.introduced).sort()).toEqual([
+      'failsafe-endstop receivers[id=wing].map[pin=3].failsafe',
+      'failsafe-payload receivers[id=wing].map[pin=1].failsafe',
+      'failsafe-payload receivers[id=wing].map[pin=6].failsafe',
+    ]);
   });
 
   it('shows the failsafe fix resolving the warning and introducing nothing', () => {
@@ -48,32 +59,24 @@ describe('findings delta', () => {
 });
 
 describe('outputs delta', () => {
-  it('lists the standard positions: rest, each axis at both ends, each switch in each other position', () => {
-    const { before, after } = setups('trim-tuning');
-    const labels = standardPositions(before, after).map((position) => position.label);
-    expect(labels[0]).toBe('at rest (axes centred, switches at position 0)');
-    expect(labels).toContain('aileron-stick at -100 %');
-    expect(labels).toContain('aileron-stick at +100 %');
-    expect(labels).toContain('flap-switch at position 1');
-    expect(labels).toContain('flap-switch at position 2');
-    expect(labels).not.toContain('flap-switch at position 0');
-    // 4 axes x 2 ends + flap 2 + gear, rates, arm, lights 1 each, plus rest.
-    expect(labels).toHaveLength(1 + 8 + 2 + 4);
-  });
+  const rows = (before: Setup, after: Setup) =>
+    outputsDelta(before, after).map((row) => [row.position.label, row.receiver, row.pin, row.before_us, row.after_us]);
 
-  it('reports the failsafe fix as the one pin that behaves differently, on signal loss only', () => {
+  it('reports the failsafe fix as the one pin that behaves differently, with its receiver lost only', () => {
     const { before, after } = setups('failsafe-fix');
     expect(outputsDelta(before, after)).toEqual([
       {
         kind: 'failsafe',
-        position: { label: 'on signal loss', set: {} },
+        position: { label: `${REST_LABEL}, Wing receiver lost`, set: {}, lost: ['wing'] },
         receiver: 'wing',
         pin: 3,
         ch_before: 11,
         ch_after: 11,
         before_us: 988,
         after_us: 1500,
-        summary: 'Wing receiver pin 3, on signal loss: 988 us -> 1500 us',
+        failsafe_before: 988,
+        failsafe_after: 1500,
+        summary: `Wing receiver pin 3, ${REST_LABEL}, Wing receiver lost: 988 us -> 1500 us`,
       },
     ]);
   });
@@ -81,42 +84,36 @@ describe('outputs delta', () => {
   it('reports the remapped pins of the second receiver with the pulses of their new channels', () => {
     const { before, after } = setups('remap-second-receiver');
     const delta = outputsDelta(before, after);
-    expect(delta.every((row) => row.receiver === 'wing' && row.kind === 'pulse')).toBe(true);
+    expect(delta.every((row) => row.receiver === 'wing')).toBe(true);
     expect(new Set(delta.map((row) => row.pin))).toEqual(new Set([1, 2, 3, 4, 5, 6, 7, 8]));
     // At rest pin 1 followed the aileron (centred, 1500 us); now the tow release, its
     // 2-position switch at position 0, sits at the low end (1000 us) [arduino-servo].
-    expect(delta.find((row) => row.pin === 1 && row.position.label.startsWith('at rest'))).toMatchObject({
+    expect(delta.find((row) => row.pin === 1 && row.position.label === REST_LABEL)).toMatchObject({
+      kind: 'pulse',
       ch_before: 1,
       ch_after: 9,
       before_us: 1500,
-      after_us: 1000,
-    });
-    // Full right aileron moved wing pin 1 before (expo does not change the end point:
-    // curve(1) = 1 [expo-cubic]); now pin 1 ignores the stick and stays at 1000 us.
-    expect(delta.find((row) => row.pin === 1 && row.position.label === 'aileron-stick at +100 %')).toMatchObject({
-      before_us: 2000,
       after_us: 1000,
     });
     // The fuselage receiver is untouched, so none of its pins shows up.
     expect(delta.some((row) => row.receiver === 'fuselage')).toBe(false);
   });
 
-  it('shows a mix change only where it changes a pulse', () => {
+  it('shows every mix change, in the switch positions where it counts', () => {
     const { before, after } = setups('trim-tuning');
-    // Flap trim -8 -> -12 % on the elevator channel (ch 2) with the stick centred and
-    // the flap switch fully down: -8 % of 500 us is -40 us, -12 % is -60 us from the
-    // 1500 us centre (docs/format.md evaluation, default travel [arduino-servo]). The rates
-    // and expo changes do not show at these positions: rates need the rate switch and
-    // the stick moved together, and expo does not change the end points [expo-cubic].
-    expect(
-      outputsDelta(before, after).map((row) => [
-        row.position.label,
-        row.receiver,
-        row.pin,
-        row.before_us,
-        row.after_us,
-      ]),
-    ).toEqual([['flap-switch at position 2', 'main', 2, 1460, 1440]]);
+    // Default travel 1000/1500/2000 [arduino-servo], cubic expo [expo-cubic].
+    expect(rows(before, after)).toEqual([
+      // Low rate 65 -> 70 % of full stick on both ailerons: at -100 % curve(-1) = -1, so
+      // 1500 - 0.65 * 500 = 1175 us before, 1500 - 0.70 * 500 = 1150 us after.
+      ['rate-switch at position 1, aileron-stick at -100 %, the rest at rest', 'main', 1, 1175, 1150],
+      // Elevator expo: the first point of the grid (centre out) where the pulses differ.
+      ['elevator-stick at -50 %, the rest at rest', 'main', 2, 1309, 1326],
+      ['flap-switch at position 1, elevator-stick at -50 %, the rest at rest', 'main', 2, 1309, 1326],
+      // Flap trim -8 -> -12 % with the stick centred and the flaps fully down: -8 % of
+      // 500 us is -40 us, -12 % is -60 us from the 1500 us centre.
+      ['flap-switch at position 2, the rest at rest', 'main', 2, 1460, 1440],
+      ['rate-switch at position 1, aileron-stick at -100 %, the rest at rest', 'main', 6, 1175, 1150],
+    ]);
   });
 
   it('exercises a renamed control under its new name on both sides: the renames pair changes no pulse', () => {
@@ -124,20 +121,15 @@ describe('outputs delta', () => {
     expect(outputsDelta(before, after)).toEqual([]);
   });
 
-  it('lists an added receiver pin at rest and where it moves, not at every position', () => {
+  it('is empty for a reordered setup and for a revision compared with itself', () => {
+    const { before, after } = setups('reorder');
+    expect(outputsDelta(before, after)).toEqual([]);
+    expect(outputsDelta(after, after)).toEqual([]);
+  });
+
+  it('lists an added receiver pin once, at rest', () => {
     const { before, after } = setups('receiver-added');
-    expect(
-      outputsDelta(before, after).map((row) => [
-        row.position.label,
-        row.receiver,
-        row.pin,
-        row.before_us,
-        row.after_us,
-      ]),
-    ).toEqual([
-      ['at rest (axes centred, switches at position 0)', 'tail', 1, null, 1000],
-      ['release-switch at position 1', 'tail', 1, null, 2000],
-    ]);
+    expect(rows(before, after)).toEqual([[REST_LABEL, 'tail', 1, null, 1000]]);
   });
 });
 

@@ -103,9 +103,10 @@ describe('rates, expo and mixing', () => {
   });
 
   it('a mix with active counts only in its positions, and mixes add up', () => {
-    // Demo channel 2: elevator 92 % plus flap-comp -6 % of the flap switch at positions 1 and 2.
+    // Demo channel 2: elevator 92 % plus flap-comp at flap positions 1 and 2, -3 % of the
+    // switch value plus an offset of -3 %: mid flap -3 * 0 - 3 = -3, full -3 * 1 - 3 = -6.
     expect(channel(demo, { 'elevator-stick': 100, 'flap-switch': 0 }, 2).value).toBe(92);
-    expect(channel(demo, { 'elevator-stick': 100, 'flap-switch': 1 }, 2).value).toBe(92);
+    expect(channel(demo, { 'elevator-stick': 100, 'flap-switch': 1 }, 2).value).toBe(89);
     expect(channel(demo, { 'elevator-stick': 100, 'flap-switch': 2 }, 2).value).toBe(86);
   });
 
@@ -161,7 +162,7 @@ describe('receiver pins', () => {
     const out = evaluate(trainer);
     expect(Object.keys(out)).toEqual(['channels', 'receivers']);
     expect(Object.keys(out.channels[0])).toEqual(['ch', 'function', 'value', 'pulse_us']);
-    expect(Object.keys(out.receivers[0])).toEqual(['id', 'pins']);
+    expect(Object.keys(out.receivers[0])).toEqual(['id', 'lost', 'pins']);
     expect(Object.keys(out.receivers[0].pins[0])).toEqual(['pin', 'ch', 'pulse_us', 'failsafe']);
   });
 });

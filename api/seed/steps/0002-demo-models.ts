@@ -94,7 +94,7 @@ function kestrelHistory(): Step[] {
 
   const r5 = edit(current, 'weight: 92, expo: 15', 'weight: 92, expo: 20');
   const r6 = edit(r5, 'weights: [100, 60]', 'weights: [100, 65]').replace('weights: [100, 60]', 'weights: [100, 65]');
-  const r7 = edit(r6, 'to: 2, weight: -6,', 'to: 2, weight: -8,');
+  const r7 = edit(r6, 'to: 2, weight: -3, offset: -3,', 'to: 2, weight: -4, offset: -4,');
   const r8 = edit(r7, 'to: 9, weight: 80 }', 'to: 9, weight: 70 }');
   const r9 = edit(r8, 'to: 16, weight: 50 }', 'to: 16, weight: 40 }');
   const r10 = edit(r9, 'weight_g: 6200', 'weight_g: 6450');

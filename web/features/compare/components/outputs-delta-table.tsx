@@ -3,9 +3,7 @@ import type { OutputDelta } from '../../../../shared/diff';
 import { Card } from '../../../components/ui/card';
 
 function pulseText(value: OutputDelta['before_us'], kind: OutputDelta['kind']): string {
-  if (value === null) return kind === 'failsafe' ? 'receiver default' : 'no output';
-  if (value === 'hold') return 'hold last pulse';
-  if (value === 'off') return 'stop pulses';
+  if (value === null) return kind === 'failsafe' ? 'no pulses (off or receiver default)' : 'no output';
   return `${value} us`;
 }
 
