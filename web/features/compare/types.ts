@@ -1,3 +1,4 @@
+import type { WithChangeFindings } from '../../../shared/contract/change-finding';
 import type { Comparison } from '../../../shared/diff';
 import type { RevisionModelRef, RevisionSummary } from '../models/types';
 
@@ -7,7 +8,8 @@ export interface CompareSideSummary extends RevisionSummary {
 }
 
 /** `GET /api/compare`: the two revisions and everything that differs between them. */
-export interface CompareResult extends Comparison {
-  from: CompareSideSummary;
-  to: CompareSideSummary;
-}
+export type CompareResult = Comparison &
+  WithChangeFindings & {
+    from: CompareSideSummary;
+    to: CompareSideSummary;
+  };

@@ -1,4 +1,5 @@
 // Shapes the review routes answer with (api/presenters/review.ts, api/queries/review-views.ts).
+import type { WithChangeFindings } from '../../../shared/contract/change-finding';
 import type { Comparison } from '../../../shared/diff';
 import type { Finding } from '../../../shared/findings';
 import type { Id } from '../../types/api';
@@ -71,7 +72,7 @@ export interface ReviewDetail extends Omit<ReviewSummary, 'revision'> {
   revision: RevisionSummary;
   findings: Finding[];
   base: { kind: 'approved' | 'parent' | 'fork-source'; revision: RevisionSummary } | null;
-  compare: Comparison | null;
+  compare: (Comparison & WithChangeFindings) | null;
   checklist: ChecklistEntry[];
   verdicts: VerdictEntry[];
   comments: CommentEntry[];
