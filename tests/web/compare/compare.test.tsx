@@ -128,7 +128,7 @@ describe('Compare: what now moves differently', () => {
       .map((row) =>
         within(row)
           .queryAllByRole('cell')
-          .map((cell) => cell.textContent!.replace('->', '').trim()),
+          .map((cell) => cell.textContent.replace('->', '').trim()),
       )
       .filter((cells) => cells.length > 0);
 
