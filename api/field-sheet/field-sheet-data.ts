@@ -4,7 +4,13 @@ import { Receiver, ReceiverInstall, type Revision, type SetupModel, User } from 
 import { setupOf } from '../queries/receiver-slot';
 import { reviewStateOf } from '../review-state';
 import { CAUTIONS, CAUTIONS_HEADING } from '../../shared/cautions';
-import type { FieldSheet, SheetPin, SheetReceiver } from '../../shared/contract/field-sheet';
+import {
+  sheetCut,
+  sheetLinkLoss,
+  type FieldSheet,
+  type SheetPin,
+  type SheetReceiver,
+} from '../../shared/contract/field-sheet';
 
 export type { FieldSheet, SheetPin, SheetReceiver };
 
@@ -67,7 +73,7 @@ export async function fieldSheetOf(
         role: channel.role,
         side: channel.side ?? null,
         reverse: channel.travel.reverse,
-        cut: channel.cut ? `${channel.cut.control} at ${channel.cut.position}: ${channel.cut.value} %` : null,
+        cut: channel.cut ? sheetCut(channel.cut, setup) : null,
       })),
     receivers: setup.receivers.map((receiver) => {
       const unit = units.get(receiver.id);
@@ -85,6 +91,7 @@ export async function fieldSheetOf(
             function: plan.get(entry.ch)?.function ?? null,
             role: plan.get(entry.ch)?.role ?? null,
             failsafe: entry.failsafe ?? null,
+            link_loss: sheetLinkLoss(entry.failsafe),
           })),
         unit: unit
           ? { id: unit.id, label: unit.label, mark: unit.mark ?? null, mark_colour: unit.markColour ?? null }

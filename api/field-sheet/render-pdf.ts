@@ -1,6 +1,7 @@
 import { createRequire } from 'node:module';
 import path from 'node:path';
 import PDFDocument from 'pdfkit';
+import { REBIND_NOTE_SHEET } from '../../shared/reuse/rebind-note';
 import { MARK_SWATCHES } from '../../shared/reuse/receiver-fields';
 import type { ReviewState } from '../review-state';
 import type { FieldSheet, SheetReceiver } from './field-sheet-data';
@@ -191,15 +192,31 @@ function channelPlan(w: SheetWriter, sheet: FieldSheet): void {
       String(channel.ch),
       channel.function,
       channel.side ? `${channel.role} (${channel.side})` : channel.role,
-      [channel.reverse ? 'reversed' : '', channel.cut ? 'has cut' : ''].filter(Boolean).join(', '),
+      [channel.reverse ? 'reversed' : '', channel.cut ? 'cut, below' : ''].filter(Boolean).join(', '),
     ]);
     bottom = Math.max(bottom, w.table(PAGE.margin + index * (width + gap), top, columns, rows));
   });
-  w.y = bottom + 14;
+  w.y = bottom + 6;
+  // Each cut in full under the plan: the table's notes column is too narrow for the switch, position and value.
+  for (const channel of sheet.channels) {
+    if (!channel.cut) continue;
+    w.room(ROW);
+    w.doc
+      .font('sans')
+      .fontSize(8)
+      .fillColor(INK)
+      .text(`Cut on ch ${channel.ch} (${channel.function}): ${channel.cut.words}.`, PAGE.margin, w.y, {
+        width: CONTENT_WIDTH,
+        lineBreak: false,
+        ellipsis: true,
+      });
+    w.y += ROW;
+  }
+  w.y += 8;
 }
 
 function receiverBlockHeight(receiver: SheetReceiver): number {
-  return 44 + ROW * (1 + Math.max(1, receiver.pins.length));
+  return 44 + (receiver.unit ? 11 : 0) + ROW * (1 + Math.max(1, receiver.pins.length));
 }
 
 function receiverBlock(w: SheetWriter, receiver: SheetReceiver, x: number, width: number, top: number): number {
@@ -228,14 +245,19 @@ function receiverBlock(w: SheetWriter, receiver: SheetReceiver, x: number, width
     doc
       .fillColor(INK)
       .text(receiver.unit.mark ? `mark: ${receiver.unit.mark}` : 'no mark', unitX, top + 25, { lineBreak: false });
+    doc
+      .fillColor(MUTED)
+      .fontSize(7.5)
+      .text(REBIND_NOTE_SHEET, x, top + 36, { width, lineBreak: false, ellipsis: true });
   } else {
     doc.fillColor(MUTED).text('Unit: none on the shelf is installed here', unitX, top + 25, { lineBreak: false });
   }
   const columns: Column[] = [
-    { title: 'Pin', width: 28 },
-    { title: 'Ch', width: 26 },
-    { title: 'Function', width: width - 28 - 26 - 64 },
-    { title: 'Failsafe', width: 64 },
+    { title: 'Pin', width: 24 },
+    { title: 'Ch', width: 22 },
+    { title: 'Function', width: width - 24 - 22 - 52 - 84 },
+    { title: 'Failsafe', width: 52 },
+    { title: 'Link lost', width: 84 },
   ];
   const rows =
     receiver.pins.length > 0
@@ -244,9 +266,10 @@ function receiverBlock(w: SheetWriter, receiver: SheetReceiver, x: number, width
           String(pin.ch),
           pin.function ?? '(no plan entry)',
           failsafeText(pin.failsafe),
+          pin.link_loss.words,
         ])
-      : [['', '', 'No pins mapped', '']];
-  return w.table(x, top + 38, columns, rows);
+      : [['', '', 'No pins mapped', '', '']];
+  return w.table(x, top + (receiver.unit ? 49 : 38), columns, rows);
 }
 
 function receivers(w: SheetWriter, sheet: FieldSheet): void {

@@ -51,6 +51,34 @@ export const PRE_MAIDEN_CHECKLIST: readonly ChecklistItem[] = [
     basis: null,
   },
   {
+    id: 'range-check-each-receiver',
+    label: 'Range check each receiver on its own',
+    detail:
+      'Range check again with only one receiver powered at a time: each unit must hold the link by itself, since the failure two receivers are fitted for is one of them losing it.',
+    source: {
+      label: 'ama-safety-code',
+      title:
+        'Academy of Model Aeronautics, National Model Aircraft Safety Code, Radio Control B.2 (one unit at a time is common practice)',
+    },
+    basis: null,
+  },
+  {
+    id: 'bind-check',
+    label: 'Bind check: every receiver answers',
+    detail:
+      'With the transmitter on, every receiver of the setup shows it is bound and moves its own pins; a unit re-bound for this model is checked again for the settings its binding may have cleared.',
+    source: null,
+    basis: 'Common practice, no published source.',
+  },
+  {
+    id: 'arm-switch-stops-motor',
+    label: 'Arm switch stops the motor',
+    detail:
+      'With the propeller off and the model restrained, throttle up a little, then flip the arm switch to its safe position: the motor stops and stays stopped whatever the throttle stick does.',
+    source: null,
+    basis: 'Common practice, no published source.',
+  },
+  {
     id: 'centre-of-gravity',
     label: 'Centre of gravity',
     detail: 'Balanced at the designed point with the flight pack fitted, ready to fly.',

@@ -69,6 +69,10 @@ describe('GET /api/revisions/:id/field-sheet.pdf', () => {
     expect(text).toMatch(row(8, 16, 'pilot-head', '1500 us'));
     expect(text).toContain('Fuselage receiver (blue tape) · slot fuselage');
     expect(text).toContain('primary, 8 outputs, telemetry: sends');
+    // What each pin does when its receiver loses the link (evaluation rule 9): its pulse, or held.
+    expect(text).toMatch(row(3, 3, 'motor', '1000 us', '1000 us'));
+    expect(text).toMatch(row(5, 5, 'gear', 'hold', 'held'));
+    expect(text).toMatch(row(3, 11, 'landing-light', 'hold', 'held'));
     expect(text).toContain('secondary, 8 outputs, telemetry: silent (off)');
   });
 
@@ -83,6 +87,10 @@ describe('GET /api/revisions/:id/field-sheet.pdf', () => {
     expect(text).toContain('16 channels at 150 Hz');
     expect(text).toMatch(row('Unit: Kestrel wing unit', 'mark: Red tape'));
     expect(text).toContain('Unit: none on the shelf is installed here');
+    // The unit line says a bind can clear what the unit stores.
+    expect(text).toContain('Re-binding can clear the unit’s stored settings');
+    // The cut in full: its switch, position and value.
+    expect(text).toContain('Cut on ch 3 (motor): Arm (guarded) (motor-arm) at position 0 holds it at -100 %.');
     expect(text).toMatch(row(14, 'canopy', 'aux'));
   });
 
@@ -150,7 +158,17 @@ describe('GET /api/revisions/:id/field-sheet', () => {
       function: 'landing-light',
       role: 'light',
       failsafe: 'hold',
+      link_loss: { kind: 'held', pulse_us: null, words: 'held' },
     });
+    expect(data.receivers[0].pins[2].link_loss).toEqual({ kind: 'pulse', pulse_us: 1000, words: '1000 us' });
+    expect(data.channels[2].cut).toEqual({
+      control: 'motor-arm',
+      control_label: 'Arm (guarded)',
+      position: 0,
+      value: -100,
+      words: 'Arm (guarded) (motor-arm) at position 0 holds it at -100 %',
+    });
+    expect(data.channels[0].cut).toBeNull();
     expect(data.cautions.items.length).toBeGreaterThanOrEqual(5);
   });
 });

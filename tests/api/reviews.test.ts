@@ -337,6 +337,9 @@ describe('the review page', () => {
       'throws-measured',
       'failsafe-tested',
       'range-check',
+      'range-check-each-receiver',
+      'bind-check',
+      'arm-switch-stops-motor',
       'centre-of-gravity',
       'battery-charge',
       'receiver-power',
@@ -348,6 +351,23 @@ describe('the review page', () => {
     expect(page.body.data.checklist.find((item: { id: string }) => item.id === 'range-check').source.label).toBe(
       'ama-safety-code',
     );
+    // The second edition's items for two-receiver models: each names its source or says common practice.
+    const item = (id: string) => page.body.data.checklist.find((entry: { id: string }) => entry.id === id);
+    expect(item('range-check-each-receiver')).toMatchObject({
+      label: 'Range check each receiver on its own',
+      source: { label: 'ama-safety-code' },
+      basis: null,
+    });
+    expect(item('bind-check')).toMatchObject({
+      label: 'Bind check: every receiver answers',
+      source: null,
+      basis: 'Common practice, no published source.',
+    });
+    expect(item('arm-switch-stops-motor')).toMatchObject({
+      label: 'Arm switch stops the motor',
+      source: null,
+      basis: 'Common practice, no published source.',
+    });
     expect(page.body.data.can).toMatchObject({ verdict: false, approve: false, comment: false });
     expect((await reviewer.get(`/api/reviews/${first}`).expect(200)).body.data.can).toMatchObject({
       verdict: true,

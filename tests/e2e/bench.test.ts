@@ -11,7 +11,7 @@ const rowCells = async (row: import('playwright-core').Locator) =>
   (await row.getByRole('cell').allTextContents()).map((cell) => cell.replace(/\s+/g, ' ').trim());
 
 describe('journey: the bench', () => {
-  it('moves the elevator stick of the Kestrel to full and reads the pulse on its channel and pin, then the failsafe on link loss', async () => {
+  it('moves the elevator stick of the Kestrel to full and reads the pulse on its channel and pin, then loses the wing receiver alone and then every receiver', async () => {
     const viewer = demoAccount('viewer');
     const kestrel = await demoModel(await apiAs(viewer), 'Kestrel Mk II');
     const visit = await signedIn(browser(), viewer);
@@ -42,8 +42,26 @@ describe('journey: the bench', () => {
     expect(await rowCells(pin2)).toContain('1960');
     await saveScreenshot(page, 'journey-06-bench-elevator-up');
 
-    // Link lost: every pin goes to its failsafe, the motor's pin 3 to its 1000 us stop.
-    await page.getByLabel('Simulate link loss').check();
+    // One receiver loses the link: the wing unit's pins go to their failsafes while the
+    // fuselage unit keeps the link and its pin 2 still follows the elevator stick.
+    await page.getByLabel('Wing receiver (red tape) loses the link').check();
+    const wingLost = page.getByRole('table', { name: /^Pins of Wing receiver.*with the link lost/ });
+    const wingPin1 = wingLost
+      .getByRole('row')
+      .filter({ has: page.getByRole('cell', { name: '1', exact: true }) })
+      .first();
+    await wingPin1.waitFor();
+    expect(await rowCells(wingPin1)).toEqual(['1', '9', 'tailwheel', '1500', 'failsafe (1500 us)', '1500 us']);
+    const fuselageLive = page.getByRole('table', { name: /^Pins of Fuselage receiver.*now/ });
+    const livePin2 = fuselageLive
+      .getByRole('row')
+      .filter({ has: page.getByRole('cell', { name: '2', exact: true }) })
+      .first();
+    expect((await rowCells(livePin2)).slice(3, 5)).toEqual(['1960', 'live']);
+    await saveScreenshot(page, 'journey-06-bench-wing-lost');
+
+    // Every receiver lost: the motor's pin 3 goes to its 1000 us stop, the elevator to 1500 us.
+    await page.getByRole('button', { name: 'Lose every receiver' }).click();
     const lost = page.getByRole('table', { name: /^Pins of Fuselage receiver.*with the link lost/ });
     const pin3 = lost
       .getByRole('row')
@@ -55,7 +73,7 @@ describe('journey: the bench', () => {
       .getByRole('row')
       .filter({ has: page.getByRole('cell', { name: '2', exact: true }) })
       .first();
-    expect(await rowCells(pin2Lost)).toContain('1500');
+    expect((await rowCells(pin2Lost)).slice(3, 5)).toEqual(['1500', 'failsafe (1500 us)']);
     await saveScreenshot(page, 'journey-06-bench-link-lost');
     expectNoProblems(visit);
     await visit.context.close();

@@ -50,7 +50,7 @@ describe('journey: print the field sheet and download its PDF', () => {
       page.getByRole('link', { name: 'Download PDF' }).click(),
     ]);
     expect(download.suggestedFilename()).toMatch(/^kestrel-mk-ii.*-r12-field-sheet\.pdf$/);
-    const bytes = readFileSync((await download.path()));
+    const bytes = readFileSync(await download.path());
     expect(bytes.subarray(0, 5).toString('latin1')).toBe('%PDF-');
     const pdf = await pdfParse(bytes);
     expect(pdf.numpages).toBe(1);

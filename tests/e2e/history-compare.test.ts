@@ -46,16 +46,17 @@ describe('journey: compare two revisions from the History', () => {
     expect(await changes.getByRole('listitem').count()).toBe(1);
 
     const outputs = page.getByRole('region', { name: 'What now moves differently' });
-    const rows = outputs.getByRole('row').filter({ hasText: 'wing' });
+    const rows = outputs.getByRole('row').filter({ has: page.getByRole('cell', { name: 'wing', exact: true }) });
     expect(await rows.count()).toBe(1);
     const cells = await rows.first().getByRole('cell').allTextContents();
-    // Receiver, pin, channel, before, after (the arrow before "after" is drawn, not read out).
+    // Receiver, pin, channel, link, before, after (the arrow before "after" is drawn, not read out).
     expect(cells.map((cell) => cell.replace(/\s+/g, ' ').replace('->', '').trim())).toEqual([
       'wing',
       '1',
       '9',
-      '988 us',
-      '1500 us',
+      'wing lost',
+      '988 us (failsafe)',
+      '1500 us (failsafe)',
     ]);
     await saveScreenshot(page, 'journey-05-compare');
     expectNoProblems(visit);

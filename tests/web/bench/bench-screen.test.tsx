@@ -49,7 +49,14 @@ describe('Bench', () => {
     async () => {
       await openBench();
       // Pin, channel, function, pulse now, failsafe.
-      expect(cells(pinRow('Fuselage receiver (blue tape)', 1))).toEqual(['1', '1', 'aileron-left', '1500', '1500 us']);
+      expect(cells(pinRow('Fuselage receiver (blue tape)', 1))).toEqual([
+        '1',
+        '1',
+        'aileron-left',
+        '1500',
+        'live',
+        '1500 us',
+      ]);
 
       fireEvent.change(screen.getByRole('slider', { name: 'aileron-stick' }), { target: { value: '100' } });
 
@@ -70,34 +77,114 @@ describe('Bench', () => {
     await waitFor(() => expect(cells(pinRow('Fuselage receiver (blue tape)', 1))[3]).toBe('1800'));
   });
 
-  it('shows the motor cut by the arm switch and the failsafe pulses when the link is lost', SLOW, async () => {
-    const { user } = await openBench();
-    fireEvent.change(screen.getByRole('slider', { name: 'throttle-stick' }), { target: { value: '100' } });
-    // Arm switch at position 0: the cut holds the motor at -100 %.
-    expect(cells(pinRow('Fuselage receiver (blue tape)', 3))[3]).toBe('1000');
-    expect(within(screen.getByRole('region', { name: 'Channels' })).getByText('cut on')).toBeInTheDocument();
-
-    await user.click(
-      within(screen.getByRole('group', { name: /^Arm \(guarded\)/ })).getByRole('radio', { name: /Position 1/ }),
-    );
-    await waitFor(() => expect(cells(pinRow('Fuselage receiver (blue tape)', 3))[3]).toBe('2000'));
-
-    await user.click(screen.getByRole('checkbox', { name: 'Simulate link loss' }));
-    expect(cells(pinRow('Fuselage receiver (blue tape)', 3))).toEqual(['3', '3', 'motor', '1000', '1000 us']);
-    expect(cells(pinRow('Fuselage receiver (blue tape)', 5))).toEqual([
-      '5',
-      '5',
-      'gear',
-      '1000(held)',
-      'holds last pulse',
-    ]);
-    expect(cells(pinRow('Wing receiver (red tape)', 7))).toEqual(['7', '15', 'cowl-flaps', '1500', '1500 us']);
-
-    await user.click(screen.getByRole('button', { name: 'Centre all' }));
-    await user.click(screen.getByRole('checkbox', { name: 'Simulate link loss' }));
-    expect(cells(pinRow('Fuselage receiver (blue tape)', 3))[3]).toBe('1000');
-    expect(screen.getByRole('slider', { name: 'throttle-stick' })).toHaveValue('0');
+  it('starts at rest: the throttle stick at its stop, every pin live', SLOW, async () => {
+    await openBench();
+    // Evaluation rule 8 (docs/format.md, second edition): a control feeding a `stop: low`
+    // throttle rests at -100, so the motor pin reads low_us, not the 1500 us of mid stick.
+    expect(screen.getByRole('slider', { name: 'throttle-stick' })).toHaveValue('-100');
+    // Pin, channel, function, pulse, state, failsafe.
+    expect(cells(pinRow('Fuselage receiver (blue tape)', 3))).toEqual(['3', '3', 'motor', '1000', 'live', '1000 us']);
+    expect(screen.getByRole('button', { name: 'Put everything at rest' })).toBeDisabled();
   });
+
+  it(
+    "shows the motor cut by the arm switch, then every pin's failsafe when every receiver loses the link",
+    SLOW,
+    async () => {
+      const { user } = await openBench();
+      fireEvent.change(screen.getByRole('slider', { name: 'throttle-stick' }), { target: { value: '100' } });
+      // Arm switch at position 0: the cut holds the motor at -100 %.
+      expect(cells(pinRow('Fuselage receiver (blue tape)', 3))[3]).toBe('1000');
+      expect(within(screen.getByRole('region', { name: 'Channels' })).getByText('cut on')).toBeInTheDocument();
+
+      await user.click(
+        within(screen.getByRole('group', { name: /^Arm \(guarded\)/ })).getByRole('radio', { name: /Position 1/ }),
+      );
+      await waitFor(() => expect(cells(pinRow('Fuselage receiver (blue tape)', 3))[3]).toBe('2000'));
+
+      await user.click(screen.getByRole('button', { name: 'Lose every receiver' }));
+      expect(cells(pinRow('Fuselage receiver (blue tape)', 3))).toEqual([
+        '3',
+        '3',
+        'motor',
+        '1000',
+        'failsafe (1000 us)',
+        '1000 us',
+      ]);
+      // Gear holds: the pulse it had when the link went (the switch at position 0, 1000 us).
+      expect(cells(pinRow('Fuselage receiver (blue tape)', 5))).toEqual([
+        '5',
+        '5',
+        'gear',
+        '1000',
+        'held',
+        'holds last pulse',
+      ]);
+      expect(cells(pinRow('Wing receiver (red tape)', 7))).toEqual([
+        '7',
+        '15',
+        'cowl-flaps',
+        '1500',
+        'failsafe (1500 us)',
+        '1500 us',
+      ]);
+      expect(screen.getByRole('checkbox', { name: 'Wing receiver (red tape) loses the link' })).toBeChecked();
+
+      await user.click(screen.getByRole('button', { name: 'Bring the link back' }));
+      await user.click(screen.getByRole('button', { name: 'Put everything at rest' }));
+      expect(cells(pinRow('Fuselage receiver (blue tape)', 3))[3]).toBe('1000');
+      expect(cells(pinRow('Fuselage receiver (blue tape)', 3))[4]).toBe('live');
+      expect(screen.getByRole('slider', { name: 'throttle-stick' })).toHaveValue('-100');
+    },
+  );
+
+  it('loses one receiver while the other keeps the link and follows the sticks', SLOW, async () => {
+    const { user } = await openBench();
+    fireEvent.change(screen.getByRole('slider', { name: 'aileron-stick' }), { target: { value: '100' } });
+    fireEvent.change(screen.getByRole('slider', { name: 'rudder-stick' }), { target: { value: '100' } });
+    await user.click(screen.getByRole('checkbox', { name: 'Wing receiver (red tape) loses the link' }));
+
+    // The wing unit sends its failsafes: the tailwheel's pin 1 goes to 1500 us though the rudder is at full.
+    expect(cells(pinRow('Wing receiver (red tape)', 1))).toEqual([
+      '1',
+      '9',
+      'tailwheel',
+      '1500',
+      'failsafe (1500 us)',
+      '1500 us',
+    ]);
+    // The fuselage unit keeps the link: full aileron still gives 2000 us on its pin 1.
+    expect(cells(pinRow('Fuselage receiver (blue tape)', 1))).toEqual([
+      '1',
+      '1',
+      'aileron-left',
+      '2000',
+      'live',
+      '1500 us',
+    ]);
+    expect(screen.getByText(/has lost the link/)).toHaveTextContent(
+      /Wing receiver \(red tape\) has lost the link.*The other receivers keep the link/,
+    );
+    expect(screen.getByRole('button', { name: 'Lose every receiver' })).toBeInTheDocument();
+  });
+
+  it(
+    'says "no pulses" for a pin set to stop pulses and "receiver default" for one with no failsafe',
+    SLOW,
+    async () => {
+      const yaml = demoSetup
+        .replace('{ pin: 8, ch: 8, failsafe: 1500 }', '{ pin: 8, ch: 8, failsafe: off }')
+        .replace('{ pin: 7, ch: 7, failsafe: 1500 }', '{ pin: 7, ch: 7 }');
+      const { user } = await openBench([stored(7, yaml, 'Pins 7 and 8 left to the unit')]);
+      await user.click(screen.getByRole('checkbox', { name: 'Fuselage receiver (blue tape) loses the link' }));
+      expect(cells(pinRow('Fuselage receiver (blue tape)', 8)).slice(3)).toEqual(['none', 'no pulses', 'stops pulses']);
+      expect(cells(pinRow('Fuselage receiver (blue tape)', 7)).slice(3)).toEqual([
+        'none',
+        'receiver default (not known)',
+        'receiver default',
+      ]);
+    },
+  );
 
   it('draws each mix as a curve with the stick position marked', SLOW, async () => {
     await openBench();

@@ -111,3 +111,97 @@ describe('Compare', () => {
     expect(server.called('GET', '/api/compare/text')).toHaveLength(1);
   });
 });
+
+describe('Compare: what now moves differently', () => {
+  const demo = fixtureText('valid/scale-16-channel-two-receivers.yaml');
+
+  function openPair(before: string, after: string, extra: Record<string, unknown> = {}) {
+    const model = modelRecord('Kestrel Mk II', [before, after]);
+    const routes = modelRoutes([model]);
+    const compare = routes['GET /api/compare'];
+    const server = fakeServer({
+      ...sessionRoutes({ signedIn: true }).routes,
+      ...routes,
+      'GET /api/compare': (request) => {
+        const answer = compare(request) as { body: { data: Record<string, unknown> } };
+        return { body: { data: { ...answer.body.data, ...extra } } };
+      },
+    });
+    renderApp(`/models/${model.id}/compare`);
+    return { model, server };
+  }
+
+  const rowsOf = (table: HTMLElement) =>
+    within(table)
+      .getAllByRole('row')
+      .map((row) =>
+        within(row)
+          .queryAllByRole('cell')
+          .map((cell) => cell.textContent.replace('->', '').trim()),
+      )
+      .filter((cells) => cells.length > 0);
+
+  it('lists the elevator pin when only the elevator expo changed, and plots the curve before and after', async () => {
+    openPair(demo, demo.replace('to: 2, weight: 92, expo: 15 }', 'to: 2, weight: 92, expo: 20 }'));
+    const table = await screen.findByRole('table', { name: /Receiver pins whose output differs/ });
+    const rows = rowsOf(table);
+    // Only the fuselage receiver's pin 2 (channel 2, elevator) moves differently, with the link up,
+    // somewhere inside the stick's travel: expo leaves the ends and the centre where they were.
+    expect(rows.length).toBeGreaterThan(0);
+    expect(
+      rows.every(([receiver, pin, channel, link]) => [receiver, pin, channel, link].join() === 'fuselage,2,2,up'),
+    ).toBe(true);
+
+    const plot = await screen.findByRole('img', { name: 'Mix elevator to channel 2: before and after' });
+    const figure = within(plot.closest('figure')!);
+    const numbers = figure.getByRole('table', { name: /Mix elevator to channel 2: before and after, output/ });
+    const at50 = within(numbers)
+      .getAllByRole('row')
+      .find((row) => within(row).queryByRole('rowheader')?.textContent === '+50')!;
+    // weight 92: 92 * (0.85 * 0.5 + 0.15 * 0.125) = 40.8 % before, 92 * (0.8 * 0.5 + 0.2 * 0.125) = 39.1 % after [expo-cubic]
+    expect(
+      within(at50)
+        .getAllByRole('cell')
+        .map((cell) => cell.textContent),
+    ).toEqual(['+40.8', '+39.1']);
+  });
+
+  it('plots a changed low rate at the rate switch’s position 1 only', async () => {
+    const low60 = demo;
+    const low65 = demo.replaceAll('weights: [100, 60]', 'weights: [100, 65]');
+    openPair(low65, low60);
+    const plot = await screen.findByRole('img', {
+      name: 'Mix ail-left to channel 1, rate-switch at position 1: before and after',
+    });
+    expect(plot).toBeInTheDocument();
+    expect(screen.queryByRole('img', { name: /rate-switch at position 0/ })).not.toBeInTheDocument();
+    const table = screen.getByRole('table', { name: /Receiver pins whose output differs/ });
+    // The position names the rate switch, so the pilot can put it there on the bench.
+    expect(within(table).getAllByRole('columnheader', { name: /rate-switch at position 1/ }).length).toBeGreaterThan(0);
+  });
+
+  it('names the lost receiver when a failsafe changed', async () => {
+    openPair(demo, demo.replace('{ pin: 1, ch: 9,  failsafe: 1500 }', '{ pin: 1, ch: 9,  failsafe: 1000 }'));
+    const table = await screen.findByRole('table', { name: /Receiver pins whose output differs/ });
+    expect(rowsOf(table)).toEqual([['wing', '1', '9', 'wing lost', '1500 us (failsafe)', '1000 us (failsafe)']]);
+    expect(within(table).getByRole('columnheader', { name: /Wing receiver \(red tape\) lost/ })).toBeInTheDocument();
+  });
+
+  it('shows the checks between the two revisions when the compare lists them', async () => {
+    openPair(demo, demo.replace('{ pin: 1, ch: 9,  failsafe: 1500 }', '{ pin: 1, ch: 9,  failsafe: 1000 }'), {
+      change_findings: [
+        {
+          rule: 'failsafe-meaning-changed',
+          severity: 'warning',
+          path: 'receivers[id=wing].map[pin=1].failsafe',
+          message: 'Channel 9’s travel changed but wing pin 1 still fails safe to 1000 us.',
+          hint: 'Work the failsafe out again for the new travel.',
+        },
+      ],
+    });
+    const panel = await screen.findByRole('region', { name: 'Between these revisions (1)' });
+    expect(panel).toHaveTextContent('still fails safe to 1000 us');
+    expect(panel).toHaveTextContent('failsafe-meaning-changed');
+    expect(panel).toHaveTextContent('receivers[id=wing].map[pin=1].failsafe');
+  });
+});

@@ -1,5 +1,6 @@
 import { screen, within } from '@testing-library/react';
 import { analyzeSetup } from '../../../shared/analyze';
+import { sheetCut, sheetLinkLoss } from '../../../shared/contract/field-sheet';
 import type { FieldSheet } from '../../../web/features/field-sheet/types';
 import { fakeServer, sessionRoutes } from '../fake-server';
 import { fixtureText, modelRecord, modelRoutes } from '../models/model-data';
@@ -38,7 +39,7 @@ function sheetOf(revision: (typeof kestrel.revisions)[number]): FieldSheet {
       role: channel.role,
       side: channel.side ?? null,
       reverse: channel.travel.reverse,
-      cut: null,
+      cut: channel.cut ? sheetCut(channel.cut, setup) : null,
     })),
     receivers: setup.receivers.map((receiver) => ({
       id: receiver.id,
@@ -52,6 +53,7 @@ function sheetOf(revision: (typeof kestrel.revisions)[number]): FieldSheet {
         function: plan.get(entry.ch)?.function ?? null,
         role: plan.get(entry.ch)?.role ?? null,
         failsafe: entry.failsafe ?? null,
+        link_loss: sheetLinkLoss(entry.failsafe),
       })),
       unit:
         receiver.id === 'wing'
@@ -89,7 +91,19 @@ describe('Field sheet', () => {
       within(pin3)
         .getAllByRole('cell')
         .map((cell) => cell.textContent),
-    ).toEqual(['3', '11', 'landing-light', 'hold']);
+    ).toEqual(['3', '11', 'landing-light', 'hold', 'held']);
+    const fuselage = screen.getByRole('table', { name: /Pins of Fuselage receiver/ });
+    // Pin 3 drives the motor: with the link lost it sends its 1000 us failsafe.
+    expect(
+      within(within(fuselage).getAllByRole('row')[3])
+        .getAllByRole('cell')
+        .map((cell) => cell.textContent),
+    ).toEqual(['3', '3', 'motor', '1000 us', '1000 us']);
+    // The cut names its switch, position and value, not just that there is one.
+    expect(screen.getByRole('table', { name: /^Channels 1 to/ })).toHaveTextContent(
+      'cut: Arm (guarded) (motor-arm) at position 0 holds it at -100 %',
+    );
+    expect(screen.getByRole('region', { name: /Wing receiver/ })).toHaveTextContent(/Re-binding can clear/);
     expect(screen.getByRole('region', { name: /Wing receiver/ })).toHaveTextContent('Unit: Kestrel wing unitRed tape');
     expect(screen.getByRole('region', { name: /Fuselage receiver/ })).toHaveTextContent(
       'Unit: none on the shelf is installed here',

@@ -77,6 +77,10 @@ describe('A unit’s page', () => {
     expect(within(list).getByText('Telemetry: on, switch it off')).toBeInTheDocument();
     // A preview is a list to read, not yet a list to tick.
     expect(within(list).queryByRole('checkbox')).not.toBeInTheDocument();
+    // Binding the unit to this transmitter may reset what it stores, so the list is checked again after.
+    expect(screen.getByText(/Re-binding a unit can clear its stored settings/)).toHaveTextContent(
+      'check the settings listed here again after binding',
+    );
     expect(screen.getByRole('region', { name: 'Cautions before programming or flying' })).toHaveTextContent(
       'not a certification',
     );

@@ -1,6 +1,6 @@
 import type { PinOutput } from '../../../shared/evaluate/evaluate';
 
-/** What a pin does when the link is lost, in the words the bench and the sheet use. */
+/** What a pin is set to do when its receiver loses the link, in the words the bench and the sheet use. */
 export function failsafeWords(failsafe: PinOutput['failsafe']): string {
   if (failsafe === null) return 'receiver default';
   if (failsafe === 'hold') return 'holds last pulse';
@@ -8,10 +8,17 @@ export function failsafeWords(failsafe: PinOutput['failsafe']): string {
   return `${failsafe} us`;
 }
 
-/** The pin's pulse with the link lost: a set pulse, the held one, none, or the unit's own choice. */
-export function pulseOnLinkLoss(pin: PinOutput): { pulse: number | null; note: string | null } {
-  if (typeof pin.failsafe === 'number') return { pulse: pin.failsafe, note: null };
-  if (pin.failsafe === 'hold') return { pulse: pin.pulse_us, note: 'held' };
-  if (pin.failsafe === 'off') return { pulse: null, note: 'no pulse' };
-  return { pulse: null, note: 'receiver default' };
+export type PinStateKind = 'live' | 'failsafe' | 'held' | 'no-pulses' | 'receiver-default';
+
+/**
+ * What a pin is doing now (evaluation rule 9): following the controls while its
+ * receiver has the link; once lost, sending its failsafe pulse, holding the pulse it
+ * had, sending nothing (`off`), or whatever the unit itself was set to (unset).
+ */
+export function pinState(pin: PinOutput, lost: boolean): { kind: PinStateKind; words: string } {
+  if (!lost) return { kind: 'live', words: 'live' };
+  if (pin.failsafe === 'hold') return { kind: 'held', words: 'held' };
+  if (pin.failsafe === 'off') return { kind: 'no-pulses', words: 'no pulses' };
+  if (pin.failsafe === null) return { kind: 'receiver-default', words: 'receiver default (not known)' };
+  return { kind: 'failsafe', words: `failsafe (${pin.failsafe} us)` };
 }

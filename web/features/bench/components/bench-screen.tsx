@@ -4,6 +4,7 @@ import { controlsById, switchPositionOf } from '../../../../shared/evaluate/cont
 import { evaluate, mixIsActive, mixWeight, valueOf } from '../../../../shared/evaluate/evaluate';
 import { expoCurve } from '../../../../shared/evaluate/expo-curve';
 import { mixCurve } from '../../../../shared/evaluate/mix-curve';
+import { restPositions } from '../../../../shared/evaluate/rest';
 import { setupSchema, type Setup } from '../../../../shared/format/schema';
 import { Button } from '../../../components/ui/button';
 import { EmptyState } from '../../../components/ui/empty-state';
@@ -17,6 +18,7 @@ import { useRevision } from '../../models/api/get-revision';
 import type { Revision, SetupModelView } from '../../models/types';
 import { ChannelTable } from './channel-table';
 import { ControlPanel, controlName, type Positions } from './control-panel';
+import { LinkPanel, receiverName } from './link-panel';
 import { MixCurvePlot } from './mix-curve-plot';
 import { ReceiverPins } from './receiver-pins';
 import { RevisionPicker } from './revision-picker';
@@ -95,12 +97,22 @@ function BenchForRevision({ model, revision }: { model: SetupModelView; revision
   return <Bench key={revision.id} setup={parsed.data} />;
 }
 
+/** The link in words: who has lost it, what their pins do, and that the others still follow the controls. */
+function linkStatus(lostNames: readonly string[], receivers: number): string {
+  if (lostNames.length === 0) return 'Every receiver has the link: every pin follows the controls.';
+  const one = lostNames.length === 1;
+  const others = lostNames.length < receivers ? ' The other receivers keep the link and follow the controls.' : '';
+  return `${lostNames.join(' and ')} ${one ? 'has' : 'have'} lost the link: ${one ? 'its' : 'their'} pins send their failsafe; a pin that holds keeps the pulse it had, and a receiver default is whatever the unit was set to, which Bindery does not know.${others}`;
+}
+
 function Bench({ setup }: { setup: Setup }) {
-  const [positions, setPositions] = useState<Positions>({});
-  const [linkLost, setLinkLost] = useState(false);
+  // The bench starts at rest (evaluation rule 8): a throttle stick at its stop, not at mid stick.
+  const rest = useMemo(() => restPositions(setup), [setup]);
+  const [positions, setPositions] = useState<Positions>(rest);
+  const [lost, setLost] = useState<ReadonlySet<string>>(new Set());
 
   const controls = useMemo(() => controlsById(setup.controls), [setup]);
-  const outputs = useMemo(() => evaluate(setup, positions), [setup, positions]);
+  const outputs = useMemo(() => evaluate(setup, positions, lost), [setup, positions, lost]);
   const functions = useMemo(() => {
     const byCh = new Map<number, string>();
     for (const channel of setup.channels) if (!byCh.has(channel.ch)) byCh.set(channel.ch, channel.function);
@@ -136,15 +148,19 @@ function Bench({ setup }: { setup: Setup }) {
       }),
     [setup, controls, positions],
   );
-  const moved = Object.values(positions).some((value) => value !== 0);
+  const atRest = setup.controls.every((control) => (positions[control.id] ?? 0) === (rest[control.id] ?? 0));
+  const lostNames = setup.receivers.filter((receiver) => lost.has(receiver.id)).map(receiverName);
 
   return (
     <div className="space-y-6">
       <div className="grid gap-6 md:grid-cols-[16rem_minmax(0,1fr)] lg:grid-cols-[20rem_minmax(0,1fr)]">
         <div className="space-y-3">
-          <Button variant="secondary" className="w-full" disabled={!moved} onClick={() => setPositions({})}>
-            Centre all
+          <Button variant="secondary" className="min-h-11 w-full" disabled={atRest} onClick={() => setPositions(rest)}>
+            Put everything at rest
           </Button>
+          <p className="text-xs text-ink-700">
+            At rest: each throttle at its stop, the other sticks and knobs centred, every switch at position 0.
+          </p>
           <ControlPanel
             controls={setup.controls}
             positions={positions}
@@ -155,26 +171,13 @@ function Bench({ setup }: { setup: Setup }) {
       </div>
 
       <section aria-labelledby="bench-receivers" className="space-y-3">
-        <div className="flex flex-wrap items-center justify-between gap-3">
-          <h2 id="bench-receivers" className="text-xl font-semibold text-ink-900">
-            Receiver pins
-          </h2>
-          <label className="flex cursor-pointer items-center gap-2 rounded-md border border-ply-500 bg-paper-raised px-3 py-1.5 text-sm font-medium text-ink-900 has-checked:border-caution-700 has-checked:bg-caution-100">
-            <input
-              type="checkbox"
-              checked={linkLost}
-              onChange={(event) => setLinkLost(event.target.checked)}
-              className="h-4 w-4 accent-caution-700"
-            />
-            Simulate link loss
-          </label>
-        </div>
-        {linkLost && (
-          <p role="status" className="text-sm text-ink-700">
-            The link is lost: each pin shows its failsafe pulse. A pin that holds keeps the pulse it had; a receiver
-            default is whatever the unit was set to, which Bindery does not know.
-          </p>
-        )}
+        <h2 id="bench-receivers" className="text-xl font-semibold text-ink-900">
+          Receiver pins
+        </h2>
+        <LinkPanel receivers={setup.receivers} lost={lost} onChange={setLost} />
+        <p role="status" className="text-sm text-ink-700">
+          {linkStatus(lostNames, setup.receivers.length)}
+        </p>
         <div className="grid gap-4 lg:grid-cols-2">
           {setup.receivers.map((receiver, index) => (
             <ReceiverPins
@@ -182,7 +185,6 @@ function Bench({ setup }: { setup: Setup }) {
               receiver={receiver}
               output={outputs.receivers[index]}
               functions={functions}
-              linkLost={linkLost}
             />
           ))}
         </div>

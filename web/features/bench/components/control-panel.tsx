@@ -40,7 +40,7 @@ function ProportionalControl({
         value={value}
         onChange={(event) => onChange(Number(event.target.value))}
         onDoubleClick={() => onChange(0)}
-        className="mt-1 block w-full accent-accent-700"
+        className="mt-1 block h-11 w-full accent-accent-700"
         aria-valuetext={`${signed(value)} percent`}
       />
       <p className="flex justify-between text-xs text-ink-500" aria-hidden="true">
@@ -75,7 +75,7 @@ function SwitchControl({
             <label
               key={p}
               className={cx(
-                'flex flex-1 cursor-pointer flex-col items-center border-ply-500 px-2 py-1 text-sm not-first:border-l has-focus-visible:outline-3 has-focus-visible:outline-accent-600',
+                'flex min-h-11 flex-1 cursor-pointer flex-col items-center justify-center border-ply-500 px-2 py-1 text-sm not-first:border-l has-focus-visible:outline-3 has-focus-visible:outline-accent-600',
                 checked ? 'bg-accent-700 font-semibold text-white' : 'bg-paper-raised text-ink-900 hover:bg-ply-100',
               )}
             >

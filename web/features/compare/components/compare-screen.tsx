@@ -12,7 +12,9 @@ import { TimeAgo } from '../../models/components/time-ago';
 import type { SetupModelView } from '../../models/types';
 import { patchDownloadUrl, useComparison, useTextDiff } from '../api/get-comparison';
 import type { CompareResult, CompareSideSummary } from '../types';
+import { ChangeFindingsPanel } from '../../findings/components/change-findings-panel';
 import { ChangeList, KindCounts } from './change-list';
+import { ChangedCurvesView } from './changed-curves-view';
 import { FindingsDeltaView } from './findings-delta';
 import { OutputsDeltaTable } from './outputs-delta-table';
 import { RevisionPicker, type RevisionGroup } from './revision-picker';
@@ -255,16 +257,20 @@ function Result({ model, result, stale }: { model: SetupModelView; result: Compa
         <FindingsDeltaView delta={result.findings_delta} toModelId={model.id} toIsLatest={toIsLatest} />
       </Section>
 
+      <ChangeFindingsPanel findings={result.change_findings} />
+
       <Section
         id="outputs-delta-heading"
         title="What now moves differently"
         aside={
           <p className="text-sm text-ink-700">
-            At rest, each stick and knob at both ends, each switch in each position, and on signal loss.
+            Along each stick and knob, in each position of the switches the changed mixes use, and with each receiver
+            lost in turn.
           </p>
         }
       >
         <OutputsDeltaTable deltas={result.outputs_delta} />
+        <ChangedCurvesView fromId={result.from.id} toId={result.to.id} />
       </Section>
 
       <Section id="text-heading" title="The YAML text">

@@ -2,9 +2,20 @@ import { Fragment } from 'react';
 import type { OutputDelta } from '../../../../shared/diff';
 import { Card } from '../../../components/ui/card';
 
-function pulseText(value: OutputDelta['before_us'], kind: OutputDelta['kind']): string {
-  if (value === null) return kind === 'failsafe' ? 'no pulses (off or receiver default)' : 'no output';
-  return `${value} us`;
+type Failsafe = OutputDelta['failsafe_before'];
+
+/**
+ * What the pin sends on one side, in words. With its receiver lost, a null pulse is
+ * either no pulses (`off`) or the receiver's own default (no failsafe set), and a held
+ * pulse says that it is held.
+ */
+function sideText(value: number | null, kind: OutputDelta['kind'], failsafe: Failsafe): string {
+  if (kind === 'pulse') return value === null ? 'no output' : `${value} us`;
+  if (failsafe === 'hold') return value === null ? 'held (no pin)' : `${value} us (held)`;
+  if (failsafe === 'off') return 'no pulses';
+  if (failsafe === null || failsafe === undefined)
+    return value === null ? 'receiver default (not known)' : `${value} us`;
+  return `${value ?? failsafe} us (failsafe)`;
 }
 
 function channelText(delta: OutputDelta): string {
@@ -12,7 +23,15 @@ function channelText(delta: OutputDelta): string {
   return `${delta.ch_before ?? '—'} -> ${delta.ch_after ?? '—'}`;
 }
 
-/** "What now moves differently": the pins whose pulse differs at a standard position, or whose failsafe does. */
+function linkText(delta: OutputDelta): string {
+  return delta.position.lost.length === 0 ? 'up' : `${delta.position.lost.join(', ')} lost`;
+}
+
+/**
+ * "What now moves differently": each pin that sends something else in the newer
+ * revision, grouped by the position where it does (controls and link state; a
+ * position with a receiver lost names it).
+ */
 export function OutputsDeltaTable({ deltas }: { deltas: OutputDelta[] | null }) {
   if (deltas === null) {
     return (
@@ -25,7 +44,7 @@ export function OutputsDeltaTable({ deltas }: { deltas: OutputDelta[] | null }) 
   if (deltas.length === 0) {
     return (
       <p className="rounded-lg border border-ply-200 bg-paper-raised px-4 py-3 text-base text-ink-700">
-        Every pin outputs the same pulses at every standard position, and fails safe the same way.
+        Every pin sends the same pulse at every position of the controls, with the link up and with each receiver lost.
       </p>
     );
   }
@@ -35,7 +54,7 @@ export function OutputsDeltaTable({ deltas }: { deltas: OutputDelta[] | null }) 
   return (
     <Card className="overflow-x-auto">
       <table className="w-full text-left text-base">
-        <caption className="sr-only">Receiver pins whose output differs, by control position</caption>
+        <caption className="sr-only">Receiver pins whose output differs, by control position and link state</caption>
         <thead className="border-b border-ply-200 text-sm text-ink-700">
           <tr>
             <th scope="col" className="px-4 py-2 font-medium">
@@ -46,6 +65,9 @@ export function OutputsDeltaTable({ deltas }: { deltas: OutputDelta[] | null }) 
             </th>
             <th scope="col" className="px-3 py-2 font-medium">
               Channel
+            </th>
+            <th scope="col" className="px-3 py-2 font-medium">
+              Link
             </th>
             <th scope="col" className="px-3 py-2 font-medium">
               Before
@@ -61,7 +83,7 @@ export function OutputsDeltaTable({ deltas }: { deltas: OutputDelta[] | null }) 
               <tr className="bg-paper">
                 <th
                   scope="colgroup"
-                  colSpan={5}
+                  colSpan={6}
                   className="border-y border-ply-200 px-4 py-1.5 text-sm font-semibold text-ink-900"
                 >
                   {label}
@@ -76,12 +98,15 @@ export function OutputsDeltaTable({ deltas }: { deltas: OutputDelta[] | null }) 
                   <td className="px-4 py-2 font-mono text-sm">{delta.receiver}</td>
                   <td className="px-3 py-2 font-mono text-sm">{delta.pin}</td>
                   <td className="px-3 py-2 font-mono text-sm">{channelText(delta)}</td>
-                  <td className="px-3 py-2 font-mono text-sm text-ink-700">{pulseText(delta.before_us, delta.kind)}</td>
+                  <td className="px-3 py-2 text-sm">{linkText(delta)}</td>
+                  <td className="px-3 py-2 font-mono text-sm text-ink-700">
+                    {sideText(delta.before_us, delta.kind, delta.failsafe_before)}
+                  </td>
                   <td className="px-3 py-2 font-mono text-sm font-medium text-ink-900">
                     <span aria-hidden="true" className="mr-1 text-ink-500">
                       -&gt;
                     </span>
-                    {pulseText(delta.after_us, delta.kind)}
+                    {sideText(delta.after_us, delta.kind, delta.failsafe_after)}
                   </td>
                 </tr>
               ))}

@@ -1,3 +1,4 @@
+import { REBIND_NOTE_SHEET } from '../../../../shared/reuse/rebind-note';
 import { ReviewStateBadge } from '../../../components/ui/badge';
 import { CautionsPanel } from '../../cautions/components/cautions-panel';
 import { FindingsList } from '../../findings/components/findings-list';
@@ -90,7 +91,9 @@ export function FieldSheet({ sheet }: { sheet: Sheet }) {
                     <td className="py-1 pr-2">{channel.function}</td>
                     <td className="py-1 pr-2">{channel.side ? `${channel.role} (${channel.side})` : channel.role}</td>
                     <td className="py-1 text-ink-700">
-                      {[channel.reverse && 'reversed', channel.cut && `cut: ${channel.cut}`].filter(Boolean).join(', ')}
+                      {[channel.reverse && 'reversed', channel.cut && `cut: ${channel.cut.words}`]
+                        .filter(Boolean)
+                        .join(', ')}
                     </td>
                   </tr>
                 ))}
@@ -116,6 +119,7 @@ export function FieldSheet({ sheet }: { sheet: Sheet }) {
                 <span className="inline-flex flex-wrap items-center gap-x-2">
                   Unit: <strong className="font-semibold">{receiver.unit.label}</strong>
                   <MarkLabel mark={receiver.unit.mark} colour={receiver.unit.mark_colour} />
+                  <span className="text-ink-700">{REBIND_NOTE_SHEET}</span>
                 </span>
               ) : (
                 <span className="text-ink-700">Unit: none on the shelf is installed here</span>

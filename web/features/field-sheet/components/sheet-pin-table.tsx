@@ -4,7 +4,9 @@ import type { SheetReceiver } from '../types';
 export function SheetPinTable({ receiver }: { receiver: SheetReceiver }) {
   return (
     <table className="w-full text-left text-sm">
-      <caption className="sr-only">Pins of {receiver.label ?? receiver.id}: channel, function and failsafe</caption>
+      <caption className="sr-only">
+        Pins of {receiver.label ?? receiver.id}: channel, function, failsafe and what it does when the link is lost
+      </caption>
       <thead className="border-b border-ply-300 text-xs text-ink-700">
         <tr>
           <th scope="col" className="py-1 pr-2 font-medium">
@@ -16,15 +18,18 @@ export function SheetPinTable({ receiver }: { receiver: SheetReceiver }) {
           <th scope="col" className="py-1 pr-2 font-medium">
             Function
           </th>
-          <th scope="col" className="py-1 font-medium">
+          <th scope="col" className="py-1 pr-2 font-medium">
             Failsafe
+          </th>
+          <th scope="col" className="py-1 font-medium">
+            Link lost
           </th>
         </tr>
       </thead>
       <tbody className="divide-y divide-ply-200">
         {receiver.pins.length === 0 ? (
           <tr>
-            <td colSpan={4} className="py-1 text-ink-700">
+            <td colSpan={5} className="py-1 text-ink-700">
               No pins mapped
             </td>
           </tr>
@@ -34,7 +39,10 @@ export function SheetPinTable({ receiver }: { receiver: SheetReceiver }) {
               <td className="py-1 pr-2 font-mono">{pin.pin}</td>
               <td className="py-1 pr-2 font-mono">{pin.ch}</td>
               <td className="py-1 pr-2">{pin.function ?? <span className="text-ink-500">no plan entry</span>}</td>
-              <td className="py-1 font-mono">{describeFailsafe(pin.failsafe)}</td>
+              <td className="py-1 pr-2 font-mono">{describeFailsafe(pin.failsafe)}</td>
+              <td className={pin.link_loss.kind === 'receiver-default' ? 'py-1 text-caution-700' : 'py-1'}>
+                {pin.link_loss.words}
+              </td>
             </tr>
           ))
         )}

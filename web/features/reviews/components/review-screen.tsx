@@ -10,6 +10,7 @@ import { ChangeList, KindCounts } from '../../compare/components/change-list';
 import { FindingsDeltaView } from '../../compare/components/findings-delta';
 import { OutputsDeltaTable } from '../../compare/components/outputs-delta-table';
 import { TextDiffView } from '../../compare/components/text-diff-view';
+import { ChangeFindingsPanel } from '../../findings/components/change-findings-panel';
 import { FindingsList } from '../../findings/components/findings-list';
 import { CheckBadges } from '../../models/components/check-badges';
 import { TimeAgo } from '../../models/components/time-ago';
@@ -106,6 +107,11 @@ function ReviewPage({ review }: { review: ReviewDetail }) {
                     />
                   </div>
                 </details>
+                <ChangeFindingsPanel
+                  findings={review.compare.change_findings}
+                  level={3}
+                  className="mt-3 rounded-lg border border-ply-200 bg-paper-raised px-4 py-3"
+                />
                 <details className="mt-3 rounded-lg border border-ply-200 bg-paper-raised px-4 py-3">
                   <summary className="cursor-pointer font-medium text-ink-900">Which pins now move differently</summary>
                   <div className="mt-3">

@@ -1,4 +1,5 @@
 import { useState, type ReactNode } from 'react';
+import { REBIND_NOTE } from '../../../../shared/reuse/rebind-note';
 import type { ReuseChange } from '../../../../shared/reuse/reuse-check';
 import { Badge } from '../../../components/ui/badge';
 import { CheckIcon, ErrorIcon, InfoIcon, WarningIcon } from '../../../components/ui/icons';
@@ -107,6 +108,11 @@ export function ReuseChecklist({ check, tickable = false, action }: ReuseCheckli
           </ul>
         </fieldset>
       )}
+
+      <p className="flex items-start gap-2 text-base text-ink-700">
+        <InfoIcon className="mt-1 shrink-0 text-info-700" />
+        <span>{REBIND_NOTE}</span>
+      </p>
 
       {others.length > 0 && (
         <ul className="space-y-1.5">
