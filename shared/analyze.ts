@@ -9,7 +9,7 @@ export interface Analysis {
   /** False only when the YAML cannot be parsed at all or its root is not a mapping. */
   readable: boolean;
   /** The plain value of the YAML, unknown keys kept; null when unreadable. */
-  data: unknown | null;
+  data: unknown;
   /** The schema-valid setup with defaults applied; null when there are schema errors. */
   setup: Setup | null;
   /** Sorted by line, then column; accepted ones carry `accepted` (their reason). */

@@ -1,12 +1,12 @@
 import type { Sequelize, Transaction } from 'sequelize';
-import { Forbidden, Unprocessable } from '../errors';
+import { Unprocessable } from '../errors';
 import { appLink } from '../mail/context';
 import type { MailService } from '../mail/mail-service';
 import { verdictMail } from '../mail/messages';
 import { ChecklistTick, Review, ReviewVerdict, User } from '../models';
 import type { Verdict } from '../models/ReviewVerdict';
 import { PRE_MAIDEN_CHECKLIST } from '../reviews/checklist';
-import { contributorsOf } from '../reviews/contributors';
+import { approvalRefusal } from '../reviews/approval-refusal';
 import { reviewStateFromVerdicts } from '../reviews/sign-off';
 import type { ReviewAccess } from '../policies/review';
 import { recordAuditEvent } from './record-audit-event';
@@ -36,32 +36,6 @@ export async function setTicks(
       await ChecklistTick.destroy({ where: { reviewId: review.id, item }, transaction });
     }
   }
-}
-
-/** Why this user may not approve this revision, if they may not. */
-export async function approvalRefusal(
-  access: Pick<ReviewAccess, 'review'>,
-  user: User,
-): Promise<Forbidden | Unprocessable | null> {
-  const { revision } = access.review;
-  if (revision.authorId === user.id) {
-    return new Forbidden('Nobody approves their own revision: ask another reviewer to sign it off.', {
-      code: 'own-revision',
-    });
-  }
-  if ((await contributorsOf(revision)).has(user.id)) {
-    return new Forbidden(
-      `You wrote part of what revision ${revision.number} would sign off (a revision since the last approved setup, or one with this same content), so you cannot approve it: ask another reviewer.`,
-      { code: 'own-change' },
-    );
-  }
-  if (revision.errorCount > 0) {
-    return new Unprocessable(
-      `Revision ${revision.number} has ${revision.errorCount} check error${revision.errorCount === 1 ? '' : 's'}; a revision with errors cannot be approved. Ask for changes instead.`,
-      { code: 'has-errors', details: { errors: revision.errorCount } },
-    );
-  }
-  return null;
 }
 
 /**

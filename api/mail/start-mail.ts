@@ -38,7 +38,7 @@ export async function startMail(
         from: settings.from,
         appUrl: settings.appUrl,
         outboxEnabled: false,
-        wake: delivery.wake,
+        wake: () => delivery.wake(),
       }),
       delivery,
       description: `Mail goes out through ${settings.host}:${settings.port}.`,
@@ -56,6 +56,7 @@ export async function startMail(
     if (code === 'EADDRINUSE')
       throw new Error(
         `MAIL_PORT ${settings.port} on 127.0.0.1 is already in use: stop what uses it or set MAIL_PORT to another port.`,
+        { cause: error },
       );
     throw error;
   }
@@ -66,7 +67,7 @@ export async function startMail(
       from: settings.from,
       appUrl: settings.appUrl,
       outboxEnabled: true,
-      wake: delivery.wake,
+      wake: () => delivery.wake(),
     }),
     delivery,
     description: `Mail is caught by the local mail server on ${server.host}:${server.port}; read it on the Outbox screen.`,

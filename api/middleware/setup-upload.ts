@@ -28,12 +28,14 @@ const YAML_NAME = /\.ya?ml$/i;
 const TEXT_TYPES = /^(text\/[a-z0-9.+-]+|application\/(x-)?yaml)$/i;
 const UNKNOWN_TYPES = /^(application\/octet-stream)?$/i;
 
-function uploadError(error: unknown): unknown {
+function uploadError(error: unknown): Error {
   if (!(error instanceof MulterError)) {
     // busboy's own complaints (a cut-off body, a broken part header) are the client's.
     return error instanceof Error && !('status' in error)
       ? new BadRequest(`The upload could not be read: ${error.message}.`, { code: 'malformed-upload' })
-      : error;
+      : error instanceof Error
+        ? error
+        : new Error('The upload could not be read.', { cause: error });
   }
   switch (error.code) {
     case 'LIMIT_FILE_SIZE':

@@ -2,7 +2,7 @@ import { writeFile } from 'node:fs/promises';
 import path from 'node:path';
 import { SLUG_PATTERN } from '../../shared/format/schema';
 import { TooLarge, Unprocessable } from '../errors';
-import { message as messageField } from '../routes/model-inputs';
+import { message as messageField } from '../model-fields';
 import { parseCommitMessage } from './commit-message';
 import { SETUP_FILE } from './export-history';
 import { GitError, withGit, type Git } from './git-cli';

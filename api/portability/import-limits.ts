@@ -18,7 +18,7 @@ export const MAX_IMPORT_TAGS = 10_000;
 export const MAX_SETUP_BYTES = MAX_TEXT_BYTES;
 /** All distinct setup texts together, which the import holds while it checks them. */
 export const MAX_IMPORT_TEXT_BYTES = 32 * 1024 * 1024;
-/** A revision message, as for a save (api/routes/model-inputs.ts). */
+/** A revision message, as for a save (api/model-fields.ts). */
 export const MAX_MESSAGE_CHARS = 2000;
 /**
  * A whole commit object (headers, message, Bindery's trailers, a signature): far more

@@ -1,5 +1,5 @@
 import type { Sequelize } from 'sequelize';
-import { modelName } from '../routes/model-inputs';
+import { modelName } from '../model-fields';
 import { insertModelWithFirstRevision } from '../commands/create-model';
 import { recordAuditEvent } from '../commands/record-audit-event';
 import { appendRevision, checkSetupText, type CheckedSetup, type LockedModel } from '../commands/save-revision';

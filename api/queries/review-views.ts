@@ -1,9 +1,8 @@
 import { Op, QueryTypes } from 'sequelize';
 import { compareRevisions } from '../../shared/diff';
-import type { Finding } from '../../shared/findings';
-import { approvalRefusal } from '../commands/give-verdict';
 import { ChecklistTick, Review, ReviewComment, ReviewVerdict, Revision, SetupModel, User } from '../models';
 import type { ReviewAccess } from '../policies/review';
+import { approvalRefusal } from '../reviews/approval-refusal';
 import { REVIEW_POLICY } from '../policies/review';
 import { roleAtLeast } from '../../shared/contract/roles';
 import {

@@ -49,7 +49,8 @@ const signInSchema = z.object({
 });
 
 function accountKey(req: Request): string | null {
-  const email: unknown = req.body?.email;
+  const body: unknown = req.body;
+  const email = typeof body === 'object' && body !== null ? (body as { email?: unknown }).email : undefined;
   return typeof email === 'string' && email.trim().length > 0 ? email.trim().toLowerCase() : null;
 }
 

@@ -1,6 +1,5 @@
 import { Router } from 'express';
 import { findingsDelta, textDiff } from '../../shared/diff';
-import type { Finding } from '../../shared/findings';
 import type { AppContext } from '../context';
 import { authenticate } from '../middleware/authenticate';
 import { Revision, User } from '../models';
@@ -58,7 +57,7 @@ export function compareRouter({ sequelize, config }: AppContext): Router {
     const head = JSON.stringify({
       from: side(from),
       to: side(to),
-      findings_delta: findingsDelta(from.revision.findings as Finding[], to.revision.findings as Finding[]),
+      findings_delta: findingsDelta(from.revision.findings, to.revision.findings),
     });
     // The cached part is an object's JSON text; it joins the head's object unparsed.
     res.type('application/json').send(`{"data":${head.slice(0, -1)},${content.slice(1)}}`);

@@ -28,7 +28,11 @@ async function sessionOf(user: User) {
 async function isSignedIn(check: RequestHandler, req: Request, res: Response): Promise<boolean> {
   try {
     await new Promise<void>((resolve, reject) => {
-      Promise.resolve(check(req, res, (error?: unknown) => (error ? reject(error) : resolve()))).catch(reject);
+      const done = (error?: unknown) =>
+        error
+          ? reject(error instanceof Error ? error : new Error('The session check failed.', { cause: error }))
+          : resolve();
+      Promise.resolve(check(req, res, done)).catch(reject);
     });
     return true;
   } catch (error) {

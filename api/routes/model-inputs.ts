@@ -1,21 +1,11 @@
-import { SINGLE_LINE_MESSAGE, singleLine } from '../validation';
 import { z } from 'zod';
 import { AIRFRAMES, SLUG_PATTERN } from '../../shared/format/schema';
 
 // Input shapes shared by the model, revision and upload routes.
 
-export const modelName = z
-  .string({ error: 'Give the model a name.' })
-  .trim()
-  .min(1, 'Give the model a name.')
-  .max(80, 'Keep the name to 80 characters.')
-  .refine(singleLine, SINGLE_LINE_MESSAGE);
+import { message, modelName } from '../model-fields';
 
-export const message = z
-  .string({ error: 'A message is text.' })
-  .trim()
-  .max(2000, 'Keep the message to 2000 characters.')
-  .regex(/^[^\u0000]*$/, 'A message cannot contain NUL characters.');
+export { message, modelName };
 
 const revisionNumber = (field: string) =>
   z

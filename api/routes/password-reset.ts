@@ -17,7 +17,8 @@ const ACCEPTED =
 const WINDOW_MS = 15 * 60 * 1000;
 
 function emailKey(req: Request): string | null {
-  const email: unknown = req.body?.email;
+  const body: unknown = req.body;
+  const email = typeof body === 'object' && body !== null ? (body as { email?: unknown }).email : undefined;
   return typeof email === 'string' && email.trim().length > 0 ? email.trim().toLowerCase() : null;
 }
 

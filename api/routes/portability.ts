@@ -31,7 +31,7 @@ const parser = multer({
   defParamCharset: 'utf8',
 }).single('file');
 
-function uploadError(error: unknown): unknown {
+function uploadError(error: unknown): Error {
   if (error instanceof MulterError) {
     if (error.code === 'LIMIT_FILE_SIZE')
       return new TooLarge(`The file is larger than ${MAX_BUNDLE_BYTES / 1024 / 1024} MB.`, {
@@ -44,7 +44,9 @@ function uploadError(error: unknown): unknown {
   }
   return error instanceof Error && !('status' in error)
     ? new BadRequest(`The upload could not be read: ${error.message}.`, { code: 'malformed-upload' })
-    : error;
+    : error instanceof Error
+      ? error
+      : new Error('The upload could not be read.', { cause: error });
 }
 
 const HEADER_LINE = /^(?:[0-9a-f]{40}|[0-9a-f]{64}) \S+$/;

@@ -76,10 +76,7 @@ export function receiversRouter({ sequelize, config }: AppContext): Router {
         ],
       });
     }
-    if (status)
-      conditions.push(
-        literal(status === 'installed' ? OPEN_INSTALL : `NOT ${OPEN_INSTALL}`),
-      );
+    if (status) conditions.push(literal(status === 'installed' ? OPEN_INSTALL : `NOT ${OPEN_INSTALL}`));
     const { rows, count } = await Receiver.findAndCountAll({
       where: { [Op.and]: conditions },
       order: [

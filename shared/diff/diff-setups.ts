@@ -38,7 +38,7 @@ class Walker {
     if (!isPlainObject(delta) || isArrayDelta(delta)) return;
     for (const key of Object.keys(delta)) {
       const section = sectionOf(key);
-      const child = (delta)[key];
+      const child = delta[key];
       const match = this.matches.lists.get(key);
       if (match && isArrayDelta(child)) {
         this.list(child, left[key] as unknown[], right[key] as unknown[], key, match, {
@@ -101,10 +101,7 @@ class Walker {
     }
     for (const key of Object.keys(delta)) {
       const name = decodeKey(key);
-      this.value((delta)[key], at(left, key), at(right, key), `${path}.${name}`, subject, [
-        ...field,
-        name,
-      ]);
+      this.value(delta[key], at(left, key), at(right, key), `${path}.${name}`, subject, [...field, name]);
     }
   }
 

@@ -51,7 +51,7 @@ function copy(value: unknown, options: CopyOptions, seen: Set<object>): unknown 
   seen.add(object);
   try {
     if (Array.isArray(object)) return object.map((item) => copy(item, options, seen) ?? null);
-    const result: PlainObject = options.bare ? Object.create(null) : {};
+    const result: PlainObject = options.bare ? (Object.create(null) as PlainObject) : {};
     for (const [key, item] of Object.entries(object)) {
       const plain = copy(item, options, seen);
       if (plain !== undefined) setOwn(result, options.key(key), plain);

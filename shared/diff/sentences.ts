@@ -1,3 +1,4 @@
+import { plainText } from '../parse/plain-text';
 import { isPlainObject, type PlainObject } from './plain';
 import { quotePair, quoteText } from './quote-text';
 import type { ChangeKind, Section } from './types';
@@ -140,7 +141,7 @@ function text(value: unknown): string {
     const entries = Object.entries(value);
     return entries.length === 0 ? 'empty' : entries.map(([key, item]) => `${key} ${text(item)}`).join(', ');
   }
-  return String(value);
+  return plainText(value);
 }
 
 function isNumeric(value: unknown): boolean {

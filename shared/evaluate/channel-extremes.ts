@@ -72,10 +72,7 @@ function extremeX(a: number, b: number, sign: number): number {
         best = atRoot;
         bestX = root;
       }
-      if (-atRoot > best + 1e-12) {
-        best = -atRoot;
-        bestX = -root;
-      }
+      if (-atRoot > best + 1e-12) bestX = -root;
     }
   }
   return bestX;

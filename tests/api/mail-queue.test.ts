@@ -53,7 +53,7 @@ function localMailer(sent: string[] = []): Mailer {
   // Counts what really went over SMTP, to see that no message is sent twice.
   return {
     send: async (message) => (await mailer.send(message), void sent.push(message.messageId)),
-    close: mailer.close,
+    close: () => mailer.close(),
   };
 }
 

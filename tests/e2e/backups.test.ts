@@ -40,7 +40,7 @@ describe('journey: back up the workspace and import a kept history', () => {
     ]);
     expect(download.suggestedFilename()).toMatch(/-workspace\.bundle$/);
     expect(
-      readFileSync((await download.path())!)
+      readFileSync(await download.path())
         .subarray(0, 16)
         .toString('latin1'),
     ).toMatch(/^# v[23] git bundle\n/);

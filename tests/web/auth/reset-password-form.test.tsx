@@ -1,5 +1,5 @@
 import { screen } from '@testing-library/react';
-import { apiError, fakeServer } from '../fake-server';
+import { fakeServer } from '../fake-server';
 import { renderApp } from '../render-app';
 
 describe('Reset password request', () => {

@@ -1,3 +1,4 @@
+import { plainText } from '../../../shared/parse/plain-text';
 import {
   CHANGE_KINDS,
   SECTIONS,
@@ -74,7 +75,7 @@ function flow(value: unknown): string {
     const entries = Object.entries(value as Record<string, unknown>).map(([key, item]) => `${key}: ${flow(item)}`);
     return entries.length === 0 ? '{}' : `{ ${entries.join(', ')} }`;
   }
-  return String(value);
+  return plainText(value);
 }
 
 /** A before or after value in one line: plain values as they are, entries in flow style, long ones cut short. */

@@ -30,7 +30,7 @@ export function CreateAccountForm() {
     signUp.mutate(
       { email: values.email.trim(), name: values.name.trim(), password: values.password },
       {
-        onSuccess: (session) => navigate(landingPath(session, null), { replace: true }),
+        onSuccess: (session) => void navigate(landingPath(session, null), { replace: true }),
         onError: (error) => refuse(formErrorsFrom(error, FIELDS)),
       },
     );

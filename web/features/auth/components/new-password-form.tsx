@@ -43,7 +43,7 @@ export function NewPasswordForm({ token }: { token: string }) {
       return refuse({ fields: { repeat: 'The two passwords differ. Type the same one twice.' }, general: null });
     clear();
     confirm.mutate(password, {
-      onSuccess: (session) => navigate(landingPath(session, null), { replace: true }),
+      onSuccess: (session) => void navigate(landingPath(session, null), { replace: true }),
       onError: (error) => refuse(formErrorsFrom(error, FIELDS)),
     });
   };

@@ -28,7 +28,7 @@ export function SignInForm() {
     signIn.mutate(
       { email: email.trim(), password },
       {
-        onSuccess: (session) => navigate(landingPath(session, params.get('next')), { replace: true }),
+        onSuccess: (session) => void navigate(landingPath(session, params.get('next')), { replace: true }),
         onError: (error) => refuse(formErrorsFrom(error, FIELDS)),
       },
     );

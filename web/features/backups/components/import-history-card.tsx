@@ -23,15 +23,13 @@ export function ImportHistoryCard({ workspace }: { workspace: WorkspaceMembershi
   const [problem, setProblem] = useState<string | null>(null);
   const [jobId, setJobId] = useState<string | null>(null);
   const upload = useUploadHistory();
-  const job = useImportJob(workspace.id, jobId);
   const editor = canEdit(workspace.role);
   const recent = useRecentImports(workspace.id, editor);
   const queryClient = useQueryClient();
   // Back on the screen while an import is still going: follow it again.
   const newest = recent.data?.[0];
-  useEffect(() => {
-    if (jobId === null && newest && !jobEnded(newest)) setJobId(newest.id);
-  }, [jobId, newest]);
+  const followed = jobId ?? (newest && !jobEnded(newest) ? newest.id : null);
+  const job = useImportJob(workspace.id, followed);
   const ended = job.data ? jobEnded(job.data) : false;
   useEffect(() => {
     if (ended) void queryClient.invalidateQueries({ queryKey: recentImportsQueryKey(workspace.id), exact: true });
@@ -92,7 +90,7 @@ export function ImportHistoryCard({ workspace }: { workspace: WorkspaceMembershi
         {job.data && <ImportProgress job={job.data} />}
         {job.isError && <FormAlert>How the import is going could not be read just now; it goes on on the server.</FormAlert>}
       </div>
-      <RecentImports jobs={(recent.data ?? []).filter((earlier) => earlier.id !== jobId).slice(0, 5)} />
+      <RecentImports jobs={(recent.data ?? []).filter((earlier) => earlier.id !== followed).slice(0, 5)} />
     </Card>
   );
 }

@@ -22,7 +22,7 @@ export function ForkDialog({
     source: { modelId: model.id, modelName: model.name, number: revision.number },
     onForked: (created, source) => {
       toast({ title: `${created.model.name} created`, description: `Revision 1 is a copy of ${source}.` });
-      navigate(`/models/${created.model.id}/overview`);
+      void navigate(`/models/${created.model.id}/overview`);
     },
   });
   return (

@@ -89,7 +89,9 @@ function History({ model }: { model: SetupModelView }) {
         <Button
           size="sm"
           disabled={!pair}
-          onClick={() => pair && navigate(`/models/${model.id}/compare${compareSearch(pair.from, pair.to)}`)}
+          onClick={() => {
+            if (pair) void navigate(`/models/${model.id}/compare${compareSearch(pair.from, pair.to)}`);
+          }}
         >
           {pair ? `Compare r${pair.from.number} with r${pair.to.number}` : 'Compare'}
         </Button>

@@ -26,7 +26,7 @@ export function InvitationScreen() {
   const accept = useAcceptInvitation(token);
   // Accepting signs in and reloads the session; the page keeps the view it had until
   // the hangar opens, instead of flipping to "you are already a member".
-  const shown = useRef<{ session: Session | null; signedOut: boolean } | null>(null);
+  const [shown, setShown] = useState<{ session: Session | null; signedOut: boolean } | null>(null);
 
   if (invitation.isPending || me.isPending) {
     return (
@@ -47,10 +47,11 @@ export function InvitationScreen() {
     );
   }
   const preview = invitation.data;
-  if (!(accept.isPending || accept.isSuccess) || !shown.current) {
-    shown.current = { session: me.isSuccess ? me.data : null, signedOut: me.isError && isUnauthorized(me.error) };
-  }
-  const { session, signedOut } = shown.current;
+  const now = { session: me.isSuccess ? me.data : null, signedOut: me.isError && isUnauthorized(me.error) };
+  const accepting = accept.isPending || accept.isSuccess;
+  // Remember the view while not accepting (state set during render, guarded so it settles).
+  if (!accepting && (shown?.session !== now.session || shown?.signedOut !== now.signedOut)) setShown(now);
+  const { session, signedOut } = accepting && shown ? shown : now;
 
   return (
     <AuthLayout
