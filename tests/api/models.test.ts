@@ -137,11 +137,11 @@ describe('GET /api/workspaces/:ws/models (the hangar)', () => {
     ]);
     expect(body.pagination).toEqual({ limit: 100, offset: 0, total: 4 });
     const kestrel = body.data[1];
-    const errors = analyzeSetup(fixture('pairs/remap-second-receiver.before.yaml')).counts.errors;
+    const { counts } = analyzeSetup(fixture('pairs/remap-second-receiver.before.yaml'));
     expect(kestrel.latest).toMatchObject({
       number: 2,
-      error_count: errors,
-      warning_count: 0,
+      error_count: counts.errors,
+      warning_count: counts.warnings,
       message: 'Wing receiver bound',
       author: { name: 'Hangar keeper' },
     });
