@@ -7,6 +7,7 @@ import * as receivers from './0004-receivers';
 import * as reviews from './0005-reviews';
 import * as mailQueue from './0006-mail-queue';
 import * as revokedSessions from './0007-revoked-sessions';
+import * as rateLimits from './0008-rate-limits';
 
 export interface MigrationModule {
   up: MigrationFn<MigrationContext>;
@@ -23,4 +24,5 @@ export const migrations: { name: string; module: MigrationModule }[] = [
   { name: '0005-reviews', module: reviews },
   { name: '0006-mail-queue', module: mailQueue },
   { name: '0007-revoked-sessions', module: revokedSessions },
+  { name: '0008-rate-limits', module: rateLimits },
 ];
