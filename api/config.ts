@@ -5,8 +5,10 @@ import { parseCorsOrigins } from './security/cors';
 
 export interface SignInLimits {
   windowMs: number;
-  /** failed attempts allowed per e-mail address within the window */
+  /** failed attempts allowed per e-mail address from one client address within the window */
   perAccount: number;
+  /** failed attempts allowed per e-mail address from all client addresses together (higher) */
+  perAccountAnyAddress: number;
   /** attempts allowed per client address within the window */
   perAddress: number;
 }
@@ -39,7 +41,7 @@ export function defaultConfig(overrides: Partial<AppConfig> & { jwtSecret: strin
     cookieSecure: false,
     trustProxy: false,
     jsonLimit: '600kb',
-    signInLimits: { windowMs: 15 * 60 * 1000, perAccount: 10, perAddress: 50 },
+    signInLimits: { windowMs: 15 * 60 * 1000, perAccount: 10, perAccountAnyAddress: 100, perAddress: 50 },
     webDir: null,
     logErrors: true,
     corsOrigins: [],
@@ -89,6 +91,11 @@ export function configFromEnv(env: NodeJS.ProcessEnv, options: { dataDir: string
     signInLimits: {
       windowMs: positiveInt(env.SIGN_IN_WINDOW_MS, base.signInLimits.windowMs, 'SIGN_IN_WINDOW_MS'),
       perAccount: positiveInt(env.SIGN_IN_LIMIT_PER_ACCOUNT, base.signInLimits.perAccount, 'SIGN_IN_LIMIT_PER_ACCOUNT'),
+      perAccountAnyAddress: positiveInt(
+        env.SIGN_IN_LIMIT_PER_ACCOUNT_ANY_ADDRESS,
+        base.signInLimits.perAccountAnyAddress,
+        'SIGN_IN_LIMIT_PER_ACCOUNT_ANY_ADDRESS',
+      ),
       perAddress: positiveInt(env.SIGN_IN_LIMIT_PER_ADDRESS, base.signInLimits.perAddress, 'SIGN_IN_LIMIT_PER_ADDRESS'),
     },
     webDir: options.webDir,

@@ -6,7 +6,10 @@
 // (pg_ctl -m immediate, like a crash) and started again. Afterwards the database is
 // checked against what the clients were told: every save answered 201 is there with
 // its content hash, numbers are gapless, each revision's parent is the one before it,
-// and no revision row is partial. Prints the figures; exits 1 when a check fails.
+// and no revision row is partial. Some clients invite members, so the mail queue runs
+// through the outage too; the report counts its rows (delivered, retried, pending,
+// failed) and every invitation answered 201 must have its mail queued. Prints the
+// figures; exits 1 when a check fails.
 // SOAK_SECONDS, SOAK_CLIENTS and SOAK_OUTAGE_SECONDS change the run's shape.
 import { spawn, type ChildProcess } from 'node:child_process';
 import { randomBytes } from 'node:crypto';
@@ -39,12 +42,13 @@ const MODELS = 8;
 const HISTORY_PER_MODEL = 40;
 const REQUEST_TIMEOUT_MS = 15_000;
 
-type Kind = 'hangar' | 'history' | 'compare' | 'save';
+type Kind = 'hangar' | 'history' | 'compare' | 'save' | 'invite';
 const MIX: [Kind, number][] = [
   ['hangar', 25],
   ['history', 25],
   ['compare', 20],
-  ['save', 30],
+  ['save', 25],
+  ['invite', 5],
 ];
 
 interface Sample {
@@ -79,7 +83,7 @@ async function startApi(
 ): Promise<{ url: string; child: ChildProcess; jwtSecret: string }> {
   const jwtSecret = randomBytes(32).toString('hex');
   const child = spawn(process.execPath, ['--import', 'tsx', bench], {
-    env: { ...process.env, BENCH_DATABASE_URL: databaseUrl, BENCH_JWT_SECRET: jwtSecret },
+    env: { ...process.env, BENCH_DATABASE_URL: databaseUrl, BENCH_JWT_SECRET: jwtSecret, BENCH_MAIL: '1' },
     stdio: ['ignore', 'pipe', 'pipe'],
   });
   child.stderr.pipe(createWriteStream(logFile));
@@ -118,7 +122,8 @@ async function seed(sequelize: Sequelize): Promise<{ user: User; workspace: Work
     passwordHash: 'not-a-password-hash',
   });
   const workspace = await Workspace.create({ name: 'Soak field' });
-  await Membership.create({ workspaceId: workspace.id, userId: user.id, role: 'editor' });
+  // The owner, so the soak can invite members and queue mail.
+  await Membership.create({ workspaceId: workspace.id, userId: user.id, role: 'owner' });
   const models: SetupModel[] = [];
   for (let index = 0; index < MODELS; index++) {
     const { model } = await createModel(sequelize, {
@@ -171,6 +176,7 @@ async function runLoad(api: string, headers: Record<string, string>, workspaceId
   const deadline = start + DURATION_MS;
   let variant = 1_000_000;
   let conflicts = 0;
+  let invited = 0;
 
   async function timed(
     kind: Kind,
@@ -210,6 +216,14 @@ async function runLoad(api: string, headers: Record<string, string>, workspaceId
       else if (kind === 'compare') {
         const ids = revisionIds.get(model.id)!;
         await timed(kind, `${api}/api/compare?from=${pick(ids)}&to=${pick(ids)}`);
+      } else if (kind === 'invite') {
+        const email = `soak-invitee-${randomBytes(5).toString('hex')}@soak.example`;
+        const response = await timed(kind, `${api}/api/workspaces/${workspaceId}/invitations`, {
+          method: 'POST',
+          headers: { 'Content-Type': 'application/json' },
+          body: JSON.stringify({ email, role: 'viewer' }),
+        });
+        if (response?.status === 201) invited++;
       } else {
         const yaml = demoVariant(variant++);
         const response = await timed(kind, `${api}/api/models/${model.id}/revisions`, {
@@ -232,7 +246,7 @@ async function runLoad(api: string, headers: Record<string, string>, workspaceId
   }
 
   await Promise.all(Array.from({ length: CLIENTS }, () => client()));
-  return { samples, saved, conflicts, start, elapsedMs: performance.now() - start };
+  return { samples, saved, conflicts, invited, start, elapsedMs: performance.now() - start };
 }
 
 async function verify(sequelize: Sequelize, saved: SavedAnswer[], modelIds: string[]) {
@@ -292,10 +306,48 @@ async function verify(sequelize: Sequelize, saved: SavedAnswer[], modelIds: stri
   };
 }
 
+interface MailQueue {
+  rows: number;
+  delivered: number;
+  /** Rows that needed more than one attempt, delivered or not. */
+  retried: number;
+  pending: number;
+  failed: number;
+}
+
+/** The outbox table once the delivery loop has had up to 30 s to send what is due. */
+async function mailQueue(sequelize: Sequelize): Promise<MailQueue> {
+  const count = async (): Promise<MailQueue> => {
+    const [row] = await sequelize.query<Record<keyof MailQueue, string>>(
+      `SELECT count(*) AS rows,
+              count(*) FILTER (WHERE state = 'delivered') AS delivered,
+              count(*) FILTER (WHERE attempts > 1) AS retried,
+              count(*) FILTER (WHERE state = 'pending') AS pending,
+              count(*) FILTER (WHERE state = 'failed') AS failed
+         FROM outbox`,
+      { type: QueryTypes.SELECT },
+    );
+    return {
+      rows: Number(row.rows),
+      delivered: Number(row.delivered),
+      retried: Number(row.retried),
+      pending: Number(row.pending),
+      failed: Number(row.failed),
+    };
+  };
+  for (let waited = 0; waited < 30_000; waited += 500) {
+    const queue = await count();
+    if (queue.pending === 0) return queue;
+    await new Promise((resolve) => setTimeout(resolve, 500));
+  }
+  return count();
+}
+
 function report(
   load: Awaited<ReturnType<typeof runLoad>>,
   outage: Outage,
   checks: Awaited<ReturnType<typeof verify>>,
+  mail: MailQueue,
   extra: { recoveryMs: number | null; apiAlive: boolean; loggedUnexpected: number },
 ) {
   const { samples, elapsedMs } = load;
@@ -350,6 +402,14 @@ function report(
   line('partial revision rows', checks.partial);
   line('revisions without their audit entry', checks.unaudited);
   line('rows no client heard 201 for', `${checks.unanswered} (committed, then the answer was lost)`);
+
+  console.log('\nMail queue afterwards (outbox table):');
+  line('invitations answered 201', load.invited);
+  line('mail rows', mail.rows);
+  line('delivered', mail.delivered);
+  line('retried (more than one attempt)', mail.retried);
+  line('pending after 30 s', mail.pending);
+  line('failed', mail.failed);
 }
 
 async function main(): Promise<number> {
@@ -401,7 +461,8 @@ async function main(): Promise<number> {
     );
     const logged = readFileSync(logFile, 'utf8');
     const loggedUnexpected = (logged.match(/\[internal-error\]/g) ?? []).length;
-    report(load, outage, checks, { recoveryMs, apiAlive, loggedUnexpected });
+    const mail = await mailQueue(sequelize);
+    report(load, outage, checks, mail, { recoveryMs, apiAlive, loggedUnexpected });
 
     const failures = [
       load.samples.some((sample) => sample.status === 500) && 'some requests answered 500',
@@ -413,6 +474,7 @@ async function main(): Promise<number> {
       checks.partial > 0 && 'partial revision rows',
       checks.unaudited > 0 && 'revisions without their audit entry',
       load.saved.length === 0 && 'no save succeeded',
+      mail.rows < load.invited && 'invitations answered 201 without their mail queued',
     ].filter(Boolean);
     console.log(failures.length === 0 ? '\nSoak passed.' : `\nSoak FAILED: ${failures.join('; ')}.`);
     return failures.length === 0 ? 0 : 1;

@@ -7,6 +7,7 @@ import * as receivers from './0004-receivers';
 import * as reviews from './0005-reviews';
 import * as mailQueue from './0006-mail-queue';
 import * as revokedSessions from './0007-revoked-sessions';
+import * as rateLimits from './0008-rate-limits';
 import * as importJobs from './0010-import-jobs';
 import * as compareCache from './0012-compare-cache';
 
@@ -25,6 +26,7 @@ export const migrations: { name: string; module: MigrationModule }[] = [
   { name: '0005-reviews', module: reviews },
   { name: '0006-mail-queue', module: mailQueue },
   { name: '0007-revoked-sessions', module: revokedSessions },
+  { name: '0008-rate-limits', module: rateLimits },
   { name: '0010-import-jobs', module: importJobs },
   { name: '0012-compare-cache', module: compareCache },
 ];

@@ -8,6 +8,7 @@ import type { AppContext } from '../context';
 import { RateLimited } from '../errors';
 import { authenticate, currentUser } from '../middleware/authenticate';
 import { presentUser } from '../presenters/user';
+import { PostgresRateLimitStore } from '../security/postgres-rate-limit-store';
 import { parseInput } from '../validation';
 import { passwordField } from './team-inputs';
 
@@ -21,7 +22,7 @@ const changePasswordSchema = z.strictObject({
 
 // A stolen session must not become a way to guess the password: wrong current
 // passwords count per account, like failed sign-ins.
-function wrongPasswordLimiter({ config }: AppContext) {
+function wrongPasswordLimiter({ sequelize, config }: AppContext) {
   const { windowMs, perAccount } = config.signInLimits;
   return rateLimit({
     windowMs,
@@ -31,7 +32,8 @@ function wrongPasswordLimiter({ config }: AppContext) {
     skipSuccessfulRequests: true,
     standardHeaders: 'draft-8',
     legacyHeaders: false,
-    keyGenerator: (req) => `password:${currentUser(req).id}`,
+    keyGenerator: (req) => currentUser(req).id,
+    store: new PostgresRateLimitStore(sequelize, 'password-change:account:'),
     handler: (req: Request, _res: Response, next: NextFunction) => {
       const reset = (req as AugmentedRequest).rateLimit?.resetTime;
       const retryAfter = reset

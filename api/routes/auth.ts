@@ -1,5 +1,5 @@
 import { Router, type NextFunction, type Request, type Response } from 'express';
-import { rateLimit, type AugmentedRequest, type RateLimitRequestHandler } from 'express-rate-limit';
+import { ipKeyGenerator, rateLimit, type AugmentedRequest, type RateLimitRequestHandler } from 'express-rate-limit';
 import { z } from 'zod';
 import { PASSWORD_MAX_BYTES, PASSWORD_MIN_LENGTH, verifyPassword } from '../auth/passwords';
 import { clearSessionCookie, setSessionCookie } from '../auth/session-cookie';
@@ -9,6 +9,7 @@ import type { AppContext } from '../context';
 import { RateLimited, Unauthorized } from '../errors';
 import { authenticate, currentUser, tokenFrom } from '../middleware/authenticate';
 import { User } from '../models';
+import { PostgresRateLimitStore } from '../security/postgres-rate-limit-store';
 import { presentUser } from '../presenters/user';
 import { SINGLE_LINE_MESSAGE, parseInput, singleLine } from '../validation';
 
@@ -54,11 +55,14 @@ function accountKey(req: Request): string | null {
   return typeof email === 'string' && email.trim().length > 0 ? email.trim().toLowerCase() : null;
 }
 
-// Two limiters: one per account (guessing one user's password from many addresses)
-// and one per client address (trying many accounts). Only failures count, so a pilot
-// who signs in often is never locked out.
-function signInLimiters({ config }: AppContext): RateLimitRequestHandler[] {
-  const { windowMs, perAccount, perAddress } = config.signInLimits;
+// Three counters of failed attempts, all in PostgreSQL: per client address (trying many
+// accounts); per account and client address (guessing one password), which locks out
+// only the address doing the guessing; and per account from all addresses, higher, so
+// a guesser spread over many addresses is still stopped while a stranger's few wrong
+// attempts never lock the owner out from their own address. Only failures count, so a
+// pilot who signs in often is never locked out.
+function signInLimiters({ sequelize, config }: AppContext): RateLimitRequestHandler[] {
+  const { windowMs, perAccount, perAccountAnyAddress, perAddress } = config.signInLimits;
   const common = {
     windowMs,
     skipSuccessfulRequests: true,
@@ -76,13 +80,23 @@ function signInLimiters({ config }: AppContext): RateLimitRequestHandler[] {
       );
     },
   };
+  const store = (prefix: string) => new PostgresRateLimitStore(sequelize, prefix);
+  const noAccount = (req: Request) => accountKey(req) === null;
   return [
-    rateLimit({ ...common, limit: perAddress }),
+    rateLimit({ ...common, limit: perAddress, store: store('sign-in:address:') }),
     rateLimit({
       ...common,
       limit: perAccount,
-      skip: (req) => accountKey(req) === null,
-      keyGenerator: (req) => `account:${accountKey(req)}`,
+      skip: noAccount,
+      keyGenerator: (req) => `${accountKey(req)} ${ipKeyGenerator(req.ip ?? '')}`,
+      store: store('sign-in:account-address:'),
+    }),
+    rateLimit({
+      ...common,
+      limit: perAccountAnyAddress,
+      skip: noAccount,
+      keyGenerator: (req) => `${accountKey(req)}`,
+      store: store('sign-in:account:'),
     }),
   ];
 }

@@ -8,6 +8,7 @@ import type { AppContext } from '../context';
 import { RateLimited } from '../errors';
 import { mailFor } from '../mail/context';
 import { presentUser } from '../presenters/user';
+import { PostgresRateLimitStore } from '../security/postgres-rate-limit-store';
 import { parseInput } from '../validation';
 import { resetConfirmSchema, resetRequestSchema } from './team-inputs';
 
@@ -25,7 +26,7 @@ function emailKey(req: Request): string | null {
 // Reset mail on demand would let anyone flood an inbox; a few per address and per
 // client within a window is plenty for a pilot who lost a password. Counted whether
 // or not an account exists, so the limit itself tells nothing.
-function resetLimiters() {
+function resetLimiters({ sequelize }: AppContext) {
   const common = {
     windowMs: WINDOW_MS,
     standardHeaders: 'draft-8' as const,
@@ -41,12 +42,13 @@ function resetLimiters() {
     },
   };
   return [
-    rateLimit({ ...common, limit: 30 }),
+    rateLimit({ ...common, limit: 30, store: new PostgresRateLimitStore(sequelize, 'password-reset:address:') }),
     rateLimit({
       ...common,
       limit: 5,
       skip: (req) => emailKey(req) === null,
-      keyGenerator: (req) => `reset:${emailKey(req)}`,
+      keyGenerator: (req) => `${emailKey(req)}`,
+      store: new PostgresRateLimitStore(sequelize, 'password-reset:account:'),
     }),
   ];
 }
@@ -55,7 +57,7 @@ export function passwordResetRouter(context: AppContext): Router {
   const { sequelize, config } = context;
   const router = Router();
 
-  router.post('/auth/password-reset', ...resetLimiters(), async (req, res) => {
+  router.post('/auth/password-reset', ...resetLimiters(context), async (req, res) => {
     const { email } = parseInput(resetRequestSchema, req.body);
     await requestPasswordReset(sequelize, config, mailFor(context), email);
     res.status(202).json({ data: { message: ACCEPTED } });

@@ -13,34 +13,92 @@ beforeAll(async () => {
   bruno = await createUser({ email: uniqueEmail('bruno') });
 });
 
-// Each test builds its own app so the limiters' counters start at zero.
-const limitedApp = (perAccount: number, perAddress: number) =>
-  t.appWith({ signInLimits: { windowMs: 60_000, perAccount, perAddress } }).app;
-const attempt = (app: Parameters<typeof request>[0], email: string, password: string) =>
-  request(app).post('/api/auth/sign-in').send({ email, password });
+interface Limits {
+  perAccount: number;
+  perAccountAnyAddress: number;
+  perAddress: number;
+}
+
+// The counters live in PostgreSQL and outlast any one app, so each test signs in from
+// client addresses of its own (behind one trusted proxy, as TRUST_PROXY=1 sets) and
+// with accounts of its own where a count must start at zero.
+let nextAddress = 1;
+const freshAddress = () => `198.51.100.${nextAddress++}`;
+const limitedApp = (limits: Limits) => t.appWith({ trustProxy: 1, signInLimits: { windowMs: 60_000, ...limits } }).app;
+const attempt = (app: Parameters<typeof request>[0], from: string, email: string, password: string) =>
+  request(app).post('/api/auth/sign-in').set('X-Forwarded-For', from).send({ email, password });
 
 describe('sign-in rate limits', () => {
-  it('locks one account after its allowed failures, even for the right password', async () => {
-    const app = limitedApp(3, 100);
-    for (let i = 0; i < 3; i++) await attempt(app, alice.email, 'wrong-password-x').expect(401);
-    const blocked = await attempt(app, alice.email, TEST_PASSWORD).expect(429);
+  it('locks one account at one address after its allowed failures, even for the right password', async () => {
+    const app = limitedApp({ perAccount: 3, perAccountAnyAddress: 100, perAddress: 100 });
+    const from = freshAddress();
+    for (let i = 0; i < 3; i++) await attempt(app, from, alice.email, 'wrong-password-x').expect(401);
+    const blocked = await attempt(app, from, alice.email, TEST_PASSWORD).expect(429);
     expect(blocked.body.error.code).toBe('rate-limited');
     expect(blocked.body.error.details.retry_after_seconds).toBeGreaterThan(0);
     expect(blocked.headers['ratelimit']).toBeDefined();
     // The e-mail is the key whatever its spelling.
-    await attempt(app, alice.email.toUpperCase(), TEST_PASSWORD).expect(429);
-    await attempt(app, bruno.email, TEST_PASSWORD).expect(200);
+    await attempt(app, from, alice.email.toUpperCase(), TEST_PASSWORD).expect(429);
+    await attempt(app, from, bruno.email, TEST_PASSWORD).expect(200);
+  });
+
+  it("does not let a stranger's wrong attempts from another address lock the owner out", async () => {
+    const owner = await createUser({ email: uniqueEmail('owner') });
+    const app = limitedApp({ perAccount: 10, perAccountAnyAddress: 100, perAddress: 50 });
+    const stranger = freshAddress();
+    for (let i = 0; i < 10; i++) await attempt(app, stranger, owner.email, 'wrong-password-x').expect(401);
+    await attempt(app, stranger, owner.email, TEST_PASSWORD).expect(429);
+    await attempt(app, freshAddress(), owner.email, TEST_PASSWORD).expect(200);
+  });
+
+  it('stops a guesser spread over many addresses at the per-account limit', async () => {
+    const target = await createUser({ email: uniqueEmail('target') });
+    const app = limitedApp({ perAccount: 2, perAccountAnyAddress: 4, perAddress: 100 });
+    for (let i = 0; i < 2; i++) {
+      const from = freshAddress();
+      for (let j = 0; j < 2; j++) await attempt(app, from, target.email, 'wrong-password-x').expect(401);
+    }
+    const blocked = await attempt(app, freshAddress(), target.email, TEST_PASSWORD).expect(429);
+    expect(blocked.body.error.code).toBe('rate-limited');
   });
 
   it('limits one address trying many accounts', async () => {
-    const app = limitedApp(100, 4);
-    for (let i = 0; i < 4; i++) await attempt(app, uniqueEmail('guess'), 'wrong-password-x').expect(401);
-    const blocked = await attempt(app, bruno.email, TEST_PASSWORD).expect(429);
+    const app = limitedApp({ perAccount: 100, perAccountAnyAddress: 100, perAddress: 4 });
+    const from = freshAddress();
+    for (let i = 0; i < 4; i++) await attempt(app, from, uniqueEmail('guess'), 'wrong-password-x').expect(401);
+    const blocked = await attempt(app, from, bruno.email, TEST_PASSWORD).expect(429);
     expect(blocked.body.error.code).toBe('rate-limited');
   });
 
   it('does not count successful sign-ins', async () => {
-    const app = limitedApp(2, 2);
-    for (let i = 0; i < 4; i++) await attempt(app, alice.email, TEST_PASSWORD).expect(200);
+    const app = limitedApp({ perAccount: 2, perAccountAnyAddress: 2, perAddress: 2 });
+    const from = freshAddress();
+    for (let i = 0; i < 4; i++) await attempt(app, from, bruno.email, TEST_PASSWORD).expect(200);
+  });
+
+  it('keeps the counts across a new app instance on the same database', async () => {
+    const user = await createUser({ email: uniqueEmail('restart') });
+    const limits = { perAccount: 3, perAccountAnyAddress: 100, perAddress: 100 };
+    const from = freshAddress();
+    const before = limitedApp(limits);
+    for (let i = 0; i < 3; i++) await attempt(before, from, user.email, 'wrong-password-x').expect(401);
+    const after = limitedApp(limits);
+    await attempt(after, from, user.email, TEST_PASSWORD).expect(429);
+  });
+
+  it('starts a count over once its window has passed', async () => {
+    const user = await createUser({ email: uniqueEmail('window') });
+    const app = limitedApp({ perAccount: 2, perAccountAnyAddress: 100, perAddress: 100 });
+    const from = freshAddress();
+    for (let i = 0; i < 2; i++) await attempt(app, from, user.email, 'wrong-password-x').expect(401);
+    await attempt(app, from, user.email, TEST_PASSWORD).expect(429);
+    // Moves this account's windows into the past rather than waiting for them.
+    await t.sequelize.query(`UPDATE rate_limits SET reset_at = now() - interval '1 second' WHERE key LIKE :key`, {
+      replacements: { key: `sign-in:account%${user.email}%` },
+    });
+    await t.sequelize.query(`UPDATE rate_limits SET reset_at = now() - interval '1 second' WHERE key = :key`, {
+      replacements: { key: `sign-in:address:${from}` },
+    });
+    await attempt(app, from, user.email, TEST_PASSWORD).expect(200);
   });
 });

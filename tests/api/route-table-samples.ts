@@ -50,6 +50,8 @@ export interface SampleWorld {
   receiverId: string;
   reviewId: string;
   samples: Record<string, Sample>;
+  /** A link token for an invitation to this address, into the given workspace or a new one of a stranger's. */
+  invitationToken(email: string, workspaceId?: string): Promise<string>;
   userOf(caller: Caller): User | null;
   /** Bearer headers made from the stored user at each call, so ended sessions do not spoil the next call. */
   headersOf(caller: Caller): Promise<Record<string, string>>;
@@ -118,11 +120,11 @@ export async function buildSampleWorld(t: MailTestApp): Promise<SampleWorld> {
     await addMember(roles.workspace, user, 'viewer');
     return user.id;
   };
-  const invitationToken = async (email: string): Promise<string> => {
-    const inviter = await createUser();
-    const workspace = await createWorkspace({ name: fresh('Inviting'), owner: inviter });
+  const invitationToken = async (email: string, workspaceId?: string): Promise<string> => {
+    const inviter = workspaceId ? roles.members.owner : await createUser();
+    const workspace = workspaceId ?? (await createWorkspace({ name: fresh('Inviting'), owner: inviter })).id;
     const invitation = await Invitation.create({
-      workspaceId: workspace.id,
+      workspaceId: workspace,
       email,
       role: 'viewer',
       invitedBy: inviter.id,
@@ -344,5 +346,17 @@ export async function buildSampleWorld(t: MailTestApp): Promise<SampleWorld> {
     'GET /api/receivers/:id/history': async () => ({ url: `/api/receivers/${receiverId}/history` }),
   };
 
-  return { roles, modelId, firstRevisionId, secondRevisionId, receiverId, reviewId, samples, userOf, headersOf, send };
+  return {
+    roles,
+    modelId,
+    firstRevisionId,
+    secondRevisionId,
+    receiverId,
+    reviewId,
+    samples,
+    invitationToken,
+    userOf,
+    headersOf,
+    send,
+  };
 }

@@ -1,7 +1,8 @@
 import { beforeAll, describe, expect, it } from 'vitest';
 import { roleAtLeast } from '../../shared/contract/roles';
 import { registeredRoutes, ROUTE_TABLE, routeKey, type Access } from '../../api/routes/route-table';
-import { useMailTestApp } from './helpers/mail';
+import { uniqueEmail } from './helpers/factories';
+import { mailTo, useMailTestApp } from './helpers/mail';
 import { buildSampleWorld, CALLERS, type Caller, type SampleWorld } from './route-table-samples';
 
 // Generated from api/routes/route-table.ts: every route, called as each role of the
@@ -60,6 +61,46 @@ describe.each(ROUTE_TABLE.map((entry) => [routeKey(entry), entry] as const))('%s
       } else {
         expect(response.status, what).toBe(expected);
       }
+    }
+  });
+});
+
+// Two routes where the role is not the whole answer: the outbox shows each account only
+// its own mail, and an invitation is accepted only under the invited address.
+const SIGNED_IN = CALLERS.filter((caller) => caller !== 'anonymous');
+
+describe('beyond the role: GET /api/outbox', () => {
+  it("shows every signed-in caller only mail to their own address, never another address's", async () => {
+    const stranger = uniqueEmail('stranger');
+    const invitations = `/api/workspaces/${world.roles.workspace.id}/invitations`;
+    const invited = await world.send('POST', { url: invitations, body: { email: stranger, role: 'viewer' } }, 'owner');
+    expect(invited.status).toBe(201);
+    for (const caller of SIGNED_IN) {
+      const body = { email: world.userOf(caller)!.email };
+      expect((await world.send('POST', { url: '/api/auth/password-reset', body }, 'anonymous')).status).toBe(202);
+    }
+    // The stranger's invitation and every reset went through SMTP before anyone looks.
+    expect(await mailTo(stranger)).not.toHaveLength(0);
+
+    for (const caller of SIGNED_IN) {
+      const email = world.userOf(caller)!.email.toLowerCase();
+      const response = await world.send('GET', { url: '/api/outbox?limit=100' }, caller);
+      expect(response.status, `outbox as ${caller}`).toBe(200);
+      const messages: { to: string[]; subject: string }[] = response.body.data;
+      expect(messages.length, `${caller} sees their own reset mail`).toBeGreaterThan(0);
+      for (const message of messages) expect(message.to, `${caller} saw "${message.subject}"`).toContain(email);
+      expect(messages.flatMap((message) => message.to)).not.toContain(stranger.toLowerCase());
+    }
+  });
+});
+
+describe('beyond the role: POST /api/invitations/:token/accept', () => {
+  it('answers 403 wrong-account to a signed-in account with another address, whatever its role', async () => {
+    for (const caller of SIGNED_IN) {
+      const token = await world.invitationToken(uniqueEmail('someone-else'), world.roles.workspace.id);
+      const response = await world.send('POST', { url: `/api/invitations/${token}/accept` }, caller);
+      expect(response.status, `accept as ${caller}`).toBe(403);
+      expect(response.body.error.code).toBe('wrong-account');
     }
   });
 });

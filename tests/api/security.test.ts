@@ -372,7 +372,9 @@ describe('password change and sign-out everywhere end sessions', () => {
   });
 
   it('counts wrong current passwords against a limit, like failed sign-ins', async () => {
-    const { app, config } = t.appWith({ signInLimits: { windowMs: 60_000, perAccount: 2, perAddress: 100 } });
+    const { app, config } = t.appWith({
+      signInLimits: { windowMs: 60_000, perAccount: 2, perAccountAnyAddress: 100, perAddress: 100 },
+    });
     const user = await createUser();
     const headers = bearer(tokenFor(user, config));
     for (let attempt = 0; attempt < 2; attempt++)

@@ -56,7 +56,7 @@ export default async function setup(project: TestProject): Promise<() => Promise
     const config = defaultConfig({
       jwtSecret: randomBytes(32).toString('hex'),
       webDir: webDist,
-      signInLimits: { windowMs: 60_000, perAccount: 50, perAddress: 200 },
+      signInLimits: { windowMs: 60_000, perAccount: 50, perAccountAnyAddress: 200, perAddress: 200 },
     });
     const port = await freePort();
     // Only the local catch: an SMTP_HOST of the caller's must not receive test mail.

@@ -10,7 +10,8 @@ export type AsyncTiming = Timing;
 
 export interface AsyncBenchmark {
   name: string;
-  budgetMs: number;
+  /** Absent for figures printed to compare, not to judge. */
+  budgetMs?: number;
   /** Which figure the budget applies to. */
   budgetOn: 'median' | 'p95';
   measure: () => Promise<AsyncTiming>;
@@ -20,9 +21,12 @@ export async function printAsyncBenchmarks(benchmarks: readonly AsyncBenchmark[]
   for (const benchmark of benchmarks) {
     const timing = await benchmark.measure();
     const figure = benchmark.budgetOn === 'p95' ? timing.p95 : timing.median;
+    const budget =
+      benchmark.budgetMs === undefined
+        ? 'no budget'
+        : `budget (${benchmark.budgetOn}) < ${benchmark.budgetMs} ms: ${figure < benchmark.budgetMs ? 'within' : 'OVER'}`;
     console.log(
-      `${benchmark.name}: median ${timing.median.toFixed(3)} ms, p95 ${timing.p95.toFixed(3)} ms over ${timing.runs} requests; ` +
-        `budget (${benchmark.budgetOn}) < ${benchmark.budgetMs} ms: ${figure < benchmark.budgetMs ? 'within' : 'OVER'}`,
+      `${benchmark.name}: median ${timing.median.toFixed(3)} ms, p95 ${timing.p95.toFixed(3)} ms over ${timing.runs} requests; ${budget}`,
     );
   }
 }

@@ -12,7 +12,7 @@ export function testConfig(overrides: ConfigOverrides = {}): AppConfig {
   return defaultConfig({
     jwtSecret: randomBytes(32).toString('hex'),
     // Tests sign in often; the rate-limit tests set their own low numbers.
-    signInLimits: { windowMs: 60_000, perAccount: 1_000, perAddress: 1_000 },
+    signInLimits: { windowMs: 60_000, perAccount: 1_000, perAccountAnyAddress: 1_000, perAddress: 1_000 },
     logErrors: false,
     ...overrides,
   });
