@@ -8,7 +8,14 @@ export default defineConfig({
     globals: true,
     projects: [
       {
-        test: { name: 'shared', globals: true, environment: 'node', include: ['tests/shared/**/*.test.ts'] },
+        // The command-line and lint tests start processes; a busy machine needs room.
+        test: {
+          name: 'shared',
+          globals: true,
+          environment: 'node',
+          include: ['tests/shared/**/*.test.ts'],
+          testTimeout: 30_000,
+        },
       },
       {
         test: {
