@@ -45,7 +45,9 @@ describe('journey: edit in the text and in the forms, then save', () => {
     // The finding's link selects its line; typing the right channel back clears it.
     await conflict.click();
     await replaceSelection(page, original);
-    await checksPanel(page).getByText('The setup passes every check.').waitFor();
+    await expect
+      .poll(() => checksPanel(page).textContent(), { timeout: 30_000 })
+      .toContain('The setup passes every check.');
     expect(await checksPanel(page).getByText('channel-shared').count()).toBe(0);
 
     await page.getByRole('tab', { name: 'Pin maps' }).click();
@@ -55,7 +57,9 @@ describe('journey: edit in the text and in the forms, then save', () => {
     await pulse.press('Enter');
     await page.getByRole('tab', { name: 'Text' }).click();
     await setupText(page).waitFor();
-    await checksPanel(page).getByText('The setup passes every check.').waitFor();
+    await expect
+      .poll(() => checksPanel(page).textContent(), { timeout: 30_000 })
+      .toContain('The setup passes every check.');
     await saveScreenshot(page, 'journey-03-failsafe-changed', { fullPage: false });
 
     await page.getByRole('button', { name: 'Save revision…' }).click();
