@@ -37,7 +37,7 @@ export class PostgresRateLimitStore implements Store {
        RETURNING hits, reset_at`,
       { replacements: { key: this.prefix + key, windowMs: this.windowMs }, type: QueryTypes.SELECT },
     );
-    return { totalHits: row!.hits, resetTime: new Date(row!.reset_at) };
+    return { totalHits: row.hits, resetTime: new Date(row.reset_at) };
   }
 
   async decrement(key: string): Promise<void> {
