@@ -18,7 +18,7 @@ describe('npm run diff (scripts/cli/diff.ts)', { timeout: 60_000 }, () => {
   it('prints the changes and counts as one JSON object with --json and exits 0', () => {
     const result = run(pairFile('failsafe-fix', 'before'), pairFile('failsafe-fix', 'after'), '--json');
     expect(result.code).toBe(0);
-    expect(JSON.parse(result.stdout)).toEqual({
+    expect(JSON.parse(result.stdout)).toMatchObject({
       changes: [
         {
           kind: 'changed',
@@ -36,7 +36,13 @@ describe('npm run diff (scripts/cli/diff.ts)', { timeout: 60_000 }, () => {
     const result = run(pairFile('receiver-added', 'before'), pairFile('receiver-added', 'after'), '--json');
     expect(result.code).toBe(0);
     const out = JSON.parse(result.stdout);
-    expect(Object.keys(out).sort()).toEqual(['changes', 'counts']);
+    expect(Object.keys(out).sort()).toEqual([
+      'change_findings',
+      'changes',
+      'counts',
+      'findings_delta',
+      'outputs_delta',
+    ]);
     for (const change of out.changes)
       expect(Object.keys(change).sort()).toEqual(['after', 'before', 'kind', 'path', 'summary']);
     expect(out.counts).toEqual({ added: 4, removed: 0, changed: 1, renamed: 0, moved: 0 });
