@@ -1,13 +1,16 @@
 import { defineConfig } from 'vitest/config';
 import react from '@vitejs/plugin-react';
+import { pathAliases } from './path-aliases.ts';
 
 // Three projects: pure shared code, the API against a real PostgreSQL started by
 // tests/api/global-setup.ts, and React components in jsdom.
 export default defineConfig({
+  resolve: { alias: pathAliases },
   test: {
     globals: true,
     projects: [
       {
+        extends: true,
         // The command-line and lint tests start processes; a busy machine needs room.
         test: {
           name: 'shared',
@@ -18,6 +21,7 @@ export default defineConfig({
         },
       },
       {
+        extends: true,
         test: {
           name: 'api',
           globals: true,
@@ -29,6 +33,7 @@ export default defineConfig({
         },
       },
       {
+        extends: true,
         plugins: [react()],
         test: {
           name: 'web',

@@ -2,9 +2,9 @@ import { QueryTypes } from 'sequelize';
 import { Revision } from './models';
 import { modelReviewState, type ReviewFact } from './reviews/sign-off';
 
-import type { ReviewState } from '../shared/contract/review-state';
+import type { ReviewState } from '@shared/contract/review-state';
 
-export { clearedForMaiden, REVIEW_STATES, type ReviewState } from '../shared/contract/review-state';
+export { clearedForMaiden, REVIEW_STATES, type ReviewState } from '@shared/contract/review-state';
 
 type LatestRevision = Pick<Revision, 'id' | 'modelId' | 'contentHash' | 'errorCount'>;
 

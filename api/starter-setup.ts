@@ -1,5 +1,5 @@
 import { stringify } from 'yaml';
-import type { AIRFRAMES } from '../shared/format/schema';
+import type { AIRFRAMES } from '@shared/format/schema';
 
 export type Airframe = (typeof AIRFRAMES)[number];
 

@@ -1,9 +1,9 @@
 // npm run dev: the same database setup as npm start, the API on PORT (3000), and
 // Vite's dev server with hot reload proxying /api to it (vite.config.ts).
 import { spawn } from 'node:child_process';
-import { configFromEnv } from '../api/config';
-import { startMail } from '../api/mail/start-mail';
-import { portFromEnv, startServer } from '../api/server';
+import { configFromEnv } from '@api/config';
+import { startMail } from '@api/mail/start-mail';
+import { portFromEnv, startServer } from '@api/server';
 import { printDemoSignIns } from './lib/demo';
 import { bin, dataDir, projectRoot } from './lib/paths';
 import { prepareDatabase } from './lib/prepare-database';

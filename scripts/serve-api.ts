@@ -3,10 +3,10 @@
 // migration and no seed. Its background loops (mail delivery, import jobs) claim their
 // rows with FOR UPDATE SKIP LOCKED, so any number of these can share one PostgreSQL:
 // everything they share lives there.
-import { configFromEnv } from '../api/config';
-import { createSequelize } from '../api/db/sequelize';
-import { startMail } from '../api/mail/start-mail';
-import { portFromEnv, startServer } from '../api/server';
+import { configFromEnv } from '@api/config';
+import { createSequelize } from '@api/db/sequelize';
+import { startMail } from '@api/mail/start-mail';
+import { portFromEnv, startServer } from '@api/server';
 import { dataDir } from './lib/paths';
 import { exitOnSignals, fail, onShutdown } from './lib/shutdown';
 

@@ -18,15 +18,15 @@ import os from 'node:os';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { QueryTypes, type Sequelize } from 'sequelize';
-import { contentHash } from '../shared/canonical/content-hash';
-import { signSession } from '../api/auth/tokens';
-import { createModel } from '../api/commands/create-model';
-import { saveRevision } from '../api/commands/save-revision';
-import { defaultConfig } from '../api/config';
-import { isRoot, startCluster, type Cluster } from '../api/db/cluster';
-import { migrate } from '../api/db/migrate';
-import { createSequelize } from '../api/db/sequelize';
-import { initModels, Membership, User, Workspace, type SetupModel } from '../api/models';
+import { contentHash } from '@shared/canonical/content-hash';
+import { signSession } from '@api/auth/tokens';
+import { createModel } from '@api/commands/create-model';
+import { saveRevision } from '@api/commands/save-revision';
+import { defaultConfig } from '@api/config';
+import { isRoot, startCluster, type Cluster } from '@api/db/cluster';
+import { migrate } from '@api/db/migrate';
+import { createSequelize } from '@api/db/sequelize';
+import { initModels, Membership, User, Workspace, type SetupModel } from '@api/models';
 import { DEMO_SETUP, demoVariant } from './bench/support/bench-fixtures';
 
 const seconds = (name: string, fallback: number) => {

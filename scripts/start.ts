@@ -7,9 +7,9 @@
 // workers, then the database this script started.
 import cluster, { type Worker } from 'node:cluster';
 import path from 'node:path';
-import { configFromEnv } from '../api/config';
-import { portFromEnv } from '../api/server';
-import { workerCount } from '../api/worker-count';
+import { configFromEnv } from '@api/config';
+import { portFromEnv } from '@api/server';
+import { workerCount } from '@api/worker-count';
 import { buildClientIfStale } from './lib/build-web';
 import { printDemoSignIns } from './lib/demo';
 import { dataDir, projectRoot, webDist } from './lib/paths';

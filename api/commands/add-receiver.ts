@@ -1,6 +1,6 @@
 import type { Sequelize } from 'sequelize';
-import type { MarkColour } from '../../shared/reuse/receiver-fields';
-import type { StoredSettings } from '../../shared/reuse/stored-settings';
+import type { MarkColour } from '@shared/reuse/receiver-fields';
+import type { StoredSettings } from '@shared/reuse/stored-settings';
 import { Receiver, type User, type Workspace } from '../models';
 import { recordReceiverEvent } from './record-receiver-event';
 

@@ -1,5 +1,5 @@
 import type { Sequelize } from 'sequelize';
-import { reuseCheck } from '../../shared/reuse/reuse-check';
+import { reuseCheck } from '@shared/reuse/reuse-check';
 import { Conflict, Unprocessable } from '../errors';
 import { Receiver, ReceiverInstall, SetupModel, type User } from '../models';
 import { checkAgainstLatest, unitOf, type SlotCheck } from '../queries/receiver-slot';

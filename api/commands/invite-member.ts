@@ -6,7 +6,7 @@ import { appLink } from '../mail/context';
 import type { MailService } from '../mail/mail-service';
 import { invitationMail } from '../mail/messages';
 import { Invitation, Membership, User, type Workspace } from '../models';
-import type { Role } from '../../shared/contract/roles';
+import type { Role } from '@shared/contract/roles';
 import { recordAuditEvent } from './record-audit-event';
 
 export const INVITATION_TTL_MS = 7 * 24 * 60 * 60 * 1000;

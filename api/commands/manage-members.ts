@@ -1,7 +1,7 @@
 import type { Sequelize, Transaction } from 'sequelize';
 import { Conflict, NotFound } from '../errors';
 import { Membership, User, type Workspace } from '../models';
-import type { Role } from '../../shared/contract/roles';
+import type { Role } from '@shared/contract/roles';
 import { recordAuditEvent } from './record-audit-event';
 
 const memberNotFound = () =>

@@ -4,7 +4,7 @@ import { appLink } from '../mail/context';
 import type { MailService } from '../mail/mail-service';
 import { reviewRequestedMail } from '../mail/messages';
 import { Membership, Review, User, type Revision, type SetupModel, type Workspace } from '../models';
-import { roleAtLeast } from '../../shared/contract/roles';
+import { roleAtLeast } from '@shared/contract/roles';
 import { contributorsOf } from '../reviews/contributors';
 import { recordAuditEvent } from './record-audit-event';
 

@@ -1,8 +1,8 @@
 import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
-import { analyzeSetup, type Analysis } from '../../shared/analyze';
-import { contentHash } from '../../shared/canonical/content-hash';
-import { AIRFRAMES } from '../../shared/format/schema';
-import { MAX_TEXT_BYTES } from '../../shared/parse/limits';
+import { analyzeSetup, type Analysis } from '@shared/analyze';
+import { contentHash } from '@shared/canonical/content-hash';
+import { AIRFRAMES } from '@shared/format/schema';
+import { MAX_TEXT_BYTES } from '@shared/parse/limits';
 import { Conflict, NotFound, TooLarge, Unprocessable } from '../errors';
 import { Revision, SetupModel, type User } from '../models';
 import type { RevisionOrigin } from '../models/Revision';

@@ -1,6 +1,6 @@
 import type { Transaction } from 'sequelize';
-import type { MarkColour } from '../../shared/reuse/receiver-fields';
-import type { StoredSettings } from '../../shared/reuse/stored-settings';
+import type { MarkColour } from '@shared/reuse/receiver-fields';
+import type { StoredSettings } from '@shared/reuse/stored-settings';
 import { Unprocessable } from '../errors';
 import type { Receiver, User } from '../models';
 import { recordReceiverEvent } from './record-receiver-event';

@@ -3,14 +3,14 @@ import { Unprocessable } from '../errors';
 import { Receiver, ReceiverInstall, type Revision, type SetupModel, User } from '../models';
 import { setupOf } from '../queries/receiver-slot';
 import { reviewStateOf } from '../review-state';
-import { CAUTIONS, CAUTIONS_HEADING } from '../../shared/cautions';
+import { CAUTIONS, CAUTIONS_HEADING } from '@shared/cautions';
 import {
   sheetCut,
   sheetLinkLoss,
   type FieldSheet,
   type SheetPin,
   type SheetReceiver,
-} from '../../shared/contract/field-sheet';
+} from '@shared/contract/field-sheet';
 
 export type { FieldSheet, SheetPin, SheetReceiver };
 

@@ -1,8 +1,8 @@
 import { createRequire } from 'node:module';
 import path from 'node:path';
 import PDFDocument from 'pdfkit';
-import { REBIND_NOTE_SHEET } from '../../shared/reuse/rebind-note';
-import { MARK_SWATCHES } from '../../shared/reuse/receiver-fields';
+import { REBIND_NOTE_SHEET } from '@shared/reuse/rebind-note';
+import { MARK_SWATCHES } from '@shared/reuse/receiver-fields';
 import type { ReviewState } from '../review-state';
 import type { FieldSheet, SheetReceiver } from './field-sheet-data';
 

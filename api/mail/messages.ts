@@ -1,4 +1,4 @@
-import type { Role } from '../../shared/contract/roles';
+import type { Role } from '@shared/contract/roles';
 import { composeMail, mailDate } from './compose';
 import type { OutgoingMail } from './mail-service';
 

@@ -1,7 +1,7 @@
 import type { Request, Response } from 'express';
 import multer, { MulterError } from 'multer';
 import path from 'node:path';
-import { MAX_TEXT_BYTES } from '../../shared/parse/limits';
+import { MAX_TEXT_BYTES } from '@shared/parse/limits';
 import { BadRequest, TooLarge, UnsupportedMediaType } from '../errors';
 
 /** The same limit as for setup text sent as JSON: the parser reads nothing larger. */

@@ -8,7 +8,7 @@ import {
   type NonAttribute,
   type Sequelize,
 } from 'sequelize';
-import { ROLES, type Role } from '../../shared/contract/roles';
+import { ROLES, type Role } from '@shared/contract/roles';
 import type { User } from './User';
 import type { Workspace } from './Workspace';
 

@@ -8,8 +8,8 @@ import {
   type NonAttribute,
   type Sequelize,
 } from 'sequelize';
-import type { MarkColour } from '../../shared/reuse/receiver-fields';
-import type { StoredSettings } from '../../shared/reuse/stored-settings';
+import type { MarkColour } from '@shared/reuse/receiver-fields';
+import type { StoredSettings } from '@shared/reuse/stored-settings';
 import type { ReceiverInstall } from './ReceiverInstall';
 import type { User } from './User';
 import type { Workspace } from './Workspace';

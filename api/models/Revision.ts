@@ -8,7 +8,7 @@ import {
   type NonAttribute,
   type Sequelize,
 } from 'sequelize';
-import type { Finding } from '../../shared/findings';
+import type { Finding } from '@shared/findings';
 import type { SetupModel } from './SetupModel';
 import type { Tag } from './Tag';
 import type { User } from './User';

@@ -4,7 +4,7 @@ import { Forbidden, NotFound } from '../errors';
 import { currentUser } from '../middleware/authenticate';
 import { Revision, SetupModel } from '../models';
 import { idSchema } from '../validation';
-import { isRole, roleAtLeast, type Role } from '../../shared/contract/roles';
+import { isRole, roleAtLeast, type Role } from '@shared/contract/roles';
 import { requireRole, type WorkspaceAccess } from './workspace';
 
 // What each action on models and revisions needs, in one place. Viewers and reviewers

@@ -3,7 +3,7 @@ import type { Transaction } from 'sequelize';
 import { NotFound } from '../errors';
 import { Receiver, SetupModel } from '../models';
 import { idSchema } from '../validation';
-import type { Role } from '../../shared/contract/roles';
+import type { Role } from '@shared/contract/roles';
 import { requireRole, type WorkspaceAccess } from './workspace';
 
 // The shelf: everyone in the workspace reads it; editors and owners add units, change

@@ -3,7 +3,7 @@ import type { Transaction } from 'sequelize';
 import { NotFound } from '../errors';
 import { Review, Revision, SetupModel } from '../models';
 import { idSchema } from '../validation';
-import type { Role } from '../../shared/contract/roles';
+import type { Role } from '@shared/contract/roles';
 import { requireRole, type WorkspaceAccess } from './workspace';
 
 // What each action on reviews needs. Everyone reads reviews; editors (and owners) ask

@@ -3,7 +3,7 @@ import { Forbidden, NotFound } from '../errors';
 import { currentUser } from '../middleware/authenticate';
 import { Membership, Workspace } from '../models';
 import { idSchema } from '../validation';
-import { roleAtLeast, type Role } from '../../shared/contract/roles';
+import { roleAtLeast, type Role } from '@shared/contract/roles';
 
 export interface WorkspaceAccess {
   workspace: Workspace;

@@ -1,6 +1,6 @@
 import { writeFile } from 'node:fs/promises';
 import path from 'node:path';
-import { SLUG_PATTERN } from '../../shared/format/schema';
+import { SLUG_PATTERN } from '@shared/format/schema';
 import { TooLarge, Unprocessable } from '../errors';
 import { message as messageField } from '../model-fields';
 import { parseCommitMessage } from './commit-message';

@@ -1,4 +1,4 @@
-import { MAX_TEXT_BYTES } from '../../shared/parse/limits';
+import { MAX_TEXT_BYTES } from '@shared/parse/limits';
 
 // What a history import takes, each limit checked while git's output is read (see
 // import-history.ts) so a hostile bundle is refused before it costs memory or time.

@@ -1,6 +1,6 @@
 import type { Revision, SetupModel } from '../models';
-import type { ForkSource as PresentedForkSource, SetupModelView } from '../../shared/contract/model';
-import type { Role } from '../../shared/contract/roles';
+import type { ForkSource as PresentedForkSource, SetupModelView } from '@shared/contract/model';
+import type { Role } from '@shared/contract/roles';
 import { clearedForMaiden, type ReviewState } from '../review-state';
 import { presentLatest } from './revision';
 

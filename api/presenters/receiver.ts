@@ -1,4 +1,4 @@
-import type { ReuseCheck } from '../../shared/reuse/reuse-check';
+import type { ReuseCheck } from '@shared/reuse/reuse-check';
 import type { AuditEvent, Receiver, ReceiverInstall, Revision, SetupModel } from '../models';
 import type {
   PresentedInstall,
@@ -6,7 +6,7 @@ import type {
   PresentedReceiverEvent,
   PresentedReuseCheck,
   Readiness,
-} from '../../shared/contract/receiver';
+} from '@shared/contract/receiver';
 import { presentAuthor } from './revision';
 
 export type { PresentedInstall, PresentedReceiver, PresentedReceiverEvent, PresentedReuseCheck, Readiness };

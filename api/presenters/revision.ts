@@ -4,7 +4,7 @@ import type {
   Revision as PresentedRevision,
   RevisionSummary,
   SavedRevision,
-} from '../../shared/contract/model';
+} from '@shared/contract/model';
 import type { Revision, User } from '../models';
 
 export function presentAuthor(user: User | null | undefined): Author | null {

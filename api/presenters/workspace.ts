@@ -1,5 +1,5 @@
 import type { Membership, Workspace } from '../models';
-import type { Role } from '../../shared/contract/roles';
+import type { Role } from '@shared/contract/roles';
 
 /** A workspace as the caller sees it: with the caller's own role. */
 export function presentWorkspace(workspace: Workspace, role: Role) {

@@ -1,5 +1,5 @@
 import { QueryTypes, type Sequelize } from 'sequelize';
-import { COMPARE_FORMAT_VERSION, compareContent } from '../../shared/diff';
+import { COMPARE_FORMAT_VERSION, compareContent } from '@shared/diff';
 
 /**
  * The content part of a compare as JSON text, from the compare_cache table when any

@@ -1,5 +1,5 @@
 import { SetupModel, type User } from '../models';
-import type { Role } from '../../shared/contract/roles';
+import type { Role } from '@shared/contract/roles';
 import type { ImportJobRow } from '../portability/import-jobs';
 import { presentModels } from './model-views';
 

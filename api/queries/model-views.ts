@@ -1,6 +1,6 @@
 import { Op, QueryTypes, type Transaction } from 'sequelize';
 import { Membership, Revision, SetupModel, Tag, User } from '../models';
-import type { Role } from '../../shared/contract/roles';
+import type { Role } from '@shared/contract/roles';
 import { presentModel, type ForkSource, type PresentedModel } from '../presenters/model';
 import { reviewStateOf } from '../review-state';
 

@@ -1,6 +1,6 @@
 import type { Transaction } from 'sequelize';
-import { setupSchema, type Receiver as SlotReceiver, type Setup } from '../../shared/format/schema';
-import { findSlot, reuseCheck, type ReuseCheck } from '../../shared/reuse/reuse-check';
+import { setupSchema, type Receiver as SlotReceiver, type Setup } from '@shared/format/schema';
+import { findSlot, reuseCheck, type ReuseCheck } from '@shared/reuse/reuse-check';
 import { Unprocessable } from '../errors';
 import { Revision, type Receiver, type SetupModel } from '../models';
 

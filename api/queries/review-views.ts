@@ -1,10 +1,10 @@
 import { Op, QueryTypes } from 'sequelize';
-import { compareRevisions } from '../../shared/diff';
+import { compareRevisions } from '@shared/diff';
 import { ChecklistTick, Review, ReviewComment, ReviewVerdict, Revision, SetupModel, User } from '../models';
 import type { ReviewAccess } from '../policies/review';
 import { approvalRefusal } from '../reviews/approval-refusal';
 import { REVIEW_POLICY } from '../policies/review';
-import { roleAtLeast } from '../../shared/contract/roles';
+import { roleAtLeast } from '@shared/contract/roles';
 import {
   presentChecklist,
   presentComment,

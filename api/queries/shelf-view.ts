@@ -1,5 +1,5 @@
 import { Op, type Transaction } from 'sequelize';
-import { findSlot, reuseCheck } from '../../shared/reuse/reuse-check';
+import { findSlot, reuseCheck } from '@shared/reuse/reuse-check';
 import { Receiver, ReceiverInstall, Revision, SetupModel } from '../models';
 import { presentReceiver, type PresentedReceiver, type Readiness } from '../presenters/receiver';
 import { setupOf, unitOf } from './receiver-slot';

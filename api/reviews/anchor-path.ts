@@ -1,4 +1,4 @@
-import { parseSemanticPath, type PathStep } from '../../shared/parse/semantic-path';
+import { parseSemanticPath, type PathStep } from '@shared/parse/semantic-path';
 
 // Comments anchor to semantic paths (receivers[id=wing].map[pin=3]), which name places
 // by identity rather than position; a comment is carried to a later revision while its

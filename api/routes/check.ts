@@ -1,7 +1,7 @@
 import express, { Router } from 'express';
 import { z } from 'zod';
-import { analyzeSetup } from '../../shared/analyze';
-import { MAX_TEXT_BYTES } from '../../shared/parse/limits';
+import { analyzeSetup } from '@shared/analyze';
+import { MAX_TEXT_BYTES } from '@shared/parse/limits';
 import { BadRequest } from '../errors';
 import { parseInput } from '../validation';
 

@@ -1,5 +1,5 @@
 import { Router } from 'express';
-import { findingsDelta, textDiff } from '../../shared/diff';
+import { findingsDelta, textDiff } from '@shared/diff';
 import type { AppContext } from '../context';
 import { authenticate } from '../middleware/authenticate';
 import { Revision, User } from '../models';

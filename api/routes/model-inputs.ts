@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { AIRFRAMES, SLUG_PATTERN } from '../../shared/format/schema';
+import { AIRFRAMES, SLUG_PATTERN } from '@shared/format/schema';
 
 // Input shapes shared by the model, revision and upload routes.
 

@@ -1,8 +1,8 @@
 import { Router } from 'express';
 import { col, fn, literal, Op, type WhereOptions } from 'sequelize';
 import { z } from 'zod';
-import { SLUG_PATTERN } from '../../shared/format/schema';
-import { createReceiverSchema, updateReceiverSchema } from '../../shared/reuse/receiver-fields';
+import { SLUG_PATTERN } from '@shared/format/schema';
+import { createReceiverSchema, updateReceiverSchema } from '@shared/reuse/receiver-fields';
 import { addReceiver } from '../commands/add-receiver';
 import { applyReceiverSettings } from '../commands/apply-receiver-settings';
 import { installReceiver } from '../commands/install-receiver';

@@ -1,7 +1,7 @@
 import { Router, type Response } from 'express';
 import { Op } from 'sequelize';
 import { z } from 'zod';
-import { jsonPatch } from '../../shared/diff';
+import { jsonPatch } from '@shared/diff';
 import { revertRevision } from '../commands/revert-revision';
 import { saveRevision } from '../commands/save-revision';
 import { tagNamesOf, tagRevision, untagRevision } from '../commands/tag-revision';

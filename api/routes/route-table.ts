@@ -1,4 +1,4 @@
-import type { Role } from '../../shared/contract/roles';
+import type { Role } from '@shared/contract/roles';
 
 // Every API route and the lowest access that may use it, in one table. The policies
 // in api/policies/ decide at run time; tests/api/route-table.test.ts calls every route

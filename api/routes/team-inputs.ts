@@ -1,7 +1,7 @@
 import { SINGLE_LINE_MESSAGE, singleLine } from '../validation';
 import { z } from 'zod';
 import { PASSWORD_MAX_BYTES, PASSWORD_MIN_LENGTH } from '../auth/passwords';
-import { ROLES } from '../../shared/contract/roles';
+import { ROLES } from '@shared/contract/roles';
 
 // Input shapes of the team, invitation and password-reset routes; the same wording as sign-up.
 

@@ -1,4 +1,4 @@
-import type { Role } from '../../shared/contract/roles';
+import type { Role } from '@shared/contract/roles';
 
 // The invented scenario of the demo: a small model flying club and four of its
 // members, one per workspace role. Any likeness to a real club is accidental.

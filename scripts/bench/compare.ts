@@ -4,8 +4,8 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { parseDocument } from 'yaml';
 import { makeStressSetup } from '../../fixtures/stress';
-import { analyzeSetup } from '../../shared/analyze';
-import { compareRevisions, type CompareSide } from '../../shared/diff';
+import { analyzeSetup } from '@shared/analyze';
+import { compareRevisions, type CompareSide } from '@shared/diff';
 import type { Benchmark } from './benchmark';
 import { DEMO_FILE } from './setup-check';
 

@@ -1,5 +1,5 @@
 import { pathToFileURL } from 'node:url';
-import { signSession } from '../../api/auth/tokens';
+import { signSession } from '@api/auth/tokens';
 import { bundleOf, setupCommits } from '../lib/fake-git-history';
 import { printAsyncBenchmarks, timingOf, type AsyncBenchmark, type AsyncTiming } from './support/async-benchmark';
 import { startApiProcess } from './support/api-process';

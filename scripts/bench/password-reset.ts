@@ -1,8 +1,8 @@
 import { randomBytes } from 'node:crypto';
 import { pathToFileURL } from 'node:url';
-import { requestPasswordReset } from '../../api/commands/reset-password';
-import { defaultConfig } from '../../api/config';
-import { startMail } from '../../api/mail/start-mail';
+import { requestPasswordReset } from '@api/commands/reset-password';
+import { defaultConfig } from '@api/config';
+import { startMail } from '@api/mail/start-mail';
 import { printAsyncBenchmarks, timingOf, type AsyncBenchmark, type AsyncTiming } from './support/async-benchmark';
 import { benchDatabase, closeBenchDatabase } from './support/bench-database';
 import { benchPilot } from './support/bench-fixtures';

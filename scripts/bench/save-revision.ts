@@ -1,6 +1,6 @@
 import { pathToFileURL } from 'node:url';
-import { signSession } from '../../api/auth/tokens';
-import { createModel } from '../../api/commands/create-model';
+import { signSession } from '@api/auth/tokens';
+import { createModel } from '@api/commands/create-model';
 import { printAsyncBenchmarks, timingOf, type AsyncBenchmark, type AsyncTiming } from './support/async-benchmark';
 import { startApiProcess } from './support/api-process';
 import { benchDatabase, closeBenchDatabase } from './support/bench-database';

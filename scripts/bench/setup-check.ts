@@ -1,7 +1,7 @@
 import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { makeStressSetup } from '../../fixtures/stress';
-import { analyzeSetup } from '../../shared/analyze';
+import { analyzeSetup } from '@shared/analyze';
 import type { Benchmark } from './benchmark';
 
 // Parse + check (analyzeSetup) of the demo setup and of the generated stress setup.

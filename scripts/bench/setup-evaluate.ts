@@ -1,7 +1,7 @@
 import { readFileSync } from 'node:fs';
 import { makeStressSetup } from '../../fixtures/stress';
-import { analyzeSetup } from '../../shared/analyze';
-import { evaluate } from '../../shared/evaluate/evaluate';
+import { analyzeSetup } from '@shared/analyze';
+import { evaluate } from '@shared/evaluate/evaluate';
 import type { Benchmark } from './benchmark';
 import { DEMO_FILE } from './setup-check';
 

@@ -1,4 +1,4 @@
-import { analyzeSetup } from '../../shared/analyze';
+import { analyzeSetup } from '@shared/analyze';
 import { findingLine, readCommandLine } from './command-line';
 import { failUnreadable, readSetupFile } from './read-setup-file';
 

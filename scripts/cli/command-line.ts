@@ -1,5 +1,5 @@
 import { parseArgs } from 'node:util';
-import type { Finding } from '../../shared/findings';
+import type { Finding } from '@shared/findings';
 import { failUnreadable } from './read-setup-file';
 
 // The arguments every command-line tool takes (docs/format.md, "Command line"): its files,

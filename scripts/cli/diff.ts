@@ -1,6 +1,6 @@
-import { analyzeSetup } from '../../shared/analyze';
-import { compareRevisions, type CompareSide } from '../../shared/diff';
-import { CHANGE_KINDS } from '../../shared/diff/types';
+import { analyzeSetup } from '@shared/analyze';
+import { compareRevisions, type CompareSide } from '@shared/diff';
+import { CHANGE_KINDS } from '@shared/diff/types';
 import { readCommandLine } from './command-line';
 import { failUnreadable, readSetupFile } from './read-setup-file';
 

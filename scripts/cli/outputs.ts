@@ -1,7 +1,7 @@
-import { analyzeSetup } from '../../shared/analyze';
-import { evaluate, type LinkLoss, type Outputs } from '../../shared/evaluate/evaluate';
-import { fromRest } from '../../shared/evaluate/rest';
-import type { Setup } from '../../shared/format/schema';
+import { analyzeSetup } from '@shared/analyze';
+import { evaluate, type LinkLoss, type Outputs } from '@shared/evaluate/evaluate';
+import { fromRest } from '@shared/evaluate/rest';
+import type { Setup } from '@shared/format/schema';
 import { findingLine, readCommandLine } from './command-line';
 import { failUnreadable, readSetupFile } from './read-setup-file';
 

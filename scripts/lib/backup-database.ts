@@ -1,7 +1,7 @@
 import { spawn } from 'node:child_process';
 import path from 'node:path';
 import pg from 'pg';
-import { findPostgresBinaries } from '../../api/db/cluster';
+import { findPostgresBinaries } from '@api/db/cluster';
 import { openLocalDatabase } from './local-database';
 
 // The database npm run backup and npm run restore work on: DATABASE_URL when set,

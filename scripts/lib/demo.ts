@@ -1,4 +1,4 @@
-import { DEMO_ACCOUNTS, DEMO_PASSWORD, DEMO_WORKSPACE_NAME } from '../../api/seed/demo-data';
+import { DEMO_ACCOUNTS, DEMO_PASSWORD, DEMO_WORKSPACE_NAME } from '@api/seed/demo-data';
 
 /** SEED_DEMO=0 leaves the demo accounts out (their password is public). */
 export const demoEnabled = (): boolean => !['0', 'false', 'off'].includes(process.env.SEED_DEMO ?? '');

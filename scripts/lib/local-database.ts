@@ -1,7 +1,7 @@
 import { createHash } from 'node:crypto';
 import { chmodSync, existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
-import { isRoot, serverUserCanReach, startCluster, type Cluster } from '../../api/db/cluster';
+import { isRoot, serverUserCanReach, startCluster, type Cluster } from '@api/db/cluster';
 import { dataDir, projectRoot } from './paths';
 
 const DEFAULT_PORT = 54329;

@@ -1,7 +1,7 @@
 import type { Sequelize } from 'sequelize';
-import { migrate } from '../../api/db/migrate';
-import { createSequelize } from '../../api/db/sequelize';
-import { seedDemo } from '../../api/seed';
+import { migrate } from '@api/db/migrate';
+import { createSequelize } from '@api/db/sequelize';
+import { seedDemo } from '@api/seed';
 import { demoEnabled } from './demo';
 import { openLocalDatabase } from './local-database';
 import { onShutdown } from './shutdown';

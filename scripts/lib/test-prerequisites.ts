@@ -1,6 +1,6 @@
 import { existsSync } from 'node:fs';
-import { findPostgresBinaries } from '../../api/db/cluster';
-import { ensureDebianPackage } from '../../api/db/debian-package';
+import { findPostgresBinaries } from '@api/db/cluster';
+import { ensureDebianPackage } from '@api/db/debian-package';
 import { CHROMIUM_PATH } from './chromium-path';
 
 /**

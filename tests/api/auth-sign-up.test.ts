@@ -1,6 +1,6 @@
 import request from 'supertest';
 import { describe, expect, it } from 'vitest';
-import { Membership, User, Workspace } from '../../api/models';
+import { Membership, User, Workspace } from '@api/models';
 import { uniqueEmail } from './helpers/factories';
 import { useTestApp } from './helpers/test-app';
 

@@ -3,7 +3,7 @@ import Ajv2020 from 'ajv/dist/2020';
 import request from 'supertest';
 import { describe, expect, it } from 'vitest';
 import { parse } from 'yaml';
-import { analyzeSetup } from '../../shared/analyze';
+import { analyzeSetup } from '@shared/analyze';
 import { useTestApp } from './helpers/test-app';
 
 const t = useTestApp();

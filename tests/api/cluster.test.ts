@@ -3,7 +3,7 @@ import net from 'node:net';
 import os from 'node:os';
 import path from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
-import { freePort, isRoot, serverUserCanReach } from '../../api/db/cluster';
+import { freePort, isRoot, serverUserCanReach } from '@api/db/cluster';
 
 const folder = mkdtempSync(path.join(os.tmpdir(), 'bindery-cluster-'));
 chmodSync(folder, 0o755);

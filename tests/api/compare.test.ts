@@ -1,8 +1,8 @@
 import { applyPatch, deepClone } from 'fast-json-patch';
 import { QueryTypes } from 'sequelize';
 import { beforeAll, describe, expect, it } from 'vitest';
-import { analyzeSetup } from '../../shared/analyze';
-import { COMPARE_FORMAT_VERSION, compareRevisions, textDiff } from '../../shared/diff';
+import { analyzeSetup } from '@shared/analyze';
+import { COMPARE_FORMAT_VERSION, compareRevisions, textDiff } from '@shared/diff';
 import { createRoleFixture, type RoleFixture } from './helpers/factories';
 import { useTestApp } from './helpers/test-app';
 import { clientFor, createModelVia, edit, fixture, SCALE, saveVia, TRAINER, type Client } from './models-support';

@@ -1,7 +1,7 @@
 import request from 'supertest';
 import { beforeAll, describe, expect, it } from 'vitest';
-import { MAX_NESTING_DEPTH, MAX_TEXT_BYTES } from '../../shared/parse/limits';
-import { MAX_BUNDLE_BYTES } from '../../api/portability/import-limits';
+import { MAX_NESTING_DEPTH, MAX_TEXT_BYTES } from '@shared/parse/limits';
+import { MAX_BUNDLE_BYTES } from '@api/portability/import-limits';
 import { useMailTestApp } from './helpers/mail';
 import { ALIAS_BOMB, TRAINER } from './models-support';
 import { buildSampleWorld, type SampleWorld } from './route-table-samples';

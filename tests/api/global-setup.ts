@@ -2,9 +2,9 @@ import { chmodSync, mkdtempSync, rmSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import type { TestProject } from 'vitest/node';
-import { startCluster } from '../../api/db/cluster';
-import { migrate } from '../../api/db/migrate';
-import { createSequelize } from '../../api/db/sequelize';
+import { startCluster } from '@api/db/cluster';
+import { migrate } from '@api/db/migrate';
+import { createSequelize } from '@api/db/sequelize';
 
 const TEMPLATE_DATABASE = 'bindery_template';
 

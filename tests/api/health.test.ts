@@ -5,10 +5,10 @@ import type { Express } from 'express';
 import type { Sequelize } from 'sequelize';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { createApp } from '../../api/app';
-import { startCluster, type Cluster } from '../../api/db/cluster';
-import { migrate } from '../../api/db/migrate';
-import { createSequelize } from '../../api/db/sequelize';
+import { createApp } from '@api/app';
+import { startCluster, type Cluster } from '@api/db/cluster';
+import { migrate } from '@api/db/migrate';
+import { createSequelize } from '@api/db/sequelize';
 import { bearer, createUser, tokenFor } from './helpers/factories';
 import { testConfig } from './helpers/test-app';
 

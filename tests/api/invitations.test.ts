@@ -1,7 +1,7 @@
 import jwt from 'jsonwebtoken';
 import request from 'supertest';
 import { beforeAll, describe, expect, it } from 'vitest';
-import { AuditEvent, Invitation, Membership, User, type Workspace } from '../../api/models';
+import { AuditEvent, Invitation, Membership, User, type Workspace } from '@api/models';
 import { addMember, bearer, createUser, createWorkspace, tokenFor, uniqueEmail } from './helpers/factories';
 import { linkToken, mailTo, TEST_APP_URL, useMailTestApp } from './helpers/mail';
 

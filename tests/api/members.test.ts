@@ -1,7 +1,7 @@
 import request from 'supertest';
 import { beforeEach, describe, expect, it } from 'vitest';
-import { AuditEvent, Membership, type User, type Workspace } from '../../api/models';
-import type { Role } from '../../shared/contract/roles';
+import { AuditEvent, Membership, type User, type Workspace } from '@api/models';
+import type { Role } from '@shared/contract/roles';
 import { addMember, bearer, createUser, createWorkspace, tokenFor } from './helpers/factories';
 import { useTestApp } from './helpers/test-app';
 

@@ -1,11 +1,11 @@
 import request from 'supertest';
 import { QueryTypes } from 'sequelize';
 import { describe, expect, it } from 'vitest';
-import { migrate } from '../../api/db/migrate';
-import { Membership, User, Workspace } from '../../api/models';
-import { migrations } from '../../api/migrations';
-import { seedDemo } from '../../api/seed';
-import { DEMO_ACCOUNTS, DEMO_PASSWORD, DEMO_WORKSPACE_NAME } from '../../api/seed/demo-data';
+import { migrate } from '@api/db/migrate';
+import { Membership, User, Workspace } from '@api/models';
+import { migrations } from '@api/migrations';
+import { seedDemo } from '@api/seed';
+import { DEMO_ACCOUNTS, DEMO_PASSWORD, DEMO_WORKSPACE_NAME } from '@api/seed/demo-data';
 import { useTestApp } from './helpers/test-app';
 
 const t = useTestApp();

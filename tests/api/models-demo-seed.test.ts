@@ -1,8 +1,8 @@
 import { beforeAll, describe, expect, it } from 'vitest';
-import { analyzeSetup } from '../../shared/analyze';
-import { AuditEvent, Revision, SetupModel, Tag, Workspace } from '../../api/models';
-import { seedDemo } from '../../api/seed';
-import { DEMO_WORKSPACE_NAME } from '../../api/seed/demo-data';
+import { analyzeSetup } from '@shared/analyze';
+import { AuditEvent, Revision, SetupModel, Tag, Workspace } from '@api/models';
+import { seedDemo } from '@api/seed';
+import { DEMO_WORKSPACE_NAME } from '@api/seed/demo-data';
 import { useTestApp } from './helpers/test-app';
 
 const t = useTestApp();

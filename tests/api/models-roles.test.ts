@@ -1,9 +1,9 @@
 import { beforeAll, describe, expect, it } from 'vitest';
-import { createModel } from '../../api/commands/create-model';
-import { saveRevision } from '../../api/commands/save-revision';
-import { tagRevision } from '../../api/commands/tag-revision';
-import { Workspace } from '../../api/models';
-import type { Role } from '../../shared/contract/roles';
+import { createModel } from '@api/commands/create-model';
+import { saveRevision } from '@api/commands/save-revision';
+import { tagRevision } from '@api/commands/tag-revision';
+import { Workspace } from '@api/models';
+import type { Role } from '@shared/contract/roles';
 import { createRoleFixture, type RoleFixture } from './helpers/factories';
 import { useTestApp } from './helpers/test-app';
 import { clientFor, GLIDER, TRAINER, type Client } from './models-support';

@@ -4,8 +4,8 @@ import { fileURLToPath } from 'node:url';
 import type { Express } from 'express';
 import request from 'supertest';
 import { expect } from 'vitest';
-import type { AppConfig } from '../../api/config';
-import type { User } from '../../api/models';
+import type { AppConfig } from '@api/config';
+import type { User } from '@api/models';
 import { bearer, tokenFor } from './helpers/factories';
 
 // Shared by the models, revisions, compare and uploads tests: fixture texts and a

@@ -1,8 +1,8 @@
 import { randomUUID } from 'node:crypto';
 import { beforeAll, describe, expect, it } from 'vitest';
-import { analyzeSetup } from '../../shared/analyze';
-import { AuditEvent, Revision, SetupModel, Workspace } from '../../api/models';
-import { starterSetup } from '../../api/starter-setup';
+import { analyzeSetup } from '@shared/analyze';
+import { AuditEvent, Revision, SetupModel, Workspace } from '@api/models';
+import { starterSetup } from '@api/starter-setup';
 import { addMember, createRoleFixture, createUser, createWorkspace, type RoleFixture } from './helpers/factories';
 import { useTestApp } from './helpers/test-app';
 import {

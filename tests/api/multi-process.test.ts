@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { Revision } from '../../api/models';
+import { Revision } from '@api/models';
 import { createRoleFixture, tokenFor, type RoleFixture } from './helpers/factories';
 import { startApiProcess, type ApiProcess } from './helpers/api-processes';
 import { useTestApp } from './helpers/test-app';

@@ -1,9 +1,9 @@
 import request from 'supertest';
 import { beforeAll, describe, expect, it } from 'vitest';
-import { createApp } from '../../api/app';
-import { createMailService } from '../../api/mail/mail-service';
-import { DEFAULT_FROM, mailSettingsFromEnv } from '../../api/mail/mail-settings';
-import { Invitation, type User, type Workspace } from '../../api/models';
+import { createApp } from '@api/app';
+import { createMailService } from '@api/mail/mail-service';
+import { DEFAULT_FROM, mailSettingsFromEnv } from '@api/mail/mail-settings';
+import { Invitation, type User, type Workspace } from '@api/models';
 import { bearer, createUser, createWorkspace, tokenFor, uniqueEmail } from './helpers/factories';
 import { mailTo, TEST_APP_URL, useMailTestApp } from './helpers/mail';
 

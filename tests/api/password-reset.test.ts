@@ -1,7 +1,7 @@
 import jwt from 'jsonwebtoken';
 import request from 'supertest';
 import { beforeEach, describe, expect, it } from 'vitest';
-import { PasswordReset, type User } from '../../api/models';
+import { PasswordReset, type User } from '@api/models';
 import { bearer, createUser, signIn, TEST_PASSWORD, uniqueEmail } from './helpers/factories';
 import { linkToken, mailTo, useMailTestApp } from './helpers/mail';
 

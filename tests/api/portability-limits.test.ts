@@ -1,12 +1,12 @@
 import request from 'supertest';
 import { beforeAll, describe, expect, it } from 'vitest';
-import { Revision, SetupModel } from '../../api/models';
+import { Revision, SetupModel } from '@api/models';
 import {
   EARLIEST_AUTHOR_DATE,
   MAX_IMPORT_COMMITS,
   MAX_MESSAGE_CHARS,
   MAX_SETUP_BYTES,
-} from '../../api/portability/import-limits';
+} from '@api/portability/import-limits';
 import { createRoleFixture, type RoleFixture } from './helpers/factories';
 import { bundleOf, setupCommits } from '../../scripts/lib/fake-git-history';
 import { importDone, importFailed, queueImport, useImportWorker, waitForImport } from './helpers/imports';

@@ -1,6 +1,6 @@
 import request from 'supertest';
 import { beforeAll, describe, expect, it } from 'vitest';
-import type { User } from '../../api/models';
+import type { User } from '@api/models';
 import { createUser, TEST_PASSWORD, uniqueEmail } from './helpers/factories';
 import { useTestApp } from './helpers/test-app';
 

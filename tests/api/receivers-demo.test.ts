@@ -1,7 +1,7 @@
 import { beforeAll, describe, expect, it } from 'vitest';
-import { Membership, SetupModel, User, Workspace } from '../../api/models';
-import { seedDemo } from '../../api/seed';
-import { DEMO_WORKSPACE_NAME } from '../../api/seed/demo-data';
+import { Membership, SetupModel, User, Workspace } from '@api/models';
+import { seedDemo } from '@api/seed';
+import { DEMO_WORKSPACE_NAME } from '@api/seed/demo-data';
 import { useTestApp } from './helpers/test-app';
 import { clientFor, type Client } from './models-support';
 

@@ -1,6 +1,6 @@
 import { parse } from 'yaml';
 import { beforeAll, describe, expect, it } from 'vitest';
-import { AuditEvent, Receiver, ReceiverInstall } from '../../api/models';
+import { AuditEvent, Receiver, ReceiverInstall } from '@api/models';
 import { createRoleFixture, type RoleFixture } from './helpers/factories';
 import { useTestApp } from './helpers/test-app';
 import { clientFor, createModelVia, edit, fixture, saveVia, SCALE, TRAINER, type Client } from './models-support';

@@ -1,8 +1,8 @@
 import { randomUUID } from 'node:crypto';
 import { parse } from 'yaml';
 import { beforeAll, describe, expect, it } from 'vitest';
-import { AuditEvent, Receiver } from '../../api/models';
-import type { Role } from '../../shared/contract/roles';
+import { AuditEvent, Receiver } from '@api/models';
+import type { Role } from '@shared/contract/roles';
 import { createRoleFixture, type RoleFixture } from './helpers/factories';
 import { useTestApp } from './helpers/test-app';
 import { clientFor, createModelVia, fixture, SCALE, type Client } from './models-support';

@@ -1,8 +1,8 @@
 import request from 'supertest';
 import { beforeAll, describe, expect, it } from 'vitest';
-import { OutboxMessage, Review, User, Workspace } from '../../api/models';
-import { seedDemo } from '../../api/seed';
-import { DEMO_WORKSPACE_NAME } from '../../api/seed/demo-data';
+import { OutboxMessage, Review, User, Workspace } from '@api/models';
+import { seedDemo } from '@api/seed';
+import { DEMO_WORKSPACE_NAME } from '@api/seed/demo-data';
 import { bearer, tokenFor } from './helpers/factories';
 import { useMailTestApp } from './helpers/mail';
 

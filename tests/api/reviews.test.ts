@@ -1,5 +1,5 @@
 import { beforeEach, describe, expect, it } from 'vitest';
-import { AuditEvent, ReviewVerdict, type User, type Workspace } from '../../api/models';
+import { AuditEvent, ReviewVerdict, type User, type Workspace } from '@api/models';
 import { addMember, createUser, createWorkspace } from './helpers/factories';
 import { mailTo, TEST_APP_URL, useMailTestApp } from './helpers/mail';
 import { clientFor, createModelVia, edit, fixture, SCALE, saveVia, type Client } from './models-support';

@@ -1,8 +1,8 @@
 import { QueryTypes } from 'sequelize';
 import { beforeAll, describe, expect, it } from 'vitest';
-import { contentHash } from '../../shared/canonical/content-hash';
-import { analyzeSetup } from '../../shared/analyze';
-import { AuditEvent, Revision, SetupModel } from '../../api/models';
+import { contentHash } from '@shared/canonical/content-hash';
+import { analyzeSetup } from '@shared/analyze';
+import { AuditEvent, Revision, SetupModel } from '@api/models';
 import { createRoleFixture, type RoleFixture } from './helpers/factories';
 import { useTestApp } from './helpers/test-app';
 import {

@@ -1,10 +1,10 @@
 import { randomBytes } from 'node:crypto';
 import request from 'supertest';
 import { expect } from 'vitest';
-import { signLinkToken } from '../../api/auth/link-tokens';
-import { Invitation, PasswordReset, Revision, Tag, type User } from '../../api/models';
-import type { Role } from '../../shared/contract/roles';
-import { CHECKLIST_IDS } from '../../api/reviews/checklist';
+import { signLinkToken } from '@api/auth/link-tokens';
+import { Invitation, PasswordReset, Revision, Tag, type User } from '@api/models';
+import type { Role } from '@shared/contract/roles';
+import { CHECKLIST_IDS } from '@api/reviews/checklist';
 import {
   addMember,
   bearer,

@@ -1,6 +1,6 @@
 import { beforeAll, describe, expect, it } from 'vitest';
-import { roleAtLeast } from '../../shared/contract/roles';
-import { registeredRoutes, ROUTE_TABLE, routeKey, type Access } from '../../api/routes/route-table';
+import { roleAtLeast } from '@shared/contract/roles';
+import { registeredRoutes, ROUTE_TABLE, routeKey, type Access } from '@api/routes/route-table';
 import { uniqueEmail } from './helpers/factories';
 import { mailTo, useMailTestApp } from './helpers/mail';
 import { buildSampleWorld, CALLERS, type Caller, type SampleWorld } from './route-table-samples';

@@ -3,9 +3,9 @@ import os from 'node:os';
 import path from 'node:path';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { Revision, SetupModel, type User } from '../../api/models';
-import { safeDownloadName } from '../../api/security/content-disposition';
-import { parseCorsOrigins } from '../../api/security/cors';
+import { Revision, SetupModel, type User } from '@api/models';
+import { safeDownloadName } from '@api/security/content-disposition';
+import { parseCorsOrigins } from '@api/security/cors';
 import { addMember, bearer, createUser, createWorkspace, signIn, TEST_PASSWORD, tokenFor } from './helpers/factories';
 import { useTestApp } from './helpers/test-app';
 

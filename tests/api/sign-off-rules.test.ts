@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { modelReviewState, reviewStateFromVerdicts, type ReviewFact } from '../../api/reviews/sign-off';
-import { anchorExists, readAnchor } from '../../api/reviews/anchor-path';
+import { modelReviewState, reviewStateFromVerdicts, type ReviewFact } from '@api/reviews/sign-off';
+import { anchorExists, readAnchor } from '@api/reviews/anchor-path';
 
 const A = 'a'.repeat(64);
 const B = 'b'.repeat(64);

@@ -1,6 +1,6 @@
 import request from 'supertest';
 import { beforeAll, describe, expect, it } from 'vitest';
-import { User, Workspace } from '../../api/models';
+import { User, Workspace } from '@api/models';
 import { bearer, createUser, tokenFor, uniqueEmail } from './helpers/factories';
 import { useTestApp } from './helpers/test-app';
 

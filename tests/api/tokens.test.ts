@@ -1,7 +1,7 @@
 import jwt from 'jsonwebtoken';
 import request from 'supertest';
 import { beforeAll, describe, expect, it } from 'vitest';
-import { User } from '../../api/models';
+import { User } from '@api/models';
 import { randomUUID } from 'node:crypto';
 import { bearer, createUser, signIn, tokenFor, uniqueEmail } from './helpers/factories';
 import { useTestApp } from './helpers/test-app';

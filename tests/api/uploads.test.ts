@@ -1,6 +1,6 @@
 import request from 'supertest';
 import { beforeAll, describe, expect, it } from 'vitest';
-import { Revision, SetupModel } from '../../api/models';
+import { Revision, SetupModel } from '@api/models';
 import { createRoleFixture, type RoleFixture } from './helpers/factories';
 import { useTestApp } from './helpers/test-app';
 import { ALIAS_BOMB, clientFor, createModelVia, GLIDER, SCALE, TRAINER, type Client } from './models-support';

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { apiAs, createModel, fixtureText } from './support/api';
 import { useBrowser } from './support/browser';
 import { demoAccount } from './support/demo';
-import { checksPanel, openEditorAtLine, replaceSelection, setupText } from './support/editor';
+import { checksPanel, openEditorAtLine, replaceSelection, selectedText, setupText } from './support/editor';
 import { saveScreenshot } from './support/screenshots';
 import { expectNoProblems, signedIn } from './support/session';
 
@@ -34,8 +34,11 @@ describe('journey: edit in the text and in the forms, then save', () => {
     const elevatorLine = lineOf('- { ch: 2,');
     const original = lines[elevatorLine - 1];
     await openEditorAtLine(page, model.id, elevatorLine);
+    // The jump selects the line after the editor has mounted: type only once it has.
+    await expect.poll(() => selectedText(page)).toBe(original);
     // Elevator typed onto channel 1, where the left aileron already is.
-    await replaceSelection(page, original.replace('ch: 2, ', 'ch: 1, '));
+    const changed = original.replace('ch: 2, ', 'ch: 1, ');
+    await replaceSelection(page, changed);
     const conflict = checksPanel(page).getByRole('link').filter({ hasText: 'channel-shared' });
     await conflict.waitFor();
     expect(await conflict.textContent()).toContain(`line ${elevatorLine}:`);
@@ -44,6 +47,7 @@ describe('journey: edit in the text and in the forms, then save', () => {
 
     // The finding's link selects its line; typing the right channel back clears it.
     await conflict.click();
+    await expect.poll(() => selectedText(page)).toBe(changed);
     await replaceSelection(page, original);
     await expect
       .poll(() => checksPanel(page).textContent(), { timeout: 30_000 })

@@ -1,6 +1,7 @@
 import { fileURLToPath } from 'node:url';
 import { defineConfig } from 'vitest/config';
 import { BaseSequencer, type TestSpecification } from 'vitest/node';
+import { pathAliases } from '../../path-aliases.ts';
 
 // The walk over every screen reads the demo as seeded, so it goes first; the journeys
 // after it add models, revisions, reviews and installs of their own.
@@ -15,6 +16,7 @@ class ScreensFirst extends BaseSequencer {
 // PostgreSQL (global-setup.ts), driven by Debian's Chromium through playwright-core.
 export default defineConfig({
   root: fileURLToPath(new URL('../..', import.meta.url)),
+  resolve: { alias: pathAliases },
   test: {
     name: 'e2e',
     environment: 'node',

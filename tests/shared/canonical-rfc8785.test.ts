@@ -1,8 +1,8 @@
 import canonicalize from 'canonicalize';
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { canonicalJson } from '../../shared/canonical/content-hash';
-import { analyzeSetup } from '../../shared/analyze';
+import { canonicalJson } from '@shared/canonical/content-hash';
+import { analyzeSetup } from '@shared/analyze';
 import { validFixtures } from './setup-fixtures';
 
 // [rfc-8785] The canonical form (keys sorted by UTF-16 code units, ECMAScript number

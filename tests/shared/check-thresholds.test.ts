@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { analyzeSetup } from '../../shared/analyze';
+import { analyzeSetup } from '@shared/analyze';
 import { readFixture } from './setup-fixtures';
 
 // The numeric edges of the checks, on the trainer fixture with one value changed.

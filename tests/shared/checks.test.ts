@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { analyzeSetup } from '../../shared/analyze';
-import { CATALOGUE } from '../../shared/checks/run-checks';
+import { analyzeSetup } from '@shared/analyze';
+import { CATALOGUE } from '@shared/checks/run-checks';
 import { invalidFixtures, validFixtures } from './setup-fixtures';
 
 // docs/format.md's check catalogue, in its order: the contract for rule ids and severities.

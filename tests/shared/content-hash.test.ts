@@ -1,9 +1,9 @@
 import fc from 'fast-check';
 import { stringify } from 'yaml';
 import { describe, expect, it } from 'vitest';
-import { canonicalJson, contentHash } from '../../shared/canonical/content-hash';
-import { sha256Hex } from '../../shared/canonical/sha256-hex';
-import { parseYaml } from '../../shared/parse/parse-yaml';
+import { canonicalJson, contentHash } from '@shared/canonical/content-hash';
+import { sha256Hex } from '@shared/canonical/sha256-hex';
+import { parseYaml } from '@shared/parse/parse-yaml';
 import { readFixture, validFixtures } from './setup-fixtures';
 
 const dataOf = (text: string) => {

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import type { Finding } from '../../shared/findings';
-import type { Setup } from '../../shared/format/schema';
-import { compareRevisions, findingsDelta, outputsDelta, REST_LABEL } from '../../shared/diff';
+import type { Finding } from '@shared/findings';
+import type { Setup } from '@shared/format/schema';
+import { compareRevisions, findingsDelta, outputsDelta, REST_LABEL } from '@shared/diff';
 import { loadPair } from './diff-pairs';
 
 const where = (findings: Finding[]) => findings.map((finding) => `${finding.rule} ${finding.path}`);

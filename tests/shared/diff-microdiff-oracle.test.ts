@@ -1,7 +1,7 @@
 import diff from 'microdiff';
 import { describe, expect, it } from 'vitest';
-import { diffSetups } from '../../shared/diff';
-import { LIST_KEYS, MAP_KEY } from '../../shared/diff/identity';
+import { diffSetups } from '@shared/diff';
+import { LIST_KEYS, MAP_KEY } from '@shared/diff/identity';
 import { loadPair, type PairName } from './diff-pairs';
 
 // The semantic diff against an independent deep-diff, npm `microdiff`, run over the

@@ -1,6 +1,6 @@
 import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
-import { analyzeSetup, type Analysis } from '../../shared/analyze';
+import { analyzeSetup, type Analysis } from '@shared/analyze';
 
 // The before/after fixture pairs of fixtures/pairs/ (each file says what it shows).
 export const PAIRS = [

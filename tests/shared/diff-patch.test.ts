@@ -1,7 +1,7 @@
 import fc from 'fast-check';
 import fastJsonPatch, { type Operation } from 'fast-json-patch';
 import { describe, expect, it } from 'vitest';
-import { jsonPatch } from '../../shared/diff';
+import { jsonPatch } from '@shared/diff';
 import { loadPair, PAIRS } from './diff-pairs';
 
 // [rfc-6902] The exported patch, applied to the older document with the reference

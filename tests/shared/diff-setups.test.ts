@@ -1,6 +1,6 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { diffSetups } from '../../shared/diff';
+import { diffSetups } from '@shared/diff';
 import { loadPair, PAIRS } from './diff-pairs';
 
 type Doc = Record<string, any>;

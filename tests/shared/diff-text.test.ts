@@ -1,6 +1,6 @@
 import { diffArrays } from 'diff';
 import { describe, expect, it } from 'vitest';
-import { textDiff } from '../../shared/diff';
+import { textDiff } from '@shared/diff';
 import { loadPair } from './diff-pairs';
 
 const asLines = (letters: string) => `${letters.split('').join('\n')}\n`;

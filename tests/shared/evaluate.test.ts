@@ -1,11 +1,11 @@
 import { describe, expect, it } from 'vitest';
-import { analyzeSetup } from '../../shared/analyze';
-import { channelExtremes } from '../../shared/evaluate/channel-extremes';
-import { controlsById } from '../../shared/evaluate/control-value';
-import { controlValue, evaluate, idlePulse, pulseFor } from '../../shared/evaluate/evaluate';
-import { expoCurve } from '../../shared/evaluate/expo-curve';
-import { mixCurve } from '../../shared/evaluate/mix-curve';
-import { DEFAULT_TRAVEL, setupSchema, type Setup } from '../../shared/format/schema';
+import { analyzeSetup } from '@shared/analyze';
+import { channelExtremes } from '@shared/evaluate/channel-extremes';
+import { controlsById } from '@shared/evaluate/control-value';
+import { controlValue, evaluate, idlePulse, pulseFor } from '@shared/evaluate/evaluate';
+import { expoCurve } from '@shared/evaluate/expo-curve';
+import { mixCurve } from '@shared/evaluate/mix-curve';
+import { DEFAULT_TRAVEL, setupSchema, type Setup } from '@shared/format/schema';
 import { readFixture } from './setup-fixtures';
 
 function setupOf(text: string): Setup {

@@ -1,10 +1,10 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { analyzeSetup, analyzeSetupFast, analyzeSetupFully } from '../../shared/analyze';
-import { contentHash } from '../../shared/canonical/content-hash';
-import { readSetupFast } from '../../shared/parse/fast-read';
-import { MAX_NESTING_DEPTH } from '../../shared/parse/limits';
-import { parseYaml } from '../../shared/parse/parse-yaml';
+import { analyzeSetup, analyzeSetupFast, analyzeSetupFully } from '@shared/analyze';
+import { contentHash } from '@shared/canonical/content-hash';
+import { readSetupFast } from '@shared/parse/fast-read';
+import { MAX_NESTING_DEPTH } from '@shared/parse/limits';
+import { parseYaml } from '@shared/parse/parse-yaml';
 import { invalidFixtures, validFixtures } from './setup-fixtures';
 
 // The fast reader (js-yaml) may only answer where it reads exactly what the reference

@@ -33,7 +33,7 @@ describe('the layer rules', () => {
   });
 
   it('refuse the client importing the server', async () => {
-    const messages = await lintProbe('web/lib', "export type { AppConfig } from '../../api/config';\n");
+    const messages = await lintProbe('web/lib', "export type { AppConfig } from '@api/config';\n");
     expect(messages.join('\n')).toMatch(/import-x\/no-restricted-paths: .*talks to the API over HTTP/);
   });
 

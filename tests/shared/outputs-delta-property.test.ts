@@ -1,9 +1,9 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { outputsDelta } from '../../shared/diff';
-import { evaluate } from '../../shared/evaluate/evaluate';
-import { restPositions } from '../../shared/evaluate/rest';
-import { setupSchema, type Setup } from '../../shared/format/schema';
+import { outputsDelta } from '@shared/diff';
+import { evaluate } from '@shared/evaluate/evaluate';
+import { restPositions } from '@shared/evaluate/rest';
+import { setupSchema, type Setup } from '@shared/format/schema';
 
 // outputs_delta is empty exactly when no pin's pulse differs at any position or link
 // state. Checked against brute force on small random pairs: every grid point where

@@ -1,11 +1,11 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { analyzeSetup } from '../../shared/analyze';
-import { MAX_ALIAS_COUNT, MAX_NESTING_DEPTH, MAX_TEXT_BYTES } from '../../shared/parse/limits';
-import { parseYaml } from '../../shared/parse/parse-yaml';
-import { parseSemanticPath, toSemanticPath } from '../../shared/parse/semantic-path';
-import { locate } from '../../shared/parse/source-position';
-import { utf8Length } from '../../shared/parse/utf8-length';
+import { analyzeSetup } from '@shared/analyze';
+import { MAX_ALIAS_COUNT, MAX_NESTING_DEPTH, MAX_TEXT_BYTES } from '@shared/parse/limits';
+import { parseYaml } from '@shared/parse/parse-yaml';
+import { parseSemanticPath, toSemanticPath } from '@shared/parse/semantic-path';
+import { locate } from '@shared/parse/source-position';
+import { utf8Length } from '@shared/parse/utf8-length';
 import { readFixture } from './setup-fixtures';
 
 function syntaxOf(text: string) {

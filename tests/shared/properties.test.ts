@@ -1,13 +1,13 @@
 import fc from 'fast-check';
 import { Document, isScalar, stringify, visit } from 'yaml';
 import { describe, expect, it } from 'vitest';
-import { analyzeSetup, analyzeSetupFast, analyzeSetupFully } from '../../shared/analyze';
-import { contentHash } from '../../shared/canonical/content-hash';
-import { evaluate } from '../../shared/evaluate/evaluate';
-import { AIRFRAMES, CHANNEL_ROLES, DEFAULT_TRAVEL } from '../../shared/format/schema';
-import { readSetupFast } from '../../shared/parse/fast-read';
+import { analyzeSetup, analyzeSetupFast, analyzeSetupFully } from '@shared/analyze';
+import { contentHash } from '@shared/canonical/content-hash';
+import { evaluate } from '@shared/evaluate/evaluate';
+import { AIRFRAMES, CHANNEL_ROLES, DEFAULT_TRAVEL } from '@shared/format/schema';
+import { readSetupFast } from '@shared/parse/fast-read';
 import { validFixtures } from './setup-fixtures';
-import { parseYaml } from '../../shared/parse/parse-yaml';
+import { parseYaml } from '@shared/parse/parse-yaml';
 
 // Random setups that pass the schema but mean anything at all: ids collide, mixes name
 // missing controls, pins exceed outputs, failsafes are wild. The checks and the bench

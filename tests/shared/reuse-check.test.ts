@@ -2,10 +2,10 @@ import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { parse } from 'yaml';
 import { describe, expect, it } from 'vitest';
-import { analyzeSetup, type Analysis } from '../../shared/analyze';
-import type { Setup } from '../../shared/format/schema';
-import { findSlot, findingsForSlot, reuseCheck, type ReuseUnit } from '../../shared/reuse/reuse-check';
-import { storedSettingsSchema } from '../../shared/reuse/stored-settings';
+import { analyzeSetup, type Analysis } from '@shared/analyze';
+import type { Setup } from '@shared/format/schema';
+import { findSlot, findingsForSlot, reuseCheck, type ReuseUnit } from '@shared/reuse/reuse-check';
+import { storedSettingsSchema } from '@shared/reuse/stored-settings';
 
 const fixture = (path: string) =>
   readFileSync(fileURLToPath(new URL(`../../fixtures/${path}`, import.meta.url)), 'utf8');

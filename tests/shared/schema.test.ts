@@ -2,9 +2,9 @@ import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import Ajv2020 from 'ajv/dist/2020';
 import { describe, expect, it } from 'vitest';
-import { SETUP_SCHEMA_FILE, setupJsonSchema, setupJsonSchemaText } from '../../shared/format/json-schema';
-import { setupSchema } from '../../shared/format/schema';
-import { parseYaml } from '../../shared/parse/parse-yaml';
+import { SETUP_SCHEMA_FILE, setupJsonSchema, setupJsonSchemaText } from '@shared/format/json-schema';
+import { setupSchema } from '@shared/format/schema';
+import { parseYaml } from '@shared/parse/parse-yaml';
 import { invalidFixtures, readFixture, validFixtures } from './setup-fixtures';
 
 const committed = readFileSync(fileURLToPath(new URL(`../../${SETUP_SCHEMA_FILE}`, import.meta.url)), 'utf8');

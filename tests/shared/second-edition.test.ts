@@ -1,10 +1,10 @@
 import { describe, expect, it } from 'vitest';
-import { analyzeSetup } from '../../shared/analyze';
-import { changeFindings, outputsDelta } from '../../shared/diff';
-import { evaluate } from '../../shared/evaluate/evaluate';
-import { fromRest, restPositions } from '../../shared/evaluate/rest';
-import { stopPulse, throttleStop } from '../../shared/evaluate/throttle-stop';
-import type { Setup } from '../../shared/format/schema';
+import { analyzeSetup } from '@shared/analyze';
+import { changeFindings, outputsDelta } from '@shared/diff';
+import { evaluate } from '@shared/evaluate/evaluate';
+import { fromRest, restPositions } from '@shared/evaluate/rest';
+import { stopPulse, throttleStop } from '@shared/evaluate/throttle-stop';
+import type { Setup } from '@shared/format/schema';
 import { readFixture } from './setup-fixtures';
 
 // The second edition of the safety model (docs/format.md): stop pulse, rest, link loss per

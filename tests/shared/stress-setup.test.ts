@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { makeStressSetup } from '../../fixtures/stress';
-import { analyzeSetup } from '../../shared/analyze';
-import { evaluate } from '../../shared/evaluate/evaluate';
+import { analyzeSetup } from '@shared/analyze';
+import { evaluate } from '@shared/evaluate/evaluate';
 
 describe('the generated stress setup', () => {
   const text = makeStressSetup();

@@ -3,7 +3,7 @@
 /** Records are keyed by UUID. */
 export type Id = string;
 
-import type { Role } from '../../shared/contract/roles';
+import type { Role } from '@shared/contract/roles';
 
 export type { Role };
 

@@ -1,7 +1,7 @@
 import { spawn, type ChildProcess } from 'node:child_process';
 import { randomBytes } from 'node:crypto';
 import { fileURLToPath } from 'node:url';
-import { defaultConfig, type AppConfig } from '../../../api/config';
+import { defaultConfig, type AppConfig } from '@api/config';
 
 export interface ApiProcess {
   url: string;

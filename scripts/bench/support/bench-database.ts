@@ -2,10 +2,10 @@ import { chmodSync, mkdtempSync, rmSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import type { Sequelize } from 'sequelize';
-import { startCluster, type Cluster } from '../../../api/db/cluster';
-import { migrate } from '../../../api/db/migrate';
-import { createSequelize } from '../../../api/db/sequelize';
-import { initModels } from '../../../api/models';
+import { startCluster, type Cluster } from '@api/db/cluster';
+import { migrate } from '@api/db/migrate';
+import { createSequelize } from '@api/db/sequelize';
+import { initModels } from '@api/models';
 
 export interface BenchDatabase {
   url: string;

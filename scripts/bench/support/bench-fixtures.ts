@@ -1,7 +1,7 @@
 import { randomBytes } from 'node:crypto';
 import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
-import { Membership, User, Workspace } from '../../../api/models';
+import { Membership, User, Workspace } from '@api/models';
 
 export const DEMO_SETUP = readFileSync(
   fileURLToPath(new URL('../../../fixtures/valid/scale-16-channel-two-receivers.yaml', import.meta.url)),

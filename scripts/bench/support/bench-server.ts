@@ -1,7 +1,7 @@
-import { defaultConfig } from '../../../api/config';
-import { createSequelize } from '../../../api/db/sequelize';
-import { startMail } from '../../../api/mail/start-mail';
-import { startServer } from '../../../api/server';
+import { defaultConfig } from '@api/config';
+import { createSequelize } from '@api/db/sequelize';
+import { startMail } from '@api/mail/start-mail';
+import { startServer } from '@api/server';
 
 // The API in a process of its own for the HTTP benchmarks, so the load generator does
 // not share the server's event loop. Prints its address on the first line of stdout.

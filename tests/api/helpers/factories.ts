@@ -1,11 +1,11 @@
 import { randomBytes } from 'node:crypto';
 import type { Express } from 'express';
 import request from 'supertest';
-import { hashPassword } from '../../../api/auth/passwords';
-import { signSession } from '../../../api/auth/tokens';
-import type { AppConfig } from '../../../api/config';
-import { Membership, User, Workspace } from '../../../api/models';
-import type { Role } from '../../../shared/contract/roles';
+import { hashPassword } from '@api/auth/passwords';
+import { signSession } from '@api/auth/tokens';
+import type { AppConfig } from '@api/config';
+import { Membership, User, Workspace } from '@api/models';
+import type { Role } from '@shared/contract/roles';
 
 export const TEST_PASSWORD = 'runway-lights-4021';
 

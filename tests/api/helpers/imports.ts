@@ -1,6 +1,6 @@
 import { setTimeout as sleep } from 'node:timers/promises';
 import { afterAll, beforeAll, expect } from 'vitest';
-import { startImportWorker, type ImportWorker } from '../../../api/portability/import-worker';
+import { startImportWorker, type ImportWorker } from '@api/portability/import-worker';
 import type { Client } from '../models-support';
 import type { TestApp } from './test-app';
 

@@ -1,10 +1,10 @@
 import { afterAll, beforeAll } from 'vitest';
 import type { Sequelize } from 'sequelize';
 import { Op } from 'sequelize';
-import { createApp } from '../../../api/app';
-import type { DeliveryOptions } from '../../../api/mail/delivery';
-import { startMail, type RunningMail } from '../../../api/mail/start-mail';
-import { OutboxMessage } from '../../../api/models';
+import { createApp } from '@api/app';
+import type { DeliveryOptions } from '@api/mail/delivery';
+import { startMail, type RunningMail } from '@api/mail/start-mail';
+import { OutboxMessage } from '@api/models';
 import { useTestApp, type ConfigOverrides, type TestApp } from './test-app';
 
 export const TEST_APP_URL = 'http://bindery.test';

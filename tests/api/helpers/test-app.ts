@@ -2,8 +2,8 @@ import { randomBytes } from 'node:crypto';
 import type { Express } from 'express';
 import type { Sequelize } from 'sequelize';
 import { afterAll, beforeAll } from 'vitest';
-import { createApp } from '../../../api/app';
-import { defaultConfig, type AppConfig } from '../../../api/config';
+import { createApp } from '@api/app';
+import { defaultConfig, type AppConfig } from '@api/config';
 import { openTestDatabase, type TestDatabase } from './test-database';
 
 export type ConfigOverrides = Partial<AppConfig>;

@@ -1,8 +1,8 @@
 import { randomBytes } from 'node:crypto';
 import type { Sequelize } from 'sequelize';
 import { inject } from 'vitest';
-import { createDatabase, dropDatabase, withDatabase } from '../../../api/db/databases';
-import { createSequelize } from '../../../api/db/sequelize';
+import { createDatabase, dropDatabase, withDatabase } from '@api/db/databases';
+import { createSequelize } from '@api/db/sequelize';
 
 export interface TestDatabase {
   name: string;

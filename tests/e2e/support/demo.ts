@@ -1,6 +1,6 @@
 import { inject } from 'vitest';
-import { DEMO_ACCOUNTS, DEMO_PASSWORD, DEMO_WORKSPACE_NAME } from '../../../api/seed/demo-data';
-import type { Role } from '../../../shared/contract/roles';
+import { DEMO_ACCOUNTS, DEMO_PASSWORD, DEMO_WORKSPACE_NAME } from '@api/seed/demo-data';
+import type { Role } from '@shared/contract/roles';
 
 export { DEMO_PASSWORD, DEMO_WORKSPACE_NAME };
 

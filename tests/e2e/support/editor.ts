@@ -11,6 +11,9 @@ export async function openEditorAtLine(page: Page, modelId: string, line: number
   await page.getByRole('complementary', { name: 'Checks' }).getByText('The setup passes every check.').waitFor();
 }
 
+/** What the page has selected: the editor's selection while it has the focus. */
+export const selectedText = (page: Page) => page.evaluate(() => document.getSelection()?.toString() ?? '');
+
 /** Types over the selected line, as a pilot does after picking it. */
 export async function replaceSelection(page: Page, text: string): Promise<void> {
   await page.keyboard.insertText(text);

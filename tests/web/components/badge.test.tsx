@@ -1,5 +1,5 @@
 import { render, screen } from '@testing-library/react';
-import { ReviewStateBadge, SeverityBadge } from '../../../web/components/ui/badge';
+import { ReviewStateBadge, SeverityBadge } from '@web/components/ui/badge';
 
 describe('Badge', () => {
   it.each([

@@ -1,5 +1,5 @@
 import { screen, waitFor, within } from '@testing-library/react';
-import { analyzeSetup } from '../../../shared/analyze';
+import { analyzeSetup } from '@shared/analyze';
 import { fakeServer, sessionRoutes } from '../fake-server';
 import { renderApp } from '../render-app';
 import { editorView } from './code-editor';

@@ -1,5 +1,5 @@
 import { cleanup, screen, waitFor, within } from '@testing-library/react';
-import { diffSetups } from '../../../shared/diff/diff-setups';
+import { diffSetups } from '@shared/diff/diff-setups';
 import { apiError, fakeServer, sessionRoutes, type FakeHandler } from '../fake-server';
 import { renderApp } from '../render-app';
 import { editorView, typeOver } from './code-editor';

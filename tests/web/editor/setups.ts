@@ -1,6 +1,6 @@
 import { readFileSync } from 'node:fs';
 import path from 'node:path';
-import { analyzeSetup } from '../../../shared/analyze';
+import { analyzeSetup } from '@shared/analyze';
 
 // The demo setup (two receivers, 16 channels; fixtures/valid says what it shows) and
 // the slip it guards against: the wing receiver's map copied from the fuselage one.

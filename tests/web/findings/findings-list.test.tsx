@@ -1,8 +1,8 @@
 import { render, screen, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { createMemoryRouter, RouterProvider, useLocation } from 'react-router-dom';
-import { analyzeSetup } from '../../../shared/analyze';
-import { FindingsList } from '../../../web/features/findings/components/findings-list';
+import { analyzeSetup } from '@shared/analyze';
+import { FindingsList } from '@web/features/findings/components/findings-list';
 import { fixtureText } from '../models/model-data';
 
 function EditorStandIn() {

@@ -1,4 +1,4 @@
-import { ApiError, apiRequest, api } from '../../../web/lib/api-client';
+import { ApiError, apiRequest, api } from '@web/lib/api-client';
 import { vi } from 'vitest';
 
 function answer(status: number, body: string | null, contentType = 'application/json') {

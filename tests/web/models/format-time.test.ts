@@ -1,4 +1,4 @@
-import { exactTime, timeAgo } from '../../../web/features/models/format-time';
+import { exactTime, timeAgo } from '@web/features/models/format-time';
 
 // Noon UTC, so the calendar day is the same in every time zone the tests may run in.
 const NOW = Date.UTC(2026, 10, 14, 12);

@@ -1,6 +1,6 @@
 import { screen, waitFor, within } from '@testing-library/react';
 import { BUILDERS, CLUB, fakeServer, sessionRoutes, type FakeHandler } from '../fake-server';
-import { analyzeSetup } from '../../../shared/analyze';
+import { analyzeSetup } from '@shared/analyze';
 import { renderApp } from '../render-app';
 import { fixtureText, modelRecord, modelRoutes, modelView, type ModelRecord } from './model-data';
 

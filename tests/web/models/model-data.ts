@@ -1,9 +1,9 @@
 import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { analyzeSetup } from '../../../shared/analyze';
-import type { Revision } from '../../../shared/contract/model';
-import { compareRevisions, textDiff } from '../../../shared/diff';
+import { analyzeSetup } from '@shared/analyze';
+import type { Revision } from '@shared/contract/model';
+import { compareRevisions, textDiff } from '@shared/diff';
 import { CLUB, demoUser, type FakeHandler } from '../fake-server';
 
 // Models and revisions as the API presents them, built from the repository's fixture

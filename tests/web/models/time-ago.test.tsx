@@ -1,5 +1,5 @@
 import { render } from '@testing-library/react';
-import { TimeAgo } from '../../../web/features/models/components/time-ago';
+import { TimeAgo } from '@web/features/models/components/time-ago';
 
 // A moment years before any run of these tests, so it is always shown as a date.
 const LONG_AGO = '2020-06-09T12:00:00.000Z';

@@ -1,6 +1,6 @@
-import { analyzeSetup } from '../../../shared/analyze';
-import { compareRevisions } from '../../../shared/diff';
-import type { ReviewDetail, ReviewSummary } from '../../../web/features/reviews/types';
+import { analyzeSetup } from '@shared/analyze';
+import { compareRevisions } from '@shared/diff';
+import type { ReviewDetail, ReviewSummary } from '@web/features/reviews/types';
 import { CLUB, demoUser } from '../fake-server';
 import { fixtureText } from '../models/model-data';
 

@@ -1,7 +1,7 @@
 import { screen, within } from '@testing-library/react';
-import { analyzeSetup } from '../../../shared/analyze';
-import { sheetCut, sheetLinkLoss } from '../../../shared/contract/field-sheet';
-import type { FieldSheet } from '../../../web/features/field-sheet/types';
+import { analyzeSetup } from '@shared/analyze';
+import { sheetCut, sheetLinkLoss } from '@shared/contract/field-sheet';
+import type { FieldSheet } from '@web/features/field-sheet/types';
 import { fakeServer, sessionRoutes } from '../fake-server';
 import { fixtureText, modelRecord, modelRoutes } from '../models/model-data';
 import { renderApp } from '../render-app';

@@ -1,8 +1,8 @@
 import { parse } from 'yaml';
-import { analyzeSetup } from '../../../shared/analyze';
-import { findSlot, reuseCheck } from '../../../shared/reuse/reuse-check';
-import { storedSettingsSchema } from '../../../shared/reuse/stored-settings';
-import type { ReuseCheckView, ShelfUnit } from '../../../web/features/shelf/types';
+import { analyzeSetup } from '@shared/analyze';
+import { findSlot, reuseCheck } from '@shared/reuse/reuse-check';
+import { storedSettingsSchema } from '@shared/reuse/stored-settings';
+import type { ReuseCheckView, ShelfUnit } from '@web/features/shelf/types';
 import { CLUB } from '../fake-server';
 import { fixtureText, uuid, type ModelRecord } from '../models/model-data';
 

@@ -3,7 +3,7 @@ import { BUILDERS, CLUB, fakeServer, sessionRoutes, type FakeHandler } from '../
 import { fixtureText, modelRecord, modelRoutes, modelView } from '../models/model-data';
 import { renderApp } from '../render-app';
 import { checkFor, history, unitRecord } from './shelf-data';
-import type { ShelfUnit } from '../../../web/features/shelf/types';
+import type { ShelfUnit } from '@web/features/shelf/types';
 
 const kestrel = modelRecord('Kestrel Mk II', [fixtureText('valid/scale-16-channel-two-receivers.yaml')]);
 

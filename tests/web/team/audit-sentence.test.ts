@@ -1,5 +1,5 @@
-import { auditLine } from '../../../web/features/team/audit-sentence';
-import type { AuditEvent } from '../../../web/features/team/types';
+import { auditLine } from '@web/features/team/audit-sentence';
+import type { AuditEvent } from '@web/features/team/types';
 
 const WS = 'ws-1';
 const PUFFIN = { id: 'm1', name: 'Puffin' };

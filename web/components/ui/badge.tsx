@@ -1,6 +1,6 @@
 import type { ComponentType, ReactNode, SVGProps } from 'react';
-import type { ReviewState } from '../../../shared/contract/review-state';
-import type { Severity } from '../../../shared/findings';
+import type { ReviewState } from '@shared/contract/review-state';
+import type { Severity } from '@shared/findings';
 import { cx } from '../../lib/cx';
 import {
   CheckIcon,

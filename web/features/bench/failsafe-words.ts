@@ -1,4 +1,4 @@
-import type { PinOutput } from '../../../shared/evaluate/evaluate';
+import type { PinOutput } from '@shared/evaluate/evaluate';
 
 /** What a pin is set to do when its receiver loses the link, in the words the bench and the sheet use. */
 export function failsafeWords(failsafe: PinOutput['failsafe']): string {

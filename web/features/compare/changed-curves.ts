@@ -1,5 +1,5 @@
-import { mixCurve, type CurvePoint } from '../../../shared/evaluate/mix-curve';
-import type { Setup } from '../../../shared/format/schema';
+import { mixCurve, type CurvePoint } from '@shared/evaluate/mix-curve';
+import type { Setup } from '@shared/format/schema';
 
 /** One mix whose response differs between two revisions, at one position of its rates switch. */
 export interface ChangedCurve {

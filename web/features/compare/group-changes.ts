@@ -1,4 +1,4 @@
-import { plainText } from '../../../shared/parse/plain-text';
+import { plainText } from '@shared/parse/plain-text';
 import {
   CHANGE_KINDS,
   SECTIONS,
@@ -6,7 +6,7 @@ import {
   type ChangeCounts,
   type ChangeKind,
   type Section,
-} from '../../../shared/diff/types';
+} from '@shared/diff/types';
 
 export interface SectionGroup {
   section: Section;

@@ -1,4 +1,4 @@
-import type { Comparison } from '../../../shared/diff';
+import type { Comparison } from '@shared/diff';
 import type { RevisionModelRef, RevisionSummary } from '../models/types';
 
 /** One side of a compare, as the API names it: the revision and its model. */

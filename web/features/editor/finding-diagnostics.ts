@@ -1,6 +1,6 @@
 import type { Diagnostic } from '@codemirror/lint';
 import type { Text } from '@codemirror/state';
-import type { Finding } from '../../../shared/findings';
+import type { Finding } from '@shared/findings';
 
 const CLOSING: Record<string, string> = { '{': '}', '[': ']' };
 

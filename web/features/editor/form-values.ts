@@ -1,4 +1,4 @@
-import { plainText } from '../../../shared/parse/plain-text';
+import { plainText } from '@shared/parse/plain-text';
 import type { DocumentEdit } from './document-edits';
 
 // Reading the plain YAML value for the forms. The forms show whatever the text holds,

@@ -11,4 +11,4 @@ export type {
   RevisionSummary,
   SavedRevision,
   SetupModelView,
-} from '../../../shared/contract/model';
+} from '@shared/contract/model';

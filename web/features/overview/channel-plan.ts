@@ -1,4 +1,4 @@
-import type { Finding } from '../../../shared/findings';
+import type { Finding } from '@shared/findings';
 
 // The channel plan as the Overview draws it: one row per channel, the functions
 // planned on it, the receiver pins carrying it, and the marks the checks gave it. The

@@ -1,6 +1,6 @@
 // Shapes the review routes answer with (api/presenters/review.ts, api/queries/review-views.ts).
-import type { Comparison } from '../../../shared/diff';
-import type { Finding } from '../../../shared/findings';
+import type { Comparison } from '@shared/diff';
+import type { Finding } from '@shared/findings';
 import type { Id } from '../../types/api';
 import type { ReviewState, RevisionSummary } from '../models/types';
 

@@ -6,7 +6,7 @@ import type {
   PresentedReceiverEvent,
   PresentedReuseCheck,
   Readiness,
-} from '../../../shared/contract/receiver';
+} from '@shared/contract/receiver';
 
 export type ShelfUnit = PresentedReceiver;
 export type UnitInstall = PresentedInstall;

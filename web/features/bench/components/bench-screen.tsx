@@ -1,11 +1,11 @@
 import { useMemo, useState, type ReactNode } from 'react';
 import { useParams, useSearchParams } from 'react-router-dom';
-import { controlsById, switchPositionOf } from '../../../../shared/evaluate/control-value';
-import { evaluate, mixIsActive, mixWeight, valueOf } from '../../../../shared/evaluate/evaluate';
-import { expoCurve } from '../../../../shared/evaluate/expo-curve';
-import { mixCurve } from '../../../../shared/evaluate/mix-curve';
-import { restPositions } from '../../../../shared/evaluate/rest';
-import { setupSchema, type Setup } from '../../../../shared/format/schema';
+import { controlsById, switchPositionOf } from '@shared/evaluate/control-value';
+import { evaluate, mixIsActive, mixWeight, valueOf } from '@shared/evaluate/evaluate';
+import { expoCurve } from '@shared/evaluate/expo-curve';
+import { mixCurve } from '@shared/evaluate/mix-curve';
+import { restPositions } from '@shared/evaluate/rest';
+import { setupSchema, type Setup } from '@shared/format/schema';
 import { Button } from '../../../components/ui/button';
 import { EmptyState } from '../../../components/ui/empty-state';
 import { ErrorState } from '../../../components/ui/error-state';

@@ -1,6 +1,6 @@
 import { useId } from 'react';
-import type { ChannelOutput } from '../../../../shared/evaluate/evaluate';
-import type { Channel } from '../../../../shared/format/schema';
+import type { ChannelOutput } from '@shared/evaluate/evaluate';
+import type { Channel } from '@shared/format/schema';
 import { Badge } from '../../../components/ui/badge';
 import { Card } from '../../../components/ui/card';
 import { BenchTable, Td, Th } from './bench-table';

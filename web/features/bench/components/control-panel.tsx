@@ -1,6 +1,6 @@
 import { useId } from 'react';
-import type { Control } from '../../../../shared/format/schema';
-import { controlValue } from '../../../../shared/evaluate/control-value';
+import type { Control } from '@shared/format/schema';
+import { controlValue } from '@shared/evaluate/control-value';
 import { Card } from '../../../components/ui/card';
 import { cx } from '../../../lib/cx';
 

@@ -1,5 +1,5 @@
 import { useId } from 'react';
-import type { Receiver } from '../../../../shared/format/schema';
+import type { Receiver } from '@shared/format/schema';
 import { Button } from '../../../components/ui/button';
 import { cx } from '../../../lib/cx';
 

@@ -1,5 +1,5 @@
-import type { CurvePoint } from '../../../../shared/evaluate/mix-curve';
-import type { Mix } from '../../../../shared/format/schema';
+import type { CurvePoint } from '@shared/evaluate/mix-curve';
+import type { Mix } from '@shared/format/schema';
 import { Card } from '../../../components/ui/card';
 import { cx } from '../../../lib/cx';
 

@@ -1,6 +1,6 @@
 import { useId } from 'react';
-import type { ReceiverOutput } from '../../../../shared/evaluate/evaluate';
-import type { Receiver } from '../../../../shared/format/schema';
+import type { ReceiverOutput } from '@shared/evaluate/evaluate';
+import type { Receiver } from '@shared/format/schema';
 import { Badge } from '../../../components/ui/badge';
 import { Card } from '../../../components/ui/card';
 import { cx } from '../../../lib/cx';

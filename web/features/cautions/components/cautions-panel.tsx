@@ -2,7 +2,7 @@ import { useId } from 'react';
 import { Card } from '../../../components/ui/card';
 import { WarningIcon } from '../../../components/ui/icons';
 import { cx } from '../../../lib/cx';
-import { CAUTIONS, CAUTIONS_HEADING } from '../../../../shared/cautions';
+import { CAUTIONS, CAUTIONS_HEADING } from '@shared/cautions';
 
 export function CautionsPanel({ className, headingLevel = 2 }: { className?: string; headingLevel?: 2 | 3 }) {
   const Heading = headingLevel === 2 ? 'h2' : 'h3';

@@ -1,6 +1,6 @@
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
 import { api } from '../../../lib/api-client';
-import type { TextDiff } from '../../../../shared/diff';
+import type { TextDiff } from '@shared/diff';
 import type { Id } from '../../../types/api';
 import type { CompareResult } from '../types';
 

@@ -1,5 +1,5 @@
-import type { Change, ChangeCounts, ChangeKind, Section } from '../../../../shared/diff/types';
-import { CHANGE_KINDS } from '../../../../shared/diff/types';
+import type { Change, ChangeCounts, ChangeKind, Section } from '@shared/diff/types';
+import { CHANGE_KINDS } from '@shared/diff/types';
 import { Badge } from '../../../components/ui/badge';
 import { Card } from '../../../components/ui/card';
 import { groupChanges, KIND_WORDS, SECTION_NAMES, valueText } from '../group-changes';

@@ -1,5 +1,5 @@
 import { useMemo } from 'react';
-import { setupSchema } from '../../../../shared/format/schema';
+import { setupSchema } from '@shared/format/schema';
 import { useRevision } from '../../models/api/get-revision';
 import { changedCurves } from '../changed-curves';
 import { MixCurveChange } from './mix-curve-change';

@@ -1,4 +1,4 @@
-import type { FindingsDelta } from '../../../../shared/diff';
+import type { FindingsDelta } from '@shared/diff';
 import { FindingsList } from '../../findings/components/findings-list';
 
 /** What the checks say differently: findings the newer revision brought, and those it cleared. */

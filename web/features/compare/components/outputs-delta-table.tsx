@@ -1,5 +1,5 @@
 import { Fragment } from 'react';
-import type { OutputDelta } from '../../../../shared/diff';
+import type { OutputDelta } from '@shared/diff';
 import { Card } from '../../../components/ui/card';
 
 type Failsafe = OutputDelta['failsafe_before'];

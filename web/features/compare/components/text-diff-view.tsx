@@ -1,5 +1,5 @@
 import { Fragment, useState } from 'react';
-import type { TextDiff, TextRow, TextRowKind } from '../../../../shared/diff';
+import type { TextDiff, TextRow, TextRowKind } from '@shared/diff';
 import { Button } from '../../../components/ui/button';
 import { Card } from '../../../components/ui/card';
 import { cx } from '../../../lib/cx';

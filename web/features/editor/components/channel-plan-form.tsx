@@ -1,4 +1,4 @@
-import { CHANNEL_ROLES, SIDES, SLUG_PATTERN } from '../../../../shared/format/schema';
+import { CHANNEL_ROLES, SIDES, SLUG_PATTERN } from '@shared/format/schema';
 import { Button } from '../../../components/ui/button';
 import { EmptyState } from '../../../components/ui/empty-state';
 import { entriesAt, fieldText, parseWhole, wholeNumber, type FormProps } from '../form-values';

@@ -1,4 +1,4 @@
-import { SLUG_PATTERN } from '../../../../shared/format/schema';
+import { SLUG_PATTERN } from '@shared/format/schema';
 import { Button } from '../../../components/ui/button';
 import { CloseIcon } from '../../../components/ui/icons';
 import { EmptyState } from '../../../components/ui/empty-state';

@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import type { FindingCounts } from '../../../../shared/findings';
+import type { FindingCounts } from '@shared/findings';
 import { SeverityBadge } from '../../../components/ui/badge';
 import { Button } from '../../../components/ui/button';
 import { Dialog } from '../../../components/ui/dialog';

@@ -1,6 +1,6 @@
 import { Suspense, useCallback, useEffect, useId, useMemo, useRef, useState, type ChangeEvent } from 'react';
 import { useLocation, useSearchParams } from 'react-router-dom';
-import { analyzeSetup } from '../../../../shared/analyze';
+import { analyzeSetup } from '@shared/analyze';
 import { lazyScreen } from '../../../app/lazy-screen';
 import { Badge, SeverityBadge } from '../../../components/ui/badge';
 import { Button } from '../../../components/ui/button';

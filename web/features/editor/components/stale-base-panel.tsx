@@ -1,6 +1,6 @@
 import { useId, useMemo, useState } from 'react';
-import { diffSetups } from '../../../../shared/diff/diff-setups';
-import type { Change } from '../../../../shared/diff/types';
+import { diffSetups } from '@shared/diff/diff-setups';
+import type { Change } from '@shared/diff/types';
 import { Button } from '../../../components/ui/button';
 import { ErrorState } from '../../../components/ui/error-state';
 import { StaleIcon } from '../../../components/ui/icons';

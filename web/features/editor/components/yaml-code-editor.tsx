@@ -2,7 +2,7 @@ import { yaml } from '@codemirror/lang-yaml';
 import { lintGutter, setDiagnostics } from '@codemirror/lint';
 import CodeMirror, { EditorSelection, EditorView } from '@uiw/react-codemirror';
 import { useEffect, useMemo, useRef, useState } from 'react';
-import type { Finding } from '../../../../shared/findings';
+import type { Finding } from '@shared/findings';
 import { findingDiagnostics } from '../finding-diagnostics';
 import { editorTheme } from './code-editor-theme';
 

@@ -1,4 +1,4 @@
-import { REBIND_NOTE_SHEET } from '../../../../shared/reuse/rebind-note';
+import { REBIND_NOTE_SHEET } from '@shared/reuse/rebind-note';
 import { ReviewStateBadge } from '../../../components/ui/badge';
 import { CautionsPanel } from '../../cautions/components/cautions-panel';
 import { FindingsList } from '../../findings/components/findings-list';

@@ -1,4 +1,4 @@
-import { describeFailsafe } from '../../../../shared/reuse/stored-settings';
+import { describeFailsafe } from '@shared/reuse/stored-settings';
 import type { SheetReceiver } from '../types';
 
 export function SheetPinTable({ receiver }: { receiver: SheetReceiver }) {

@@ -1,5 +1,5 @@
 import { useId } from 'react';
-import type { ChangeFinding } from '../../../../shared/diff';
+import type { ChangeFinding } from '@shared/diff';
 import { Badge, SeverityBadge } from '../../../components/ui/badge';
 import { CheckIcon } from '../../../components/ui/icons';
 import { cx } from '../../../lib/cx';

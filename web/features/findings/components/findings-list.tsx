@@ -1,5 +1,5 @@
 import { Link } from 'react-router-dom';
-import type { Finding, Severity } from '../../../../shared/findings';
+import type { Finding, Severity } from '@shared/findings';
 import { Badge, SeverityBadge } from '../../../components/ui/badge';
 import { CheckIcon } from '../../../components/ui/icons';
 import { cx } from '../../../lib/cx';

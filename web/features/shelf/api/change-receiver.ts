@@ -1,5 +1,5 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { CreateReceiverInput, UpdateReceiverInput } from '../../../../shared/reuse/receiver-fields';
+import type { CreateReceiverInput, UpdateReceiverInput } from '@shared/reuse/receiver-fields';
 import { api } from '../../../lib/api-client';
 import type { Id } from '../../../types/api';
 import type { Applied, Installed, ShelfUnit, UnitInstall } from '../types';

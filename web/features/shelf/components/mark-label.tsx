@@ -1,4 +1,4 @@
-import { MARK_SWATCHES, type MarkColour } from '../../../../shared/reuse/receiver-fields';
+import { MARK_SWATCHES, type MarkColour } from '@shared/reuse/receiver-fields';
 import { cx } from '../../../lib/cx';
 
 /** The mark on a unit's case: its words, with a swatch of its colour beside them (never the colour alone). */

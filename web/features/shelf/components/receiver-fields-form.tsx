@@ -1,5 +1,5 @@
 import { useState, type FormEvent } from 'react';
-import { MARK_COLOURS, type MarkColour } from '../../../../shared/reuse/receiver-fields';
+import { MARK_COLOURS, type MarkColour } from '@shared/reuse/receiver-fields';
 import { Button } from '../../../components/ui/button';
 import { FormAlert } from '../../../components/ui/form-alert';
 import { SelectField } from '../../../components/ui/select-field';

@@ -1,6 +1,6 @@
 import { useState, type ReactNode } from 'react';
-import { REBIND_NOTE } from '../../../../shared/reuse/rebind-note';
-import type { ReuseChange } from '../../../../shared/reuse/reuse-check';
+import { REBIND_NOTE } from '@shared/reuse/rebind-note';
+import type { ReuseChange } from '@shared/reuse/reuse-check';
 import { Badge } from '../../../components/ui/badge';
 import { CheckIcon, ErrorIcon, InfoIcon, WarningIcon } from '../../../components/ui/icons';
 import { CautionsPanel } from '../../cautions/components/cautions-panel';

@@ -1,5 +1,5 @@
 import { useState, type FormEvent } from 'react';
-import type { StoredFailsafe, StoredSettings } from '../../../../shared/reuse/stored-settings';
+import type { StoredFailsafe, StoredSettings } from '@shared/reuse/stored-settings';
 import { Button } from '../../../components/ui/button';
 import { FormAlert } from '../../../components/ui/form-alert';
 import { isApiError } from '../../../lib/api-client';

@@ -1,4 +1,4 @@
-import { describeFailsafe, type StoredSettings } from '../../../../shared/reuse/stored-settings';
+import { describeFailsafe, type StoredSettings } from '@shared/reuse/stored-settings';
 import { exactTime } from '../../models/format-time';
 
 /** What the unit itself holds, pin by pin, as last recorded. */

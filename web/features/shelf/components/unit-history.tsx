@@ -1,5 +1,5 @@
 import { Link } from 'react-router-dom';
-import { plainText } from '../../../../shared/parse/plain-text';
+import { plainText } from '@shared/parse/plain-text';
 import { EmptyState } from '../../../components/ui/empty-state';
 import { ErrorState } from '../../../components/ui/error-state';
 import { LoadingState } from '../../../components/ui/loading-state';
