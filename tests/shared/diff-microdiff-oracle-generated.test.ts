@@ -27,13 +27,23 @@ const BASES = [
   const text = readFileSync(fileURLToPath(new URL(`../../fixtures/valid/${name}.yaml`, import.meta.url)), 'utf8');
   return setupSchema.parse(analyzeSetup(text).data);
 });
+// One base with accepted findings, so their composite identity (rule + path) is exercised.
+BASES.push({
+  ...BASES[0],
+  accepted: [
+    { rule: 'failsafe-unset', path: 'receivers[id=wing].map[pin=2]', reason: 'The lights may stay as they are' },
+    { rule: 'control-unused', path: 'controls[id=cowl-knob]', reason: 'Kept for the next season' },
+    { rule: 'telemetry-on-secondary', path: '', reason: 'Only one unit reports' },
+  ],
+});
 
 type Json = Record<string, unknown>;
 type Edit =
   | { kind: 'nudge'; pick: number; by: number }
   | { kind: 'remove'; list: number; pick: number }
   | { kind: 'add'; list: number; pick: number }
-  | { kind: 'shuffle'; list: number; seed: number };
+  | { kind: 'shuffle'; list: number; seed: number }
+  | { kind: 'reword'; pick: number };
 
 const edit: fc.Arbitrary<Edit> = fc.oneof(
   {
@@ -47,9 +57,10 @@ const edit: fc.Arbitrary<Edit> = fc.oneof(
   { weight: 1, arbitrary: fc.record({ kind: fc.constant('remove' as const), list: fc.nat(), pick: fc.nat() }) },
   { weight: 1, arbitrary: fc.record({ kind: fc.constant('add' as const), list: fc.nat(), pick: fc.nat() }) },
   { weight: 1, arbitrary: fc.record({ kind: fc.constant('shuffle' as const), list: fc.nat(), seed: fc.nat() }) },
+  { weight: 1, arbitrary: fc.record({ kind: fc.constant('reword' as const), pick: fc.nat() }) },
 );
 
-const IDENTITY_FIELDS = new Set([...Object.values(LIST_KEYS), MAP_KEY, 'format']);
+const IDENTITY_FIELDS = new Set([...Object.values(LIST_KEYS).flatMap((key) => key.split(',')), MAP_KEY, 'format']);
 
 /** Every number and boolean leaf with its holder, identity keys aside. */
 function leaves(value: unknown, out: { holder: Json | unknown[]; key: string | number }[] = []) {
@@ -75,6 +86,18 @@ function lists(doc: Json): { items: Json[]; key: string }[] {
   return found.filter(({ items }) => Array.isArray(items));
 }
 
+/** Gives a copied entry an identity no other entry of its list has. */
+function giveFreshKey(items: Json[], key: string, copy: Json): void {
+  if (key.includes(',')) {
+    // An accepted finding: the same rule at another path is another entry.
+    let n = 2;
+    while (items.some((item) => item.rule === copy.rule && item.path === `${String(copy.path)}.copy-${n}`)) n += 1;
+    copy.path = `${String(copy.path)}.copy-${n}`;
+    return;
+  }
+  copy[key] = freshKey(items, key, copy[key]);
+}
+
 function freshKey(items: Json[], key: string, from: unknown): string | number {
   const taken = new Set(items.map((item) => item[key]));
   if (typeof from === 'number') {
@@ -97,6 +120,13 @@ function apply(doc: Json, change: Edit): void {
       typeof current === 'boolean' ? !current : (current as number) + (change.by === 0 ? 1 : change.by);
     return;
   }
+  if (change.kind === 'reword') {
+    const accepted = doc.accepted as Json[] | undefined;
+    if (!accepted || accepted.length === 0) return;
+    const entry = accepted[change.pick % accepted.length];
+    entry.reason = `${String(entry.reason)}, looked at again`;
+    return;
+  }
   const every = lists(doc);
   const { items, key } = every[change.list % every.length];
   if (items.length === 0) return;
@@ -104,7 +134,7 @@ function apply(doc: Json, change: Edit): void {
   if (change.kind === 'remove') items.splice(index, 1);
   else if (change.kind === 'add') {
     const copy = structuredClone(items[index]);
-    copy[key] = freshKey(items, key, items[index][key]);
+    giveFreshKey(items, key, copy);
     items.push(copy);
   } else {
     let seed = change.seed;

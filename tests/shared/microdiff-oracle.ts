@@ -19,7 +19,10 @@ export function keyed(data: unknown): unknown {
             ...item,
             map: Object.fromEntries(item.map.map((e: Record<string, unknown>) => [String(e[MAP_KEY]), e])),
           };
-        return [String(item[key]), item];
+        // A composite key (accepted: rule and path) names every field, as paths write it.
+        const fields = key.split(',');
+        const name = fields.length === 1 ? String(item[key]) : fields.map((f) => `${f}=${String(item[f])}`).join(',');
+        return [name, item];
       }),
     );
   }
@@ -32,7 +35,8 @@ export function semantic(path: (string | number)[]): string {
   for (let i = 0; i < path.length; i += 1) {
     const step = String(path[i]);
     const parent = i > 0 ? String(path[i - 1]) : '';
-    if (i > 0 && i === 1 && LIST_KEYS[parent]) out += `[${LIST_KEYS[parent]}=${step}]`;
+    if (i === 1 && LIST_KEYS[parent])
+      out += LIST_KEYS[parent].includes(',') ? `[${step}]` : `[${LIST_KEYS[parent]}=${step}]`;
     else if (parent === 'map' && i === 3) out += `[pin=${step}]`;
     else if (typeof path[i] === 'number') break;
     else out += out === '' ? step : `.${step}`;
