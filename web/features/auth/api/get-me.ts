@@ -2,13 +2,14 @@ import { queryOptions, useQuery } from '@tanstack/react-query';
 import { api, ApiError } from '../../../lib/api-client';
 import { SESSION_QUERY_KEY } from '../../../lib/query-client';
 import type { Session } from '../../../types/api';
+import { paths } from '../../../lib/api-paths';
 
 /**
  * The session: `/api/session` answers 200 with null when signed out, so the first visit
  * logs no failed request; the screens still see signed-out as the 401 they handle.
  */
 export async function getMe(signal?: AbortSignal): Promise<Session> {
-  const session = (await api.get<Session | null>('/api/session', signal)).data;
+  const session = (await api.get<Session | null>(paths.session(), signal)).data;
   if (!session) throw new ApiError(401, { code: 'signed-out', message: 'Sign in to continue.' });
   return session;
 }

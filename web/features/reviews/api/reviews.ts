@@ -2,23 +2,22 @@ import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/r
 import { api } from '../../../lib/api-client';
 import type { Id } from '../../../types/api';
 import type { ChecklistEntry, CommentEntry, ReviewDetail, ReviewSummary, Verdict, VerdictEntry } from '../types';
+import { paths } from '../../../lib/api-paths';
 
 export const reviewQueryKey = (reviewId: Id) => ['reviews', reviewId] as const;
 export const workspaceReviewsQueryKey = (workspaceId: Id) => ['workspaces', workspaceId, 'reviews'] as const;
 export const modelReviewsQueryKey = (modelId: Id) => ['models', modelId, 'reviews'] as const;
 
 export async function listWorkspaceReviews(workspaceId: Id, signal?: AbortSignal): Promise<ReviewSummary[]> {
-  return (
-    await api.get<ReviewSummary[]>(`/api/workspaces/${encodeURIComponent(workspaceId)}/reviews?limit=200`, signal)
-  ).data;
+  return (await api.get<ReviewSummary[]>(paths.workspaceReviews(workspaceId, { limit: 200 }), signal)).data;
 }
 
 export async function listModelReviews(modelId: Id, signal?: AbortSignal): Promise<ReviewSummary[]> {
-  return (await api.get<ReviewSummary[]>(`/api/models/${encodeURIComponent(modelId)}/reviews?limit=200`, signal)).data;
+  return (await api.get<ReviewSummary[]>(paths.modelReviews(modelId, { limit: 200 }), signal)).data;
 }
 
 export async function getReview(reviewId: Id, signal?: AbortSignal): Promise<ReviewDetail> {
-  return (await api.get<ReviewDetail>(`/api/reviews/${encodeURIComponent(reviewId)}`, signal)).data;
+  return (await api.get<ReviewDetail>(paths.review(reviewId), signal)).data;
 }
 
 export function workspaceReviewsQueryOptions(workspaceId: Id) {
@@ -67,7 +66,7 @@ export interface RequestReviewInput {
 }
 
 export async function requestReview({ revisionId, ...body }: RequestReviewInput): Promise<ReviewSummary> {
-  return (await api.post<ReviewSummary>(`/api/revisions/${encodeURIComponent(revisionId)}/reviews`, body)).data;
+  return (await api.post<ReviewSummary>(paths.revisionReviews(revisionId), body)).data;
 }
 
 export function useRequestReview() {
@@ -84,12 +83,8 @@ export async function giveVerdict(
   reviewId: Id,
   input: VerdictInput,
 ): Promise<VerdictEntry & { review: { id: Id; state: string } }> {
-  return (
-    await api.post<VerdictEntry & { review: { id: Id; state: string } }>(
-      `/api/reviews/${encodeURIComponent(reviewId)}/verdicts`,
-      input,
-    )
-  ).data;
+  return (await api.post<VerdictEntry & { review: { id: Id; state: string } }>(paths.reviewVerdicts(reviewId), input))
+    .data;
 }
 
 export function useGiveVerdict(review: Pick<ReviewDetail, 'id' | 'workspace_id' | 'model'>) {
@@ -101,8 +96,7 @@ export function useGiveVerdict(review: Pick<ReviewDetail, 'id' | 'workspace_id' 
 }
 
 export async function tickItem(reviewId: Id, item: string, ticked: boolean): Promise<ChecklistEntry[]> {
-  return (await api.post<ChecklistEntry[]>(`/api/reviews/${encodeURIComponent(reviewId)}/checklist`, { item, ticked }))
-    .data;
+  return (await api.post<ChecklistEntry[]>(paths.reviewChecklist(reviewId), { item, ticked })).data;
 }
 
 /** Ticks at once on screen (a checkbox must answer the click), set right by the server's answer or undone on failure. */
@@ -133,7 +127,7 @@ export function useTickItem(review: Pick<ReviewDetail, 'id'>) {
 }
 
 export async function addComment(reviewId: Id, input: { path?: string; body: string }): Promise<CommentEntry> {
-  return (await api.post<CommentEntry>(`/api/reviews/${encodeURIComponent(reviewId)}/comments`, input)).data;
+  return (await api.post<CommentEntry>(paths.reviewComments(reviewId), input)).data;
 }
 
 export function useAddComment(review: Pick<ReviewDetail, 'id' | 'workspace_id'>) {

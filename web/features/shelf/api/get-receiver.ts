@@ -2,11 +2,12 @@ import { queryOptions, useQuery } from '@tanstack/react-query';
 import { api } from '../../../lib/api-client';
 import type { Id } from '../../../types/api';
 import type { ShelfUnit, UnitHistory } from '../types';
+import { paths } from '../../../lib/api-paths';
 
 export const receiverQueryKey = (receiverId: Id) => ['receivers', receiverId] as const;
 
 export async function getReceiver(receiverId: Id, signal?: AbortSignal): Promise<ShelfUnit> {
-  return (await api.get<ShelfUnit>(`/api/receivers/${encodeURIComponent(receiverId)}`, signal)).data;
+  return (await api.get<ShelfUnit>(paths.receiver(receiverId), signal)).data;
 }
 
 export function receiverQueryOptions(receiverId: Id) {
@@ -22,7 +23,7 @@ export function useReceiver(receiverId: Id) {
 }
 
 export async function getReceiverHistory(receiverId: Id, signal?: AbortSignal): Promise<UnitHistory> {
-  return (await api.get<UnitHistory>(`/api/receivers/${encodeURIComponent(receiverId)}/history`, signal)).data;
+  return (await api.get<UnitHistory>(paths.receiverHistory(receiverId), signal)).data;
 }
 
 /** Where the unit has been, and every recorded change to it, newest first. */

@@ -3,11 +3,12 @@ import { api } from '../../../lib/api-client';
 import type { Id, Role } from '../../../types/api';
 import type { Invitation } from '../types';
 import { auditQueryKey } from './get-audit';
+import { paths } from '../../../lib/api-paths';
 
 export const invitationsQueryKey = (workspaceId: Id) => ['workspaces', workspaceId, 'invitations'] as const;
 
 export async function listInvitations(workspaceId: Id, signal?: AbortSignal): Promise<Invitation[]> {
-  return (await api.get<Invitation[]>(`/api/workspaces/${encodeURIComponent(workspaceId)}/invitations`, signal)).data;
+  return (await api.get<Invitation[]>(paths.workspaceInvitations(workspaceId), signal)).data;
 }
 
 export function invitationsQueryOptions(workspaceId: Id) {
@@ -28,15 +29,11 @@ export interface InviteInput {
 }
 
 export async function inviteMember(workspaceId: Id, input: InviteInput): Promise<Invitation> {
-  return (await api.post<Invitation>(`/api/workspaces/${encodeURIComponent(workspaceId)}/invitations`, input)).data;
+  return (await api.post<Invitation>(paths.workspaceInvitations(workspaceId), input)).data;
 }
 
 export async function revokeInvitation(workspaceId: Id, invitationId: Id): Promise<Invitation> {
-  return (
-    await api.delete<Invitation>(
-      `/api/workspaces/${encodeURIComponent(workspaceId)}/invitations/${encodeURIComponent(invitationId)}`,
-    )
-  ).data;
+  return (await api.delete<Invitation>(paths.workspaceInvitation(workspaceId, invitationId))).data;
 }
 
 function useRefreshTeam(workspaceId: Id) {
