@@ -121,7 +121,7 @@ export async function acceptWithNewAccount(
         );
       }
       const user = await User.create({ email: invitation.email, name: account.name, passwordHash }, { transaction });
-      await createWorkspace(user, `${account.name}'s workspace`, transaction);
+      await createWorkspace(sequelize, { owner: user, name: `${account.name}'s workspace`, transaction });
       return { invitation, user, membership: await join(invitation, user, transaction, true) };
     });
   } catch (error) {

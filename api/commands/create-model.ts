@@ -2,7 +2,8 @@ import type { Sequelize, Transaction } from 'sequelize';
 import { Revision, SetupModel, type User, type Workspace } from '../models';
 import { starterSetup, type Airframe } from '../starter-setup';
 import { recordAuditEvent } from './record-audit-event';
-import { airframeOf, appendRevision, checkSetupText, inTransaction, type CheckedSetup } from './save-revision';
+import { inTransaction } from '../db/transaction';
+import { airframeOf, appendRevision, checkSetupText, type CheckedSetup } from './save-revision';
 
 export interface CreateModelInput {
   workspace: Workspace;

@@ -2,7 +2,8 @@ import type { Sequelize, Transaction } from 'sequelize';
 import type { Revision, SetupModel, User, Workspace } from '../models';
 import { insertModelWithFirstRevision, type CreatedModel } from './create-model';
 import { recordAuditEvent } from './record-audit-event';
-import { checkSetupText, inTransaction } from './save-revision';
+import { inTransaction } from '../db/transaction';
+import { checkSetupText } from './save-revision';
 
 export interface ForkInput {
   source: { model: SetupModel; revision: Revision };

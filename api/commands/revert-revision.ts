@@ -1,7 +1,8 @@
 import type { Sequelize, Transaction } from 'sequelize';
 import { NotFound } from '../errors';
 import { Revision, type User } from '../models';
-import { appendRevision, checkSetupText, inTransaction, lockModel, requireLatestBase } from './save-revision';
+import { inTransaction } from '../db/transaction';
+import { appendRevision, checkSetupText, lockModel, requireLatestBase } from './save-revision';
 
 export interface RevertInput {
   modelId: string;

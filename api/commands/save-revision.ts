@@ -3,24 +3,13 @@ import { analyzeSetup, type Analysis } from '@shared/analyze';
 import { contentHash } from '@shared/canonical/content-hash';
 import { AIRFRAMES } from '@shared/format/schema';
 import { MAX_TEXT_BYTES } from '@shared/parse/limits';
+import { inTransaction } from '../db/transaction';
 import { Conflict, NotFound, TooLarge, Unprocessable } from '../errors';
 import { Revision, SetupModel, type User } from '../models';
 import type { RevisionOrigin } from '../models/Revision';
 import type { AuditAction } from './record-audit-event';
 
 /** Setup text that has been read and checked, ready to be stored. */
-/**
- * Runs `work` in the caller's transaction when there is one (the demo seed writes a
- * whole history in one), otherwise in a transaction of its own.
- */
-export function inTransaction<T>(
-  sequelize: Sequelize,
-  outer: Transaction | undefined,
-  work: (transaction: Transaction) => Promise<T>,
-): Promise<T> {
-  return outer ? work(outer) : sequelize.transaction(work);
-}
-
 export interface CheckedSetup {
   text: string;
   analysis: Analysis & { readable: true };

@@ -103,12 +103,9 @@ export function receiversRouter({ sequelize, config }: AppContext): Router {
 
   router.patch('/receivers/:id', signedIn, async (req, res) => {
     const input = parseInput(updateReceiverSchema, req.body);
-    const presented = await sequelize.transaction(async (transaction) => {
-      const { receiver } = await authorizeReceiver(req, req.params.id, 'write', transaction);
-      await updateReceiver(receiver, input, currentUser(req), transaction);
-      return presentOnShelf(receiver, transaction);
-    });
-    res.json({ data: presented });
+    const { receiver: found } = await authorizeReceiver(req, req.params.id, 'write');
+    const receiver = await updateReceiver(sequelize, { receiverId: found.id, changes: input, actor: currentUser(req) });
+    res.json({ data: await presentOnShelf(receiver) });
   });
 
   router.get('/receivers/:id/reuse-check', signedIn, async (req, res) => {

@@ -1,13 +1,13 @@
 import { Router } from 'express';
 import { Op } from 'sequelize';
-import { giveVerdict, setTicks } from '../commands/give-verdict';
-import { recordAuditEvent } from '../commands/record-audit-event';
+import { commentOnReview } from '../commands/comment-on-review';
+import { giveVerdict } from '../commands/give-verdict';
 import { requestReview } from '../commands/request-review';
+import { tickChecklist } from '../commands/tick-checklist';
 import type { AppContext } from '../context';
-import { Unprocessable } from '../errors';
 import { mailFor } from '../mail/context';
 import { authenticate, currentUser } from '../middleware/authenticate';
-import { ReviewComment, Workspace } from '../models';
+import { Workspace } from '../models';
 import { authorizeModel, authorizeRevision, authorizeWorkspace } from '../policies/model';
 import { authorizeReview } from '../policies/review';
 import { presentVerdict } from '../presenters/review';
@@ -18,7 +18,6 @@ import {
   presentReviewList,
   reviewDetail,
 } from '../queries/review-views';
-import { anchorExists, readAnchor } from '../reviews/anchor-path';
 import { parseInput } from '../validation';
 import { commentSchema, requestReviewSchema, reviewListQuery, tickSchema, verdictSchema } from './review-inputs';
 
@@ -88,9 +87,11 @@ export function reviewsRouter(context: AppContext): Router {
   router.post('/reviews/:id/checklist', signedIn, async (req, res) => {
     const input = parseInput(tickSchema, req.body);
     const access = await authorizeReview(req, req.params.id, 'tick');
-    await sequelize.transaction((transaction) =>
-      setTicks(access.review, currentUser(req), { [input.item]: input.ticked }, transaction),
-    );
+    await tickChecklist(sequelize, {
+      review: access.review,
+      user: currentUser(req),
+      changes: { [input.item]: input.ticked },
+    });
     const detail = await reviewDetail(access, currentUser(req));
     res.json({ data: detail.checklist });
   });
@@ -99,52 +100,7 @@ export function reviewsRouter(context: AppContext): Router {
     const input = parseInput(commentSchema, req.body);
     const access = await authorizeReview(req, req.params.id, 'comment');
     const { review } = access;
-    if (input.path !== undefined) {
-      if (!readAnchor(input.path)) {
-        throw new Unprocessable(
-          'The path is not a semantic path Bindery can read, like receivers[id=wing].map[pin=3].',
-          { code: 'invalid-path', details: { fields: { path: 'Write the path like receivers[id=wing].map[pin=3].' } } },
-        );
-      }
-      if (!anchorExists(review.revision.document, input.path)) {
-        throw new Unprocessable(`Nothing in revision ${review.revision.number} is at ${input.path}.`, {
-          code: 'path-not-found',
-          details: { fields: { path: 'This path does not exist in the reviewed revision.' } },
-        });
-      }
-    }
-    const user = currentUser(req);
-    const comment = await sequelize.transaction(async (transaction) => {
-      const created = await ReviewComment.create(
-        {
-          reviewId: review.id,
-          revisionId: review.revision.id,
-          modelId: review.modelId,
-          path: input.path ?? null,
-          body: input.body,
-          authorId: user.id,
-        },
-        { transaction },
-      );
-      await recordAuditEvent(
-        {
-          workspaceId: review.workspaceId,
-          actor: user,
-          action: 'review.commented',
-          subjectType: 'review',
-          subjectId: review.id,
-          details: {
-            model_id: review.model.id,
-            model_name: review.model.name,
-            number: review.revision.number,
-            path: created.path,
-          },
-        },
-        transaction,
-      );
-      return created;
-    });
-    comment.revision = review.revision;
+    const comment = await commentOnReview(sequelize, { review, author: currentUser(req), ...input });
     const [presented] = await presentCommentsOn(review.revision, [comment]);
     res.status(201).json({ data: presented });
   });

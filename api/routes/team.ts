@@ -1,20 +1,17 @@
 import { Router } from 'express';
 import { changeMemberRole, removeMember } from '../commands/manage-members';
 import { inviteMember, pendingInvitations } from '../commands/invite-member';
-import { recordAuditEvent } from '../commands/record-audit-event';
+import { invitationNotFound, revokeInvitation } from '../commands/revoke-invitation';
 import type { AppContext } from '../context';
 import { NotFound } from '../errors';
 import { mailFor } from '../mail/context';
 import { authenticate, currentUser } from '../middleware/authenticate';
-import { Invitation } from '../models';
 import { requireRole } from '../policies/workspace';
 import { presentInvitation } from '../presenters/invitation';
 import { presentMember } from '../presenters/workspace';
 import { idSchema, parseInput } from '../validation';
 import { changeRoleSchema, inviteSchema } from './team-inputs';
 
-const invitationNotFound = () =>
-  new NotFound('No such invitation in this workspace.', { code: 'invitation-not-found' });
 const memberNotFound = () =>
   new NotFound('This person is not a member of the workspace.', { code: 'member-not-found' });
 
@@ -51,28 +48,7 @@ export function teamRouter(context: AppContext): Router {
     const { workspace } = await requireRole(req, req.params.ws, 'owner');
     const id = idSchema.safeParse(req.params.id);
     if (!id.success) throw invitationNotFound();
-    const invitation = await sequelize.transaction(async (transaction) => {
-      const found = await Invitation.findOne({
-        where: { id: id.data, workspaceId: workspace.id },
-        lock: transaction.LOCK.UPDATE,
-        transaction,
-      });
-      if (!found) throw invitationNotFound();
-      if (found.statusAt(new Date()) !== 'pending') return found;
-      await found.update({ revokedAt: new Date() }, { transaction });
-      await recordAuditEvent(
-        {
-          workspaceId: workspace.id,
-          actor: currentUser(req),
-          action: 'invitation.revoked',
-          subjectType: 'invitation',
-          subjectId: found.id,
-          details: { email: found.email, role: found.role },
-        },
-        transaction,
-      );
-      return found;
-    });
+    const invitation = await revokeInvitation(sequelize, { workspace, invitationId: id.data, actor: currentUser(req) });
     res.json({ data: presentInvitation(invitation) });
   });
 

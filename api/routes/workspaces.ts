@@ -39,9 +39,7 @@ export function workspacesRouter({ sequelize, config }: AppContext): Router {
 
   router.post('/workspaces', async (req, res) => {
     const { name } = parseInput(createSchema, req.body);
-    const workspace = await sequelize.transaction((transaction) =>
-      createWorkspace(currentUser(req), name, transaction),
-    );
+    const workspace = await createWorkspace(sequelize, { owner: currentUser(req), name });
     res.status(201).json({ data: presentWorkspace(workspace, 'owner') });
   });
 
