@@ -47,6 +47,16 @@ const LAYERS = [
     message: 'Presenters shape records; they do not command.',
   },
   {
+    target: './api/revisions',
+    from: ['./api/routes', './api/commands', './api/queries', './api/policies', './api/portability'],
+    message: 'The revision store (check, lock, base check, append) is called by commands and imports; it calls none.',
+  },
+  {
+    target: './api/audit',
+    from: ['./api/routes', './api/commands', './api/queries', './api/policies', './api/revisions', './api/portability'],
+    message: 'The audit recorder writes entries for whoever calls it; it depends on nobody above.',
+  },
+  {
     target: './api/portability',
     from: ['./api/routes'],
     message: 'Portability is called by routes, not the other way.',

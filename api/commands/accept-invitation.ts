@@ -5,7 +5,7 @@ import { Conflict, Forbidden, HttpError, NotFound } from '../errors';
 import { Invitation, Membership, User, Workspace } from '../models';
 import { emailTaken } from './create-account';
 import { createWorkspace } from './create-workspace';
-import { recordAuditEvent } from './record-audit-event';
+import { recordAuditEvent } from '../audit/record-audit-event';
 
 export const invitationNotFound = () =>
   new NotFound('This invitation no longer exists.', { code: 'invitation-not-found' });

@@ -3,7 +3,7 @@ import { Unprocessable } from '../errors';
 import { ReviewComment, type User } from '../models';
 import type { ReviewAccess } from '../policies/review';
 import { anchorExists, readAnchor } from '../reviews/anchor-path';
-import { recordAuditEvent } from './record-audit-event';
+import { recordAuditEvent } from '../audit/record-audit-event';
 
 export interface CommentInput {
   body: string;

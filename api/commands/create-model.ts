@@ -1,9 +1,10 @@
 import type { Sequelize, Transaction } from 'sequelize';
 import { Revision, SetupModel, type User, type Workspace } from '../models';
 import { starterSetup, type Airframe } from '../starter-setup';
-import { recordAuditEvent } from './record-audit-event';
+import { recordAuditEvent } from '../audit/record-audit-event';
 import { inTransaction } from '../db/transaction';
-import { airframeOf, appendRevision, checkSetupText, type CheckedSetup } from './save-revision';
+import { appendRevision } from '../revisions/append-revision';
+import { airframeOf, checkSetupText, type CheckedSetup } from '../revisions/check-setup';
 
 export interface CreateModelInput {
   workspace: Workspace;

@@ -9,7 +9,7 @@ import { PRE_MAIDEN_CHECKLIST } from '../reviews/checklist';
 import { approvalRefusal } from '../reviews/approval-refusal';
 import { reviewStateFromVerdicts } from '../reviews/sign-off';
 import type { ReviewAccess } from '../policies/review';
-import { recordAuditEvent } from './record-audit-event';
+import { recordAuditEvent } from '../audit/record-audit-event';
 import { setTicks } from './tick-checklist';
 
 export interface VerdictInput {

@@ -7,7 +7,7 @@ import type { MailService } from '../mail/mail-service';
 import { invitationMail } from '../mail/messages';
 import { Invitation, Membership, User, type Workspace } from '../models';
 import type { Role } from '@shared/contract/roles';
-import { recordAuditEvent } from './record-audit-event';
+import { recordAuditEvent } from '../audit/record-audit-event';
 
 export const INVITATION_TTL_MS = 7 * 24 * 60 * 60 * 1000;
 

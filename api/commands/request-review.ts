@@ -6,7 +6,7 @@ import { reviewRequestedMail } from '../mail/messages';
 import { Membership, Review, User, type Revision, type SetupModel, type Workspace } from '../models';
 import { roleAtLeast } from '@shared/contract/roles';
 import { contributorsOf } from '../reviews/contributors';
-import { recordAuditEvent } from './record-audit-event';
+import { recordAuditEvent } from '../audit/record-audit-event';
 
 export interface ReviewRequest {
   workspace: Workspace;

@@ -2,7 +2,10 @@ import type { Sequelize, Transaction } from 'sequelize';
 import { NotFound } from '../errors';
 import { Revision, type User } from '../models';
 import { inTransaction } from '../db/transaction';
-import { appendRevision, checkSetupText, lockModel, requireLatestBase } from './save-revision';
+import { appendRevision } from '../revisions/append-revision';
+import { requireLatestBase } from '../revisions/check-base';
+import { checkSetupText } from '../revisions/check-setup';
+import { lockModel } from '../revisions/lock-model';
 
 export interface RevertInput {
   modelId: string;

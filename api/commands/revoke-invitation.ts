@@ -1,7 +1,7 @@
 import type { Sequelize } from 'sequelize';
 import { NotFound } from '../errors';
 import { Invitation, type User, type Workspace } from '../models';
-import { recordAuditEvent } from './record-audit-event';
+import { recordAuditEvent } from '../audit/record-audit-event';
 
 export const invitationNotFound = () =>
   new NotFound('No such invitation in this workspace.', { code: 'invitation-not-found' });

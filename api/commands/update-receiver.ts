@@ -3,7 +3,7 @@ import type { MarkColour } from '@shared/reuse/receiver-fields';
 import type { StoredSettings } from '@shared/reuse/stored-settings';
 import { Unprocessable } from '../errors';
 import { Receiver, type User } from '../models';
-import { recordReceiverEvent } from './record-receiver-event';
+import { recordReceiverEvent } from '../audit/record-receiver-event';
 
 export interface ReceiverChanges {
   label?: string;
