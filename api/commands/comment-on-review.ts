@@ -1,7 +1,7 @@
 import type { Sequelize } from 'sequelize';
 import { Unprocessable } from '../errors';
 import { ReviewComment, type User } from '../models';
-import type { ReviewAccess } from '../policies/review';
+import type { GrantedReview } from '../access/records';
 import { anchorExists, readAnchor } from '../reviews/anchor-path';
 import { recordAuditEvent } from '../audit/record-audit-event';
 
@@ -12,7 +12,7 @@ export interface CommentInput {
 }
 
 /** Refuses an anchor that cannot be read, or that names nothing in the reviewed revision. */
-function requireAnchor(review: ReviewAccess['review'], path: string): void {
+function requireAnchor(review: GrantedReview['review'], path: string): void {
   if (!readAnchor(path)) {
     throw new Unprocessable('The path is not a semantic path Bindery can read, like receivers[id=wing].map[pin=3].', {
       code: 'invalid-path',
@@ -30,7 +30,7 @@ function requireAnchor(review: ReviewAccess['review'], path: string): void {
 /** A comment on the review's revision, with its entry in the audit trail. */
 export async function commentOnReview(
   sequelize: Sequelize,
-  input: { review: ReviewAccess['review']; author: User } & CommentInput,
+  input: { review: GrantedReview['review']; author: User } & CommentInput,
 ): Promise<ReviewComment> {
   const { review, author } = input;
   if (input.path !== undefined) requireAnchor(review, input.path);

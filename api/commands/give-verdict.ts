@@ -8,7 +8,7 @@ import type { Verdict } from '../models/ReviewVerdict';
 import { PRE_MAIDEN_CHECKLIST } from '../reviews/checklist';
 import { approvalRefusal } from '../reviews/approval-refusal';
 import { reviewStateFromVerdicts } from '../reviews/sign-off';
-import type { ReviewAccess } from '../policies/review';
+import type { GrantedReview } from '../access/records';
 import { recordAuditEvent } from '../audit/record-audit-event';
 import { setTicks } from './tick-checklist';
 
@@ -26,7 +26,7 @@ export interface VerdictInput {
 export async function giveVerdict(
   sequelize: Sequelize,
   mail: MailService,
-  access: ReviewAccess,
+  access: GrantedReview,
   user: User,
   input: VerdictInput,
 ): Promise<{ verdict: ReviewVerdict; review: Review }> {

@@ -3,7 +3,8 @@ import { literal } from 'sequelize';
 import type { AppContext } from '../context';
 import { authenticate } from '../middleware/authenticate';
 import { AuditEvent, User } from '../models';
-import { authorizeWorkspace } from '../policies/model';
+import { modelPolicy } from '../policies/model';
+import { authorizeWorkspace } from './authorize';
 import { presentAuditEvent, type AuditSubjectModel } from '../presenters/audit';
 import { parseInput } from '../validation';
 import { auditQuery } from './model-inputs';
@@ -28,7 +29,7 @@ export function auditRouter({ config }: AppContext): Router {
 
   router.get('/workspaces/:ws/audit', authenticate(config), async (req, res) => {
     const { limit, offset } = parseInput(auditQuery, req.query, 'The paging parameters are not valid.');
-    const { workspace } = await authorizeWorkspace(req, req.params.ws, 'audit');
+    const { workspace } = await authorizeWorkspace(req, req.params.ws, modelPolicy, 'audit');
     const { rows, count } = await AuditEvent.findAndCountAll({
       where: { workspaceId: workspace.id },
       attributes: { include: [[SUBJECT_MODEL, 'subjectModel']] },

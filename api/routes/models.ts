@@ -10,7 +10,8 @@ import { NotFound } from '../errors';
 import { authenticate, currentUser } from '../middleware/authenticate';
 import { readSetupUpload } from '../middleware/setup-upload';
 import { Revision, SetupModel } from '../models';
-import { authorizeModel, authorizeWorkspace } from '../policies/model';
+import { modelPolicy } from '../policies/model';
+import { authorizeModel, authorizeWorkspace } from './authorize';
 import { presentSavedRevision } from '../presenters/revision';
 import { presentModels, presentOneModel } from '../queries/model-views';
 import { parseInput } from '../validation';
@@ -42,7 +43,7 @@ export function modelsRouter({ sequelize, config }: AppContext): Router {
 
   router.get('/workspaces/:ws/models', signedIn, async (req, res) => {
     const { q, limit, offset } = parseInput(hangarQuery, req.query, 'The search parameters are not valid.');
-    const { workspace, role } = await authorizeWorkspace(req, req.params.ws, 'read');
+    const { workspace, role } = await authorizeWorkspace(req, req.params.ws, modelPolicy, 'read');
     const where: WhereOptions<SetupModel> = { workspaceId: workspace.id };
     if (q) {
       const pattern = `%${escapeLike(q)}%`;
@@ -62,7 +63,7 @@ export function modelsRouter({ sequelize, config }: AppContext): Router {
 
   router.post('/workspaces/:ws/models', signedIn, async (req, res) => {
     const input = parseInput(createModelSchema, req.body);
-    const { workspace, role } = await authorizeWorkspace(req, req.params.ws, 'create');
+    const { workspace, role } = await authorizeWorkspace(req, req.params.ws, modelPolicy, 'create');
     const user = currentUser(req);
     const { model, revision } = await createModel(sequelize, { workspace, author: user, ...input });
     res
@@ -71,7 +72,7 @@ export function modelsRouter({ sequelize, config }: AppContext): Router {
   });
 
   router.post('/workspaces/:ws/models/upload', signedIn, async (req, res) => {
-    const { workspace, role } = await authorizeWorkspace(req, req.params.ws, 'create');
+    const { workspace, role } = await authorizeWorkspace(req, req.params.ws, modelPolicy, 'create');
     const upload = await readSetupUpload(req, res);
     const fields = parseInput(uploadModelFields, upload.fields, 'Some form fields need attention.');
     const user = currentUser(req);
@@ -111,7 +112,7 @@ export function modelsRouter({ sequelize, config }: AppContext): Router {
         code: 'revision-not-found',
         details: { number: input.number },
       });
-    const { workspace, role } = await authorizeWorkspace(req, input.workspace, 'create');
+    const { workspace, role } = await authorizeWorkspace(req, input.workspace, modelPolicy, 'create');
     const user = currentUser(req);
     const { model, revision } = await forkModel(sequelize, {
       source: { model: sourceModel, revision: sourceRevision },

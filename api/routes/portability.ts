@@ -5,7 +5,8 @@ import type { AppContext } from '../context';
 import { BadRequest, NotFound, TooLarge, Unprocessable, UnsupportedMediaType } from '../errors';
 import { authenticate, currentUser } from '../middleware/authenticate';
 import { SetupModel } from '../models';
-import { authorizeModel, authorizeWorkspace } from '../policies/model';
+import { modelPolicy } from '../policies/model';
+import { authorizeModel, authorizeWorkspace } from './authorize';
 import { loadExportModels, folderSlug } from '../portability/export-data';
 import { exportHistoryBundle } from '../portability/export-history';
 import { findImportJob, listImportJobs, queueImportJob } from '../portability/import-jobs';
@@ -125,7 +126,7 @@ export function portabilityRouter({ sequelize, config }: AppContext): Router {
   });
 
   router.get('/workspaces/:ws/export.git', signedIn, async (req, res) => {
-    const { workspace } = await authorizeWorkspace(req, req.params.ws, 'read');
+    const { workspace } = await authorizeWorkspace(req, req.params.ws, modelPolicy, 'read');
     const models = await SetupModel.findAll({
       where: { workspaceId: workspace.id },
       order: [
@@ -141,7 +142,7 @@ export function portabilityRouter({ sequelize, config }: AppContext): Router {
   });
 
   router.post('/workspaces/:ws/import', signedIn, async (req, res) => {
-    const { workspace, role } = await authorizeWorkspace(req, req.params.ws, 'create');
+    const { workspace, role } = await authorizeWorkspace(req, req.params.ws, modelPolicy, 'create');
     const upload = await readBundleUpload(req, res);
     const fields = parseInput(importFields, upload.fields, 'Some form fields need attention.');
     const user = currentUser(req);
@@ -159,13 +160,13 @@ export function portabilityRouter({ sequelize, config }: AppContext): Router {
   });
 
   router.get('/workspaces/:ws/imports', signedIn, async (req, res) => {
-    const { workspace, role } = await authorizeWorkspace(req, req.params.ws, 'create');
+    const { workspace, role } = await authorizeWorkspace(req, req.params.ws, modelPolicy, 'create');
     const jobs = await listImportJobs(sequelize, workspace.id, 50);
     res.json({ data: await presentImportJobs(jobs, role, currentUser(req)) });
   });
 
   router.get('/workspaces/:ws/imports/:id', signedIn, async (req, res) => {
-    const { workspace, role } = await authorizeWorkspace(req, req.params.ws, 'create');
+    const { workspace, role } = await authorizeWorkspace(req, req.params.ws, modelPolicy, 'create');
     const id = idSchema.safeParse(req.params.id);
     const job = id.success ? await findImportJob(sequelize, workspace.id, id.data) : null;
     if (!job) throw new NotFound('There is no such import in this workspace.', { code: 'import-not-found' });

@@ -11,7 +11,8 @@ import { updateReceiver } from '../commands/update-receiver';
 import type { AppContext } from '../context';
 import { authenticate, currentUser } from '../middleware/authenticate';
 import { AuditEvent, Receiver, ReceiverInstall, SetupModel, User } from '../models';
-import { authorizeReceiver, authorizeShelf, modelOnShelf } from '../policies/receiver';
+import { receiverPolicy } from '../policies/receiver';
+import { authorizeReceiver, authorizeWorkspace, modelOnShelf } from './authorize';
 import { presentInstall, presentReceiver, presentReceiverEvent, presentReuseCheck } from '../presenters/receiver';
 import { checkAgainstLatest } from '../queries/receiver-slot';
 import { openInstalls, presentOnShelf, presentShelf } from '../queries/shelf-view';
@@ -64,7 +65,7 @@ export function receiversRouter({ sequelize, config }: AppContext): Router {
 
   router.get('/workspaces/:ws/receivers', signedIn, async (req, res) => {
     const { q, status, limit, offset } = parseInput(shelfQuery, req.query, 'The search parameters are not valid.');
-    const { workspace } = await authorizeShelf(req, req.params.ws, 'read');
+    const { workspace } = await authorizeWorkspace(req, req.params.ws, receiverPolicy, 'read');
     const conditions: WhereOptions<Receiver>[] = [{ workspaceId: workspace.id }];
     if (q) {
       const pattern = `%${escapeLike(q)}%`;
@@ -91,7 +92,7 @@ export function receiversRouter({ sequelize, config }: AppContext): Router {
 
   router.post('/workspaces/:ws/receivers', signedIn, async (req, res) => {
     const input = parseInput(createReceiverSchema, req.body);
-    const { workspace } = await authorizeShelf(req, req.params.ws, 'write');
+    const { workspace } = await authorizeWorkspace(req, req.params.ws, receiverPolicy, 'write');
     const receiver = await addReceiver(sequelize, { workspace, actor: currentUser(req), ...input });
     res.status(201).json({ data: presentReceiver(receiver, { install: null }) });
   });

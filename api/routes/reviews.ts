@@ -8,8 +8,8 @@ import type { AppContext } from '../context';
 import { mailFor } from '../mail/context';
 import { authenticate, currentUser } from '../middleware/authenticate';
 import { Workspace } from '../models';
-import { authorizeModel, authorizeRevision, authorizeWorkspace } from '../policies/model';
-import { authorizeReview } from '../policies/review';
+import { reviewPolicy } from '../policies/review';
+import { authorizeModel, authorizeReview, authorizeRevision, authorizeWorkspace } from './authorize';
 import { presentVerdict } from '../presenters/review';
 import {
   commentsShownOn,
@@ -47,7 +47,7 @@ export function reviewsRouter(context: AppContext): Router {
 
   router.get('/workspaces/:ws/reviews', signedIn, async (req, res) => {
     const { limit, offset, status } = parseInput(reviewListQuery, req.query, 'The list parameters are not valid.');
-    const { workspace } = await authorizeWorkspace(req, req.params.ws, 'read');
+    const { workspace } = await authorizeWorkspace(req, req.params.ws, reviewPolicy, 'read');
     const { rows, count } = await loadReviews(
       { workspaceId: workspace.id, ...STATUS_WHERE[status] },
       { limit, offset },

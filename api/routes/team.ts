@@ -6,7 +6,7 @@ import type { AppContext } from '../context';
 import { NotFound } from '../errors';
 import { mailFor } from '../mail/context';
 import { authenticate, currentUser } from '../middleware/authenticate';
-import { requireRole } from '../policies/workspace';
+import { authorizeWorkspaceAction } from './authorize';
 import { presentInvitation } from '../presenters/invitation';
 import { presentMember } from '../presenters/workspace';
 import { idSchema, parseInput } from '../validation';
@@ -28,14 +28,14 @@ export function teamRouter(context: AppContext): Router {
   const signedIn = authenticate(config);
 
   router.get('/workspaces/:ws/invitations', signedIn, async (req, res) => {
-    const { workspace } = await requireRole(req, req.params.ws, 'owner');
+    const { workspace } = await authorizeWorkspaceAction(req, req.params.ws, 'manage-team');
     const invitations = await pendingInvitations(workspace.id);
     res.json({ data: invitations.map((invitation) => presentInvitation(invitation)) });
   });
 
   router.post('/workspaces/:ws/invitations', signedIn, async (req, res) => {
     const input = parseInput(inviteSchema, req.body);
-    const { workspace } = await requireRole(req, req.params.ws, 'owner');
+    const { workspace } = await authorizeWorkspaceAction(req, req.params.ws, 'manage-team');
     const invitation = await inviteMember(sequelize, config, mailFor(context), {
       workspace,
       inviter: currentUser(req),
@@ -45,7 +45,7 @@ export function teamRouter(context: AppContext): Router {
   });
 
   router.delete('/workspaces/:ws/invitations/:id', signedIn, async (req, res) => {
-    const { workspace } = await requireRole(req, req.params.ws, 'owner');
+    const { workspace } = await authorizeWorkspaceAction(req, req.params.ws, 'manage-team');
     const id = idSchema.safeParse(req.params.id);
     if (!id.success) throw invitationNotFound();
     const invitation = await revokeInvitation(sequelize, { workspace, invitationId: id.data, actor: currentUser(req) });
@@ -54,7 +54,7 @@ export function teamRouter(context: AppContext): Router {
 
   router.patch('/workspaces/:ws/members/:userId', signedIn, async (req, res) => {
     const { role } = parseInput(changeRoleSchema, req.body);
-    const { workspace } = await requireRole(req, req.params.ws, 'owner');
+    const { workspace } = await authorizeWorkspaceAction(req, req.params.ws, 'manage-team');
     const membership = await changeMemberRole(sequelize, {
       workspace,
       actor: currentUser(req),
@@ -67,8 +67,10 @@ export function teamRouter(context: AppContext): Router {
   router.delete('/workspaces/:ws/members/:userId', signedIn, async (req, res) => {
     const actor = currentUser(req);
     const userId = userIdParam(req.params.userId);
-    // Leaving needs only membership; removing someone else needs an owner.
-    const { workspace } = await requireRole(req, req.params.ws, userId === actor.id ? 'viewer' : 'owner');
+    const { workspace } = await authorizeWorkspaceAction(req, req.params.ws, 'remove-member', {
+      userId,
+      callerId: actor.id,
+    });
     await removeMember(sequelize, { workspace, actor, userId });
     res.json({ data: { removed: true, user_id: userId, left: userId === actor.id } });
   });

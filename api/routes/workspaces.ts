@@ -4,7 +4,7 @@ import { createWorkspace } from '../commands/create-workspace';
 import type { AppContext } from '../context';
 import { authenticate, currentUser } from '../middleware/authenticate';
 import { Membership, User } from '../models';
-import { requireRole } from '../policies/workspace';
+import { authorizeWorkspaceAction } from './authorize';
 import { presentMember, presentWorkspace } from '../presenters/workspace';
 import { SINGLE_LINE_MESSAGE, parseInput, singleLine } from '../validation';
 
@@ -44,19 +44,19 @@ export function workspacesRouter({ sequelize, config }: AppContext): Router {
   });
 
   router.get('/workspaces/:ws', async (req, res) => {
-    const { workspace, role } = await requireRole(req, req.params.ws, 'viewer');
+    const { workspace, role } = await authorizeWorkspaceAction(req, req.params.ws, 'read');
     res.json({ data: presentWorkspace(workspace, role) });
   });
 
   router.patch('/workspaces/:ws', async (req, res) => {
-    const { workspace, role } = await requireRole(req, req.params.ws, 'owner');
+    const { workspace, role } = await authorizeWorkspaceAction(req, req.params.ws, 'rename');
     const changes = parseInput(updateSchema, req.body);
     if (changes.name !== undefined) await workspace.update({ name: changes.name });
     res.json({ data: presentWorkspace(workspace, role) });
   });
 
   router.get('/workspaces/:ws/members', async (req, res) => {
-    const { workspace } = await requireRole(req, req.params.ws, 'viewer');
+    const { workspace } = await authorizeWorkspaceAction(req, req.params.ws, 'read-members');
     const { limit, offset } = parseInput(pageSchema, req.query, 'The paging parameters are not valid.');
     const { rows, count } = await Membership.findAndCountAll({
       where: { workspaceId: workspace.id },
