@@ -7,6 +7,7 @@ import { modelPolicy } from '../policies/model';
 import { authorizeWorkspace } from './authorize';
 import { presentAuditEvent, type AuditSubjectModel } from '../presenters/audit';
 import { parseInput } from '../validation';
+import { pagination } from './paging';
 import { auditQuery } from './model-inputs';
 
 // The model an event is about, found from its subject rather than from its details, so
@@ -45,7 +46,7 @@ export function auditRouter({ config }: AppContext): Router {
       data: rows.map((event) =>
         presentAuditEvent(event, (event.get('subjectModel') as AuditSubjectModel | null) ?? null),
       ),
-      pagination: { limit, offset, total: count },
+      pagination: pagination({ limit, offset }, count),
     });
   });
 

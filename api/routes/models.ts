@@ -15,6 +15,7 @@ import { authorizeModel, authorizeWorkspace } from './authorize';
 import { presentSavedRevision } from '../presenters/revision';
 import { presentModels, presentOneModel } from '../queries/model-views';
 import { parseInput } from '../validation';
+import { pagination } from './paging';
 import {
   createModelSchema,
   forkSchema,
@@ -58,7 +59,10 @@ export function modelsRouter({ sequelize, config }: AppContext): Router {
       limit,
       offset,
     });
-    res.json({ data: await presentModels(rows, role, currentUser(req)), pagination: { limit, offset, total: count } });
+    res.json({
+      data: await presentModels(rows, role, currentUser(req)),
+      pagination: pagination({ limit, offset }, count),
+    });
   });
 
   router.post('/workspaces/:ws/models', signedIn, async (req, res) => {

@@ -19,7 +19,10 @@ import {
   reviewDetail,
 } from '../queries/review-views';
 import { parseInput } from '../validation';
+import { pageInput, pagination } from './paging';
 import { commentSchema, requestReviewSchema, reviewListQuery, tickSchema, verdictSchema } from './review-inputs';
+
+const commentsQuery = pageInput(100);
 
 const STATUS_WHERE = { open: { state: 'open' }, closed: { state: { [Op.ne]: 'open' } }, all: {} } as const;
 
@@ -52,14 +55,14 @@ export function reviewsRouter(context: AppContext): Router {
       { workspaceId: workspace.id, ...STATUS_WHERE[status] },
       { limit, offset },
     );
-    res.json({ data: await presentReviewList(rows), pagination: { limit, offset, total: count } });
+    res.json({ data: await presentReviewList(rows), pagination: pagination({ limit, offset }, count) });
   });
 
   router.get('/models/:id/reviews', signedIn, async (req, res) => {
     const { limit, offset, status } = parseInput(reviewListQuery, req.query, 'The list parameters are not valid.');
     const { model } = await authorizeModel(req, req.params.id, 'read');
     const { rows, count } = await loadReviews({ modelId: model.id, ...STATUS_WHERE[status] }, { limit, offset });
-    res.json({ data: await presentReviewList(rows), pagination: { limit, offset, total: count } });
+    res.json({ data: await presentReviewList(rows), pagination: pagination({ limit, offset }, count) });
   });
 
   router.get('/reviews/:id', signedIn, async (req, res) => {
@@ -106,9 +109,13 @@ export function reviewsRouter(context: AppContext): Router {
   });
 
   router.get('/revisions/:id/comments', signedIn, async (req, res) => {
+    const page = parseInput(commentsQuery, req.query, 'The paging parameters are not valid.');
     const { revision } = await authorizeRevision(req, req.params.id, 'read', { full: true });
+    // Which comments a revision shows depends on its document (anchored ones carry
+    // forward while their path exists), so the page is cut after that choice.
     const comments = await commentsShownOn(revision);
-    res.json({ data: await presentCommentsOn(revision, comments) });
+    const shown = comments.slice(page.offset, page.offset + page.limit);
+    res.json({ data: await presentCommentsOn(revision, shown), pagination: pagination(page, comments.length) });
   });
 
   return router;

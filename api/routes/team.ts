@@ -1,6 +1,6 @@
 import { Router } from 'express';
 import { changeMemberRole, removeMember } from '../commands/manage-members';
-import { inviteMember, pendingInvitations } from '../commands/invite-member';
+import { inviteMember } from '../commands/invite-member';
 import { invitationNotFound, revokeInvitation } from '../commands/revoke-invitation';
 import type { AppContext } from '../context';
 import { NotFound } from '../errors';
@@ -8,9 +8,13 @@ import { mailFor } from '../mail/context';
 import { authenticate, currentUser } from '../middleware/authenticate';
 import { authorizeWorkspaceAction } from './authorize';
 import { presentInvitation } from '../presenters/invitation';
+import { pendingInvitations } from '../queries/invitations';
 import { presentMember } from '../presenters/workspace';
 import { idSchema, parseInput } from '../validation';
+import { pageInput, pagination } from './paging';
 import { changeRoleSchema, inviteSchema } from './team-inputs';
+
+const invitationsQuery = pageInput(50);
 
 const memberNotFound = () =>
   new NotFound('This person is not a member of the workspace.', { code: 'member-not-found' });
@@ -28,9 +32,10 @@ export function teamRouter(context: AppContext): Router {
   const signedIn = authenticate(config);
 
   router.get('/workspaces/:ws/invitations', signedIn, async (req, res) => {
+    const page = parseInput(invitationsQuery, req.query, 'The paging parameters are not valid.');
     const { workspace } = await authorizeWorkspaceAction(req, req.params.ws, 'manage-team');
-    const invitations = await pendingInvitations(workspace.id);
-    res.json({ data: invitations.map((invitation) => presentInvitation(invitation)) });
+    const { rows, count } = await pendingInvitations(workspace.id, page);
+    res.json({ data: rows.map((invitation) => presentInvitation(invitation)), pagination: pagination(page, count) });
   });
 
   router.post('/workspaces/:ws/invitations', signedIn, async (req, res) => {
