@@ -1,36 +1,58 @@
-import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import {
+  infiniteQueryOptions,
+  queryOptions,
+  useInfiniteQuery,
+  useMutation,
+  useQuery,
+  useQueryClient,
+} from '@tanstack/react-query';
 import { api } from '../../../lib/api-client';
 import type { Id } from '../../../types/api';
 import type { ChecklistEntry, CommentEntry, ReviewDetail, ReviewSummary, Verdict, VerdictEntry } from '../types';
 import { paths } from '../../../lib/api-paths';
+import { getPage, offsetPaging, type Page } from '../../../lib/paged';
 
 export const reviewQueryKey = (reviewId: Id) => ['reviews', reviewId] as const;
 export const workspaceReviewsQueryKey = (workspaceId: Id) => ['workspaces', workspaceId, 'reviews'] as const;
 export const modelReviewsQueryKey = (modelId: Id) => ['models', modelId, 'reviews'] as const;
 
-export async function listWorkspaceReviews(workspaceId: Id, signal?: AbortSignal): Promise<ReviewSummary[]> {
-  return (await api.get<ReviewSummary[]>(paths.workspaceReviews(workspaceId, { limit: 200 }), signal)).data;
+export const REVIEWS_PAGE_SIZE = 50;
+
+export type ReviewStatus = 'open' | 'closed' | 'all';
+
+export function listWorkspaceReviews(
+  workspaceId: Id,
+  status: ReviewStatus,
+  offset: number,
+  signal?: AbortSignal,
+): Promise<Page<ReviewSummary>> {
+  const path = paths.workspaceReviews(workspaceId, { status, limit: REVIEWS_PAGE_SIZE, offset });
+  return getPage<ReviewSummary>(path, offset, signal);
 }
 
-export async function listModelReviews(modelId: Id, signal?: AbortSignal): Promise<ReviewSummary[]> {
-  return (await api.get<ReviewSummary[]>(paths.modelReviews(modelId, { limit: 200 }), signal)).data;
+export function listModelReviews(modelId: Id, offset: number, signal?: AbortSignal): Promise<Page<ReviewSummary>> {
+  return getPage<ReviewSummary>(paths.modelReviews(modelId, { limit: REVIEWS_PAGE_SIZE, offset }), offset, signal);
 }
 
 export async function getReview(reviewId: Id, signal?: AbortSignal): Promise<ReviewDetail> {
   return (await api.get<ReviewDetail>(paths.review(reviewId), signal)).data;
 }
 
-export function workspaceReviewsQueryOptions(workspaceId: Id) {
-  return queryOptions({
-    queryKey: workspaceReviewsQueryKey(workspaceId),
-    queryFn: ({ signal }) => listWorkspaceReviews(workspaceId, signal),
+/** The workspace's open or decided reviews, newest first, a page at a time. */
+export function workspaceReviewsQueryOptions(workspaceId: Id, status: ReviewStatus) {
+  return infiniteQueryOptions({
+    queryKey: [...workspaceReviewsQueryKey(workspaceId), status],
+    queryFn: ({ pageParam, signal }) => listWorkspaceReviews(workspaceId, status, pageParam, signal),
+    ...offsetPaging,
   });
 }
 
+/** The model's reviews, newest first, a page at a time. */
 export function modelReviewsQueryOptions(modelId: Id) {
-  return queryOptions({
+  return infiniteQueryOptions({
     queryKey: modelReviewsQueryKey(modelId),
-    queryFn: ({ signal }) => listModelReviews(modelId, signal),
+    queryFn: ({ pageParam, signal }) => listModelReviews(modelId, pageParam, signal),
+    ...offsetPaging,
   });
 }
 
@@ -38,8 +60,9 @@ export function reviewQueryOptions(reviewId: Id) {
   return queryOptions({ queryKey: reviewQueryKey(reviewId), queryFn: ({ signal }) => getReview(reviewId, signal) });
 }
 
-export const useWorkspaceReviews = (workspaceId: Id) => useQuery(workspaceReviewsQueryOptions(workspaceId));
-export const useModelReviews = (modelId: Id) => useQuery(modelReviewsQueryOptions(modelId));
+export const useWorkspaceReviews = (workspaceId: Id, status: ReviewStatus) =>
+  useInfiniteQuery({ ...workspaceReviewsQueryOptions(workspaceId, status), enabled: workspaceId !== '' });
+export const useModelReviews = (modelId: Id) => useInfiniteQuery(modelReviewsQueryOptions(modelId));
 export const useReview = (reviewId: Id) => useQuery(reviewQueryOptions(reviewId));
 
 /** After any change to a review: the review, the lists, and the model's review state (hangar, model page). */
