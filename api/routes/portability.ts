@@ -1,9 +1,10 @@
 import { Router, type Request, type Response } from 'express';
-import multer, { MulterError } from 'multer';
+import multer from 'multer';
 import { z } from 'zod';
 import type { AppContext } from '../context';
-import { BadRequest, NotFound, TooLarge, Unprocessable, UnsupportedMediaType } from '../errors';
+import { BadRequest, NotFound, Unprocessable, UnsupportedMediaType } from '../errors';
 import { authenticate, currentUser } from '../middleware/authenticate';
+import { uploadError } from '../middleware/upload-error';
 import { SetupModel } from '../models';
 import { modelPolicy } from '../policies/model';
 import { authorizeModel, authorizeWorkspace } from './authorize';
@@ -32,23 +33,10 @@ const parser = multer({
   defParamCharset: 'utf8',
 }).single('file');
 
-function uploadError(error: unknown): Error {
-  if (error instanceof MulterError) {
-    if (error.code === 'LIMIT_FILE_SIZE')
-      return new TooLarge(`The file is larger than ${MAX_BUNDLE_BYTES / 1024 / 1024} MB.`, {
-        details: { limit: MAX_BUNDLE_BYTES },
-      });
-    return new BadRequest(`The upload form is not acceptable: ${error.message}.`, {
-      code: 'invalid-upload',
-      details: { reason: error.code },
-    });
-  }
-  return error instanceof Error && !('status' in error)
-    ? new BadRequest(`The upload could not be read: ${error.message}.`, { code: 'malformed-upload' })
-    : error instanceof Error
-      ? error
-      : new Error('The upload could not be read.', { cause: error });
-}
+const BUNDLE_LIMIT = {
+  bytes: MAX_BUNDLE_BYTES,
+  tooLarge: `The file is larger than ${MAX_BUNDLE_BYTES / 1024 / 1024} MB.`,
+};
 
 const HEADER_LINE = /^(?:[0-9a-f]{40}|[0-9a-f]{64}) \S+$/;
 const MAX_HEADER_BYTES = 1024 * 1024;
@@ -85,7 +73,7 @@ async function readBundleUpload(
     );
   }
   await new Promise<void>((resolve, reject) =>
-    parser(req, res, (error?: unknown) => (error ? reject(uploadError(error)) : resolve())),
+    parser(req, res, (error?: unknown) => (error ? reject(uploadError(error, BUNDLE_LIMIT)) : resolve())),
   );
   if (!req.file)
     throw new BadRequest('No file arrived: put the .bundle file in the form field named "file".', {
