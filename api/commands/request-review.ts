@@ -7,7 +7,7 @@ import { Membership, Review, User, type Revision, type SetupModel, type Workspac
 import { roleAtLeast } from '@shared/contract/roles';
 import { betweenRevisions } from '../reviews/between-revisions';
 import { contributorsOf } from '../reviews/contributors';
-import { recordAuditEvent } from './record-audit-event';
+import { recordAuditEvent } from '../audit/record-audit-event';
 
 export interface ReviewRequest {
   workspace: Workspace;

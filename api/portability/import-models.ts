@@ -1,8 +1,10 @@
 import type { Sequelize, Transaction } from 'sequelize';
 import { modelName } from '../model-fields';
 import { insertModelWithFirstRevision } from '../commands/create-model';
-import { recordAuditEvent } from '../commands/record-audit-event';
-import { appendRevision, checkSetupText, type CheckedSetup, type LockedModel } from '../commands/save-revision';
+import { recordAuditEvent } from '../audit/record-audit-event';
+import { appendRevision } from '../revisions/append-revision';
+import { checkSetupText, type CheckedSetup } from '../revisions/check-setup';
+import type { LockedModel } from '../revisions/lock-model';
 import { HttpError } from '../errors';
 import { Tag, type SetupModel, type User, type Workspace } from '../models';
 import type { ImportedModel, ReportProgress } from './import-history';

@@ -1,10 +1,9 @@
 import { Op, QueryTypes, type Transaction } from 'sequelize';
 import { compareRevisions } from '@shared/diff';
 import { ChecklistTick, Review, ReviewComment, ReviewVerdict, Revision, SetupModel, User } from '../models';
-import type { ReviewAccess } from '../policies/review';
+import type { GrantedReview } from '../access/records';
 import { approvalRefusal } from '../reviews/approval-refusal';
-import { REVIEW_POLICY } from '../policies/review';
-import { roleAtLeast } from '@shared/contract/roles';
+import { reviewPolicy } from '../policies/review';
 import {
   presentChecklist,
   presentComment,
@@ -132,7 +131,7 @@ export async function presentCommentsOn(revision: Revision, comments: readonly R
 }
 
 /** Everything the review page shows. */
-export async function reviewDetail(access: ReviewAccess, caller: User) {
+export async function reviewDetail(access: GrantedReview, caller: User) {
   const { review } = access;
   const revision = review.revision;
   const [context, base, verdicts, ticks, comments] = await Promise.all([
@@ -156,7 +155,7 @@ export async function reviewDetail(access: ReviewAccess, caller: User) {
   for (const [id, user] of context.users) users.set(id, user);
   const latest = context.latest.get(review.modelId);
   const modelState = latest ? ((await reviewStateOf([latest])).get(latest.id) ?? 'none') : 'none';
-  const canVerdict = roleAtLeast(access.role, REVIEW_POLICY.verdict);
+  const canVerdict = reviewPolicy(access.role, 'verdict').allowed;
   const refusal = canVerdict ? await approvalRefusal(access, caller) : null;
   const summarise = (entry: Revision) => {
     entry.author = users.get(entry.authorId);
@@ -182,8 +181,8 @@ export async function reviewDetail(access: ReviewAccess, caller: User) {
       verdict: canVerdict,
       approve: canVerdict && refusal === null,
       approve_refusal: refusal ? { code: refusal.code, message: refusal.message } : null,
-      tick: roleAtLeast(access.role, REVIEW_POLICY.tick),
-      comment: roleAtLeast(access.role, REVIEW_POLICY.comment),
+      tick: reviewPolicy(access.role, 'tick').allowed,
+      comment: reviewPolicy(access.role, 'comment').allowed,
     },
   };
 }

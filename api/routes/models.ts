@@ -3,16 +3,19 @@ import { col, fn, Op, type WhereOptions } from 'sequelize';
 import { createModel } from '../commands/create-model';
 import { forkModel } from '../commands/fork-model';
 import { renameModel } from '../commands/rename-model';
-import { checkSetupText, saveRevision } from '../commands/save-revision';
+import { saveRevision } from '../commands/save-revision';
+import { checkSetupText } from '../revisions/check-setup';
 import type { AppContext } from '../context';
 import { NotFound } from '../errors';
 import { authenticate, currentUser } from '../middleware/authenticate';
 import { readSetupUpload } from '../middleware/setup-upload';
 import { Revision, SetupModel } from '../models';
-import { authorizeModel, authorizeWorkspace } from '../policies/model';
+import { modelPolicy } from '../policies/model';
+import { authorizeModel, authorizeWorkspace } from './authorize';
 import { presentSavedRevision } from '../presenters/revision';
 import { presentModels, presentOneModel } from '../queries/model-views';
 import { parseInput } from '../validation';
+import { pagination } from './paging';
 import {
   createModelSchema,
   forkSchema,
@@ -41,7 +44,7 @@ export function modelsRouter({ sequelize, config }: AppContext): Router {
 
   router.get('/workspaces/:ws/models', signedIn, async (req, res) => {
     const { q, limit, offset } = parseInput(hangarQuery, req.query, 'The search parameters are not valid.');
-    const { workspace, role } = await authorizeWorkspace(req, req.params.ws, 'read');
+    const { workspace, role } = await authorizeWorkspace(req, req.params.ws, modelPolicy, 'read');
     const where: WhereOptions<SetupModel> = { workspaceId: workspace.id };
     if (q) {
       const pattern = `%${escapeLike(q)}%`;
@@ -56,12 +59,15 @@ export function modelsRouter({ sequelize, config }: AppContext): Router {
       limit,
       offset,
     });
-    res.json({ data: await presentModels(rows, role, currentUser(req)), pagination: { limit, offset, total: count } });
+    res.json({
+      data: await presentModels(rows, role, currentUser(req)),
+      pagination: pagination({ limit, offset }, count),
+    });
   });
 
   router.post('/workspaces/:ws/models', signedIn, async (req, res) => {
     const input = parseInput(createModelSchema, req.body);
-    const { workspace, role } = await authorizeWorkspace(req, req.params.ws, 'create');
+    const { workspace, role } = await authorizeWorkspace(req, req.params.ws, modelPolicy, 'create');
     const user = currentUser(req);
     const { model, revision } = await createModel(sequelize, { workspace, author: user, ...input });
     res
@@ -70,7 +76,7 @@ export function modelsRouter({ sequelize, config }: AppContext): Router {
   });
 
   router.post('/workspaces/:ws/models/upload', signedIn, async (req, res) => {
-    const { workspace, role } = await authorizeWorkspace(req, req.params.ws, 'create');
+    const { workspace, role } = await authorizeWorkspace(req, req.params.ws, modelPolicy, 'create');
     const upload = await readSetupUpload(req, res);
     const fields = parseInput(uploadModelFields, upload.fields, 'Some form fields need attention.');
     const user = currentUser(req);
@@ -110,7 +116,7 @@ export function modelsRouter({ sequelize, config }: AppContext): Router {
         code: 'revision-not-found',
         details: { number: input.number },
       });
-    const { workspace, role } = await authorizeWorkspace(req, input.workspace, 'create');
+    const { workspace, role } = await authorizeWorkspace(req, input.workspace, modelPolicy, 'create');
     const user = currentUser(req);
     const { model, revision } = await forkModel(sequelize, {
       source: { model: sourceModel, revision: sourceRevision },

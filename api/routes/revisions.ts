@@ -9,7 +9,7 @@ import type { AppContext } from '../context';
 import { NotFound } from '../errors';
 import { authenticate, currentUser } from '../middleware/authenticate';
 import { Revision, User, type SetupModel } from '../models';
-import { authorizeModel, authorizeRevision } from '../policies/model';
+import { authorizeModel, authorizeRevision } from './authorize';
 import { revisionFileName } from '../presenters/download-name';
 import { sendAsDownload } from '../security/content-disposition';
 import { presentRevision, presentRevisionSummary, presentSavedRevision } from '../presenters/revision';

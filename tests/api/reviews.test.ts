@@ -537,6 +537,21 @@ describe('anchored comments', () => {
     expect((await viewer.get(`/api/revisions/${revision.id}/comments`).expect(200)).body.data).toHaveLength(2);
   });
 
+  it('come a page at a time, oldest first, with how many there are', async () => {
+    const { revision } = await scaleModel();
+    const review = await reviewOf(revision.id);
+    for (const body of ['First note', 'Second note', 'Third note'])
+      await reviewer.post(`/api/reviews/${review}/comments`, { body }).expect(201);
+    const first = await viewer.get(`/api/revisions/${revision.id}/comments?limit=2`).expect(200);
+    expect(first.body.data.map((comment: { body: string }) => comment.body)).toEqual(['First note', 'Second note']);
+    expect(first.body.pagination).toEqual({ limit: 2, offset: 0, total: 3 });
+    const rest = await viewer.get(`/api/revisions/${revision.id}/comments?limit=2&offset=2`).expect(200);
+    expect(rest.body.data.map((comment: { body: string }) => comment.body)).toEqual(['Third note']);
+    expect(rest.body.pagination).toEqual({ limit: 2, offset: 2, total: 3 });
+    const refused = await viewer.get(`/api/revisions/${revision.id}/comments?limit=0`).expect(400);
+    expect(refused.body.error.details.fields.limit).toBe('limit is at least 1.');
+  });
+
   it('refuses a path that is not in the reviewed revision or cannot be read; viewers cannot comment', async () => {
     const { revision } = await scaleModel();
     const review = await reviewOf(revision.id);

@@ -1,5 +1,5 @@
 import type { Transaction } from 'sequelize';
-import { recordAuditEvent } from '../../commands/record-audit-event';
+import { recordAuditEvent } from '../../audit/record-audit-event';
 import { composeMailFrom } from '../../mail/seeded-mail';
 import { reviewRequestedMail, verdictMail } from '../../mail/messages';
 import {

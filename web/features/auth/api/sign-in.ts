@@ -2,6 +2,7 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { api } from '../../../lib/api-client';
 import type { Session, User } from '../../../types/api';
 import { meQueryOptions } from './get-me';
+import { paths } from '../../../lib/api-paths';
 
 export interface SignInInput {
   email: string;
@@ -9,7 +10,7 @@ export interface SignInInput {
 }
 
 export async function signIn(input: SignInInput): Promise<{ user: User; token: string }> {
-  return (await api.post<{ user: User; token: string }>('/api/auth/sign-in', input)).data;
+  return (await api.post<{ user: User; token: string }>(paths.signIn(), input)).data;
 }
 
 /**
