@@ -35,7 +35,7 @@ export function authorizeWorkspace(req: Request, workspaceId: unknown, action: M
 }
 
 // Worded like the workspace guard's refusal, so every route refuses alike.
-function requireAtLeast(role: Role, minimum: Role): void {
+export function requireAtLeast(role: Role, minimum: Role): void {
   if (!roleAtLeast(role, minimum)) {
     throw new Forbidden(`This needs the ${minimum} role or higher; your role here is ${role}.`, {
       code: 'role-too-low',

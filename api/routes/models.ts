@@ -3,7 +3,8 @@ import { col, fn, Op, type WhereOptions } from 'sequelize';
 import { createModel } from '../commands/create-model';
 import { forkModel } from '../commands/fork-model';
 import { renameModel } from '../commands/rename-model';
-import { checkSetupText, saveRevision } from '../commands/save-revision';
+import { checkSetupText } from '../commands/save-revision';
+import { saveRevisionAtOnce } from '../commands/save-revision-at-once';
 import type { AppContext } from '../context';
 import { NotFound } from '../errors';
 import { authenticate, currentUser } from '../middleware/authenticate';
@@ -128,11 +129,11 @@ export function modelsRouter({ sequelize, config }: AppContext): Router {
     const { model } = await authorizeModel(req, req.params.id, 'edit');
     const upload = await readSetupUpload(req, res);
     const fields = parseInput(uploadRevisionFields, upload.fields, 'Some form fields need attention.');
-    const revision = await saveRevision(sequelize, {
+    const revision = await saveRevisionAtOnce(sequelize, {
       modelId: model.id,
       author: currentUser(req),
       base: fields.base,
-      yaml: upload.text,
+      setup: checkSetupText(upload.text),
       message: fields.message || `Uploaded ${upload.fileName}`,
       origin: 'upload',
     });
