@@ -11,6 +11,7 @@ import * as rateLimits from './0008-rate-limits';
 import * as importJobs from './0010-import-jobs';
 import * as compareCache from './0012-compare-cache';
 import * as saveRevisionFunction from './0030-save-revision-function';
+import * as compareCacheUnlogged from './0031-compare-cache-unlogged';
 
 export interface MigrationModule {
   up: MigrationFn<MigrationContext>;
@@ -31,4 +32,5 @@ export const migrations: { name: string; module: MigrationModule }[] = [
   { name: '0010-import-jobs', module: importJobs },
   { name: '0012-compare-cache', module: compareCache },
   { name: '0030-save-revision-function', module: saveRevisionFunction },
+  { name: '0031-compare-cache-unlogged', module: compareCacheUnlogged },
 ];
