@@ -94,6 +94,7 @@ export const hangarQuery = z.object({
     .int('offset must be a whole number.')
     .min(0, 'offset is at least 0.')
     .default(0),
+  after: z.uuid({ error: 'after is the id of the last model of the page before.' }).optional(),
 });
 
 export const auditQuery = z.object({

@@ -12,6 +12,7 @@ import { readSetupUpload } from '../middleware/setup-upload';
 import { Revision, SetupModel } from '../models';
 import { authorizeModel, authorizeWorkspace } from '../policies/model';
 import { presentSavedRevision } from '../presenters/revision';
+import { afterRow } from '../queries/keyset-page';
 import { presentModels, presentOneModel } from '../queries/model-views';
 import { parseInput } from '../validation';
 import {
@@ -41,23 +42,33 @@ export function modelsRouter({ sequelize, config }: AppContext): Router {
   const signedIn = authenticate(config);
 
   router.get('/workspaces/:ws/models', signedIn, async (req, res) => {
-    const { q, limit, offset } = parseInput(hangarQuery, req.query, 'The search parameters are not valid.');
+    const { q, limit, offset, after } = parseInput(hangarQuery, req.query, 'The search parameters are not valid.');
     const { workspace, role } = await authorizeWorkspace(req, req.params.ws, 'read');
+    const cursor = after ? await afterRow(sequelize, 'models', workspace.id, after) : null;
     const where: WhereOptions<SetupModel> = { workspaceId: workspace.id };
     if (q) {
       const pattern = `%${escapeLike(q)}%`;
       Object.assign(where, { [Op.or]: [{ name: { [Op.iLike]: pattern } }, { airframe: { [Op.iLike]: pattern } }] });
     }
-    const { rows, count } = await SetupModel.findAndCountAll({
-      where,
-      order: [
-        [fn('lower', col('name')), 'ASC'],
-        ['id', 'ASC'],
-      ],
-      limit,
-      offset,
+    // The total counts the whole filtered hangar; the page starts after the cursor when one is given.
+    const [count, rows] = await Promise.all([
+      SetupModel.count({ where }),
+      SetupModel.findAll({
+        where: cursor ? { [Op.and]: [where, cursor] } : where,
+        order: [
+          [fn('lower', col('name')), 'ASC'],
+          ['id', 'ASC'],
+        ],
+        // One more than asked says whether a page follows.
+        limit: limit + 1,
+        offset,
+      }),
+    ]);
+    const page = rows.slice(0, limit);
+    res.json({
+      data: await presentModels(page, role, currentUser(req)),
+      pagination: { limit, offset, total: count, next_after: rows.length > limit ? page[page.length - 1].id : null },
     });
-    res.json({ data: await presentModels(rows, role, currentUser(req)), pagination: { limit, offset, total: count } });
   });
 
   router.post('/workspaces/:ws/models', signedIn, async (req, res) => {

@@ -14,6 +14,7 @@ import { AuditEvent, Receiver, ReceiverInstall, SetupModel, User } from '../mode
 import { authorizeReceiver, authorizeShelf, modelOnShelf } from '../policies/receiver';
 import { presentInstall, presentReceiver, presentReceiverEvent, presentReuseCheck } from '../presenters/receiver';
 import { checkAgainstLatest } from '../queries/receiver-slot';
+import { afterRow } from '../queries/keyset-page';
 import { openInstalls, presentOnShelf, presentShelf } from '../queries/shelf-view';
 import { parseInput } from '../validation';
 
@@ -37,6 +38,7 @@ const shelfQuery = z.object({
     .int('offset must be a whole number.')
     .min(0, 'offset is at least 0.')
     .default(0),
+  after: z.uuid({ error: 'after is the id of the last receiver of the page before.' }).optional(),
 });
 
 const modelId = z.uuid({ error: 'model is the id of a model in this workspace.' });
@@ -63,9 +65,14 @@ export function receiversRouter({ sequelize, config }: AppContext): Router {
   const signedIn = authenticate(config);
 
   router.get('/workspaces/:ws/receivers', signedIn, async (req, res) => {
-    const { q, status, limit, offset } = parseInput(shelfQuery, req.query, 'The search parameters are not valid.');
+    const { q, status, limit, offset, after } = parseInput(
+      shelfQuery,
+      req.query,
+      'The search parameters are not valid.',
+    );
     const { workspace } = await authorizeShelf(req, req.params.ws, 'read');
     const conditions: WhereOptions<Receiver>[] = [{ workspaceId: workspace.id }];
+    const cursor = after ? await afterRow(sequelize, 'receivers', workspace.id, after) : null;
     if (q) {
       const pattern = `%${escapeLike(q)}%`;
       conditions.push({
@@ -77,16 +84,25 @@ export function receiversRouter({ sequelize, config }: AppContext): Router {
       });
     }
     if (status) conditions.push(literal(status === 'installed' ? OPEN_INSTALL : `NOT ${OPEN_INSTALL}`));
-    const { rows, count } = await Receiver.findAndCountAll({
-      where: { [Op.and]: conditions },
-      order: [
-        [fn('lower', col('label')), 'ASC'],
-        ['id', 'ASC'],
-      ],
-      limit,
-      offset,
+    // The total counts the whole filtered shelf; the page starts after the cursor when one is given.
+    const [count, rows] = await Promise.all([
+      Receiver.count({ where: { [Op.and]: conditions } }),
+      Receiver.findAll({
+        where: { [Op.and]: cursor ? [...conditions, cursor] : conditions },
+        order: [
+          [fn('lower', col('label')), 'ASC'],
+          ['id', 'ASC'],
+        ],
+        // One more than asked says whether a page follows.
+        limit: limit + 1,
+        offset,
+      }),
+    ]);
+    const page = rows.slice(0, limit);
+    res.json({
+      data: await presentShelf(page),
+      pagination: { limit, offset, total: count, next_after: rows.length > limit ? page[page.length - 1].id : null },
     });
-    res.json({ data: await presentShelf(rows), pagination: { limit, offset, total: count } });
   });
 
   router.post('/workspaces/:ws/receivers', signedIn, async (req, res) => {
