@@ -78,6 +78,10 @@ function referenceRatios(all: readonly Figure[]) {
 }
 
 async function main(): Promise<number> {
+  // With --json, stdout carries the one JSON document alone: whatever a benchmark
+  // prints on its way (progress, notes) goes to stderr.
+  const printJson = (text: string) => process.stdout.write(`${text}\n`);
+  if (asJson) console.log = console.error;
   const files = readdirSync(folder)
     .filter((name) => name.endsWith('.ts') && name !== 'index.ts' && name !== 'benchmark.ts')
     .sort();
@@ -150,7 +154,7 @@ async function main(): Promise<number> {
       figures,
       ratios: referenceRatios(figures),
     };
-    console.log(JSON.stringify(report, null, 2));
+    printJson(JSON.stringify(report, null, 2));
     return 0;
   }
   const widths = rows[0].map((_, column) => Math.max(...rows.map((cells) => cells[column].length)));
