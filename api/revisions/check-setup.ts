@@ -1,5 +1,5 @@
 import { analyzeSetup, type Analysis } from '@shared/analyze';
-import { contentHash } from '@shared/canonical/content-hash';
+import { contentHashOfChecked } from '@shared/canonical/content-hash';
 import { AIRFRAMES } from '@shared/format/schema';
 import { MAX_TEXT_BYTES } from '@shared/parse/limits';
 import { TooLarge, Unprocessable } from '../errors';
@@ -45,7 +45,11 @@ export function checkSetupText(text: string): CheckedSetup {
       details: { findings: [] },
     });
   }
-  return { text, analysis: analysis as CheckedSetup['analysis'], contentHash: contentHash(analysis.data) };
+  return {
+    text,
+    analysis: analysis as CheckedSetup['analysis'],
+    contentHash: contentHashOfChecked(analysis.data, analysis.setup),
+  };
 }
 
 /** The airframe kind a setup names, when it names one the format knows. */

@@ -14,7 +14,7 @@ import {
   type ReceiverAccess,
   type RevisionAccess,
 } from '../access/records';
-import { Forbidden, NotFound } from '../errors';
+import { NotFound, roleTooLow } from '../errors';
 import { currentUser } from '../middleware/authenticate';
 import type { SetupModel } from '../models';
 import type { Decision } from '../policies/decision';
@@ -32,12 +32,7 @@ import { idSchema } from '../validation';
 /** Throws the answer to a "no"; returns the role a "yes" was given for. */
 function enforce(decision: Decision, role: Role | null, notFound: () => NotFound): Role {
   if (decision.allowed && role) return role;
-  if (!decision.allowed && decision.reason === 'role-too-low') {
-    throw new Forbidden(`This needs the ${decision.required} role or higher; your role here is ${decision.role}.`, {
-      code: 'role-too-low',
-      details: { required: decision.required, role: decision.role },
-    });
-  }
+  if (!decision.allowed && decision.reason === 'role-too-low') throw roleTooLow(decision.required, decision.role);
   throw notFound();
 }
 

@@ -84,6 +84,7 @@ export const hangarQuery = pageInput(100).extend({
     .trim()
     .max(100, 'Search for at most 100 characters.')
     .optional(),
+  after: z.uuid({ error: 'after is the id of the last model of the page before.' }).optional(),
 });
 
 export const auditQuery = pageInput(50);

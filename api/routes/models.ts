@@ -3,7 +3,7 @@ import { col, fn, Op, type WhereOptions } from 'sequelize';
 import { createModel } from '../commands/create-model';
 import { forkModel } from '../commands/fork-model';
 import { renameModel } from '../commands/rename-model';
-import { saveRevision } from '../commands/save-revision';
+import { saveRevisionAtOnce } from '../commands/save-revision-at-once';
 import { checkSetupText } from '../revisions/check-setup';
 import type { AppContext } from '../context';
 import { NotFound } from '../errors';
@@ -13,6 +13,7 @@ import { Revision, SetupModel } from '../models';
 import { modelPolicy } from '../policies/model';
 import { authorizeModel, authorizeWorkspace } from './authorize';
 import { presentSavedRevision } from '../presenters/revision';
+import { afterRow } from '../queries/keyset-page';
 import { presentModels, presentOneModel } from '../queries/model-views';
 import { parseInput } from '../validation';
 import { pagination } from './paging';
@@ -43,25 +44,35 @@ export function modelsRouter({ sequelize, config }: AppContext): Router {
   const signedIn = authenticate(config);
 
   router.get('/workspaces/:ws/models', signedIn, async (req, res) => {
-    const { q, limit, offset } = parseInput(hangarQuery, req.query, 'The search parameters are not valid.');
+    const { q, limit, offset, after } = parseInput(hangarQuery, req.query, 'The search parameters are not valid.');
     const { workspace, role } = await authorizeWorkspace(req, req.params.ws, modelPolicy, 'read');
+    const cursor = after ? await afterRow(sequelize, 'models', workspace.id, after) : null;
     const where: WhereOptions<SetupModel> = { workspaceId: workspace.id };
     if (q) {
       const pattern = `%${escapeLike(q)}%`;
       Object.assign(where, { [Op.or]: [{ name: { [Op.iLike]: pattern } }, { airframe: { [Op.iLike]: pattern } }] });
     }
-    const { rows, count } = await SetupModel.findAndCountAll({
-      where,
-      order: [
-        [fn('lower', col('name')), 'ASC'],
-        ['id', 'ASC'],
-      ],
-      limit,
-      offset,
-    });
+    // The total counts the whole filtered hangar; the page starts after the cursor when one is given.
+    const [count, rows] = await Promise.all([
+      SetupModel.count({ where }),
+      SetupModel.findAll({
+        where: cursor ? { [Op.and]: [where, cursor] } : where,
+        order: [
+          [fn('lower', col('name')), 'ASC'],
+          ['id', 'ASC'],
+        ],
+        // One more than asked says whether a page follows.
+        limit: limit + 1,
+        offset,
+      }),
+    ]);
+    const page = rows.slice(0, limit);
     res.json({
-      data: await presentModels(rows, role, currentUser(req)),
-      pagination: pagination({ limit, offset }, count),
+      data: await presentModels(page, role, currentUser(req)),
+      pagination: {
+        ...pagination({ limit, offset }, count),
+        next_after: rows.length > limit ? page[page.length - 1].id : null,
+      },
     });
   });
 
@@ -134,11 +145,11 @@ export function modelsRouter({ sequelize, config }: AppContext): Router {
     const { model } = await authorizeModel(req, req.params.id, 'edit');
     const upload = await readSetupUpload(req, res);
     const fields = parseInput(uploadRevisionFields, upload.fields, 'Some form fields need attention.');
-    const revision = await saveRevision(sequelize, {
+    const revision = await saveRevisionAtOnce(sequelize, {
       modelId: model.id,
       author: currentUser(req),
       base: fields.base,
-      yaml: upload.text,
+      setup: checkSetupText(upload.text),
       message: fields.message || `Uploaded ${upload.fileName}`,
       origin: 'upload',
     });

@@ -15,6 +15,7 @@ import { receiverPolicy } from '../policies/receiver';
 import { authorizeReceiver, authorizeWorkspace, modelOnShelf } from './authorize';
 import { presentInstall, presentReceiver, presentReceiverEvent, presentReuseCheck } from '../presenters/receiver';
 import { checkAgainstLatest } from '../queries/receiver-slot';
+import { afterRow } from '../queries/keyset-page';
 import { openInstalls, presentOnShelf, presentShelf } from '../queries/shelf-view';
 import { parseInput } from '../validation';
 import { pageInput, pagination } from './paging';
@@ -35,6 +36,7 @@ const shelfQuery = pageInput(100).extend({
     .max(100, 'Search for at most 100 characters.')
     .optional(),
   status: z.enum(['installed', 'free'], { error: 'status is installed or free.' }).optional(),
+  after: z.uuid({ error: 'after is the id of the last receiver of the page before.' }).optional(),
 });
 
 const modelId = z.uuid({ error: 'model is the id of a model in this workspace.' });
@@ -61,9 +63,14 @@ export function receiversRouter({ sequelize, config }: AppContext): Router {
   const signedIn = authenticate(config);
 
   router.get('/workspaces/:ws/receivers', signedIn, async (req, res) => {
-    const { q, status, limit, offset } = parseInput(shelfQuery, req.query, 'The search parameters are not valid.');
+    const { q, status, limit, offset, after } = parseInput(
+      shelfQuery,
+      req.query,
+      'The search parameters are not valid.',
+    );
     const { workspace } = await authorizeWorkspace(req, req.params.ws, receiverPolicy, 'read');
     const conditions: WhereOptions<Receiver>[] = [{ workspaceId: workspace.id }];
+    const cursor = after ? await afterRow(sequelize, 'receivers', workspace.id, after) : null;
     if (q) {
       const pattern = `%${escapeLike(q)}%`;
       conditions.push({
@@ -75,16 +82,28 @@ export function receiversRouter({ sequelize, config }: AppContext): Router {
       });
     }
     if (status) conditions.push(literal(status === 'installed' ? OPEN_INSTALL : `NOT ${OPEN_INSTALL}`));
-    const { rows, count } = await Receiver.findAndCountAll({
-      where: { [Op.and]: conditions },
-      order: [
-        [fn('lower', col('label')), 'ASC'],
-        ['id', 'ASC'],
-      ],
-      limit,
-      offset,
+    // The total counts the whole filtered shelf; the page starts after the cursor when one is given.
+    const [count, rows] = await Promise.all([
+      Receiver.count({ where: { [Op.and]: conditions } }),
+      Receiver.findAll({
+        where: { [Op.and]: cursor ? [...conditions, cursor] : conditions },
+        order: [
+          [fn('lower', col('label')), 'ASC'],
+          ['id', 'ASC'],
+        ],
+        // One more than asked says whether a page follows.
+        limit: limit + 1,
+        offset,
+      }),
+    ]);
+    const page = rows.slice(0, limit);
+    res.json({
+      data: await presentShelf(page),
+      pagination: {
+        ...pagination({ limit, offset }, count),
+        next_after: rows.length > limit ? page[page.length - 1].id : null,
+      },
     });
-    res.json({ data: await presentShelf(rows), pagination: pagination({ limit, offset }, count) });
   });
 
   router.post('/workspaces/:ws/receivers', signedIn, async (req, res) => {

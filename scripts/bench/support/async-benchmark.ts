@@ -28,7 +28,7 @@ export async function printAsyncBenchmarks(benchmarks: readonly AsyncBenchmark[]
         ? 'no budget'
         : `budget (${benchmark.budgetOn}) < ${budgetMs.toFixed(3)} ms: ${figure < budgetMs ? 'within' : 'OVER'}`;
     console.log(
-      `${benchmark.name}: median ${timing.median.toFixed(3)} ms, p95 ${timing.p95.toFixed(3)} ms over ${timing.runs} requests; ${budget}`,
+      `${benchmark.name}: median ${timing.median.toFixed(3)} ms, p95 ${timing.p95.toFixed(3)} ms over ${timing.runs} requests${timing.perSecond === undefined ? '' : ` (${timing.perSecond.toFixed(0)}/s)`}; ${budget}`,
     );
   }
 }
