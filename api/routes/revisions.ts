@@ -3,7 +3,7 @@ import { Op } from 'sequelize';
 import { z } from 'zod';
 import { jsonPatch } from '@shared/diff';
 import { revertRevision } from '../commands/revert-revision';
-import { checkSetupText, type CheckedSetup } from '../commands/save-revision';
+import { checkSetupText, type CheckedSetup } from '../revisions/check-setup';
 import { saveRevisionAtOnce } from '../commands/save-revision-at-once';
 import { tagNamesOf, tagRevision, untagRevision } from '../commands/tag-revision';
 import type { AppContext } from '../context';
