@@ -14,10 +14,11 @@ const FLAGS = [
   '--no-first-run',
 ];
 
-/** Desktop and the tablet a pilot carries to the field. */
+/** Desktop, the tablet a pilot carries to the field and the phone in the pit area. */
 export const VIEWPORTS = {
   desktop: { width: 1280, height: 900 },
   tablet: { width: 768, height: 1024 },
+  phone: { width: 375, height: 812 },
 } as const;
 export type ViewportName = keyof typeof VIEWPORTS;
 

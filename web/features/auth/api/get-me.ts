@@ -1,5 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { api, ApiError } from '../../../lib/api-client';
+import { claimSavedAnswers } from '../../../lib/offline';
 import { SESSION_QUERY_KEY } from '../../../lib/query-client';
 import type { Session } from '../../../types/api';
 
@@ -9,6 +10,7 @@ import type { Session } from '../../../types/api';
  */
 export async function getMe(signal?: AbortSignal): Promise<Session> {
   const session = (await api.get<Session | null>('/api/session', signal)).data;
+  await claimSavedAnswers(session?.user.id ?? null);
   if (!session) throw new ApiError(401, { code: 'signed-out', message: 'Sign in to continue.' });
   return session;
 }

@@ -1,0 +1,16 @@
+import { useSyncExternalStore } from 'react';
+import { isOnline, keptModels, savedCopiesSnapshot, subscribeOffline, type KeptModel } from '../lib/offline';
+
+/** Whether the browser says it has a network, updated as the signal comes and goes. */
+export function useOnline(): boolean {
+  return useSyncExternalStore(subscribeOffline, isOnline, () => true);
+}
+
+/** Path -> saved-at of the answers on show that came from this device's copies. */
+export function useSavedCopies(): ReadonlyMap<string, string> {
+  return useSyncExternalStore(subscribeOffline, savedCopiesSnapshot, savedCopiesSnapshot);
+}
+
+export function useKeptModels(): readonly KeptModel[] {
+  return useSyncExternalStore(subscribeOffline, keptModels, keptModels);
+}
