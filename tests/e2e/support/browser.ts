@@ -71,9 +71,14 @@ export interface Visit {
 }
 
 /** A fresh browser context (its own cookies) with one watched page. */
-export async function openVisit(browser: Browser, viewport: ViewportName = 'desktop'): Promise<Visit> {
+export async function openVisit(
+  browser: Browser,
+  viewport: ViewportName = 'desktop',
+  { deviceScaleFactor = 1 }: { deviceScaleFactor?: number } = {},
+): Promise<Visit> {
   const context = await browser.newContext({
     viewport: VIEWPORTS[viewport],
+    deviceScaleFactor,
     acceptDownloads: true,
     locale: 'en-GB',
     timezoneId: 'Europe/London',
