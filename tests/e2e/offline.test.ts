@@ -14,6 +14,7 @@ import { signedIn } from './support/session';
 const browser = useBrowser();
 const ids = { workspace: '', kestrel: '', pipit: '' };
 let visit: Visit;
+let keeper: Visit | null = null;
 
 beforeAll(async () => {
   const api = await apiAs(demoAccount('owner'));
@@ -25,6 +26,7 @@ beforeAll(async () => {
 
 afterAll(async () => {
   await visit?.context.close();
+  await keeper?.context.close();
 });
 
 describe('offline at the field', () => {
@@ -85,5 +87,32 @@ describe('offline at the field', () => {
     expect((await api.get<{ notes: string }>(`/receivers/${ids.pipit}`)).notes).toBe(typed);
     // Chromium logs each request the offline device could not send; nothing else may show.
     expect(visit.problems.unexpected().filter((line) => !line.includes('ERR_INTERNET_DISCONNECTED'))).toEqual([]);
+  });
+
+  it('keeps a model’s newest approved revision for the field without its Overview or Field sheet being opened', async () => {
+    const api = await apiAs(demoAccount('owner'));
+    const sedge = await demoModel(api, 'Sedge 3.4');
+    const reviews = await api.get<{ state: string; revision: { number: number } }[]>(`/models/${sedge.id}/reviews`);
+    const approved = Math.max(...reviews.filter((r) => r.state === 'approved').map((r) => r.revision.number));
+    // The demo's Sedge was approved and then changed: the revision to fly is not the latest.
+    expect(approved).toBeLessThan(sedge.latest!.number);
+
+    keeper = await signedIn(browser(), demoAccount('owner'), 'phone');
+    const { page, context } = keeper;
+    await waitForServiceWorker(page);
+    await page.goto(`${baseUrl}/models/${sedge.id}/history`);
+    await page.getByRole('button', { name: 'Keep for the field' }).click();
+    await page.getByText(`Kept for the field on this device: revision ${approved}, saved`).waitFor();
+
+    await context.setOffline(true);
+    await page.reload();
+    await page.getByRole('link', { name: 'Its field sheet' }).click();
+    await page.locator('.field-sheet').waitFor();
+    const sheet = (await page.locator('.field-sheet').innerText()).replace(/\s+/g, ' ');
+    expect(sheet).toContain(`Revision ${approved} Hash`);
+    expect(sheet).toContain('Review Approved');
+    await page.getByRole('link', { name: 'Overview' }).click();
+    await page.getByRole('heading', { name: `Findings of revision ${sedge.latest!.number}` }).waitFor();
+    await context.setOffline(false);
   });
 });

@@ -14,3 +14,17 @@ export function useSavedCopies(): ReadonlyMap<string, string> {
 export function useKeptModels(): readonly KeptModel[] {
   return useSyncExternalStore(subscribeOffline, keptModels, keptModels);
 }
+
+function subscribeController(listener: () => void): () => void {
+  navigator.serviceWorker?.addEventListener('controllerchange', listener);
+  return () => navigator.serviceWorker?.removeEventListener('controllerchange', listener);
+}
+
+/** Whether a service worker saves this page's answers (the built app, in a browser that has them). */
+export function useSavesOffline(): boolean {
+  return useSyncExternalStore(
+    subscribeController,
+    () => Boolean(navigator.serviceWorker?.controller),
+    () => false,
+  );
+}
