@@ -14,6 +14,7 @@ import * as passwordResetRequests from './0013-password-reset-requests';
 import * as saveRevisionFunction from './0030-save-revision-function';
 import * as compareCacheUnlogged from './0031-compare-cache-unlogged';
 import * as hangarAndShelfOrder from './0032-hangar-and-shelf-order';
+import * as receiverShortCodes from './0060-receiver-short-codes';
 
 export interface MigrationModule {
   up: MigrationFn<MigrationContext>;
@@ -37,4 +38,5 @@ export const migrations: { name: string; module: MigrationModule }[] = [
   { name: '0030-save-revision-function', module: saveRevisionFunction },
   { name: '0031-compare-cache-unlogged', module: compareCacheUnlogged },
   { name: '0032-hangar-and-shelf-order', module: hangarAndShelfOrder },
+  { name: '0060-receiver-short-codes', module: receiverShortCodes },
 ];

@@ -78,6 +78,8 @@ export function receiversRouter({ sequelize, config }: AppContext): Router {
           { label: { [Op.iLike]: pattern } },
           { mark: { [Op.iLike]: pattern } },
           { notes: { [Op.iLike]: pattern } },
+          // A code read off a label may be typed in lower case or with a space in the middle.
+          { shortCode: q.toUpperCase().replace(/[\s-]/g, '') },
         ],
       });
     }

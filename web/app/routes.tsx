@@ -37,6 +37,10 @@ const OverviewScreen = lazyScreen(() => import('../features/overview/components/
 const HistoryScreen = lazyScreen(() => import('../features/history/components/history-screen'), 'HistoryScreen');
 const CompareScreen = lazyScreen(() => import('../features/compare/components/compare-screen'), 'CompareScreen');
 const ShelfScreen = lazyScreen(() => import('../features/shelf/components/shelf-screen'), 'ShelfScreen');
+const LabelSheetScreen = lazyScreen(
+  () => import('../features/labels/components/label-sheet-screen'),
+  'LabelSheetScreen',
+);
 const UnitScreen = lazyScreen(() => import('../features/shelf/components/unit-screen'), 'UnitScreen');
 const FieldSheetScreen = lazyScreen(
   () => import('../features/field-sheet/components/field-sheet-screen'),
@@ -104,6 +108,7 @@ export const routes: RouteObject[] = [
               { index: true, element: <Navigate to="hangar" replace /> },
               ...workspaceScreens.map(({ path, element }) => ({ path, element })),
               { path: 'reviews/:reviewId', element: <ReviewScreen /> },
+              { path: 'shelf/labels', element: <LabelSheetScreen /> },
               { path: 'shelf/:receiverId', element: <UnitScreen /> },
             ],
           },

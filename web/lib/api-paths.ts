@@ -7,7 +7,8 @@ type QueryValue = string | number | boolean | null | undefined;
 /** Query parameters; those left undefined or null are not sent. */
 export type Query = Record<string, QueryValue>;
 
-const API = '/api';
+/** Where every API path starts (the service worker tells API answers apart by it). */
+export const API = '/api';
 const seg = encodeURIComponent;
 
 function withQuery(path: string, query?: Query): string {

@@ -12,6 +12,7 @@ import { ErrorState } from '../../components/ui/error-state';
 import { LoadingState } from '../../components/ui/loading-state';
 import { useToast } from '../../components/ui/toast';
 import { NavTabs, type NavItem } from '../../components/layouts/nav-tabs';
+import { OfflineBanner } from '../../components/layouts/offline-banner';
 
 export interface FrameLink {
   /** The path under `/w/:wsId/`, or an absolute path for links outside a workspace. */
@@ -118,6 +119,7 @@ function SignedInFrame({ workspaceLinks, devLinks }: AppFrameProps) {
           )}
         </div>
       </header>
+      <OfflineBanner />
       <main id="main" className="mx-auto max-w-6xl px-4 py-8 sm:px-6">
         <Suspense fallback={<LoadingState />}>
           <Outlet />

@@ -1,6 +1,7 @@
 import { Suspense } from 'react';
 import { Link, Outlet, useParams } from 'react-router-dom';
 import { useSession } from '../../features/auth/hooks/use-session';
+import { KeepForField } from '../../features/field-kit/components/keep-for-field';
 import { useModel } from '../../features/models/api/get-model';
 import { useCurrentWorkspace } from '../../features/workspaces/hooks/use-current-workspace';
 import { LoadingState } from '../../components/ui/loading-state';
@@ -37,6 +38,7 @@ export function ModelFrame({ links }: { links: FrameLink[] }) {
           )}
         </div>
       )}
+      {model.data?.latest && <KeepForField modelId={model.data.id} />}
       <NavTabs
         label="Model"
         className="mt-2 mb-6 border-b border-ply-200"

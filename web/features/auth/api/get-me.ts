@@ -1,5 +1,6 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { api, ApiError } from '../../../lib/api-client';
+import { claimSavedAnswers } from '../../../lib/offline';
 import { SESSION_QUERY_KEY } from '../../../lib/query-client';
 import type { Session } from '../../../types/api';
 import { paths } from '../../../lib/api-paths';
@@ -13,6 +14,7 @@ type SessionAnswer = Omit<Session, 'workspacesTotal'>;
 
 export async function getMe(signal?: AbortSignal): Promise<Session> {
   const { data: session, pagination } = await api.get<SessionAnswer | null>(paths.session(), signal);
+  await claimSavedAnswers(session?.user.id ?? null);
   if (!session) throw new ApiError(401, { code: 'signed-out', message: 'Sign in to continue.' });
   return { ...session, workspacesTotal: pageOf(session.workspaces, pagination, 0).total };
 }

@@ -1,5 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { api } from '../../../lib/api-client';
+import { forgetSavedAnswers } from '../../../lib/offline';
 import type { Session, User } from '../../../types/api';
 import { meQueryOptions } from './get-me';
 import { paths } from '../../../lib/api-paths';
@@ -22,6 +23,8 @@ export function useSignIn() {
   return useMutation({
     mutationFn: async (input: SignInInput): Promise<Session> => {
       await signIn(input);
+      // Nothing saved on this device for an earlier session may show through.
+      await forgetSavedAnswers();
       queryClient.removeQueries();
       return queryClient.fetchQuery(meQueryOptions());
     },

@@ -1,6 +1,6 @@
 import { useState } from 'react';
 import { Link, useParams } from 'react-router-dom';
-import { Button } from '../../../components/ui/button';
+import { Button, buttonClasses } from '../../../components/ui/button';
 import { Card } from '../../../components/ui/card';
 import { Dialog } from '../../../components/ui/dialog';
 import { ErrorState } from '../../../components/ui/error-state';
@@ -146,14 +146,26 @@ export function UnitScreen() {
             <MarkLabel mark={data.mark} colour={data.mark_colour} />
             <span aria-hidden="true">·</span>
             <span>{data.outputs} outputs</span>
+            <span aria-hidden="true">·</span>
+            <span>
+              Short code <code className="font-mono text-base font-semibold text-ink-900">{data.short_code}</code>
+            </span>
           </span>
         }
         actions={
-          editor && (
-            <Button variant="secondary" onClick={() => setDialog('edit')}>
-              Edit details
-            </Button>
-          )
+          <>
+            <Link
+              to={`/w/${inUrl.id}/shelf/labels?units=${data.id}&sheet=single`}
+              className={buttonClasses('secondary')}
+            >
+              Print its label
+            </Link>
+            {editor && (
+              <Button variant="secondary" onClick={() => setDialog('edit')}>
+                Edit details
+              </Button>
+            )}
+          </>
         }
       />
       {dialog === 'edit' && <EditDetailsDialog unit={data} onClose={() => setDialog(null)} />}
