@@ -1,4 +1,4 @@
-import { Op, QueryTypes } from 'sequelize';
+import { Op, QueryTypes, type Transaction } from 'sequelize';
 import { compareRevisions } from '@shared/diff';
 import { ChecklistTick, Review, ReviewComment, ReviewVerdict, Revision, SetupModel, User } from '../models';
 import type { GrantedReview } from '../access/records';
@@ -72,22 +72,24 @@ export async function presentReviewList(reviews: readonly LoadedReview[]) {
  */
 export async function baseRevisionFor(
   revision: Revision,
+  /** For a caller inside a transaction that wrote the revisions (the demo seed). */
+  transaction?: Transaction,
 ): Promise<{ kind: 'approved' | 'parent' | 'fork-source'; revision: Revision } | null> {
   const [row] = await Revision.sequelize!.query<{ id: string }>(
     `SELECT rv.id FROM revisions rv
       WHERE rv.model_id = $model AND rv.number < $number
         AND EXISTS (SELECT 1 FROM reviews r WHERE r.revision_id = rv.id AND r.state = 'approved')
       ORDER BY rv.number DESC LIMIT 1`,
-    { bind: { model: revision.modelId, number: revision.number }, type: QueryTypes.SELECT },
+    { bind: { model: revision.modelId, number: revision.number }, type: QueryTypes.SELECT, transaction },
   );
-  const approved = row ? await Revision.findByPk(row.id) : null;
+  const approved = row ? await Revision.findByPk(row.id, { transaction }) : null;
   if (approved) return { kind: 'approved', revision: approved };
   if (revision.parentId) {
-    const parent = await Revision.findByPk(revision.parentId);
+    const parent = await Revision.findByPk(revision.parentId, { transaction });
     if (parent) return { kind: 'parent', revision: parent };
   }
   if (revision.origin === 'fork' && revision.sourceRevisionId) {
-    const source = await Revision.findByPk(revision.sourceRevisionId);
+    const source = await Revision.findByPk(revision.sourceRevisionId, { transaction });
     if (source) return { kind: 'fork-source', revision: source };
   }
   return null;

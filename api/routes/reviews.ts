@@ -34,7 +34,8 @@ export function reviewsRouter(context: AppContext): Router {
 
   router.post('/revisions/:id/reviews', signedIn, async (req, res) => {
     const input = parseInput(requestReviewSchema, req.body);
-    const { revision, model } = await authorizeRevision(req, req.params.id, 'edit');
+    // The document, for the mail's "Between these revisions".
+    const { revision, model } = await authorizeRevision(req, req.params.id, 'edit', { fields: ['document'] });
     const workspace = await Workspace.findByPk(model.workspaceId, { rejectOnEmpty: true });
     const review = await requestReview(sequelize, mailFor(context), {
       workspace,

@@ -12,13 +12,21 @@ export interface ApiProcess {
 
 const entry = fileURLToPath(new URL('./bench-server.ts', import.meta.url));
 
-/** Starts the API on 127.0.0.1 in a child process against `databaseUrl`. */
-export function startApiProcess(databaseUrl: string): Promise<ApiProcess> {
+/**
+ * Starts the API on 127.0.0.1 in a child process against `databaseUrl`; with `mail`,
+ * the mail queue's delivery loop and a local mail server run in it too.
+ */
+export function startApiProcess(databaseUrl: string, options: { mail?: boolean } = {}): Promise<ApiProcess> {
   const jwtSecret = randomBytes(32).toString('hex');
   // BENCH_PROFILE=<folder> writes a V8 CPU profile of the API process there, to see where a save's time goes.
   const profile = process.env.BENCH_PROFILE ? ['--cpu-prof', `--cpu-prof-dir=${process.env.BENCH_PROFILE}`] : [];
   const child: ChildProcess = spawn(process.execPath, [...profile, '--import', 'tsx', entry], {
-    env: { ...process.env, BENCH_DATABASE_URL: databaseUrl, BENCH_JWT_SECRET: jwtSecret },
+    env: {
+      ...process.env,
+      BENCH_DATABASE_URL: databaseUrl,
+      BENCH_JWT_SECRET: jwtSecret,
+      ...(options.mail ? { BENCH_MAIL: '1' } : {}),
+    },
     stdio: ['ignore', 'pipe', 'inherit'],
   });
   const stop = () =>
