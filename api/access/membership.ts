@@ -11,16 +11,22 @@ export interface Member {
   role: Role;
 }
 
-/** The caller's membership of a workspace, with the workspace; null when they are not in it (or it does not exist). */
+/**
+ * The caller's membership of a workspace, with the workspace; null when they are not in
+ * it (or it does not exist). With `share`, the membership row is locked FOR SHARE for the
+ * rest of the transaction, so a change of role waits for it to commit.
+ */
 export async function loadMembership(
   userId: string,
   workspaceId: string,
   transaction?: Transaction,
+  options: { share?: boolean } = {},
 ): Promise<Member | null> {
   const membership = await Membership.findOne({
     where: { workspaceId, userId },
     include: [{ model: Workspace, as: 'workspace', required: true }],
     transaction,
+    ...(transaction && options.share ? { lock: { level: transaction.LOCK.SHARE, of: Membership } } : {}),
   });
   return membership?.workspace ? { workspace: membership.workspace, role: membership.role } : null;
 }

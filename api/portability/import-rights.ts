@@ -1,7 +1,7 @@
-import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
+import type { Transaction } from 'sequelize';
+import { loadMembership } from '../access/membership';
 import { Forbidden } from '../errors';
-import { MODEL_POLICY } from '../policies/model';
-import { isRole, roleAtLeast } from '@shared/contract/roles';
+import { MODEL_POLICY, modelPolicy } from '../policies/model';
 
 /**
  * The requester's right to import, read again when the job runs: the upload route
@@ -11,25 +11,21 @@ import { isRole, roleAtLeast } from '@shared/contract/roles';
  * waits for the import to commit, or the import sees it and stores nothing.
  */
 export async function requireImportRights(
-  sequelize: Sequelize,
   job: { workspaceId: string; requestedBy: string },
   transaction?: Transaction,
 ): Promise<void> {
-  const [row] = await sequelize.query<{ role: string }>(
-    `SELECT role FROM memberships WHERE workspace_id = $workspaceId AND user_id = $userId${transaction ? ' FOR SHARE' : ''}`,
-    { bind: { workspaceId: job.workspaceId, userId: job.requestedBy }, type: QueryTypes.SELECT, transaction },
-  );
+  const member = await loadMembership(job.requestedBy, job.workspaceId, transaction, { share: true });
+  const decision = modelPolicy(member?.role ?? null, 'create');
+  if (decision.allowed) return;
   const required = MODEL_POLICY.create;
-  if (!row || !isRole(row.role)) {
+  if (decision.reason === 'not-member') {
     throw new Forbidden(
       'The account that asked for this import is no longer a member of the workspace, so nothing was imported.',
       { code: 'requester-not-member', details: { required } },
     );
   }
-  if (!roleAtLeast(row.role, required)) {
-    throw new Forbidden(
-      `The account that asked for this import is now ${row.role} in the workspace, and an import needs the ${required} role or higher, so nothing was imported.`,
-      { code: 'requester-role-too-low', details: { required, role: row.role } },
-    );
-  }
+  throw new Forbidden(
+    `The account that asked for this import is now ${decision.role} in the workspace, and an import needs the ${required} role or higher, so nothing was imported.`,
+    { code: 'requester-role-too-low', details: { required, role: decision.role } },
+  );
 }

@@ -51,7 +51,7 @@ async function runJob(sequelize: Sequelize, job: ClaimedImportJob, logErrors: bo
     ]);
     if (!workspace || !author) throw new Error('the workspace or the account of the import is gone');
     const requester = { workspaceId: workspace.id, requestedBy: author.id };
-    await requireImportRights(sequelize, requester);
+    await requireImportRights(requester);
     const report = (update: Parameters<typeof reportImportProgress>[2]) =>
       reportImportProgress(sequelize, job.id, update);
     const models = await readHistoryBundle(job.bundle, report);
@@ -62,7 +62,7 @@ async function runJob(sequelize: Sequelize, job: ClaimedImportJob, logErrors: bo
         author,
         models,
         name: job.model_name ?? undefined,
-        requireRights: (transaction) => requireImportRights(sequelize, requester, transaction),
+        requireRights: (transaction) => requireImportRights(requester, transaction),
       },
       report,
     );
