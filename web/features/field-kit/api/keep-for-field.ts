@@ -28,10 +28,7 @@ export async function keepForField(modelId: Id): Promise<KeptModel & { approved:
   const revisions = new Set([kept.id, model.latest?.id].filter((id): id is Id => Boolean(id)));
   await Promise.all([
     api.get(paths.modelRevisionNumber(modelId, kept.number)),
-    ...[...revisions].flatMap((id) => [
-      api.get(paths.revision(id)),
-      api.get(paths.revisionFieldSheet(id)),
-    ]),
+    ...[...revisions].flatMap((id) => [api.get(paths.revision(id)), api.get(paths.revisionFieldSheet(id))]),
   ]);
   const entry = { modelId, revisionId: kept.id, revisionNumber: kept.number, savedAt: new Date().toISOString() };
   setKeptModel(modelId, entry);
