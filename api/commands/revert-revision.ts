@@ -49,6 +49,7 @@ export async function revertRevision(sequelize: Sequelize, input: RevertInput): 
         sourceRevisionId: target.id,
         createdAt: input.createdAt,
         audit,
+        followName: true,
       },
       transaction,
     );

@@ -1,12 +1,14 @@
 import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
 import { analyzeSetup, type Analysis } from '@shared/analyze';
 import { contentHash } from '@shared/canonical/content-hash';
-import { AIRFRAMES } from '@shared/format/schema';
+import { AIRFRAMES, FORMAT_ID } from '@shared/format/schema';
+import { namesSetupFormat, SETUP_FILE_SHAPE } from '@shared/format/setup-header';
 import { MAX_TEXT_BYTES } from '@shared/parse/limits';
 import { Conflict, NotFound, TooLarge, Unprocessable } from '../errors';
 import { Revision, SetupModel, type User } from '../models';
 import type { RevisionOrigin } from '../models/Revision';
-import type { AuditAction } from './record-audit-event';
+import { modelName } from '../model-fields';
+import { recordAuditEvent, type AuditAction } from './record-audit-event';
 
 /** Setup text that has been read and checked, ready to be stored. */
 /**
@@ -64,6 +66,23 @@ export function checkSetupText(text: string): CheckedSetup {
   return { text, analysis: analysis as CheckedSetup['analysis'], contentHash: contentHash(analysis.data) };
 }
 
+/**
+ * Like `checkSetupText`, for text that is to start a model or arrive as a file: it must
+ * say it is a setup (`format: bindery-setup/1`), or nothing is stored.
+ */
+export function checkSetupDocument(text: string): CheckedSetup {
+  const setup = checkSetupText(text);
+  if (!namesSetupFormat(setup.analysis.data)) {
+    const format = (setup.analysis.data as { format?: unknown }).format;
+    const said = format === undefined ? 'has no format line' : `says format: ${JSON.stringify(format)}`;
+    throw new Unprocessable(
+      `This file is not a Bindery setup: it ${said}, where a setup says "format: ${FORMAT_ID}". Nothing was saved. ${SETUP_FILE_SHAPE}`,
+      { code: 'not-a-setup', details: { format: format ?? null, expected: FORMAT_ID } },
+    );
+  }
+  return setup;
+}
+
 /** The airframe kind a setup names, when it names one the format knows. */
 export function airframeOf(data: unknown): string | null {
   const model = (data as { model?: { airframe?: unknown } } | null)?.model;
@@ -72,11 +91,13 @@ export function airframeOf(data: unknown): string | null {
 }
 
 /** The model row as the save path needs it; a full SetupModel when the caller has one. */
-export type LockedModelRow = Pick<SetupModel, 'id' | 'workspaceId' | 'airframe'> & Partial<Pick<SetupModel, 'set'>>;
+export type LockedModelRow = Pick<SetupModel, 'id' | 'workspaceId' | 'airframe'> &
+  Partial<Pick<SetupModel, 'name' | 'set'>>;
 
 export interface LockedModel {
   model: LockedModelRow;
-  latest: Pick<Revision, 'id' | 'number'> | null;
+  /** `modelName` is the latest revision's own `model.name`, read when the lock is taken. */
+  latest: (Pick<Revision, 'id' | 'number'> & { modelName?: string | null }) | null;
 }
 
 /**
@@ -89,20 +110,24 @@ export interface LockedModel {
  * the rows it saw before the wait).
  */
 export async function lockModel(sequelize: Sequelize, modelId: string, transaction: Transaction): Promise<LockedModel> {
-  const [row] = await sequelize.query<{ id: string; workspace_id: string; airframe: string | null }>(
-    'SELECT id, workspace_id, airframe FROM models WHERE id = $id FOR UPDATE',
+  const [row] = await sequelize.query<{ id: string; workspace_id: string; airframe: string | null; name: string }>(
+    'SELECT id, workspace_id, airframe, name FROM models WHERE id = $id FOR UPDATE',
     { bind: { id: modelId }, type: QueryTypes.SELECT, transaction },
   );
   if (!row) throw new NotFound('No such model.', { code: 'model-not-found' });
-  const [latest] = await sequelize.query<{ id: string; number: number }>(
-    'SELECT id, number FROM revisions WHERE model_id = $id ORDER BY number DESC LIMIT 1',
+  const [latest] = await sequelize.query<{ id: string; number: number; model_name: string | null }>(
+    `SELECT id, number, document->'model'->>'name' AS model_name
+       FROM revisions WHERE model_id = $id ORDER BY number DESC LIMIT 1`,
     {
       bind: { id: modelId },
       type: QueryTypes.SELECT,
       transaction,
     },
   );
-  return { model: { id: row.id, workspaceId: row.workspace_id, airframe: row.airframe }, latest: latest ?? null };
+  return {
+    model: { id: row.id, workspaceId: row.workspace_id, airframe: row.airframe, name: row.name },
+    latest: latest ? { id: latest.id, number: latest.number, modelName: latest.model_name } : null,
+  };
 }
 
 export function requireLatestBase(latest: LockedModel['latest'], base: number): void {
@@ -132,6 +157,11 @@ export interface AppendInput {
   /** For the demo seed, which writes a history with its original dates. */
   createdAt?: Date;
   audit?: RevisionAudit;
+  /**
+   * When the revision changes the setup's own `model.name`, the model's name follows
+   * (and the rename is audited), so the two never drift apart by a save.
+   */
+  followName?: boolean;
 }
 
 // One statement inserts the revision, keeps the model's airframe and change time
@@ -207,7 +237,51 @@ export async function appendRevision(
   );
   revision.author = input.author;
   model.set?.({ airframe, updatedAt: revision.createdAt }, { raw: true });
+  if (input.followName) await followModelName(sequelize, locked, data, input.author, revision, transaction);
   return revision;
+}
+
+/** The setup's own `model.name`, when it is one the model record can take. */
+export function setupModelName(data: unknown): string | null {
+  const name = (data as { model?: { name?: unknown } } | null)?.model?.name;
+  if (typeof name !== 'string') return null;
+  const trimmed = name.trim();
+  return modelName.safeParse(trimmed).success ? trimmed : null;
+}
+
+async function followModelName(
+  sequelize: Sequelize,
+  locked: LockedModel,
+  data: unknown,
+  actor: User,
+  revision: Revision,
+  transaction: Transaction,
+): Promise<void> {
+  const { model, latest } = locked;
+  const name = setupModelName(data);
+  if (name === null || model.name === undefined || name === model.name) return;
+  // Only a record that was in step with the text follows it: a name given on purpose
+  // (a fork's, or one chosen when the model was made) is not undone by a save, and the
+  // model's Settings screen shows the two names side by side until the pilot picks one.
+  if (!latest || latest.modelName?.trim() !== model.name) return;
+  await sequelize.query('UPDATE models SET name = $name WHERE id = $id', {
+    bind: { name, id: model.id },
+    transaction,
+  });
+  await recordAuditEvent(
+    {
+      workspaceId: model.workspaceId,
+      actor,
+      action: 'model.renamed',
+      subjectType: 'model',
+      subjectId: model.id,
+      details: { from: model.name, to: name, number: revision.number },
+      createdAt: revision.createdAt,
+    },
+    transaction,
+  );
+  if (model.set) model.set({ name }, { raw: true });
+  else model.name = name;
 }
 
 export interface SaveRevisionInput {
@@ -225,8 +299,8 @@ const AUDIT_FOR: Record<'save' | 'upload', AuditAction> = { save: 'revision.save
 
 /** Saves a new revision on `base`: refused (409) unless `base` is still the latest number. */
 export async function saveRevision(sequelize: Sequelize, input: SaveRevisionInput): Promise<Revision> {
-  const setup = checkSetupText(input.yaml);
   const origin = input.origin ?? 'save';
+  const setup = origin === 'upload' ? checkSetupDocument(input.yaml) : checkSetupText(input.yaml);
   return inTransaction(sequelize, input.transaction, async (transaction) => {
     const locked = await lockModel(sequelize, input.modelId, transaction);
     requireLatestBase(locked.latest, input.base);
@@ -240,6 +314,7 @@ export async function saveRevision(sequelize: Sequelize, input: SaveRevisionInpu
         origin,
         createdAt: input.createdAt,
         audit: { action: AUDIT_FOR[origin], details: {} },
+        followName: true,
       },
       transaction,
     );

@@ -2,8 +2,9 @@ import { Router } from 'express';
 import { col, fn, Op, type WhereOptions } from 'sequelize';
 import { createModel } from '../commands/create-model';
 import { forkModel } from '../commands/fork-model';
+import { setModelArchived } from '../commands/archive-model';
 import { renameModel } from '../commands/rename-model';
-import { checkSetupText, saveRevision } from '../commands/save-revision';
+import { checkSetupDocument, saveRevision } from '../commands/save-revision';
 import type { AppContext } from '../context';
 import { NotFound } from '../errors';
 import { authenticate, currentUser } from '../middleware/authenticate';
@@ -40,23 +41,33 @@ export function modelsRouter({ sequelize, config }: AppContext): Router {
   const signedIn = authenticate(config);
 
   router.get('/workspaces/:ws/models', signedIn, async (req, res) => {
-    const { q, limit, offset } = parseInput(hangarQuery, req.query, 'The search parameters are not valid.');
+    const { q, limit, offset, archived } = parseInput(hangarQuery, req.query, 'The search parameters are not valid.');
     const { workspace, role } = await authorizeWorkspace(req, req.params.ws, 'read');
-    const where: WhereOptions<SetupModel> = { workspaceId: workspace.id };
+    const matching: WhereOptions<SetupModel> = { workspaceId: workspace.id };
     if (q) {
       const pattern = `%${escapeLike(q)}%`;
-      Object.assign(where, { [Op.or]: [{ name: { [Op.iLike]: pattern } }, { airframe: { [Op.iLike]: pattern } }] });
+      Object.assign(matching, { [Op.or]: [{ name: { [Op.iLike]: pattern } }, { airframe: { [Op.iLike]: pattern } }] });
     }
-    const { rows, count } = await SetupModel.findAndCountAll({
-      where,
-      order: [
-        [fn('lower', col('name')), 'ASC'],
-        ['id', 'ASC'],
-      ],
-      limit,
-      offset,
+    const archivedOnly = { ...matching, archivedAt: { [Op.ne]: null } };
+    const where =
+      archived === 'include' ? matching : archived === 'only' ? archivedOnly : { ...matching, archivedAt: null };
+    const [{ rows, count }, archivedCount] = await Promise.all([
+      SetupModel.findAndCountAll({
+        where,
+        order: [
+          [fn('lower', col('name')), 'ASC'],
+          ['id', 'ASC'],
+        ],
+        limit,
+        offset,
+      }),
+      SetupModel.count({ where: archivedOnly }),
+    ]);
+    res.json({
+      data: await presentModels(rows, role, currentUser(req)),
+      pagination: { limit, offset, total: count },
+      archived: archivedCount,
     });
-    res.json({ data: await presentModels(rows, role, currentUser(req)), pagination: { limit, offset, total: count } });
   });
 
   router.post('/workspaces/:ws/models', signedIn, async (req, res) => {
@@ -74,7 +85,7 @@ export function modelsRouter({ sequelize, config }: AppContext): Router {
     const upload = await readSetupUpload(req, res);
     const fields = parseInput(uploadModelFields, upload.fields, 'Some form fields need attention.');
     const user = currentUser(req);
-    const setup = checkSetupText(upload.text);
+    const setup = checkSetupDocument(upload.text);
     const { model, revision } = await createModel(sequelize, {
       workspace,
       author: user,
@@ -97,9 +108,24 @@ export function modelsRouter({ sequelize, config }: AppContext): Router {
     const { name } = parseInput(renameModelSchema, req.body);
     const { model, role } = await authorizeModel(req, req.params.id, 'edit');
     const user = currentUser(req);
-    await renameModel(sequelize, model, name, user);
-    res.json({ data: await presentOneModel(model, role, user) });
+    const { revision } = await renameModel(sequelize, model, name, user);
+    res.json({
+      data: await presentOneModel(model, role, user),
+      revision: revision ? presentSavedRevision(revision) : null,
+    });
   });
+
+  for (const [verb, archived] of [
+    ['archive', true],
+    ['unarchive', false],
+  ] as const) {
+    router.post(`/models/:id/${verb}`, signedIn, async (req, res) => {
+      const { model, role } = await authorizeModel(req, req.params.id, 'edit');
+      const user = currentUser(req);
+      await setModelArchived(sequelize, model, archived, user);
+      res.json({ data: await presentOneModel(model, role, user) });
+    });
+  }
 
   router.post('/models/:id/fork', signedIn, async (req, res) => {
     const input = parseInput(forkSchema, req.body);

@@ -96,7 +96,13 @@ const FIELDS: Record<string, Record<string, FieldSpec>> = {
   power: { receiver_supply: { label: 'receiver supply' } },
 };
 
-const SECTION_NAMES: Record<string, string> = { model: 'Model', link: 'Link', power: 'Power', format: 'Format' };
+const SECTION_NAMES: Record<string, string> = {
+  model: 'Model',
+  link: 'Link',
+  power: 'Power',
+  format: 'Format',
+  accepted: 'Accepted findings',
+};
 const LIST_NAMES: Record<string, string> = {
   controls: 'Controls',
   channels: 'Channel plan',

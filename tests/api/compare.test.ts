@@ -100,7 +100,7 @@ describe('GET /api/compare', () => {
   it('compares a revision with itself as no change', async () => {
     const body = (await viewer.get(`/api/compare?from=${after.id}&to=${after.id}`).expect(200)).body.data;
     expect(body.changes).toEqual([]);
-    expect(body.findings_delta).toEqual({ introduced: [], resolved: [] });
+    expect(body.findings_delta).toEqual({ introduced: [], resolved: [], accepted: [] });
   });
 
   it('needs both ids: 400 when one is missing, 404 when one is not a revision', async () => {

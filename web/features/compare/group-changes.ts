@@ -24,6 +24,7 @@ export const SECTION_NAMES: Record<Section, string> = {
   mixes: 'Mixes',
   receivers: 'Receivers and pin maps',
   power: 'Power',
+  accepted: 'Accepted findings',
   other: 'Other keys',
 };
 

@@ -2,7 +2,7 @@ import { SLUG_PATTERN } from '@shared/format/schema';
 import { Button } from '../../../components/ui/button';
 import { CloseIcon } from '../../../components/ui/icons';
 import { EmptyState } from '../../../components/ui/empty-state';
-import type { DocumentEdit } from '../document-edits';
+import type { DocumentEdit } from '@shared/edit/document-edits';
 import {
   entriesAt,
   entryAt,

@@ -75,11 +75,9 @@ export function ChannelGrid({ plan }: { plan: ChannelPlan }) {
 }
 
 function ChannelRow({ row, receivers }: { row: PlanRow; receivers: PlanReceiver[] }) {
-  const worst = row.marks.some((mark) => mark.finding.severity === 'error')
-    ? 'error'
-    : row.marks.length > 0
-      ? 'warning'
-      : null;
+  // Accepted findings and notes do not colour the row: only what is open and needs a look.
+  const open = row.marks.filter((mark) => mark.kind !== 'accepted' && mark.finding.severity !== 'info');
+  const worst = open.some((mark) => mark.finding.severity === 'error') ? 'error' : open.length > 0 ? 'warning' : null;
   return (
     <tr
       className={cx(

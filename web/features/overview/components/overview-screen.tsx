@@ -129,6 +129,8 @@ const LEGEND: Record<MarkKind, string> = {
   unrouted: 'no receiver pin carries the channel',
   'beyond-link': 'the link does not carry the channel',
   'no-function': 'a pin carries a channel with no function planned',
+  finding: 'another finding is about this channel or a pin carrying it; the findings below say what',
+  accepted: 'a finding about this channel was accepted with a reason (see the findings)',
 };
 
 function MarkLegend({ kinds }: { kinds: MarkKind[] }) {
