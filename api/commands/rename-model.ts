@@ -39,7 +39,10 @@ export async function renameModel(
         checkSetupText(text),
         {
           author: actor,
-          message: `Renamed the model from “${previous}” to “${name}”`,
+          message:
+            previous === name
+              ? `Wrote the model's name “${name}” into model.name`
+              : `Renamed the model from “${previous}” to “${name}”`,
           origin: 'save',
           audit: { action: 'revision.saved', details: { renamed: { from: previous, to: name } } },
           followName: true,

@@ -65,8 +65,8 @@ export function modelsRouter({ sequelize, config }: AppContext): Router {
     ]);
     res.json({
       data: await presentModels(rows, role, currentUser(req)),
-      pagination: { limit, offset, total: count },
-      archived: archivedCount,
+      // How many archived models the search matches, so the hangar can offer to show them.
+      pagination: { limit, offset, total: count, archived: archivedCount },
     });
   });
 

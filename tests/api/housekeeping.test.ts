@@ -148,14 +148,14 @@ describe('archive and unarchive', () => {
     const listed = async (query = '') =>
       (await viewer.get(`/api/workspaces/${roles.workspace.id}/models?q=Retired${query}`).expect(200)).body as {
         data: { id: string; archived_at: string | null }[];
-        archived: number;
+        pagination: { archived: number };
       };
     expect((await listed()).data.map((row) => row.id)).toEqual([model.id]);
 
     const archived = (await editor.post(`/api/models/${model.id}/archive`).expect(200)).body.data;
     expect(archived.archived_at).toEqual(expect.any(String));
     expect((await listed()).data).toEqual([]);
-    expect((await listed()).archived).toBe(1);
+    expect((await listed()).pagination.archived).toBe(1);
     expect((await listed('&archived=include')).data.map((row) => row.id)).toEqual([model.id]);
     expect((await listed('&archived=only')).data[0].archived_at).toBe(archived.archived_at);
     await viewer.get(`/api/workspaces/${roles.workspace.id}/models?archived=maybe`).expect(400);

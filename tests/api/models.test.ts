@@ -175,7 +175,7 @@ describe('GET /api/workspaces/:ws/models (the hangar)', () => {
     const user = await createUser();
     const empty = await createWorkspace({ owner: user });
     expect((await clientFor(t.app, t.config, user).get(`/api/workspaces/${empty.id}/models`).expect(200)).body).toEqual(
-      { data: [], pagination: { limit: 100, offset: 0, total: 0 }, archived: 0 },
+      { data: [], pagination: { limit: 100, offset: 0, total: 0, archived: 0 } },
     );
   });
 });

@@ -42,6 +42,10 @@ const FieldSheetScreen = lazyScreen(
   () => import('../features/field-sheet/components/field-sheet-screen'),
   'FieldSheetScreen',
 );
+const ModelSettingsScreen = lazyScreen(
+  () => import('../features/model-settings/components/model-settings-screen'),
+  'ModelSettingsScreen',
+);
 const AccountScreen = lazyScreen(() => import('../features/account/components/account-screen'), 'AccountScreen');
 
 interface Screen extends FrameLink {
@@ -66,6 +70,7 @@ export const modelScreens: Screen[] = [
   { path: 'compare', label: 'Compare', element: <CompareScreen /> },
   { path: 'reviews', label: 'Reviews', element: <ModelReviewsScreen /> },
   { path: 'sheet', label: 'Field sheet', element: <FieldSheetScreen /> },
+  { path: 'settings', label: 'Settings', element: <ModelSettingsScreen /> },
 ];
 
 /** Tools for development, outside any workspace. */

@@ -22,6 +22,7 @@ import { applyEdits, readDocumentData, type DocumentEdit } from '@shared/edit/do
 import { clearDraft, saveDraft } from '../draft-storage';
 import { useDebouncedValue } from '../hooks/use-debounced-value';
 import { ChannelPlanForm } from './channel-plan-form';
+import { ControlsLinkForm } from './controls-link-form';
 import { LeaveGuard } from './leave-guard';
 import { MixesForm } from './mixes-form';
 import { Notice } from './notice';
@@ -287,7 +288,7 @@ export function SetupEditor({ model, initialBase, restoredText, canEdit, role }:
       <PageHeader
         title="Edit"
         documentTitle={`Edit · ${model.name}`}
-        description={`${model.name}: the setup as YAML text, with forms for the channel plan, pin maps and mixes on the same document, checked as you type.`}
+        description={`${model.name}: the setup as YAML text, with forms for the controls, link, channel plan, pin maps and mixes on the same document, checked as you type.`}
         actions={
           <>
             {canEdit && (
@@ -435,6 +436,8 @@ export function SetupEditor({ model, initialBase, restoredText, canEdit, role }:
                   The text is not readable YAML right now, so the forms cannot show it. Fix the syntax finding in the
                   text first.
                 </Notice>
+              ) : tab === 'controls' ? (
+                <ControlsLinkForm data={formData} readOnly={!canEdit} onEdits={onEdits} />
               ) : tab === 'plan' ? (
                 <ChannelPlanForm data={formData} readOnly={!canEdit} onEdits={onEdits} />
               ) : tab === 'pins' ? (
