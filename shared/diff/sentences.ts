@@ -54,9 +54,9 @@ const FIELDS: Record<string, Record<string, FieldSpec>> = {
     role: { label: 'role' },
     side: { label: 'side' },
     travel: { label: 'travel' },
-    'travel.low_us': { label: 'travel low end', unit: 'us' },
-    'travel.center_us': { label: 'travel centre', unit: 'us' },
-    'travel.high_us': { label: 'travel high end', unit: 'us' },
+    'travel.low_us': { label: 'travel low end', unit: 'µs' },
+    'travel.center_us': { label: 'travel centre', unit: 'µs' },
+    'travel.high_us': { label: 'travel high end', unit: 'µs' },
     'travel.reverse': { label: 'reverse' },
     cut: { label: 'cut' },
     'cut.control': { label: 'cut switch' },
@@ -83,7 +83,7 @@ const FIELDS: Record<string, Record<string, FieldSpec>> = {
     telemetry: { label: 'telemetry' },
     map: { label: 'pin map' },
   },
-  pin: { ch: { label: 'channel' }, failsafe: { label: 'failsafe', unit: 'us' } },
+  pin: { ch: { label: 'channel' }, failsafe: { label: 'failsafe', unit: 'µs' } },
   model: {
     name: { label: 'name', prose: true },
     airframe: { label: 'airframe' },
@@ -163,7 +163,7 @@ function valueWithUnit(value: unknown, spec: FieldSpec, failsafe: boolean): stri
   return spec.unit && isNumeric(value) ? `${text(value)} ${spec.unit}` : shown(value, spec);
 }
 
-// "1500 -> 988 us" when both sides are numbers of one unit, else each side with its own.
+// "1500 -> 988 µs" when both sides are numbers of one unit, else each side with its own.
 function beforeAfter(before: unknown, after: unknown, spec: FieldSpec, failsafe = false): string {
   if (spec.unit && isNumeric(before) && isNumeric(after)) return `${text(before)} -> ${text(after)} ${spec.unit}`;
   if (spec.prose && isText(before) && isText(after)) return quotePair(before, after).join(' -> ');
@@ -232,7 +232,7 @@ function describeEntry(subject: Subject, value: PlainObject, sides: Sides, side:
     case 'receiver':
       return `${text(value.outputs)} outputs, telemetry ${value.telemetry === false ? 'off' : 'on'}`;
     case 'pin':
-      return `channel ${channelWithFunction(doc, value.ch)}, failsafe ${valueWithUnit(value.failsafe, { label: 'failsafe', unit: 'us' }, true)}`;
+      return `channel ${channelWithFunction(doc, value.ch)}, failsafe ${valueWithUnit(value.failsafe, { label: 'failsafe', unit: 'µs' }, true)}`;
     case 'channel':
       return `${text(value.function)} (role ${text(value.role)})`;
     case 'section':

@@ -70,7 +70,7 @@ describe('journey: edit in the text and in the forms, then save', () => {
     const dialog = page.getByRole('dialog', { name: 'Save as revision 2' });
     await dialog
       .getByLabel('What changed')
-      .fill('Wing pin 1 failsafe 1500 -> 1450 us: tailwheel a touch left of centre');
+      .fill('Wing pin 1 failsafe 1500 -> 1450 µs: tailwheel a touch left of centre');
     await dialog.getByRole('button', { name: 'Save revision' }).click();
     await page.getByRole('region', { name: 'Notifications' }).getByText('Saved revision 2').waitFor();
     await page.getByText('No unsaved changes').waitFor();
@@ -78,7 +78,7 @@ describe('journey: edit in the text and in the forms, then save', () => {
 
     const history = await api.get<Revision[]>(`/models/${model.id}/revisions`);
     expect(history.map((revision) => revision.number)).toEqual([2, 1]);
-    expect(history[0].message).toBe('Wing pin 1 failsafe 1500 -> 1450 us: tailwheel a touch left of centre');
+    expect(history[0].message).toBe('Wing pin 1 failsafe 1500 -> 1450 µs: tailwheel a touch left of centre');
     const saved = await api.get<Revision & { id: string }>(`/models/${model.id}/revisions/2`);
     // The form changed only the failsafe, in place; the fixed channel line is as it was.
     expect(saved.yaml).toContain('- { pin: 1, ch: 9,  failsafe: 1450 }');

@@ -46,6 +46,10 @@ const ModelSettingsScreen = lazyScreen(
   () => import('../features/model-settings/components/model-settings-screen'),
   'ModelSettingsScreen',
 );
+const FormatReferenceScreen = lazyScreen(
+  () => import('../features/format-reference/components/format-reference-screen'),
+  'FormatReferenceScreen',
+);
 const AccountScreen = lazyScreen(() => import('../features/account/components/account-screen'), 'AccountScreen');
 
 interface Screen extends FrameLink {
@@ -102,6 +106,7 @@ export const routes: RouteObject[] = [
         children: [
           { index: true, element: <HomeScreen /> },
           { path: 'account', element: <AccountScreen /> },
+          { path: 'help/format', element: <FormatReferenceScreen /> },
           {
             path: 'w/:wsId',
             element: <WorkspaceScope />,

@@ -52,7 +52,7 @@ export function groupChanges(
     const inSection = changes.filter((change) => change.section === section);
     const counts = sections[section] ?? countKinds(inSection);
     if (inSection.length === 0 && total(counts) === 0) {
-      if (section !== 'other') unchanged.push(section);
+      if (section !== 'other' && section !== 'accepted') unchanged.push(section);
       continue;
     }
     changed.push({ section, counts, total: total(counts), changes: inSection });

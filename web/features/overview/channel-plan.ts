@@ -185,8 +185,8 @@ export const MARK_WORDS: Record<MarkKind, string> = {
 };
 
 export function failsafeText(failsafe: Failsafe): string {
-  if (failsafe === null) return 'receiver default';
+  if (failsafe === null) return 'not set';
   if (failsafe === 'hold') return 'hold';
-  if (failsafe === 'off') return 'off';
-  return `${failsafe} us`;
+  if (failsafe === 'off') return 'off (no pulses)';
+  return `${failsafe} µs`;
 }

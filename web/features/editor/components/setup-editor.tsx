@@ -1,10 +1,10 @@
 import { Suspense, useCallback, useEffect, useId, useMemo, useRef, useState, type ChangeEvent } from 'react';
-import { useLocation, useSearchParams } from 'react-router-dom';
+import { Link, useLocation, useSearchParams } from 'react-router-dom';
 import { analyzeSetup } from '@shared/analyze';
 import type { Finding } from '@shared/findings';
 import { lazyScreen } from '../../../app/lazy-screen';
 import { Badge, SeverityBadge } from '../../../components/ui/badge';
-import { Button } from '../../../components/ui/button';
+import { Button, buttonClasses } from '../../../components/ui/button';
 import { Dialog } from '../../../components/ui/dialog';
 import { CheckIcon, InfoIcon, PencilIcon, StaleIcon, WarningIcon } from '../../../components/ui/icons';
 import { LoadingState } from '../../../components/ui/loading-state';
@@ -307,6 +307,9 @@ export function SetupEditor({ model, initialBase, restoredText, canEdit, role }:
                 </Button>
               </>
             )}
+            <Link to="/help/format" className={buttonClasses('quiet')}>
+              Format reference
+            </Link>
             <Button variant="secondary" onClick={download}>
               Download text
             </Button>
