@@ -79,8 +79,8 @@ describe.each(['desktop', 'tablet'] as ViewportName[])('findings and housekeepin
     await expect.poll(() => page.url()).toBe(`${baseUrl}/models/${model.id}/edit`);
     // Nothing is selected; a keystroke adds to the line instead of replacing it.
     expect(await page.evaluate(() => document.getSelection()?.toString() ?? '')).toBe('');
-    await page.keyboard.press('Shift+End');
     const line = endstop.split('\n').find((text) => text.includes('pin: 1,'))!;
+    await page.keyboard.press('Shift+End');
     await expect.poll(() => page.evaluate(() => document.getSelection()?.toString() ?? '')).toBe(line);
     expectNoProblems(visit);
     await visit.context.close();

@@ -21,7 +21,8 @@ export const selectedText = (page: Page) => page.evaluate(() => document.getSele
  */
 export async function selectRestOfLine(page: Page, line: string): Promise<void> {
   await expect.poll(() => selectedText(page)).toBe('');
-  await page.keyboard.press('Shift+End');
+  // A wrapped line ends at each wrap point first: extend to the next boundary until the whole line is in.
+  for (let step = 0; step < 6 && (await selectedText(page)) !== line; step += 1) await page.keyboard.press('Shift+End');
   await expect.poll(() => selectedText(page)).toBe(line);
 }
 

@@ -48,8 +48,12 @@ const components: Components = {
   p: ({ children }) => <p className="mt-3 max-w-prose text-base text-ink-900">{children}</p>,
   ul: ({ children }) => <ul className="mt-3 max-w-prose list-disc space-y-1 pl-6">{children}</ul>,
   ol: ({ children }) => <ol className="mt-3 max-w-prose list-decimal space-y-1 pl-6">{children}</ol>,
+  // A long line scrolls inside its block; the block is a tab stop so the keyboard can scroll it.
   pre: ({ children }) => (
-    <pre className="mt-3 overflow-x-auto rounded-lg border border-ply-200 bg-paper-raised p-3 font-mono text-sm">
+    <pre
+      tabIndex={0}
+      className="mt-3 overflow-x-auto rounded-lg border border-ply-200 bg-paper-raised p-3 font-mono text-sm"
+    >
       {children}
     </pre>
   ),
