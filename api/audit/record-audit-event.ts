@@ -7,6 +7,8 @@ export const AUDIT_ACTIONS = [
   'model.created',
   'model.renamed',
   'model.forked',
+  'model.archived',
+  'model.unarchived',
   'revision.saved',
   'revision.uploaded',
   'revision.reverted',

@@ -81,6 +81,11 @@ export async function applyReceiverSettings(
       },
       transaction,
     );
-    return { ...placed, check: reuseCheck(unitOf(receiver), placed.slot, placed.revision.findings), receiver, install };
+    return {
+      ...placed,
+      check: reuseCheck(unitOf(receiver), placed.slot, placed.revision.findings, placed.setup),
+      receiver,
+      install,
+    };
   });
 }

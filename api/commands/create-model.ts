@@ -4,7 +4,7 @@ import { starterSetup, type Airframe } from '../starter-setup';
 import { recordAuditEvent } from '../audit/record-audit-event';
 import { inTransaction } from '../db/transaction';
 import { appendRevision } from '../revisions/append-revision';
-import { airframeOf, checkSetupText, type CheckedSetup } from '../revisions/check-setup';
+import { airframeOf, checkSetupDocument, type CheckedSetup } from '../revisions/check-setup';
 
 export interface CreateModelInput {
   workspace: Workspace;
@@ -79,7 +79,7 @@ export function defaultFirstMessage(origin: 'create' | 'upload', hadYaml: boolea
 
 export async function createModel(sequelize: Sequelize, input: CreateModelInput): Promise<CreatedModel> {
   const origin = input.origin ?? 'create';
-  const setup = input.setup ?? checkSetupText(input.yaml ?? starterSetup(input.name, input.airframe));
+  const setup = input.setup ?? checkSetupDocument(input.yaml ?? starterSetup(input.name, input.airframe));
   const given = input.setup !== undefined || input.yaml !== undefined;
   const message = input.message && input.message.length > 0 ? input.message : defaultFirstMessage(origin, given);
   return inTransaction(sequelize, input.transaction, async (transaction) => {

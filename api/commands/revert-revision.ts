@@ -53,6 +53,7 @@ export async function revertRevision(sequelize: Sequelize, input: RevertInput): 
         sourceRevisionId: target.id,
         createdAt: input.createdAt,
         audit,
+        followName: true,
       },
       transaction,
     );

@@ -8,6 +8,7 @@ import { idSchema } from '../validation';
 import type { AuditAction } from '../audit/record-audit-event';
 import { requireLatestBase } from '../revisions/check-base';
 import { airframeOf, type CheckedSetup } from '../revisions/check-setup';
+import { setupModelName } from '../revisions/follow-name';
 
 export interface SaveAtOnceInput {
   modelId: unknown;
@@ -56,7 +57,7 @@ export async function saveRevisionAtOnce(sequelize: Sequelize, input: SaveAtOnce
   const [row] = await sequelize.query<SaveOutcome>(
     `SELECT * FROM save_revision($modelId, $authorId, $roles, $base, $message, $yamlText, $document::jsonb, $contentHash,
                                  $findings::jsonb, $errorCount, $warningCount, $infoCount, $origin, $airframe,
-                                 $auditAction, $auditDetails::jsonb)`,
+                                 $auditAction, $auditDetails::jsonb, $modelName)`,
     {
       bind: {
         modelId: modelId.data,
@@ -74,6 +75,7 @@ export async function saveRevisionAtOnce(sequelize: Sequelize, input: SaveAtOnce
         origin: input.origin,
         airframe: airframeOf(data),
         auditAction: AUDIT_FOR[input.origin],
+        modelName: setupModelName(data),
         auditDetails: JSON.stringify({
           model_id: modelId.data,
           content_hash: setup.contentHash,

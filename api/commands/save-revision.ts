@@ -5,7 +5,7 @@ import type { Revision, User } from '../models';
 import type { RevisionOrigin } from '../models/Revision';
 import { appendRevision } from '../revisions/append-revision';
 import { requireLatestBase } from '../revisions/check-base';
-import { checkSetupText } from '../revisions/check-setup';
+import { checkSetupDocument, checkSetupText } from '../revisions/check-setup';
 import { lockModel } from '../revisions/lock-model';
 
 export interface SaveRevisionInput {
@@ -29,8 +29,8 @@ const AUDIT_FOR: Record<'save' | 'upload', AuditAction> = { save: 'revision.save
  * audit entry in one statement.
  */
 export async function saveRevision(sequelize: Sequelize, input: SaveRevisionInput): Promise<Revision> {
-  const setup = checkSetupText(input.yaml);
   const origin = input.origin ?? 'save';
+  const setup = origin === 'upload' ? checkSetupDocument(input.yaml) : checkSetupText(input.yaml);
   return inTransaction(sequelize, input.transaction, async (transaction) => {
     const locked = await lockModel(sequelize, input.modelId, transaction);
     requireLatestBase(locked.latest, input.base);
@@ -44,6 +44,7 @@ export async function saveRevision(sequelize: Sequelize, input: SaveRevisionInpu
         origin,
         createdAt: input.createdAt,
         audit: { action: AUDIT_FOR[origin], details: {} },
+        followName: true,
       },
       transaction,
     );

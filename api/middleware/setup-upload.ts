@@ -74,10 +74,13 @@ export async function readSetupUpload(req: Request, res: Response): Promise<Setu
   }
   const text = decodeUtf8(file.buffer);
   if (text === null || text.includes('\u0000')) {
-    throw new UnsupportedMediaType(`"${fileName}" is not UTF-8 text; a setup file is plain text.`, {
-      code: 'unsupported-media-type',
-      details: { file_name: fileName },
-    });
+    throw new UnsupportedMediaType(
+      `"${fileName}" is not plain text: a setup file is text saved in the usual encoding (UTF-8), as any text editor writes it.`,
+      {
+        code: 'unsupported-media-type',
+        details: { file_name: fileName },
+      },
+    );
   }
   return { text, fileName, fields: (req.body ?? {}) as Record<string, unknown> };
 }

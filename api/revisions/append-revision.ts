@@ -3,6 +3,7 @@ import { auditBindings, auditInsertSql, type AuditAction } from '../audit/record
 import { Revision, type User } from '../models';
 import type { RevisionOrigin } from '../models/Revision';
 import { airframeOf, type CheckedSetup } from './check-setup';
+import { followModelName } from './follow-name';
 import type { LockedModel } from './lock-model';
 
 /** The audit entry about the revision, written by the same statement that writes it. */
@@ -19,6 +20,8 @@ export interface AppendInput {
   /** For the demo seed, which writes a history with its original dates. */
   createdAt?: Date;
   audit?: RevisionAudit;
+  /** The model's name follows a changed `model.name` (follow-name.ts). */
+  followName?: boolean;
 }
 
 // One statement inserts the revision, keeps the model's airframe and change time
@@ -102,5 +105,6 @@ export async function appendRevision(
   );
   revision.author = input.author;
   model.set?.({ airframe, updatedAt: revision.createdAt }, { raw: true });
+  if (input.followName) await followModelName(sequelize, locked, data, input.author, revision, transaction);
   return revision;
 }

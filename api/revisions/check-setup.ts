@@ -1,6 +1,7 @@
 import { analyzeSetup, type Analysis } from '@shared/analyze';
 import { contentHashOfChecked } from '@shared/canonical/content-hash';
-import { AIRFRAMES } from '@shared/format/schema';
+import { AIRFRAMES, FORMAT_ID } from '@shared/format/schema';
+import { namesSetupFormat, SETUP_FILE_SHAPE } from '@shared/format/setup-header';
 import { MAX_TEXT_BYTES } from '@shared/parse/limits';
 import { TooLarge, Unprocessable } from '../errors';
 
@@ -50,6 +51,23 @@ export function checkSetupText(text: string): CheckedSetup {
     analysis: analysis as CheckedSetup['analysis'],
     contentHash: contentHashOfChecked(analysis.data, analysis.setup),
   };
+}
+
+/**
+ * Like `checkSetupText`, for text that is to start a model or arrive as a file: it must
+ * say it is a setup (`format: bindery-setup/1`), or nothing is stored.
+ */
+export function checkSetupDocument(text: string): CheckedSetup {
+  const setup = checkSetupText(text);
+  if (!namesSetupFormat(setup.analysis.data)) {
+    const format = (setup.analysis.data as { format?: unknown }).format;
+    const said = format === undefined ? 'has no format line' : `says format: ${JSON.stringify(format)}`;
+    throw new Unprocessable(
+      `This file is not a Bindery setup: it ${said}, where a setup says "format: ${FORMAT_ID}". Nothing was saved. ${SETUP_FILE_SHAPE}`,
+      { code: 'not-a-setup', details: { format: format ?? null, expected: FORMAT_ID } },
+    );
+  }
+  return setup;
 }
 
 /** The airframe kind a setup names, when it names one the format knows. */

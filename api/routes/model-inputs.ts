@@ -79,6 +79,9 @@ export const historyQuery = z.object({
 });
 
 export const hangarQuery = pageInput(100).extend({
+  archived: z
+    .enum(['exclude', 'include', 'only'], { error: 'archived is exclude (the default), include or only.' })
+    .default('exclude'),
   q: z
     .string({ error: 'q is the text to search for.' })
     .trim()

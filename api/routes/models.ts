@@ -2,9 +2,10 @@ import { Router } from 'express';
 import { col, fn, Op, type WhereOptions } from 'sequelize';
 import { createModel } from '../commands/create-model';
 import { forkModel } from '../commands/fork-model';
+import { setModelArchived } from '../commands/archive-model';
 import { renameModel } from '../commands/rename-model';
 import { saveRevisionAtOnce } from '../commands/save-revision-at-once';
-import { checkSetupText } from '../revisions/check-setup';
+import { checkSetupDocument } from '../revisions/check-setup';
 import type { AppContext } from '../context';
 import { NotFound } from '../errors';
 import { authenticate, currentUser } from '../middleware/authenticate';
@@ -44,16 +45,23 @@ export function modelsRouter({ sequelize, config }: AppContext): Router {
   const signedIn = authenticate(config);
 
   router.get('/workspaces/:ws/models', signedIn, async (req, res) => {
-    const { q, limit, offset, after } = parseInput(hangarQuery, req.query, 'The search parameters are not valid.');
+    const { q, limit, offset, after, archived } = parseInput(
+      hangarQuery,
+      req.query,
+      'The search parameters are not valid.',
+    );
     const { workspace, role } = await authorizeWorkspace(req, req.params.ws, modelPolicy, 'read');
     const cursor = after ? await afterRow(sequelize, 'models', workspace.id, after) : null;
-    const where: WhereOptions<SetupModel> = { workspaceId: workspace.id };
+    const matching: WhereOptions<SetupModel> = { workspaceId: workspace.id };
     if (q) {
       const pattern = `%${escapeLike(q)}%`;
-      Object.assign(where, { [Op.or]: [{ name: { [Op.iLike]: pattern } }, { airframe: { [Op.iLike]: pattern } }] });
+      Object.assign(matching, { [Op.or]: [{ name: { [Op.iLike]: pattern } }, { airframe: { [Op.iLike]: pattern } }] });
     }
+    const archivedOnly = { ...matching, archivedAt: { [Op.ne]: null } };
+    const where =
+      archived === 'include' ? matching : archived === 'only' ? archivedOnly : { ...matching, archivedAt: null };
     // The total counts the whole filtered hangar; the page starts after the cursor when one is given.
-    const [count, rows] = await Promise.all([
+    const [count, rows, archivedCount] = await Promise.all([
       SetupModel.count({ where }),
       SetupModel.findAll({
         where: cursor ? { [Op.and]: [where, cursor] } : where,
@@ -65,6 +73,7 @@ export function modelsRouter({ sequelize, config }: AppContext): Router {
         limit: limit + 1,
         offset,
       }),
+      SetupModel.count({ where: archivedOnly }),
     ]);
     const page = rows.slice(0, limit);
     res.json({
@@ -72,6 +81,8 @@ export function modelsRouter({ sequelize, config }: AppContext): Router {
       pagination: {
         ...pagination({ limit, offset }, count),
         next_after: rows.length > limit ? page[page.length - 1].id : null,
+        // How many archived models the search matches, so the hangar can offer to show them.
+        archived: archivedCount,
       },
     });
   });
@@ -91,7 +102,7 @@ export function modelsRouter({ sequelize, config }: AppContext): Router {
     const upload = await readSetupUpload(req, res);
     const fields = parseInput(uploadModelFields, upload.fields, 'Some form fields need attention.');
     const user = currentUser(req);
-    const setup = checkSetupText(upload.text);
+    const setup = checkSetupDocument(upload.text);
     const { model, revision } = await createModel(sequelize, {
       workspace,
       author: user,
@@ -114,9 +125,24 @@ export function modelsRouter({ sequelize, config }: AppContext): Router {
     const { name } = parseInput(renameModelSchema, req.body);
     const { model, role } = await authorizeModel(req, req.params.id, 'edit');
     const user = currentUser(req);
-    await renameModel(sequelize, model, name, user);
-    res.json({ data: await presentOneModel(model, role, user) });
+    const { revision } = await renameModel(sequelize, model, name, user);
+    res.json({
+      data: await presentOneModel(model, role, user),
+      revision: revision ? presentSavedRevision(revision) : null,
+    });
   });
+
+  for (const [verb, archived] of [
+    ['archive', true],
+    ['unarchive', false],
+  ] as const) {
+    router.post(`/models/:id/${verb}`, signedIn, async (req, res) => {
+      const { model, role } = await authorizeModel(req, req.params.id, 'edit');
+      const user = currentUser(req);
+      await setModelArchived(sequelize, model, archived, user);
+      res.json({ data: await presentOneModel(model, role, user) });
+    });
+  }
 
   router.post('/models/:id/fork', signedIn, async (req, res) => {
     const input = parseInput(forkSchema, req.body);
@@ -149,7 +175,7 @@ export function modelsRouter({ sequelize, config }: AppContext): Router {
       modelId: model.id,
       author: currentUser(req),
       base: fields.base,
-      setup: checkSetupText(upload.text),
+      setup: checkSetupDocument(upload.text),
       message: fields.message || `Uploaded ${upload.fileName}`,
       origin: 'upload',
     });

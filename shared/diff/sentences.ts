@@ -55,9 +55,9 @@ const FIELDS: Record<string, Record<string, FieldSpec>> = {
     role: { label: 'role' },
     side: { label: 'side' },
     travel: { label: 'travel' },
-    'travel.low_us': { label: 'travel low end', unit: 'us' },
-    'travel.center_us': { label: 'travel centre', unit: 'us' },
-    'travel.high_us': { label: 'travel high end', unit: 'us' },
+    'travel.low_us': { label: 'travel low end', unit: 'µs' },
+    'travel.center_us': { label: 'travel centre', unit: 'µs' },
+    'travel.high_us': { label: 'travel high end', unit: 'µs' },
     'travel.reverse': { label: 'reverse' },
     cut: { label: 'cut' },
     'cut.control': { label: 'cut switch' },
@@ -84,7 +84,7 @@ const FIELDS: Record<string, Record<string, FieldSpec>> = {
     telemetry: { label: 'telemetry' },
     map: { label: 'pin map' },
   },
-  pin: { ch: { label: 'channel' }, failsafe: { label: 'failsafe', unit: 'us' } },
+  pin: { ch: { label: 'channel' }, failsafe: { label: 'failsafe', unit: 'µs' } },
   model: {
     name: { label: 'name', prose: true },
     airframe: { label: 'airframe' },
@@ -97,7 +97,13 @@ const FIELDS: Record<string, Record<string, FieldSpec>> = {
   power: { receiver_supply: { label: 'receiver supply' } },
 };
 
-const SECTION_NAMES: Record<string, string> = { model: 'Model', link: 'Link', power: 'Power', format: 'Format' };
+const SECTION_NAMES: Record<string, string> = {
+  model: 'Model',
+  link: 'Link',
+  power: 'Power',
+  format: 'Format',
+  accepted: 'Accepted findings',
+};
 const LIST_NAMES: Record<string, string> = {
   controls: 'Controls',
   channels: 'Channel plan',
@@ -159,7 +165,7 @@ function valueWithUnit(value: unknown, spec: FieldSpec, failsafe: boolean): stri
   return spec.unit && isNumeric(value) ? `${text(value)} ${spec.unit}` : shown(value, spec);
 }
 
-// "1500 -> 988 us" when both sides are numbers of one unit, else each side with its own.
+// "1500 -> 988 µs" when both sides are numbers of one unit, else each side with its own.
 function beforeAfter(before: unknown, after: unknown, spec: FieldSpec, failsafe = false): string {
   if (spec.unit && isNumeric(before) && isNumeric(after)) return `${text(before)} -> ${text(after)} ${spec.unit}`;
   if (spec.prose && isText(before) && isText(after)) return quotePair(before, after).join(' -> ');
@@ -230,7 +236,7 @@ function describeEntry(subject: Subject, value: PlainObject, sides: Sides, side:
     case 'receiver':
       return `${text(value.outputs)} outputs, telemetry ${value.telemetry === false ? 'off' : 'on'}`;
     case 'pin':
-      return `channel ${channelWithFunction(doc, value.ch)}, failsafe ${valueWithUnit(value.failsafe, { label: 'failsafe', unit: 'us' }, true)}`;
+      return `channel ${channelWithFunction(doc, value.ch)}, failsafe ${valueWithUnit(value.failsafe, { label: 'failsafe', unit: 'µs' }, true)}`;
     case 'channel':
       return `${text(value.function)} (role ${text(value.role)})`;
     case 'accepted':

@@ -278,7 +278,7 @@ describe('POST /api/receivers/:id/apply', () => {
       details: { latest: { id: newer.id, number: 2 } },
     });
 
-    // The check now runs against revision 2, whose pin 1 fails safe to 1450 us.
+    // The check now runs against revision 2, whose pin 1 fails safe to 1450 µs.
     const check = (await editor.get(`/api/receivers/${id}/reuse-check?model=${model.model.id}&slot=wing`).expect(200))
       .body.data;
     expect(check.revision.number).toBe(2);
@@ -287,7 +287,7 @@ describe('POST /api/receivers/:id/apply', () => {
       setting: 'failsafe',
       from: 1500,
       to: 1450,
-      summary: 'Pin 1: failsafe 1500 us, set 1450 us',
+      summary: 'Pin 1: failsafe 1500 µs, set 1450 µs',
     });
     await editor.post(`/api/receivers/${id}/apply`, { revision: newer.id }).expect(200);
     expect((await Receiver.findByPk(id))!.storedSettings!.pins[0]).toEqual({ pin: 1, ch: 9, failsafe: 1450 });

@@ -324,7 +324,7 @@ describe('GET /api/receivers/:id/reuse-check', () => {
       setting: 'failsafe',
       from: 988,
       to: 'hold',
-      summary: 'Pin 3: failsafe 988 us, set hold',
+      summary: 'Pin 3: failsafe 988 µs, set hold',
     });
     expect(data.changes).toContainEqual({
       pin: null,

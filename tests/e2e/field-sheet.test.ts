@@ -44,7 +44,7 @@ describe('journey: print the field sheet and download its PDF', () => {
     const printed = await pdfParse(printout);
     expect(printed.text).toContain('Kestrel Mk II');
     expect(printed.text).toContain('Channel plan');
-    expect(printed.text).toMatch(/1\s*9\s*tailwheel\s*1500 us/);
+    expect(printed.text).toMatch(/1\s*9\s*tailwheel\s*1500 µs/);
     expect(printed.text).not.toContain('Sign out');
     expect(printed.text).not.toContain('Download PDF');
     expect(printed.text).not.toContain('Keep for the field');
@@ -62,8 +62,8 @@ describe('journey: print the field sheet and download its PDF', () => {
     expect(pdf.numpages).toBe(1);
     expect(pdf.text).toContain('Kestrel Mk II');
     // Wing pins 1-8 carry channels 9-16 (the demo's remap); the tailwheel's pin centres on failsafe.
-    expect(pdf.text).toMatch(/1\s*9\s*tailwheel\s*1500 us/);
-    expect(pdf.text).toMatch(/3\s*3\s*motor\s*1000 us/);
+    expect(pdf.text).toMatch(/1\s*9\s*tailwheel\s*1500 µs/);
+    expect(pdf.text).toMatch(/3\s*3\s*motor\s*1000 µs/);
     await saveScreenshot(page, 'journey-10-field-sheet');
     expectNoProblems(visit);
     await visit.context.close();

@@ -115,7 +115,7 @@ describe('outputs', () => {
       ]);
       expect(result.code).toBe(0);
       const out = JSON.parse(result.stdout);
-      // [expo-cubic] 70 % rate of curve(0.5) at 30 % expo: 27.125 % -> 1636 us
+      // [expo-cubic] 70 % rate of curve(0.5) at 30 % expo: 27.125 % -> 1636 µs
       expect(out.channels[0]).toEqual({ ch: 1, function: 'aileron', value: 27.13, pulse_us: 1636 });
       // The motor stays cut: motor-arm is at position 0.
       expect(out.channels[2]).toEqual({ ch: 3, function: 'motor', value: -100, pulse_us: 1000 });

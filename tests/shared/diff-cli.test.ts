@@ -25,7 +25,7 @@ describe('npm run diff (scripts/cli/diff.ts)', { timeout: 60_000 }, () => {
           path: 'receivers[id=wing].map[pin=3].failsafe',
           before: 988,
           after: 1500,
-          summary: 'Wing receiver pin 3: failsafe 988 -> 1500 us',
+          summary: 'Wing receiver pin 3: failsafe 988 -> 1500 µs',
         },
       ],
       counts: { added: 0, removed: 0, changed: 1, renamed: 0, moved: 0 },

@@ -230,10 +230,10 @@ describe('sentences and paths', () => {
         path: 'receivers[id=wing].map[pin=3].failsafe',
         before: 988,
         after: 1500,
-        summary: 'Wing receiver pin 3: failsafe 988 -> 1500 us',
+        summary: 'Wing receiver pin 3: failsafe 988 -> 1500 µs',
       },
     ]);
-    expect(summaries(after.data, before.data)).toEqual(['Wing receiver pin 3: failsafe 1500 -> 988 us']);
+    expect(summaries(after.data, before.data)).toEqual(['Wing receiver pin 3: failsafe 1500 -> 988 µs']);
   });
 
   it('names channels by what they carry when pins are remapped', () => {
@@ -306,10 +306,10 @@ describe('sentences and paths', () => {
     expect(summaries(doc, next)).toEqual([
       'Model weight 1650 -> 1720 g',
       'Channel 3 (motor): cut removed (was: motor-arm at position 0 forces -100 %)',
-      'Channel 6 (aileron-right): travel low end 1000 -> 1100 us',
+      'Channel 6 (aileron-right): travel low end 1000 -> 1100 µs',
       'Channel 6 (aileron-right): reverse off -> on',
-      'Main receiver pin 5: failsafe hold -> 1500 us',
-      'Main receiver pin 6: failsafe 1500 us -> unset (receiver default)',
+      'Main receiver pin 5: failsafe hold -> 1500 µs',
+      'Main receiver pin 6: failsafe 1500 µs -> unset (receiver default)',
       'Power receiver supply esc-bec -> both',
       'Extra field radio_notes: unset -> “bench tested”',
     ]);

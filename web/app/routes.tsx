@@ -46,6 +46,14 @@ const FieldSheetScreen = lazyScreen(
   () => import('../features/field-sheet/components/field-sheet-screen'),
   'FieldSheetScreen',
 );
+const ModelSettingsScreen = lazyScreen(
+  () => import('../features/model-settings/components/model-settings-screen'),
+  'ModelSettingsScreen',
+);
+const FormatReferenceScreen = lazyScreen(
+  () => import('../features/format-reference/components/format-reference-screen'),
+  'FormatReferenceScreen',
+);
 const AccountScreen = lazyScreen(() => import('../features/account/components/account-screen'), 'AccountScreen');
 
 interface Screen extends FrameLink {
@@ -70,6 +78,7 @@ export const modelScreens: Screen[] = [
   { path: 'compare', label: 'Compare', element: <CompareScreen /> },
   { path: 'reviews', label: 'Reviews', element: <ModelReviewsScreen /> },
   { path: 'sheet', label: 'Field sheet', element: <FieldSheetScreen /> },
+  { path: 'settings', label: 'Settings', element: <ModelSettingsScreen /> },
 ];
 
 /** Tools for development, outside any workspace. */
@@ -101,6 +110,7 @@ export const routes: RouteObject[] = [
         children: [
           { index: true, element: <HomeScreen /> },
           { path: 'account', element: <AccountScreen /> },
+          { path: 'help/format', element: <FormatReferenceScreen /> },
           {
             path: 'w/:wsId',
             element: <WorkspaceScope />,

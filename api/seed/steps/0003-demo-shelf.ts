@@ -12,7 +12,7 @@ import type { SeedContext } from '../index';
 
 // The demo club's shelf (invented): the Kestrel's fuselage unit in its slot, the club
 // trainer's unit in its cabin, a unit that came out of a retired single-receiver
-// trainer with its throttle pin still failing safe to 988 us (meant for the Kestrel's
+// trainer with its throttle pin still failing safe to 988 µs (meant for the Kestrel's
 // empty wing slot, where its reuse check lists the remap, that failsafe and telemetry
 // off), and a spare never set up. Units in a slot hold what that slot asks for, as if
 // applied at the bench.

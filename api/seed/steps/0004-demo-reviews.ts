@@ -98,7 +98,7 @@ const PLAN: PlannedReview[] = [
       {
         by: 'reviewer',
         path: 'receivers[id=fuselage].map[pin=3]',
-        body: 'Motor failsafe 1000 us: check the ESC reads that as stopped, propeller off.',
+        body: 'Motor failsafe 1000 µs: check the ESC reads that as stopped, propeller off.',
         at: '2026-03-21T18:15:00Z',
       },
     ],

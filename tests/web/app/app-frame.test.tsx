@@ -130,7 +130,7 @@ describe('The signed-in app frame', () => {
       within(nav)
         .getAllByRole('link')
         .map((link) => link.textContent),
-    ).toEqual(['Overview', 'Edit', 'Bench', 'History', 'Compare', 'Reviews', 'Field sheet']);
+    ).toEqual(['Overview', 'Edit', 'Bench', 'History', 'Compare', 'Reviews', 'Field sheet', 'Settings']);
 
     await user.click(within(nav).getByRole('link', { name: 'Bench' }));
     expect(await screen.findByRole('heading', { level: 1, name: 'Bench' })).toBeInTheDocument();

@@ -84,6 +84,9 @@ function SignedInFrame({ workspaceLinks, devLinks }: AppFrameProps) {
           </Link>
           <WorkspaceSwitcher />
           <div className="ml-auto flex min-w-0 items-center gap-3">
+            <Link to="/help/format" className="rounded-md text-sm text-ink-700">
+              Format help
+            </Link>
             <Link
               to="/account"
               className="max-w-48 min-w-0 truncate rounded-md text-sm text-ink-700 lg:max-w-none"

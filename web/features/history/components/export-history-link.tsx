@@ -2,7 +2,8 @@ import { useId } from 'react';
 import { buttonClasses } from '../../../components/ui/button';
 import { paths } from '../../../lib/api-paths';
 
-const DESCRIPTION = 'A git repository with one commit per revision, for your own backup.';
+const DESCRIPTION =
+  'A backup file of the whole history, one entry per revision. Git (a common version-control tool) opens it; Backups can bring it back into Bindery.';
 
 /**
  * The model's whole history as a git bundle: `git clone` it to get a plain repository

@@ -80,11 +80,9 @@ const PHONE_LINE =
   'max-sm:flex max-sm:basis-full max-sm:flex-wrap max-sm:items-start max-sm:gap-x-2 max-sm:border-l-0 max-sm:py-1 max-sm:pl-15 max-sm:before:w-full max-sm:before:text-sm max-sm:before:text-ink-700 max-sm:before:content-[attr(data-column)]';
 
 function ChannelRow({ row, receivers }: { row: PlanRow; receivers: PlanReceiver[] }) {
-  const worst = row.marks.some((mark) => mark.finding.severity === 'error')
-    ? 'error'
-    : row.marks.length > 0
-      ? 'warning'
-      : null;
+  // Accepted findings and notes do not colour the row: only what is open and needs a look.
+  const open = row.marks.filter((mark) => mark.kind !== 'accepted' && mark.finding.severity !== 'info');
+  const worst = open.some((mark) => mark.finding.severity === 'error') ? 'error' : open.length > 0 ? 'warning' : null;
   return (
     <tr
       className={cx(

@@ -181,7 +181,7 @@ export function UnitScreen() {
               !placing && (
                 <>
                   <Button variant="secondary" size="sm" onClick={() => setPlacing(true)}>
-                    {installed ? 'Move to another slot' : 'Install into a model'}
+                    {installed ? 'Move to another model or receiver' : 'Install into a model'}
                   </Button>
                   {installed && (
                     <Button variant="secondary" size="sm" onClick={() => setDialog('remove')}>
@@ -195,7 +195,7 @@ export function UnitScreen() {
             {installed ? (
               <div className="space-y-2">
                 <p className="text-base">
-                  In <Link to={`/models/${installed.model.id}/overview`}>{installed.model.name}</Link>, slot{' '}
+                  In <Link to={`/models/${installed.model.id}/overview`}>{installed.model.name}</Link>, as receiver{' '}
                   <code className="font-mono text-sm">{installed.slot}</code>, since{' '}
                   <time dateTime={installed.since}>{exactTime(installed.since)}</time>.
                 </p>
@@ -237,7 +237,7 @@ export function UnitScreen() {
         </div>
 
         {placing && (
-          <Section title={installed ? 'Move it to another slot' : 'Install it into a model'}>
+          <Section title={installed ? 'Move it to another model or receiver' : 'Install it into a model'}>
             <InstallPanel unit={data} onDone={() => setPlacing(false)} />
           </Section>
         )}
