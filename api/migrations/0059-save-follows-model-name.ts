@@ -7,7 +7,8 @@ import type { MigrationContext } from '../db/migrate';
 // follows and the rename is audited as model.renamed. A name given on purpose (one that
 // differs from the latest text's) is left alone. p_model_name is the new text's name when
 // the record can take it, else NULL.
-const OLD_SIGNATURE = 'uuid, uuid, text[], integer, text, text, jsonb, text, jsonb, integer, integer, integer, text, text, text, jsonb';
+const OLD_SIGNATURE =
+  'uuid, uuid, text[], integer, text, text, jsonb, text, jsonb, integer, integer, integer, text, text, text, jsonb';
 
 export async function up({ context: { sequelize } }: MigrationParams<MigrationContext>): Promise<void> {
   await sequelize.query(`DROP FUNCTION save_revision(${OLD_SIGNATURE})`);
