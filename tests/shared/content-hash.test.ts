@@ -114,7 +114,7 @@ function shuffleKeys(value: unknown, random: () => number): unknown {
   return Object.fromEntries(entries.map(([key, item]) => [key, shuffleKeys(item, random)]));
 }
 
-describe('content hash of checked data (the save path reuses the checks\' schema result)', () => {
+describe("content hash of checked data (the save path reuses the checks' schema result)", () => {
   it('equals the content hash for every valid and invalid fixture', () => {
     const fixtures = [...validFixtures(), ...invalidFixtures()];
     expect(fixtures.length).toBeGreaterThan(20);
