@@ -326,6 +326,7 @@ describe('GET /api/receivers/:id/reuse-check', () => {
       from: 988,
       to: 'hold',
       summary: 'Pin 3: failsafe 988 µs, set hold',
+      safety: null,
     });
     expect(data.changes).toContainEqual({
       pin: null,
@@ -333,6 +334,7 @@ describe('GET /api/receivers/:id/reuse-check', () => {
       from: true,
       to: false,
       summary: 'Telemetry: on, switch it off',
+      safety: expect.stringContaining('Two receivers sending telemetry'),
     });
     expect(data).toMatchObject({
       receiver_id: unit.id,
