@@ -136,7 +136,7 @@ describe('GET /api/workspaces/:ws/models (the hangar)', () => {
       'meadowlark 40',
       'Sedge 3.4',
     ]);
-    expect(body.pagination).toEqual({ limit: 100, offset: 0, total: 4, next_after: null });
+    expect(body.pagination).toEqual({ limit: 100, offset: 0, total: 4, next_after: null, archived: 0 });
     const kestrel = body.data[1];
     const { counts } = analyzeSetup(fixture('pairs/remap-second-receiver.before.yaml'));
     expect(kestrel.latest).toMatchObject({
@@ -166,7 +166,7 @@ describe('GET /api/workspaces/:ws/models (the hangar)', () => {
   it('pages with limit and offset, and refuses bad paging', async () => {
     const body = (await hangarOwner.get(`/api/workspaces/${workspaceId}/models?limit=2&offset=2`).expect(200)).body;
     expect(body.data.map((model: { name: string }) => model.name)).toEqual(['meadowlark 40', 'Sedge 3.4']);
-    expect(body.pagination).toEqual({ limit: 2, offset: 2, total: 4, next_after: null });
+    expect(body.pagination).toEqual({ limit: 2, offset: 2, total: 4, next_after: null, archived: 0 });
     // Keyset paging: the first page's next_after starts the same second page.
     const first = (await hangarOwner.get(`/api/workspaces/${workspaceId}/models?limit=2`).expect(200)).body;
     expect(first.pagination.next_after).toBe(first.data[1].id);

@@ -308,7 +308,7 @@ describe('GET /api/receivers/:id/reuse-check', () => {
     const { data } = response.body;
     expect(data.ready).toBe(false);
     for (const change of data.changes) {
-      expect(Object.keys(change).sort()).toEqual(['from', 'pin', 'setting', 'summary', 'to']);
+      expect(Object.keys(change).sort()).toEqual(['from', 'pin', 'safety', 'setting', 'summary', 'to']);
       expect(['ch', 'failsafe', 'telemetry']).toContain(change.setting);
       expect(change.pin === null).toBe(change.setting === 'telemetry');
     }
@@ -318,6 +318,7 @@ describe('GET /api/receivers/:id/reuse-check', () => {
       from: 3,
       to: 11,
       summary: 'Pin 3: carries channel 3, must carry channel 11',
+      safety: null,
     });
     expect(data.changes).toContainEqual({
       pin: 3,
@@ -325,6 +326,7 @@ describe('GET /api/receivers/:id/reuse-check', () => {
       from: 988,
       to: 'hold',
       summary: 'Pin 3: failsafe 988 µs, set hold',
+      safety: null,
     });
     expect(data.changes).toContainEqual({
       pin: null,
@@ -332,6 +334,7 @@ describe('GET /api/receivers/:id/reuse-check', () => {
       from: true,
       to: false,
       summary: 'Telemetry: on, switch it off',
+      safety: expect.stringContaining('Two receivers sending telemetry'),
     });
     expect(data).toMatchObject({
       receiver_id: unit.id,
