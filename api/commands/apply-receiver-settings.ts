@@ -3,7 +3,7 @@ import { reuseCheck } from '@shared/reuse/reuse-check';
 import { Conflict, Unprocessable } from '../errors';
 import { Receiver, ReceiverInstall, SetupModel, type User } from '../models';
 import { checkAgainstLatest, unitOf, type SlotCheck } from '../queries/receiver-slot';
-import { recordReceiverEvent } from './record-receiver-event';
+import { recordReceiverEvent } from '../audit/record-receiver-event';
 
 export interface Applied extends SlotCheck {
   receiver: Receiver;

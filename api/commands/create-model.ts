@@ -1,8 +1,10 @@
 import type { Sequelize, Transaction } from 'sequelize';
 import { Revision, SetupModel, type User, type Workspace } from '../models';
 import { starterSetup, type Airframe } from '../starter-setup';
-import { recordAuditEvent } from './record-audit-event';
-import { airframeOf, appendRevision, checkSetupText, inTransaction, type CheckedSetup } from './save-revision';
+import { recordAuditEvent } from '../audit/record-audit-event';
+import { inTransaction } from '../db/transaction';
+import { appendRevision } from '../revisions/append-revision';
+import { airframeOf, checkSetupText, type CheckedSetup } from '../revisions/check-setup';
 
 export interface CreateModelInput {
   workspace: Workspace;

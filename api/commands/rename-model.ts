@@ -1,6 +1,6 @@
 import type { Sequelize } from 'sequelize';
 import type { SetupModel, User } from '../models';
-import { recordAuditEvent } from './record-audit-event';
+import { recordAuditEvent } from '../audit/record-audit-event';
 
 /** Renames the model record; the setup's own `model.name` lives in its revisions and is left alone. */
 export async function renameModel(

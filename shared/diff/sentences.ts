@@ -6,7 +6,7 @@ import type { ChangeKind, Section } from './types';
 // What a change is about: a whole section (model, link, power, format, an unknown
 // top-level key) or one entry of an identity-keyed list. `left` / `right` are the
 // entry (or section value) on each side, so a sentence can use the pilot's labels.
-export type SubjectType = 'section' | 'control' | 'channel' | 'mix' | 'receiver' | 'pin';
+export type SubjectType = 'section' | 'control' | 'channel' | 'mix' | 'receiver' | 'pin' | 'accepted';
 
 export interface Subject {
   type: SubjectType;
@@ -48,6 +48,7 @@ interface FieldSpec {
 }
 
 const FIELDS: Record<string, Record<string, FieldSpec>> = {
+  accepted: { reason: { label: 'reason', prose: true } },
   control: { kind: { label: 'kind' }, positions: { label: 'positions' }, label: { label: 'label', prose: true } },
   channel: {
     function: { label: 'function' },
@@ -102,6 +103,7 @@ const LIST_NAMES: Record<string, string> = {
   channels: 'Channel plan',
   mixes: 'Mixes',
   receivers: 'Receivers',
+  accepted: 'Accepted findings',
 };
 
 // Document keys reach these tables, so only own entries count (a key named
@@ -197,6 +199,8 @@ function subjectName(subject: Subject, field: string[]): string {
       return field[0] === 'label' ? `Receiver ${text(value.id)}` : receiverName(subject);
     case 'pin':
       return `${subject.receiver ? receiverName(subject.receiver) : 'Receiver'} pin ${text(value.pin)}`;
+    case 'accepted':
+      return `Accepted ${text(value.rule)} at ${value.path === '' ? 'the document' : text(value.path)}`;
     case 'section':
       return own(SECTION_NAMES, subject.name) ?? `Extra field ${subject.name}`;
   }
@@ -229,6 +233,8 @@ function describeEntry(subject: Subject, value: PlainObject, sides: Sides, side:
       return `channel ${channelWithFunction(doc, value.ch)}, failsafe ${valueWithUnit(value.failsafe, { label: 'failsafe', unit: 'us' }, true)}`;
     case 'channel':
       return `${text(value.function)} (role ${text(value.role)})`;
+    case 'accepted':
+      return `reason ${isText(value.reason) ? quoteText(value.reason) : text(value.reason)}`;
     case 'section':
       return text(value);
   }

@@ -135,7 +135,7 @@ describe('GET /api/workspaces/:ws/models (the hangar)', () => {
       'meadowlark 40',
       'Sedge 3.4',
     ]);
-    expect(body.pagination).toEqual({ limit: 100, offset: 0, total: 4 });
+    expect(body.pagination).toEqual({ limit: 100, offset: 0, total: 4, next_after: null });
     const kestrel = body.data[1];
     const { counts } = analyzeSetup(fixture('pairs/remap-second-receiver.before.yaml'));
     expect(kestrel.latest).toMatchObject({
@@ -165,7 +165,18 @@ describe('GET /api/workspaces/:ws/models (the hangar)', () => {
   it('pages with limit and offset, and refuses bad paging', async () => {
     const body = (await hangarOwner.get(`/api/workspaces/${workspaceId}/models?limit=2&offset=2`).expect(200)).body;
     expect(body.data.map((model: { name: string }) => model.name)).toEqual(['meadowlark 40', 'Sedge 3.4']);
-    expect(body.pagination).toEqual({ limit: 2, offset: 2, total: 4 });
+    expect(body.pagination).toEqual({ limit: 2, offset: 2, total: 4, next_after: null });
+    // Keyset paging: the first page's next_after starts the same second page.
+    const first = (await hangarOwner.get(`/api/workspaces/${workspaceId}/models?limit=2`).expect(200)).body;
+    expect(first.pagination.next_after).toBe(first.data[1].id);
+    const second = (
+      await hangarOwner
+        .get(`/api/workspaces/${workspaceId}/models?limit=2&after=${first.pagination.next_after}`)
+        .expect(200)
+    ).body;
+    expect(second.data.map((model: { name: string }) => model.name)).toEqual(['meadowlark 40', 'Sedge 3.4']);
+    expect(second.pagination.next_after).toBeNull();
+    await hangarOwner.get(`/api/workspaces/${workspaceId}/models?after=not-an-id`).expect(400);
     await hangarOwner.get(`/api/workspaces/${workspaceId}/models?limit=0`).expect(400);
     await hangarOwner.get(`/api/workspaces/${workspaceId}/models?q=${'x'.repeat(101)}`).expect(400);
   });
@@ -174,7 +185,7 @@ describe('GET /api/workspaces/:ws/models (the hangar)', () => {
     const user = await createUser();
     const empty = await createWorkspace({ owner: user });
     expect((await clientFor(t.app, t.config, user).get(`/api/workspaces/${empty.id}/models`).expect(200)).body).toEqual(
-      { data: [], pagination: { limit: 100, offset: 0, total: 0 } },
+      { data: [], pagination: { limit: 100, offset: 0, total: 0, next_after: null } },
     );
   });
 });

@@ -202,11 +202,11 @@ describe('GET /api/workspaces/:ws/receivers', () => {
   it('lists the units by label, case aside, paginated', async () => {
     expect(await labels('')).toEqual({
       labels: ['alpha wing', 'Bravo fuselage', 'Charlie spare'],
-      pagination: { limit: 100, offset: 0, total: 3 },
+      pagination: { limit: 100, offset: 0, total: 3, next_after: null },
     });
     expect(await labels('?limit=1&offset=1')).toEqual({
       labels: ['Bravo fuselage'],
-      pagination: { limit: 1, offset: 1, total: 3 },
+      pagination: { limit: 1, offset: 1, total: 3, next_after: expect.any(String) },
     });
   });
 

@@ -43,6 +43,8 @@ const CONTRACT: [string, string][] = [
   ['cut-not-at-stop', 'warning'],
   // The project's addition: an accepted entry that names an error.
   ['accepted-error', 'error'],
+  // Two accepted entries for one finding (the same rule and path).
+  ['accepted-duplicate', 'warning'],
 ];
 
 const invalid = invalidFixtures();

@@ -4,7 +4,7 @@ import { Op, type Transaction } from 'sequelize';
 import { parse } from 'yaml';
 import { createReceiverSchema } from '@shared/reuse/receiver-fields';
 import { findSlot, reuseCheck, type ReuseCheck } from '@shared/reuse/reuse-check';
-import { recordReceiverEvent } from '../../commands/record-receiver-event';
+import { recordReceiverEvent } from '../../audit/record-receiver-event';
 import { Receiver, ReceiverInstall, Revision, SetupModel, User, Workspace } from '../../models';
 import { setupOf } from '../../queries/receiver-slot';
 import { DEMO_WORKSPACE_NAME } from '../demo-data';

@@ -3,6 +3,7 @@ import { api } from '../../../lib/api-client';
 import { forgetSavedAnswers } from '../../../lib/offline';
 import type { Session, User } from '../../../types/api';
 import { meQueryOptions } from './get-me';
+import { paths } from '../../../lib/api-paths';
 
 export interface SignInInput {
   email: string;
@@ -10,7 +11,7 @@ export interface SignInInput {
 }
 
 export async function signIn(input: SignInInput): Promise<{ user: User; token: string }> {
-  return (await api.post<{ user: User; token: string }>('/api/auth/sign-in', input)).data;
+  return (await api.post<{ user: User; token: string }>(paths.signIn(), input)).data;
 }
 
 /**

@@ -2,10 +2,11 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { useNavigate } from 'react-router-dom';
 import { api, isUnauthorized } from '../../../lib/api-client';
 import { forgetSavedAnswers } from '../../../lib/offline';
+import { paths } from '../../../lib/api-paths';
 
 export async function signOut(): Promise<void> {
   try {
-    await api.post<unknown>('/api/auth/sign-out');
+    await api.post<unknown>(paths.signOut());
   } catch (error) {
     // A session that already expired is as signed out as it gets.
     if (!isUnauthorized(error)) throw error;

@@ -1,5 +1,6 @@
 import { useId } from 'react';
 import { buttonClasses } from '../../../components/ui/button';
+import { paths } from '../../../lib/api-paths';
 
 const DESCRIPTION = 'A git repository with one commit per revision, for your own backup.';
 
@@ -14,7 +15,7 @@ export function ExportHistoryLink({ modelId }: { modelId: string }) {
   return (
     <div className="flex flex-col items-start gap-1 sm:items-end">
       <a
-        href={`/api/models/${encodeURIComponent(modelId)}/export.git`}
+        href={paths.modelExport(modelId)}
         download
         className={buttonClasses('secondary', 'sm')}
         aria-describedby={descriptionId}

@@ -2,6 +2,7 @@ import { queryOptions, useQuery } from '@tanstack/react-query';
 import { api } from '../../../lib/api-client';
 import type { Id } from '../../../types/api';
 import type { SetupModelView } from '../types';
+import { paths } from '../../../lib/api-paths';
 
 // The hangar is sorted and searched in the browser, so one page holds all of a
 // workspace's models: the API's largest page.
@@ -15,7 +16,7 @@ export interface Hangar {
 
 export async function listModels(workspaceId: Id, signal?: AbortSignal): Promise<Hangar> {
   const { data, pagination } = await api.get<SetupModelView[]>(
-    `/api/workspaces/${encodeURIComponent(workspaceId)}/models?limit=${HANGAR_PAGE_SIZE}`,
+    paths.workspaceModels(workspaceId, { limit: HANGAR_PAGE_SIZE }),
     signal,
   );
   const total = typeof pagination?.total === 'number' ? pagination.total : data.length;

@@ -3,6 +3,7 @@ import { plainText } from '@shared/parse/plain-text';
 import { EmptyState } from '../../../components/ui/empty-state';
 import { ErrorState } from '../../../components/ui/error-state';
 import { LoadingState } from '../../../components/ui/loading-state';
+import { ShowMore } from '../../../components/ui/show-more';
 import { exactTime } from '../../models/format-time';
 import { TimeAgo } from '../../models/components/time-ago';
 import { useReceiverHistory } from '../api/get-receiver';
@@ -47,7 +48,7 @@ function describe(event: UnitEvent): string {
 export function UnitHistory({ receiverId }: { receiverId: string }) {
   const history = useReceiverHistory(receiverId);
   if (history.isPending) return <LoadingState label="Loading the history…" />;
-  if (history.isError)
+  if (!history.data)
     return (
       <ErrorState
         title="The history could not be loaded"
@@ -55,7 +56,10 @@ export function UnitHistory({ receiverId }: { receiverId: string }) {
         onRetry={() => void history.refetch()}
       />
     );
-  const { installs, events } = history.data;
+  const pages = history.data.pages;
+  const installs = pages.flatMap((page) => page.installs);
+  const events = pages.flatMap((page) => page.events);
+  const { totals } = pages[pages.length - 1];
   return (
     <div className="grid gap-6 lg:grid-cols-2">
       <section>
@@ -104,6 +108,18 @@ export function UnitHistory({ receiverId }: { receiverId: string }) {
           </ol>
         )}
       </section>
+      <div className="lg:col-span-2">
+        <ShowMore
+          shown={installs.length + events.length}
+          total={totals.installs + totals.events}
+          noun={`entries (${installs.length} of ${totals.installs} stays, ${events.length} of ${totals.events} records)`}
+          label="Show older history"
+          hasMore={history.hasNextPage}
+          pending={history.isFetchingNextPage}
+          error={history.isFetchNextPageError ? history.error : null}
+          onMore={() => void history.fetchNextPage()}
+        />
+      </div>
     </div>
   );
 }
