@@ -8,6 +8,8 @@ type QueryValue = string | number | boolean | null | undefined;
 export type Query = Record<string, QueryValue>;
 
 const API = '/api';
+/** Where every API address begins; the service worker tells its answers apart by it. */
+export const API_PREFIX = `${API}/`;
 const seg = encodeURIComponent;
 
 function withQuery(path: string, query?: Query): string {

@@ -2,6 +2,7 @@ import { clientsClaim } from 'workbox-core';
 import { cleanupOutdatedCaches, matchPrecache, precacheAndRoute, type PrecacheEntry } from 'workbox-precaching';
 import { NavigationRoute, registerRoute } from 'workbox-routing';
 import { NetworkFirst } from 'workbox-strategies';
+import { API_PREFIX } from '../lib/api-paths';
 import { API_CACHE, SAVED_AT_HEADER } from './cache-names';
 
 // Bindery's service worker, built by vite-plugin-pwa (injectManifest). The app's own
@@ -24,7 +25,7 @@ registerRoute(
   ({ url, request }) =>
     request.method === 'GET' &&
     url.origin === self.location.origin &&
-    url.pathname.startsWith('/api/') &&
+    url.pathname.startsWith(API_PREFIX) &&
     !NOT_SAVED.some((pattern) => pattern.test(url.pathname + url.search)),
   new NetworkFirst({
     cacheName: API_CACHE,

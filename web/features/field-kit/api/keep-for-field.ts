@@ -1,5 +1,6 @@
 import { useMutation } from '@tanstack/react-query';
 import { api } from '../../../lib/api-client';
+import { paths } from '../../../lib/api-paths';
 import { setKeptModel, type KeptModel } from '../../../lib/offline';
 import type { Id } from '../../../types/api';
 import type { SetupModelView } from '../../models/types';
@@ -28,17 +29,13 @@ async function revisionToKeep(model: SetupModelView): Promise<{ id: Id; number: 
  * they open at the field with no signal even if they were never opened here.
  */
 export async function keepForField(modelId: Id): Promise<KeptModel & { approved: boolean }> {
-  const path = `/api/models/${encodeURIComponent(modelId)}`;
-  const model = (await api.get<SetupModelView>(path)).data;
+  const model = (await api.get<SetupModelView>(paths.model(modelId))).data;
   const kept = await revisionToKeep(model);
   if (!kept) throw new Error('This model has no revision to keep yet.');
   const revisions = new Set([kept.id, model.latest?.id].filter((id): id is Id => Boolean(id)));
   await Promise.all([
-    api.get(`${path}/revisions/${kept.number}`),
-    ...[...revisions].flatMap((id) => [
-      api.get(`/api/revisions/${encodeURIComponent(id)}`),
-      api.get(`/api/revisions/${encodeURIComponent(id)}/field-sheet`),
-    ]),
+    api.get(paths.modelRevisionNumber(modelId, kept.number)),
+    ...[...revisions].flatMap((id) => [api.get(paths.revision(id)), api.get(paths.revisionFieldSheet(id))]),
   ]);
   const entry = { modelId, revisionId: kept.id, revisionNumber: kept.number, savedAt: new Date().toISOString() };
   setKeptModel(modelId, entry);
