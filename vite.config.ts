@@ -29,7 +29,7 @@ export default defineConfig({
         scope: '/',
         display: 'standalone',
         background_color: '#f5f0e6',
-        theme_color: '#1d4a73',
+        theme_color: '#f5f0e6',
         icons: [
           { src: '/icons/app-icon-192.png', sizes: '192x192', type: 'image/png', purpose: 'any' },
           { src: '/icons/app-icon-512.png', sizes: '512x512', type: 'image/png', purpose: 'any' },

@@ -4,14 +4,21 @@ import { paths } from '../../../lib/api-paths';
 import { setKeptModel, type KeptModel } from '../../../lib/offline';
 import type { Id } from '../../../types/api';
 import type { SetupModelView } from '../../models/types';
+import type { Page } from '../../../lib/paged';
 import { listModelReviews } from '../../reviews/api/reviews';
+import type { ReviewSummary } from '../../reviews/types';
 
 /** The revision a pilot flies from: the newest one a review approved, else the latest. */
 async function revisionToKeep(model: SetupModelView): Promise<{ id: Id; number: number; approved: boolean } | null> {
-  // Reviews come newest first: the first page holds the newest approval there is to keep.
-  const approved = (await listModelReviews(model.id, 0)).items
-    .filter((review) => review.state === 'approved')
-    .sort((a, b) => b.revision.number - a.revision.number)[0];
+  let approved: ReviewSummary | undefined;
+  // Every page: an older review may have approved a higher revision than a newer one did.
+  for (let offset: number | null = 0; offset !== null;) {
+    const page: Page<ReviewSummary> = await listModelReviews(model.id, offset);
+    for (const review of page.items)
+      if (review.state === 'approved' && (!approved || review.revision.number > approved.revision.number))
+        approved = review;
+    offset = page.nextOffset;
+  }
   if (approved) return { id: approved.revision.id, number: approved.revision.number, approved: true };
   return model.latest ? { id: model.latest.id, number: model.latest.number, approved: false } : null;
 }
