@@ -43,12 +43,14 @@ async function sheetText(
 ): Promise<{ text: string; pages: number; headers: Record<string, string> }> {
   const response = await binary(viewer.get(`/api/revisions/${revisionId}/field-sheet.pdf`)).expect(200);
   const pdf = await pdfParse(response.body as Buffer);
-  return { text: pdf.text, pages: pdf.numpages, headers: response.headers };
+  // The PDF's font writes the micro sign (U+00B5) with the Greek mu (U+03BC); NFKC folds
+  // both to one letter, so the sheet is read as a pilot reads it.
+  return { text: pdf.text.normalize('NFKC'), pages: pdf.numpages, headers: response.headers };
 }
 
 // pdf-parse joins the pieces of one printed line without spaces.
 const row = (...cells: (string | number)[]) =>
-  new RegExp(cells.map((cell) => String(cell).replace(/[.*+?^${}()|[\]\\]/g, '\\$&')).join('\\s*'));
+  new RegExp(cells.map((cell) => String(cell).normalize('NFKC').replace(/[.*+?^${}()|[\]\\]/g, '\\$&')).join('\\s*'));
 
 describe('GET /api/revisions/:id/field-sheet.pdf', () => {
   it('is one A4 page for the two-receiver model, named safely, for any reader of the workspace', async () => {

@@ -288,6 +288,7 @@ describe('POST /api/receivers/:id/apply', () => {
       from: 1500,
       to: 1450,
       summary: 'Pin 1: failsafe 1500 µs, set 1450 µs',
+      safety: null,
     });
     await editor.post(`/api/receivers/${id}/apply`, { revision: newer.id }).expect(200);
     expect((await Receiver.findByPk(id))!.storedSettings!.pins[0]).toEqual({ pin: 1, ch: 9, failsafe: 1450 });
