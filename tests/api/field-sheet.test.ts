@@ -50,7 +50,15 @@ async function sheetText(
 
 // pdf-parse joins the pieces of one printed line without spaces.
 const row = (...cells: (string | number)[]) =>
-  new RegExp(cells.map((cell) => String(cell).normalize('NFKC').replace(/[.*+?^${}()|[\]\\]/g, '\\$&')).join('\\s*'));
+  new RegExp(
+    cells
+      .map((cell) =>
+        String(cell)
+          .normalize('NFKC')
+          .replace(/[.*+?^${}()|[\]\\]/g, '\\$&'),
+      )
+      .join('\\s*'),
+  );
 
 describe('GET /api/revisions/:id/field-sheet.pdf', () => {
   it('is one A4 page for the two-receiver model, named safely, for any reader of the workspace', async () => {
