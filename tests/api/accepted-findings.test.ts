@@ -60,8 +60,13 @@ describe('accepted findings', () => {
     const saved = await saveVia(editor, model.id, 1, accepting(open, 'failsafe-endstop', ENDSTOP, 'Pump off'));
     const body = (await viewer.get(`/api/compare?from=${revision.id}&to=${saved.id}`).expect(200)).body.data;
     expect(body.changes).toHaveLength(1);
-    expect(body.changes[0]).toMatchObject({ kind: 'added', section: 'accepted', path: 'accepted' });
-    expect(body.changes[0].summary).toContain('Accepted findings');
+    // Entries are matched by rule + path (docs/format.md): the new one is added under its identity.
+    expect(body.changes[0]).toMatchObject({
+      kind: 'added',
+      section: 'accepted',
+      path: `accepted[rule=failsafe-endstop,path=${ENDSTOP}]`,
+    });
+    expect(body.changes[0].summary).toContain('Accepted failsafe-endstop');
     expect(body.changes[0].summary).toContain('Pump off');
     expect(body.sections.accepted).toMatchObject({ added: 1 });
     expect(body.findings_delta).toMatchObject({ introduced: [], resolved: [] });

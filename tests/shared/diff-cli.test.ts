@@ -114,7 +114,7 @@ describe('npm run diff (scripts/cli/diff.ts)', { timeout: 60_000 }, () => {
     // [expo-cubic] -50 % stick: 92 * (0.85 * -0.5 + 0.15 * -0.125) = -40.825 % -> 1296 us,
     // 92 * (0.8 * -0.5 + 0.2 * -0.125) = -39.1 % -> 1305 us.
     expect(expoOut.outputs_delta[0]).toMatchObject({ receiver: 'fuselage', pin: 2, before_us: 1296, after_us: 1305 });
-    expect(expoOut.findings_delta).toEqual({ introduced: [], resolved: [] });
+    expect(expoOut.findings_delta).toEqual({ introduced: [], resolved: [], accepted: [] });
     expect(expoOut.change_findings).toEqual([]);
 
     const rateRun = run(base, lowRate, '--json');
