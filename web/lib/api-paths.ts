@@ -58,6 +58,7 @@ export const paths = {
   workspaceImportJob: (workspaceId: string, jobId: string) => `${workspace(workspaceId)}/imports/${seg(jobId)}`,
 
   model: (modelId: string) => model(modelId),
+  modelArchive: (modelId: string, archived: boolean) => `${model(modelId)}/${archived ? 'archive' : 'unarchive'}`,
   modelRevisions: (modelId: string, query?: Query) => withQuery(`${model(modelId)}/revisions`, query),
   /** A revision named by its number in the model. */
   modelRevisionNumber: (modelId: string, number: number | string) =>

@@ -1,5 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { api } from '../../../lib/api-client';
+import { paths } from '../../../lib/api-paths';
 import type { Id } from '../../../types/api';
 import { modelQueryKey } from '../../models/api/get-model';
 import { hangarQueryKey } from '../../models/api/list-models';
@@ -13,14 +14,13 @@ export interface Renamed {
 }
 
 export async function renameModel(modelId: Id, name: string): Promise<Renamed> {
-  const answer = await api.patch<SetupModelView>(`/api/models/${encodeURIComponent(modelId)}`, { name });
+  const answer = await api.patch<SetupModelView>(paths.model(modelId), { name });
   const revision = (answer as { revision?: SavedRevision | null }).revision ?? null;
   return { model: answer.data, revision };
 }
 
 export async function setArchived(modelId: Id, archived: boolean): Promise<SetupModelView> {
-  const verb = archived ? 'archive' : 'unarchive';
-  return (await api.post<SetupModelView>(`/api/models/${encodeURIComponent(modelId)}/${verb}`)).data;
+  return (await api.post<SetupModelView>(paths.modelArchive(modelId, archived))).data;
 }
 
 /** A rename or an archive changes the model page, its history (a rename saves a revision) and the hangar. */
