@@ -4,7 +4,8 @@ import { contentHash } from '@shared/canonical/content-hash';
 import { AIRFRAMES } from '@shared/format/schema';
 import { MAX_TEXT_BYTES } from '@shared/parse/limits';
 import { Conflict, NotFound, TooLarge, Unprocessable } from '../errors';
-import { Revision, SetupModel, type User } from '../models';
+import { recordChanges } from '../provenance/record-changes';
+import { followClubRules, Revision, SetupModel, type User } from '../models';
 import type { RevisionOrigin } from '../models/Revision';
 import type { AuditAction } from './record-audit-event';
 
@@ -200,12 +201,14 @@ export async function appendRevision(
     type: QueryTypes.SELECT,
     transaction,
   });
+  await recordChanges(sequelize, model.id, transaction);
   // raw: a built instance that is not new ignores writes to its timestamps otherwise.
   const revision = Revision.build(
     { ...values, id: row.id, createdAt: new Date(row.created_at) },
     { isNewRecord: false, raw: true },
   );
   revision.author = input.author;
+  await followClubRules([revision], transaction);
   model.set?.({ airframe, updatedAt: revision.createdAt }, { raw: true });
   return revision;
 }
