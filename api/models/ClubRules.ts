@@ -2,7 +2,6 @@ import {
   DataTypes,
   Model,
   QueryTypes,
-  type ForeignKey,
   type InferAttributes,
   type InferCreationAttributes,
   type Sequelize,
@@ -19,10 +18,10 @@ import type { Workspace } from './Workspace';
 
 /** A workspace's club rules (migration 0070); a workspace without a row follows the defaults. */
 export class ClubRules extends Model<InferAttributes<ClubRules>, InferCreationAttributes<ClubRules>> {
-  declare workspaceId: ForeignKey<Workspace['id']>;
+  declare workspaceId: Workspace['id'];
   declare severities: Record<string, RuleSeverity>;
   declare approvals: ApprovalRules;
-  declare updatedBy: ForeignKey<User['id']>;
+  declare updatedBy: User['id'];
   declare updatedAt: Date;
 
   static initModel(sequelize: Sequelize): void {
@@ -31,6 +30,7 @@ export class ClubRules extends Model<InferAttributes<ClubRules>, InferCreationAt
         workspaceId: { type: DataTypes.UUID, primaryKey: true },
         severities: { type: DataTypes.JSONB, allowNull: false, defaultValue: {} },
         approvals: { type: DataTypes.JSONB, allowNull: false },
+        updatedBy: { type: DataTypes.UUID, allowNull: false },
         updatedAt: DataTypes.DATE,
       },
       { sequelize, tableName: 'club_rules', modelName: 'ClubRules', underscored: true, createdAt: false },

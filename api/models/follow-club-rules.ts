@@ -14,7 +14,10 @@ import { Revision } from './Revision';
  * rules that change a severity.
  */
 export async function followClubRules(revisions: readonly Revision[], transaction?: Transaction | null): Promise<void> {
-  const subjects = revisions.filter((revision) => revision && typeof revision.get('modelId') === 'string');
+  // Raw reads (`raw: true`) give plain rows, not instances: those are left as read.
+  const subjects = revisions.filter(
+    (revision) => revision instanceof Revision && typeof revision.get('modelId') === 'string',
+  );
   if (subjects.length === 0) return;
   const rules = await rulesByModel(
     subjects.map((revision) => revision.modelId),
