@@ -42,6 +42,10 @@ const FieldSheetScreen = lazyScreen(
   () => import('../features/field-sheet/components/field-sheet-screen'),
   'FieldSheetScreen',
 );
+const SourceUpdatesScreen = lazyScreen(
+  () => import('../features/lineage/components/source-updates-screen'),
+  'SourceUpdatesScreen',
+);
 const AccountScreen = lazyScreen(() => import('../features/account/components/account-screen'), 'AccountScreen');
 
 interface Screen extends FrameLink {
@@ -113,6 +117,7 @@ export const routes: RouteObject[] = [
             children: [
               { index: true, element: <Navigate to="overview" replace /> },
               ...modelScreens.map(({ path, element }) => ({ path, element })),
+              { path: 'source-updates', element: <SourceUpdatesScreen /> },
             ],
           },
           ...devScreens.map(({ path, element }) => ({ path, element })),
