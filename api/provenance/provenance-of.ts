@@ -47,20 +47,24 @@ export async function provenanceOf(
 ): Promise<ProvenanceEntry[]> {
   const paths = [...leafValues(revision.document).keys()].filter((path) => !under || isUnder(path, under));
   if (paths.length === 0) return [];
-  return sequelize.transaction(async (transaction) => {
-    await recordChanges(sequelize, revision.modelId, transaction);
-    const rows = await sequelize.query<Row>(LOOKUP_SQL, {
-      bind: { paths, model: revision.modelId, number: revision.number },
-      type: QueryTypes.SELECT,
-      transaction,
-    });
-    return rows.map((row) => ({
-      path: row.path,
-      revision: { id: row.id, number: row.number, model_id: row.model_id },
-      author: row.author_id ? { id: row.author_id, name: row.author_name ?? '' } : null,
-      created_at: new Date(row.created_at).toISOString(),
-      message: row.message,
-      inherited: row.inherited,
-    }));
+  // Almost always every revision is recorded already (each save records its own), so
+  // the write transaction that catches up an older history is taken only when needed.
+  const [progress] = await sequelize.query<{ through: number | null }>(
+    'SELECT (SELECT through_number FROM provenance_progress WHERE model_id = $model) AS through',
+    { bind: { model: revision.modelId }, type: QueryTypes.SELECT },
+  );
+  if ((progress?.through ?? 0) < revision.number)
+    await sequelize.transaction((transaction) => recordChanges(sequelize, revision.modelId, transaction));
+  const rows = await sequelize.query<Row>(LOOKUP_SQL, {
+    bind: { paths, model: revision.modelId, number: revision.number },
+    type: QueryTypes.SELECT,
   });
+  return rows.map((row) => ({
+    path: row.path,
+    revision: { id: row.id, number: row.number, model_id: row.model_id },
+    author: row.author_id ? { id: row.author_id, name: row.author_name ?? '' } : null,
+    created_at: new Date(row.created_at).toISOString(),
+    message: row.message,
+    inherited: row.inherited,
+  }));
 }

@@ -65,8 +65,10 @@ describe('journey: a fork takes in its source’s fix', () => {
     });
     await api.post(`/models/${source.model.id}/revisions`, {
       base: 1,
-      message: 'Motor idles on signal loss; softer ailerons',
-      yaml: trainer.replace('failsafe: 1000 }', 'failsafe: 1100 }').replace('expo: 30,', 'expo: 35,'),
+      message: 'Aileron failsafe at the measured centre; softer ailerons',
+      yaml: trainer
+        .replace('{ pin: 1, ch: 1, failsafe: 1500 }', '{ pin: 1, ch: 1, failsafe: 1520 }')
+        .replace('expo: 30,', 'expo: 35,'),
     });
     await api.post(`/models/${fork.model.id}/revisions`, {
       base: 1,
@@ -96,7 +98,7 @@ describe('journey: a fork takes in its source’s fix', () => {
     );
     expect(latest.origin).toBe('merge');
     const data = parse(latest.yaml);
-    expect(data.receivers[0].map[2].failsafe).toBe(1100);
+    expect(data.receivers[0].map[0].failsafe).toBe(1520);
     expect(data.mixes[0].expo).toBe(35);
     expect(latest.yaml).toContain('# motor stops on signal loss');
     expectNoProblems(visit);

@@ -97,7 +97,10 @@ function TakeIn({
     <div className="space-y-6">
       <Card className="px-5 py-4">
         <h2 className="text-lg font-semibold text-ink-900">
-          {updates.source.name}: revisions {updates.base.number + 1}-{updates.source.number} changed
+          {updates.source.name}:{' '}
+          {updates.behind === 1
+            ? `revision ${updates.source.number} changed`
+            : `revisions ${updates.base.number + 1}-${updates.source.number} changed`}
         </h2>
         <ul className="mt-2 list-disc space-y-1 pl-5 text-sm text-ink-900">
           {updates.changes.map((change, index) => (
