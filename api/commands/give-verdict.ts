@@ -1,4 +1,4 @@
-import type { Sequelize, Transaction } from 'sequelize';
+import type { Sequelize } from 'sequelize';
 import { Unprocessable } from '../errors';
 import { appLink } from '../mail/context';
 import type { MailService } from '../mail/mail-service';
@@ -8,34 +8,15 @@ import type { Verdict } from '../models/ReviewVerdict';
 import { PRE_MAIDEN_CHECKLIST } from '../reviews/checklist';
 import { approvalRefusal } from '../reviews/approval-refusal';
 import { reviewStateFromVerdicts, signOffRuleFor } from '../reviews/sign-off';
-import type { ReviewAccess } from '../policies/review';
-import { recordAuditEvent } from './record-audit-event';
+import type { GrantedReview } from '../access/records';
+import { recordAuditEvent } from '../audit/record-audit-event';
+import { setTicks } from './tick-checklist';
 
 export interface VerdictInput {
   verdict: Verdict;
   body: string;
   /** Checklist items to tick (true) or untick (false) along with the verdict. */
   checklist: Record<string, boolean>;
-}
-
-/** Ticks and unticks checklist items of a review in the caller's transaction. */
-export async function setTicks(
-  review: Review,
-  user: User,
-  changes: Record<string, boolean>,
-  transaction: Transaction,
-): Promise<void> {
-  for (const [item, ticked] of Object.entries(changes)) {
-    if (ticked) {
-      await ChecklistTick.findOrCreate({
-        where: { reviewId: review.id, item },
-        defaults: { reviewId: review.id, item, tickedBy: user.id },
-        transaction,
-      });
-    } else {
-      await ChecklistTick.destroy({ where: { reviewId: review.id, item }, transaction });
-    }
-  }
 }
 
 /**
@@ -45,7 +26,7 @@ export async function setTicks(
 export async function giveVerdict(
   sequelize: Sequelize,
   mail: MailService,
-  access: ReviewAccess,
+  access: GrantedReview,
   user: User,
   input: VerdictInput,
 ): Promise<{ verdict: ReviewVerdict; review: Review }> {

@@ -3,7 +3,7 @@ import { loweredErrors, type ClubRules as Rules } from '@shared/rules/club-rules
 import { Unprocessable } from '../errors';
 import { ClubRules, Review, ReviewVerdict, Revision, rulesOf, type User, type Workspace } from '../models';
 import { reviewStateFromVerdicts, signOffRuleFor } from '../reviews/sign-off';
-import { recordAuditEvent } from './record-audit-event';
+import { recordAuditEvent } from '../audit/record-audit-event';
 
 // A review's stored state is what its verdicts mean under the rules: when the rules
 // change, every review of the workspace that has verdicts is read again under the new
@@ -30,7 +30,7 @@ async function reassessReviews(workspaceId: string, rules: Rules, transaction: T
 }
 
 /**
- * Sets a workspace's club rules. Any check may be raised and warnings or infos lowered
+ * Sets a workspace's club rules. Any check may be raised and warnings or notes (severity info) lowered
  * (or switched off); an error is never lowered (422 `error-lowered`): errors mean "do
  * not fly". Every change is an audit event carrying the rules before and after.
  */
@@ -43,7 +43,7 @@ export async function setClubRules(
   const lowered = loweredErrors(rules.severities);
   if (lowered.length > 0) {
     throw new Unprocessable(
-      `An error cannot be lowered or switched off (errors mean "do not fly"): ${lowered.join(', ')}. Raise checks or lower warnings and infos only.`,
+      `An error cannot be lowered or switched off (errors mean "do not fly"): ${lowered.join(', ')}. Raise checks or lower warnings and notes only.`,
       { code: 'error-lowered', details: { rules: lowered, fields: { severities: 'An error cannot be lowered.' } } },
     );
   }

@@ -4,7 +4,10 @@ import { applyToText } from '@shared/lineage/apply-to-text';
 import { Unprocessable } from '../errors';
 import type { Revision, SetupModel, User } from '../models';
 import { mergeOf, mergeSides } from '../queries/source-updates';
-import { appendRevision, checkSetupText, lockModel, requireLatestBase } from './save-revision';
+import { appendRevision } from '../revisions/append-revision';
+import { requireLatestBase } from '../revisions/check-base';
+import { checkSetupText } from '../revisions/check-setup';
+import { lockModel } from '../revisions/lock-model';
 
 export interface TakeInInput {
   fork: SetupModel;

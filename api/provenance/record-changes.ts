@@ -108,7 +108,8 @@ export async function recordChanges(sequelize: Sequelize, modelId: string, trans
   if (through === start && progress) return;
   await sequelize.query(
     `INSERT INTO provenance_progress (model_id, through_number) VALUES ($model, $through)
-     ON CONFLICT (model_id) DO UPDATE SET through_number = excluded.through_number`,
+     ON CONFLICT (model_id) DO UPDATE
+       SET through_number = greatest(provenance_progress.through_number, excluded.through_number)`,
     { bind: { model: modelId, through }, transaction },
   );
 }

@@ -1,10 +1,9 @@
-import { Op, QueryTypes } from 'sequelize';
+import { Op, QueryTypes, type Transaction } from 'sequelize';
 import { compareRevisions } from '@shared/diff';
 import { ChecklistTick, Review, ReviewComment, ReviewVerdict, Revision, SetupModel, User } from '../models';
-import type { ReviewAccess } from '../policies/review';
+import type { GrantedReview } from '../access/records';
 import { approvalRefusal } from '../reviews/approval-refusal';
-import { REVIEW_POLICY } from '../policies/review';
-import { roleAtLeast } from '@shared/contract/roles';
+import { reviewPolicy } from '../policies/review';
 import {
   presentChecklist,
   presentComment,
@@ -73,22 +72,24 @@ export async function presentReviewList(reviews: readonly LoadedReview[]) {
  */
 export async function baseRevisionFor(
   revision: Revision,
+  /** For a caller inside a transaction that wrote the revisions (the demo seed). */
+  transaction?: Transaction,
 ): Promise<{ kind: 'approved' | 'parent' | 'fork-source'; revision: Revision } | null> {
   const [row] = await Revision.sequelize!.query<{ id: string }>(
     `SELECT rv.id FROM revisions rv
       WHERE rv.model_id = $model AND rv.number < $number
         AND EXISTS (SELECT 1 FROM reviews r WHERE r.revision_id = rv.id AND r.state = 'approved')
       ORDER BY rv.number DESC LIMIT 1`,
-    { bind: { model: revision.modelId, number: revision.number }, type: QueryTypes.SELECT },
+    { bind: { model: revision.modelId, number: revision.number }, type: QueryTypes.SELECT, transaction },
   );
-  const approved = row ? await Revision.findByPk(row.id) : null;
+  const approved = row ? await Revision.findByPk(row.id, { transaction }) : null;
   if (approved) return { kind: 'approved', revision: approved };
   if (revision.parentId) {
-    const parent = await Revision.findByPk(revision.parentId);
+    const parent = await Revision.findByPk(revision.parentId, { transaction });
     if (parent) return { kind: 'parent', revision: parent };
   }
   if (revision.origin === 'fork' && revision.sourceRevisionId) {
-    const source = await Revision.findByPk(revision.sourceRevisionId);
+    const source = await Revision.findByPk(revision.sourceRevisionId, { transaction });
     if (source) return { kind: 'fork-source', revision: source };
   }
   return null;
@@ -130,7 +131,7 @@ export async function presentCommentsOn(revision: Revision, comments: readonly R
 }
 
 /** Everything the review page shows. */
-export async function reviewDetail(access: ReviewAccess, caller: User) {
+export async function reviewDetail(access: GrantedReview, caller: User) {
   const { review } = access;
   const revision = review.revision;
   const [context, base, verdicts, ticks, comments] = await Promise.all([
@@ -154,7 +155,7 @@ export async function reviewDetail(access: ReviewAccess, caller: User) {
   for (const [id, user] of context.users) users.set(id, user);
   const latest = context.latest.get(review.modelId);
   const modelState = latest ? ((await reviewStateOf([latest])).get(latest.id) ?? 'none') : 'none';
-  const canVerdict = roleAtLeast(access.role, REVIEW_POLICY.verdict);
+  const canVerdict = reviewPolicy(access.role, 'verdict').allowed;
   const refusal = canVerdict ? await approvalRefusal(access, caller) : null;
   const summarise = (entry: Revision) => {
     entry.author = users.get(entry.authorId);
@@ -180,8 +181,8 @@ export async function reviewDetail(access: ReviewAccess, caller: User) {
       verdict: canVerdict,
       approve: canVerdict && refusal === null,
       approve_refusal: refusal ? { code: refusal.code, message: refusal.message } : null,
-      tick: roleAtLeast(access.role, REVIEW_POLICY.tick),
-      comment: roleAtLeast(access.role, REVIEW_POLICY.comment),
+      tick: reviewPolicy(access.role, 'tick').allowed,
+      comment: reviewPolicy(access.role, 'comment').allowed,
     },
   };
 }

@@ -5,9 +5,9 @@ import { setClubRules } from '../commands/set-club-rules';
 import type { AppContext } from '../context';
 import { authenticate, currentUser } from '../middleware/authenticate';
 import { AuditEvent, ClubRules, rulesOf, User } from '../models';
-import { requireRole } from '../policies/workspace';
 import { presentAuthor } from '../presenters/revision';
 import { parseInput } from '../validation';
+import { authorizeWorkspaceAction } from './authorize';
 
 const HISTORY_LIMIT = 20;
 
@@ -44,13 +44,13 @@ export function clubRulesRouter({ sequelize, config }: AppContext): Router {
   const signedIn = authenticate(config);
 
   router.get('/workspaces/:ws/rules', signedIn, async (req, res) => {
-    const { workspace } = await requireRole(req, req.params.ws, 'viewer');
+    const { workspace } = await authorizeWorkspaceAction(req, req.params.ws, 'read-rules');
     res.json({ data: await presentRules(workspace.id) });
   });
 
   router.put('/workspaces/:ws/rules', signedIn, async (req, res) => {
     const rules = parseInput(clubRulesSchema, req.body, 'The club rules are not valid.');
-    const { workspace } = await requireRole(req, req.params.ws, 'owner');
+    const { workspace } = await authorizeWorkspaceAction(req, req.params.ws, 'set-rules');
     await setClubRules(sequelize, workspace, currentUser(req), rules);
     res.json({ data: await presentRules(workspace.id) });
   });

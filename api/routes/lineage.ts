@@ -5,11 +5,11 @@ import { takeInSource } from '../commands/take-in-source';
 import type { AppContext } from '../context';
 import { NotFound } from '../errors';
 import { authenticate, currentUser } from '../middleware/authenticate';
-import { authorizeModel } from '../policies/model';
 import { presentSavedRevision } from '../presenters/revision';
 import { provenanceOf } from '../provenance/provenance-of';
 import { mergeSides, presentSourceUpdates } from '../queries/source-updates';
 import { idSchema, parseInput } from '../validation';
+import { authorizeModel } from './authorize';
 import { baseField, message } from './model-inputs';
 
 const provenanceQuery = z.object({

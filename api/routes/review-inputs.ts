@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import { CHECKLIST_IDS } from '../reviews/checklist';
 import { VERDICTS } from '../models/ReviewVerdict';
-import { pageSchema } from './team-inputs';
+import { pageInput } from './paging';
 
 const text = (field: string, max: number) =>
   z
@@ -55,6 +55,6 @@ export const commentSchema = z.strictObject({
   body: text('the comment', 4000).min(1, 'Write the comment.'),
 });
 
-export const reviewListQuery = pageSchema.extend({
+export const reviewListQuery = pageInput(50).extend({
   status: z.enum(['open', 'closed', 'all'], { error: 'status is open, closed or all.' }).default('all'),
 });

@@ -1,15 +1,15 @@
 import { Router } from 'express';
 import { Op } from 'sequelize';
-import { giveVerdict, setTicks } from '../commands/give-verdict';
-import { recordAuditEvent } from '../commands/record-audit-event';
+import { commentOnReview } from '../commands/comment-on-review';
+import { giveVerdict } from '../commands/give-verdict';
 import { requestReview } from '../commands/request-review';
+import { tickChecklist } from '../commands/tick-checklist';
 import type { AppContext } from '../context';
-import { Unprocessable } from '../errors';
 import { mailFor } from '../mail/context';
 import { authenticate, currentUser } from '../middleware/authenticate';
-import { ReviewComment, Workspace } from '../models';
-import { authorizeModel, authorizeRevision, authorizeWorkspace } from '../policies/model';
-import { authorizeReview } from '../policies/review';
+import { Workspace } from '../models';
+import { reviewPolicy } from '../policies/review';
+import { authorizeModel, authorizeReview, authorizeRevision, authorizeWorkspace } from './authorize';
 import { presentVerdict } from '../presenters/review';
 import {
   commentsShownOn,
@@ -18,9 +18,11 @@ import {
   presentReviewList,
   reviewDetail,
 } from '../queries/review-views';
-import { anchorExists, readAnchor } from '../reviews/anchor-path';
 import { parseInput } from '../validation';
+import { pageInput, pagination } from './paging';
 import { commentSchema, requestReviewSchema, reviewListQuery, tickSchema, verdictSchema } from './review-inputs';
+
+const commentsQuery = pageInput(100);
 
 const STATUS_WHERE = { open: { state: 'open' }, closed: { state: { [Op.ne]: 'open' } }, all: {} } as const;
 
@@ -32,7 +34,8 @@ export function reviewsRouter(context: AppContext): Router {
 
   router.post('/revisions/:id/reviews', signedIn, async (req, res) => {
     const input = parseInput(requestReviewSchema, req.body);
-    const { revision, model } = await authorizeRevision(req, req.params.id, 'edit');
+    // The document, for the mail's "Between these revisions".
+    const { revision, model } = await authorizeRevision(req, req.params.id, 'edit', { fields: ['document'] });
     const workspace = await Workspace.findByPk(model.workspaceId, { rejectOnEmpty: true });
     const review = await requestReview(sequelize, mailFor(context), {
       workspace,
@@ -48,19 +51,19 @@ export function reviewsRouter(context: AppContext): Router {
 
   router.get('/workspaces/:ws/reviews', signedIn, async (req, res) => {
     const { limit, offset, status } = parseInput(reviewListQuery, req.query, 'The list parameters are not valid.');
-    const { workspace } = await authorizeWorkspace(req, req.params.ws, 'read');
+    const { workspace } = await authorizeWorkspace(req, req.params.ws, reviewPolicy, 'read');
     const { rows, count } = await loadReviews(
       { workspaceId: workspace.id, ...STATUS_WHERE[status] },
       { limit, offset },
     );
-    res.json({ data: await presentReviewList(rows), pagination: { limit, offset, total: count } });
+    res.json({ data: await presentReviewList(rows), pagination: pagination({ limit, offset }, count) });
   });
 
   router.get('/models/:id/reviews', signedIn, async (req, res) => {
     const { limit, offset, status } = parseInput(reviewListQuery, req.query, 'The list parameters are not valid.');
     const { model } = await authorizeModel(req, req.params.id, 'read');
     const { rows, count } = await loadReviews({ modelId: model.id, ...STATUS_WHERE[status] }, { limit, offset });
-    res.json({ data: await presentReviewList(rows), pagination: { limit, offset, total: count } });
+    res.json({ data: await presentReviewList(rows), pagination: pagination({ limit, offset }, count) });
   });
 
   router.get('/reviews/:id', signedIn, async (req, res) => {
@@ -88,9 +91,11 @@ export function reviewsRouter(context: AppContext): Router {
   router.post('/reviews/:id/checklist', signedIn, async (req, res) => {
     const input = parseInput(tickSchema, req.body);
     const access = await authorizeReview(req, req.params.id, 'tick');
-    await sequelize.transaction((transaction) =>
-      setTicks(access.review, currentUser(req), { [input.item]: input.ticked }, transaction),
-    );
+    await tickChecklist(sequelize, {
+      review: access.review,
+      user: currentUser(req),
+      changes: { [input.item]: input.ticked },
+    });
     const detail = await reviewDetail(access, currentUser(req));
     res.json({ data: detail.checklist });
   });
@@ -99,60 +104,19 @@ export function reviewsRouter(context: AppContext): Router {
     const input = parseInput(commentSchema, req.body);
     const access = await authorizeReview(req, req.params.id, 'comment');
     const { review } = access;
-    if (input.path !== undefined) {
-      if (!readAnchor(input.path)) {
-        throw new Unprocessable(
-          'The path is not a semantic path Bindery can read, like receivers[id=wing].map[pin=3].',
-          { code: 'invalid-path', details: { fields: { path: 'Write the path like receivers[id=wing].map[pin=3].' } } },
-        );
-      }
-      if (!anchorExists(review.revision.document, input.path)) {
-        throw new Unprocessable(`Nothing in revision ${review.revision.number} is at ${input.path}.`, {
-          code: 'path-not-found',
-          details: { fields: { path: 'This path does not exist in the reviewed revision.' } },
-        });
-      }
-    }
-    const user = currentUser(req);
-    const comment = await sequelize.transaction(async (transaction) => {
-      const created = await ReviewComment.create(
-        {
-          reviewId: review.id,
-          revisionId: review.revision.id,
-          modelId: review.modelId,
-          path: input.path ?? null,
-          body: input.body,
-          authorId: user.id,
-        },
-        { transaction },
-      );
-      await recordAuditEvent(
-        {
-          workspaceId: review.workspaceId,
-          actor: user,
-          action: 'review.commented',
-          subjectType: 'review',
-          subjectId: review.id,
-          details: {
-            model_id: review.model.id,
-            model_name: review.model.name,
-            number: review.revision.number,
-            path: created.path,
-          },
-        },
-        transaction,
-      );
-      return created;
-    });
-    comment.revision = review.revision;
+    const comment = await commentOnReview(sequelize, { review, author: currentUser(req), ...input });
     const [presented] = await presentCommentsOn(review.revision, [comment]);
     res.status(201).json({ data: presented });
   });
 
   router.get('/revisions/:id/comments', signedIn, async (req, res) => {
+    const page = parseInput(commentsQuery, req.query, 'The paging parameters are not valid.');
     const { revision } = await authorizeRevision(req, req.params.id, 'read', { full: true });
+    // Which comments a revision shows depends on its document (anchored ones carry
+    // forward while their path exists), so the page is cut after that choice.
     const comments = await commentsShownOn(revision);
-    res.json({ data: await presentCommentsOn(revision, comments) });
+    const shown = comments.slice(page.offset, page.offset + page.limit);
+    res.json({ data: await presentCommentsOn(revision, shown), pagination: pagination(page, comments.length) });
   });
 
   return router;

@@ -110,6 +110,39 @@ describe('GET /api/models/:id/provenance', () => {
     expect(Number(count)).toBeGreaterThan(0);
   });
 
+  it('records the changes of a save and an upload as they are saved; a save recorded late reads the same', async () => {
+    const { model } = await createModelVia(editor, roles.workspace.id, { name: 'Recorded at once', yaml: TRAINER() });
+    await saveVia(editor, model.id, 1, edit(TRAINER(), 'expo: 30,', 'expo: 32,'), 'a little more expo');
+    const uploaded = edit(TRAINER(), 'failsafe: 1000 }', 'failsafe: 1080 }');
+    await editor
+      .upload(
+        `/api/models/${model.id}/upload`,
+        uploaded,
+        { name: 'trainer.yaml' },
+        { base: 2, message: 'from the bench' },
+      )
+      .expect(201);
+    const sql = t.sequelize;
+    const recorded = async () =>
+      sql.query<{ through_number: number; rows: string }>(
+        `SELECT (SELECT through_number FROM provenance_progress WHERE model_id = $id) AS through_number,
+                (SELECT count(*) FROM revision_changes WHERE model_id = $id AND number = 3) AS rows`,
+        { bind: { id: model.id }, type: QueryTypes.SELECT },
+      );
+    // Before anyone asks for provenance, both API saves (one statement each) are recorded.
+    expect(await recorded()).toEqual([{ through_number: 3, rows: '2' }]);
+    const before = await provenance(viewer, model.id);
+    expect(byPath(before).get(MOTOR_FAILSAFE)).toMatchObject({ revision: { number: 3 }, message: 'from the bench' });
+
+    // As if the process stopped between the save's commit and the recording of its changes.
+    await sql.query('DELETE FROM revision_changes WHERE model_id = $id AND number = 3', { bind: { id: model.id } });
+    await sql.query('UPDATE provenance_progress SET through_number = 2 WHERE model_id = $id', {
+      bind: { id: model.id },
+    });
+    expect(await provenance(viewer, model.id)).toEqual(before);
+    expect(await recorded()).toEqual([{ through_number: 3, rows: '2' }]);
+  });
+
   it('names the source’s revision, marked inherited, for values that came with a fork', async () => {
     const { model: source } = await createModelVia(editor, roles.workspace.id, { name: 'Source', yaml: TRAINER() });
     const fix = await saveVia(owner, source.id, 1, edit(TRAINER(), 'failsafe: 1000 }', 'failsafe: 1100 }'), 'fix');

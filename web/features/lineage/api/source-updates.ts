@@ -2,6 +2,7 @@ import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/r
 import type { SourceUpdates } from '@shared/contract/provenance';
 import type { MergeSide } from '@shared/lineage/merge-setups';
 import { api } from '../../../lib/api-client';
+import { paths } from '../../../lib/api-paths';
 import type { Id } from '../../../types/api';
 import { modelQueryKey } from '../../models/api/get-model';
 import { revisionsQueryKey } from '../../models/api/list-revisions';
@@ -11,7 +12,7 @@ import type { SavedRevision, SetupModelView } from '../../models/types';
 export const sourceUpdatesQueryKey = (modelId: Id) => ['source-updates', modelId] as const;
 
 export async function getSourceUpdates(modelId: Id, signal?: AbortSignal): Promise<SourceUpdates> {
-  return (await api.get<SourceUpdates>(`/api/models/${encodeURIComponent(modelId)}/source-updates`, signal)).data;
+  return (await api.get<SourceUpdates>(paths.modelSourceUpdates(modelId), signal)).data;
 }
 
 export function sourceUpdatesQueryOptions(modelId: Id) {
@@ -34,7 +35,7 @@ export interface TakeInInput {
 }
 
 export async function takeInSource({ modelId, ...body }: TakeInInput): Promise<SavedRevision> {
-  return (await api.post<SavedRevision>(`/api/models/${encodeURIComponent(modelId)}/source-updates`, body)).data;
+  return (await api.post<SavedRevision>(paths.modelSourceUpdates(modelId), body)).data;
 }
 
 export function useTakeInSource(model: Pick<SetupModelView, 'id' | 'workspace_id'>) {

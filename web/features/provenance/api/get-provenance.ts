@@ -1,11 +1,11 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { ProvenanceEntry } from '@shared/contract/provenance';
 import { api } from '../../../lib/api-client';
+import { paths } from '../../../lib/api-paths';
 import type { Id } from '../../../types/api';
 
 export async function getProvenance(modelId: Id, revisionId: Id, signal?: AbortSignal): Promise<ProvenanceEntry[]> {
-  const url = `/api/models/${encodeURIComponent(modelId)}/provenance?revision=${encodeURIComponent(revisionId)}`;
-  return (await api.get<ProvenanceEntry[]>(url, signal)).data;
+  return (await api.get<ProvenanceEntry[]>(paths.modelProvenance(modelId, { revision: revisionId }), signal)).data;
 }
 
 export function provenanceQueryOptions(modelId: Id, revisionId: Id) {

@@ -1,37 +1,58 @@
-import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import {
+  infiniteQueryOptions,
+  queryOptions,
+  useInfiniteQuery,
+  useMutation,
+  useQuery,
+  useQueryClient,
+} from '@tanstack/react-query';
 import { api } from '../../../lib/api-client';
 import type { Id } from '../../../types/api';
 import type { ChecklistEntry, CommentEntry, ReviewDetail, ReviewSummary, Verdict, VerdictEntry } from '../types';
+import { paths } from '../../../lib/api-paths';
+import { getPage, offsetPaging, type Page } from '../../../lib/paged';
 
 export const reviewQueryKey = (reviewId: Id) => ['reviews', reviewId] as const;
 export const workspaceReviewsQueryKey = (workspaceId: Id) => ['workspaces', workspaceId, 'reviews'] as const;
 export const modelReviewsQueryKey = (modelId: Id) => ['models', modelId, 'reviews'] as const;
 
-export async function listWorkspaceReviews(workspaceId: Id, signal?: AbortSignal): Promise<ReviewSummary[]> {
-  return (
-    await api.get<ReviewSummary[]>(`/api/workspaces/${encodeURIComponent(workspaceId)}/reviews?limit=200`, signal)
-  ).data;
+export const REVIEWS_PAGE_SIZE = 50;
+
+export type ReviewStatus = 'open' | 'closed' | 'all';
+
+export function listWorkspaceReviews(
+  workspaceId: Id,
+  status: ReviewStatus,
+  offset: number,
+  signal?: AbortSignal,
+): Promise<Page<ReviewSummary>> {
+  const path = paths.workspaceReviews(workspaceId, { status, limit: REVIEWS_PAGE_SIZE, offset });
+  return getPage<ReviewSummary>(path, offset, signal);
 }
 
-export async function listModelReviews(modelId: Id, signal?: AbortSignal): Promise<ReviewSummary[]> {
-  return (await api.get<ReviewSummary[]>(`/api/models/${encodeURIComponent(modelId)}/reviews?limit=200`, signal)).data;
+export function listModelReviews(modelId: Id, offset: number, signal?: AbortSignal): Promise<Page<ReviewSummary>> {
+  return getPage<ReviewSummary>(paths.modelReviews(modelId, { limit: REVIEWS_PAGE_SIZE, offset }), offset, signal);
 }
 
 export async function getReview(reviewId: Id, signal?: AbortSignal): Promise<ReviewDetail> {
-  return (await api.get<ReviewDetail>(`/api/reviews/${encodeURIComponent(reviewId)}`, signal)).data;
+  return (await api.get<ReviewDetail>(paths.review(reviewId), signal)).data;
 }
 
-export function workspaceReviewsQueryOptions(workspaceId: Id) {
-  return queryOptions({
-    queryKey: workspaceReviewsQueryKey(workspaceId),
-    queryFn: ({ signal }) => listWorkspaceReviews(workspaceId, signal),
+/** The workspace's open or decided reviews, newest first, a page at a time. */
+export function workspaceReviewsQueryOptions(workspaceId: Id, status: ReviewStatus) {
+  return infiniteQueryOptions({
+    queryKey: [...workspaceReviewsQueryKey(workspaceId), status],
+    queryFn: ({ pageParam, signal }) => listWorkspaceReviews(workspaceId, status, pageParam, signal),
+    ...offsetPaging,
   });
 }
 
+/** The model's reviews, newest first, a page at a time. */
 export function modelReviewsQueryOptions(modelId: Id) {
-  return queryOptions({
+  return infiniteQueryOptions({
     queryKey: modelReviewsQueryKey(modelId),
-    queryFn: ({ signal }) => listModelReviews(modelId, signal),
+    queryFn: ({ pageParam, signal }) => listModelReviews(modelId, pageParam, signal),
+    ...offsetPaging,
   });
 }
 
@@ -39,8 +60,9 @@ export function reviewQueryOptions(reviewId: Id) {
   return queryOptions({ queryKey: reviewQueryKey(reviewId), queryFn: ({ signal }) => getReview(reviewId, signal) });
 }
 
-export const useWorkspaceReviews = (workspaceId: Id) => useQuery(workspaceReviewsQueryOptions(workspaceId));
-export const useModelReviews = (modelId: Id) => useQuery(modelReviewsQueryOptions(modelId));
+export const useWorkspaceReviews = (workspaceId: Id, status: ReviewStatus) =>
+  useInfiniteQuery({ ...workspaceReviewsQueryOptions(workspaceId, status), enabled: workspaceId !== '' });
+export const useModelReviews = (modelId: Id) => useInfiniteQuery(modelReviewsQueryOptions(modelId));
 export const useReview = (reviewId: Id) => useQuery(reviewQueryOptions(reviewId));
 
 /** After any change to a review: the review, the lists, and the model's review state (hangar, model page). */
@@ -67,7 +89,7 @@ export interface RequestReviewInput {
 }
 
 export async function requestReview({ revisionId, ...body }: RequestReviewInput): Promise<ReviewSummary> {
-  return (await api.post<ReviewSummary>(`/api/revisions/${encodeURIComponent(revisionId)}/reviews`, body)).data;
+  return (await api.post<ReviewSummary>(paths.revisionReviews(revisionId), body)).data;
 }
 
 export function useRequestReview() {
@@ -84,12 +106,8 @@ export async function giveVerdict(
   reviewId: Id,
   input: VerdictInput,
 ): Promise<VerdictEntry & { review: { id: Id; state: string } }> {
-  return (
-    await api.post<VerdictEntry & { review: { id: Id; state: string } }>(
-      `/api/reviews/${encodeURIComponent(reviewId)}/verdicts`,
-      input,
-    )
-  ).data;
+  return (await api.post<VerdictEntry & { review: { id: Id; state: string } }>(paths.reviewVerdicts(reviewId), input))
+    .data;
 }
 
 export function useGiveVerdict(review: Pick<ReviewDetail, 'id' | 'workspace_id' | 'model'>) {
@@ -101,8 +119,7 @@ export function useGiveVerdict(review: Pick<ReviewDetail, 'id' | 'workspace_id' 
 }
 
 export async function tickItem(reviewId: Id, item: string, ticked: boolean): Promise<ChecklistEntry[]> {
-  return (await api.post<ChecklistEntry[]>(`/api/reviews/${encodeURIComponent(reviewId)}/checklist`, { item, ticked }))
-    .data;
+  return (await api.post<ChecklistEntry[]>(paths.reviewChecklist(reviewId), { item, ticked })).data;
 }
 
 /** Ticks at once on screen (a checkbox must answer the click), set right by the server's answer or undone on failure. */
@@ -133,7 +150,7 @@ export function useTickItem(review: Pick<ReviewDetail, 'id'>) {
 }
 
 export async function addComment(reviewId: Id, input: { path?: string; body: string }): Promise<CommentEntry> {
-  return (await api.post<CommentEntry>(`/api/reviews/${encodeURIComponent(reviewId)}/comments`, input)).data;
+  return (await api.post<CommentEntry>(paths.reviewComments(reviewId), input)).data;
 }
 
 export function useAddComment(review: Pick<ReviewDetail, 'id' | 'workspace_id'>) {

@@ -2,12 +2,13 @@ import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/r
 import type { ClubRulesView } from '@shared/contract/club-rules';
 import type { ClubRules } from '@shared/rules/club-rules';
 import { api } from '../../../lib/api-client';
+import { paths } from '../../../lib/api-paths';
 import type { Id } from '../../../types/api';
 
 export const clubRulesQueryKey = (workspaceId: Id) => ['club-rules', workspaceId] as const;
 
 export async function getClubRules(workspaceId: Id, signal?: AbortSignal): Promise<ClubRulesView> {
-  return (await api.get<ClubRulesView>(`/api/workspaces/${encodeURIComponent(workspaceId)}/rules`, signal)).data;
+  return (await api.get<ClubRulesView>(paths.workspaceRules(workspaceId), signal)).data;
 }
 
 export function clubRulesQueryOptions(workspaceId: Id) {
@@ -22,7 +23,7 @@ export function useClubRules(workspaceId: Id) {
 }
 
 export async function putClubRules(workspaceId: Id, rules: ClubRules): Promise<ClubRulesView> {
-  return (await api.put<ClubRulesView>(`/api/workspaces/${encodeURIComponent(workspaceId)}/rules`, rules)).data;
+  return (await api.put<ClubRulesView>(paths.workspaceRules(workspaceId), rules)).data;
 }
 
 /**

@@ -13,9 +13,12 @@ import { useClubRules, useSaveClubRules } from '../api/club-rules';
 const SEVERITY_WORDS: Record<RuleSeverity, string> = {
   error: 'error (do not fly)',
   warning: 'warning',
-  info: 'info',
+  // The format's severity `info` is a note on every screen.
+  info: 'note',
   off: 'off (not checked)',
 };
+
+const SHORT_WORDS: Record<string, string> = { info: 'note' };
 
 // An error is never lowered: its only choice is to stay an error.
 const choicesFor = (own: string): RuleSeverity[] => (own === 'error' ? ['error'] : [...RULE_SEVERITIES]);
@@ -26,7 +29,7 @@ function changesBetween(before: ClubRules, after: ClubRules, defaults: Record<st
   for (const id of [...ids].sort()) {
     const from = before.severities[id] ?? defaults[id];
     const to = after.severities[id] ?? defaults[id];
-    if (from !== to) lines.push(`${id}: ${from} → ${to}`);
+    if (from !== to) lines.push(`${id}: ${SHORT_WORDS[from] ?? from} → ${SHORT_WORDS[to] ?? to}`);
   }
   const a = before.approvals;
   const b = after.approvals;
@@ -90,7 +93,7 @@ function RulesForm({ view, workspaceId, owner }: { view: ClubRulesView; workspac
       </h2>
       <p className="mt-1 max-w-prose text-sm text-ink-700">
         Every check, compare, review, hangar count and field sheet in this workspace follows these rules. A club may
-        raise any check and lower warnings and infos; an error is never lowered, as errors mean “do not fly”. Local
+        raise any check and lower warnings and notes; an error is never lowered, as errors mean “do not fly”. Local
         rules and your national model-flying body come first.
       </p>
 
