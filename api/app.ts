@@ -26,6 +26,8 @@ import { receiversRouter } from './routes/receivers';
 import { fieldSheetRouter } from './routes/field-sheet';
 import { accountRouter } from './routes/account';
 import { portabilityRouter } from './routes/portability';
+import { lineageRouter } from './routes/lineage';
+import { clubRulesRouter } from './routes/club-rules';
 import { corsIfConfigured } from './security/cors';
 import { csrfGuard } from './security/csrf';
 
@@ -97,6 +99,8 @@ export function createApp(context: AppContext): Express {
   api.use(modelsRouter(context));
   api.use(revisionsRouter(context));
   api.use(compareRouter(context));
+  api.use(lineageRouter(context));
+  api.use(clubRulesRouter(context));
   api.use(auditRouter(context));
   api.use(teamRouter(context));
   api.use(invitationsRouter(context));

@@ -12,6 +12,8 @@ export interface Finding {
   column: number;
   /** The pilot's reason, when the setup's `accepted` list accepts this warning or info. */
   accepted?: string;
+  /** Set when a club rule changed the check's severity: "club rule: warning raised to error". */
+  club_rule?: string;
 }
 
 export interface FindingCounts {

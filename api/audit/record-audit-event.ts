@@ -12,6 +12,7 @@ export const AUDIT_ACTIONS = [
   'revision.saved',
   'revision.uploaded',
   'revision.reverted',
+  'revision.merged',
   'tag.added',
   'tag.removed',
   'member.invited',
@@ -28,6 +29,7 @@ export const AUDIT_ACTIONS = [
   'receiver.installed',
   'receiver.removed',
   'receiver.settings-applied',
+  'rules.changed',
 ] as const;
 export type AuditAction = (typeof AUDIT_ACTIONS)[number];
 
@@ -35,7 +37,7 @@ export interface AuditEntry {
   workspaceId: string;
   actor: User | null;
   action: AuditAction;
-  subjectType: 'model' | 'revision' | 'tag' | 'invitation' | 'member' | 'review' | 'receiver';
+  subjectType: 'model' | 'revision' | 'tag' | 'invitation' | 'member' | 'review' | 'receiver' | 'workspace';
   subjectId: string | null;
   details?: Record<string, unknown>;
   createdAt?: Date;

@@ -3,11 +3,11 @@ import { Unprocessable } from '../errors';
 import { appLink } from '../mail/context';
 import type { MailService } from '../mail/mail-service';
 import { verdictMail } from '../mail/messages';
-import { ChecklistTick, Review, ReviewVerdict, User } from '../models';
+import { ChecklistTick, Review, ReviewVerdict, rulesOf, User } from '../models';
 import type { Verdict } from '../models/ReviewVerdict';
 import { PRE_MAIDEN_CHECKLIST } from '../reviews/checklist';
 import { approvalRefusal } from '../reviews/approval-refusal';
-import { reviewStateFromVerdicts } from '../reviews/sign-off';
+import { reviewStateFromVerdicts, signOffRuleFor } from '../reviews/sign-off';
 import type { GrantedReview } from '../access/records';
 import { recordAuditEvent } from '../audit/record-audit-event';
 import { setTicks } from './tick-checklist';
@@ -54,7 +54,8 @@ export async function giveVerdict(
       attributes: ['reviewerId', 'verdict', 'createdAt'],
       transaction,
     });
-    const next = reviewStateFromVerdicts(all);
+    const rules = await rulesOf(review.workspaceId, transaction);
+    const next = reviewStateFromVerdicts(all, signOffRuleFor(rules.approvals, review, revision.document));
     await review.update({ state: next.state, decidedAt: next.decidedAt }, { transaction });
     await recordAuditEvent(
       {

@@ -1,9 +1,10 @@
 import { QueryTypes, type Sequelize } from 'sequelize';
 import { ROLES, roleAtLeast, type Role } from '@shared/contract/roles';
 import { NotFound, roleTooLow } from '../errors';
-import { Revision, type User } from '../models';
+import { followClubRules, Revision, type User } from '../models';
 import type { RevisionOrigin } from '../models/Revision';
 import { MODEL_POLICY } from '../policies/model';
+import { recordChanges } from '../provenance/record-changes';
 import { idSchema } from '../validation';
 import type { AuditAction } from '../audit/record-audit-event';
 import { requireLatestBase } from '../revisions/check-base';
@@ -47,6 +48,12 @@ interface SaveOutcome {
  * that does not exist or is another workspace's, 403 for a role below editor, 409
  * `stale-base` when another save came first. The answer is built from what was sent
  * and the few columns the database made (id, time), never read back.
+ *
+ * The changed settings (provenance) are recorded right after, in a transaction of
+ * their own: the function has committed by then. recordChanges works from the
+ * model's recorded progress, so if that second step never happens the revision is
+ * simply not yet recorded and the next provenance lookup computes it; provenance can
+ * be late, never wrong.
  */
 export async function saveRevisionAtOnce(sequelize: Sequelize, input: SaveAtOnceInput): Promise<Revision> {
   const notFound = new NotFound('No such model.', { code: 'model-not-found' });
@@ -114,5 +121,7 @@ export async function saveRevisionAtOnce(sequelize: Sequelize, input: SaveAtOnce
     { isNewRecord: false, raw: true },
   );
   revision.author = author;
+  await sequelize.transaction((transaction) => recordChanges(sequelize, modelId.data, transaction));
+  await followClubRules([revision]);
   return revision;
 }

@@ -17,6 +17,7 @@ import * as hangarAndShelfOrder from './0032-hangar-and-shelf-order';
 import * as modelArchive from './0050-model-archive';
 import * as saveFollowsModelName from './0059-save-follows-model-name';
 import * as receiverShortCodes from './0060-receiver-short-codes';
+import * as provenanceMergesClubRules from './0070-provenance-merges-club-rules';
 
 export interface MigrationModule {
   up: MigrationFn<MigrationContext>;
@@ -43,4 +44,5 @@ export const migrations: { name: string; module: MigrationModule }[] = [
   { name: '0050-model-archive', module: modelArchive },
   { name: '0059-save-follows-model-name', module: saveFollowsModelName },
   { name: '0060-receiver-short-codes', module: receiverShortCodes },
+  { name: '0070-provenance-merges-club-rules', module: provenanceMergesClubRules },
 ];

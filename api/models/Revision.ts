@@ -13,7 +13,7 @@ import type { SetupModel } from './SetupModel';
 import type { Tag } from './Tag';
 import type { User } from './User';
 
-export const REVISION_ORIGINS = ['create', 'save', 'upload', 'revert', 'fork'] as const;
+export const REVISION_ORIGINS = ['create', 'save', 'upload', 'revert', 'fork', 'merge'] as const;
 export type RevisionOrigin = (typeof REVISION_ORIGINS)[number];
 
 /**

@@ -15,12 +15,17 @@ import { ReviewComment } from './ReviewComment';
 import { ChecklistTick } from './ChecklistTick';
 import { Receiver } from './Receiver';
 import { ReceiverInstall } from './ReceiverInstall';
+import { ClubRules } from './ClubRules';
+import { followClubRules } from './follow-club-rules';
 
 export { Membership, User, Workspace };
 export { SetupModel, Revision, Tag, AuditEvent };
 export { OutboxMessage, Invitation, PasswordReset };
 export { Review, ReviewVerdict, ReviewComment, ChecklistTick };
 export { Receiver, ReceiverInstall };
+export { ClubRules };
+export { rulesOf, rulesByModel } from './ClubRules';
+export { followClubRules } from './follow-club-rules';
 
 let boundTo: Sequelize | null = null;
 
@@ -40,6 +45,12 @@ export function initModels(sequelize: Sequelize): void {
 
   SetupModel.initModel(sequelize);
   Revision.initModel(sequelize);
+  ClubRules.initModel(sequelize);
+  // Every revision read follows its club's rules in force now (see follow-club-rules).
+  Revision.addHook('afterFind', 'followClubRules', async (found: Revision | Revision[] | null, options) => {
+    const list = Array.isArray(found) ? found : found ? [found] : [];
+    await followClubRules(list, options.transaction);
+  });
   Tag.initModel(sequelize);
   AuditEvent.initModel(sequelize);
   SetupModel.belongsTo(Workspace, { as: 'workspace', foreignKey: 'workspaceId' });
@@ -70,6 +81,12 @@ export function initModels(sequelize: Sequelize): void {
   ReceiverInstall.belongsTo(User, { as: 'installer', foreignKey: 'installedBy' });
   ReceiverInstall.belongsTo(User, { as: 'remover', foreignKey: 'removedBy' });
   Review.initModel(sequelize);
+  // A review's revision is read as an include, which the Revision hook does not see.
+  Review.addHook('afterFind', 'followClubRules', async (found: Review | Review[] | null, options) => {
+    const list = Array.isArray(found) ? found : found ? [found] : [];
+    const revisions = list.flatMap((review) => (review.revision ? [review.revision] : []));
+    await followClubRules(revisions, options.transaction);
+  });
   ReviewVerdict.initModel(sequelize);
   ReviewComment.initModel(sequelize);
   ChecklistTick.initModel(sequelize);

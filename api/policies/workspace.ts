@@ -2,12 +2,15 @@ import type { Role } from '@shared/contract/roles';
 import { needsRole, type Decision } from './decision';
 
 // The workspace itself and its team. Everyone in it sees it and its members; owners
-// rename it, invite, change roles and remove people; anyone may leave.
+// rename it, invite, change roles and remove people; anyone may leave. Every member
+// reads the club's rules; owners set them.
 export const WORKSPACE_POLICY = {
   read: 'viewer',
   rename: 'owner',
   'read-members': 'viewer',
   'manage-team': 'owner',
+  'read-rules': 'viewer',
+  'set-rules': 'owner',
 } as const satisfies Record<string, Role>;
 
 export type WorkspaceAction = keyof typeof WORKSPACE_POLICY | 'remove-member';

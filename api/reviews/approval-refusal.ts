@@ -1,5 +1,5 @@
 import { Forbidden, Unprocessable } from '../errors';
-import type { User } from '../models';
+import { rulesOf, type User } from '../models';
 import type { ReviewAccess } from '../access/records';
 import { contributorsOf } from './contributors';
 
@@ -21,6 +21,12 @@ export async function approvalRefusal(
       `You wrote part of what revision ${revision.number} would sign off (a revision since the last approved setup, or one with this same content), so you cannot approve it: ask another reviewer.`,
       { code: 'own-change' },
     );
+  }
+  const { approvals } = await rulesOf(access.review.workspaceId);
+  if (approvals.named_reviewers_only && !access.review.reviewerIds.includes(user.id)) {
+    return new Forbidden('The club’s rules let only the reviewers named on this review approve it.', {
+      code: 'not-a-named-reviewer',
+    });
   }
   if (revision.errorCount > 0) {
     return new Unprocessable(

@@ -1,3 +1,4 @@
+import { approvalsNeeded, signOffFacts, type ApprovalRules } from '@shared/rules/club-rules';
 import type { ReviewRequestState } from '../models/Review';
 import type { Verdict } from '../models/ReviewVerdict';
 import type { ReviewState } from '../review-state';
@@ -13,12 +14,26 @@ export interface VerdictFact {
   createdAt: Date;
 }
 
+/** What the club's rules ask of a sign-off (docs/design.md, club rules). */
+export interface SignOffRule {
+  /** Approvals needed, 1 to 3. */
+  needed: number;
+  /** When set, only approvals by these reviewers count. */
+  approvers: readonly string[] | null;
+}
+
+export const ONE_APPROVAL: SignOffRule = { needed: 1, approvers: null };
+
 /**
  * A review's own state: each reviewer's latest approve or request-changes counts
- * (comments do not); one outstanding request for changes outweighs approvals, and one
- * approval without such a request is a sign-off.
+ * (comments do not); one outstanding request for changes outweighs approvals, and as
+ * many approvals as the club's rule asks (one by default) without such a request are
+ * a sign-off.
  */
-export function reviewStateFromVerdicts(verdicts: readonly VerdictFact[]): {
+export function reviewStateFromVerdicts(
+  verdicts: readonly VerdictFact[],
+  rule: SignOffRule = ONE_APPROVAL,
+): {
   state: ReviewRequestState;
   decidedAt: Date | null;
 } {
@@ -30,8 +45,10 @@ export function reviewStateFromVerdicts(verdicts: readonly VerdictFact[]): {
   const newest = (facts: VerdictFact[]) => new Date(Math.max(...facts.map((fact) => fact.createdAt.getTime())));
   const objections = decisive.filter((fact) => fact.verdict === 'request-changes');
   if (objections.length > 0) return { state: 'changes-requested', decidedAt: newest(objections) };
-  const approvals = decisive.filter((fact) => fact.verdict === 'approve');
-  if (approvals.length > 0) return { state: 'approved', decidedAt: newest(approvals) };
+  const approvals = decisive.filter(
+    (fact) => fact.verdict === 'approve' && (rule.approvers === null || rule.approvers.includes(fact.reviewerId)),
+  );
+  if (approvals.length >= rule.needed) return { state: 'approved', decidedAt: newest(approvals) };
   return { state: 'open', decidedAt: null };
 }
 
@@ -62,4 +79,16 @@ export function modelReviewState(
   if (current.some((review) => review.state === 'open')) return 'pending';
   if (reviews.some((review) => review.state === 'approved')) return 'stale';
   return 'none';
+}
+
+/** The sign-off rule for one review under the club's approval rules and the reviewed setup. */
+export function signOffRuleFor(
+  approvals: ApprovalRules,
+  review: { reviewerIds: readonly string[] },
+  document: unknown,
+): SignOffRule {
+  return {
+    needed: approvalsNeeded(approvals, signOffFacts(document)),
+    approvers: approvals.named_reviewers_only ? review.reviewerIds : null,
+  };
 }

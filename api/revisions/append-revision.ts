@@ -1,7 +1,8 @@
 import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
 import { auditBindings, auditInsertSql, type AuditAction } from '../audit/record-audit-event';
-import { Revision, type User } from '../models';
+import { followClubRules, Revision, type User } from '../models';
 import type { RevisionOrigin } from '../models/Revision';
+import { recordChanges } from '../provenance/record-changes';
 import { airframeOf, type CheckedSetup } from './check-setup';
 import { followModelName } from './follow-name';
 import type { LockedModel } from './lock-model';
@@ -98,12 +99,14 @@ export async function appendRevision(
     type: QueryTypes.SELECT,
     transaction,
   });
+  await recordChanges(sequelize, model.id, transaction);
   // raw: a built instance that is not new ignores writes to its timestamps otherwise.
   const revision = Revision.build(
     { ...values, id: row.id, createdAt: new Date(row.created_at) },
     { isNewRecord: false, raw: true },
   );
   revision.author = input.author;
+  await followClubRules([revision], transaction);
   model.set?.({ airframe, updatedAt: revision.createdAt }, { raw: true });
   if (input.followName) await followModelName(sequelize, locked, data, input.author, revision, transaction);
   return revision;

@@ -14,7 +14,7 @@ import type { Role } from '@shared/contract/roles';
 export type Access = 'public' | 'signed-in' | Role;
 
 export interface RouteEntry {
-  method: 'GET' | 'POST' | 'PATCH' | 'DELETE';
+  method: 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE';
   /** As registered under /api, with Express parameters (`:id`). */
   path: string;
   access: Access;
@@ -132,6 +132,22 @@ export const ROUTE_TABLE: readonly RouteEntry[] = [
   { method: 'POST', path: '/api/receivers/:id/remove', access: 'editor' },
   { method: 'POST', path: '/api/receivers/:id/apply', access: 'editor' },
   { method: 'GET', path: '/api/receivers/:id/history', access: 'viewer' },
+
+  { method: 'GET', path: '/api/models/:id/provenance', access: 'viewer' },
+  {
+    method: 'GET',
+    path: '/api/models/:id/source-updates',
+    access: 'viewer',
+    note: 'a fork only; the caller must also read the source',
+  },
+  {
+    method: 'POST',
+    path: '/api/models/:id/source-updates',
+    access: 'editor',
+    note: 'a fork only; the caller must also read the source',
+  },
+  { method: 'GET', path: '/api/workspaces/:ws/rules', access: 'viewer' },
+  { method: 'PUT', path: '/api/workspaces/:ws/rules', access: 'owner' },
 ];
 
 export const routeKey = (entry: { method: string; path: string }): string => `${entry.method} ${entry.path}`;

@@ -10,7 +10,7 @@ export type { ReviewState };
 /** Records are keyed by UUID. */
 export type Id = string;
 
-export type RevisionOrigin = 'create' | 'save' | 'upload' | 'revert' | 'fork';
+export type RevisionOrigin = 'create' | 'save' | 'upload' | 'revert' | 'fork' | 'merge';
 
 export interface Author {
   id: Id;

@@ -59,7 +59,8 @@ export interface ListMatch {
   renamed: Set<number>;
 }
 
-function segments(items: readonly unknown[], key: string): { segments: string[]; labels: string[] } {
+/** The path segment and short name of each entry of an identity-keyed list, in list order. */
+export function segments(items: readonly unknown[], key: string): { segments: string[]; labels: string[] } {
   const values = items.map((item) => identityValue(item, key));
   const total = new Map<string, number>();
   for (const value of values) if (value !== undefined) total.set(value, (total.get(value) ?? 0) + 1);

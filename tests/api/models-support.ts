@@ -35,6 +35,7 @@ export interface Client {
   get(url: string): request.Test;
   post(url: string, body?: object): request.Test;
   patch(url: string, body?: object): request.Test;
+  put(url: string, body?: object): request.Test;
   delete(url: string): request.Test;
   /** A multipart upload of `text` as field `file`, plus form fields. */
   upload(
@@ -59,6 +60,11 @@ export function clientFor(app: Express, config: AppConfig, user: User): Client {
     patch: (url, body) =>
       request(app)
         .patch(url)
+        .set(headers)
+        .send(body ?? {}),
+    put: (url, body) =>
+      request(app)
+        .put(url)
         .set(headers)
         .send(body ?? {}),
     delete: (url) => request(app).delete(url).set(headers),

@@ -1,3 +1,4 @@
+import { DEFAULT_CLUB_RULES } from '@shared/rules/club-rules';
 import { randomBytes } from 'node:crypto';
 import request from 'supertest';
 import { expect } from 'vitest';
@@ -81,7 +82,7 @@ export async function buildSampleWorld(t: MailTestApp): Promise<SampleWorld> {
     return bearer(tokenFor(user, t.config));
   };
   const send = async (method: string, call: Call, caller: Caller): Promise<request.Response> => {
-    const verb = method.toLowerCase() as 'get' | 'post' | 'patch' | 'delete';
+    const verb = method.toLowerCase() as 'get' | 'post' | 'put' | 'patch' | 'delete';
     const agent = request(t.app);
     let test = agent[verb](call.url).set(await headersOf(caller));
     if (call.upload) {
@@ -142,6 +143,12 @@ export async function buildSampleWorld(t: MailTestApp): Promise<SampleWorld> {
 
   const model = await freshModel();
   const modelId = model.id;
+  // A fork whose source gets a new revision before each merge, so every merge has something to take in.
+  const forkSource = await freshModel();
+  const forkId = (
+    await asOwner('post', `/api/models/${forkSource.id}/fork`, { number: 1, workspace: ws, name: fresh('Fork') })
+  ).body.data.model.id as string;
+  let sourceEdits = 0;
   const firstRevisionId = model.revisionId;
   const secondRevisionId: string = (
     await asOwner('post', `/api/models/${modelId}/revisions`, {
@@ -269,6 +276,21 @@ export async function buildSampleWorld(t: MailTestApp): Promise<SampleWorld> {
       body: { base: await latestNumber(modelId), yaml: TRAINER(), message: 'Matrix save' },
     }),
     'GET /api/models/:id/revisions': async () => ({ url: `/api/models/${modelId}/revisions` }),
+    'GET /api/models/:id/provenance': async () => ({ url: `/api/models/${modelId}/provenance` }),
+    'GET /api/models/:id/source-updates': async () => ({ url: `/api/models/${forkId}/source-updates` }),
+    'POST /api/models/:id/source-updates': async () => {
+      sourceEdits += 1;
+      await asOwner('post', `/api/models/${forkSource.id}/revisions`, {
+        base: await latestNumber(forkSource.id),
+        yaml: TRAINER().replace('expo: 30,', `expo: ${30 + sourceEdits},`),
+      });
+      return { url: `/api/models/${forkId}/source-updates`, body: { base: await latestNumber(forkId) } };
+    },
+    'GET /api/workspaces/:ws/rules': async () => ({ url: `/api/workspaces/${ws}/rules` }),
+    'PUT /api/workspaces/:ws/rules': async () => ({
+      url: `/api/workspaces/${ws}/rules`,
+      body: { severities: { 'telemetry-none': 'warning' }, approvals: DEFAULT_CLUB_RULES.approvals },
+    }),
     'GET /api/models/:id/revisions/:number': async () => ({ url: `/api/models/${modelId}/revisions/1` }),
     'POST /api/models/:id/revert': async () => ({
       url: `/api/models/${modelId}/revert`,

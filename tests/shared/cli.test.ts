@@ -186,3 +186,34 @@ describe('outputs', () => {
     TIMEOUT,
   );
 });
+
+describe('check --rules', () => {
+  it(
+    'applies a club’s rules file: a warning raised to an error says so and exits 1; a file lowering an error exits 2',
+    async () => {
+      const plain = await run('check', [fixture('invalid/failsafe-unset.yaml'), '--json']);
+      expect(plain.code).toBe(0);
+      const ruled = await run('check', [
+        fixture('invalid/failsafe-unset.yaml'),
+        '--rules',
+        fixture('rules/strict-club.yaml'),
+        '--json',
+      ]);
+      expect(ruled.code).toBe(1);
+      const answer = JSON.parse(ruled.stdout);
+      expect(answer.findings.find((f: { rule: string }) => f.rule === 'failsafe-unset')).toMatchObject({
+        severity: 'error',
+        club_rule: 'club rule: warning raised to error',
+      });
+      expect(answer.errors).toBe(JSON.parse(plain.stdout).errors + 1);
+      const refused = await run('check', [
+        fixture('invalid/failsafe-unset.yaml'),
+        '--rules',
+        fixture('rules/lowers-an-error.yaml'),
+      ]);
+      expect(refused.code).toBe(2);
+      expect(refused.stderr).toContain('failsafe-throttle');
+    },
+    TIMEOUT,
+  );
+});

@@ -46,6 +46,10 @@ const FieldSheetScreen = lazyScreen(
   () => import('../features/field-sheet/components/field-sheet-screen'),
   'FieldSheetScreen',
 );
+const SourceUpdatesScreen = lazyScreen(
+  () => import('../features/lineage/components/source-updates-screen'),
+  'SourceUpdatesScreen',
+);
 const ModelSettingsScreen = lazyScreen(
   () => import('../features/model-settings/components/model-settings-screen'),
   'ModelSettingsScreen',
@@ -128,6 +132,7 @@ export const routes: RouteObject[] = [
             children: [
               { index: true, element: <Navigate to="overview" replace /> },
               ...modelScreens.map(({ path, element }) => ({ path, element })),
+              { path: 'source-updates', element: <SourceUpdatesScreen /> },
             ],
           },
           ...devScreens.map(({ path, element }) => ({ path, element })),

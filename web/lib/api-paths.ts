@@ -56,6 +56,7 @@ export const paths = {
   workspaceImport: (workspaceId: string) => `${workspace(workspaceId)}/import`,
   workspaceImports: (workspaceId: string) => `${workspace(workspaceId)}/imports`,
   workspaceImportJob: (workspaceId: string, jobId: string) => `${workspace(workspaceId)}/imports/${seg(jobId)}`,
+  workspaceRules: (workspaceId: string) => `${workspace(workspaceId)}/rules`,
 
   model: (modelId: string) => model(modelId),
   modelArchive: (modelId: string, archived: boolean) => `${model(modelId)}/${archived ? 'archive' : 'unarchive'}`,
@@ -67,6 +68,8 @@ export const paths = {
   modelFork: (modelId: string) => `${model(modelId)}/fork`,
   modelReviews: (modelId: string, query?: Query) => withQuery(`${model(modelId)}/reviews`, query),
   modelExport: (modelId: string) => `${model(modelId)}/export.git`,
+  modelProvenance: (modelId: string, query?: Query) => withQuery(`${model(modelId)}/provenance`, query),
+  modelSourceUpdates: (modelId: string) => `${model(modelId)}/source-updates`,
 
   revision: (revisionId: string, query?: Query) => withQuery(revision(revisionId), query),
   revisionTags: (revisionId: string) => `${revision(revisionId)}/tags`,

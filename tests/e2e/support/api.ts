@@ -8,6 +8,7 @@ import { baseUrl, DEMO_PASSWORD, DEMO_WORKSPACE_NAME, type DemoAccount } from '.
 export interface ApiClient {
   get<T>(path: string): Promise<T>;
   post<T>(path: string, body: unknown): Promise<T>;
+  put<T>(path: string, body: unknown): Promise<T>;
 }
 
 async function call<T>(method: string, path: string, token: string | null, body?: unknown): Promise<T> {
@@ -33,6 +34,7 @@ export async function apiAs(account: DemoAccount): Promise<ApiClient> {
   return {
     get: (path) => call('GET', path, token),
     post: (path, body) => call('POST', path, token, body),
+    put: (path, body) => call('PUT', path, token, body),
   };
 }
 

@@ -1,10 +1,21 @@
 import { screen, within } from '@testing-library/react';
 import { CLUB, apiError, demoUser, fakeServer, sessionRoutes } from '../fake-server';
 import { renderApp } from '../render-app';
+import { DEFAULT_CLUB_RULES } from '@shared/rules/club-rules';
 
-// An owner's Team screen also reads the pending invitations and the activity.
+// An owner's Team screen also reads the pending invitations, the activity and the club rules.
 const ownerExtras = {
   [`GET /api/workspaces/${CLUB}/invitations`]: () => ({ body: { data: [] } }),
+  [`GET /api/workspaces/${CLUB}/rules`]: () => ({
+    body: {
+      data: {
+        ...DEFAULT_CLUB_RULES,
+        defaults: { 'failsafe-unset': 'warning', 'failsafe-throttle': 'error' },
+        updated_at: null,
+        history: [],
+      },
+    },
+  }),
   [`GET /api/workspaces/${CLUB}/audit`]: () => ({ body: { data: [], pagination: { total: 0 } } }),
 };
 

@@ -115,6 +115,13 @@ function describe(event: AuditEvent, workspaceId: Id): Omit<AuditLine, 'model'> 
       return { text: `took a receiver out of ${quoted(d.model_name)}`, link: receiver };
     case 'receiver.settings-applied':
       return { text: `recorded the settings changed on a receiver for ${quoted(d.model_name)}`, link: receiver };
+    case 'revision.merged':
+      return {
+        text: `took in revision ${str(d.source_number)} of the source as revision ${str(d.number)}`,
+        link: model(modelId, 'history'),
+      };
+    case 'rules.changed':
+      return { text: 'changed the club rules', link: null };
     default:
       return { text: event.action.replace(/[._-]/g, ' '), link: null };
   }

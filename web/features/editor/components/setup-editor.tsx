@@ -381,7 +381,12 @@ export function SetupEditor({ model, initialBase, restoredText, canEdit, role }:
           refused={stale.refused}
           mine={checked.text === text ? checked.analysis.data : analyzeSetup(text).data}
           onReapply={(revision) => standOn(revision, true)}
+          mineText={text}
           onLoadLatest={(revision) => standOn(revision, false)}
+          onMerge={(revision, merged) => {
+            standOn(revision, true);
+            setText(merged);
+          }}
           onDismiss={() => setStale(null)}
         />
       )}

@@ -1,6 +1,9 @@
 import { useId, useMemo, useState } from 'react';
 import { diffSetups } from '@shared/diff/diff-setups';
 import type { Change } from '@shared/diff/types';
+import { applyToText } from '@shared/lineage/apply-to-text';
+import { mergeSetups, type MergeSide } from '@shared/lineage/merge-setups';
+import { ConflictChoices } from '../../lineage/components/conflict-choices';
 import { Button } from '../../../components/ui/button';
 import { ErrorState } from '../../../components/ui/error-state';
 import { StaleIcon } from '../../../components/ui/icons';
@@ -15,11 +18,71 @@ export interface StaleBasePanelProps {
   stale: StaleBase;
   /** The plain value of the pilot's text now, null when it does not parse. */
   mine: unknown;
+  /** The pilot's text now. */
+  mineText: string;
   /** True when a save was refused; false when the newer revision was only noticed. */
   refused: boolean;
   onReapply: (latest: Revision) => void;
   onLoadLatest: (latest: Revision) => void;
+  /** The pilot's edits brought onto the latest revision: the merged text, to stand on `latest`. */
+  onMerge: (latest: Revision, text: string) => void;
   onDismiss: () => void;
+}
+
+/**
+ * The three-way merge a fork uses to take in its source, here for a stale tab: the
+ * changes saved meanwhile and the pilot's own, by identity path, with a choice for each
+ * setting both changed. The pilot's text keeps its comments and layout.
+ */
+function MergeOnLatest({
+  base,
+  latest,
+  mine,
+  mineText,
+  onMerge,
+}: {
+  base: EditorBase;
+  latest: Revision;
+  mine: unknown;
+  mineText: string;
+  onMerge: (latest: Revision, text: string) => void;
+}) {
+  const [choices, setChoices] = useState<Record<string, MergeSide>>({});
+  const conflicts = useMemo(
+    () => mergeSetups(base.document, mine, latest.document).conflicts,
+    [base.document, mine, latest.document],
+  );
+  const open = conflicts.filter((conflict) => !choices[conflict.path]);
+  const merge = () => {
+    const merged = mergeSetups(base.document, mine, latest.document, choices);
+    onMerge(latest, applyToText(mineText, mine, merged.data));
+  };
+  return (
+    <div className="mt-4 border-t border-caution-700/30 pt-4">
+      <h3 className="text-base font-semibold text-ink-900">Bring my edits onto revision {latest.number}</h3>
+      <p className="mt-1 max-w-prose text-sm text-ink-700">
+        Keeps every change saved meanwhile and every change of yours
+        {conflicts.length > 0
+          ? `; ${conflicts.length === 1 ? 'one setting was' : `${conflicts.length} settings were`} changed on both sides, so choose which to keep.`
+          : ', as no setting was changed on both sides.'}{' '}
+        The result opens in the editor for you to look over and save.
+      </p>
+      {conflicts.length > 0 && (
+        <div className="mt-3">
+          <ConflictChoices
+            conflicts={conflicts}
+            choices={choices}
+            onChoose={(path, side) => setChoices({ ...choices, [path]: side })}
+            oursLabel="mine"
+            theirsLabel={`revision ${latest.number}’s`}
+          />
+        </div>
+      )}
+      <Button className="mt-3" disabled={open.length > 0} onClick={merge}>
+        Bring my edits onto revision {latest.number}
+      </Button>
+    </div>
+  );
 }
 
 const SHOWN = 8;
@@ -63,9 +126,11 @@ export function StaleBasePanel({
   base,
   stale,
   mine,
+  mineText,
   refused,
   onReapply,
   onLoadLatest,
+  onMerge,
   onDismiss,
 }: StaleBasePanelProps) {
   const latest = useRevision(stale.latestId);
@@ -100,7 +165,7 @@ export function StaleBasePanel({
       <p className="mt-1 max-w-prose text-base text-ink-700">
         Your edit started from revision {base.number}; the latest is revision {stale.latest}
         {latest.data?.author ? `, saved by ${latest.data.author.name}` : ''}
-        {latest.data?.message ? ` (“${latest.data.message}”)` : ''}. Nothing was merged: look at both lists, then
+        {latest.data?.message ? ` (“${latest.data.message}”)` : ''}. Nothing was merged yet: look at both lists, then
         choose.
       </p>
       {!stale.latestId ? null : latest.isPending ? (
@@ -129,8 +194,15 @@ export function StaleBasePanel({
           </div>
         )
       )}
+      {latest.data && mine !== null && (
+        <MergeOnLatest base={base} latest={latest.data} mine={mine} mineText={mineText} onMerge={onMerge} />
+      )}
       <div className="mt-4 flex flex-wrap gap-2">
-        <Button disabled={!latest.data} onClick={() => latest.data && onReapply(latest.data)}>
+        <Button
+          variant={latest.data && mine !== null ? 'secondary' : 'primary'}
+          disabled={!latest.data}
+          onClick={() => latest.data && onReapply(latest.data)}
+        >
           Load revision {stale.latest} and re-apply my text
         </Button>
         <Button variant="secondary" disabled={!latest.data} onClick={() => latest.data && onLoadLatest(latest.data)}>

@@ -7,6 +7,7 @@ import { exactTime } from '../../models/format-time';
 import { MarkLabel } from '../../shelf/components/mark-label';
 import type { FieldSheet as Sheet } from '../types';
 import { SheetPinTable } from './sheet-pin-table';
+import { useProvenance } from '../../provenance/api/get-provenance';
 
 function Fact({ label, children }: { label: string; children: React.ReactNode }) {
   return (
@@ -19,6 +20,7 @@ function Fact({ label, children }: { label: string; children: React.ReactNode })
 
 /** The sheet itself: what a pilot takes to the bench and the field, on screen and on paper. */
 export function FieldSheet({ sheet }: { sheet: Sheet }) {
+  const provenance = useProvenance(sheet.model.id, sheet.revision.id).data;
   const half = Math.ceil(sheet.channels.length / 2);
   const columns =
     sheet.channels.length > 8 ? [sheet.channels.slice(0, half), sheet.channels.slice(half)] : [sheet.channels];
@@ -127,7 +129,7 @@ export function FieldSheet({ sheet }: { sheet: Sheet }) {
                 <span className="text-ink-700">Unit: none on the shelf is installed here</span>
               )}
             </p>
-            <SheetPinTable receiver={receiver} />
+            <SheetPinTable receiver={receiver} provenance={provenance} />
           </section>
         ))}
       </div>

@@ -1,7 +1,9 @@
 import { describeFailsafe } from '@shared/reuse/stored-settings';
+import { SinceNote } from '../../provenance/components/since-note';
+import type { Provenance } from '../../provenance/since';
 import type { SheetReceiver } from '../types';
 
-export function SheetPinTable({ receiver }: { receiver: SheetReceiver }) {
+export function SheetPinTable({ receiver, provenance }: { receiver: SheetReceiver; provenance?: Provenance }) {
   return (
     <table className="w-full text-left text-sm">
       <caption className="sr-only">
@@ -36,10 +38,18 @@ export function SheetPinTable({ receiver }: { receiver: SheetReceiver }) {
         ) : (
           receiver.pins.map((pin) => (
             <tr key={pin.pin}>
-              <td className="py-1 pr-2 font-mono">{pin.pin}</td>
+              <td className="py-1 pr-2 font-mono">
+                <SinceNote provenance={provenance} path={`receivers[id=${receiver.id}].map[pin=${pin.pin}]`}>
+                  {pin.pin}
+                </SinceNote>
+              </td>
               <td className="py-1 pr-2 font-mono">{pin.ch}</td>
               <td className="py-1 pr-2">{pin.function ?? <span className="text-ink-500">no plan entry</span>}</td>
-              <td className="py-1 pr-2 font-mono">{describeFailsafe(pin.failsafe)}</td>
+              <td className="py-1 pr-2 font-mono">
+                <SinceNote provenance={provenance} path={`receivers[id=${receiver.id}].map[pin=${pin.pin}].failsafe`}>
+                  {describeFailsafe(pin.failsafe)}
+                </SinceNote>
+              </td>
               <td className={pin.link_loss.kind === 'receiver-default' ? 'py-1 text-caution-700' : 'py-1'}>
                 {pin.link_loss.words}
               </td>

@@ -171,6 +171,7 @@ function FindingBody({ finding, linked = false }: { finding: Finding; linked?: b
             {linked && <span className="sr-only"> (opens in the editor)</span>}
           </span>
           <span className="font-mono">{finding.rule}</span>
+          {finding.club_rule && <span className="font-medium text-ink-700">{finding.club_rule}</span>}
         </p>
       </div>
     </div>

@@ -5,6 +5,7 @@ import { EmptyState } from '../../../components/ui/empty-state';
 import { ErrorState } from '../../../components/ui/error-state';
 import { LoadingState } from '../../../components/ui/loading-state';
 import { PageHeader } from '../../../components/ui/page-header';
+import { SourceUpdatesNotice } from '../../lineage/components/source-updates-notice';
 import { cx } from '../../../lib/cx';
 import { useSession } from '../../auth/hooks/use-session';
 import { useModel } from '../../models/api/get-model';
@@ -73,6 +74,11 @@ function History({ model }: { model: SetupModelView }) {
 
   return (
     <>
+      {model.forked_from?.readable && (
+        <div className="mb-4">
+          <SourceUpdatesNotice model={model} />
+        </div>
+      )}
       <div
         className={cx(
           'sticky top-0 z-10 mb-4 flex flex-wrap items-center gap-3 rounded-lg border border-ply-200 bg-paper/95 px-4 py-2.5 backdrop-blur',

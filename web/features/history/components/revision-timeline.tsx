@@ -14,6 +14,7 @@ const ORIGIN_WORDS: Partial<Record<RevisionOrigin, string>> = {
   upload: 'uploaded from a file',
   revert: 'a revert',
   fork: 'forked',
+  merge: 'took in the source’s changes',
 };
 
 export interface RevisionTimelineProps {

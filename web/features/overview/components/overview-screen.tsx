@@ -20,6 +20,9 @@ import { buildChannelPlan, MARK_WORDS, type MarkKind } from '../channel-plan';
 import { ChannelGrid } from './channel-grid';
 import { MARK_ICONS } from './mark-icons';
 import { ReceiverStrips } from './receiver-strips';
+import { MixList, mixesOf } from './mix-list';
+import { useProvenance } from '../../provenance/api/get-provenance';
+import { SourceUpdatesNotice } from '../../lineage/components/source-updates-notice';
 
 export function OverviewScreen() {
   const { modelId = '' } = useParams();
@@ -73,10 +76,12 @@ export function OverviewScreen() {
 function Overview({ model, revision }: { model: SetupModelView; revision: Revision }) {
   const plan = useMemo(() => buildChannelPlan(revision.document, revision.findings), [revision]);
   const marksUsed = new Set(plan.rows.flatMap((row) => row.marks.map((mark) => mark.kind)));
+  const provenance = useProvenance(model.id, revision.id).data;
 
   return (
     <div className="space-y-8">
       <Summary model={model} revision={revision} linkChannels={plan.linkChannels} receivers={plan.receivers.length} />
+      {model.forked_from?.readable && <SourceUpdatesNotice model={model} />}
 
       <section aria-labelledby="plan-heading">
         <div className="mb-3 flex flex-wrap items-baseline justify-between gap-2">
@@ -110,7 +115,17 @@ function Overview({ model, revision }: { model: SetupModelView; revision: Revisi
             The primary receiver is the main one bound to the transmitter; a secondary receiver is an extra one bound to
             the same transmitter for more pins, and usually leaves telemetry to the primary.
           </p>
-          <ReceiverStrips plan={plan} />
+          <p className="mb-3 text-sm text-ink-700">Hover or focus a pin or a failsafe to see which revision set it.</p>
+          <ReceiverStrips plan={plan} provenance={provenance} />
+        </section>
+      )}
+
+      {mixesOf(revision.document).length > 0 && (
+        <section aria-labelledby="mixes-heading">
+          <h2 id="mixes-heading" className="mb-3 text-xl font-semibold text-ink-900">
+            Mixes
+          </h2>
+          <MixList document={revision.document} provenance={provenance} />
         </section>
       )}
 

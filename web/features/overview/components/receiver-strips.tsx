@@ -1,10 +1,12 @@
 import { Card } from '../../../components/ui/card';
 import { cx } from '../../../lib/cx';
 import { failsafeText, type ChannelPlan, type PlanReceiver } from '../channel-plan';
+import { SinceNote } from '../../provenance/components/since-note';
+import type { Provenance } from '../../provenance/since';
 import { receiverName, TelemetryBadge } from './channel-grid';
 
 /** Each receiver as its row of output pins, the way it sits in the airframe: what every pin carries. */
-export function ReceiverStrips({ plan }: { plan: ChannelPlan }) {
+export function ReceiverStrips({ plan, provenance }: { plan: ChannelPlan; provenance?: Provenance }) {
   const functionsOf = (ch: number) => plan.rows.find((row) => row.ch === ch)?.functions.map((fn) => fn.function) ?? [];
   return (
     <div className="grid gap-4 lg:grid-cols-2">
@@ -14,6 +16,7 @@ export function ReceiverStrips({ plan }: { plan: ChannelPlan }) {
           receiver={receiver}
           functionsOf={functionsOf}
           linkChannels={plan.linkChannels}
+          provenance={provenance}
         />
       ))}
     </div>
@@ -24,10 +27,12 @@ function ReceiverStrip({
   receiver,
   functionsOf,
   linkChannels,
+  provenance,
 }: {
   receiver: PlanReceiver;
   functionsOf: (ch: number) => string[];
   linkChannels: number | null;
+  provenance?: Provenance;
 }) {
   const highest = Math.max(receiver.outputs ?? 0, ...receiver.map.map((entry) => entry.pin), 0);
   const pins = Array.from({ length: highest }, (_, index) => index + 1);
@@ -58,7 +63,13 @@ function ReceiverStrip({
                 beyondOutputs && 'border-danger-700 bg-danger-100',
               )}
             >
-              <span className="block font-medium">Pin {pin}</span>
+              <SinceNote
+                provenance={entries.length > 0 ? provenance : undefined}
+                path={`receivers[id=${receiver.id}].map[pin=${pin}]`}
+                className="block font-medium"
+              >
+                Pin {pin}
+              </SinceNote>
               {entries.length === 0 && <span className="block">free</span>}
               {entries.map((entry, index) => {
                 const names = functionsOf(entry.ch);
@@ -71,7 +82,13 @@ function ReceiverStrip({
                     <span className="block truncate" title={names.join(', ')}>
                       {names.length > 0 ? names.join(', ') : 'no function'}
                     </span>
-                    <span className="block text-ink-700">failsafe {failsafeText(entry.failsafe)}</span>
+                    <SinceNote
+                      provenance={provenance}
+                      path={`receivers[id=${receiver.id}].map[pin=${pin}].failsafe`}
+                      className="block text-ink-700"
+                    >
+                      failsafe {failsafeText(entry.failsafe)}
+                    </SinceNote>
                   </span>
                 );
               })}

@@ -1,6 +1,7 @@
 import { PageHeader } from '../../../components/ui/page-header';
 import { useCurrentWorkspace } from '../../workspaces/hooks/use-current-workspace';
 import { AuditList } from './audit-list';
+import { ClubRulesPanel } from './club-rules-panel';
 import { InviteForm } from './invite-form';
 import { MemberList } from './member-list';
 import { PendingInvitations } from './pending-invitations';
@@ -28,6 +29,9 @@ export function TeamScreen() {
           <PendingInvitations workspaceId={inUrl.id} />
         </div>
       )}
+      <section className="mt-8" aria-labelledby="rules-heading">
+        <ClubRulesPanel workspaceId={inUrl.id} owner={owner} />
+      </section>
       {owner && (
         <div className="mt-8">
           <AuditList workspaceId={inUrl.id} />
