@@ -10,6 +10,7 @@ import * as revokedSessions from './0007-revoked-sessions';
 import * as rateLimits from './0008-rate-limits';
 import * as importJobs from './0010-import-jobs';
 import * as compareCache from './0012-compare-cache';
+import * as reviewThreadsAndCarriedTicks from './0040-review-threads-and-carried-ticks';
 
 export interface MigrationModule {
   up: MigrationFn<MigrationContext>;
@@ -29,4 +30,5 @@ export const migrations: { name: string; module: MigrationModule }[] = [
   { name: '0008-rate-limits', module: rateLimits },
   { name: '0010-import-jobs', module: importJobs },
   { name: '0012-compare-cache', module: compareCache },
+  { name: '0040-review-threads-and-carried-ticks', module: reviewThreadsAndCarriedTicks },
 ];

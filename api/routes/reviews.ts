@@ -1,30 +1,38 @@
-import { Router } from 'express';
+import { Router, type Request, type Response } from 'express';
 import { Op } from 'sequelize';
 import { giveVerdict, setTicks } from '../commands/give-verdict';
-import { recordAuditEvent } from '../commands/record-audit-event';
+import { startThread, stepThread, type ThreadStep } from '../commands/comment-threads';
 import { requestReview } from '../commands/request-review';
 import type { AppContext } from '../context';
-import { Unprocessable } from '../errors';
 import { mailFor } from '../mail/context';
 import { authenticate, currentUser } from '../middleware/authenticate';
-import { ReviewComment, Workspace } from '../models';
+import { ReviewComment, Revision, Workspace } from '../models';
 import { authorizeModel, authorizeRevision, authorizeWorkspace } from '../policies/model';
-import { authorizeReview } from '../policies/review';
+import { authorizeComment, authorizeReview } from '../policies/review';
 import { presentVerdict } from '../presenters/review';
 import {
-  commentsShownOn,
   loadReviews,
-  presentCommentsOn,
   presentReviewList,
+  presentThreadsOn,
   reviewDetail,
+  threadsShownOn,
 } from '../queries/review-views';
-import { anchorExists, readAnchor } from '../reviews/anchor-path';
 import { parseInput } from '../validation';
-import { commentSchema, requestReviewSchema, reviewListQuery, tickSchema, verdictSchema } from './review-inputs';
+import {
+  commentListQuery,
+  commentSchema,
+  emptyBody,
+  replySchema,
+  requestReviewSchema,
+  reviewDetailQuery,
+  reviewListQuery,
+  tickSchema,
+  verdictSchema,
+} from './review-inputs';
 
 const STATUS_WHERE = { open: { state: 'open' }, closed: { state: { [Op.ne]: 'open' } }, all: {} } as const;
 
-/** Review requests, verdicts, the pre-maiden checklist and anchored comments. */
+/** Review requests, verdicts, the pre-maiden checklist and comment threads. */
 export function reviewsRouter(context: AppContext): Router {
   const { sequelize, config } = context;
   const router = Router();
@@ -64,8 +72,9 @@ export function reviewsRouter(context: AppContext): Router {
   });
 
   router.get('/reviews/:id', signedIn, async (req, res) => {
+    const { base } = parseInput(reviewDetailQuery, req.query, 'The comparison base is not valid.');
     const access = await authorizeReview(req, req.params.id, 'read');
-    res.json({ data: await reviewDetail(access, currentUser(req)) });
+    res.json({ data: await reviewDetail(access, currentUser(req), base) });
   });
 
   router.post('/reviews/:id/verdicts', signedIn, async (req, res) => {
@@ -76,6 +85,7 @@ export function reviewsRouter(context: AppContext): Router {
       verdict: input.verdict,
       body: input.body ?? '',
       checklist: input.checklist ?? {},
+      confirmLeftOpen: input.confirm_left_open ?? false,
     });
     res.status(201).json({
       data: {
@@ -97,63 +107,55 @@ export function reviewsRouter(context: AppContext): Router {
 
   router.post('/reviews/:id/comments', signedIn, async (req, res) => {
     const input = parseInput(commentSchema, req.body);
-    const access = await authorizeReview(req, req.params.id, 'comment');
-    const { review } = access;
-    if (input.path !== undefined) {
-      if (!readAnchor(input.path)) {
-        throw new Unprocessable(
-          'The path is not a semantic path Bindery can read, like receivers[id=wing].map[pin=3].',
-          { code: 'invalid-path', details: { fields: { path: 'Write the path like receivers[id=wing].map[pin=3].' } } },
-        );
-      }
-      if (!anchorExists(review.revision.document, input.path)) {
-        throw new Unprocessable(`Nothing in revision ${review.revision.number} is at ${input.path}.`, {
-          code: 'path-not-found',
-          details: { fields: { path: 'This path does not exist in the reviewed revision.' } },
-        });
-      }
-    }
-    const user = currentUser(req);
-    const comment = await sequelize.transaction(async (transaction) => {
-      const created = await ReviewComment.create(
-        {
-          reviewId: review.id,
-          revisionId: review.revision.id,
-          modelId: review.modelId,
-          path: input.path ?? null,
-          body: input.body,
-          authorId: user.id,
-        },
-        { transaction },
-      );
-      await recordAuditEvent(
-        {
-          workspaceId: review.workspaceId,
-          actor: user,
-          action: 'review.commented',
-          subjectType: 'review',
-          subjectId: review.id,
-          details: {
-            model_id: review.model.id,
-            model_name: review.model.name,
-            number: review.revision.number,
-            path: created.path,
-          },
-        },
-        transaction,
-      );
-      return created;
-    });
-    comment.revision = review.revision;
-    const [presented] = await presentCommentsOn(review.revision, [comment]);
+    const { review } = await authorizeReview(req, req.params.id, 'comment');
+    const thread = await startThread(
+      sequelize,
+      { workspaceId: review.workspaceId, model: review.model, revision: review.revision, reviewId: review.id },
+      currentUser(req),
+      { path: input.path ?? null, body: input.body },
+    );
+    const [presented] = await presentThreadsOn(review.revision, [thread]);
+    res.status(201).json({ data: presented });
+  });
+
+  // A thread on a revision outside any review, started from the Overview.
+  router.post('/revisions/:id/comments', signedIn, async (req, res) => {
+    const input = parseInput(commentSchema, req.body);
+    const { revision, model } = await authorizeRevision(req, req.params.id, 'comment', { full: true });
+    const thread = await startThread(
+      sequelize,
+      { workspaceId: model.workspaceId, model, revision, reviewId: null },
+      currentUser(req),
+      { path: input.path ?? null, body: input.body },
+    );
+    const [presented] = await presentThreadsOn(revision, [thread]);
     res.status(201).json({ data: presented });
   });
 
   router.get('/revisions/:id/comments', signedIn, async (req, res) => {
+    const { limit, offset, status } = parseInput(commentListQuery, req.query, 'The list parameters are not valid.');
     const { revision } = await authorizeRevision(req, req.params.id, 'read', { full: true });
-    const comments = await commentsShownOn(revision);
-    res.json({ data: await presentCommentsOn(revision, comments) });
+    const threads = await threadsShownOn(revision, status);
+    res.json({
+      data: await presentThreadsOn(revision, threads.slice(offset, offset + limit)),
+      pagination: { limit, offset, total: threads.length },
+    });
   });
+
+  const threadStep = (step: ThreadStep) => async (req: Request, res: Response) => {
+    const input = step === 'reply' ? parseInput(replySchema, req.body) : parseInput(emptyBody, req.body ?? {});
+    const { comment, workspace } = await authorizeComment(req, req.params.id, 'comment');
+    await stepThread(sequelize, comment.id, workspace.id, currentUser(req), step, 'body' in input ? input.body : '');
+    const [thread] = await ReviewComment.findAll({
+      where: { id: comment.parentId ?? comment.id },
+      include: [{ model: Revision, as: 'revision', attributes: ['id', 'number'] }],
+    });
+    const [presented] = await presentThreadsOn(comment.revision, [thread]);
+    res.status(step === 'reply' ? 201 : 200).json({ data: presented });
+  };
+  router.post('/comments/:id/replies', signedIn, threadStep('reply'));
+  router.post('/comments/:id/resolve', signedIn, threadStep('resolve'));
+  router.post('/comments/:id/reopen', signedIn, threadStep('reopen'));
 
   return router;
 }

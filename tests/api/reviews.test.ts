@@ -50,8 +50,14 @@ async function reviewOf(revisionId: string, reviewers: Client[] = [reviewer]): P
   return response.body.data.id;
 }
 
-const verdict = (client: Client, reviewId: string, body: object) =>
-  client.post(`/api/reviews/${reviewId}/verdicts`, body);
+// Approvals here are about who may sign off, not about the checklist: they confirm
+// what is left, as the confirmation dialog does. The confirmation itself is tested
+// in "deliberate verdicts".
+const verdict = (client: Client, reviewId: string, body: { verdict: string } & Record<string, unknown>) =>
+  client.post(
+    `/api/reviews/${reviewId}/verdicts`,
+    body.verdict === 'approve' && !('confirm_left_open' in body) ? { ...body, confirm_left_open: true } : body,
+  );
 const modelState = async (modelId: string) =>
   (await author.get(`/api/models/${modelId}`).expect(200)).body.data as {
     review_state: string;
@@ -310,7 +316,7 @@ describe('the rules of sign-off', () => {
 });
 
 describe('the review page', () => {
-  it('compares with the parent when nothing is approved, then with the last approved revision', async () => {
+  it('compares with the previous revision when asked, and by default with the last approved revision', async () => {
     const { modelId, revision } = await scaleModel();
     const second1 = await saveVia(
       author,
@@ -320,8 +326,8 @@ describe('the review page', () => {
       'Landing light fails on',
     );
     const first = await reviewOf(second1.id);
-    const page = await viewer.get(`/api/reviews/${first}`).expect(200);
-    expect(page.body.data.base).toMatchObject({ kind: 'parent', revision: { id: revision.id, number: 1 } });
+    const page = await viewer.get(`/api/reviews/${first}?base=previous`).expect(200);
+    expect(page.body.data.base).toMatchObject({ kind: 'previous', revision: { id: revision.id, number: 1 } });
     expect(page.body.data.compare.changes).toEqual([
       expect.objectContaining({
         kind: 'changed',
