@@ -42,7 +42,7 @@ export interface PlanPin {
   pin: number;
   ch: number | null;
   function: string | null;
-  failsafe: Failsafe | null;
+  failsafe: NonNullable<Failsafe> | null;
   link_loss: SheetLinkLoss;
 }
 
@@ -76,7 +76,7 @@ const list = (value: unknown): Loose[] => (Array.isArray(value) ? value.map(reco
 const int = (value: unknown): number | null => (typeof value === 'number' && Number.isInteger(value) ? value : null);
 const num = (value: unknown): number | null => (typeof value === 'number' && Number.isFinite(value) ? value : null);
 const text = (value: unknown): string | null => (typeof value === 'string' ? value : null);
-const failsafeOf = (value: unknown): Failsafe | null =>
+const failsafeOf = (value: unknown): NonNullable<Failsafe> | null =>
   typeof value === 'number' || value === 'hold' || value === 'off' ? value : null;
 
 function statusOf(base: unknown, current: unknown, compared: boolean): PlanStatus {
