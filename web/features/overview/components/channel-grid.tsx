@@ -1,4 +1,5 @@
-import { Fragment } from 'react';
+import { Fragment, type ReactNode } from 'react';
+import type { ChosenSetting } from '../../reviews/components/review-plan';
 import { Badge } from '../../../components/ui/badge';
 import { Card } from '../../../components/ui/card';
 import { cx } from '../../../lib/cx';
@@ -19,8 +20,34 @@ export function TelemetryBadge({ receiver }: { receiver: PlanReceiver }) {
   );
 }
 
-/** Channels 1 to the link's count (and any used beyond it) against the receivers that carry them. */
-export function ChannelGrid({ plan }: { plan: ChannelPlan }) {
+/** A setting's name as a button that starts a comment on it, when the reader may comment. */
+function Choosable({
+  setting,
+  onChoose,
+  children,
+}: {
+  setting: ChosenSetting;
+  onChoose?: (setting: ChosenSetting) => void;
+  children: ReactNode;
+}) {
+  if (!onChoose) return <>{children}</>;
+  return (
+    <button
+      type="button"
+      onClick={() => onChoose(setting)}
+      aria-label={`Comment on ${setting.words}`}
+      className="cursor-pointer rounded-sm underline decoration-dotted underline-offset-2 hover:text-accent-800"
+    >
+      {children}
+    </button>
+  );
+}
+
+/**
+ * Channels 1 to the link's count (and any used beyond it) against the receivers that
+ * carry them. With `onChoose`, a channel's number and a pin start a comment on it.
+ */
+export function ChannelGrid({ plan, onChoose }: { plan: ChannelPlan; onChoose?: (setting: ChosenSetting) => void }) {
   const { rows, receivers, linkChannels } = plan;
   const columns = 3 + receivers.length;
 
@@ -65,7 +92,7 @@ export function ChannelGrid({ plan }: { plan: ChannelPlan }) {
                   </td>
                 </tr>
               )}
-              <ChannelRow row={row} receivers={receivers} />
+              <ChannelRow row={row} receivers={receivers} onChoose={onChoose} />
             </Fragment>
           ))}
         </tbody>
@@ -74,7 +101,15 @@ export function ChannelGrid({ plan }: { plan: ChannelPlan }) {
   );
 }
 
-function ChannelRow({ row, receivers }: { row: PlanRow; receivers: PlanReceiver[] }) {
+function ChannelRow({
+  row,
+  receivers,
+  onChoose,
+}: {
+  row: PlanRow;
+  receivers: PlanReceiver[];
+  onChoose?: (setting: ChosenSetting) => void;
+}) {
   const worst = row.marks.some((mark) => mark.finding.severity === 'error')
     ? 'error'
     : row.marks.length > 0
@@ -96,7 +131,9 @@ function ChannelRow({ row, receivers }: { row: PlanRow; receivers: PlanReceiver[
           worst === 'error' ? 'border-danger-700' : worst === 'warning' ? 'border-caution-700' : 'border-transparent',
         )}
       >
-        {row.ch}
+        <Choosable setting={{ path: `channels[ch=${row.ch}]`, words: `Channel ${row.ch}` }} onChoose={onChoose}>
+          {row.ch}
+        </Choosable>
       </th>
       <td className="px-3 py-2">
         {row.functions.length === 0 ? (
@@ -133,7 +170,15 @@ function ChannelRow({ row, receivers }: { row: PlanRow; receivers: PlanReceiver[
                     key={pin.pin}
                     className="rounded-sm border border-accent-700/30 bg-accent-50 px-1.5 py-0.5 text-sm text-ink-900"
                   >
-                    <span className="font-medium">Pin {pin.pin}</span>
+                    <Choosable
+                      setting={{
+                        path: `receivers[id=${receiver.id}].map[pin=${pin.pin}]`,
+                        words: `Pin ${pin.pin} of receiver ${receiver.id}`,
+                      }}
+                      onChoose={onChoose}
+                    >
+                      <span className="font-medium">Pin {pin.pin}</span>
+                    </Choosable>
                     <span className="ml-1 text-xs text-ink-700">failsafe {failsafeText(pin.failsafe)}</span>
                   </li>
                 ))}

@@ -4,6 +4,7 @@ import type { Id } from '../../../types/api';
 import type {
   BaseParam,
   ChecklistEntry,
+  CommentStatus,
   CommentThread,
   ReviewDetail,
   ReviewSummary,
@@ -178,20 +179,24 @@ export async function stepThread(threadId: Id, step: ThreadStep): Promise<Commen
 
 export const revisionThreadsQueryKey = (revisionId: Id) => ['revisions', revisionId, 'comments'] as const;
 
-/** The open threads shown on a revision (its own and those carried), for the editor and the Overview. */
-export async function listOpenThreads(revisionId: Id, signal?: AbortSignal): Promise<CommentThread[]> {
+/** The threads shown on a revision (its own and those carried), for the editor and the Overview. */
+export async function listThreads(
+  revisionId: Id,
+  status: CommentStatus,
+  signal?: AbortSignal,
+): Promise<CommentThread[]> {
   return (
     await api.get<CommentThread[]>(
-      `/api/revisions/${encodeURIComponent(revisionId)}/comments?status=open&limit=200`,
+      `/api/revisions/${encodeURIComponent(revisionId)}/comments?status=${status}&limit=200`,
       signal,
     )
   ).data;
 }
 
-export function useOpenThreads(revisionId: Id | null | undefined) {
+export function useRevisionThreads(revisionId: Id | null | undefined, status: CommentStatus) {
   return useQuery({
-    queryKey: revisionThreadsQueryKey(revisionId ?? ''),
-    queryFn: ({ signal }) => listOpenThreads(revisionId!, signal),
+    queryKey: [...revisionThreadsQueryKey(revisionId ?? ''), status],
+    queryFn: ({ signal }) => listThreads(revisionId!, status, signal),
     enabled: Boolean(revisionId),
   });
 }
