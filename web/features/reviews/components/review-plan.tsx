@@ -112,10 +112,11 @@ export function ReviewPlanView({
   return (
     <div className="space-y-5">
       <p className="flex flex-wrap items-center gap-2 text-base text-ink-900">
-        {name(
-          { path: 'link', words: 'The link' },
-          plan.link.channels === null ? 'The link' : `The link carries ${plan.link.channels} channels`,
-        )}
+        {/* The button says what its label says (the setting); the rest of the line describes it. */}
+        {name({ path: 'link', words: 'The link' }, 'The link')}
+        <span>
+          {plan.link.channels === null ? 'does not say its channel count' : `carries ${plan.link.channels} channels`}
+        </span>
         <StatusBadge status={plan.link.status} />
       </p>
 
@@ -174,10 +175,8 @@ export function ReviewPlanView({
             id={`plan-${receiver.id}`}
             className="mb-1 flex flex-wrap items-center gap-2 text-base font-semibold text-ink-900"
           >
-            {name(
-              { path: receiver.path, words: `Receiver ${receiver.id}` },
-              `${receiver.label ?? receiver.id} (${receiver.id})`,
-            )}
+            {name({ path: receiver.path, words: `Receiver ${receiver.id}` }, `Receiver ${receiver.id}`)}
+            {receiver.label && <span className="font-normal text-ink-700">{receiver.label}</span>}
             <StatusBadge status={receiver.status} />
           </h3>
           <p className="mb-2 text-sm text-ink-700">
