@@ -172,7 +172,7 @@ describe('journey: a reviewer signs off deliberately on the whole setup', () => 
     await page.keyboard.press('Enter');
     const dialog = page.getByRole('dialog', { name: 'Approve with these left open?' });
     await dialog.getByText('Battery charge').waitFor();
-    await dialog.getByText(/Pin 1 of receiver wing: .*no failsafe/).waitFor();
+    await dialog.getByText(/Pin 1 of receiver wing \(channel 9\) has no failsafe/).waitFor();
     await saveScreenshot(page, 'review-confirm-approval', { fullPage: false });
     await expectAccessible(page);
     // "Go back" has the focus; the next Tab reaches the approval.

@@ -18,7 +18,6 @@ import { TimeAgo } from '../../models/components/time-ago';
 import { SelectField } from '../../../components/ui/select-field';
 import { revisionsOf, useRevisions } from '../../models/api/list-revisions';
 import { useReview } from '../api/reviews';
-import { settingWords } from '../setting-words';
 import type { BaseParam, LeftOpen, ReviewDetail } from '../types';
 import { ChecklistPanel } from './checklist-panel';
 import { ReviewPlanView, type ChosenSetting } from './review-plan';
@@ -337,9 +336,7 @@ function LeftOpenNote({ left }: { left: LeftOpen }) {
           <li key={item.id}>Not ticked: {item.label}</li>
         ))}
         {left.warnings.map((warning) => (
-          <li key={`${warning.rule}:${warning.path}`}>
-            Warning on {settingWords(warning.path).toLowerCase()}: {warning.message}
-          </li>
+          <li key={`${warning.rule}:${warning.path}`}>Open warning: {warning.message}</li>
         ))}
       </ul>
     </div>

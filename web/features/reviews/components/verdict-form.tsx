@@ -10,7 +10,6 @@ import type { Id } from '../../../types/api';
 import { useSession } from '../../auth/hooks/use-session';
 import { TimeAgo } from '../../models/components/time-ago';
 import { useGiveVerdict } from '../api/reviews';
-import { settingWords } from '../setting-words';
 import type { LeftOpen, ReviewDetail, Verdict, VerdictEntry } from '../types';
 
 const CHOICES: { value: Verdict; label: string; hint: string }[] = [
@@ -225,9 +224,7 @@ function ConfirmApproval({
             </h3>
             <ul className="mt-1 list-disc pl-5 text-sm">
               {left.warnings.map((warning) => (
-                <li key={`${warning.rule}:${warning.path}`}>
-                  {settingWords(warning.path)}: {warning.message}
-                </li>
+                <li key={`${warning.rule}:${warning.path}`}>{warning.message}</li>
               ))}
             </ul>
           </section>
