@@ -38,13 +38,37 @@ const LAYERS = [
   },
   {
     target: './api/policies',
-    from: ['./api/routes', './api/commands', './api/queries'],
-    message: 'Policies are pure decisions.',
+    from: [
+      './api/routes',
+      './api/commands',
+      './api/queries',
+      './api/access',
+      './api/models',
+      './api/middleware',
+      './api/db',
+      './api/errors.ts',
+    ],
+    message: 'Policies are pure decisions of (role, action, record): no request, no SQL, no HTTP errors.',
+  },
+  {
+    target: './api/access',
+    from: ['./api/routes', './api/commands', './api/queries', './api/policies', './api/middleware'],
+    message: 'The loaders read records and memberships; deciding is for policies, answering for routes.',
   },
   {
     target: './api/presenters',
     from: ['./api/routes', './api/commands'],
     message: 'Presenters shape records; they do not command.',
+  },
+  {
+    target: './api/revisions',
+    from: ['./api/routes', './api/commands', './api/queries', './api/policies', './api/portability'],
+    message: 'The revision store (check, lock, base check, append) is called by commands and imports; it calls none.',
+  },
+  {
+    target: './api/audit',
+    from: ['./api/routes', './api/commands', './api/queries', './api/policies', './api/revisions', './api/portability'],
+    message: 'The audit recorder writes entries for whoever calls it; it depends on nobody above.',
   },
   {
     target: './api/portability',
@@ -83,6 +107,21 @@ export default tseslint.config(
       '@typescript-eslint/no-namespace': ['error', { allowDeclarations: true }],
       // Several patterns exist to find and refuse control characters in names and files.
       'no-control-regex': 'off',
+    },
+  },
+  {
+    // Policies decide on a role: they never see Express's request or the database.
+    files: ['api/policies/**/*.ts'],
+    rules: {
+      'no-restricted-imports': [
+        'error',
+        {
+          paths: ['express', 'sequelize'].map((name) => ({
+            name,
+            message: 'Policies are pure: the route loads the record and answers the refusal.',
+          })),
+        },
+      ],
     },
   },
   {

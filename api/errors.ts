@@ -41,6 +41,13 @@ export class Forbidden extends HttpError {
   }
 }
 
+/** The one wording of a role too low, for every guard and for the one-statement save. */
+export const roleTooLow = (required: string, role: string) =>
+  new Forbidden(`This needs the ${required} role or higher; your role here is ${role}.`, {
+    code: 'role-too-low',
+    details: { required, role },
+  });
+
 export class NotFound extends HttpError {
   constructor(message = 'Not found.', options?: HttpErrorOptions) {
     super(404, 'not-found', message, options);

@@ -1,6 +1,7 @@
 // npm run soak: the API under a mixed load for 60 seconds with PostgreSQL killed for
-// about 5 seconds in the middle. A throwaway cluster (durable: fsync on) and the API in
-// a child process on loopback; concurrent clients read the hangar, histories and
+// about 5 seconds in the middle. A throwaway cluster (durable: fsync on) and the API as
+// `npm start` runs it, a cluster of WEB_CONCURRENCY processes (default one per CPU; the
+// bench server's primary forks them) on loopback; concurrent clients read the hangar, histories and
 // compares and save revisions, several clients on each model so saves collide (409)
 // as they do between two tabs. Midway the database is stopped the hard way
 // (pg_ctl -m immediate, like a crash) and started again. Afterwards the database is
@@ -27,6 +28,7 @@ import { isRoot, startCluster, type Cluster } from '@api/db/cluster';
 import { migrate } from '@api/db/migrate';
 import { createSequelize } from '@api/db/sequelize';
 import { initModels, Membership, User, Workspace, type SetupModel } from '@api/models';
+import { workerCount } from '@api/worker-count';
 import { DEMO_SETUP, demoVariant } from './bench/support/bench-fixtures';
 
 const seconds = (name: string, fallback: number) => {
@@ -41,6 +43,7 @@ const OUTAGE_AT_MS = DURATION_MS / 2 - OUTAGE_MS / 2;
 const MODELS = 8;
 const HISTORY_PER_MODEL = 40;
 const REQUEST_TIMEOUT_MS = 15_000;
+const WORKERS = workerCount(process.env);
 
 type Kind = 'hangar' | 'history' | 'compare' | 'save' | 'invite';
 const MIX: [Kind, number][] = [
@@ -76,7 +79,7 @@ interface SavedAnswer {
 
 const bench = fileURLToPath(new URL('./bench/support/bench-server.ts', import.meta.url));
 
-/** The API in a child process (the bench server), its stderr kept in a file to count what it logged. */
+/** The multi-process API (the bench server's cluster), its stderr kept in a file to count what it logged. */
 async function startApi(
   databaseUrl: string,
   logFile: string,
@@ -348,7 +351,7 @@ function report(
   outage: Outage,
   checks: Awaited<ReturnType<typeof verify>>,
   mail: MailQueue,
-  extra: { recoveryMs: number | null; apiAlive: boolean; loggedUnexpected: number },
+  extra: { recoveryMs: number | null; apiAlive: boolean; loggedUnexpected: number; workersDied: number },
 ) {
   const { samples, elapsedMs } = load;
   // Requests sent while the server was away, and in the second after it was back.
@@ -391,7 +394,9 @@ function report(
     'first 200 from /api/health after restart',
     extra.recoveryMs === null ? 'never' : `${extra.recoveryMs.toFixed(0)} ms`,
   );
-  line('API process alive at the end', extra.apiAlive ? 'yes' : 'NO');
+  line('API processes', `${WORKERS} workers sharing one port`);
+  line('API primary alive at the end', extra.apiAlive ? 'yes' : 'NO');
+  line('API workers that died (replaced)', extra.workersDied);
   line('unexpected errors the API logged', extra.loggedUnexpected);
 
   console.log('\nDatabase afterwards:');
@@ -461,12 +466,14 @@ async function main(): Promise<number> {
     );
     const logged = readFileSync(logFile, 'utf8');
     const loggedUnexpected = (logged.match(/\[internal-error\]/g) ?? []).length;
+    const workersDied = (logged.match(/\[worker-died\]/g) ?? []).length;
     const mail = await mailQueue(sequelize);
-    report(load, outage, checks, mail, { recoveryMs, apiAlive, loggedUnexpected });
+    report(load, outage, checks, mail, { recoveryMs, apiAlive, loggedUnexpected, workersDied });
 
     const failures = [
       load.samples.some((sample) => sample.status === 500) && 'some requests answered 500',
       !apiAlive && 'the API process died',
+      workersDied > 0 && 'an API worker died',
       recoveryMs === null && 'the API did not recover',
       checks.missing > 0 && 'saves answered 201 are missing',
       checks.gaps > 0 && 'revision numbers have gaps',

@@ -62,7 +62,9 @@ async function main(): Promise<void> {
     return stopWorkers(workers);
   });
   await Promise.all(Array.from({ length: count }, fork));
-  console.log(`\nBindery is running at http://${host}:${port} in ${count} processes  (Ctrl-C stops it)`);
+  console.log(
+    `\nBindery is running at http://${host}:${port} in ${count} ${count === 1 ? 'process' : 'processes'}  (Ctrl-C stops it)`,
+  );
   printDemoSignIns();
 }
 

@@ -5,7 +5,7 @@ import { Conflict, Forbidden, HttpError, NotFound } from '../errors';
 import { Invitation, Membership, User, Workspace } from '../models';
 import { emailTaken } from './create-account';
 import { createWorkspace } from './create-workspace';
-import { recordAuditEvent } from './record-audit-event';
+import { recordAuditEvent } from '../audit/record-audit-event';
 
 export const invitationNotFound = () =>
   new NotFound('This invitation no longer exists.', { code: 'invitation-not-found' });
@@ -121,7 +121,7 @@ export async function acceptWithNewAccount(
         );
       }
       const user = await User.create({ email: invitation.email, name: account.name, passwordHash }, { transaction });
-      await createWorkspace(user, `${account.name}'s workspace`, transaction);
+      await createWorkspace(sequelize, { owner: user, name: `${account.name}'s workspace`, transaction });
       return { invitation, user, membership: await join(invitation, user, transaction, true) };
     });
   } catch (error) {

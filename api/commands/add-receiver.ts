@@ -2,7 +2,7 @@ import type { Sequelize } from 'sequelize';
 import type { MarkColour } from '@shared/reuse/receiver-fields';
 import type { StoredSettings } from '@shared/reuse/stored-settings';
 import { Receiver, type User, type Workspace } from '../models';
-import { recordReceiverEvent } from './record-receiver-event';
+import { recordReceiverEvent } from '../audit/record-receiver-event';
 
 export interface AddReceiverInput {
   workspace: Workspace;

@@ -3,7 +3,7 @@ import { reuseCheck } from '@shared/reuse/reuse-check';
 import { Conflict, Unprocessable } from '../errors';
 import { Receiver, ReceiverInstall, SetupModel, type User } from '../models';
 import { checkAgainstLatest, unitOf, type SlotCheck } from '../queries/receiver-slot';
-import { recordReceiverEvent } from './record-receiver-event';
+import { recordReceiverEvent } from '../audit/record-receiver-event';
 
 export interface Applied extends SlotCheck {
   receiver: Receiver;
@@ -81,6 +81,11 @@ export async function applyReceiverSettings(
       },
       transaction,
     );
-    return { ...placed, check: reuseCheck(unitOf(receiver), placed.slot, placed.revision.findings), receiver, install };
+    return {
+      ...placed,
+      check: reuseCheck(unitOf(receiver), placed.slot, placed.revision.findings, placed.setup),
+      receiver,
+      install,
+    };
   });
 }

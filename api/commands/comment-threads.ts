@@ -2,7 +2,7 @@ import type { Sequelize } from 'sequelize';
 import { Conflict, Unprocessable } from '../errors';
 import { ReviewComment, type Revision, type SetupModel, type User } from '../models';
 import { anchorExists, readAnchor } from '../reviews/anchor-path';
-import { recordAuditEvent } from './record-audit-event';
+import { recordAuditEvent } from '../audit/record-audit-event';
 
 // Comments are threads: a first comment (on the whole revision, or anchored to one
 // setting by its semantic path), replies to it, and a resolved mark on the first

@@ -26,7 +26,11 @@ export async function createAccount(
   try {
     return await sequelize.transaction(async (transaction) => {
       const user = await User.create({ email: input.email, name: input.name, passwordHash }, { transaction });
-      const workspace = await createWorkspace(user, `${input.name}'s workspace`, transaction);
+      const workspace = await createWorkspace(sequelize, {
+        owner: user,
+        name: `${input.name}'s workspace`,
+        transaction,
+      });
       return { user, workspace };
     });
   } catch (error) {

@@ -1,8 +1,10 @@
 import type { Sequelize, Transaction } from 'sequelize';
 import { Revision, SetupModel, type User, type Workspace } from '../models';
 import { starterSetup, type Airframe } from '../starter-setup';
-import { recordAuditEvent } from './record-audit-event';
-import { airframeOf, appendRevision, checkSetupText, inTransaction, type CheckedSetup } from './save-revision';
+import { recordAuditEvent } from '../audit/record-audit-event';
+import { inTransaction } from '../db/transaction';
+import { appendRevision } from '../revisions/append-revision';
+import { airframeOf, checkSetupDocument, type CheckedSetup } from '../revisions/check-setup';
 
 export interface CreateModelInput {
   workspace: Workspace;
@@ -77,7 +79,7 @@ export function defaultFirstMessage(origin: 'create' | 'upload', hadYaml: boolea
 
 export async function createModel(sequelize: Sequelize, input: CreateModelInput): Promise<CreatedModel> {
   const origin = input.origin ?? 'create';
-  const setup = input.setup ?? checkSetupText(input.yaml ?? starterSetup(input.name, input.airframe));
+  const setup = input.setup ?? checkSetupDocument(input.yaml ?? starterSetup(input.name, input.airframe));
   const given = input.setup !== undefined || input.yaml !== undefined;
   const message = input.message && input.message.length > 0 ? input.message : defaultFirstMessage(origin, given);
   return inTransaction(sequelize, input.transaction, async (transaction) => {

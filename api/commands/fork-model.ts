@@ -1,8 +1,9 @@
 import type { Sequelize, Transaction } from 'sequelize';
 import type { Revision, SetupModel, User, Workspace } from '../models';
 import { insertModelWithFirstRevision, type CreatedModel } from './create-model';
-import { recordAuditEvent } from './record-audit-event';
-import { checkSetupText, inTransaction } from './save-revision';
+import { recordAuditEvent } from '../audit/record-audit-event';
+import { inTransaction } from '../db/transaction';
+import { checkSetupText } from '../revisions/check-setup';
 
 export interface ForkInput {
   source: { model: SetupModel; revision: Revision };

@@ -9,8 +9,9 @@ import type { Verdict } from '../models/ReviewVerdict';
 import { PRE_MAIDEN_CHECKLIST } from '../reviews/checklist';
 import { approvalRefusal } from '../reviews/approval-refusal';
 import { reviewStateFromVerdicts } from '../reviews/sign-off';
-import type { ReviewAccess } from '../policies/review';
-import { recordAuditEvent } from './record-audit-event';
+import type { GrantedReview } from '../access/records';
+import { recordAuditEvent } from '../audit/record-audit-event';
+import { setTicks } from './tick-checklist';
 
 export interface VerdictInput {
   verdict: Verdict;
@@ -51,26 +52,6 @@ function confirmationNeeded(left: LeftOpen): Unprocessable {
   );
 }
 
-/** Ticks and unticks checklist items of a review in the caller's transaction. */
-export async function setTicks(
-  review: Review,
-  user: User,
-  changes: Record<string, boolean>,
-  transaction: Transaction,
-): Promise<void> {
-  for (const [item, ticked] of Object.entries(changes)) {
-    if (ticked) {
-      await ChecklistTick.findOrCreate({
-        where: { reviewId: review.id, item },
-        defaults: { reviewId: review.id, item, tickedBy: user.id },
-        transaction,
-      });
-    } else {
-      await ChecklistTick.destroy({ where: { reviewId: review.id, item }, transaction });
-    }
-  }
-}
-
 /**
  * Records a verdict pinned to the revision's content hash, applies its checklist
  * ticks, moves the review's state, and mails the requester and the author.
@@ -78,7 +59,7 @@ export async function setTicks(
 export async function giveVerdict(
   sequelize: Sequelize,
   mail: MailService,
-  access: ReviewAccess,
+  access: GrantedReview,
   user: User,
   input: VerdictInput,
 ): Promise<{ verdict: ReviewVerdict; review: Review }> {

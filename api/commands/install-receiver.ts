@@ -2,7 +2,7 @@ import { UniqueConstraintError, type Sequelize, type Transaction } from 'sequeli
 import { Conflict } from '../errors';
 import { Receiver, ReceiverInstall, SetupModel, type User } from '../models';
 import { checkAgainstLatest, type SlotCheck } from '../queries/receiver-slot';
-import { recordReceiverEvent } from './record-receiver-event';
+import { recordReceiverEvent } from '../audit/record-receiver-event';
 import { closeInstall } from './remove-receiver';
 
 export interface InstallInput {

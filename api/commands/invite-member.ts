@@ -1,4 +1,4 @@
-import { Op, type Sequelize } from 'sequelize';
+import type { Sequelize } from 'sequelize';
 import { signLinkToken } from '../auth/link-tokens';
 import type { AppConfig } from '../config';
 import { Conflict } from '../errors';
@@ -7,7 +7,7 @@ import type { MailService } from '../mail/mail-service';
 import { invitationMail } from '../mail/messages';
 import { Invitation, Membership, User, type Workspace } from '../models';
 import type { Role } from '@shared/contract/roles';
-import { recordAuditEvent } from './record-audit-event';
+import { recordAuditEvent } from '../audit/record-audit-event';
 
 export const INVITATION_TTL_MS = 7 * 24 * 60 * 60 * 1000;
 
@@ -85,17 +85,5 @@ export async function inviteMember(
       transaction,
     );
     return invitation;
-  });
-}
-
-/** Pending invitations of a workspace, newest first. */
-export function pendingInvitations(workspaceId: string): Promise<Invitation[]> {
-  return Invitation.findAll({
-    where: { workspaceId, acceptedAt: null, revokedAt: null, expiresAt: { [Op.gt]: new Date() } },
-    include: [{ model: User, as: 'inviter', attributes: ['id', 'name'] }],
-    order: [
-      ['createdAt', 'DESC'],
-      ['id', 'DESC'],
-    ],
   });
 }

@@ -2,7 +2,7 @@ import type { Sequelize, Transaction } from 'sequelize';
 import { Conflict, NotFound } from '../errors';
 import { Membership, User, type Workspace } from '../models';
 import type { Role } from '@shared/contract/roles';
-import { recordAuditEvent } from './record-audit-event';
+import { recordAuditEvent } from '../audit/record-audit-event';
 
 const memberNotFound = () =>
   new NotFound('This person is not a member of the workspace.', { code: 'member-not-found' });

@@ -1,7 +1,7 @@
 import type { Sequelize, Transaction } from 'sequelize';
 import { Conflict } from '../errors';
 import { Receiver, ReceiverInstall, SetupModel, type User } from '../models';
-import { recordReceiverEvent } from './record-receiver-event';
+import { recordReceiverEvent } from '../audit/record-receiver-event';
 
 /** Ends a stay (the unit leaves the slot) and records it; the caller holds the receiver's lock. */
 export async function closeInstall(

@@ -6,8 +6,9 @@ import { reviewRequestedMail } from '../mail/messages';
 import { ChecklistTick, Membership, Review, Revision, User, type SetupModel, type Workspace } from '../models';
 import { carriedItems } from '../reviews/carried-ticks';
 import { roleAtLeast } from '@shared/contract/roles';
+import { betweenRevisions } from '../reviews/between-revisions';
 import { contributorsOf } from '../reviews/contributors';
-import { recordAuditEvent } from './record-audit-event';
+import { recordAuditEvent } from '../audit/record-audit-event';
 
 export interface ReviewRequest {
   workspace: Workspace;
@@ -111,6 +112,7 @@ async function carryTicks(review: Review, revision: Revision, transaction: Trans
  */
 export async function requestReview(sequelize: Sequelize, mail: MailService, input: ReviewRequest): Promise<Review> {
   const reviewers = await checkReviewers(input);
+  const between = await betweenRevisions(input.revision);
   return sequelize.transaction(async (transaction) => {
     // Serialises requests on one revision, so two at once cannot both be "the" open one.
     await sequelize.query('SELECT pg_advisory_xact_lock(hashtext($id))', {
@@ -166,6 +168,7 @@ export async function requestReview(sequelize: Sequelize, mail: MailService, inp
           note: input.note,
           errors: input.revision.errorCount,
           warnings: input.revision.warningCount,
+          between,
           url: appLink(mail, `/w/${input.workspace.id}/reviews/${review.id}`),
         }),
         transaction,

@@ -12,10 +12,11 @@ import { PasswordReset, User } from '../models';
 export const PASSWORD_RESET_TTL_MS = 60 * 60 * 1000;
 
 /**
- * Queues a reset link when an account has this address; says nothing either way, and
- * takes the same path either way so the answer's timing does not tell: one lookup, the
- * link signed and the mail composed, then one statement that writes the reset and its
- * queued mail only when the account exists. No SMTP happens in the request.
+ * Queues a reset request, saying nothing about whether an account has the address, and
+ * does the same work either way so the answer's timing does not tell: one lookup (for
+ * the greeting), the link signed and the mail composed, one row inserted. The delivery
+ * loop, after the answer, turns the row into a reset and its mail only when an account
+ * has the address (api/mail/reset-requests.ts). No SMTP happens in the request.
  */
 export async function requestPasswordReset(
   sequelize: Sequelize,
@@ -37,17 +38,25 @@ export async function requestPasswordReset(
     mail.from,
   );
   await sequelize.query(
-    `WITH account AS (SELECT id FROM users WHERE email = $email),
-          reset AS (INSERT INTO password_resets (id, user_id, expires_at)
-                    SELECT $resetId, id, $expiresAt FROM account RETURNING id)
-     INSERT INTO outbox (message_id, envelope_from, envelope_to, from_header, to_header, subject,
-                         text_body, html_body, size_bytes, state, next_attempt_at)
-     SELECT $messageId, $envelopeFrom, $envelopeTo, $fromHeader, $toHeader, $subject,
-            $textBody, $htmlBody, $sizeBytes, 'pending', now()
-       FROM reset`,
-    { bind: { email, resetId, expiresAt, ...row }, type: QueryTypes.INSERT },
+    `INSERT INTO password_reset_requests (id, email, expires_at, mail) VALUES ($resetId, $email, $expiresAt, $mail)`,
+    { bind: { resetId, email, expiresAt, mail: JSON.stringify(outboxColumns(row)) }, type: QueryTypes.INSERT },
   );
   mail.deliverSoon();
+}
+
+/** A queued row's fields under the outbox table's column names. */
+function outboxColumns(row: ReturnType<typeof queuedRow>) {
+  return {
+    message_id: row.messageId,
+    envelope_from: row.envelopeFrom,
+    envelope_to: row.envelopeTo,
+    from_header: row.fromHeader,
+    to_header: row.toHeader,
+    subject: row.subject,
+    text_body: row.textBody,
+    html_body: row.htmlBody,
+    size_bytes: row.sizeBytes,
+  };
 }
 
 const resetNotFound = () => new NotFound('This password reset no longer exists.', { code: 'reset-not-found' });
@@ -87,7 +96,14 @@ export async function resetPassword(sequelize: Sequelize, id: string, password: 
   });
 }
 
-/** Uses up every open reset link of an account: a new password makes the older links moot. */
+/**
+ * Uses up every open reset link of an account, and drops its requests still waiting to
+ * become one: a new password makes the older links moot.
+ */
 export async function closeOpenResets(userId: string, transaction: Transaction): Promise<void> {
   await PasswordReset.update({ usedAt: new Date() }, { where: { userId, usedAt: null }, transaction });
+  await PasswordReset.sequelize!.query(
+    'DELETE FROM password_reset_requests WHERE email = (SELECT email FROM users WHERE id = $userId)',
+    { bind: { userId }, transaction },
+  );
 }

@@ -1,7 +1,11 @@
 import type { Sequelize, Transaction } from 'sequelize';
 import { NotFound } from '../errors';
 import { Revision, type User } from '../models';
-import { appendRevision, checkSetupText, inTransaction, lockModel, requireLatestBase } from './save-revision';
+import { inTransaction } from '../db/transaction';
+import { appendRevision } from '../revisions/append-revision';
+import { requireLatestBase } from '../revisions/check-base';
+import { checkSetupText } from '../revisions/check-setup';
+import { lockModel } from '../revisions/lock-model';
 
 export interface RevertInput {
   modelId: string;
@@ -49,6 +53,7 @@ export async function revertRevision(sequelize: Sequelize, input: RevertInput): 
         sourceRevisionId: target.id,
         createdAt: input.createdAt,
         audit,
+        followName: true,
       },
       transaction,
     );

@@ -1,8 +1,8 @@
 import type { Sequelize, Transaction } from 'sequelize';
 import { Conflict, NotFound } from '../errors';
 import { Revision, Tag, type SetupModel, type User } from '../models';
-import { recordAuditEvent } from './record-audit-event';
-import { inTransaction } from './save-revision';
+import { recordAuditEvent } from '../audit/record-audit-event';
+import { inTransaction } from '../db/transaction';
 
 export interface TagInput {
   model: SetupModel;

@@ -37,7 +37,7 @@ const REVIEW_WORDS: Record<ReviewState, string> = {
 };
 
 const failsafeText = (failsafe: number | string | null | undefined) =>
-  failsafe === null || failsafe === undefined ? 'not set' : typeof failsafe === 'number' ? `${failsafe} us` : failsafe;
+  failsafe === null || failsafe === undefined ? 'not set' : typeof failsafe === 'number' ? `${failsafe} µs` : failsafe;
 
 interface Column {
   title: string;

@@ -1,5 +1,6 @@
 import { QueryTypes, type Sequelize } from 'sequelize';
 import type { Mailer } from './mail-service';
+import { releaseResetRequests } from './reset-requests';
 
 export interface DeliveryOptions {
   /** How often the queue is looked at when nothing wakes the loop (other processes' mail, retries). */
@@ -118,6 +119,8 @@ export function startMailDelivery(
 
   async function round(): Promise<RoundResult> {
     const result: RoundResult = { delivered: 0, retrying: 0, failed: 0 };
+    // Reset requests become mail here, after their answers (see reset-requests.ts).
+    await releaseResetRequests(sequelize);
     for (;;) {
       const rows = await claim();
       if (rows.length === 0) return result;

@@ -1,6 +1,7 @@
 import type { Role } from '@shared/contract/roles';
 import { composeMail, mailDate } from './compose';
 import type { OutgoingMail } from './mail-service';
+import type { BetweenRevisions } from '../reviews/between-revisions';
 
 const ROLE_WORDS: Record<Role, string> = {
   owner: 'an owner (members, roles and everything else)',
@@ -56,6 +57,44 @@ export interface ReviewMailSubject {
   url: string;
 }
 
+// The same words as the review page's base (web/features/reviews/components/review-screen.tsx).
+const BASE_WORDS: Record<NonNullable<BetweenRevisions['base']>['kind'], string> = {
+  approved: 'the last approved revision',
+};
+
+const SEVERITY_WORDS = { error: 'Error', warning: 'Warning', info: 'Note' } as const;
+const SEVERITY_ORDER = { error: 0, warning: 1, info: 2 } as const;
+
+/**
+ * The review page's "Between these revisions" as plain paragraphs: the reviewer reads
+ * in the mail itself what changed meaning between the two revisions (a failsafe number
+ * under a reversed channel, say), before opening the page.
+ */
+function betweenRevisionsParagraphs(between: BetweenRevisions, revision: number): string[] {
+  if (!between.base)
+    return [
+      revision === 1
+        ? 'Between these revisions: revision 1 is the first; there is nothing to compare it with.'
+        : `Between these revisions: no revision before revision ${revision} is approved, so the review shows the whole setup as new; on the review page you can compare it with the revision before it or any other.`,
+    ];
+  const against = `${BASE_WORDS[between.base.kind]}, revision ${between.base.number}`;
+  if (between.findings === null)
+    return [
+      `Between these revisions (compared with ${against}): these checks need both revisions to be valid setups, and one is not.`,
+    ];
+  if (between.findings.length === 0)
+    return [`Between these revisions (compared with ${against}): no mistake shows only between the two.`];
+  return [
+    `Between these revisions (compared with ${against}), ${between.findings.length} finding${between.findings.length === 1 ? '' : 's'}:`,
+    ...[...between.findings]
+      .sort((a, b) => SEVERITY_ORDER[a.severity] - SEVERITY_ORDER[b.severity])
+      .map(
+        (finding) =>
+          `${SEVERITY_WORDS[finding.severity]} (${finding.rule}${finding.path ? `, at ${finding.path}` : ''}): ${finding.message}${finding.hint ? ` ${finding.hint}` : ''}`,
+      ),
+  ];
+}
+
 export function reviewRequestedMail(
   input: ReviewMailSubject & {
     to: string;
@@ -64,6 +103,7 @@ export function reviewRequestedMail(
     note: string;
     errors: number;
     warnings: number;
+    between: BetweenRevisions;
   },
 ): OutgoingMail {
   const checks =
@@ -78,7 +118,8 @@ export function reviewRequestedMail(
       `${input.requester} asks you to review revision ${input.revision} of "${input.model}" in ${input.workspace} before it flies.`,
       ...(input.note ? [`Their note: "${input.note}"`] : []),
       checks,
-      'The review page compares it with the last approved revision and holds the pre-maiden checklist.',
+      ...betweenRevisionsParagraphs(input.between, input.revision),
+      'The review page shows the whole compare and holds the pre-maiden checklist.',
     ],
     action: { label: 'Open the review', url: input.url },
     after: [

@@ -1,8 +1,9 @@
 import type { Request, Response } from 'express';
-import multer, { MulterError } from 'multer';
+import multer from 'multer';
 import path from 'node:path';
 import { MAX_TEXT_BYTES } from '@shared/parse/limits';
-import { BadRequest, TooLarge, UnsupportedMediaType } from '../errors';
+import { BadRequest, UnsupportedMediaType } from '../errors';
+import { uploadError } from './upload-error';
 
 /** The same limit as for setup text sent as JSON: the parser reads nothing larger. */
 export const MAX_UPLOAD_BYTES = MAX_TEXT_BYTES;
@@ -28,34 +29,10 @@ const YAML_NAME = /\.ya?ml$/i;
 const TEXT_TYPES = /^(text\/[a-z0-9.+-]+|application\/(x-)?yaml)$/i;
 const UNKNOWN_TYPES = /^(application\/octet-stream)?$/i;
 
-function uploadError(error: unknown): Error {
-  if (!(error instanceof MulterError)) {
-    // busboy's own complaints (a cut-off body, a broken part header) are the client's.
-    return error instanceof Error && !('status' in error)
-      ? new BadRequest(`The upload could not be read: ${error.message}.`, { code: 'malformed-upload' })
-      : error instanceof Error
-        ? error
-        : new Error('The upload could not be read.', { cause: error });
-  }
-  switch (error.code) {
-    case 'LIMIT_FILE_SIZE':
-      return new TooLarge(
-        `The file is larger than ${MAX_UPLOAD_BYTES / 1024} KB; a setup is normally a few kilobytes.`,
-        { details: { limit: MAX_UPLOAD_BYTES } },
-      );
-    case 'LIMIT_UNEXPECTED_FILE':
-    case 'LIMIT_FILE_COUNT':
-      return new BadRequest('Send exactly one file, in the form field named "file".', {
-        code: 'invalid-upload',
-        details: { field: error.field ?? null },
-      });
-    default:
-      return new BadRequest(`The upload form is not acceptable: ${error.message}.`, {
-        code: 'invalid-upload',
-        details: { reason: error.code },
-      });
-  }
-}
+const LIMIT = {
+  bytes: MAX_UPLOAD_BYTES,
+  tooLarge: `The file is larger than ${MAX_UPLOAD_BYTES / 1024} KB; a setup is normally a few kilobytes.`,
+};
 
 function decodeUtf8(buffer: Buffer): string | null {
   try {
@@ -78,7 +55,7 @@ export async function readSetupUpload(req: Request, res: Response): Promise<Setu
     });
   }
   await new Promise<void>((resolve, reject) =>
-    parser(req, res, (error?: unknown) => (error ? reject(uploadError(error)) : resolve())),
+    parser(req, res, (error?: unknown) => (error ? reject(uploadError(error, LIMIT)) : resolve())),
   );
   const file = req.file;
   if (!file)
@@ -97,10 +74,13 @@ export async function readSetupUpload(req: Request, res: Response): Promise<Setu
   }
   const text = decodeUtf8(file.buffer);
   if (text === null || text.includes('\u0000')) {
-    throw new UnsupportedMediaType(`"${fileName}" is not UTF-8 text; a setup file is plain text.`, {
-      code: 'unsupported-media-type',
-      details: { file_name: fileName },
-    });
+    throw new UnsupportedMediaType(
+      `"${fileName}" is not plain text: a setup file is text saved in the usual encoding (UTF-8), as any text editor writes it.`,
+      {
+        code: 'unsupported-media-type',
+        details: { file_name: fileName },
+      },
+    );
   }
   return { text, fileName, fields: (req.body ?? {}) as Record<string, unknown> };
 }

@@ -10,6 +10,13 @@ import * as revokedSessions from './0007-revoked-sessions';
 import * as rateLimits from './0008-rate-limits';
 import * as importJobs from './0010-import-jobs';
 import * as compareCache from './0012-compare-cache';
+import * as passwordResetRequests from './0013-password-reset-requests';
+import * as saveRevisionFunction from './0030-save-revision-function';
+import * as compareCacheUnlogged from './0031-compare-cache-unlogged';
+import * as hangarAndShelfOrder from './0032-hangar-and-shelf-order';
+import * as receiverShortCodes from './0060-receiver-short-codes';
+import * as modelArchive from './0050-model-archive';
+import * as saveFollowsModelName from './0059-save-follows-model-name';
 import * as reviewThreadsAndCarriedTicks from './0040-review-threads-and-carried-ticks';
 
 export interface MigrationModule {
@@ -30,5 +37,12 @@ export const migrations: { name: string; module: MigrationModule }[] = [
   { name: '0008-rate-limits', module: rateLimits },
   { name: '0010-import-jobs', module: importJobs },
   { name: '0012-compare-cache', module: compareCache },
+  { name: '0013-password-reset-requests', module: passwordResetRequests },
+  { name: '0030-save-revision-function', module: saveRevisionFunction },
+  { name: '0031-compare-cache-unlogged', module: compareCacheUnlogged },
+  { name: '0032-hangar-and-shelf-order', module: hangarAndShelfOrder },
+  { name: '0060-receiver-short-codes', module: receiverShortCodes },
+  { name: '0050-model-archive', module: modelArchive },
+  { name: '0059-save-follows-model-name', module: saveFollowsModelName },
   { name: '0040-review-threads-and-carried-ticks', module: reviewThreadsAndCarriedTicks },
 ];

@@ -23,6 +23,8 @@ export class Receiver extends Model<InferAttributes<Receiver>, InferCreationAttr
   declare markColour: CreationOptional<MarkColour | null>;
   declare outputs: number;
   declare notes: CreationOptional<string>;
+  /** Printed on the unit's label; the database gives each new unit one (migration 0060). */
+  declare shortCode: CreationOptional<string>;
   /** Null when the unit's settings were never recorded. */
   declare storedSettings: CreationOptional<StoredSettings | null>;
   declare settingsRecordedAt: CreationOptional<Date | null>;
@@ -41,6 +43,8 @@ export class Receiver extends Model<InferAttributes<Receiver>, InferCreationAttr
         markColour: { type: DataTypes.TEXT, allowNull: true, defaultValue: null },
         outputs: { type: DataTypes.INTEGER, allowNull: false },
         notes: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
+        // Left to the database's trigger on insert; the column is NOT NULL there.
+        shortCode: { type: DataTypes.TEXT },
         storedSettings: { type: DataTypes.JSONB, allowNull: true, defaultValue: null },
         settingsRecordedAt: { type: DataTypes.DATE, allowNull: true, defaultValue: null },
         createdAt: DataTypes.DATE,

@@ -20,6 +20,9 @@ export class SetupModel extends Model<InferAttributes<SetupModel>, InferCreation
   /** The airframe kind named by the latest readable revision, when it names a known one. */
   declare airframe: string | null;
   declare forkedFromRevisionId: CreationOptional<string | null>;
+  /** Set while the model is archived: hidden from the hangar, never deleted. */
+  declare archivedAt: CreationOptional<Date | null>;
+  declare archivedBy: CreationOptional<string | null>;
   declare createdBy: ForeignKey<User['id']>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
@@ -34,6 +37,8 @@ export class SetupModel extends Model<InferAttributes<SetupModel>, InferCreation
         name: { type: DataTypes.TEXT, allowNull: false },
         airframe: { type: DataTypes.TEXT, allowNull: true },
         forkedFromRevisionId: { type: DataTypes.UUID, allowNull: true },
+        archivedAt: { type: DataTypes.DATE, allowNull: true },
+        archivedBy: { type: DataTypes.UUID, allowNull: true },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },

@@ -1,8 +1,10 @@
-import type { Sequelize } from 'sequelize';
+import type { Sequelize, Transaction } from 'sequelize';
 import { modelName } from '../model-fields';
 import { insertModelWithFirstRevision } from '../commands/create-model';
-import { recordAuditEvent } from '../commands/record-audit-event';
-import { appendRevision, checkSetupText, type CheckedSetup, type LockedModel } from '../commands/save-revision';
+import { recordAuditEvent } from '../audit/record-audit-event';
+import { appendRevision } from '../revisions/append-revision';
+import { checkSetupText, type CheckedSetup } from '../revisions/check-setup';
+import type { LockedModel } from '../revisions/lock-model';
 import { HttpError } from '../errors';
 import { Tag, type SetupModel, type User, type Workspace } from '../models';
 import type { ImportedModel, ReportProgress } from './import-history';
@@ -60,7 +62,14 @@ async function checkAll(imported: ImportedModel, done: () => Promise<void>): Pro
  */
 export async function importModels(
   sequelize: Sequelize,
-  input: { workspace: Workspace; author: User; models: ImportedModel[]; name?: string },
+  input: {
+    workspace: Workspace;
+    author: User;
+    models: ImportedModel[];
+    name?: string;
+    /** Refuses (throws) when the author may no longer import here; run first in the transaction. */
+    requireRights: (transaction: Transaction) => Promise<void>;
+  },
   report: ReportProgress,
 ): Promise<ImportResult[]> {
   let checkedCount = 0;
@@ -78,6 +87,7 @@ export async function importModels(
     if (++stored % BATCH === 0) await report({ revisions_stored: stored });
   };
   const results = await sequelize.transaction(async (transaction) => {
+    await input.requireRights(transaction);
     const results: ImportResult[] = [];
     for (const { model: imported, setups } of checked) {
       const name = nameFor(imported, setups, input.models.length === 1 ? input.name : undefined);

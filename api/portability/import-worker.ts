@@ -13,6 +13,7 @@ import {
 } from './import-jobs';
 import { readHistoryBundle } from './import-history';
 import { importModels } from './import-models';
+import { requireImportRights } from './import-rights';
 
 // Runs queued history imports inside an API process, one at a time, off the request
 // path: the upload route answers 202 and the job goes on here. Reading git's output
@@ -49,12 +50,20 @@ async function runJob(sequelize: Sequelize, job: ClaimedImportJob, logErrors: bo
       User.findByPk(job.requested_by),
     ]);
     if (!workspace || !author) throw new Error('the workspace or the account of the import is gone');
+    const requester = { workspaceId: workspace.id, requestedBy: author.id };
+    await requireImportRights(requester);
     const report = (update: Parameters<typeof reportImportProgress>[2]) =>
       reportImportProgress(sequelize, job.id, update);
     const models = await readHistoryBundle(job.bundle, report);
     const results = await importModels(
       sequelize,
-      { workspace, author, models, name: job.model_name ?? undefined },
+      {
+        workspace,
+        author,
+        models,
+        name: job.model_name ?? undefined,
+        requireRights: (transaction) => requireImportRights(requester, transaction),
+      },
       report,
     );
     await finishImportJob(sequelize, job.id, results);

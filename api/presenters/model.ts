@@ -45,6 +45,7 @@ export function presentModel(model: SetupModel, view: ModelView): SetupModelView
     created_by: model.createdBy,
     created_at: model.createdAt.toISOString(),
     updated_at: model.updatedAt.toISOString(),
+    archived_at: model.archivedAt ? model.archivedAt.toISOString() : null,
     latest: view.latest ? presentLatest(view.latest) : null,
     review_state: view.reviewState,
     cleared_for_maiden: clearedForMaiden(view.reviewState),

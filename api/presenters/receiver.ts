@@ -48,6 +48,7 @@ export function presentReceiver(receiver: Receiver, view: ReceiverView): Present
     mark_colour: receiver.markColour ?? null,
     outputs: receiver.outputs,
     notes: receiver.notes,
+    short_code: receiver.shortCode,
     stored_settings: receiver.storedSettings ?? null,
     settings_recorded_at: iso(receiver.settingsRecordedAt),
     telemetry: receiver.storedSettings ? receiver.storedSettings.telemetry : null,

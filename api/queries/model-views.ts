@@ -1,5 +1,6 @@
 import { Op, QueryTypes, type Transaction } from 'sequelize';
-import { Membership, Revision, SetupModel, Tag, User } from '../models';
+import { memberWorkspaceIds } from '../access/membership';
+import { Revision, SetupModel, Tag, User } from '../models';
 import type { Role } from '@shared/contract/roles';
 import { presentModel, type ForkSource, type PresentedModel } from '../presenters/model';
 import { reviewStateOf } from '../review-state';
@@ -33,15 +34,14 @@ export async function forkSources(models: readonly SetupModel[], user: User): Pr
     ...new Set(models.map((model) => model.forkedFromRevisionId).filter((id): id is string => Boolean(id))),
   ];
   if (sourceIds.length === 0) return new Map();
-  const [revisions, memberships] = await Promise.all([
+  const [revisions, readable] = await Promise.all([
     Revision.findAll({
       where: { id: sourceIds },
       attributes: ['id', 'number', 'modelId'],
       include: [{ model: SetupModel, as: 'model', required: true }],
     }),
-    Membership.findAll({ where: { userId: user.id }, attributes: ['workspaceId'] }),
+    memberWorkspaceIds(user.id),
   ]);
-  const readable = new Set(memberships.map((membership) => membership.workspaceId));
   const byId = new Map(revisions.map((revision) => [revision.id, revision]));
   const sources = new Map<string, ForkSource>();
   for (const model of models) {

@@ -74,5 +74,5 @@ export async function checkAgainstLatest(
   transaction?: Transaction,
 ): Promise<SlotCheck> {
   const place = await slotOfLatest(model, slotId, transaction);
-  return { ...place, check: reuseCheck(unitOf(receiver), place.slot, place.revision.findings) };
+  return { ...place, check: reuseCheck(unitOf(receiver), place.slot, place.revision.findings, place.setup) };
 }

@@ -1,13 +1,12 @@
-import { Op, QueryTypes } from 'sequelize';
+import { Op, QueryTypes, type Transaction } from 'sequelize';
 import { compareRevisions } from '@shared/diff';
 import { reviewPlan } from '@shared/diff/review-plan';
 import type { CommentStatus, ReviewDetail } from '@shared/contract/review';
 import { Unprocessable } from '../errors';
 import { ChecklistTick, Review, ReviewComment, ReviewVerdict, Revision, SetupModel, User } from '../models';
-import type { ReviewAccess } from '../policies/review';
+import type { GrantedReview } from '../access/records';
 import { approvalRefusal } from '../reviews/approval-refusal';
-import { REVIEW_POLICY } from '../policies/review';
-import { roleAtLeast } from '@shared/contract/roles';
+import { reviewPolicy } from '../policies/review';
 import {
   presentChecklist,
   presentThread,
@@ -74,19 +73,21 @@ export async function presentReviewList(reviews: readonly LoadedReview[]) {
 export type BaseChoice = 'default' | 'approved' | 'previous' | 'none' | { number: number } | { id: string };
 
 /** The model's last approved revision before this one, if there is one. */
-async function lastApprovedBefore(revision: Revision): Promise<Revision | null> {
+async function lastApprovedBefore(revision: Revision, transaction?: Transaction): Promise<Revision | null> {
   const [row] = await Revision.sequelize!.query<{ id: string }>(
     `SELECT rv.id FROM revisions rv
       WHERE rv.model_id = $model AND rv.number < $number
         AND EXISTS (SELECT 1 FROM reviews r WHERE r.revision_id = rv.id AND r.state = 'approved')
       ORDER BY rv.number DESC LIMIT 1`,
-    { bind: { model: revision.modelId, number: revision.number }, type: QueryTypes.SELECT },
+    { bind: { model: revision.modelId, number: revision.number }, type: QueryTypes.SELECT, transaction },
   );
-  return row ? Revision.findByPk(row.id) : null;
+  return row ? Revision.findByPk(row.id, { transaction }) : null;
 }
 
-const previousOf = (revision: Revision) =>
-  revision.number > 1 ? Revision.findOne({ where: { modelId: revision.modelId, number: revision.number - 1 } }) : null;
+const previousOf = (revision: Revision, transaction?: Transaction) =>
+  revision.number > 1
+    ? Revision.findOne({ where: { modelId: revision.modelId, number: revision.number - 1 }, transaction })
+    : null;
 
 const baseRefused = (message: string, code: string) =>
   new Unprocessable(message, { code, details: { fields: { base: message } } });
@@ -99,11 +100,16 @@ const baseRefused = (message: string, code: string) =>
 export async function baseRevisionFor(
   revision: Revision,
   choice: BaseChoice,
+  /** For a caller inside a transaction that wrote the revisions (the demo seed). */
+  transaction?: Transaction,
 ): Promise<{
   base: { kind: 'approved' | 'previous' | 'chosen'; revision: Revision } | null;
   options: { approved: Revision | null; previous: Revision | null };
 }> {
-  const [approved, previous] = await Promise.all([lastApprovedBefore(revision), previousOf(revision)]);
+  const [approved, previous] = await Promise.all([
+    lastApprovedBefore(revision, transaction),
+    previousOf(revision, transaction),
+  ]);
   const options = { approved, previous };
   if (choice === 'none') return { base: null, options };
   if (choice === 'default') return { base: approved ? { kind: 'approved', revision: approved } : null, options };
@@ -121,6 +127,7 @@ export async function baseRevisionFor(
   }
   const chosen = await Revision.findOne({
     where: { modelId: revision.modelId, ...('number' in choice ? { number: choice.number } : { id: choice.id }) },
+    transaction,
   });
   if (!chosen)
     throw baseRefused(
@@ -200,7 +207,7 @@ async function reviewedNumbers(reviewIds: readonly string[]): Promise<Map<string
 
 /** Everything the review page shows, compared with the base the caller chose. */
 export async function reviewDetail(
-  access: ReviewAccess,
+  access: GrantedReview,
   caller: User,
   choice: BaseChoice = 'default',
 ): Promise<ReviewDetail> {
@@ -230,7 +237,7 @@ export async function reviewDetail(
   for (const [id, user] of context.users) users.set(id, user);
   const latest = context.latest.get(review.modelId);
   const modelState = latest ? ((await reviewStateOf([latest])).get(latest.id) ?? 'none') : 'none';
-  const canVerdict = roleAtLeast(access.role, REVIEW_POLICY.verdict);
+  const canVerdict = reviewPolicy(access.role, 'verdict').allowed;
   const refusal = canVerdict ? await approvalRefusal(access, caller) : null;
   const summarise = (entry: Revision) => {
     entry.author = users.get(entry.authorId);
@@ -259,8 +266,8 @@ export async function reviewDetail(
       verdict: canVerdict,
       approve: canVerdict && refusal === null,
       approve_refusal: refusal ? { code: refusal.code, message: refusal.message } : null,
-      tick: roleAtLeast(access.role, REVIEW_POLICY.tick),
-      comment: roleAtLeast(access.role, REVIEW_POLICY.comment),
+      tick: reviewPolicy(access.role, 'tick').allowed,
+      comment: reviewPolicy(access.role, 'comment').allowed,
     },
   };
 }

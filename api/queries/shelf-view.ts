@@ -58,7 +58,7 @@ function readinessOf(receiver: Receiver, install: ReceiverInstall, revision: Rev
       revision: ref,
       reason: `Revision ${revision.number} has no receiver "${install.slot}".`,
     };
-  const check = reuseCheck(unitOf(receiver), slot);
+  const check = reuseCheck(unitOf(receiver), slot, [], setup);
   const state = check.notes.some((note) => note.blocking) ? 'blocked' : check.ready ? 'ready' : 'changes';
   return { state, changes: check.changes.length, revision: ref, reason: null };
 }

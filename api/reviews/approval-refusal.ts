@@ -1,6 +1,6 @@
 import { Forbidden, Unprocessable } from '../errors';
 import type { User } from '../models';
-import type { ReviewAccess } from '../policies/review';
+import type { ReviewAccess } from '../access/records';
 import { contributorsOf } from './contributors';
 
 // Read by the verdict command (to refuse) and by the review view (to say why the

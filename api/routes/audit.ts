@@ -3,9 +3,11 @@ import { literal } from 'sequelize';
 import type { AppContext } from '../context';
 import { authenticate } from '../middleware/authenticate';
 import { AuditEvent, User } from '../models';
-import { authorizeWorkspace } from '../policies/model';
+import { modelPolicy } from '../policies/model';
+import { authorizeWorkspace } from './authorize';
 import { presentAuditEvent, type AuditSubjectModel } from '../presenters/audit';
 import { parseInput } from '../validation';
+import { pagination } from './paging';
 import { auditQuery } from './model-inputs';
 
 // The model an event is about, found from its subject rather than from its details, so
@@ -28,7 +30,7 @@ export function auditRouter({ config }: AppContext): Router {
 
   router.get('/workspaces/:ws/audit', authenticate(config), async (req, res) => {
     const { limit, offset } = parseInput(auditQuery, req.query, 'The paging parameters are not valid.');
-    const { workspace } = await authorizeWorkspace(req, req.params.ws, 'audit');
+    const { workspace } = await authorizeWorkspace(req, req.params.ws, modelPolicy, 'audit');
     const { rows, count } = await AuditEvent.findAndCountAll({
       where: { workspaceId: workspace.id },
       attributes: { include: [[SUBJECT_MODEL, 'subjectModel']] },
@@ -44,7 +46,7 @@ export function auditRouter({ config }: AppContext): Router {
       data: rows.map((event) =>
         presentAuditEvent(event, (event.get('subjectModel') as AuditSubjectModel | null) ?? null),
       ),
-      pagination: { limit, offset, total: count },
+      pagination: pagination({ limit, offset }, count),
     });
   });
 

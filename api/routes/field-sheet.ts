@@ -3,7 +3,7 @@ import type { AppContext } from '../context';
 import { fieldSheetOf } from '../field-sheet/field-sheet-data';
 import { renderFieldSheetPdf } from '../field-sheet/render-pdf';
 import { authenticate } from '../middleware/authenticate';
-import { authorizeRevision } from '../policies/model';
+import { authorizeRevision } from './authorize';
 import { revisionFileName } from '../presenters/download-name';
 import { sendAsDownload } from '../security/content-disposition';
 

@@ -2,25 +2,24 @@ import { Router, type Request, type RequestHandler, type Response } from 'expres
 import type { AppContext } from '../context';
 import { Unauthorized } from '../errors';
 import { authenticate, currentUser } from '../middleware/authenticate';
-import { Membership, Workspace, type User } from '../models';
+import { listMemberships } from '../access/membership';
+import type { User } from '../models';
 import { presentUser } from '../presenters/user';
+import { parseInput } from '../validation';
+import { pageInput, pagination, type PageInput } from './paging';
 
-async function sessionOf(user: User) {
-  const memberships = await Membership.findAll({
-    where: { userId: user.id },
-    include: [{ model: Workspace, as: 'workspace', required: true }],
-    order: [
-      [{ model: Workspace, as: 'workspace' }, 'name', 'ASC'],
-      ['createdAt', 'ASC'],
-    ],
-  });
+// The workspaces come a page at a time like every list; the client's first question
+// (the session) gets the first page, and /api/me any other.
+const workspacesQuery = pageInput(100);
+
+async function sessionOf(user: User, page: PageInput) {
+  const { members, total } = await listMemberships(user.id, page);
   return {
-    user: presentUser(user),
-    workspaces: memberships.map((membership) => ({
-      id: membership.workspaceId,
-      name: membership.workspace!.name,
-      role: membership.role,
-    })),
+    data: {
+      user: presentUser(user),
+      workspaces: members.map(({ workspace, role }) => ({ id: workspace.id, name: workspace.name, role })),
+    },
+    pagination: pagination(page, total),
   };
 }
 
@@ -46,13 +45,18 @@ export function meRouter({ config }: AppContext): Router {
   const check = authenticate(config);
 
   router.get('/me', check, async (req, res) => {
-    res.json({ data: await sessionOf(currentUser(req)) });
+    const page = parseInput(workspacesQuery, req.query, 'The paging parameters are not valid.');
+    res.json(await sessionOf(currentUser(req), page));
   });
 
   // The client's first question on every visit. Signed out is an answer, not an error,
   // so a signed-out visit makes no request that fails (a 401 would be logged by the browser).
   router.get('/session', async (req, res) => {
-    res.json({ data: (await isSignedIn(check, req, res)) ? await sessionOf(currentUser(req)) : null });
+    if (!(await isSignedIn(check, req, res))) {
+      res.json({ data: null });
+      return;
+    }
+    res.json(await sessionOf(currentUser(req), workspacesQuery.parse({})));
   });
 
   return router;

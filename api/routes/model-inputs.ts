@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { pageInput } from './paging';
 import { AIRFRAMES, SLUG_PATTERN } from '@shared/format/schema';
 
 // Input shapes shared by the model, revision and upload routes.
@@ -77,38 +78,19 @@ export const historyQuery = z.object({
     .optional(),
 });
 
-export const hangarQuery = z.object({
+export const hangarQuery = pageInput(100).extend({
+  archived: z
+    .enum(['exclude', 'include', 'only'], { error: 'archived is exclude (the default), include or only.' })
+    .default('exclude'),
   q: z
     .string({ error: 'q is the text to search for.' })
     .trim()
     .max(100, 'Search for at most 100 characters.')
     .optional(),
-  limit: z.coerce
-    .number({ error: 'limit must be a number.' })
-    .int('limit must be a whole number.')
-    .min(1, 'limit is at least 1.')
-    .max(200, 'limit is at most 200.')
-    .default(100),
-  offset: z.coerce
-    .number({ error: 'offset must be a number.' })
-    .int('offset must be a whole number.')
-    .min(0, 'offset is at least 0.')
-    .default(0),
+  after: z.uuid({ error: 'after is the id of the last model of the page before.' }).optional(),
 });
 
-export const auditQuery = z.object({
-  limit: z.coerce
-    .number({ error: 'limit must be a number.' })
-    .int('limit must be a whole number.')
-    .min(1, 'limit is at least 1.')
-    .max(200, 'limit is at most 200.')
-    .default(50),
-  offset: z.coerce
-    .number({ error: 'offset must be a number.' })
-    .int('offset must be a whole number.')
-    .min(0, 'offset is at least 0.')
-    .default(0),
-});
+export const auditQuery = pageInput(50);
 
 export const compareQuery = z.object({
   from: z.string({ error: 'from is the id of a revision.' }),

@@ -2,17 +2,22 @@ import { Router } from 'express';
 import { col, fn, Op, type WhereOptions } from 'sequelize';
 import { createModel } from '../commands/create-model';
 import { forkModel } from '../commands/fork-model';
+import { setModelArchived } from '../commands/archive-model';
 import { renameModel } from '../commands/rename-model';
-import { checkSetupText, saveRevision } from '../commands/save-revision';
+import { saveRevisionAtOnce } from '../commands/save-revision-at-once';
+import { checkSetupDocument } from '../revisions/check-setup';
 import type { AppContext } from '../context';
 import { NotFound } from '../errors';
 import { authenticate, currentUser } from '../middleware/authenticate';
 import { readSetupUpload } from '../middleware/setup-upload';
 import { Revision, SetupModel } from '../models';
-import { authorizeModel, authorizeWorkspace } from '../policies/model';
+import { modelPolicy } from '../policies/model';
+import { authorizeModel, authorizeWorkspace } from './authorize';
 import { presentSavedRevision } from '../presenters/revision';
+import { afterRow } from '../queries/keyset-page';
 import { presentModels, presentOneModel } from '../queries/model-views';
 import { parseInput } from '../validation';
+import { pagination } from './paging';
 import {
   createModelSchema,
   forkSchema,
@@ -40,28 +45,51 @@ export function modelsRouter({ sequelize, config }: AppContext): Router {
   const signedIn = authenticate(config);
 
   router.get('/workspaces/:ws/models', signedIn, async (req, res) => {
-    const { q, limit, offset } = parseInput(hangarQuery, req.query, 'The search parameters are not valid.');
-    const { workspace, role } = await authorizeWorkspace(req, req.params.ws, 'read');
-    const where: WhereOptions<SetupModel> = { workspaceId: workspace.id };
+    const { q, limit, offset, after, archived } = parseInput(
+      hangarQuery,
+      req.query,
+      'The search parameters are not valid.',
+    );
+    const { workspace, role } = await authorizeWorkspace(req, req.params.ws, modelPolicy, 'read');
+    const cursor = after ? await afterRow(sequelize, 'models', workspace.id, after) : null;
+    const matching: WhereOptions<SetupModel> = { workspaceId: workspace.id };
     if (q) {
       const pattern = `%${escapeLike(q)}%`;
-      Object.assign(where, { [Op.or]: [{ name: { [Op.iLike]: pattern } }, { airframe: { [Op.iLike]: pattern } }] });
+      Object.assign(matching, { [Op.or]: [{ name: { [Op.iLike]: pattern } }, { airframe: { [Op.iLike]: pattern } }] });
     }
-    const { rows, count } = await SetupModel.findAndCountAll({
-      where,
-      order: [
-        [fn('lower', col('name')), 'ASC'],
-        ['id', 'ASC'],
-      ],
-      limit,
-      offset,
+    const archivedOnly = { ...matching, archivedAt: { [Op.ne]: null } };
+    const where =
+      archived === 'include' ? matching : archived === 'only' ? archivedOnly : { ...matching, archivedAt: null };
+    // The total counts the whole filtered hangar; the page starts after the cursor when one is given.
+    const [count, rows, archivedCount] = await Promise.all([
+      SetupModel.count({ where }),
+      SetupModel.findAll({
+        where: cursor ? { [Op.and]: [where, cursor] } : where,
+        order: [
+          [fn('lower', col('name')), 'ASC'],
+          ['id', 'ASC'],
+        ],
+        // One more than asked says whether a page follows.
+        limit: limit + 1,
+        offset,
+      }),
+      SetupModel.count({ where: archivedOnly }),
+    ]);
+    const page = rows.slice(0, limit);
+    res.json({
+      data: await presentModels(page, role, currentUser(req)),
+      pagination: {
+        ...pagination({ limit, offset }, count),
+        next_after: rows.length > limit ? page[page.length - 1].id : null,
+        // How many archived models the search matches, so the hangar can offer to show them.
+        archived: archivedCount,
+      },
     });
-    res.json({ data: await presentModels(rows, role, currentUser(req)), pagination: { limit, offset, total: count } });
   });
 
   router.post('/workspaces/:ws/models', signedIn, async (req, res) => {
     const input = parseInput(createModelSchema, req.body);
-    const { workspace, role } = await authorizeWorkspace(req, req.params.ws, 'create');
+    const { workspace, role } = await authorizeWorkspace(req, req.params.ws, modelPolicy, 'create');
     const user = currentUser(req);
     const { model, revision } = await createModel(sequelize, { workspace, author: user, ...input });
     res
@@ -70,11 +98,11 @@ export function modelsRouter({ sequelize, config }: AppContext): Router {
   });
 
   router.post('/workspaces/:ws/models/upload', signedIn, async (req, res) => {
-    const { workspace, role } = await authorizeWorkspace(req, req.params.ws, 'create');
+    const { workspace, role } = await authorizeWorkspace(req, req.params.ws, modelPolicy, 'create');
     const upload = await readSetupUpload(req, res);
     const fields = parseInput(uploadModelFields, upload.fields, 'Some form fields need attention.');
     const user = currentUser(req);
-    const setup = checkSetupText(upload.text);
+    const setup = checkSetupDocument(upload.text);
     const { model, revision } = await createModel(sequelize, {
       workspace,
       author: user,
@@ -97,9 +125,24 @@ export function modelsRouter({ sequelize, config }: AppContext): Router {
     const { name } = parseInput(renameModelSchema, req.body);
     const { model, role } = await authorizeModel(req, req.params.id, 'edit');
     const user = currentUser(req);
-    await renameModel(sequelize, model, name, user);
-    res.json({ data: await presentOneModel(model, role, user) });
+    const { revision } = await renameModel(sequelize, model, name, user);
+    res.json({
+      data: await presentOneModel(model, role, user),
+      revision: revision ? presentSavedRevision(revision) : null,
+    });
   });
+
+  for (const [verb, archived] of [
+    ['archive', true],
+    ['unarchive', false],
+  ] as const) {
+    router.post(`/models/:id/${verb}`, signedIn, async (req, res) => {
+      const { model, role } = await authorizeModel(req, req.params.id, 'edit');
+      const user = currentUser(req);
+      await setModelArchived(sequelize, model, archived, user);
+      res.json({ data: await presentOneModel(model, role, user) });
+    });
+  }
 
   router.post('/models/:id/fork', signedIn, async (req, res) => {
     const input = parseInput(forkSchema, req.body);
@@ -110,7 +153,7 @@ export function modelsRouter({ sequelize, config }: AppContext): Router {
         code: 'revision-not-found',
         details: { number: input.number },
       });
-    const { workspace, role } = await authorizeWorkspace(req, input.workspace, 'create');
+    const { workspace, role } = await authorizeWorkspace(req, input.workspace, modelPolicy, 'create');
     const user = currentUser(req);
     const { model, revision } = await forkModel(sequelize, {
       source: { model: sourceModel, revision: sourceRevision },
@@ -128,11 +171,11 @@ export function modelsRouter({ sequelize, config }: AppContext): Router {
     const { model } = await authorizeModel(req, req.params.id, 'edit');
     const upload = await readSetupUpload(req, res);
     const fields = parseInput(uploadRevisionFields, upload.fields, 'Some form fields need attention.');
-    const revision = await saveRevision(sequelize, {
+    const revision = await saveRevisionAtOnce(sequelize, {
       modelId: model.id,
       author: currentUser(req),
       base: fields.base,
-      yaml: upload.text,
+      setup: checkSetupDocument(upload.text),
       message: fields.message || `Uploaded ${upload.fileName}`,
       origin: 'upload',
     });

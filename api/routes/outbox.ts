@@ -7,10 +7,10 @@ import { authenticate, currentUser } from '../middleware/authenticate';
 import { OutboxMessage } from '../models';
 import { presentOutboxMessage } from '../presenters/outbox';
 import { parseInput } from '../validation';
-import { pageSchema } from './team-inputs';
+import { pageInput, pagination } from './paging';
 
 // `to` is gone: asking for another address's mail is refused as an unknown parameter.
-const outboxQuery = z.strictObject(pageSchema.shape);
+const outboxQuery = z.strictObject(pageInput(50).shape);
 
 /**
  * The mail the local mail server caught for the signed-in account's own address. It
@@ -40,7 +40,7 @@ export function outboxRouter(context: AppContext): Router {
         limit,
         offset,
       });
-      res.json({ data: rows.map(presentOutboxMessage), pagination: { limit, offset, total: count } });
+      res.json({ data: rows.map(presentOutboxMessage), pagination: pagination({ limit, offset }, count) });
     },
   );
 

@@ -1,11 +1,13 @@
 import { Router, type Request, type Response } from 'express';
-import multer, { MulterError } from 'multer';
+import multer from 'multer';
 import { z } from 'zod';
 import type { AppContext } from '../context';
-import { BadRequest, NotFound, TooLarge, Unprocessable, UnsupportedMediaType } from '../errors';
+import { BadRequest, NotFound, Unprocessable, UnsupportedMediaType } from '../errors';
 import { authenticate, currentUser } from '../middleware/authenticate';
+import { uploadError } from '../middleware/upload-error';
 import { SetupModel } from '../models';
-import { authorizeModel, authorizeWorkspace } from '../policies/model';
+import { modelPolicy } from '../policies/model';
+import { authorizeModel, authorizeWorkspace } from './authorize';
 import { loadExportModels, folderSlug } from '../portability/export-data';
 import { exportHistoryBundle } from '../portability/export-history';
 import { findImportJob, listImportJobs, queueImportJob } from '../portability/import-jobs';
@@ -31,23 +33,10 @@ const parser = multer({
   defParamCharset: 'utf8',
 }).single('file');
 
-function uploadError(error: unknown): Error {
-  if (error instanceof MulterError) {
-    if (error.code === 'LIMIT_FILE_SIZE')
-      return new TooLarge(`The file is larger than ${MAX_BUNDLE_BYTES / 1024 / 1024} MB.`, {
-        details: { limit: MAX_BUNDLE_BYTES },
-      });
-    return new BadRequest(`The upload form is not acceptable: ${error.message}.`, {
-      code: 'invalid-upload',
-      details: { reason: error.code },
-    });
-  }
-  return error instanceof Error && !('status' in error)
-    ? new BadRequest(`The upload could not be read: ${error.message}.`, { code: 'malformed-upload' })
-    : error instanceof Error
-      ? error
-      : new Error('The upload could not be read.', { cause: error });
-}
+const BUNDLE_LIMIT = {
+  bytes: MAX_BUNDLE_BYTES,
+  tooLarge: `The file is larger than ${MAX_BUNDLE_BYTES / 1024 / 1024} MB.`,
+};
 
 const HEADER_LINE = /^(?:[0-9a-f]{40}|[0-9a-f]{64}) \S+$/;
 const MAX_HEADER_BYTES = 1024 * 1024;
@@ -84,7 +73,7 @@ async function readBundleUpload(
     );
   }
   await new Promise<void>((resolve, reject) =>
-    parser(req, res, (error?: unknown) => (error ? reject(uploadError(error)) : resolve())),
+    parser(req, res, (error?: unknown) => (error ? reject(uploadError(error, BUNDLE_LIMIT)) : resolve())),
   );
   if (!req.file)
     throw new BadRequest('No file arrived: put the .bundle file in the form field named "file".', {
@@ -125,7 +114,7 @@ export function portabilityRouter({ sequelize, config }: AppContext): Router {
   });
 
   router.get('/workspaces/:ws/export.git', signedIn, async (req, res) => {
-    const { workspace } = await authorizeWorkspace(req, req.params.ws, 'read');
+    const { workspace } = await authorizeWorkspace(req, req.params.ws, modelPolicy, 'read');
     const models = await SetupModel.findAll({
       where: { workspaceId: workspace.id },
       order: [
@@ -141,7 +130,7 @@ export function portabilityRouter({ sequelize, config }: AppContext): Router {
   });
 
   router.post('/workspaces/:ws/import', signedIn, async (req, res) => {
-    const { workspace, role } = await authorizeWorkspace(req, req.params.ws, 'create');
+    const { workspace, role } = await authorizeWorkspace(req, req.params.ws, modelPolicy, 'create');
     const upload = await readBundleUpload(req, res);
     const fields = parseInput(importFields, upload.fields, 'Some form fields need attention.');
     const user = currentUser(req);
@@ -159,13 +148,13 @@ export function portabilityRouter({ sequelize, config }: AppContext): Router {
   });
 
   router.get('/workspaces/:ws/imports', signedIn, async (req, res) => {
-    const { workspace, role } = await authorizeWorkspace(req, req.params.ws, 'create');
+    const { workspace, role } = await authorizeWorkspace(req, req.params.ws, modelPolicy, 'create');
     const jobs = await listImportJobs(sequelize, workspace.id, 50);
     res.json({ data: await presentImportJobs(jobs, role, currentUser(req)) });
   });
 
   router.get('/workspaces/:ws/imports/:id', signedIn, async (req, res) => {
-    const { workspace, role } = await authorizeWorkspace(req, req.params.ws, 'create');
+    const { workspace, role } = await authorizeWorkspace(req, req.params.ws, modelPolicy, 'create');
     const id = idSchema.safeParse(req.params.id);
     const job = id.success ? await findImportJob(sequelize, workspace.id, id.data) : null;
     if (!job) throw new NotFound('There is no such import in this workspace.', { code: 'import-not-found' });

@@ -11,32 +11,32 @@ import { updateReceiver } from '../commands/update-receiver';
 import type { AppContext } from '../context';
 import { authenticate, currentUser } from '../middleware/authenticate';
 import { AuditEvent, Receiver, ReceiverInstall, SetupModel, User } from '../models';
-import { authorizeReceiver, authorizeShelf, modelOnShelf } from '../policies/receiver';
+import { receiverPolicy } from '../policies/receiver';
+import { authorizeReceiver, authorizeWorkspace, modelOnShelf } from './authorize';
 import { presentInstall, presentReceiver, presentReceiverEvent, presentReuseCheck } from '../presenters/receiver';
 import { checkAgainstLatest } from '../queries/receiver-slot';
+import { afterRow } from '../queries/keyset-page';
 import { openInstalls, presentOnShelf, presentShelf } from '../queries/shelf-view';
 import { parseInput } from '../validation';
+import { pageInput, pagination } from './paging';
 
 const escapeLike = (text: string): string => text.replace(/[\\%_]/g, '\\$&');
 
-const shelfQuery = z.object({
+// A unit's history is two lists, each paged on its own: where it has been, and what was recorded.
+const historyQuery = z.object({
+  limit: pageInput().shape.limit,
+  installs_offset: pageInput().shape.offset,
+  events_offset: pageInput().shape.offset,
+});
+
+const shelfQuery = pageInput(100).extend({
   q: z
     .string({ error: 'q is the text to search for.' })
     .trim()
     .max(100, 'Search for at most 100 characters.')
     .optional(),
   status: z.enum(['installed', 'free'], { error: 'status is installed or free.' }).optional(),
-  limit: z.coerce
-    .number({ error: 'limit must be a number.' })
-    .int('limit must be a whole number.')
-    .min(1, 'limit is at least 1.')
-    .max(200, 'limit is at most 200.')
-    .default(100),
-  offset: z.coerce
-    .number({ error: 'offset must be a number.' })
-    .int('offset must be a whole number.')
-    .min(0, 'offset is at least 0.')
-    .default(0),
+  after: z.uuid({ error: 'after is the id of the last receiver of the page before.' }).optional(),
 });
 
 const modelId = z.uuid({ error: 'model is the id of a model in this workspace.' });
@@ -63,9 +63,14 @@ export function receiversRouter({ sequelize, config }: AppContext): Router {
   const signedIn = authenticate(config);
 
   router.get('/workspaces/:ws/receivers', signedIn, async (req, res) => {
-    const { q, status, limit, offset } = parseInput(shelfQuery, req.query, 'The search parameters are not valid.');
-    const { workspace } = await authorizeShelf(req, req.params.ws, 'read');
+    const { q, status, limit, offset, after } = parseInput(
+      shelfQuery,
+      req.query,
+      'The search parameters are not valid.',
+    );
+    const { workspace } = await authorizeWorkspace(req, req.params.ws, receiverPolicy, 'read');
     const conditions: WhereOptions<Receiver>[] = [{ workspaceId: workspace.id }];
+    const cursor = after ? await afterRow(sequelize, 'receivers', workspace.id, after) : null;
     if (q) {
       const pattern = `%${escapeLike(q)}%`;
       conditions.push({
@@ -73,25 +78,39 @@ export function receiversRouter({ sequelize, config }: AppContext): Router {
           { label: { [Op.iLike]: pattern } },
           { mark: { [Op.iLike]: pattern } },
           { notes: { [Op.iLike]: pattern } },
+          // A code read off a label may be typed in lower case or with a space in the middle.
+          { shortCode: q.toUpperCase().replace(/[\s-]/g, '') },
         ],
       });
     }
     if (status) conditions.push(literal(status === 'installed' ? OPEN_INSTALL : `NOT ${OPEN_INSTALL}`));
-    const { rows, count } = await Receiver.findAndCountAll({
-      where: { [Op.and]: conditions },
-      order: [
-        [fn('lower', col('label')), 'ASC'],
-        ['id', 'ASC'],
-      ],
-      limit,
-      offset,
+    // The total counts the whole filtered shelf; the page starts after the cursor when one is given.
+    const [count, rows] = await Promise.all([
+      Receiver.count({ where: { [Op.and]: conditions } }),
+      Receiver.findAll({
+        where: { [Op.and]: cursor ? [...conditions, cursor] : conditions },
+        order: [
+          [fn('lower', col('label')), 'ASC'],
+          ['id', 'ASC'],
+        ],
+        // One more than asked says whether a page follows.
+        limit: limit + 1,
+        offset,
+      }),
+    ]);
+    const page = rows.slice(0, limit);
+    res.json({
+      data: await presentShelf(page),
+      pagination: {
+        ...pagination({ limit, offset }, count),
+        next_after: rows.length > limit ? page[page.length - 1].id : null,
+      },
     });
-    res.json({ data: await presentShelf(rows), pagination: { limit, offset, total: count } });
   });
 
   router.post('/workspaces/:ws/receivers', signedIn, async (req, res) => {
     const input = parseInput(createReceiverSchema, req.body);
-    const { workspace } = await authorizeShelf(req, req.params.ws, 'write');
+    const { workspace } = await authorizeWorkspace(req, req.params.ws, receiverPolicy, 'write');
     const receiver = await addReceiver(sequelize, { workspace, actor: currentUser(req), ...input });
     res.status(201).json({ data: presentReceiver(receiver, { install: null }) });
   });
@@ -103,12 +122,9 @@ export function receiversRouter({ sequelize, config }: AppContext): Router {
 
   router.patch('/receivers/:id', signedIn, async (req, res) => {
     const input = parseInput(updateReceiverSchema, req.body);
-    const presented = await sequelize.transaction(async (transaction) => {
-      const { receiver } = await authorizeReceiver(req, req.params.id, 'write', transaction);
-      await updateReceiver(receiver, input, currentUser(req), transaction);
-      return presentOnShelf(receiver, transaction);
-    });
-    res.json({ data: presented });
+    const { receiver: found } = await authorizeReceiver(req, req.params.id, 'write');
+    const receiver = await updateReceiver(sequelize, { receiverId: found.id, changes: input, actor: currentUser(req) });
+    res.json({ data: await presentOnShelf(receiver) });
   });
 
   router.get('/receivers/:id/reuse-check', signedIn, async (req, res) => {
@@ -193,9 +209,12 @@ export function receiversRouter({ sequelize, config }: AppContext): Router {
   });
 
   router.get('/receivers/:id/history', signedIn, async (req, res) => {
+    const query = parseInput(historyQuery, req.query, 'The paging parameters are not valid.');
     const { receiver } = await authorizeReceiver(req, req.params.id, 'read');
+    const installsPage = { limit: query.limit, offset: query.installs_offset };
+    const eventsPage = { limit: query.limit, offset: query.events_offset };
     const [installs, events] = await Promise.all([
-      ReceiverInstall.findAll({
+      ReceiverInstall.findAndCountAll({
         where: { receiverId: receiver.id },
         include: [
           { model: SetupModel, as: 'model', attributes: ['id', 'name'] },
@@ -206,23 +225,24 @@ export function receiversRouter({ sequelize, config }: AppContext): Router {
           ['installedAt', 'DESC'],
           ['id', 'DESC'],
         ],
+        ...installsPage,
       }),
-      AuditEvent.findAll({
+      AuditEvent.findAndCountAll({
         where: { workspaceId: receiver.workspaceId, subjectType: 'receiver', subjectId: receiver.id },
         include: [{ model: User, as: 'actor', attributes: ['id', 'name'] }],
+        // A move ends one stay and begins the next at the same instant: newest first, the arrival leads.
         order: [
           ['createdAt', 'DESC'],
+          [literal(`CASE WHEN "AuditEvent"."action" = 'receiver.installed' THEN 0 ELSE 1 END`), 'ASC'],
           ['id', 'DESC'],
         ],
-        limit: 500,
+        ...eventsPage,
       }),
     ]);
-    // A move ends one stay and begins the next at the same instant: newest first, the arrival leads.
-    const rank = (action: string) => (action === 'receiver.installed' ? 0 : 1);
-    const timeline = [...events].sort(
-      (a, b) => b.createdAt.getTime() - a.createdAt.getTime() || rank(a.action) - rank(b.action),
-    );
-    res.json({ data: { installs: installs.map(presentInstall), events: timeline.map(presentReceiverEvent) } });
+    res.json({
+      data: { installs: installs.rows.map(presentInstall), events: events.rows.map(presentReceiverEvent) },
+      pagination: { installs: pagination(installsPage, installs.count), events: pagination(eventsPage, events.count) },
+    });
   });
 
   return router;

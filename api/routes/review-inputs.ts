@@ -2,7 +2,7 @@ import { z } from 'zod';
 import { CHECKLIST_IDS } from '../reviews/checklist';
 import { VERDICTS } from '../models/ReviewVerdict';
 import type { BaseChoice } from '../queries/review-views';
-import { pageSchema } from './team-inputs';
+import { pageInput } from './paging';
 
 const text = (field: string, max: number) =>
   z
@@ -62,7 +62,7 @@ export const replySchema = z.strictObject({ body: text('the reply', 4000).min(1,
 /** Resolve and reopen take nothing but the thread in the address. */
 export const emptyBody = z.strictObject({});
 
-export const commentListQuery = pageSchema.extend({
+export const commentListQuery = pageInput(100).extend({
   status: z.enum(['open', 'resolved', 'all'], { error: 'status is open, resolved or all.' }).default('all'),
 });
 
@@ -87,6 +87,6 @@ export const reviewDetailQuery = z.object({
     }),
 });
 
-export const reviewListQuery = pageSchema.extend({
+export const reviewListQuery = pageInput(50).extend({
   status: z.enum(['open', 'closed', 'all'], { error: 'status is open, closed or all.' }).default('all'),
 });

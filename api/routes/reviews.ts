@@ -1,14 +1,15 @@
 import { Router, type Request, type Response } from 'express';
 import { Op } from 'sequelize';
-import { giveVerdict, setTicks } from '../commands/give-verdict';
+import { giveVerdict } from '../commands/give-verdict';
 import { startThread, stepThread, type ThreadStep } from '../commands/comment-threads';
 import { requestReview } from '../commands/request-review';
+import { tickChecklist } from '../commands/tick-checklist';
 import type { AppContext } from '../context';
 import { mailFor } from '../mail/context';
 import { authenticate, currentUser } from '../middleware/authenticate';
 import { ReviewComment, Revision, Workspace } from '../models';
-import { authorizeModel, authorizeRevision, authorizeWorkspace } from '../policies/model';
-import { authorizeComment, authorizeReview } from '../policies/review';
+import { reviewPolicy } from '../policies/review';
+import { authorizeComment, authorizeModel, authorizeReview, authorizeRevision, authorizeWorkspace } from './authorize';
 import { presentVerdict } from '../presenters/review';
 import {
   loadReviews,
@@ -18,6 +19,7 @@ import {
   threadsShownOn,
 } from '../queries/review-views';
 import { parseInput } from '../validation';
+import { pagination } from './paging';
 import {
   commentListQuery,
   commentSchema,
@@ -40,7 +42,8 @@ export function reviewsRouter(context: AppContext): Router {
 
   router.post('/revisions/:id/reviews', signedIn, async (req, res) => {
     const input = parseInput(requestReviewSchema, req.body);
-    const { revision, model } = await authorizeRevision(req, req.params.id, 'edit');
+    // The document, for the mail's "Between these revisions".
+    const { revision, model } = await authorizeRevision(req, req.params.id, 'edit', { fields: ['document'] });
     const workspace = await Workspace.findByPk(model.workspaceId, { rejectOnEmpty: true });
     const review = await requestReview(sequelize, mailFor(context), {
       workspace,
@@ -56,19 +59,19 @@ export function reviewsRouter(context: AppContext): Router {
 
   router.get('/workspaces/:ws/reviews', signedIn, async (req, res) => {
     const { limit, offset, status } = parseInput(reviewListQuery, req.query, 'The list parameters are not valid.');
-    const { workspace } = await authorizeWorkspace(req, req.params.ws, 'read');
+    const { workspace } = await authorizeWorkspace(req, req.params.ws, reviewPolicy, 'read');
     const { rows, count } = await loadReviews(
       { workspaceId: workspace.id, ...STATUS_WHERE[status] },
       { limit, offset },
     );
-    res.json({ data: await presentReviewList(rows), pagination: { limit, offset, total: count } });
+    res.json({ data: await presentReviewList(rows), pagination: pagination({ limit, offset }, count) });
   });
 
   router.get('/models/:id/reviews', signedIn, async (req, res) => {
     const { limit, offset, status } = parseInput(reviewListQuery, req.query, 'The list parameters are not valid.');
     const { model } = await authorizeModel(req, req.params.id, 'read');
     const { rows, count } = await loadReviews({ modelId: model.id, ...STATUS_WHERE[status] }, { limit, offset });
-    res.json({ data: await presentReviewList(rows), pagination: { limit, offset, total: count } });
+    res.json({ data: await presentReviewList(rows), pagination: pagination({ limit, offset }, count) });
   });
 
   router.get('/reviews/:id', signedIn, async (req, res) => {
@@ -98,9 +101,11 @@ export function reviewsRouter(context: AppContext): Router {
   router.post('/reviews/:id/checklist', signedIn, async (req, res) => {
     const input = parseInput(tickSchema, req.body);
     const access = await authorizeReview(req, req.params.id, 'tick');
-    await sequelize.transaction((transaction) =>
-      setTicks(access.review, currentUser(req), { [input.item]: input.ticked }, transaction),
-    );
+    await tickChecklist(sequelize, {
+      review: access.review,
+      user: currentUser(req),
+      changes: { [input.item]: input.ticked },
+    });
     const detail = await reviewDetail(access, currentUser(req));
     res.json({ data: detail.checklist });
   });
@@ -133,13 +138,13 @@ export function reviewsRouter(context: AppContext): Router {
   });
 
   router.get('/revisions/:id/comments', signedIn, async (req, res) => {
-    const { limit, offset, status } = parseInput(commentListQuery, req.query, 'The list parameters are not valid.');
+    const page = parseInput(commentListQuery, req.query, 'The list parameters are not valid.');
     const { revision } = await authorizeRevision(req, req.params.id, 'read', { full: true });
-    const threads = await threadsShownOn(revision, status);
-    res.json({
-      data: await presentThreadsOn(revision, threads.slice(offset, offset + limit)),
-      pagination: { limit, offset, total: threads.length },
-    });
+    // Which threads a revision shows depends on its document (anchored ones carry
+    // forward while their path exists), so the page is cut after that choice.
+    const threads = await threadsShownOn(revision, page.status);
+    const shown = threads.slice(page.offset, page.offset + page.limit);
+    res.json({ data: await presentThreadsOn(revision, shown), pagination: pagination(page, threads.length) });
   });
 
   const threadStep = (step: ThreadStep) => async (req: Request, res: Response) => {

@@ -1,15 +1,16 @@
-import { Router, type Response } from 'express';
+import { Router, type Request, type Response } from 'express';
 import { Op } from 'sequelize';
 import { z } from 'zod';
 import { jsonPatch } from '@shared/diff';
 import { revertRevision } from '../commands/revert-revision';
-import { saveRevision } from '../commands/save-revision';
+import { checkSetupText, type CheckedSetup } from '../revisions/check-setup';
+import { saveRevisionAtOnce } from '../commands/save-revision-at-once';
 import { tagNamesOf, tagRevision, untagRevision } from '../commands/tag-revision';
 import type { AppContext } from '../context';
 import { NotFound } from '../errors';
 import { authenticate, currentUser } from '../middleware/authenticate';
 import { Revision, User, type SetupModel } from '../models';
-import { authorizeModel, authorizeRevision } from '../policies/model';
+import { authorizeModel, authorizeRevision } from './authorize';
 import { revisionFileName } from '../presenters/download-name';
 import { sendAsDownload } from '../security/content-disposition';
 import { presentRevision, presentRevisionSummary, presentSavedRevision } from '../presenters/revision';
@@ -31,14 +32,34 @@ function sendYaml(res: Response, model: SetupModel, revision: Revision, download
   res.send(Buffer.from(revision.yamlText, 'utf8'));
 }
 
+/**
+ * Reads and checks the text before the save's one statement (which checks the caller's
+ * role itself). When the text is refused, the caller's access is checked first, so a
+ * stranger still gets 404 and a viewer 403, never the text's refusal.
+ */
+async function checkedForEditor(req: Request, modelId: unknown, yaml: string): Promise<CheckedSetup> {
+  try {
+    return checkSetupText(yaml);
+  } catch (error) {
+    await authorizeModel(req, modelId, 'edit');
+    throw error;
+  }
+}
+
 export function revisionsRouter({ sequelize, config }: AppContext): Router {
   const router = Router();
   const signedIn = authenticate(config);
 
   router.post('/models/:id/revisions', signedIn, async (req, res) => {
     const input = parseInput(saveRevisionSchema, req.body);
-    const { model } = await authorizeModel(req, req.params.id, 'edit');
-    const revision = await saveRevision(sequelize, { modelId: model.id, author: currentUser(req), ...input });
+    const revision = await saveRevisionAtOnce(sequelize, {
+      modelId: req.params.id,
+      author: currentUser(req),
+      base: input.base,
+      setup: await checkedForEditor(req, req.params.id, input.yaml),
+      message: input.message ?? '',
+      origin: 'save',
+    });
     res.status(201).json({ data: presentSavedRevision(revision) });
   });
 

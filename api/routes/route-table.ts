@@ -82,6 +82,8 @@ export const ROUTE_TABLE: readonly RouteEntry[] = [
   { method: 'POST', path: '/api/workspaces/:ws/models/upload', access: 'editor' },
   { method: 'GET', path: '/api/models/:id', access: 'viewer' },
   { method: 'PATCH', path: '/api/models/:id', access: 'editor' },
+  { method: 'POST', path: '/api/models/:id/archive', access: 'editor' },
+  { method: 'POST', path: '/api/models/:id/unarchive', access: 'editor' },
   {
     method: 'POST',
     path: '/api/models/:id/fork',

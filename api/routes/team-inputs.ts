@@ -47,17 +47,3 @@ export const acceptSchema = z
 export const resetRequestSchema = z.strictObject({ email: emailField });
 
 export const resetConfirmSchema = z.strictObject({ password: passwordField });
-
-export const pageSchema = z.object({
-  limit: z.coerce
-    .number({ error: 'limit must be a number.' })
-    .int('limit must be a whole number.')
-    .min(1, 'limit is at least 1.')
-    .max(200, 'limit is at most 200.')
-    .default(50),
-  offset: z.coerce
-    .number({ error: 'offset must be a number.' })
-    .int('offset must be a whole number.')
-    .min(0, 'offset is at least 0.')
-    .default(0),
-});

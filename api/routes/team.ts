@@ -1,20 +1,21 @@
 import { Router } from 'express';
 import { changeMemberRole, removeMember } from '../commands/manage-members';
-import { inviteMember, pendingInvitations } from '../commands/invite-member';
-import { recordAuditEvent } from '../commands/record-audit-event';
+import { inviteMember } from '../commands/invite-member';
+import { invitationNotFound, revokeInvitation } from '../commands/revoke-invitation';
 import type { AppContext } from '../context';
 import { NotFound } from '../errors';
 import { mailFor } from '../mail/context';
 import { authenticate, currentUser } from '../middleware/authenticate';
-import { Invitation } from '../models';
-import { requireRole } from '../policies/workspace';
+import { authorizeWorkspaceAction } from './authorize';
 import { presentInvitation } from '../presenters/invitation';
+import { pendingInvitations } from '../queries/invitations';
 import { presentMember } from '../presenters/workspace';
 import { idSchema, parseInput } from '../validation';
+import { pageInput, pagination } from './paging';
 import { changeRoleSchema, inviteSchema } from './team-inputs';
 
-const invitationNotFound = () =>
-  new NotFound('No such invitation in this workspace.', { code: 'invitation-not-found' });
+const invitationsQuery = pageInput(50);
+
 const memberNotFound = () =>
   new NotFound('This person is not a member of the workspace.', { code: 'member-not-found' });
 
@@ -31,14 +32,15 @@ export function teamRouter(context: AppContext): Router {
   const signedIn = authenticate(config);
 
   router.get('/workspaces/:ws/invitations', signedIn, async (req, res) => {
-    const { workspace } = await requireRole(req, req.params.ws, 'owner');
-    const invitations = await pendingInvitations(workspace.id);
-    res.json({ data: invitations.map((invitation) => presentInvitation(invitation)) });
+    const page = parseInput(invitationsQuery, req.query, 'The paging parameters are not valid.');
+    const { workspace } = await authorizeWorkspaceAction(req, req.params.ws, 'manage-team');
+    const { rows, count } = await pendingInvitations(workspace.id, page);
+    res.json({ data: rows.map((invitation) => presentInvitation(invitation)), pagination: pagination(page, count) });
   });
 
   router.post('/workspaces/:ws/invitations', signedIn, async (req, res) => {
     const input = parseInput(inviteSchema, req.body);
-    const { workspace } = await requireRole(req, req.params.ws, 'owner');
+    const { workspace } = await authorizeWorkspaceAction(req, req.params.ws, 'manage-team');
     const invitation = await inviteMember(sequelize, config, mailFor(context), {
       workspace,
       inviter: currentUser(req),
@@ -48,37 +50,16 @@ export function teamRouter(context: AppContext): Router {
   });
 
   router.delete('/workspaces/:ws/invitations/:id', signedIn, async (req, res) => {
-    const { workspace } = await requireRole(req, req.params.ws, 'owner');
+    const { workspace } = await authorizeWorkspaceAction(req, req.params.ws, 'manage-team');
     const id = idSchema.safeParse(req.params.id);
     if (!id.success) throw invitationNotFound();
-    const invitation = await sequelize.transaction(async (transaction) => {
-      const found = await Invitation.findOne({
-        where: { id: id.data, workspaceId: workspace.id },
-        lock: transaction.LOCK.UPDATE,
-        transaction,
-      });
-      if (!found) throw invitationNotFound();
-      if (found.statusAt(new Date()) !== 'pending') return found;
-      await found.update({ revokedAt: new Date() }, { transaction });
-      await recordAuditEvent(
-        {
-          workspaceId: workspace.id,
-          actor: currentUser(req),
-          action: 'invitation.revoked',
-          subjectType: 'invitation',
-          subjectId: found.id,
-          details: { email: found.email, role: found.role },
-        },
-        transaction,
-      );
-      return found;
-    });
+    const invitation = await revokeInvitation(sequelize, { workspace, invitationId: id.data, actor: currentUser(req) });
     res.json({ data: presentInvitation(invitation) });
   });
 
   router.patch('/workspaces/:ws/members/:userId', signedIn, async (req, res) => {
     const { role } = parseInput(changeRoleSchema, req.body);
-    const { workspace } = await requireRole(req, req.params.ws, 'owner');
+    const { workspace } = await authorizeWorkspaceAction(req, req.params.ws, 'manage-team');
     const membership = await changeMemberRole(sequelize, {
       workspace,
       actor: currentUser(req),
@@ -91,8 +72,10 @@ export function teamRouter(context: AppContext): Router {
   router.delete('/workspaces/:ws/members/:userId', signedIn, async (req, res) => {
     const actor = currentUser(req);
     const userId = userIdParam(req.params.userId);
-    // Leaving needs only membership; removing someone else needs an owner.
-    const { workspace } = await requireRole(req, req.params.ws, userId === actor.id ? 'viewer' : 'owner');
+    const { workspace } = await authorizeWorkspaceAction(req, req.params.ws, 'remove-member', {
+      userId,
+      callerId: actor.id,
+    });
     await removeMember(sequelize, { workspace, actor, userId });
     res.json({ data: { removed: true, user_id: userId, left: userId === actor.id } });
   });

@@ -4,7 +4,8 @@ import { createWorkspace } from '../commands/create-workspace';
 import type { AppContext } from '../context';
 import { authenticate, currentUser } from '../middleware/authenticate';
 import { Membership, User } from '../models';
-import { requireRole } from '../policies/workspace';
+import { authorizeWorkspaceAction } from './authorize';
+import { pageInput, pagination } from './paging';
 import { presentMember, presentWorkspace } from '../presenters/workspace';
 import { SINGLE_LINE_MESSAGE, parseInput, singleLine } from '../validation';
 
@@ -19,19 +20,7 @@ const createSchema = z.object({ name: workspaceName });
 // Strict: a misspelt field in a change would otherwise be dropped without a word.
 const updateSchema = z.strictObject({ name: workspaceName.optional() });
 
-const pageSchema = z.object({
-  limit: z.coerce
-    .number({ error: 'limit must be a number.' })
-    .int('limit must be a whole number.')
-    .min(1, 'limit is at least 1.')
-    .max(200, 'limit is at most 200.')
-    .default(100),
-  offset: z.coerce
-    .number({ error: 'offset must be a number.' })
-    .int('offset must be a whole number.')
-    .min(0, 'offset is at least 0.')
-    .default(0),
-});
+const membersQuery = pageInput(100);
 
 export function workspacesRouter({ sequelize, config }: AppContext): Router {
   const router = Router();
@@ -39,27 +28,25 @@ export function workspacesRouter({ sequelize, config }: AppContext): Router {
 
   router.post('/workspaces', async (req, res) => {
     const { name } = parseInput(createSchema, req.body);
-    const workspace = await sequelize.transaction((transaction) =>
-      createWorkspace(currentUser(req), name, transaction),
-    );
+    const workspace = await createWorkspace(sequelize, { owner: currentUser(req), name });
     res.status(201).json({ data: presentWorkspace(workspace, 'owner') });
   });
 
   router.get('/workspaces/:ws', async (req, res) => {
-    const { workspace, role } = await requireRole(req, req.params.ws, 'viewer');
+    const { workspace, role } = await authorizeWorkspaceAction(req, req.params.ws, 'read');
     res.json({ data: presentWorkspace(workspace, role) });
   });
 
   router.patch('/workspaces/:ws', async (req, res) => {
-    const { workspace, role } = await requireRole(req, req.params.ws, 'owner');
+    const { workspace, role } = await authorizeWorkspaceAction(req, req.params.ws, 'rename');
     const changes = parseInput(updateSchema, req.body);
     if (changes.name !== undefined) await workspace.update({ name: changes.name });
     res.json({ data: presentWorkspace(workspace, role) });
   });
 
   router.get('/workspaces/:ws/members', async (req, res) => {
-    const { workspace } = await requireRole(req, req.params.ws, 'viewer');
-    const { limit, offset } = parseInput(pageSchema, req.query, 'The paging parameters are not valid.');
+    const { workspace } = await authorizeWorkspaceAction(req, req.params.ws, 'read-members');
+    const { limit, offset } = parseInput(membersQuery, req.query, 'The paging parameters are not valid.');
     const { rows, count } = await Membership.findAndCountAll({
       where: { workspaceId: workspace.id },
       include: [{ model: User, as: 'user', required: true }],
@@ -70,7 +57,7 @@ export function workspacesRouter({ sequelize, config }: AppContext): Router {
       limit,
       offset,
     });
-    res.json({ data: rows.map(presentMember), pagination: { limit, offset, total: count } });
+    res.json({ data: rows.map(presentMember), pagination: pagination({ limit, offset }, count) });
   });
 
   return router;

@@ -6,6 +6,26 @@ interface CounterRow {
   reset_at: Date;
 }
 
+// Rows deleted per prune; a backlog larger than this goes with the next new windows.
+const PRUNE_BATCH = 500;
+
+/**
+ * Deletes counters whose window has ended: they count nothing any more, and a row per
+ * guessed address or e-mail would otherwise stay for ever. Run whenever a write opens a
+ * new window (at most once per key and window, so the table stays about as large as the
+ * live counters); SKIP LOCKED leaves rows another request is counting right now, so a
+ * prune never waits on a sign-in. Returns how many rows went.
+ */
+export async function pruneExpiredRateLimits(sequelize: Sequelize): Promise<number> {
+  const rows = await sequelize.query(
+    `DELETE FROM rate_limits
+      WHERE key IN (SELECT key FROM rate_limits WHERE reset_at <= now() LIMIT ${PRUNE_BATCH} FOR UPDATE SKIP LOCKED)
+      RETURNING key`,
+    { type: QueryTypes.SELECT },
+  );
+  return rows.length;
+}
+
 /**
  * An express-rate-limit store over the rate_limits table (migration 0008), so the
  * counters survive restarts and are shared by every API process on the database.
@@ -37,6 +57,7 @@ export class PostgresRateLimitStore implements Store {
        RETURNING hits, reset_at`,
       { replacements: { key: this.prefix + key, windowMs: this.windowMs }, type: QueryTypes.SELECT },
     );
+    if (row.hits === 1) await pruneExpiredRateLimits(this.sequelize);
     return { totalHits: row.hits, resetTime: new Date(row.reset_at) };
   }
 

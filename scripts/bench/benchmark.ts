@@ -15,6 +15,8 @@ export interface Timing {
   median: number;
   p95: number;
   runs: number;
+  /** Operations completed per second over the whole run, for load runs. */
+  perSecond?: number;
 }
 
 function quantile(sorted: readonly number[], q: number): number {

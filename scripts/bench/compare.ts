@@ -1,30 +1,18 @@
-import { execFileSync } from 'node:child_process';
-import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { execFileSync, spawnSync } from 'node:child_process';
+import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { parseDocument } from 'yaml';
-import { makeStressSetup } from '../../fixtures/stress';
 import { analyzeSetup } from '@shared/analyze';
 import { compareRevisions, type CompareSide } from '@shared/diff';
 import type { Benchmark } from './benchmark';
-import { DEMO_FILE } from './setup-check';
+import { demoPair, stressPair } from './support/compare-pairs';
 
 // Compare of two revisions as the server does it (stored text, document and findings
 // in; changes, counts, findings delta, outputs delta and text diff out), for the demo
 // setup and the stress setup. For reference, the same revisions are stored as commits
 // in a plain git repository in a temp folder and `git diff` is timed on the same
-// pairs; the ratio of the medians is printed after the table.
-
-type Edit = (doc: ReturnType<typeof parseDocument>) => void;
-
-// The second revision is the first with a typical save's edits. Both texts come from
-// the same serialiser, so the text diff sees only the edited lines.
-function revisions(text: string, edit: Edit): [string, string] {
-  const before = parseDocument(text);
-  const after = parseDocument(text);
-  edit(after);
-  return [before.toString({ lineWidth: 0 }), after.toString({ lineWidth: 0 })];
-}
+// pairs, and `git diff --no-index` on the stress pair as two plain files; index.ts
+// prints the ratios.
 
 function side(text: string): CompareSide {
   const analysis = analyzeSetup(text);
@@ -33,37 +21,8 @@ function side(text: string): CompareSide {
   return { text, data: analysis.data, findings: analysis.findings };
 }
 
-const demoPair = revisions(readFileSync(DEMO_FILE, 'utf8'), (doc) => {
-  doc.setIn(['mixes', 0, 'weight'], 80);
-  doc.setIn(['receivers', 1, 'map', 2, 'failsafe'], 1400);
-  doc.setIn(['link', 'packet_rate_hz'], 150);
-});
-const stressPair = revisions(makeStressSetup(), (doc) => {
-  for (const index of [5, 77, 150, 230]) doc.setIn(['mixes', index, 'expo'], 15);
-  doc.setIn(['mixes', 40, 'id'], 'mix-41-renamed');
-  doc.setIn(['receivers', 2, 'map', 3, 'failsafe'], 1400);
-});
 const demo = demoPair.map(side) as [CompareSide, CompareSide];
 const stress = stressPair.map(side) as [CompareSide, CompareSide];
-
-// Durations of the timed work, recorded by the runs themselves so that the ratio uses
-// the runner's own runs (warm-up runs included, which the median barely feels).
-const recorded = new Map<string, number[]>();
-function timed(key: string, work: () => unknown): () => unknown {
-  return () => {
-    const start = performance.now();
-    const result = work();
-    const list = recorded.get(key) ?? [];
-    list.push(performance.now() - start);
-    recorded.set(key, list);
-    return result;
-  };
-}
-
-function median(values: number[]): number {
-  const sorted = [...values].sort((a, b) => a - b);
-  return sorted[Math.floor(sorted.length / 2)];
-}
 
 // A repository of its own: no user or system configuration, hooks or signing.
 function gitRepository(): { git: (...args: string[]) => string; dir: string } | null {
@@ -107,19 +66,26 @@ function commit(
   return repo.git('rev-parse', 'HEAD').trim();
 }
 
+/** `git diff --no-index` of two files in the repository's folder; it exits 1 when they differ. */
+function diffFiles(repo: NonNullable<ReturnType<typeof gitRepository>>, a: string, b: string): string {
+  const result = spawnSync('git', ['diff', '--no-index', '--', a, b], { cwd: repo.dir, encoding: 'utf8' });
+  if (result.status !== 1) throw new Error(`git diff --no-index answered ${result.status}: ${result.stderr}`);
+  return result.stdout;
+}
+
 const repo = gitRepository();
 
 export const benchmarks: Benchmark[] = [
   {
     name: 'compare, demo revisions (diff, deltas, text)',
     budgetMs: 10,
-    run: timed('compare demo', () => compareRevisions(demo[0], demo[1])),
+    run: () => compareRevisions(demo[0], demo[1]),
   },
   {
     name: 'compare, stress revisions (32 ch, 300 mixes)',
     budgetMs: 50,
     iterations: 100,
-    run: timed('compare stress', () => compareRevisions(stress[0], stress[1])),
+    run: () => compareRevisions(stress[0], stress[1]),
   },
 ];
 
@@ -128,6 +94,8 @@ if (repo) {
   const [stressA, stressB] = stressPair.map((text, index) =>
     commit(repo, 'stress.yaml', text, `stress revision ${index + 1}`),
   );
+  writeFileSync(join(repo.dir, 'stress-before.yaml'), stressPair[0]);
+  writeFileSync(join(repo.dir, 'stress-after.yaml'), stressPair[1]);
   let saves = 0;
   benchmarks.push(
     {
@@ -141,28 +109,21 @@ if (repo) {
     {
       name: 'git (reference): git diff, demo revisions',
       iterations: 50,
-      run: timed('git demo', () => repo.git('diff', demoA, demoB, '--', 'demo.yaml')),
+      run: () => repo.git('diff', demoA, demoB, '--', 'demo.yaml'),
+    },
+    {
+      // The two files as files, outside any repository: what `git diff` costs a pilot
+      // comparing two exported setups, process start included.
+      name: 'git (reference): git diff --no-index, stress files',
+      iterations: 50,
+      run: () => diffFiles(repo, 'stress-before.yaml', 'stress-after.yaml'),
     },
     {
       name: 'git (reference): git diff, stress revisions',
       iterations: 50,
-      run: timed('git stress', () => repo.git('diff', stressA, stressB, '--', 'stress.yaml')),
+      run: () => repo.git('diff', stressA, stressB, '--', 'stress.yaml'),
     },
   );
-  process.once('beforeExit', () => {
-    const lines: string[] = [];
-    for (const pair of ['demo', 'stress']) {
-      const ours = recorded.get(`compare ${pair}`);
-      const theirs = recorded.get(`git ${pair}`);
-      if (!ours || !theirs) continue;
-      const ratio = median(ours) / median(theirs);
-      lines.push(
-        `compare / git diff, ${pair} revisions: ${ratio.toFixed(2)} (${median(ours).toFixed(3)} ms vs ${median(theirs).toFixed(3)} ms, git including its process start)`,
-      );
-    }
-    // With --json the runner prints these ratios inside its JSON document.
-    if (lines.length > 0 && !process.argv.includes('--json')) console.log(lines.join('\n'));
-  });
 } else {
   console.log('git is not available: the git reference timings are skipped.');
 }

@@ -7,16 +7,20 @@ import { benchDatabase, closeBenchDatabase } from './support/bench-database';
 import { benchPilot, demoVariant } from './support/bench-fixtures';
 
 // /api/health, asked again and again while the same API process imports a history of
-// 2,000 revisions as a job. The figure is the health check's latency during the
-// import: the import yields between small batches, so it stays near an idle server's.
-// The import's own time is printed beside it.
+// 2,000 revisions as a job, and while it refuses hostile bundles (20,000 commits;
+// messages of 3 MB). The figure is the health check's latency during the job: the
+// import yields between small batches and reads git's output as a stream, so it stays
+// near an idle server's. The job's own time is printed beside it.
 
 const REVISIONS = 2_000;
 
-async function measureHealthDuringImport(): Promise<AsyncTiming> {
+/**
+ * Health-check latencies while the API process takes `bundle` as an import job, until
+ * the job ends in `expected`; prints how long the job took.
+ */
+async function healthDuring(label: string, bundle: Buffer, expected: 'done' | 'failed'): Promise<AsyncTiming> {
   const { url } = await benchDatabase();
   const { user, workspace } = await benchPilot();
-  const bundle = bundleOf(setupCommits(REVISIONS, demoVariant));
   const api = await startApiProcess(url);
   try {
     const headers = { Authorization: `Bearer ${signSession(user, api.config)}` };
@@ -31,6 +35,7 @@ async function measureHealthDuringImport(): Promise<AsyncTiming> {
     const job = (await queued.json()) as { data?: { id: string } };
     if (queued.status !== 202 || !job.data) throw new Error(`the import answered ${queued.status}`);
     const latencies: number[] = [];
+    let ended: { state: string; error: { status: number; code: string } | null };
     for (;;) {
       const start = performance.now();
       const health = await fetch(`${api.url}/api/health`);
@@ -39,12 +44,16 @@ async function measureHealthDuringImport(): Promise<AsyncTiming> {
       if (health.status !== 200) throw new Error(`health answered ${health.status} during the import`);
       const state = (await (
         await fetch(`${api.url}/api/workspaces/${workspace.id}/imports/${job.data.id}`, { headers })
-      ).json()) as { data: { state: string; error: unknown } };
-      if (state.data.state === 'failed') throw new Error(`the import failed: ${JSON.stringify(state.data.error)}`);
-      if (state.data.state === 'done') break;
+      ).json()) as { data: typeof ended };
+      if (state.data.state === 'done' || state.data.state === 'failed') {
+        ended = state.data;
+        break;
+      }
     }
+    if (ended.state !== expected) throw new Error(`the import of ${label} ended ${ended.state}, not ${expected}`);
+    const how = ended.error ? `refused ${ended.error.status} ${ended.error.code}` : 'done';
     console.log(
-      `  (import of ${REVISIONS} revisions took ${((performance.now() - started) / 1000).toFixed(1)} s; ${latencies.length} health checks meanwhile)`,
+      `  (${label}: ${how} after ${((performance.now() - started) / 1000).toFixed(2)} s; ${latencies.length} health checks meanwhile)`,
     );
     return timingOf(latencies);
   } finally {
@@ -52,12 +61,41 @@ async function measureHealthDuringImport(): Promise<AsyncTiming> {
   }
 }
 
+// The hostile bundles of issue 12: they must be refused quickly (printed) while the
+// health check keeps answering within 200 ms.
+const HOSTILE_COMMITS = 20_000;
+const hugeMessages = () =>
+  bundleOf(
+    [...setupCommits(10, demoVariant)].map((commit, i) => ({
+      ...commit,
+      message: i === 0 ? 'First' : 'Tuned the flaps. '.repeat((3 * 1024 * 1024) / 17),
+    })),
+  );
+
 export const asyncBenchmarks: AsyncBenchmark[] = [
   {
     name: `health check while importing ${REVISIONS.toLocaleString('en')} revisions`,
     budgetMs: 250,
     budgetOn: 'p95',
-    measure: measureHealthDuringImport,
+    measure: () =>
+      healthDuring(`import of ${REVISIONS} revisions`, bundleOf(setupCommits(REVISIONS, demoVariant)), 'done'),
+  },
+  {
+    name: `health check while refusing ${HOSTILE_COMMITS.toLocaleString('en')} commits`,
+    budgetMs: 200,
+    budgetOn: 'p95',
+    measure: () =>
+      healthDuring(
+        `${HOSTILE_COMMITS} small commits`,
+        bundleOf(setupCommits(HOSTILE_COMMITS, (i) => `# ${i}\n`)),
+        'failed',
+      ),
+  },
+  {
+    name: 'health check while refusing commits of 3 MB messages',
+    budgetMs: 200,
+    budgetOn: 'p95',
+    measure: () => healthDuring('9 commits of 3 MB messages', hugeMessages(), 'failed'),
   },
 ];
 

@@ -8,8 +8,10 @@ import { benchPilot, DEMO_SETUP, demoVariant } from './support/bench-fixtures';
 
 // Saving a revision of the demo setup through the HTTP API on loopback, 20 clients at
 // once, each on a model of its own so every save lands (no 409s), each sending its
-// next save as soon as the last one is answered. The API runs in a child process.
+// next save as soon as the last one is answered. The API runs as `npm start` runs it:
+// a cluster of WEB_CONCURRENCY processes (default one per CPU) in child processes.
 // The same run with one client shows what a single save costs without queueing.
+// save-floor.ts measures a bare durable INSERT of the same text in the same run.
 
 const WARM_UP_SAVES = 5;
 const TIMED_SAVES = 50;
@@ -28,6 +30,7 @@ async function measureSaves(clients: number): Promise<AsyncTiming> {
   try {
     const headers = { Authorization: `Bearer ${signSession(user, api.config)}`, 'Content-Type': 'application/json' };
     const latencies: number[] = [];
+    const started = performance.now();
     await Promise.all(
       models.map(async (model) => {
         let base = 1;
@@ -48,7 +51,8 @@ async function measureSaves(clients: number): Promise<AsyncTiming> {
         }
       }),
     );
-    return timingOf(latencies);
+    const seconds = (performance.now() - started) / 1000;
+    return { ...timingOf(latencies), perSecond: (clients * (WARM_UP_SAVES + TIMED_SAVES)) / seconds };
   } finally {
     await api.stop();
   }
@@ -62,9 +66,9 @@ export const asyncBenchmarks: AsyncBenchmark[] = [
     measure: () => measureSaves(20),
   },
   {
-    name: 'save a revision via the API, 1 client (for reference)',
-    budgetMs: 30,
-    budgetOn: 'p95',
+    name: 'save a revision via the API, 1 client',
+    budgetMs: 4,
+    budgetOn: 'median',
     measure: () => measureSaves(1),
   },
 ];

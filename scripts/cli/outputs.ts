@@ -68,7 +68,7 @@ function signed(value: number): string {
 
 function describeFailsafe(failsafe: Outputs['receivers'][number]['pins'][number]['failsafe']): string {
   if (failsafe === null) return 'receiver default';
-  return typeof failsafe === 'number' ? `${failsafe} us` : failsafe;
+  return typeof failsafe === 'number' ? `${failsafe} µs` : failsafe;
 }
 
 function humanOutputs(outputs: Outputs): string {
@@ -76,13 +76,13 @@ function humanOutputs(outputs: Outputs): string {
   const lines = ['Channels', `  ${'ch'.padStart(3)}  ${'function'.padEnd(width)}  ${'value'.padStart(9)}  pulse`];
   for (const c of outputs.channels) {
     lines.push(
-      `  ${String(c.ch).padStart(3)}  ${c.function.padEnd(width)}  ${signed(c.value).padStart(9)}  ${c.pulse_us} us`,
+      `  ${String(c.ch).padStart(3)}  ${c.function.padEnd(width)}  ${signed(c.value).padStart(9)}  ${c.pulse_us} µs`,
     );
   }
   for (const receiver of outputs.receivers) {
     lines.push('', `Receiver ${receiver.id}${receiver.lost ? ' (link lost: failsafe)' : ''}`);
     for (const pin of receiver.pins) {
-      const pulse = pin.pulse_us === null ? 'no pulses' : `${pin.pulse_us} us`;
+      const pulse = pin.pulse_us === null ? 'no pulses' : `${pin.pulse_us} µs`;
       lines.push(
         `  pin ${String(pin.pin).padStart(2)}  ch ${String(pin.ch).padStart(2)}  ${pulse}  failsafe ${describeFailsafe(pin.failsafe)}`,
       );

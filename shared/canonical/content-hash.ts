@@ -1,4 +1,4 @@
-import { setupSchema } from '../format/schema';
+import { setupSchema, type Setup } from '../format/schema';
 import { sha256Hex } from './sha256-hex';
 
 function isPlainObject(value: unknown): value is Record<string, unknown> {
@@ -36,4 +36,13 @@ export function canonicalJson(data: unknown): string {
 /** Lowercase hex SHA-256 of the canonical JSON: the revision's content hash. */
 export function contentHash(data: unknown): string {
   return sha256Hex(canonicalJson(data));
+}
+
+/**
+ * The content hash of data the checks have already validated: `setup` is what the
+ * format's schema made of `data` (null when it is not a valid setup), so the schema is
+ * not run a second time. Equal to `contentHash(data)`.
+ */
+export function contentHashOfChecked(data: unknown, setup: Setup | null): string {
+  return sha256Hex(sortedJson(setup ?? data));
 }

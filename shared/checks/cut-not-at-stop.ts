@@ -3,7 +3,7 @@ import { stopPulse, stopValue, throttleStop } from '../evaluate/throttle-stop';
 import type { Check } from './check';
 import { ref } from './refs';
 
-// A speed controller has a small dead band at its stop; 10 us is common practice, no
+// A speed controller has a small dead band at its stop; 10 µs is common practice, no
 // published source.
 export const CUT_TOLERANCE_US = 10;
 
@@ -19,7 +19,7 @@ export const cutNotAtStop: Check = {
       if (Math.abs(cutUs - stopUs) <= CUT_TOLERANCE_US) return [];
       return [
         {
-          message: `Channel ${channel.ch} (${channel.function}) is cut to ${channel.cut.value} %, which sends ${cutUs} us, but the motor stops at ${stopUs} us: with the arm switch at its safe position the motor can still run.`,
+          message: `Channel ${channel.ch} (${channel.function}) is cut to ${channel.cut.value} %, which sends ${cutUs} µs, but the motor stops at ${stopUs} µs: with the arm switch at its safe position the motor can still run.`,
           hint: `Set the cut value to ${stopValue(throttleStop(channel, setup))} % so that it sends the stop pulse.`,
           ...ref.channel(setup, i, 'cut', 'value'),
         },

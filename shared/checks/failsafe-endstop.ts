@@ -22,8 +22,8 @@ export const failsafeEndstop: Check = {
         if (!nearLow && failsafe < high - ENDSTOP_MARGIN_US) return;
         const end = nearLow ? low : high;
         results.push({
-          message: `Pin ${entry.pin} of receiver ${receiver.id} carries ${channel.function} (channel ${entry.ch}, ${channel.role === 'aileron' || channel.role === 'elevator' || channel.role === 'aux' ? 'an' : 'a'} ${channel.role}) but fails safe to ${failsafe} us, at or beyond the end of its travel (${end} us); on signal loss it would drive the surface to its stop. This is often a throttle failsafe left behind after a remap.`,
-          hint: `Set the failsafe near centre (${channel.travel.center_us} us) or to hold.`,
+          message: `Pin ${entry.pin} of receiver ${receiver.id} carries ${channel.function} (channel ${entry.ch}, ${channel.role === 'aileron' || channel.role === 'elevator' || channel.role === 'aux' ? 'an' : 'a'} ${channel.role}) but fails safe to ${failsafe} µs, at or beyond the end of its travel (${end} µs); on signal loss it would drive the surface to its stop. This is often a throttle failsafe left behind after a remap.`,
+          hint: `Set the failsafe near centre (${channel.travel.center_us} µs) or to hold.`,
           ...ref.pin(setup, ri, pi, 'failsafe'),
         });
       }),

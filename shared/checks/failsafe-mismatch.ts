@@ -5,13 +5,13 @@ import { ref } from './refs';
 
 // Two servos on one surface fed by two receivers fight when only one of them goes to
 // failsafe, unless both fail safe to the same position: common practice, no published
-// source (docs/sources.md, second edition). 10 us is about one degree of a standard servo
-// ([servo-datasheet]: 400 us for 40 degrees).
+// source (docs/sources.md, second edition). 10 µs is about one degree of a standard servo
+// ([servo-datasheet]: 400 µs for 40 degrees).
 export const MISMATCH_TOLERANCE_US = 10;
 
 function describe(failsafe: Failsafe): string {
   if (failsafe === undefined) return 'the receiver default';
-  if (typeof failsafe === 'number') return `${failsafe} us`;
+  if (typeof failsafe === 'number') return `${failsafe} µs`;
   return failsafe;
 }
 

@@ -4,7 +4,7 @@ import type { Check, CheckResult } from './check';
 import { ref } from './refs';
 
 // A release that opens on signal loss drops its load on whatever is below: common
-// practice, some event rules say so (docs/sources.md, second edition). 25 us is the same
+// practice, some event rules say so (docs/sources.md, second edition). 25 µs is the same
 // margin as failsafe-endstop's, common practice, no published source.
 export const PAYLOAD_MARGIN_US = 25;
 
@@ -25,10 +25,10 @@ export const failsafePayload: Check = {
         const restUs = rest.get(`${receiver.id}\u0000${entry.pin}`);
         if (typeof restUs !== 'number') return;
         if (typeof entry.failsafe === 'number' && Math.abs(entry.failsafe - restUs) <= PAYLOAD_MARGIN_US) return;
-        const what = entry.failsafe === 'off' ? 'stops its pulses (off)' : `fails safe to ${entry.failsafe} us`;
+        const what = entry.failsafe === 'off' ? 'stops its pulses (off)' : `fails safe to ${entry.failsafe} µs`;
         results.push({
-          message: `Pin ${entry.pin} of receiver ${receiver.id} carries the payload ${payload.function} (channel ${entry.ch}) and ${what}, not its at-rest pulse of ${restUs} us: on signal loss the release may open and drop the load.`,
-          hint: `Set the failsafe to hold, or to the at-rest pulse, ${restUs} us.`,
+          message: `Pin ${entry.pin} of receiver ${receiver.id} carries the payload ${payload.function} (channel ${entry.ch}) and ${what}, not its at-rest pulse of ${restUs} µs: on signal loss the release may open and drop the load.`,
+          hint: `Set the failsafe to hold, or to the at-rest pulse, ${restUs} µs.`,
           ...ref.pin(setup, ri, pi, 'failsafe'),
         });
       }),

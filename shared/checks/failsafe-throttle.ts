@@ -2,7 +2,7 @@ import { motorOf, stopPulse, throttleStop } from '../evaluate/throttle-stop';
 import type { Check, CheckResult } from './check';
 import { ref } from './refs';
 
-// [cap-658]: on loss of signal the throttle must go to closed or idle. The 50 us
+// [cap-658]: on loss of signal the throttle must go to closed or idle. The 50 µs
 // allowance above the stop is common practice, no published source (a little idle
 // trim on a fuel engine, or a speed controller's dead band).
 export const THROTTLE_FAILSAFE_TOLERANCE_US = 50;
@@ -21,7 +21,7 @@ export const failsafeThrottle: Check = {
         const stop = throttleStop(throttle, setup);
         const stopUs = stopPulse(throttle, setup);
         const where = `Pin ${entry.pin} of receiver ${receiver.id} carries the throttle (channel ${entry.ch}, ${throttle.function})`;
-        const fix = `Set the failsafe to the stop pulse, ${stopUs} us`;
+        const fix = `Set the failsafe to the stop pulse, ${stopUs} µs`;
         if (entry.failsafe === 'hold') {
           results.push({
             message: `${where} and fails safe to hold, so on signal loss the motor keeps running at its last setting.`,
@@ -46,7 +46,7 @@ export const failsafeThrottle: Check = {
           if (away <= THROTTLE_FAILSAFE_TOLERANCE_US) return;
           const direction = entry.failsafe > stopUs ? 'above' : 'below';
           results.push({
-            message: `${where} and fails safe to ${entry.failsafe} us, ${away} us ${direction} the centre stop (${stopUs} us); a forward/reverse speed controller runs the motor on either side of centre, so on signal loss the model drives off.`,
+            message: `${where} and fails safe to ${entry.failsafe} µs, ${away} µs ${direction} the centre stop (${stopUs} µs); a forward/reverse speed controller runs the motor on either side of centre, so on signal loss the model drives off.`,
             hint: `${fix} (the centre).`,
             ...ref.pin(setup, ri, pi, 'failsafe'),
           });
@@ -55,7 +55,7 @@ export const failsafeThrottle: Check = {
         const towardPower = throttle.travel.reverse ? stopUs - entry.failsafe : entry.failsafe - stopUs;
         if (towardPower <= THROTTLE_FAILSAFE_TOLERANCE_US) return;
         results.push({
-          message: `${where} and fails safe to ${entry.failsafe} us, ${towardPower} us from the stop (${stopUs} us) toward full power, so on signal loss the motor keeps running.`,
+          message: `${where} and fails safe to ${entry.failsafe} µs, ${towardPower} µs from the stop (${stopUs} µs) toward full power, so on signal loss the motor keeps running.`,
           hint: `${fix}.`,
           ...ref.pin(setup, ri, pi, 'failsafe'),
         });

@@ -20,7 +20,7 @@ export const pulseOutOfRange: Check = {
         const pulse = channel.travel[key];
         if (!outside(pulse)) continue;
         results.push({
-          message: `Channel ${channel.ch} (${channel.function}) has ${key} ${pulse} us, outside the ${PULSE_MIN_US}-${PULSE_MAX_US} us a servo can follow.`,
+          message: `Channel ${channel.ch} (${channel.function}) has ${key} ${pulse} µs, outside the ${PULSE_MIN_US}-${PULSE_MAX_US} µs a servo can follow.`,
           hint: HINT,
           ...ref.channel(setup, i, 'travel', key),
         });
@@ -30,7 +30,7 @@ export const pulseOutOfRange: Check = {
       receiver.map.forEach((entry, pi) => {
         if (typeof entry.failsafe !== 'number' || !outside(entry.failsafe)) return;
         results.push({
-          message: `Pin ${entry.pin} of receiver ${receiver.id} fails safe to ${entry.failsafe} us, outside the ${PULSE_MIN_US}-${PULSE_MAX_US} us a servo can follow.`,
+          message: `Pin ${entry.pin} of receiver ${receiver.id} fails safe to ${entry.failsafe} µs, outside the ${PULSE_MIN_US}-${PULSE_MAX_US} µs a servo can follow.`,
           hint: HINT,
           ...ref.pin(setup, ri, pi, 'failsafe'),
         });

@@ -37,7 +37,7 @@ import { failsafeMismatch } from './failsafe-mismatch';
 import { telemetryOnSecondary } from './telemetry-on-secondary';
 import { primaryDisabledBySwitch } from './primary-disabled-by-switch';
 import { cutNotAtStop } from './cut-not-at-stop';
-import { acceptedError, applyAccepted } from './accepted';
+import { acceptedDuplicate, acceptedError, applyAccepted } from './accepted';
 import { schema, validateSetup } from './schema';
 import { syntax } from './syntax';
 import { unknownKey } from './unknown-key';
@@ -86,6 +86,7 @@ export const CATALOGUE: readonly (ReadCheck | DataCheck | Check)[] = [
   unknownKey,
   ...SETUP_CHECKS,
   acceptedError,
+  acceptedDuplicate,
 ];
 
 export interface CheckRun {
@@ -133,6 +134,8 @@ export function runChecks(parsed: ParsedText): CheckRun {
     const accepted = applyAccepted(setup, findings);
     for (const result of accepted.results)
       accepted.findings.push(toFinding(parsed, acceptedError.id, acceptedError.severity, result));
+    for (const result of accepted.duplicates)
+      accepted.findings.push(toFinding(parsed, acceptedDuplicate.id, acceptedDuplicate.severity, result));
     return { setup, findings: accepted.findings.sort(byPosition) };
   }
   return { setup, findings: findings.sort(byPosition) };

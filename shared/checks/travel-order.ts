@@ -11,7 +11,7 @@ export const travelOrder: Check = {
       if (low < center && center < high) return [];
       return [
         {
-          message: `Channel ${channel.ch} (${channel.function}) has travel ${low}/${center}/${high} us (low/centre/high), but low must be below centre and centre below high.`,
+          message: `Channel ${channel.ch} (${channel.function}) has travel ${low}/${center}/${high} µs (low/centre/high), but low must be below centre and centre below high.`,
           hint: 'Put the pulses in order; to make the servo move the other way, set reverse: true instead of swapping them.',
           ...ref.channel(setup, i, 'travel'),
         },

@@ -111,7 +111,7 @@ export function sheetCut(cut: NonNullable<Channel['cut']>, setup: Pick<Setup, 'c
 
 /** What the pin does when its receiver loses the link, by evaluation rule 9. */
 export function sheetLinkLoss(failsafe: Failsafe): SheetLinkLoss {
-  if (typeof failsafe === 'number') return { kind: 'pulse', pulse_us: failsafe, words: `${failsafe} us` };
+  if (typeof failsafe === 'number') return { kind: 'pulse', pulse_us: failsafe, words: `${failsafe} µs` };
   if (failsafe === 'hold') return { kind: 'held', pulse_us: null, words: 'held' };
   if (failsafe === 'off') return { kind: 'no-pulses', pulse_us: null, words: 'no pulses' };
   return { kind: 'receiver-default', pulse_us: null, words: 'receiver default' };

@@ -51,6 +51,8 @@ export interface SetupModelView {
   created_by: Id;
   created_at: string;
   updated_at: string;
+  /** Set while the model is archived: hidden from the hangar by default, never deleted. */
+  archived_at: string | null;
   latest: LatestRevision | null;
   review_state: ReviewState;
   cleared_for_maiden: boolean;

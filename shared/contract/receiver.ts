@@ -45,6 +45,8 @@ export interface PresentedReceiver {
   mark_colour: MarkColour | null;
   outputs: number;
   notes: string;
+  /** Six characters printed on the unit's label; the shelf's search finds it. */
+  short_code: string;
   stored_settings: StoredSettings | null;
   settings_recorded_at: string | null;
   telemetry: boolean | null;

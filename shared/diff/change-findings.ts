@@ -33,7 +33,7 @@ function travelChanges(before: Travel, after: Travel): string[] {
  * `failsafe-meaning-changed` (warning): a channel's travel (reverse, centre or ends)
  * changed while a pin that carries it on both sides kept the same failsafe number. The
  * receiver stores the pulse, not the position, so the same number now puts the surface
- * somewhere else: a reversed channel's 1100 us was near one end and is now near the
+ * somewhere else: a reversed channel's 1100 µs was near one end and is now near the
  * other. Channels are matched by `ch`, pins by receiver id and pin; a pin's failsafe
  * counts as kept when it is the same number on both sides. A pulse that stands for
  * the same channel value (within 1 % of travel) through both travels, such as the
@@ -67,7 +67,7 @@ export function failsafeMeaningChanged(before: Setup, after: Setup): ChangeFindi
           rule: 'failsafe-meaning-changed',
           severity: 'warning',
           path: `receivers[id=${receiver.id}].map[pin=${entry.pin}].failsafe`,
-          message: `Channel ${channel.ch} (${channel.function}) changed its travel (${changes.join(', ')}), but pin ${entry.pin} of receiver ${receiver.id} still fails safe to ${entry.failsafe} us: the same pulse meant ${Math.round(then)} % of travel and now means ${Math.round(now)} %.`,
+          message: `Channel ${channel.ch} (${channel.function}) changed its travel (${changes.join(', ')}), but pin ${entry.pin} of receiver ${receiver.id} still fails safe to ${entry.failsafe} µs: the same pulse meant ${Math.round(then)} % of travel and now means ${Math.round(now)} %.`,
           hint: `Work out where ${channel.function} should go on signal loss with the new travel, set that pulse as the failsafe, and check it on the bench with the link off.`,
         });
       }

@@ -21,7 +21,7 @@ export interface CompareSide {
  * keyed by it: bump it whenever that answer changes (a field added, renamed or computed
  * differently), so no process serves a shape an older build stored.
  */
-export const COMPARE_FORMAT_VERSION = 2;
+export const COMPARE_FORMAT_VERSION = 4;
 
 /** What differs between two documents: a function of their content alone (their content hashes). */
 export interface ContentComparison extends SetupDiff {

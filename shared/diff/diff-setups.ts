@@ -1,6 +1,6 @@
 import type { ArrayDelta, Delta, ObjectDelta } from 'jsondiffpatch';
 import { diffDocuments, type Matches } from './engine';
-import type { ListMatch } from './identity';
+import { UNORDERED_LISTS, type ListMatch } from './identity';
 import { decodeKey, fromBare, isPlainObject, toBare, type PlainObject } from './plain';
 import { summarise, type Draft, type Sides, type Subject, type SubjectType } from './sentences';
 import { SECTIONS, emptyCounts, type Change, type Section, type SetupDiff } from './types';
@@ -11,6 +11,7 @@ const LIST_SUBJECTS: Record<string, SubjectType> = {
   channels: 'channel',
   mixes: 'mix',
   receivers: 'receiver',
+  accepted: 'accepted',
 };
 
 function sectionOf(key: string): Section {
@@ -191,7 +192,7 @@ class Walker {
         field: [],
       });
     }
-    if (movedFrom.length > 0) {
+    if (movedFrom.length > 0 && !(receiver === undefined && UNORDERED_LISTS.has(owner.name))) {
       this.push({
         kind: 'moved',
         path,
@@ -219,7 +220,8 @@ class Walker {
  *   `ch` changed is the function moving channel.
  * - moved: one change per list whose entries' order changed (not one per entry):
  *   order has no effect on outputs, so one line saying which entries moved is
- *   enough; before / after are the entries' keys in the old and new order.
+ *   enough; before / after are the entries' keys in the old and new order. The order
+ *   of `accepted` means nothing at all and is never a change.
  *
  * Defaults are applied before comparing (see withDefaults). Changes come grouped by
  * section in the order of SECTIONS.

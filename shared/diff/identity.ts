@@ -1,24 +1,49 @@
 import { deepEqual, isPlainObject, withoutKey } from './plain';
 
 // The identity keys of docs/format.md: list entries are matched between revisions by
-// these, never by their position in the list.
+// these, never by their position in the list. A key of several fields is written with
+// commas (`rule,path`): an accepted finding is the rule and the path together.
 export const LIST_KEYS: Readonly<Record<string, string>> = {
   controls: 'id',
   channels: 'ch',
   mixes: 'id',
   receivers: 'id',
+  accepted: 'rule,path',
 };
 export const MAP_KEY = 'pin';
+
+/** The fields of an identity key: one, or several for a composite key such as `rule,path`. */
+export const keyFields = (key: string): string[] => key.split(',');
+
+// The order of these lists means nothing at all (not even the order pins are listed
+// in), so reordering them is no change, not even a `moved` one.
+export const UNORDERED_LISTS: ReadonlySet<string> = new Set(['accepted']);
 
 // Two channel-plan entries on one `ch` are an error (channel-shared) but happen while
 // editing; among such duplicates the function tells which is which.
 const SECONDARY_KEYS: Readonly<Record<string, string>> = { ch: 'function' };
 
-export function identityValue(item: unknown, key: string): string | undefined {
-  if (!isPlainObject(item)) return undefined;
-  const value = item[key];
+function scalarText(value: unknown): string | undefined {
   if (typeof value === 'string' || typeof value === 'number' || typeof value === 'boolean') return String(value);
   return undefined;
+}
+
+/**
+ * An entry's identity as text: the key field's value, or for a composite key every
+ * field as `field=value` joined by commas (`rule=failsafe-unset,path=...`), which is
+ * also how its path segment is written. Undefined when a field is missing or not a scalar.
+ */
+export function identityValue(item: unknown, key: string): string | undefined {
+  if (!isPlainObject(item)) return undefined;
+  const fields = keyFields(key);
+  if (fields.length === 1) return scalarText(item[key]);
+  const parts: string[] = [];
+  for (const field of fields) {
+    const value = scalarText(item[field]);
+    if (value === undefined) return undefined;
+    parts.push(`${field}=${value}`);
+  }
+  return parts.join(',');
 }
 
 export interface ListMatch {
@@ -50,7 +75,7 @@ function segments(items: readonly unknown[], key: string): { segments: string[];
     const occurrence = (seen.get(value) ?? 0) + 1;
     seen.set(value, occurrence);
     const suffix = (total.get(value) ?? 0) > 1 ? `#${occurrence}` : '';
-    result.push(`[${key}=${value}${suffix}]`);
+    result.push(keyFields(key).length > 1 ? `[${value}${suffix}]` : `[${key}=${value}${suffix}]`);
     labels.push(`${value}${suffix}`);
   });
   return { segments: result, labels };
@@ -116,9 +141,12 @@ export function matchList(
     });
   }
   pairWhere(sameKey, () => true);
+  // A composite key is the whole identity (an accepted finding that names another rule
+  // or path accepts something else), so such entries are never paired as renamed.
   pairWhere(
     anyFree,
     (i, j) =>
+      keyFields(key).length === 1 &&
       leftKeys[i] !== undefined &&
       rightKeys[j] !== undefined &&
       deepEqual(

@@ -111,7 +111,7 @@ function pinOrder(before: Setup, after: Setup): { receiver: string; pin: number;
 }
 
 function pulseText(value: number | null, lost: boolean): string {
-  if (value !== null) return `${value} us`;
+  if (value !== null) return `${value} µs`;
   return lost ? 'no pulses' : 'no output';
 }
 

@@ -6,7 +6,7 @@ import type { ChangeKind, Section } from './types';
 // What a change is about: a whole section (model, link, power, format, an unknown
 // top-level key) or one entry of an identity-keyed list. `left` / `right` are the
 // entry (or section value) on each side, so a sentence can use the pilot's labels.
-export type SubjectType = 'section' | 'control' | 'channel' | 'mix' | 'receiver' | 'pin';
+export type SubjectType = 'section' | 'control' | 'channel' | 'mix' | 'receiver' | 'pin' | 'accepted';
 
 export interface Subject {
   type: SubjectType;
@@ -48,15 +48,16 @@ interface FieldSpec {
 }
 
 const FIELDS: Record<string, Record<string, FieldSpec>> = {
+  accepted: { reason: { label: 'reason', prose: true } },
   control: { kind: { label: 'kind' }, positions: { label: 'positions' }, label: { label: 'label', prose: true } },
   channel: {
     function: { label: 'function' },
     role: { label: 'role' },
     side: { label: 'side' },
     travel: { label: 'travel' },
-    'travel.low_us': { label: 'travel low end', unit: 'us' },
-    'travel.center_us': { label: 'travel centre', unit: 'us' },
-    'travel.high_us': { label: 'travel high end', unit: 'us' },
+    'travel.low_us': { label: 'travel low end', unit: 'µs' },
+    'travel.center_us': { label: 'travel centre', unit: 'µs' },
+    'travel.high_us': { label: 'travel high end', unit: 'µs' },
     'travel.reverse': { label: 'reverse' },
     cut: { label: 'cut' },
     'cut.control': { label: 'cut switch' },
@@ -83,7 +84,7 @@ const FIELDS: Record<string, Record<string, FieldSpec>> = {
     telemetry: { label: 'telemetry' },
     map: { label: 'pin map' },
   },
-  pin: { ch: { label: 'channel' }, failsafe: { label: 'failsafe', unit: 'us' } },
+  pin: { ch: { label: 'channel' }, failsafe: { label: 'failsafe', unit: 'µs' } },
   model: {
     name: { label: 'name', prose: true },
     airframe: { label: 'airframe' },
@@ -96,12 +97,19 @@ const FIELDS: Record<string, Record<string, FieldSpec>> = {
   power: { receiver_supply: { label: 'receiver supply' } },
 };
 
-const SECTION_NAMES: Record<string, string> = { model: 'Model', link: 'Link', power: 'Power', format: 'Format' };
+const SECTION_NAMES: Record<string, string> = {
+  model: 'Model',
+  link: 'Link',
+  power: 'Power',
+  format: 'Format',
+  accepted: 'Accepted findings',
+};
 const LIST_NAMES: Record<string, string> = {
   controls: 'Controls',
   channels: 'Channel plan',
   mixes: 'Mixes',
   receivers: 'Receivers',
+  accepted: 'Accepted findings',
 };
 
 // Document keys reach these tables, so only own entries count (a key named
@@ -157,7 +165,7 @@ function valueWithUnit(value: unknown, spec: FieldSpec, failsafe: boolean): stri
   return spec.unit && isNumeric(value) ? `${text(value)} ${spec.unit}` : shown(value, spec);
 }
 
-// "1500 -> 988 us" when both sides are numbers of one unit, else each side with its own.
+// "1500 -> 988 µs" when both sides are numbers of one unit, else each side with its own.
 function beforeAfter(before: unknown, after: unknown, spec: FieldSpec, failsafe = false): string {
   if (spec.unit && isNumeric(before) && isNumeric(after)) return `${text(before)} -> ${text(after)} ${spec.unit}`;
   if (spec.prose && isText(before) && isText(after)) return quotePair(before, after).join(' -> ');
@@ -197,6 +205,8 @@ function subjectName(subject: Subject, field: string[]): string {
       return field[0] === 'label' ? `Receiver ${text(value.id)}` : receiverName(subject);
     case 'pin':
       return `${subject.receiver ? receiverName(subject.receiver) : 'Receiver'} pin ${text(value.pin)}`;
+    case 'accepted':
+      return `Accepted ${text(value.rule)} at ${value.path === '' ? 'the document' : text(value.path)}`;
     case 'section':
       return own(SECTION_NAMES, subject.name) ?? `Extra field ${subject.name}`;
   }
@@ -226,9 +236,11 @@ function describeEntry(subject: Subject, value: PlainObject, sides: Sides, side:
     case 'receiver':
       return `${text(value.outputs)} outputs, telemetry ${value.telemetry === false ? 'off' : 'on'}`;
     case 'pin':
-      return `channel ${channelWithFunction(doc, value.ch)}, failsafe ${valueWithUnit(value.failsafe, { label: 'failsafe', unit: 'us' }, true)}`;
+      return `channel ${channelWithFunction(doc, value.ch)}, failsafe ${valueWithUnit(value.failsafe, { label: 'failsafe', unit: 'µs' }, true)}`;
     case 'channel':
       return `${text(value.function)} (role ${text(value.role)})`;
+    case 'accepted':
+      return `reason ${isText(value.reason) ? quoteText(value.reason) : text(value.reason)}`;
     case 'section':
       return text(value);
   }

@@ -12,6 +12,7 @@ export const SECTIONS = [
   'mixes',
   'receivers',
   'power',
+  'accepted',
   'other',
 ] as const;
 export type Section = (typeof SECTIONS)[number];

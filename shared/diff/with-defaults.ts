@@ -1,5 +1,6 @@
 import type { ZodType } from 'zod';
 import {
+  acceptedSchema,
   channelSchema,
   mixSchema,
   proportionalControlSchema,
@@ -41,6 +42,7 @@ const ENTRY_SCHEMAS: Record<string, (value: unknown) => ObjectSchema> = {
   channels: () => channelSchema,
   mixes: () => mixSchema,
   receivers: () => receiverSchema,
+  accepted: () => acceptedSchema,
 };
 
 // The semantic diff compares what the documents mean, so a default written out
@@ -53,7 +55,9 @@ export function withDefaults(data: unknown): PlainObject {
   if (!isPlainObject(data))
     return toBare(Object.fromEntries(Object.keys(LIST_KEYS).map((list) => [list, []]))) as PlainObject;
   const whole = setupSchema.safeParse(data);
-  if (whole.success) return toBare(whole.data, true) as PlainObject;
+  // `accepted` is the one optional list: absent, it is empty, so a first entry is
+  // reported as that entry added.
+  if (whole.success) return toBare({ ...whole.data, accepted: whole.data.accepted ?? [] }, true) as PlainObject;
   const copy = fillDefaults(setupSchema, data) as PlainObject;
   for (const [list, schemaFor] of Object.entries(ENTRY_SCHEMAS)) {
     const items = Object.prototype.hasOwnProperty.call(data, list) ? data[list] : undefined;

@@ -61,10 +61,57 @@ function describeYamlError(error: YAMLError, text: string): Pick<TextProblem, 'm
   if (error.code === 'TAB_AS_INDENT') {
     return { message: 'A tab is used for indentation; YAML allows only spaces there.', hint: 'Indent with spaces.' };
   }
+  const plain = plainWords(error);
+  if (plain) return plain;
   return {
     message: `The text is not valid YAML: ${firstLine(error.message)}.`.replace(/\.\.$/, '.'),
     hint: 'Fix the YAML near this position; check indentation, colons and brackets.',
   };
+}
+
+// The yaml package's messages are written for programmers ("Implicit map keys need to
+// be followed by map values"); the common ones are said here in a pilot's words. The
+// line and column stay with the finding. Rarer messages keep the package's own text.
+function plainWords(error: YAMLError): Pick<TextProblem, 'message' | 'hint'> | null {
+  const original = error.message;
+  if (/Implicit map keys need to be followed by map values/.test(original))
+    return {
+      message: 'A name here has no colon after it, so YAML cannot tell it is a key with a value.',
+      hint: 'Write the key with a colon and its value, like "airframe: airplane", or remove the stray word.',
+    };
+  if (error.code === 'MULTILINE_IMPLICIT_KEY')
+    return {
+      message: 'A key seems to run onto the next line: a colon is probably missing on the line before.',
+      hint: 'Each setting is "key: value" on one line, like "name: Tern 1800".',
+    };
+  if (/All mapping items must start at the same column/.test(original))
+    return {
+      message: 'This line is indented differently from the lines beside it.',
+      hint: 'Line it up with the other keys of the same block, using spaces.',
+    };
+  if (/Flow (sequence|map) in block collection must be sufficiently indented and end with a/.test(original)) {
+    const bracket = /end with a ([\]}])/.exec(original)?.[1] ?? ']';
+    return {
+      message: `A list or mapping opened with ${bracket === '}' ? '{' : '['} is not closed with ${bracket} before this line.`,
+      hint: `Add the closing ${bracket} at the end of the entry.`,
+    };
+  }
+  if (/Missing closing "?quote/.test(original))
+    return {
+      message: 'A quoted text is not closed: its closing quote mark is missing.',
+      hint: 'Add the closing quote at the end of the text.',
+    };
+  if (error.code === 'BLOCK_AS_IMPLICIT_KEY')
+    return {
+      message: 'Two colons on one line: YAML reads it as a mapping inside a key.',
+      hint: 'Put the inner key on its own line, indented, or quote the value if it contains a colon.',
+    };
+  if (error.code === 'MULTIPLE_DOCS')
+    return {
+      message: 'The text holds more than one document (a line with --- splits them); a setup is one document.',
+      hint: 'Remove the --- line and keep one setup per file.',
+    };
+  return null;
 }
 
 function describeRoot(contents: unknown): string {

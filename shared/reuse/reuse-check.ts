@@ -28,6 +28,12 @@ export interface ReuseChange {
   to: number | StoredFailsafe | boolean | null;
   /** A plain sentence: "Pin 3: carries channel 3, must carry channel 11". */
   summary: string;
+  /**
+   * Why this change is a safety matter, when it is one: the throttle's failsafe or its
+   * channel (a motor that runs on after signal loss) and telemetry (two receivers
+   * answering at once, or none). The check lists these first. Null for the rest.
+   */
+  safety: string | null;
 }
 
 export type ReuseNoteKind = 'outputs-short' | 'outputs-differ' | 'pin-unused' | 'settings-unknown';
@@ -101,6 +107,7 @@ function channelChange(pin: number, from: StoredPin | undefined, known: boolean,
     from: from?.ch ?? null,
     to: ch,
     summary: `Pin ${pin}: ${now}, must carry channel ${ch}`,
+    safety: null,
   };
 }
 
@@ -121,14 +128,29 @@ function failsafeChange(
       : wanted === 'off'
         ? 'set off (no pulses)'
         : `set ${describeFailsafe(wanted)}`;
-  return { pin, setting: 'failsafe', from: known ? held : null, to: wanted, summary: `Pin ${pin}: ${now}, ${action}` };
+  return {
+    pin,
+    setting: 'failsafe',
+    from: known ? held : null,
+    to: wanted,
+    summary: `Pin ${pin}: ${now}, ${action}`,
+    safety: null,
+  };
 }
 
 /**
  * Compares a unit's stored settings with a slot of a setup. `findings` are the setup's
  * findings (all of them; those of the slot are picked out).
  */
-export function reuseCheck(unit: ReuseUnit, slot: Receiver, findings: readonly Finding[] = []): ReuseCheck {
+export function reuseCheck(
+  unit: ReuseUnit,
+  slot: Receiver,
+  findings: readonly Finding[] = [],
+  setup?: Pick<Setup, 'channels'>,
+): ReuseCheck {
+  const throttles = new Set(
+    (setup?.channels ?? []).filter((channel) => channel.role === 'throttle').map((channel) => channel.ch),
+  );
   const known = unit.stored !== null;
   const stored = new Map((unit.stored?.pins ?? []).map((entry) => [entry.pin, entry]));
   const changes: ReuseChange[] = [];
@@ -197,8 +219,24 @@ export function reuseCheck(unit: ReuseUnit, slot: Receiver, findings: readonly F
       from: telemetryNow,
       to: slot.telemetry,
       summary: `Telemetry: ${now}, switch it ${onOff(slot.telemetry)}`,
+      safety: slot.telemetry
+        ? 'Without telemetry from this unit the model reports nothing back (battery, signal).'
+        : 'Two receivers sending telemetry answer the transmitter at once and can disturb the link.',
     });
   }
+
+  // Safety first, common practice, no published source: what can make a motor run on or
+  // disturb the link is programmed and checked before the rest.
+  for (const change of changes) {
+    if (change.pin === null || change.safety !== null) continue;
+    const wanted = slotPins.get(change.pin);
+    if (!wanted || !throttles.has(wanted.ch)) continue;
+    change.safety =
+      change.setting === 'failsafe'
+        ? 'This pin drives the throttle: a wrong failsafe can keep the motor running after signal loss.'
+        : 'This pin is to drive the throttle: until it does, the motor may answer another channel.';
+  }
+  changes.sort((a, b) => Number(b.safety !== null) - Number(a.safety !== null));
 
   notes.sort((a, b) => Number(b.blocking) - Number(a.blocking) || (a.pin ?? 0) - (b.pin ?? 0));
   return {

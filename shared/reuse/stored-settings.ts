@@ -11,8 +11,8 @@ export const STORED_FAILSAFE_MODES = ['hold', 'off'] as const;
 export const storedFailsafeSchema = z.union([
   z
     .int({ error: 'A failsafe pulse is a whole number of microseconds.' })
-    .min(700, 'A failsafe pulse is at least 700 us.')
-    .max(2300, 'A failsafe pulse is at most 2300 us.'),
+    .min(700, 'A failsafe pulse is at least 700 µs.')
+    .max(2300, 'A failsafe pulse is at most 2300 µs.'),
   z.enum(STORED_FAILSAFE_MODES, { error: 'A failsafe is a pulse in microseconds, hold, off or null.' }),
   z.null(),
 ]);
@@ -42,8 +42,8 @@ export type StoredFailsafe = z.output<typeof storedFailsafeSchema>;
 export type StoredPin = z.output<typeof storedPinSchema>;
 export type StoredSettings = z.output<typeof storedSettingsSchema>;
 
-/** How a stored failsafe reads in a sentence: "988 us", "hold", "off", "not set". */
+/** How a stored failsafe reads in a sentence: "988 µs", "hold", "off", "not set". */
 export function describeFailsafe(failsafe: StoredFailsafe | undefined): string {
   if (failsafe === null || failsafe === undefined) return 'not set';
-  return typeof failsafe === 'number' ? `${failsafe} us` : failsafe;
+  return typeof failsafe === 'number' ? `${failsafe} µs` : failsafe;
 }

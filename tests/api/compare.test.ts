@@ -100,7 +100,7 @@ describe('GET /api/compare', () => {
   it('compares a revision with itself as no change', async () => {
     const body = (await viewer.get(`/api/compare?from=${after.id}&to=${after.id}`).expect(200)).body.data;
     expect(body.changes).toEqual([]);
-    expect(body.findings_delta).toEqual({ introduced: [], resolved: [] });
+    expect(body.findings_delta).toEqual({ introduced: [], resolved: [], accepted: [] });
   });
 
   it('needs both ids: 400 when one is missing, 404 when one is not a revision', async () => {
@@ -216,8 +216,8 @@ describe('GET /api/compare sees every change in behaviour (second edition)', () 
     const expo = await saveVia(editor, demo, 1, edit(SCALE(), 'weight: 92, expo: 15', 'weight: 92, expo: 20'), 'Expo');
     const body = (await viewer.get(`/api/compare?from=${base.id}&to=${expo.id}`).expect(200)).body.data;
     // Fuselage pin 2 (elevator, default travel [arduino-servo]), stick at -50 %, flaps up:
-    // [expo-cubic] 92 * (0.85 * -0.5 + 0.15 * -0.125) = -40.825 % -> 1500 - 204.125 = 1295.9 -> 1296 us;
-    // 92 * (0.8 * -0.5 + 0.2 * -0.125) = -39.1 % -> 1500 - 195.5 = 1304.5 -> 1305 us.
+    // [expo-cubic] 92 * (0.85 * -0.5 + 0.15 * -0.125) = -40.825 % -> 1500 - 204.125 = 1295.9 -> 1296 µs;
+    // 92 * (0.8 * -0.5 + 0.2 * -0.125) = -39.1 % -> 1500 - 195.5 = 1304.5 -> 1305 µs.
     expect(body.outputs_delta[0]).toMatchObject({
       kind: 'pulse',
       receiver: 'fuselage',
@@ -239,8 +239,8 @@ describe('GET /api/compare sees every change in behaviour (second edition)', () 
       'Rates',
     );
     const body = (await viewer.get(`/api/compare?from=${base.id}&to=${rates.id}`).expect(200)).body.data;
-    // Low rate at full left stick: 1500 - 0.60 * 500 = 1200 us before, 1500 - 0.65 * 500 = 1175 us after on
-    // pin 1; pin 6 is reversed, so 1800 -> 1825 us.
+    // Low rate at full left stick: 1500 - 0.60 * 500 = 1200 µs before, 1500 - 0.65 * 500 = 1175 µs after on
+    // pin 1; pin 6 is reversed, so 1800 -> 1825 µs.
     expect(
       body.outputs_delta.map((row: { pin: number; before_us: number; after_us: number; position: { set: object } }) => [
         row.pin,
@@ -267,7 +267,7 @@ describe('GET /api/compare sees every change in behaviour (second edition)', () 
       'Reverse the motor channel',
     );
     const body = (await viewer.get(`/api/compare?from=${base.id}&to=${reversed.id}`).expect(200)).body.data;
-    // Fuselage pin 3 keeps 1000 us: through the old travel -100 % (stopped), through the
+    // Fuselage pin 3 keeps 1000 µs: through the old travel -100 % (stopped), through the
     // reversed one +100 % (full power).
     expect(body.change_findings).toMatchObject([
       { rule: 'failsafe-meaning-changed', severity: 'warning', path: 'receivers[id=fuselage].map[pin=3].failsafe' },

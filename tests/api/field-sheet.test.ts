@@ -61,16 +61,16 @@ describe('GET /api/revisions/:id/field-sheet.pdf', () => {
   it('holds each receiver’s pin -> channel -> function -> failsafe table', async () => {
     const { text } = await sheetText(kestrel.revisionId);
     // Fuselage pins 1-8 carry channels 1-8; wing pins 1-8 carry 9-16 (fixtures/valid/scale-16-channel-two-receivers.yaml).
-    expect(text).toMatch(row(1, 1, 'aileron-left', '1500 us'));
-    expect(text).toMatch(row(3, 3, 'motor', '1000 us'));
+    expect(text).toMatch(row(1, 1, 'aileron-left', '1500 µs'));
+    expect(text).toMatch(row(3, 3, 'motor', '1000 µs'));
     expect(text).toMatch(row(5, 5, 'gear', 'hold'));
-    expect(text).toMatch(row(1, 9, 'tailwheel', '1500 us'));
+    expect(text).toMatch(row(1, 9, 'tailwheel', '1500 µs'));
     expect(text).toMatch(row(3, 11, 'landing-light', 'hold'));
-    expect(text).toMatch(row(8, 16, 'pilot-head', '1500 us'));
+    expect(text).toMatch(row(8, 16, 'pilot-head', '1500 µs'));
     expect(text).toContain('Fuselage receiver (blue tape) · slot fuselage');
     expect(text).toContain('primary, 8 outputs, telemetry: sends');
     // What each pin does when its receiver loses the link (evaluation rule 9): its pulse, or held.
-    expect(text).toMatch(row(3, 3, 'motor', '1000 us', '1000 us'));
+    expect(text).toMatch(row(3, 3, 'motor', '1000 µs', '1000 µs'));
     expect(text).toMatch(row(5, 5, 'gear', 'hold', 'held'));
     expect(text).toMatch(row(3, 11, 'landing-light', 'hold', 'held'));
     expect(text).toContain('secondary, 8 outputs, telemetry: silent (off)');
@@ -160,7 +160,7 @@ describe('GET /api/revisions/:id/field-sheet', () => {
       failsafe: 'hold',
       link_loss: { kind: 'held', pulse_us: null, words: 'held' },
     });
-    expect(data.receivers[0].pins[2].link_loss).toEqual({ kind: 'pulse', pulse_us: 1000, words: '1000 us' });
+    expect(data.receivers[0].pins[2].link_loss).toEqual({ kind: 'pulse', pulse_us: 1000, words: '1000 µs' });
     expect(data.channels[2].cut).toEqual({
       control: 'motor-arm',
       control_label: 'Arm (guarded)',

@@ -1,12 +1,15 @@
+import pg from 'pg';
 import { QueryTypes } from 'sequelize';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { createRoleFixture, type RoleFixture } from './helpers/factories';
 import { useTestApp } from './helpers/test-app';
-import { clientFor, createModelVia, TRAINER, type Client } from './models-support';
+import { clientFor, createModelVia, edit, saveVia, TRAINER, type Client } from './models-support';
 
-// The history page must stay an index walk however long the history grows. The test
-// fills the table with enough rows (30,000 in three models, then ANALYZE) that the
-// planner's choice is real, captures the exact SQL the route runs, and reads its plan.
+// The history page must stay an index walk however long the history grows, and so must
+// the hangar, the shelf and the compare as the workspace grows. The test fills the
+// tables with enough rows (30,000 revisions in three models; 12,000 models and 8,000
+// receivers in four workspaces; then ANALYZE) that the planner's choice is real,
+// captures the exact SQL each route runs, and reads its plan.
 const t = useTestApp();
 let roles: RoleFixture;
 let editor: Client;
@@ -42,25 +45,55 @@ beforeAll(async () => {
   await t.sequelize.query('ANALYZE revisions');
 }, 120_000);
 
-async function planOfHistoryPage(url: string): Promise<PlanNode> {
-  const statements: string[] = [];
-  // Sequelize reads its `logging` option on every query; its typings leave `options` out.
-  const options = (t.sequelize as unknown as { options: { logging: unknown } }).options;
-  const logging = options.logging;
-  options.logging = (sql: string) => void statements.push(sql);
+interface Statement {
+  sql: string;
+  /** The values of $1, $2 ... when the statement has bound parameters. */
+  bind?: unknown[];
+}
+
+/** The SQL statements a request runs with their parameters, as the pg driver sends them. */
+async function statementsOf(url: string): Promise<Statement[]> {
+  const statements: Statement[] = [];
+  // Sequelize hands every statement to pg.Client#query, with $1, $2 ... already numbered.
+  const prototype = pg.Client.prototype as unknown as { query: (...args: unknown[]) => unknown };
+  const query = prototype.query;
+  prototype.query = function (this: unknown, ...args: unknown[]) {
+    if (typeof args[0] === 'string')
+      statements.push({ sql: args[0], bind: Array.isArray(args[1]) ? (args[1] as unknown[]) : undefined });
+    return query.apply(this, args);
+  };
   try {
     await editor.get(url).expect(200);
   } finally {
-    options.logging = logging;
+    prototype.query = query;
   }
-  const history = statements
-    .map((line) => line.replace(/^Executing \([^)]*\): /, ''))
-    .find((sql) => /FROM "revisions"/.test(sql) && /ORDER BY/.test(sql));
-  expect(history, statements.join('\n')).toBeDefined();
-  const [row] = await t.sequelize.query<{ 'QUERY PLAN': [{ Plan: PlanNode }] }>(`EXPLAIN (FORMAT JSON) ${history}`, {
+  return statements;
+}
+
+async function planOf({ sql, bind }: Statement): Promise<PlanNode> {
+  const [row] = await t.sequelize.query<{ 'QUERY PLAN': [{ Plan: PlanNode }] }>(`EXPLAIN (FORMAT JSON) ${sql}`, {
     type: QueryTypes.SELECT,
+    bind,
   });
   return row['QUERY PLAN'][0].Plan;
+}
+
+/** Every node that reads `relation` is an index read, and there is at least one. */
+function expectIndexReads(plan: PlanNode, relation: string): void {
+  const reads = nodesOf(plan).filter((node) => node['Relation Name'] === relation);
+  expect(reads.length, relation).toBeGreaterThan(0);
+  for (const node of reads) expect(node['Node Type'], relation).not.toBe('Seq Scan');
+  expect(
+    reads.some((node) => /Index/.test(node['Node Type'])),
+    relation,
+  ).toBe(true);
+}
+
+async function planOfHistoryPage(url: string): Promise<PlanNode> {
+  const statements = await statementsOf(url);
+  const history = statements.find(({ sql }) => /FROM "revisions"/.test(sql) && /ORDER BY/.test(sql));
+  expect(history, statements.map(({ sql }) => sql).join('\n')).toBeDefined();
+  return planOf(history!);
 }
 
 describe('the history page of a model with 10,000 revisions', () => {
@@ -69,11 +102,119 @@ describe('the history page of a model with 10,000 revisions', () => {
     ['a page further back (keyset: before=5000)', '?limit=50&before=5000'],
   ] as const) {
     it(`${label} reads revisions through an index, never a sequential scan`, async () => {
-      const nodes = nodesOf(await planOfHistoryPage(`/api/models/${modelId}/revisions${query}`));
-      const onRevisions = nodes.filter((node) => node['Relation Name'] === 'revisions');
-      expect(onRevisions.length).toBeGreaterThan(0);
-      for (const node of onRevisions) expect(node['Node Type']).not.toBe('Seq Scan');
-      expect(onRevisions.some((node) => /Index/.test(node['Node Type']))).toBe(true);
+      expectIndexReads(await planOfHistoryPage(`/api/models/${modelId}/revisions${query}`), 'revisions');
     });
   }
+});
+
+describe('a hangar of 3,000 models and a shelf of 2,000 receivers among four workspaces', () => {
+  beforeAll(async () => {
+    // Three more workspaces of the same size around the editor's, so a sequential scan
+    // would read four times what the page needs.
+    await t.sequelize.query(
+      `WITH made AS (
+         INSERT INTO workspaces (name) SELECT 'Neighbour ' || k FROM generate_series(1, 3) AS k RETURNING id
+       ), spaces AS (
+         SELECT $workspaceId::uuid AS id UNION ALL SELECT id FROM made
+       ), made_models AS (
+         INSERT INTO models (workspace_id, name, airframe, created_by)
+         SELECT spaces.id, 'Plan model ' || n, 'airplane', $authorId FROM spaces, generate_series(1, 3000) AS n
+       )
+       INSERT INTO receivers (workspace_id, label, outputs, created_by)
+       SELECT spaces.id, 'Plan unit ' || n, 8, $authorId
+         FROM spaces, generate_series(1, 2000) AS n`,
+      { bind: { workspaceId: roles.workspace.id, authorId: roles.members.editor.id } },
+    );
+    await t.sequelize.query('ANALYZE workspaces; ANALYZE models; ANALYZE receivers; ANALYZE memberships');
+  }, 120_000);
+
+  // The id of the model and the receiver 1,500 entries into the lists, for keyset paging.
+  const cursor = async (table: 'models' | 'receivers', column: 'name' | 'label') => {
+    const [row] = await t.sequelize.query<{ id: string }>(
+      `SELECT id FROM ${table} WHERE workspace_id = $id ORDER BY lower(${column}), id OFFSET 1499 LIMIT 1`,
+      { bind: { id: roles.workspace.id }, type: QueryTypes.SELECT },
+    );
+    return row.id;
+  };
+
+  for (const [label, query] of [
+    ['the first page', async () => '?limit=50'],
+    [
+      'a page 1,500 entries on (keyset: after=)',
+      async (list: 'models' | 'receivers') =>
+        `?limit=50&after=${await cursor(list, list === 'models' ? 'name' : 'label')}`,
+    ],
+  ] as const) {
+    it(`the hangar's ${label} reads models through an index`, async () => {
+      const statements = await statementsOf(`/api/workspaces/${roles.workspace.id}/models${await query('models')}`);
+      const page = statements.find(({ sql }) => /FROM "models"/.test(sql) && /ORDER BY lower\("name"\)/.test(sql));
+      expect(page, statements.map(({ sql }) => sql).join('\n')).toBeDefined();
+      expectIndexReads(await planOf(page!), 'models');
+    });
+
+    it(`the shelf's ${label} reads receivers through an index`, async () => {
+      const statements = await statementsOf(
+        `/api/workspaces/${roles.workspace.id}/receivers${await query('receivers')}`,
+      );
+      const page = statements.find(({ sql }) => /FROM "receivers"/.test(sql) && /ORDER BY lower\("label"\)/.test(sql));
+      expect(page, statements.map(({ sql }) => sql).join('\n')).toBeDefined();
+      expectIndexReads(await planOf(page!), 'receivers');
+    });
+  }
+
+  for (const list of ['models', 'receivers'] as const) {
+    it(`paging the ${list} with after= gives every entry once, in the order of offset paging`, async () => {
+      const base = `/api/workspaces/${roles.workspace.id}/${list}`;
+      const walked: string[] = [];
+      let after: string | null = null;
+      do {
+        const page: { data: { id: string }[]; pagination: { next_after: string | null; total: number } } = (
+          await editor.get(`${base}?limit=200${after ? `&after=${after}` : ''}`).expect(200)
+        ).body;
+        walked.push(...page.data.map((entry) => entry.id));
+        after = page.pagination.next_after;
+      } while (after);
+      const [{ total }] = await t.sequelize.query<{ total: number }>(
+        `SELECT count(*)::int AS total FROM ${list} WHERE workspace_id = $id`,
+        { bind: { id: roles.workspace.id }, type: QueryTypes.SELECT },
+      );
+      expect(walked.length).toBe(total);
+      expect(new Set(walked).size).toBe(total);
+      const byOffset = (await editor.get(`${base}?limit=50&offset=1000`).expect(200)).body.data.map(
+        (entry: { id: string }) => entry.id,
+      );
+      expect(walked.slice(1000, 1050)).toEqual(byOffset);
+      // A cursor from another workspace's list is refused, not silently an empty page.
+      const [foreign] = await t.sequelize.query<{ id: string }>(
+        `SELECT id FROM ${list} WHERE workspace_id <> $id LIMIT 1`,
+        { bind: { id: roles.workspace.id }, type: QueryTypes.SELECT },
+      );
+      const refused = await editor.get(`${base}?after=${foreign.id}`).expect(400);
+      expect(refused.body.error.details.fields).toHaveProperty('after');
+    });
+  }
+
+  it('the compare of two revisions of the long history reads revisions and models through an index', async () => {
+    const [first] = await t.sequelize.query<{ id: string }>(
+      'SELECT id FROM revisions WHERE model_id = $id AND number = 1',
+      { bind: { id: modelId }, type: QueryTypes.SELECT },
+    );
+    const last = await saveVia(editor, modelId, 10000, edit(TRAINER(), 'expo: 30,', 'expo: 44,'));
+    const statements = await statementsOf(`/api/compare?from=${first.id}&to=${last.id}`);
+    const reads = statements.filter(({ sql }) => /^SELECT/.test(sql));
+    expect(reads.length).toBeGreaterThan(3);
+    // The tables that grow with the data (revisions, models) are read by index; small
+    // ones (a workspace's memberships, an empty cache) may rightly be scanned.
+    const seen = new Set<string>();
+    for (const statement of reads) {
+      for (const node of nodesOf(await planOf(statement))) {
+        const relation = node['Relation Name'];
+        if (!relation) continue;
+        seen.add(relation);
+        if (relation === 'revisions' || relation === 'models')
+          expect(node['Node Type'], `${relation} in ${statement.sql}`).not.toBe('Seq Scan');
+      }
+    }
+    for (const relation of ['revisions', 'models', 'compare_cache']) expect(seen).toContain(relation);
+  });
 });

@@ -29,6 +29,29 @@ async function invitedToken(email: string, role = 'reviewer'): Promise<string> {
   return linkToken(latest, 'invitations');
 }
 
+describe('the pending invitations', () => {
+  it('come a page at a time, newest first, with how many there are', async () => {
+    const own = await createWorkspace({ name: 'Saltmarsh Soaring', owner });
+    const emails = [uniqueEmail('first'), uniqueEmail('second'), uniqueEmail('third')];
+    for (const email of emails)
+      await request(t.app)
+        .post(`/api/workspaces/${own.id}/invitations`)
+        .set(bearer(tokenFor(owner, t.config)))
+        .send({ email, role: 'viewer' })
+        .expect(201);
+    const list = (query: string) =>
+      request(t.app)
+        .get(`/api/workspaces/${own.id}/invitations${query}`)
+        .set(bearer(tokenFor(owner, t.config)));
+    const first = await list('?limit=2').expect(200);
+    expect(first.body.data.map((invitation: { email: string }) => invitation.email)).toEqual([emails[2], emails[1]]);
+    expect(first.body.pagination).toEqual({ limit: 2, offset: 0, total: 3 });
+    const rest = await list('?limit=2&offset=2').expect(200);
+    expect(rest.body.data.map((invitation: { email: string }) => invitation.email)).toEqual([emails[0]]);
+    expect((await list('?offset=-1').expect(400)).body.error.details.fields.offset).toBe('offset is at least 0.');
+  });
+});
+
 describe('inviting by e-mail', () => {
   it('mails the invited address a link that shows the workspace and role, and works once', async () => {
     const email = uniqueEmail('newcomer');

@@ -98,6 +98,16 @@ const routes: GuardedRoute[] = [
     call: (c, s) => c.patch(`/api/models/${s.modelId}`, { name: 'Renamed' }),
   },
   {
+    name: 'POST /api/models/:id/archive',
+    minimum: 'editor',
+    call: (c, s) => c.post(`/api/models/${s.modelId}/archive`),
+  },
+  {
+    name: 'POST /api/models/:id/unarchive',
+    minimum: 'editor',
+    call: (c, s) => c.post(`/api/models/${s.modelId}/unarchive`),
+  },
+  {
     name: 'POST /api/models/:id/revisions',
     minimum: 'editor',
     call: (c, s) => c.post(`/api/models/${s.modelId}/revisions`, { base: 2, yaml: TRAINER() }),

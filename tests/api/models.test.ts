@@ -119,7 +119,8 @@ describe('GET /api/workspaces/:ws/models (the hangar)', () => {
       hangarOwner,
       scale.model.id,
       1,
-      fixture('pairs/remap-second-receiver.before.yaml'),
+      // The model keeps its name: this save is about the receivers.
+      edit(fixture('pairs/remap-second-receiver.before.yaml'), 'name: Kestrel Twin', 'name: Kestrel Mk II'),
       'Wing receiver bound',
     );
     await createModelVia(hangarOwner, workspaceId, { name: 'meadowlark 40', yaml: TRAINER() });
@@ -135,7 +136,7 @@ describe('GET /api/workspaces/:ws/models (the hangar)', () => {
       'meadowlark 40',
       'Sedge 3.4',
     ]);
-    expect(body.pagination).toEqual({ limit: 100, offset: 0, total: 4 });
+    expect(body.pagination).toEqual({ limit: 100, offset: 0, total: 4, next_after: null, archived: 0 });
     const kestrel = body.data[1];
     const { counts } = analyzeSetup(fixture('pairs/remap-second-receiver.before.yaml'));
     expect(kestrel.latest).toMatchObject({
@@ -165,7 +166,18 @@ describe('GET /api/workspaces/:ws/models (the hangar)', () => {
   it('pages with limit and offset, and refuses bad paging', async () => {
     const body = (await hangarOwner.get(`/api/workspaces/${workspaceId}/models?limit=2&offset=2`).expect(200)).body;
     expect(body.data.map((model: { name: string }) => model.name)).toEqual(['meadowlark 40', 'Sedge 3.4']);
-    expect(body.pagination).toEqual({ limit: 2, offset: 2, total: 4 });
+    expect(body.pagination).toEqual({ limit: 2, offset: 2, total: 4, next_after: null, archived: 0 });
+    // Keyset paging: the first page's next_after starts the same second page.
+    const first = (await hangarOwner.get(`/api/workspaces/${workspaceId}/models?limit=2`).expect(200)).body;
+    expect(first.pagination.next_after).toBe(first.data[1].id);
+    const second = (
+      await hangarOwner
+        .get(`/api/workspaces/${workspaceId}/models?limit=2&after=${first.pagination.next_after}`)
+        .expect(200)
+    ).body;
+    expect(second.data.map((model: { name: string }) => model.name)).toEqual(['meadowlark 40', 'Sedge 3.4']);
+    expect(second.pagination.next_after).toBeNull();
+    await hangarOwner.get(`/api/workspaces/${workspaceId}/models?after=not-an-id`).expect(400);
     await hangarOwner.get(`/api/workspaces/${workspaceId}/models?limit=0`).expect(400);
     await hangarOwner.get(`/api/workspaces/${workspaceId}/models?q=${'x'.repeat(101)}`).expect(400);
   });
@@ -174,7 +186,7 @@ describe('GET /api/workspaces/:ws/models (the hangar)', () => {
     const user = await createUser();
     const empty = await createWorkspace({ owner: user });
     expect((await clientFor(t.app, t.config, user).get(`/api/workspaces/${empty.id}/models`).expect(200)).body).toEqual(
-      { data: [], pagination: { limit: 100, offset: 0, total: 0 } },
+      { data: [], pagination: { limit: 100, offset: 0, total: 0, archived: 0, next_after: null } },
     );
   });
 });
@@ -196,13 +208,19 @@ describe('GET and PATCH /api/models/:id', () => {
     });
   });
 
-  it('renames the model (editor), leaving the setup text alone, and records it in the audit trail', async () => {
+  it('renames the model (editor) and keeps model.name in step: a new revision with the one line changed, audited', async () => {
     const { model, revision } = await createModelVia(editor, roles.workspace.id, { name: 'Old name', yaml: TRAINER() });
-    const body = (await editor.patch(`/api/models/${model.id}`, { name: 'New name' }).expect(200)).body.data;
-    expect(body).toMatchObject({ id: model.id, name: 'New name', latest: { number: 1 } });
+    const response = (await editor.patch(`/api/models/${model.id}`, { name: 'New name' }).expect(200)).body;
+    expect(response.data).toMatchObject({ id: model.id, name: 'New name', latest: { number: 2 } });
+    expect(response.revision).toMatchObject({ number: 2, origin: 'save' });
     expect((await Revision.findByPk(revision.id))!.yamlText).toBe(TRAINER());
+    const second = (await Revision.findOne({ where: { modelId: model.id, number: 2 } }))!;
+    const before = (analyzeSetup(TRAINER()).data as { model: { name: string } }).model.name;
+    // Only the name's line changed; comments and layout elsewhere are as written.
+    expect(second.yamlText).toBe(TRAINER().replace(`name: ${before}`, 'name: New name'));
+    expect((second.document as { model: { name: string } }).model.name).toBe('New name');
     const event = await AuditEvent.findOne({ where: { subjectId: model.id, action: 'model.renamed' } });
-    expect(event!.details).toEqual({ from: 'Old name', to: 'New name' });
+    expect(event!.details).toMatchObject({ from: 'Old name', to: 'New name', number: 2 });
     await editor.patch(`/api/models/${model.id}`, { name: '' }).expect(400);
     await editor.patch(`/api/models/${model.id}`, { name: 'Fine', airframe: 'boat' }).expect(400);
   });

@@ -1,3 +1,4 @@
+import { QueryTypes } from 'sequelize';
 import request from 'supertest';
 import { beforeAll, describe, expect, it } from 'vitest';
 import type { User } from '@api/models';
@@ -100,5 +101,40 @@ describe('sign-in rate limits', () => {
       replacements: { key: `sign-in:address:${from}` },
     });
     await attempt(app, from, user.email, TEST_PASSWORD).expect(200);
+  });
+
+  it('prunes counters whose window has ended when a write opens a new window, and keeps the live ones', async () => {
+    await t.sequelize.query(
+      `INSERT INTO rate_limits (key, hits, reset_at) VALUES
+         ('prune-test:ended-1', 7, now() - interval '1 hour'),
+         ('prune-test:ended-2', 1, now() - interval '1 second'),
+         ('prune-test:live', 3, now() + interval '10 minutes')`,
+    );
+    const keys = async () =>
+      (
+        await t.sequelize.query<{ key: string }>(
+          `SELECT key FROM rate_limits WHERE key LIKE 'prune-test:%' ORDER BY key`,
+          {
+            type: QueryTypes.SELECT,
+          },
+        )
+      ).map((row) => row.key);
+    expect(await keys()).toEqual(['prune-test:ended-1', 'prune-test:ended-2', 'prune-test:live']);
+
+    const app = limitedApp({ perAccount: 100, perAccountAnyAddress: 100, perAddress: 100 });
+    const from = freshAddress();
+    await attempt(app, from, uniqueEmail('pruner'), 'wrong-password-x').expect(401);
+    expect(await keys()).toEqual(['prune-test:live']);
+    const [{ ended }] = await t.sequelize.query<{ ended: number }>(
+      `SELECT count(*)::int AS ended FROM rate_limits WHERE reset_at <= now()`,
+      { type: QueryTypes.SELECT },
+    );
+    expect(ended).toBe(0);
+    // The attempt that pruned was counted as usual.
+    const [counted] = await t.sequelize.query<{ hits: number }>(`SELECT hits FROM rate_limits WHERE key = :key`, {
+      replacements: { key: `sign-in:address:${from}` },
+      type: QueryTypes.SELECT,
+    });
+    expect(counted.hits).toBe(1);
   });
 });

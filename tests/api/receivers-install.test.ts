@@ -278,7 +278,7 @@ describe('POST /api/receivers/:id/apply', () => {
       details: { latest: { id: newer.id, number: 2 } },
     });
 
-    // The check now runs against revision 2, whose pin 1 fails safe to 1450 us.
+    // The check now runs against revision 2, whose pin 1 fails safe to 1450 µs.
     const check = (await editor.get(`/api/receivers/${id}/reuse-check?model=${model.model.id}&slot=wing`).expect(200))
       .body.data;
     expect(check.revision.number).toBe(2);
@@ -287,9 +287,38 @@ describe('POST /api/receivers/:id/apply', () => {
       setting: 'failsafe',
       from: 1500,
       to: 1450,
-      summary: 'Pin 1: failsafe 1500 us, set 1450 us',
+      summary: 'Pin 1: failsafe 1500 µs, set 1450 µs',
     });
     await editor.post(`/api/receivers/${id}/apply`, { revision: newer.id }).expect(200);
     expect((await Receiver.findByPk(id))!.storedSettings!.pins[0]).toEqual({ pin: 1, ch: 9, failsafe: 1450 });
+  });
+});
+
+describe('the history of a unit', () => {
+  it('pages where it has been and what was recorded, each list on its own, with their totals', async () => {
+    const heron = await newModel('Heron');
+    const id = await addUnit(unitFixture('trainer-unit'));
+    for (let stay = 0; stay < 3; stay += 1) {
+      await install(id, { model: heron.id, slot: 'wing' }).expect(201);
+      await editor.post(`/api/receivers/${id}/remove`).expect(200);
+    }
+    // Put on the shelf, then three stays of one install and one removal each.
+    const first = await editor.get(`/api/receivers/${id}/history?limit=2`).expect(200);
+    expect(first.body.data.installs).toHaveLength(2);
+    expect(first.body.data.events.map((event: { action: string }) => event.action)).toEqual([
+      'receiver.removed',
+      'receiver.installed',
+    ]);
+    expect(first.body.pagination).toEqual({
+      installs: { limit: 2, offset: 0, total: 3 },
+      events: { limit: 2, offset: 0, total: 7 },
+    });
+    const older = await editor
+      .get(`/api/receivers/${id}/history?limit=2&installs_offset=2&events_offset=6`)
+      .expect(200);
+    expect(older.body.data.installs).toHaveLength(1);
+    expect(older.body.data.events.map((event: { action: string }) => event.action)).toEqual(['receiver.added']);
+    const everything = await history(id);
+    expect(everything.installs).toHaveLength(3);
   });
 });

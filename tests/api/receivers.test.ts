@@ -202,11 +202,11 @@ describe('GET /api/workspaces/:ws/receivers', () => {
   it('lists the units by label, case aside, paginated', async () => {
     expect(await labels('')).toEqual({
       labels: ['alpha wing', 'Bravo fuselage', 'Charlie spare'],
-      pagination: { limit: 100, offset: 0, total: 3 },
+      pagination: { limit: 100, offset: 0, total: 3, next_after: null },
     });
     expect(await labels('?limit=1&offset=1')).toEqual({
       labels: ['Bravo fuselage'],
-      pagination: { limit: 1, offset: 1, total: 3 },
+      pagination: { limit: 1, offset: 1, total: 3, next_after: expect.any(String) },
     });
   });
 
@@ -308,7 +308,7 @@ describe('GET /api/receivers/:id/reuse-check', () => {
     const { data } = response.body;
     expect(data.ready).toBe(false);
     for (const change of data.changes) {
-      expect(Object.keys(change).sort()).toEqual(['from', 'pin', 'setting', 'summary', 'to']);
+      expect(Object.keys(change).sort()).toEqual(['from', 'pin', 'safety', 'setting', 'summary', 'to']);
       expect(['ch', 'failsafe', 'telemetry']).toContain(change.setting);
       expect(change.pin === null).toBe(change.setting === 'telemetry');
     }
@@ -318,13 +318,15 @@ describe('GET /api/receivers/:id/reuse-check', () => {
       from: 3,
       to: 11,
       summary: 'Pin 3: carries channel 3, must carry channel 11',
+      safety: null,
     });
     expect(data.changes).toContainEqual({
       pin: 3,
       setting: 'failsafe',
       from: 988,
       to: 'hold',
-      summary: 'Pin 3: failsafe 988 us, set hold',
+      summary: 'Pin 3: failsafe 988 µs, set hold',
+      safety: null,
     });
     expect(data.changes).toContainEqual({
       pin: null,
@@ -332,6 +334,7 @@ describe('GET /api/receivers/:id/reuse-check', () => {
       from: true,
       to: false,
       summary: 'Telemetry: on, switch it off',
+      safety: expect.stringContaining('Two receivers sending telemetry'),
     });
     expect(data).toMatchObject({
       receiver_id: unit.id,

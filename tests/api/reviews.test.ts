@@ -31,6 +31,9 @@ beforeEach(async () => {
   ].map((name) => clientFor(t.app, t.config, people[name]));
 });
 
+/** The review id in a review mail's link. */
+const mailReviewId = (text: string) => /\/reviews\/([0-9a-f-]{36})/.exec(text)![1];
+
 /** A model by `author` with the scale demo setup as revision 1. */
 async function scaleModel(name = 'Kestrel') {
   const created = await createModelVia(author, workspace.id, { name, yaml: SCALE(), message: 'First plan' });
@@ -101,6 +104,67 @@ describe('asking for a review', () => {
       await owner.get(`/api/workspaces/${workspace.id}/audit`).expect(200)
     ).body.data;
     expect(trail.find((entry) => entry.action === 'review.requested')!.model).toEqual({ id: modelId, name: 'Kestrel' });
+  });
+
+  it('the mail carries "Between these revisions": the change findings against the base the review page uses', async () => {
+    const { modelId, revision: first } = await scaleModel('Kestrel between');
+    // Revision 1 is approved; revision 2 only adds a comment; revision 3 reverses the
+    // motor channel while the fuselage's pin 3 keeps its 1000 us failsafe (stopped
+    // before, full power after). The review of 3 compares with the approved revision 1.
+    const approvedReview = await reviewOf(first.id);
+    await verdict(reviewer, approvedReview, { verdict: 'approve' }).expect(201);
+    await saveVia(author, modelId, 1, `# Checked at the bench.\n${SCALE()}`, 'A note');
+    const reversed = await saveVia(
+      author,
+      modelId,
+      2,
+      edit(
+        SCALE(),
+        'function: motor,         role: throttle,',
+        'function: motor,         role: throttle, travel: { reverse: true },',
+      ),
+      'Reverse the motor channel',
+    );
+    await ask(reversed.id, [second]).expect(201);
+
+    const [mail] = await mailTo(second.user.email);
+    expect(mail.subject).toBe('Review requested: Kestrel between, revision 3');
+    expect(mail.textBody).toContain(
+      'Between these revisions (compared with the last approved revision, revision 1), 1 finding:',
+    );
+    const line = mail.textBody.split('\n').find((text) => text.startsWith('Warning (failsafe-meaning-changed'));
+    expect(line).toContain('at receivers[id=fuselage].map[pin=3].failsafe');
+    // The same finding, word for word, as the review page's panel shows it.
+    const page = (await second.get(`/api/reviews/${mailReviewId(mail.textBody)}`).expect(200)).body.data;
+    expect(page.base).toMatchObject({ kind: 'approved', revision: { number: 1 } });
+    expect(page.compare.change_findings).toHaveLength(1);
+    expect(line).toContain(page.compare.change_findings[0].message);
+    expect(mail.htmlBody).toContain('Between these revisions');
+
+    // A revision that changes nothing in meaning since the approved one says so.
+    const { modelId: other, revision: quietFirst } = await scaleModel('Kestrel quiet');
+    await verdict(reviewer, await reviewOf(quietFirst.id), { verdict: 'approve' }).expect(201);
+    const quiet = await saveVia(author, other, 1, `# Re-read.\n${SCALE()}`, 'A note');
+    await ask(quiet.id, [second]).expect(201);
+    const [quietMail] = await mailTo(second.user.email);
+    expect(quietMail.subject).toBe('Review requested: Kestrel quiet, revision 2');
+    expect(quietMail.textBody).toContain(
+      'Between these revisions (compared with the last approved revision, revision 1): no mistake shows only between the two.',
+    );
+
+    // With nothing approved before it, the mail says what the review page opens with:
+    // the whole setup as new (the page's default base), not the last small edit.
+    const { modelId: unapproved } = await scaleModel('Kestrel unapproved');
+    const edited = await saveVia(author, unapproved, 1, `# Re-read.\n${SCALE()}`, 'A note');
+    await ask(edited.id, [reviewer]).expect(201);
+    const [unapprovedMail] = await mailTo(reviewer.user.email);
+    expect(unapprovedMail.subject).toBe('Review requested: Kestrel unapproved, revision 2');
+    expect(unapprovedMail.textBody).toContain(
+      'Between these revisions: no revision before revision 2 is approved, so the review shows the whole setup as new',
+    );
+    const unapprovedPage = (await reviewer.get(`/api/reviews/${mailReviewId(unapprovedMail.textBody)}`).expect(200))
+      .body.data;
+    expect(unapprovedPage.base).toBeNull();
   });
 
   it('refuses reviewers below the reviewer role, outsiders, the author, repeats and a second open review', async () => {
@@ -492,6 +556,21 @@ describe('anchored comments', () => {
     );
     expect((await viewer.get(`/api/revisions/${three.id}/comments`).expect(200)).body.data).toEqual([]);
     expect((await viewer.get(`/api/revisions/${revision.id}/comments`).expect(200)).body.data).toHaveLength(2);
+  });
+
+  it('come a page at a time, oldest first, with how many there are', async () => {
+    const { revision } = await scaleModel();
+    const review = await reviewOf(revision.id);
+    for (const body of ['First note', 'Second note', 'Third note'])
+      await reviewer.post(`/api/reviews/${review}/comments`, { body }).expect(201);
+    const first = await viewer.get(`/api/revisions/${revision.id}/comments?limit=2`).expect(200);
+    expect(first.body.data.map((comment: { body: string }) => comment.body)).toEqual(['First note', 'Second note']);
+    expect(first.body.pagination).toEqual({ limit: 2, offset: 0, total: 3 });
+    const rest = await viewer.get(`/api/revisions/${revision.id}/comments?limit=2&offset=2`).expect(200);
+    expect(rest.body.data.map((comment: { body: string }) => comment.body)).toEqual(['Third note']);
+    expect(rest.body.pagination).toEqual({ limit: 2, offset: 2, total: 3 });
+    const refused = await viewer.get(`/api/revisions/${revision.id}/comments?limit=0`).expect(400);
+    expect(refused.body.error.details.fields.limit).toBe('limit is at least 1.');
   });
 
   it('refuses a path that is not in the reviewed revision or cannot be read; viewers cannot comment', async () => {

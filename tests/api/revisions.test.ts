@@ -177,6 +177,45 @@ describe('POST /api/models/:id/revisions', () => {
     expect(await revisionCount(model.id)).toBe(1);
   });
 
+  it('answers a stranger 404 and a viewer 403 before judging the text, and stores nothing', async () => {
+    // The save checks the text before its one statement checks the role, so a refused
+    // text must still answer like the role check would.
+    const { model } = await createModelVia(editor, roles.workspace.id, { name: 'Roles first', yaml: TRAINER() });
+    const stranger = clientFor(t.app, t.config, roles.outsider);
+    const viewer = clientFor(t.app, t.config, roles.members.viewer);
+    for (const yaml of [ALIAS_BOMB, TRAINER(), 'format: [unclosed']) {
+      const asStranger = await stranger.post(`/api/models/${model.id}/revisions`, { base: 1, yaml }).expect(404);
+      expect(asStranger.body.error.code).toBe('model-not-found');
+      const asViewer = await viewer.post(`/api/models/${model.id}/revisions`, { base: 1, yaml }).expect(403);
+      expect(asViewer.body.error).toMatchObject({
+        code: 'role-too-low',
+        details: { required: 'editor', role: 'viewer' },
+      });
+    }
+    await editor.post('/api/models/not-a-uuid/revisions', { base: 1, yaml: 'format: [unclosed' }).expect(404);
+    await editor
+      .post('/api/models/00000000-0000-4000-8000-000000000000/revisions', { base: 1, yaml: TRAINER() })
+      .expect(404);
+    expect(await revisionCount(model.id)).toBe(1);
+  });
+
+  it('writes the audit entry of a save with the number it got', async () => {
+    const { model } = await createModelVia(editor, roles.workspace.id, { name: 'Audited save', yaml: TRAINER() });
+    const saved = await saveVia(editor, model.id, 1, edit(TRAINER(), 'expo: 30,', 'expo: 33,'));
+    const entry = await AuditEvent.findOne({ where: { subjectId: saved.id } });
+    expect(entry).toMatchObject({
+      action: 'revision.saved',
+      actorId: roles.members.editor.id,
+      subjectType: 'revision',
+    });
+    expect(entry!.details).toEqual({ model_id: model.id, number: 2, content_hash: saved.content_hash, errors: 0 });
+    const [stored] = await SetupModel.sequelize!.query<{ updated_at: Date; created_at: Date }>(
+      'SELECT m.updated_at, r.created_at FROM models m JOIN revisions r ON r.model_id = m.id WHERE r.id = $id',
+      { bind: { id: saved.id }, type: QueryTypes.SELECT },
+    );
+    expect(stored.updated_at.getTime()).toBe(stored.created_at.getTime());
+  });
+
   it.each([
     ['no base', { yaml: 'x: 1' }, 'base'],
     ['a base of 0', { base: 0, yaml: 'x: 1' }, 'base'],

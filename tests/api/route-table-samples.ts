@@ -256,6 +256,8 @@ export async function buildSampleWorld(t: MailTestApp): Promise<SampleWorld> {
     }),
     'GET /api/models/:id': async () => ({ url: `/api/models/${modelId}` }),
     'PATCH /api/models/:id': async () => ({ url: `/api/models/${modelId}`, body: { name: 'Matrix trainer' } }),
+    'POST /api/models/:id/archive': async () => ({ url: `/api/models/${modelId}/archive` }),
+    'POST /api/models/:id/unarchive': async () => ({ url: `/api/models/${modelId}/unarchive` }),
     'POST /api/models/:id/fork': async (caller) => ({
       url: `/api/models/${modelId}/fork`,
       body: { number: 1, workspace: caller === 'anonymous' ? ws : ownWorkspace[caller], name: fresh('Fork') },

@@ -150,6 +150,24 @@ describe('workspace routes', () => {
     expect(me.body.data.workspaces).toEqual([{ id: workspace.id, name: 'North strip', role: 'owner' }]);
   });
 
+  it('/api/me and /api/session answer the workspaces a page at a time, by name, with how many there are', async () => {
+    const user = await createUser();
+    for (const name of ['Curlew Bank', 'Avocet Flats', 'Bittern Reach']) await createWorkspace({ owner: user, name });
+    const token = tokenFor(user, t.config);
+    const first = await request(t.app).get('/api/me?limit=2').set(bearer(token)).expect(200);
+    expect(first.body.data.workspaces.map((workspace: { name: string }) => workspace.name)).toEqual([
+      'Avocet Flats',
+      'Bittern Reach',
+    ]);
+    expect(first.body.pagination).toEqual({ limit: 2, offset: 0, total: 3 });
+    const rest = await request(t.app).get('/api/me?limit=2&offset=2').set(bearer(token)).expect(200);
+    expect(rest.body.data.workspaces.map((workspace: { name: string }) => workspace.name)).toEqual(['Curlew Bank']);
+    const session = await request(t.app).get('/api/session').set(bearer(token)).expect(200);
+    expect(session.body.data.workspaces).toHaveLength(3);
+    expect(session.body.pagination).toEqual({ limit: 100, offset: 0, total: 3 });
+    await request(t.app).get('/api/me?limit=201').set(bearer(token)).expect(400);
+  });
+
   it('a rename with an empty name or an unknown field is refused and changes nothing', async () => {
     const token = tokenFor(fixture.members.owner, t.config);
     const url = `/api/workspaces/${fixture.workspace.id}`;

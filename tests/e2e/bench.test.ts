@@ -31,7 +31,7 @@ describe('journey: the bench', () => {
     await stick.press('End');
     expect(await stick.inputValue()).toBe('100');
     // The elevator mix has weight 92 (flap compensation is off with the flap switch at 0):
-    // 92 % of the 500 us half-travel above the 1500 us centre is 1960 us.
+    // 92 % of the 500 µs half-travel above the 1500 µs centre is 1960 µs.
     await channels.getByRole('cell', { name: '1960', exact: true }).waitFor();
     expect((await rowCells(elevatorChannel)).slice(-2)).toEqual(['92', '1960']);
     const fuselagePins = page.getByRole('table', { name: /^Pins of Fuselage receiver/ });
@@ -51,7 +51,7 @@ describe('journey: the bench', () => {
       .filter({ has: page.getByRole('cell', { name: '1', exact: true }) })
       .first();
     await wingPin1.waitFor();
-    expect(await rowCells(wingPin1)).toEqual(['1', '9', 'tailwheel', '1500', 'failsafe (1500 us)', '1500 us']);
+    expect(await rowCells(wingPin1)).toEqual(['1', '9', 'tailwheel', '1500', 'failsafe (1500 µs)', '1500 µs']);
     const fuselageLive = page.getByRole('table', { name: /^Pins of Fuselage receiver.*now/ });
     const livePin2 = fuselageLive
       .getByRole('row')
@@ -60,7 +60,7 @@ describe('journey: the bench', () => {
     expect((await rowCells(livePin2)).slice(3, 5)).toEqual(['1960', 'live']);
     await saveScreenshot(page, 'journey-06-bench-wing-lost');
 
-    // Every receiver lost: the motor's pin 3 goes to its 1000 us stop, the elevator to 1500 us.
+    // Every receiver lost: the motor's pin 3 goes to its 1000 µs stop, the elevator to 1500 µs.
     await page.getByRole('button', { name: 'Lose every receiver' }).click();
     const lost = page.getByRole('table', { name: /^Pins of Fuselage receiver.*with the link lost/ });
     const pin3 = lost
@@ -73,7 +73,7 @@ describe('journey: the bench', () => {
       .getByRole('row')
       .filter({ has: page.getByRole('cell', { name: '2', exact: true }) })
       .first();
-    expect((await rowCells(pin2Lost)).slice(3, 5)).toEqual(['1500', 'failsafe (1500 us)']);
+    expect((await rowCells(pin2Lost)).slice(3, 5)).toEqual(['1500', 'failsafe (1500 µs)']);
     await saveScreenshot(page, 'journey-06-bench-link-lost');
     expectNoProblems(visit);
     await visit.context.close();

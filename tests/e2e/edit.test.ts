@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { apiAs, createModel, fixtureText } from './support/api';
 import { useBrowser } from './support/browser';
 import { demoAccount } from './support/demo';
-import { checksPanel, openEditorAtLine, replaceSelection, selectedText, setupText } from './support/editor';
+import { checksPanel, openEditorAtLine, replaceSelection, selectRestOfLine, setupText } from './support/editor';
 import { saveScreenshot } from './support/screenshots';
 import { expectNoProblems, signedIn } from './support/session';
 
@@ -34,8 +34,8 @@ describe('journey: edit in the text and in the forms, then save', () => {
     const elevatorLine = lineOf('- { ch: 2,');
     const original = lines[elevatorLine - 1];
     await openEditorAtLine(page, model.id, elevatorLine);
-    // The jump selects the line after the editor has mounted: type only once it has.
-    await expect.poll(() => selectedText(page)).toBe(original);
+    // The jump puts the cursor at the line's start once the editor has mounted; select the line from there.
+    await selectRestOfLine(page, original);
     // Elevator typed onto channel 1, where the left aileron already is.
     const changed = original.replace('ch: 2, ', 'ch: 1, ');
     await replaceSelection(page, changed);
@@ -45,9 +45,10 @@ describe('journey: edit in the text and in the forms, then save', () => {
     await page.getByText('Unsaved changes').waitFor();
     await saveScreenshot(page, 'journey-03-channel-conflict', { fullPage: false });
 
-    // The finding's link selects its line; typing the right channel back clears it.
+    // The finding's link goes to its line (the address stays clean); typing the right channel back clears it.
     await conflict.click();
-    await expect.poll(() => selectedText(page)).toBe(changed);
+    await expect.poll(() => page.url()).not.toContain('?line=');
+    await selectRestOfLine(page, changed);
     await replaceSelection(page, original);
     await expect
       .poll(() => checksPanel(page).textContent(), { timeout: 30_000 })
@@ -70,7 +71,7 @@ describe('journey: edit in the text and in the forms, then save', () => {
     const dialog = page.getByRole('dialog', { name: 'Save as revision 2' });
     await dialog
       .getByLabel('What changed')
-      .fill('Wing pin 1 failsafe 1500 -> 1450 us: tailwheel a touch left of centre');
+      .fill('Wing pin 1 failsafe 1500 -> 1450 µs: tailwheel a touch left of centre');
     await dialog.getByRole('button', { name: 'Save revision' }).click();
     await page.getByRole('region', { name: 'Notifications' }).getByText('Saved revision 2').waitFor();
     await page.getByText('No unsaved changes').waitFor();
@@ -78,7 +79,7 @@ describe('journey: edit in the text and in the forms, then save', () => {
 
     const history = await api.get<Revision[]>(`/models/${model.id}/revisions`);
     expect(history.map((revision) => revision.number)).toEqual([2, 1]);
-    expect(history[0].message).toBe('Wing pin 1 failsafe 1500 -> 1450 us: tailwheel a touch left of centre');
+    expect(history[0].message).toBe('Wing pin 1 failsafe 1500 -> 1450 µs: tailwheel a touch left of centre');
     const saved = await api.get<Revision & { id: string }>(`/models/${model.id}/revisions/2`);
     // The form changed only the failsafe, in place; the fixed channel line is as it was.
     expect(saved.yaml).toContain('- { pin: 1, ch: 9,  failsafe: 1450 }');
@@ -103,6 +104,7 @@ describe('journey: two tabs on one model', () => {
     await openEditorAtLine(second, model.id, notesLine);
 
     await first.bringToFront();
+    await selectRestOfLine(first, lines[weightLine - 1]);
     await replaceSelection(first, '  weight_g: 6350');
     await first.getByText('Unsaved changes').waitFor();
     await first.getByRole('button', { name: 'Save revision…' }).click();
@@ -114,6 +116,7 @@ describe('journey: two tabs on one model', () => {
     await first.getByRole('region', { name: 'Notifications' }).getByText('Saved revision 2').waitFor();
 
     await second.bringToFront();
+    await selectRestOfLine(second, lines[notesLine - 1]);
     await replaceSelection(second, '  notes: Scale low wing, split flaps, retracts and lights.');
     await second.getByText('Unsaved changes').waitFor();
     await second.getByRole('button', { name: 'Save revision…' }).click();

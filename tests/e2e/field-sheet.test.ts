@@ -1,10 +1,11 @@
-import { readFileSync } from 'node:fs';
+import { mkdirSync, readFileSync, writeFileSync } from 'node:fs';
+import path from 'node:path';
 import pdfParse from 'pdf-parse/lib/pdf-parse.js';
 import { describe, expect, it } from 'vitest';
 import { apiAs, demoModel } from './support/api';
 import { useBrowser } from './support/browser';
 import { baseUrl, demoAccount } from './support/demo';
-import { saveScreenshot } from './support/screenshots';
+import { saveScreenshot, SCREENSHOT_DIR } from './support/screenshots';
 import { expectNoProblems, signedIn } from './support/session';
 
 const browser = useBrowser();
@@ -37,12 +38,17 @@ describe('journey: print the field sheet and download its PDF', () => {
     expect(await page.getByRole('button', { name: 'Print' }).isVisible()).toBe(false);
     expect(await page.getByRole('heading', { name: 'Kestrel Mk II', exact: true }).isVisible()).toBe(true);
     await saveScreenshot(page, 'journey-10-field-sheet-print-media');
-    const printed = await pdfParse(await page.pdf({ format: 'A4', preferCSSPageSize: true, printBackground: true }));
+    const printout = await page.pdf({ format: 'A4', preferCSSPageSize: true, printBackground: true });
+    mkdirSync(SCREENSHOT_DIR, { recursive: true });
+    writeFileSync(path.join(SCREENSHOT_DIR, 'journey-10-field-sheet-print.pdf'), printout);
+    const printed = await pdfParse(printout);
     expect(printed.text).toContain('Kestrel Mk II');
     expect(printed.text).toContain('Channel plan');
-    expect(printed.text).toMatch(/1\s*9\s*tailwheel\s*1500 us/);
+    expect(printed.text).toMatch(/1\s*9\s*tailwheel\s*1500 µs/);
     expect(printed.text).not.toContain('Sign out');
     expect(printed.text).not.toContain('Download PDF');
+    expect(printed.text).not.toContain('Keep for the field');
+    expect(printed.text).not.toContain('No signal');
     await page.emulateMedia({ media: 'screen' });
 
     const [download] = await Promise.all([
@@ -56,8 +62,8 @@ describe('journey: print the field sheet and download its PDF', () => {
     expect(pdf.numpages).toBe(1);
     expect(pdf.text).toContain('Kestrel Mk II');
     // Wing pins 1-8 carry channels 9-16 (the demo's remap); the tailwheel's pin centres on failsafe.
-    expect(pdf.text).toMatch(/1\s*9\s*tailwheel\s*1500 us/);
-    expect(pdf.text).toMatch(/3\s*3\s*motor\s*1000 us/);
+    expect(pdf.text).toMatch(/1\s*9\s*tailwheel\s*1500 µs/);
+    expect(pdf.text).toMatch(/3\s*3\s*motor\s*1000 µs/);
     await saveScreenshot(page, 'journey-10-field-sheet');
     expectNoProblems(visit);
     await visit.context.close();

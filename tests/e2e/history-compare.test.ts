@@ -17,7 +17,7 @@ describe('journey: compare two revisions from the History', () => {
     await page.getByRole('heading', { name: 'History', exact: true }).waitFor();
 
     // Revision 3 remapped the wing receiver; revision 4 fixed its pin 1 failsafe, left at
-    // the 988 us the unit held from its last airframe (the demo seed's story).
+    // the 988 µs the unit held from its last airframe (the demo seed's story).
     await page.getByLabel('Pick revision 4 to compare').check();
     await page.getByLabel('Pick revision 3 to compare').check();
     await saveScreenshot(page, 'journey-05-history-picked');
@@ -55,8 +55,8 @@ describe('journey: compare two revisions from the History', () => {
       '1',
       '9',
       'wing lost',
-      '988 us (failsafe)',
-      '1500 us (failsafe)',
+      '988 µs (failsafe)',
+      '1500 µs (failsafe)',
     ]);
     await saveScreenshot(page, 'journey-05-compare');
     expectNoProblems(visit);

@@ -18,7 +18,7 @@ describe('journey: a receiver from the Shelf into an airframe, through the reuse
 
     await page.getByRole('button', { name: 'Install into a model' }).click();
     await page.getByLabel('Model').selectOption({ label: 'Kestrel Mk II' });
-    const slot = page.getByLabel('Receiver slot');
+    const slot = page.getByLabel('As which receiver of the setup');
     await slot.locator('option', { hasText: /^wing/ }).waitFor({ state: 'attached' });
     await slot.selectOption({ index: 2 });
     expect(await slot.evaluate((select: HTMLSelectElement) => select.selectedOptions[0]?.textContent ?? '')).toMatch(
@@ -26,7 +26,7 @@ describe('journey: a receiver from the Shelf into an airframe, through the reuse
     );
 
     // The unit left a trainer with pins 1-8 on channels 1-8, telemetry on and pin 3 failing
-    // safe to 988 us (fixtures/reuse/trainer-unit.yaml); the wing slot carries 9-16 silently
+    // safe to 988 µs (fixtures/reuse/trainer-unit.yaml); the wing slot carries 9-16 silently
     // with hold on pins 2-6. So: 8 remaps, failsafes on pins 2, 3, 4 and 6, telemetry off.
     await page.getByText('13 settings to change on the unit').waitFor();
     await page.getByText('What would have to change on the unit').waitFor();
@@ -34,7 +34,7 @@ describe('journey: a receiver from the Shelf into an airframe, through the reuse
     await page.getByRole('button', { name: 'Install it here' }).click();
     await page
       .getByRole('region', { name: 'Notifications' })
-      .getByText('Pipit trainer unit is in slot wing of Kestrel Mk II')
+      .getByText('Pipit trainer unit is now receiver wing of Kestrel Mk II')
       .waitFor();
 
     const bench = page.getByRole('group', { name: 'Program these on the unit' });
@@ -44,6 +44,10 @@ describe('journey: a receiver from the Shelf into an airframe, through the reuse
     const apply = page.getByRole('button', { name: 'I have applied these settings' });
     expect(await apply.isDisabled()).toBe(true);
     for (const tick of await ticks.all()) await tick.check();
+    // The safety changes come first; the re-bind step closes the list.
+    await bench.getByRole('heading', { name: 'Safety first' }).waitFor();
+    expect(await apply.isDisabled()).toBe(true);
+    await page.getByRole('checkbox', { name: /Bind the unit to this model/ }).check();
     await saveScreenshot(page, 'journey-09-reuse-ticked');
     await apply.click();
     await page.getByRole('region', { name: 'Notifications' }).getByText('Settings recorded').waitFor();

@@ -42,12 +42,12 @@ describe('pulse-out-of-range', () => {
 });
 
 describe('failsafe-throttle', () => {
-  // [cap-658] the throttle must go to closed or idle on signal loss; Bindery allows 50 us of slack.
+  // [cap-658] the throttle must go to closed or idle on signal loss; Bindery allows 50 µs of slack.
   it.each([
     [1050, false],
     [1051, true],
     [980, false],
-  ])('a throttle failsafe of %i us (idle 1000 us) fires: %s', (pulse, fires) => {
+  ])('a throttle failsafe of %i us (idle 1000 µs) fires: %s', (pulse, fires) => {
     expect(rulesWith(motorPin, `      - { pin: 3, ch: 3, failsafe: ${pulse} }`).includes('failsafe-throttle')).toBe(
       fires,
     );

@@ -43,6 +43,8 @@ const CONTRACT: [string, string][] = [
   ['cut-not-at-stop', 'warning'],
   // The project's addition: an accepted entry that names an error.
   ['accepted-error', 'error'],
+  // Two accepted entries for one finding (the same rule and path).
+  ['accepted-duplicate', 'warning'],
 ];
 
 const invalid = invalidFixtures();
@@ -109,7 +111,7 @@ describe('messages name the things involved', () => {
   it.each([
     ['channel-shared', 'channel-shared', 'Channel 4 carries both rudder and tow-release'],
     ['duplicate-id--map-pin', 'duplicate-id', 'pin 4 twice'],
-    ['failsafe-throttle--pulse', 'failsafe-throttle', '1350 us'],
+    ['failsafe-throttle--pulse', 'failsafe-throttle', '1350 µs'],
     [
       'pair-split',
       'pair-split',

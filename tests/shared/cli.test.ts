@@ -115,7 +115,7 @@ describe('outputs', () => {
       ]);
       expect(result.code).toBe(0);
       const out = JSON.parse(result.stdout);
-      // [expo-cubic] 70 % rate of curve(0.5) at 30 % expo: 27.125 % -> 1636 us
+      // [expo-cubic] 70 % rate of curve(0.5) at 30 % expo: 27.125 % -> 1636 µs
       expect(out.channels[0]).toEqual({ ch: 1, function: 'aileron', value: 27.13, pulse_us: 1636 });
       // The motor stays cut: motor-arm is at position 0.
       expect(out.channels[2]).toEqual({ ch: 3, function: 'motor', value: -100, pulse_us: 1000 });
@@ -140,6 +140,48 @@ describe('outputs', () => {
       expect(JSON.parse(broken.stdout).findings[0].rule).toBe('schema');
       expect(human.code).toBe(0);
       expect(human.stdout).toContain('Receiver wing');
+    },
+    TIMEOUT,
+  );
+
+  it(
+    '--lost loses one receiver (or all): the FORMAT shape, lost receivers send their failsafes, the others stay live',
+    async () => {
+      const demo = fixture('valid/scale-16-channel-two-receivers.yaml');
+      const [one, all, unknown] = await Promise.all([
+        run('outputs', [demo, '--set', 'cowl-knob=50', '--lost', 'wing', '--json']),
+        run('outputs', [demo, '--set', 'cowl-knob=50', '--lost', 'all', '--json']),
+        run('outputs', [demo, '--lost', 'nowhere', '--json']),
+      ]);
+      expect(one.code).toBe(0);
+      const out = JSON.parse(one.stdout);
+      // docs/format.md, "Command line": channels as before; each receiver adds `lost`.
+      expect(Object.keys(out)).toEqual(['channels', 'receivers']);
+      for (const channel of out.channels) expect(Object.keys(channel)).toEqual(['ch', 'function', 'value', 'pulse_us']);
+      expect(out.receivers.map((receiver: { id: string; lost: boolean }) => [receiver.id, receiver.lost])).toEqual([
+        ['fuselage', false],
+        ['wing', true],
+      ]);
+      for (const receiver of out.receivers) {
+        expect(Object.keys(receiver)).toEqual(['id', 'lost', 'pins']);
+        for (const pin of receiver.pins) expect(Object.keys(pin)).toEqual(['pin', 'ch', 'pulse_us', 'failsafe']);
+      }
+      // The cowl knob at 50 % puts channel 15 at 1750 us; the wing's pin 7 carries it
+      // and, lost, sends its 1500 us failsafe instead.
+      expect(out.channels.find((channel: { ch: number }) => channel.ch === 15)).toMatchObject({ pulse_us: 1750 });
+      expect(out.receivers[1].pins[6]).toEqual({ pin: 7, ch: 15, pulse_us: 1500, failsafe: 1500 });
+      // hold repeats the last live pulse.
+      expect(out.receivers[1].pins[1]).toEqual({ pin: 2, ch: 10, pulse_us: 1500, failsafe: 'hold' });
+      // The fuselage keeps the link: its pins follow the sticks, not the failsafes.
+      expect(out.receivers[0].pins[6]).toEqual({ pin: 7, ch: 7, pulse_us: 1000, failsafe: 1500 });
+
+      expect(all.code).toBe(0);
+      const everything = JSON.parse(all.stdout);
+      expect(everything.receivers.map((receiver: { lost: boolean }) => receiver.lost)).toEqual([true, true]);
+      expect(everything.receivers[0].pins[6]).toEqual({ pin: 7, ch: 7, pulse_us: 1500, failsafe: 1500 });
+
+      expect(unknown.code).toBe(2);
+      expect(JSON.parse(unknown.stdout).error.message).toContain('no receiver nowhere');
     },
     TIMEOUT,
   );

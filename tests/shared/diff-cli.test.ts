@@ -1,5 +1,5 @@
 import { spawnSync } from 'node:child_process';
-import { mkdtempSync, writeFileSync } from 'node:fs';
+import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -25,7 +25,7 @@ describe('npm run diff (scripts/cli/diff.ts)', { timeout: 60_000 }, () => {
           path: 'receivers[id=wing].map[pin=3].failsafe',
           before: 988,
           after: 1500,
-          summary: 'Wing receiver pin 3: failsafe 988 -> 1500 us',
+          summary: 'Wing receiver pin 3: failsafe 988 -> 1500 µs',
         },
       ],
       counts: { added: 0, removed: 0, changed: 1, renamed: 0, moved: 0 },
@@ -86,5 +86,48 @@ describe('npm run diff (scripts/cli/diff.ts)', { timeout: 60_000 }, () => {
     const json = run(join(dir, 'missing.yaml'), good, '--json');
     expect(json.code).toBe(2);
     expect(JSON.parse(json.stdout).error.message).toContain('missing.yaml');
+  });
+
+  // The demo revisions of issue 11: only the elevator expo (15 -> 20), or only the low
+  // aileron rate (60 -> 65), changed. Both move pins inside the stick's range, which the
+  // compare must report (docs/format.md, "The compare sees every change in behaviour").
+  it('shows a non-empty outputs_delta for a pair differing only in an expo, or only in a low rate', () => {
+    const dir = mkdtempSync(join(tmpdir(), 'bindery-diff-'));
+    const demo = readFileSync(
+      fileURLToPath(new URL('../../fixtures/valid/scale-16-channel-two-receivers.yaml', import.meta.url)),
+      'utf8',
+    );
+    const write = (name: string, text: string) => {
+      const file = join(dir, name);
+      writeFileSync(file, text);
+      return file;
+    };
+    const base = write('demo.yaml', demo);
+    const expo = write('expo.yaml', demo.replace('weight: 92, expo: 15', 'weight: 92, expo: 20'));
+    const lowRate = write('low-rate.yaml', demo.replaceAll('weights: [100, 60]', 'weights: [100, 65]'));
+
+    const expoRun = run(base, expo, '--json');
+    expect(expoRun.code).toBe(0);
+    const expoOut = JSON.parse(expoRun.stdout);
+    expect(expoOut.changes.map((change: { path: string }) => change.path)).toEqual(['mixes[id=elevator].expo']);
+    expect(expoOut.outputs_delta.length).toBeGreaterThan(0);
+    // [expo-cubic] -50 % stick: 92 * (0.85 * -0.5 + 0.15 * -0.125) = -40.825 % -> 1296 us,
+    // 92 * (0.8 * -0.5 + 0.2 * -0.125) = -39.1 % -> 1305 us.
+    expect(expoOut.outputs_delta[0]).toMatchObject({ receiver: 'fuselage', pin: 2, before_us: 1296, after_us: 1305 });
+    expect(expoOut.findings_delta).toEqual({ introduced: [], resolved: [] });
+    expect(expoOut.change_findings).toEqual([]);
+
+    const rateRun = run(base, lowRate, '--json');
+    expect(rateRun.code).toBe(0);
+    const rateOut = JSON.parse(rateRun.stdout);
+    expect(rateOut.outputs_delta.length).toBeGreaterThan(0);
+    // 1500 - 0.60 * 500 = 1200 us before, 1500 - 0.65 * 500 = 1175 us after, at the low rate.
+    expect(rateOut.outputs_delta[0]).toMatchObject({
+      receiver: 'fuselage',
+      pin: 1,
+      position: { set: { 'rate-switch': 1, 'aileron-stick': -100 } },
+      before_us: 1200,
+      after_us: 1175,
+    });
   });
 });

@@ -17,15 +17,15 @@ describe('findings delta', () => {
     const { before, after } = loadPair('remap-second-receiver');
     const delta = findingsDelta(before.findings, after.findings);
     // Before the remap the wing receiver's pin 3 carried the motor too, failing safe to
-    // 988 us against the fuselage's 1000 us (failsafe-mismatch, more than 10 us apart).
+    // 988 µs against the fuselage's 1000 µs (failsafe-mismatch, more than 10 µs apart).
     expect(where(delta.resolved).sort()).toEqual(
       [
         'failsafe-mismatch receivers[id=wing].map[pin=3].failsafe',
         ...[9, 10, 11, 12, 13, 14, 15, 16].map((ch) => `function-unrouted channels[ch=${ch}]`),
       ].sort(),
     );
-    // After it, the left-over 988 us sits on an aux channel, and the tow release and the
-    // smoke (payloads, at rest at 1000 us) fail safe to 1500 us, which would release them.
+    // After it, the left-over 988 µs sits on an aux channel, and the tow release and the
+    // smoke (payloads, at rest at 1000 µs) fail safe to 1500 µs, which would release them.
     expect(where(delta.introduced).sort()).toEqual([
       'failsafe-endstop receivers[id=wing].map[pin=3].failsafe',
       'failsafe-payload receivers[id=wing].map[pin=1].failsafe',
@@ -76,7 +76,7 @@ describe('outputs delta', () => {
         after_us: 1500,
         failsafe_before: 988,
         failsafe_after: 1500,
-        summary: `Wing receiver pin 3, ${REST_LABEL}, Wing receiver lost: 988 us -> 1500 us`,
+        summary: `Wing receiver pin 3, ${REST_LABEL}, Wing receiver lost: 988 µs -> 1500 µs`,
       },
     ]);
   });
@@ -86,8 +86,8 @@ describe('outputs delta', () => {
     const delta = outputsDelta(before, after);
     expect(delta.every((row) => row.receiver === 'wing')).toBe(true);
     expect(new Set(delta.map((row) => row.pin))).toEqual(new Set([1, 2, 3, 4, 5, 6, 7, 8]));
-    // At rest pin 1 followed the aileron (centred, 1500 us); now the tow release, its
-    // 2-position switch at position 0, sits at the low end (1000 us) [arduino-servo].
+    // At rest pin 1 followed the aileron (centred, 1500 µs); now the tow release, its
+    // 2-position switch at position 0, sits at the low end (1000 µs) [arduino-servo].
     expect(delta.find((row) => row.pin === 1 && row.position.label === REST_LABEL)).toMatchObject({
       kind: 'pulse',
       ch_before: 1,
@@ -104,13 +104,13 @@ describe('outputs delta', () => {
     // Default travel 1000/1500/2000 [arduino-servo], cubic expo [expo-cubic].
     expect(rows(before, after)).toEqual([
       // Low rate 65 -> 70 % of full stick on both ailerons: at -100 % curve(-1) = -1, so
-      // 1500 - 0.65 * 500 = 1175 us before, 1500 - 0.70 * 500 = 1150 us after.
+      // 1500 - 0.65 * 500 = 1175 µs before, 1500 - 0.70 * 500 = 1150 µs after.
       ['rate-switch at position 1, aileron-stick at -100 %, the rest at rest', 'main', 1, 1175, 1150],
       // Elevator expo: the first point of the grid (centre out) where the pulses differ.
       ['elevator-stick at -50 %, the rest at rest', 'main', 2, 1309, 1326],
       ['flap-switch at position 1, elevator-stick at -50 %, the rest at rest', 'main', 2, 1309, 1326],
       // Flap trim -8 -> -12 % with the stick centred and the flaps fully down: -8 % of
-      // 500 us is -40 us, -12 % is -60 us from the 1500 us centre.
+      // 500 µs is -40 µs, -12 % is -60 µs from the 1500 µs centre.
       ['flap-switch at position 2, the rest at rest', 'main', 2, 1460, 1440],
       ['rate-switch at position 1, aileron-stick at -100 %, the rest at rest', 'main', 6, 1175, 1150],
     ]);

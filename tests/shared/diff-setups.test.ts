@@ -104,6 +104,67 @@ describe('identity matching', () => {
   });
 });
 
+describe('accepted findings are matched by rule and path', () => {
+  const base = () => {
+    const doc = clone(loadPair('failsafe-fix').after.data as Doc);
+    doc.accepted = [
+      { rule: 'failsafe-unset', path: 'receivers[id=wing].map[pin=2]', reason: 'The lights may stay as they are' },
+      { rule: 'control-unused', path: 'controls[id=flap-switch]', reason: 'Kept for the next season' },
+    ];
+    return doc;
+  };
+
+  it('reordering them is no change at all, not even a move', () => {
+    const before = base();
+    const after = clone(before);
+    after.accepted.reverse();
+    expect(diffSetups(before, after).changes).toEqual([]);
+  });
+
+  it('a changed reason is a change of that entry, named by its rule and path', () => {
+    const before = base();
+    const after = clone(before);
+    after.accepted.reverse();
+    after.accepted[1].reason = 'The lights are off for the maiden';
+    const { changes } = diffSetups(before, after);
+    expect(changes).toMatchObject([
+      {
+        kind: 'changed',
+        section: 'accepted',
+        path: 'accepted[rule=failsafe-unset,path=receivers[id=wing].map[pin=2]].reason',
+        before: 'The lights may stay as they are',
+        after: 'The lights are off for the maiden',
+      },
+    ]);
+    expect(changes[0].summary).toBe(
+      'Accepted failsafe-unset at receivers[id=wing].map[pin=2]: reason “The lights may stay as they are” -> “The lights are off for the maiden”',
+    );
+  });
+
+  it('another path is another entry: one removed, one added, never a rename', () => {
+    const before = base();
+    const after = clone(before);
+    after.accepted[0].path = 'receivers[id=wing].map[pin=3]';
+    expect(diffSetups(before, after).changes.map((change) => [change.kind, change.path])).toEqual([
+      ['added', 'accepted[rule=failsafe-unset,path=receivers[id=wing].map[pin=3]]'],
+      ['removed', 'accepted[rule=failsafe-unset,path=receivers[id=wing].map[pin=2]]'],
+    ]);
+  });
+
+  it('the first entry of a document that had none is that entry added', () => {
+    const before = loadPair('failsafe-fix').after.data as Doc;
+    const after = base();
+    const { changes } = diffSetups(before, after);
+    expect(changes.map((change) => [change.kind, change.path])).toEqual([
+      ['added', 'accepted[rule=failsafe-unset,path=receivers[id=wing].map[pin=2]]'],
+      ['added', 'accepted[rule=control-unused,path=controls[id=flap-switch]]'],
+    ]);
+    expect(changes[0].summary).toBe(
+      'Accepted failsafe-unset at receivers[id=wing].map[pin=2] added (reason “The lights may stay as they are”)',
+    );
+  });
+});
+
 describe('renames', () => {
   const { before, after } = loadPair('renames');
   const diff = diffSetups(before.data, after.data);
@@ -169,10 +230,10 @@ describe('sentences and paths', () => {
         path: 'receivers[id=wing].map[pin=3].failsafe',
         before: 988,
         after: 1500,
-        summary: 'Wing receiver pin 3: failsafe 988 -> 1500 us',
+        summary: 'Wing receiver pin 3: failsafe 988 -> 1500 µs',
       },
     ]);
-    expect(summaries(after.data, before.data)).toEqual(['Wing receiver pin 3: failsafe 1500 -> 988 us']);
+    expect(summaries(after.data, before.data)).toEqual(['Wing receiver pin 3: failsafe 1500 -> 988 µs']);
   });
 
   it('names channels by what they carry when pins are remapped', () => {
@@ -245,10 +306,10 @@ describe('sentences and paths', () => {
     expect(summaries(doc, next)).toEqual([
       'Model weight 1650 -> 1720 g',
       'Channel 3 (motor): cut removed (was: motor-arm at position 0 forces -100 %)',
-      'Channel 6 (aileron-right): travel low end 1000 -> 1100 us',
+      'Channel 6 (aileron-right): travel low end 1000 -> 1100 µs',
       'Channel 6 (aileron-right): reverse off -> on',
-      'Main receiver pin 5: failsafe hold -> 1500 us',
-      'Main receiver pin 6: failsafe 1500 us -> unset (receiver default)',
+      'Main receiver pin 5: failsafe hold -> 1500 µs',
+      'Main receiver pin 6: failsafe 1500 µs -> unset (receiver default)',
       'Power receiver supply esc-bec -> both',
       'Extra field radio_notes: unset -> “bench tested”',
     ]);

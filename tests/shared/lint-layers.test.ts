@@ -42,6 +42,27 @@ describe('the layer rules', () => {
     expect(messages.join('\n')).toMatch(/import-x\/no-restricted-paths: .*Models are the bottom layer/);
   });
 
+  it('refuse a policy that reads the request or the database', async () => {
+    const messages = await lintProbe(
+      'api/policies',
+      "export type { Request } from 'express';\nexport { Membership } from '../models';\n",
+    );
+    expect(messages.join('\n')).toMatch(/no-restricted-imports: .*Policies are pure/);
+    expect(messages.join('\n')).toMatch(/import-x\/no-restricted-paths: .*Policies are pure decisions/);
+  });
+
+  it('refuse a query that imports a command, and portability that imports a route', async () => {
+    const query = await lintProbe('api/queries', "export { saveRevision } from '../commands/save-revision';\n");
+    expect(query.join('\n')).toMatch(/import-x\/no-restricted-paths: .*Queries read/);
+    const portability = await lintProbe('api/portability', "export { modelsRouter } from '../routes/models';\n");
+    expect(portability.join('\n')).toMatch(/import-x\/no-restricted-paths: .*Portability is called by routes/);
+  });
+
+  it('refuse a model that imports a policy', async () => {
+    const messages = await lintProbe('api/models', "export { modelPolicy } from '../policies/model';\n");
+    expect(messages.join('\n')).toMatch(/import-x\/no-restricted-paths: .*Models are the bottom layer/);
+  });
+
   it('let a route use a command, as it should', async () => {
     const messages = await lintProbe('api/routes', "export { saveRevision } from '../commands/save-revision';\n");
     expect(messages.filter((message) => message.startsWith('import-x/'))).toEqual([]);

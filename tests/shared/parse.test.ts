@@ -40,8 +40,22 @@ describe('reading the text', () => {
     expect(finding.line).toBeGreaterThanOrEqual(2);
   });
 
+  it('says the common YAML mistakes in plain words, keeping the line and column', () => {
+    const missingColon = syntaxOf('format: bindery-setup/1\nmodel:\n  name: Tern\n  airframe\n');
+    expect(missingColon.message).toBe(
+      'A name here has no colon after it, so YAML cannot tell it is a key with a value.',
+    );
+    expect(missingColon.message).not.toContain('Implicit map keys');
+    expect([missingColon.line, missingColon.column]).toEqual([4, 3]);
+    expect(syntaxOf('model:\n  name: a\n airframe: b\n').message).toBe(
+      'This line is indented differently from the lines beside it.',
+    );
+    expect(syntaxOf('a: [1, 2\nb: 3\n').message).toContain('not closed with ]');
+    expect(syntaxOf('a: "abc\nb: 1\n').message).toContain('closing quote mark is missing');
+  });
+
   it('rejects several documents in one file', () => {
-    expect(syntaxOf('a: 1\n---\nb: 2\n').message).toContain('several documents');
+    expect(syntaxOf('a: 1\n---\nb: 2\n').message).toContain('more than one document');
   });
 
   it('rejects text over 512 KB without parsing it', () => {

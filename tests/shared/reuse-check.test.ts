@@ -42,27 +42,34 @@ describe('a unit from a single-receiver model moved into the secondary slot of a
 
   it('resets the old throttle pin’s failsafe and every other failsafe the wing slot sets differently', () => {
     const failsafes = check.changes.filter((change) => change.setting === 'failsafe');
-    // Worked by hand from the two files: the wing holds pins 2-6 and fails safe pins 1, 7, 8 to 1500 us.
+    // Worked by hand from the two files: the wing holds pins 2-6 and fails safe pins 1, 7, 8 to 1500 µs.
     expect(failsafes.map(({ pin, from, to }) => [pin, from, to])).toEqual([
       [2, 1500, 'hold'],
       [3, 988, 'hold'],
       [4, 1500, 'hold'],
       [6, 1500, 'hold'],
     ]);
-    expect(failsafes.find((change) => change.pin === 3)?.summary).toBe('Pin 3: failsafe 988 us, set hold');
+    expect(failsafes.find((change) => change.pin === 3)?.summary).toBe('Pin 3: failsafe 988 µs, set hold');
   });
 
   it('switches telemetry off, as a setting of the whole unit', () => {
     const telemetry = check.changes.filter((change) => change.setting === 'telemetry');
     expect(telemetry).toEqual([
-      { pin: null, setting: 'telemetry', from: true, to: false, summary: 'Telemetry: on, switch it off' },
+      {
+        pin: null,
+        setting: 'telemetry',
+        from: true,
+        to: false,
+        summary: 'Telemetry: on, switch it off',
+        safety: 'Two receivers sending telemetry answer the transmitter at once and can disturb the link.',
+      },
     ]);
   });
 
-  it('is not ready, lists the changes pin by pin with telemetry last, and targets the slot’s settings', () => {
+  it('is not ready, lists the safety change (telemetry) first, then pin by pin, and targets the slot’s settings', () => {
     expect(check.ready).toBe(false);
     expect(check.notes).toEqual([]);
-    expect(check.changes.map((change) => change.pin)).toEqual([1, 2, 2, 3, 3, 4, 4, 5, 6, 6, 7, 8, null]);
+    expect(check.changes.map((change) => change.pin)).toEqual([null, 1, 2, 2, 3, 3, 4, 4, 5, 6, 6, 7, 8]);
     expect(check.target).toEqual({
       telemetry: false,
       pins: slot(sixteen, 'wing').map.map(({ pin, ch, failsafe }) => ({ pin, ch, failsafe })),
@@ -164,7 +171,8 @@ describe('pins and failsafes the slot leaves alone', () => {
         setting: 'failsafe',
         from: 1000,
         to: null,
-        summary: 'Pin 3: failsafe 1000 us, clear it to the receiver default (the setup sets none)',
+        summary: 'Pin 3: failsafe 1000 µs, clear it to the receiver default (the setup sets none)',
+        safety: null,
       },
     ]);
   });
@@ -176,7 +184,7 @@ describe('pins and failsafes the slot leaves alone', () => {
       pins: unit.stored!.pins.map((entry) => (entry.pin === 4 ? { ...entry, failsafe: null } : entry)),
     };
     expect(reuseCheck({ ...unit, stored }, slot(trainer, 'cabin')).changes).toEqual([
-      { pin: 4, setting: 'failsafe', from: null, to: 1500, summary: 'Pin 4: no failsafe, set 1500 us' },
+      { pin: 4, setting: 'failsafe', from: null, to: 1500, summary: 'Pin 4: no failsafe, set 1500 µs', safety: null },
     ]);
   });
 
@@ -187,7 +195,7 @@ describe('pins and failsafes the slot leaves alone', () => {
       map: cabin.map.map((entry) => (entry.pin === 3 ? { ...entry, failsafe: 'off' as const } : entry)),
     };
     expect(reuseCheck(loadUnit('six-output-unit'), off).changes.map((change) => change.summary)).toEqual([
-      'Pin 3: failsafe 1000 us, set off (no pulses)',
+      'Pin 3: failsafe 1000 µs, set off (no pulses)',
     ]);
   });
 });
@@ -198,16 +206,27 @@ describe('a unit whose settings were never recorded', () => {
     expect(check.ready).toBe(false);
     expect(check.notes.map((note) => note.kind)).toEqual(['settings-unknown']);
     expect(check.changes.map((change) => change.summary)).toEqual([
+      'Telemetry: not recorded, switch it on',
       'Pin 1: channel not recorded, must carry channel 1',
-      'Pin 1: failsafe not recorded, set 1500 us',
+      'Pin 1: failsafe not recorded, set 1500 µs',
       'Pin 2: channel not recorded, must carry channel 2',
-      'Pin 2: failsafe not recorded, set 1500 us',
+      'Pin 2: failsafe not recorded, set 1500 µs',
       'Pin 3: channel not recorded, must carry channel 3',
-      'Pin 3: failsafe not recorded, set 1000 us',
+      'Pin 3: failsafe not recorded, set 1000 µs',
       'Pin 4: channel not recorded, must carry channel 4',
-      'Pin 4: failsafe not recorded, set 1500 us',
+      'Pin 4: failsafe not recorded, set 1500 µs',
+    ]);
+  });
+
+  it('puts the throttle pin first when it is given the setup: a wrong throttle failsafe keeps a motor running', () => {
+    const check = reuseCheck({ outputs: 6, stored: null }, slot(trainer, 'cabin'), [], trainer.setup);
+    expect(check.changes.slice(0, 3).map((change) => change.summary)).toEqual([
+      'Pin 3: channel not recorded, must carry channel 3',
+      'Pin 3: failsafe not recorded, set 1000 µs',
       'Telemetry: not recorded, switch it on',
     ]);
+    expect(check.changes[1].safety).toMatch(/motor running after signal loss/);
+    expect(check.changes.slice(3).every((change) => change.safety === null)).toBe(true);
   });
 });
 
@@ -235,7 +254,7 @@ describe('stored settings', () => {
         ],
       }).success,
     ).toBe(false);
-    // [arduino-servo]: 700-2300 us is the range servos answer to.
+    // [arduino-servo]: 700-2300 µs is the range servos answer to.
     expect(storedSettingsSchema.safeParse({ telemetry: true, pins: [{ pin: 1, ch: 1, failsafe: 2400 }] }).success).toBe(
       false,
     );

@@ -66,8 +66,8 @@ describe('rule 8: at rest', () => {
 
   it('gives the idle pulse on the motor pin with the cut off, not half power', () => {
     const demo = setupOf(demoText);
-    // Arm switch at position 1 (cut off); throttle at rest = -100 % -> 1000 us. From
-    // mid stick instead the motor would get 0 % -> 1500 us, half power.
+    // Arm switch at position 1 (cut off); throttle at rest = -100 % -> 1000 µs. From
+    // mid stick instead the motor would get 0 % -> 1500 µs, half power.
     const armed = evaluate(demo, fromRest(demo, { 'motor-arm': 1 }));
     expect(armed.channels.find((c) => c.ch === 3)).toMatchObject({ value: -100, pulse_us: 1000 });
     expect(evaluate(demo, { 'motor-arm': 1 }).channels.find((c) => c.ch === 3)?.pulse_us).toBe(1500);
@@ -84,8 +84,8 @@ describe('rule 9: link loss per receiver', () => {
     }));
 
   it('loses only the named receiver: the wing sends its failsafes, the fuselage follows the sticks', () => {
-    // Rudder stick at +50 %: fuselage pin 4 1500 + 0.5 * 500 = 1750 us; the tailwheel
-    // on wing pin 1 (80 %) would be 1500 + 0.4 * 500 = 1700 us but fails safe to 1500.
+    // Rudder stick at +50 %: fuselage pin 4 1500 + 0.5 * 500 = 1750 µs; the tailwheel
+    // on wing pin 1 (80 %) would be 1500 + 0.4 * 500 = 1700 µs but fails safe to 1500.
     const out = pins(new Set(['wing']), { 'rudder-stick': 50 });
     expect(out[0]).toMatchObject({ id: 'fuselage', lost: false });
     expect(out[0].pulses[3]).toBe(1750);
@@ -101,7 +101,7 @@ describe('rule 9: link loss per receiver', () => {
       '{ pin: 8, ch: 16 }',
     );
     const setup = setupOf(text);
-    // Canopy switch at 1 when the link goes: wing pin 6 holds 2000 us.
+    // Canopy switch at 1 when the link goes: wing pin 6 holds 2000 µs.
     const wing = evaluate(setup, fromRest(setup, { 'canopy-switch': 1 }), 'all').receivers[1];
     expect(wing.pins.map((p) => [p.pin, p.pulse_us, p.failsafe])).toEqual([
       [1, 1500, 1500],
@@ -122,12 +122,12 @@ describe('the new checks at their edges', () => {
 
   it('failsafe-throttle measures from the centre, both ways, for a centre stop', () => {
     const centre = swap(trainer, 'role: throttle,', 'role: throttle, stop: center,').replace('value: -100', 'value: 0');
-    // 1500 +- 50 us is allowed; 51 us either side is power (common practice, no published source).
+    // 1500 +- 50 µs is allowed; 51 µs either side is power (common practice, no published source).
     expect(withMotor('      - { pin: 3, ch: 3, failsafe: 1450 }', centre)).not.toContain('failsafe-throttle');
     expect(withMotor('      - { pin: 3, ch: 3, failsafe: 1550 }', centre)).not.toContain('failsafe-throttle');
     expect(withMotor('      - { pin: 3, ch: 3, failsafe: 1449 }', centre)).toContain('failsafe-throttle');
     expect(withMotor('      - { pin: 3, ch: 3, failsafe: 1551 }', centre)).toContain('failsafe-throttle');
-    // 1000 us on a centre stop is full reverse.
+    // 1000 µs on a centre stop is full reverse.
     expect(withMotor(motorPin, centre)).toContain('failsafe-throttle');
   });
 
@@ -140,22 +140,22 @@ describe('the new checks at their edges', () => {
     expect(withMotor(off)).toEqual(['failsafe-no-pulses']);
   });
 
-  it('cut-not-at-stop allows 10 us: -98 % (1010 us) is at the stop, -97 % (1015 us) is not', () => {
-    // 1500 - 0.98 * 500 = 1010 us; 1500 - 0.97 * 500 = 1015 us.
+  it('cut-not-at-stop allows 10 µs: -98 % (1010 µs) is at the stop, -97 % (1015 µs) is not', () => {
+    // 1500 - 0.98 * 500 = 1010 µs; 1500 - 0.97 * 500 = 1015 µs.
     expect(rules(trainer.replace('value: -100', 'value: -98'))).not.toContain('cut-not-at-stop');
     expect(rules(trainer.replace('value: -100', 'value: -97'))).toContain('cut-not-at-stop');
   });
 
-  it('failsafe-payload allows 25 us from the at-rest pulse and hold', () => {
+  it('failsafe-payload allows 25 µs from the at-rest pulse and hold', () => {
     const payload = readFixture('invalid/failsafe-payload.yaml');
     const pin = '      - { pin: 5, ch: 5, failsafe: 2000 }   # <-';
-    // The drop switch rests at position 0: -100 % -> 1000 us.
+    // The drop switch rests at position 0: -100 % -> 1000 µs.
     expect(rules(swap(payload, pin, '      - { pin: 5, ch: 5, failsafe: 1025 }'))).not.toContain('failsafe-payload');
     expect(rules(swap(payload, pin, '      - { pin: 5, ch: 5, failsafe: 1026 }'))).toContain('failsafe-payload');
     expect(rules(swap(payload, pin, '      - { pin: 5, ch: 5, failsafe: hold }'))).not.toContain('failsafe-payload');
   });
 
-  it('failsafe-mismatch allows 10 us between ganged pins', () => {
+  it('failsafe-mismatch allows 10 µs between ganged pins', () => {
     const ganged = readFixture('invalid/failsafe-mismatch.yaml');
     const pin = '      - { pin: 1, ch: 1, failsafe: 1300 }   # <-';
     expect(rules(swap(ganged, pin, '      - { pin: 1, ch: 1, failsafe: 1510 }'))).not.toContain('failsafe-mismatch');
@@ -198,8 +198,8 @@ describe('the compare sees expo and rates (the demo revisions)', () => {
   it('reports the elevator expo change 15 -> 20 where the stick is off centre', () => {
     const after = setupOf(swap(demoText, 'weight: 92, expo: 15', 'weight: 92, expo: 20'));
     const delta = outputsDelta(demo, after);
-    // -50 % stick: 92 * (0.85 * -0.5 + 0.15 * -0.125) = -40.825 % -> 1295.875 -> 1296 us;
-    // 92 * (0.8 * -0.5 + 0.2 * -0.125) = -39.1 % -> 1304.5 -> 1305 us. The ends do not move
+    // -50 % stick: 92 * (0.85 * -0.5 + 0.15 * -0.125) = -40.825 % -> 1295.875 -> 1296 µs;
+    // 92 * (0.8 * -0.5 + 0.2 * -0.125) = -39.1 % -> 1304.5 -> 1305 µs. The ends do not move
     // (curve(+-1) = +-1), so sampling only the ends and centre saw nothing.
     expect(delta[0]).toMatchObject({ receiver: 'fuselage', pin: 2, before_us: 1296, after_us: 1305 });
     // One entry per flap position: flap-comp adds -3 % (mid) and -6 % (full) on top.
@@ -211,7 +211,7 @@ describe('the compare sees expo and rates (the demo revisions)', () => {
     expect(
       outputsDelta(demo, after).map((row) => [row.receiver, row.pin, row.position.set, row.before_us, row.after_us]),
     ).toEqual([
-      // 1500 - 0.60 * 500 = 1200 us, 1500 - 0.65 * 500 = 1175 us; pin 6 is reversed: 1800 -> 1825.
+      // 1500 - 0.60 * 500 = 1200 µs, 1500 - 0.65 * 500 = 1175 µs; pin 6 is reversed: 1800 -> 1825.
       ['fuselage', 1, { 'rate-switch': 1, 'aileron-stick': -100 }, 1200, 1175],
       ['fuselage', 6, { 'rate-switch': 1, 'aileron-stick': -100 }, 1800, 1825],
     ]);
@@ -219,8 +219,8 @@ describe('the compare sees expo and rates (the demo revisions)', () => {
 
   it('reports a receiver lost with a pulse against hold where the held pulse differs', () => {
     const after = setupOf(swap(demoText, '{ pin: 6, ch: 14, failsafe: hold }', '{ pin: 6, ch: 14, failsafe: 1000 }'));
-    // The canopy rests at 1000 us, so hold and 1000 agree at rest; with the canopy switch
-    // at 1 the held pulse is 2000 us.
+    // The canopy rests at 1000 µs, so hold and 1000 agree at rest; with the canopy switch
+    // at 1 the held pulse is 2000 µs.
     expect(outputsDelta(demo, after)).toMatchObject([
       {
         kind: 'failsafe',
@@ -241,7 +241,7 @@ describe('change findings', () => {
     expect(changeFindings(demo, reversedMotor)).toMatchObject([
       { rule: 'failsafe-meaning-changed', severity: 'warning', path: 'receivers[id=fuselage].map[pin=3].failsafe' },
     ]);
-    // The tailwheel fails safe to 1500 us, the centre through either travel.
+    // The tailwheel fails safe to 1500 µs, the centre through either travel.
     const reversedTailwheel = setupOf(
       swap(demoText, 'role: steering }', 'role: steering, travel: { reverse: true } }'),
     );

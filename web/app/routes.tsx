@@ -37,10 +37,22 @@ const OverviewScreen = lazyScreen(() => import('../features/overview/components/
 const HistoryScreen = lazyScreen(() => import('../features/history/components/history-screen'), 'HistoryScreen');
 const CompareScreen = lazyScreen(() => import('../features/compare/components/compare-screen'), 'CompareScreen');
 const ShelfScreen = lazyScreen(() => import('../features/shelf/components/shelf-screen'), 'ShelfScreen');
+const LabelSheetScreen = lazyScreen(
+  () => import('../features/labels/components/label-sheet-screen'),
+  'LabelSheetScreen',
+);
 const UnitScreen = lazyScreen(() => import('../features/shelf/components/unit-screen'), 'UnitScreen');
 const FieldSheetScreen = lazyScreen(
   () => import('../features/field-sheet/components/field-sheet-screen'),
   'FieldSheetScreen',
+);
+const ModelSettingsScreen = lazyScreen(
+  () => import('../features/model-settings/components/model-settings-screen'),
+  'ModelSettingsScreen',
+);
+const FormatReferenceScreen = lazyScreen(
+  () => import('../features/format-reference/components/format-reference-screen'),
+  'FormatReferenceScreen',
 );
 const AccountScreen = lazyScreen(() => import('../features/account/components/account-screen'), 'AccountScreen');
 
@@ -66,6 +78,7 @@ export const modelScreens: Screen[] = [
   { path: 'compare', label: 'Compare', element: <CompareScreen /> },
   { path: 'reviews', label: 'Reviews', element: <ModelReviewsScreen /> },
   { path: 'sheet', label: 'Field sheet', element: <FieldSheetScreen /> },
+  { path: 'settings', label: 'Settings', element: <ModelSettingsScreen /> },
 ];
 
 /** Tools for development, outside any workspace. */
@@ -97,6 +110,7 @@ export const routes: RouteObject[] = [
         children: [
           { index: true, element: <HomeScreen /> },
           { path: 'account', element: <AccountScreen /> },
+          { path: 'help/format', element: <FormatReferenceScreen /> },
           {
             path: 'w/:wsId',
             element: <WorkspaceScope />,
@@ -104,6 +118,7 @@ export const routes: RouteObject[] = [
               { index: true, element: <Navigate to="hangar" replace /> },
               ...workspaceScreens.map(({ path, element }) => ({ path, element })),
               { path: 'reviews/:reviewId', element: <ReviewScreen /> },
+              { path: 'shelf/labels', element: <LabelSheetScreen /> },
               { path: 'shelf/:receiverId', element: <UnitScreen /> },
             ],
           },

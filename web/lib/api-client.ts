@@ -1,3 +1,5 @@
+import { noteAnswer } from './offline';
+
 // The one way the client talks to the API: JSON in and out, the session cookie sent
 // along (same origin), and every failure turned into an ApiError carrying the
 // server's code, message and per-field messages so forms can show them in place.
@@ -66,6 +68,26 @@ function fallbackMessage(status: number): string {
   return `The server refused the request (${status}).`;
 }
 
+// No answer at all. Offline, a read that fails is one this device never saved, and a
+// write says plainly that it needs the network; the form keeps what was typed.
+function networkError(method: string): ApiError {
+  const offline = !navigator.onLine;
+  if (method !== 'GET' && method !== 'HEAD') {
+    return new ApiError(0, {
+      code: offline ? 'offline' : 'network-error',
+      message: offline
+        ? 'This needs the network, and this device is offline. Nothing you typed is lost: try again when you have a signal.'
+        : 'Could not reach the Bindery server, so nothing was changed. What you typed is still here: try again in a moment.',
+    });
+  }
+  return new ApiError(0, {
+    code: offline ? 'offline' : 'network-error',
+    message: offline
+      ? 'This device is offline and has no saved copy of this. Open it once with a signal to have it at the field.'
+      : 'Could not reach the Bindery server. Check the connection and try again.',
+  });
+}
+
 export interface RequestOptions {
   method?: string;
   /** Sent as JSON. */
@@ -84,10 +106,11 @@ export async function apiRequest<T>(path: string, options: RequestOptions = {}):
     body = JSON.stringify(options.json);
   }
 
+  const method = options.method ?? (body === undefined ? 'GET' : 'POST');
   let response: Response;
   try {
     response = await fetch(path, {
-      method: options.method ?? (body === undefined ? 'GET' : 'POST'),
+      method,
       headers,
       body,
       credentials: 'same-origin',
@@ -95,11 +118,9 @@ export async function apiRequest<T>(path: string, options: RequestOptions = {}):
     });
   } catch (cause) {
     if (cause instanceof DOMException && cause.name === 'AbortError') throw cause;
-    throw new ApiError(0, {
-      code: 'network-error',
-      message: 'Could not reach the Bindery server. Check the connection and try again.',
-    });
+    throw networkError(method);
   }
+  noteAnswer(path, response);
 
   const payload = await readJson(response);
   if (payload === NOT_JSON && response.ok) {

@@ -22,7 +22,10 @@ export interface WorkspaceMembership {
 
 export interface Session {
   user: User;
+  /** The workspaces fetched so far, by name; the session answer carries the first page. */
   workspaces: WorkspaceMembership[];
+  /** How many workspaces the user belongs to in all. */
+  workspacesTotal: number;
 }
 
 export interface Member {

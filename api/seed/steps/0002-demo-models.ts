@@ -122,7 +122,7 @@ function kestrelHistory(): Step[] {
     {
       at: '2025-02-16T09:31:00Z',
       by: 'owner',
-      message: 'Wing receiver pin 1 failsafe 988 -> 1500 us: the tailwheel centres instead of running to its stop',
+      message: 'Wing receiver pin 1 failsafe 988 -> 1500 µs: the tailwheel centres instead of running to its stop',
       text: current,
     },
     { at: '2025-03-22T16:20:00Z', by: 'owner', message: 'Elevator expo 15 -> 20 after the taxi tests', text: r5 },

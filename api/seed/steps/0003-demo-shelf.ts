@@ -4,7 +4,7 @@ import { Op, type Transaction } from 'sequelize';
 import { parse } from 'yaml';
 import { createReceiverSchema } from '@shared/reuse/receiver-fields';
 import { findSlot, reuseCheck, type ReuseCheck } from '@shared/reuse/reuse-check';
-import { recordReceiverEvent } from '../../commands/record-receiver-event';
+import { recordReceiverEvent } from '../../audit/record-receiver-event';
 import { Receiver, ReceiverInstall, Revision, SetupModel, User, Workspace } from '../../models';
 import { setupOf } from '../../queries/receiver-slot';
 import { DEMO_WORKSPACE_NAME } from '../demo-data';
@@ -12,7 +12,7 @@ import type { SeedContext } from '../index';
 
 // The demo club's shelf (invented): the Kestrel's fuselage unit in its slot, the club
 // trainer's unit in its cabin, a unit that came out of a retired single-receiver
-// trainer with its throttle pin still failing safe to 988 us (meant for the Kestrel's
+// trainer with its throttle pin still failing safe to 988 µs (meant for the Kestrel's
 // empty wing slot, where its reuse check lists the remap, that failsafe and telemetry
 // off), and a spare never set up. Units in a slot hold what that slot asks for, as if
 // applied at the bench.

@@ -1,5 +1,5 @@
 import type { Transaction } from 'sequelize';
-import { recordAuditEvent } from '../../commands/record-audit-event';
+import { recordAuditEvent } from '../../audit/record-audit-event';
 import { composeMailFrom } from '../../mail/seeded-mail';
 import { reviewRequestedMail, verdictMail } from '../../mail/messages';
 import {
@@ -14,6 +14,7 @@ import {
   Workspace,
 } from '../../models';
 import type { Verdict } from '../../models/ReviewVerdict';
+import { betweenRevisions } from '../../reviews/between-revisions';
 import { CHECKLIST_IDS, PRE_MAIDEN_CHECKLIST } from '../../reviews/checklist';
 import { reviewStateFromVerdicts } from '../../reviews/sign-off';
 import { DEMO_WORKSPACE_NAME } from '../demo-data';
@@ -97,7 +98,7 @@ const PLAN: PlannedReview[] = [
       {
         by: 'reviewer',
         path: 'receivers[id=fuselage].map[pin=3]',
-        body: 'Motor failsafe 1000 us: check the ESC reads that as stopped, propeller off.',
+        body: 'Motor failsafe 1000 µs: check the ESC reads that as stopped, propeller off.',
         at: '2026-03-21T18:15:00Z',
       },
     ],
@@ -225,6 +226,7 @@ async function seedReview(
         note: plan.note,
         errors: revision.errorCount,
         warnings: revision.warningCount,
+        between: await betweenRevisions(revision, transaction),
         url: reviewUrl,
       });
       await OutboxMessage.create(composeMailFrom(mail, new Date(plan.at)), { transaction });

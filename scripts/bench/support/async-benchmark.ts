@@ -6,7 +6,8 @@
 import { timingOf, type Timing } from '../benchmark';
 
 export { timingOf };
-export type AsyncTiming = Timing;
+/** A run may set its own budget where the bar is a figure of the same run (the noise). */
+export type AsyncTiming = Timing & { budgetMs?: number };
 
 export interface AsyncBenchmark {
   name: string;
@@ -20,13 +21,14 @@ export interface AsyncBenchmark {
 export async function printAsyncBenchmarks(benchmarks: readonly AsyncBenchmark[]): Promise<void> {
   for (const benchmark of benchmarks) {
     const timing = await benchmark.measure();
+    const budgetMs = timing.budgetMs ?? benchmark.budgetMs;
     const figure = benchmark.budgetOn === 'p95' ? timing.p95 : timing.median;
     const budget =
-      benchmark.budgetMs === undefined
+      budgetMs === undefined
         ? 'no budget'
-        : `budget (${benchmark.budgetOn}) < ${benchmark.budgetMs} ms: ${figure < benchmark.budgetMs ? 'within' : 'OVER'}`;
+        : `budget (${benchmark.budgetOn}) < ${budgetMs.toFixed(3)} ms: ${figure < budgetMs ? 'within' : 'OVER'}`;
     console.log(
-      `${benchmark.name}: median ${timing.median.toFixed(3)} ms, p95 ${timing.p95.toFixed(3)} ms over ${timing.runs} requests; ${budget}`,
+      `${benchmark.name}: median ${timing.median.toFixed(3)} ms, p95 ${timing.p95.toFixed(3)} ms over ${timing.runs} requests${timing.perSecond === undefined ? '' : ` (${timing.perSecond.toFixed(0)}/s)`}; ${budget}`,
     );
   }
 }

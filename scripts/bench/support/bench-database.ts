@@ -10,6 +10,8 @@ import { initModels } from '@api/models';
 export interface BenchDatabase {
   url: string;
   sequelize: Sequelize;
+  /** PostgreSQL's programs (pgbench for the floor). */
+  binDir: string;
 }
 
 let opened: Promise<BenchDatabase> | null = null;
@@ -33,7 +35,7 @@ async function open(): Promise<BenchDatabase> {
   };
   await migrate(sequelize);
   initModels(sequelize);
-  return { url: cluster.url, sequelize };
+  return { url: cluster.url, sequelize, binDir: cluster.binDir };
 }
 
 /** Stops and deletes the bench cluster, if one was started. */

@@ -14,10 +14,11 @@ const FLAGS = [
   '--no-first-run',
 ];
 
-/** Desktop and the tablet a pilot carries to the field. */
+/** Desktop, the tablet a pilot carries to the field and the phone in the pit area. */
 export const VIEWPORTS = {
   desktop: { width: 1280, height: 900 },
   tablet: { width: 768, height: 1024 },
+  phone: { width: 375, height: 812 },
 } as const;
 export type ViewportName = keyof typeof VIEWPORTS;
 
@@ -70,9 +71,14 @@ export interface Visit {
 }
 
 /** A fresh browser context (its own cookies) with one watched page. */
-export async function openVisit(browser: Browser, viewport: ViewportName = 'desktop'): Promise<Visit> {
+export async function openVisit(
+  browser: Browser,
+  viewport: ViewportName = 'desktop',
+  { deviceScaleFactor = 1 }: { deviceScaleFactor?: number } = {},
+): Promise<Visit> {
   const context = await browser.newContext({
     viewport: VIEWPORTS[viewport],
+    deviceScaleFactor,
     acceptDownloads: true,
     locale: 'en-GB',
     timezoneId: 'Europe/London',

@@ -1,5 +1,5 @@
 import { screen, waitFor, within } from '@testing-library/react';
-import { BUILDERS, CLUB, apiError, demoUser, fakeServer, sessionRoutes } from '../fake-server';
+import { BUILDERS, CLUB, apiError, demoUser, demoWorkspaces, fakeServer, sessionRoutes } from '../fake-server';
 import { renderApp } from '../render-app';
 
 describe('The signed-in app frame', () => {
@@ -35,6 +35,29 @@ describe('The signed-in app frame', () => {
         .map((link) => link.textContent),
     ).toEqual(['Hangar', 'Shelf', 'Reviews', 'Team', 'Backups']);
     expect(screen.getByText(demoUser.name)).toBeInTheDocument();
+  });
+
+  it('offers the workspaces beyond the session’s first page and adds them to the switcher', async () => {
+    const { routes } = sessionRoutes({ signedIn: true });
+    const third = { id: '3c1a9e52-7f0b-4e6d-9a21-5b8c0d4e7f63', name: 'Wetland Gliding Group', role: 'viewer' };
+    const server = fakeServer({
+      ...routes,
+      'GET /api/session': () => ({
+        body: {
+          data: { user: demoUser, workspaces: demoWorkspaces },
+          pagination: { limit: 2, offset: 0, total: 3 },
+        },
+      }),
+      'GET /api/me': () => ({
+        body: { data: { user: demoUser, workspaces: [third] }, pagination: { limit: 100, offset: 2, total: 3 } },
+      }),
+    });
+    const { user } = renderApp('/');
+
+    await user.click(await screen.findByRole('button', { name: 'More workspaces (2 of 3)' }));
+    expect(await screen.findByRole('option', { name: 'Wetland Gliding Group (viewer)' })).toBeInTheDocument();
+    expect(screen.queryByRole('button', { name: /More workspaces/ })).not.toBeInTheDocument();
+    expect(server.called('GET', '/api/me')[0].url.search).toBe('?limit=100&offset=2');
   });
 
   it('tells a user who is in no workspace how to join one', async () => {
@@ -107,7 +130,7 @@ describe('The signed-in app frame', () => {
       within(nav)
         .getAllByRole('link')
         .map((link) => link.textContent),
-    ).toEqual(['Overview', 'Edit', 'Bench', 'History', 'Compare', 'Reviews', 'Field sheet']);
+    ).toEqual(['Overview', 'Edit', 'Bench', 'History', 'Compare', 'Reviews', 'Field sheet', 'Settings']);
 
     await user.click(within(nav).getByRole('link', { name: 'Bench' }));
     expect(await screen.findByRole('heading', { level: 1, name: 'Bench' })).toBeInTheDocument();

@@ -44,7 +44,7 @@ const cells = (row: HTMLElement) =>
 
 describe('Bench', () => {
   it(
-    'puts out every pin at centre with the sticks centred, and full aileron stick gives 2000 us on pin 1',
+    'puts out every pin at centre with the sticks centred, and full aileron stick gives 2000 µs on pin 1',
     SLOW,
     async () => {
       await openBench();
@@ -55,7 +55,7 @@ describe('Bench', () => {
         'aileron-left',
         '1500',
         'live',
-        '1500 us',
+        '1500 µs',
       ]);
 
       fireEvent.change(screen.getByRole('slider', { name: 'aileron-stick' }), { target: { value: '100' } });
@@ -68,7 +68,7 @@ describe('Bench', () => {
     },
   );
 
-  it('follows the rate switch: the low rate of 60 % gives 1800 us at full stick', SLOW, async () => {
+  it('follows the rate switch: the low rate of 60 % gives 1800 µs at full stick', SLOW, async () => {
     const { user } = await openBench();
     fireEvent.change(screen.getByRole('slider', { name: 'aileron-stick' }), { target: { value: '100' } });
     const rates = screen.getByRole('group', { name: 'rate-switch' });
@@ -80,10 +80,10 @@ describe('Bench', () => {
   it('starts at rest: the throttle stick at its stop, every pin live', SLOW, async () => {
     await openBench();
     // Evaluation rule 8 (docs/format.md, second edition): a control feeding a `stop: low`
-    // throttle rests at -100, so the motor pin reads low_us, not the 1500 us of mid stick.
+    // throttle rests at -100, so the motor pin reads low_us, not the 1500 µs of mid stick.
     expect(screen.getByRole('slider', { name: 'throttle-stick' })).toHaveValue('-100');
     // Pin, channel, function, pulse, state, failsafe.
-    expect(cells(pinRow('Fuselage receiver (blue tape)', 3))).toEqual(['3', '3', 'motor', '1000', 'live', '1000 us']);
+    expect(cells(pinRow('Fuselage receiver (blue tape)', 3))).toEqual(['3', '3', 'motor', '1000', 'live', '1000 µs']);
     expect(screen.getByRole('button', { name: 'Put everything at rest' })).toBeDisabled();
   });
 
@@ -108,10 +108,10 @@ describe('Bench', () => {
         '3',
         'motor',
         '1000',
-        'failsafe (1000 us)',
-        '1000 us',
+        'failsafe (1000 µs)',
+        '1000 µs',
       ]);
-      // Gear holds: the pulse it had when the link went (the switch at position 0, 1000 us).
+      // Gear holds: the pulse it had when the link went (the switch at position 0, 1000 µs).
       expect(cells(pinRow('Fuselage receiver (blue tape)', 5))).toEqual([
         '5',
         '5',
@@ -125,8 +125,8 @@ describe('Bench', () => {
         '15',
         'cowl-flaps',
         '1500',
-        'failsafe (1500 us)',
-        '1500 us',
+        'failsafe (1500 µs)',
+        '1500 µs',
       ]);
       expect(screen.getByRole('checkbox', { name: 'Wing receiver (red tape) loses the link' })).toBeChecked();
 
@@ -144,23 +144,23 @@ describe('Bench', () => {
     fireEvent.change(screen.getByRole('slider', { name: 'rudder-stick' }), { target: { value: '100' } });
     await user.click(screen.getByRole('checkbox', { name: 'Wing receiver (red tape) loses the link' }));
 
-    // The wing unit sends its failsafes: the tailwheel's pin 1 goes to 1500 us though the rudder is at full.
+    // The wing unit sends its failsafes: the tailwheel's pin 1 goes to 1500 µs though the rudder is at full.
     expect(cells(pinRow('Wing receiver (red tape)', 1))).toEqual([
       '1',
       '9',
       'tailwheel',
       '1500',
-      'failsafe (1500 us)',
-      '1500 us',
+      'failsafe (1500 µs)',
+      '1500 µs',
     ]);
-    // The fuselage unit keeps the link: full aileron still gives 2000 us on its pin 1.
+    // The fuselage unit keeps the link: full aileron still gives 2000 µs on its pin 1.
     expect(cells(pinRow('Fuselage receiver (blue tape)', 1))).toEqual([
       '1',
       '1',
       'aileron-left',
       '2000',
       'live',
-      '1500 us',
+      '1500 µs',
     ]);
     expect(screen.getByText(/has lost the link/)).toHaveTextContent(
       /Wing receiver \(red tape\) has lost the link.*The other receivers keep the link/,

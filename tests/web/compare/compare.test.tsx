@@ -96,7 +96,7 @@ describe('Compare', () => {
     await screen.findByRole('region', { name: 'Changes by section' });
     await user.click(screen.getByRole('button', { name: 'Swap' }));
     await waitFor(() => expect(location().search).toBe(`?from=${model.revisions[1].id}&to=${model.revisions[0].id}`));
-    expect(screen.getByRole('link', { name: 'Export JSON Patch' })).toHaveAttribute(
+    expect(screen.getByRole('link', { name: 'Download the changes as a patch file (JSON)' })).toHaveAttribute(
       'href',
       `/api/revisions/${model.revisions[0].id}/patch?from=${model.revisions[1].id}&download=1`,
     );
@@ -183,7 +183,7 @@ describe('Compare: what now moves differently', () => {
   it('names the lost receiver when a failsafe changed', async () => {
     openPair(demo, demo.replace('{ pin: 1, ch: 9,  failsafe: 1500 }', '{ pin: 1, ch: 9,  failsafe: 1000 }'));
     const table = await screen.findByRole('table', { name: /Receiver pins whose output differs/ });
-    expect(rowsOf(table)).toEqual([['wing', '1', '9', 'wing lost', '1500 us (failsafe)', '1000 us (failsafe)']]);
+    expect(rowsOf(table)).toEqual([['wing', '1', '9', 'wing lost', '1500 µs (failsafe)', '1000 µs (failsafe)']]);
     expect(within(table).getByRole('columnheader', { name: /Wing receiver \(red tape\) lost/ })).toBeInTheDocument();
   });
 
@@ -194,13 +194,13 @@ describe('Compare: what now moves differently', () => {
           rule: 'failsafe-meaning-changed',
           severity: 'warning',
           path: 'receivers[id=wing].map[pin=1].failsafe',
-          message: 'Channel 9’s travel changed but wing pin 1 still fails safe to 1000 us.',
+          message: 'Channel 9’s travel changed but wing pin 1 still fails safe to 1000 µs.',
           hint: 'Work the failsafe out again for the new travel.',
         },
       ],
     });
     const panel = await screen.findByRole('region', { name: 'Between these revisions (1)' });
-    expect(panel).toHaveTextContent('still fails safe to 1000 us');
+    expect(panel).toHaveTextContent('still fails safe to 1000 µs');
     expect(panel).toHaveTextContent('failsafe-meaning-changed');
     expect(panel).toHaveTextContent('receivers[id=wing].map[pin=1].failsafe');
   });

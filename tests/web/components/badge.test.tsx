@@ -5,7 +5,7 @@ describe('Badge', () => {
   it.each([
     ['error', 'Error'],
     ['warning', 'Warning'],
-    ['info', 'Info'],
+    ['info', 'Note'],
   ] as const)('shows the %s severity as an icon and the word %s', (severity, word) => {
     const { container } = render(<SeverityBadge severity={severity} />);
     const badge = container.firstElementChild as HTMLElement;
@@ -30,10 +30,12 @@ describe('Badge', () => {
       <>
         <SeverityBadge severity="error" count={1} />
         <SeverityBadge severity="warning" count={3} />
+        <SeverityBadge severity="info" count={0} />
       </>,
     );
     expect(screen.getByText('1 error')).toBeInTheDocument();
     expect(screen.getByText('3 warnings')).toBeInTheDocument();
+    expect(screen.getByText('0 notes')).toBeInTheDocument();
   });
 
   it.each([

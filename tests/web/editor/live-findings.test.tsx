@@ -72,16 +72,21 @@ describe('Edit: live findings', () => {
     });
   });
 
-  it('selects the line that ?line= names', SLOW, async () => {
-    await openEditor(`/models/${MODEL_ID}/edit?line=14`);
-    await waitFor(() => {
-      const { state } = editorView();
-      const line = state.doc.line(14);
-      expect(state.selection.main.from).toBe(line.from);
-      expect(state.selection.main.to).toBe(line.to);
-    });
-    expect(
-      editorView().state.sliceDoc(editorView().state.selection.main.from, editorView().state.selection.main.to),
-    ).toBe('  channels: 16');
-  });
+  it(
+    'puts the cursor at the start of the line that ?line= names, without selecting it, and tidies the address',
+    SLOW,
+    async () => {
+      const { router } = await openEditor(`/models/${MODEL_ID}/edit?line=14`);
+      await waitFor(() => {
+        const { state } = editorView();
+        const line = state.doc.line(14);
+        expect(state.selection.main.empty).toBe(true);
+        expect(state.selection.main.head).toBe(line.from);
+      });
+      expect(editorView().state.doc.line(14).text).toBe('  channels: 16');
+      // The jump is taken once: the address goes back to the editor's own.
+      await waitFor(() => expect(router.state.location.search).toBe(''));
+      expect(router.state.location.pathname).toBe(`/models/${MODEL_ID}/edit`);
+    },
+  );
 });

@@ -80,11 +80,14 @@ describe('Edit: the pin-map form', () => {
 
   it('sets a failsafe from the form and takes it away again', SLOW, async () => {
     const { user, wing } = await openPinMaps();
-    await user.selectOptions(within(wing).getByLabelText('Failsafe of pin 2 of wing'), 'Stop pulses');
+    await user.selectOptions(within(wing).getByLabelText('Failsafe of pin 2 of wing'), 'Off (no pulses)');
 
     await waitFor(() => expect(text()).toContain('      - { pin: 2, ch: 2,  failsafe: off }\n'));
 
-    await user.selectOptions(within(wing).getByLabelText('Failsafe of pin 2 of wing'), 'Receiver default');
+    await user.selectOptions(
+      within(wing).getByLabelText('Failsafe of pin 2 of wing'),
+      "Not set (the receiver's own default)",
+    );
     await waitFor(() => expect(text()).toContain('      - { pin: 2, ch: 2 }\n'));
 
     await user.selectOptions(within(wing).getByLabelText('Failsafe of pin 2 of wing'), 'Pulse (µs)');

@@ -12,6 +12,8 @@ describe('History: the git export', () => {
     const link = await screen.findByRole('link', { name: 'Export full history' });
     expect(link).toHaveAttribute('href', `/api/models/${model.id}/export.git`);
     expect(link).toHaveAttribute('download');
-    expect(link).toHaveAccessibleDescription('A git repository with one commit per revision, for your own backup.');
+    expect(link).toHaveAccessibleDescription(
+      'A backup file of the whole history, one entry per revision. Git (a common version-control tool) opens it; Backups can bring it back into Bindery.',
+    );
   });
 });

@@ -67,6 +67,38 @@ describe('api client', () => {
     expect(error.code).toBe('network-error');
   });
 
+  it('offline, says a write needs the network and keeps what was typed, and a read was never saved here', async () => {
+    vi.stubGlobal(
+      'fetch',
+      vi.fn(async () => Promise.reject(new TypeError('Failed to fetch'))),
+    );
+    const onLine = vi.spyOn(navigator, 'onLine', 'get').mockReturnValue(false);
+    try {
+      const write = await failure(api.patch('/api/receivers/x', { notes: 'typed' }));
+      expect(write.code).toBe('offline');
+      expect(write.message).toMatch(/^This needs the network.*Nothing you typed is lost/);
+      const read = await failure(api.get('/api/models/x'));
+      expect(read.code).toBe('offline');
+      expect(read.message).toMatch(/no saved copy of this/);
+    } finally {
+      onLine.mockRestore();
+    }
+  });
+
+  it('notes an answer the service worker read from this device’s copies, and forgets it once fresh', async () => {
+    const { savedCopiesSnapshot } = await import('@web/lib/offline');
+    const savedAt = '2026-06-01T09:30:00.000Z';
+    vi.stubGlobal(
+      'fetch',
+      vi.fn(async () => new Response('{"data":1}', { status: 200, headers: { 'X-Bindery-Saved-At': savedAt } })),
+    );
+    await api.get('/api/models/kept');
+    expect(savedCopiesSnapshot().get('/api/models/kept')).toBe(savedAt);
+    answer(200, '{"data":2}');
+    await api.get('/api/models/kept');
+    expect(savedCopiesSnapshot().has('/api/models/kept')).toBe(false);
+  });
+
   it('sends JSON with the session cookie, and raw bodies as given', async () => {
     const fetch = vi.fn(async () => new Response(null, { status: 204 }));
     vi.stubGlobal('fetch', fetch);

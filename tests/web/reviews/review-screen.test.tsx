@@ -19,7 +19,7 @@ describe('the review page', () => {
     expect(screen.getByRole('heading', { name: 'What changed since revision 3' })).toBeInTheDocument();
     expect(screen.getByText(/Compared with the revision before it, revision 3/)).toBeInTheDocument();
     // The real diff of the fixture pair: the wing receiver's pin 3 failsafe.
-    expect(screen.getByText('Wing receiver pin 3: failsafe 988 -> 1500 us')).toBeInTheDocument();
+    expect(screen.getByText('Wing receiver pin 3: failsafe 988 -> 1500 µs')).toBeInTheDocument();
     expect(screen.getByRole('checkbox', { name: 'Ground range check' })).toBeChecked();
     expect(screen.getByRole('checkbox', { name: 'Failsafe tested' })).not.toBeChecked();
     expect(screen.getByText('1 of 2 ticked')).toBeInTheDocument();

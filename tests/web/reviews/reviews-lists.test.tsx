@@ -16,7 +16,10 @@ describe('the workspace’s reviews', () => {
   it('lists open reviews apart from decided ones, with links to each', async () => {
     fakeServer({
       ...sessionRoutes({ signedIn: true }).routes,
-      [`GET /api/workspaces/${CLUB}/reviews`]: () => ({ body: { data: [decided, open] } }),
+      [`GET /api/workspaces/${CLUB}/reviews`]: ({ url }) => {
+        const rows = url.searchParams.get('status') === 'open' ? [open] : [decided];
+        return { body: { data: rows, pagination: { limit: 50, offset: 0, total: 1 } } };
+      },
     });
     renderApp(`/w/${CLUB}/reviews`);
 
@@ -30,6 +33,39 @@ describe('the workspace’s reviews', () => {
     const past = screen.getByRole('table', { name: 'Decided reviews' });
     expect(within(past).getByText('Approved')).toBeInTheDocument();
     expect(within(past).getByText('Revision 5 is newer')).toBeInTheDocument();
+  });
+
+  it('shows how many there are and fetches the next page when asked', async () => {
+    const older = Array.from({ length: 3 }, (_, index) =>
+      summaryOf(reviewDetail(), {
+        id: `7777777${index}-7777-4777-8777-777777777777`,
+        state: 'approved',
+        decided_at: '2026-04-03T09:00:00.000Z',
+        revision: { ...decided.revision, number: index + 1 },
+      }),
+    );
+    const server = fakeServer({
+      ...sessionRoutes({ signedIn: true }).routes,
+      [`GET /api/workspaces/${CLUB}/reviews`]: ({ url }) => {
+        if (url.searchParams.get('status') === 'open')
+          return { body: { data: [], pagination: { limit: 50, offset: 0, total: 0 } } };
+        const offset = Number(url.searchParams.get('offset'));
+        // The server's page holds two here, so the third is on a page of its own.
+        return { body: { data: older.slice(offset, offset + 2), pagination: { limit: 50, offset, total: 3 } } };
+      },
+    });
+    const { user } = renderApp(`/w/${CLUB}/reviews`);
+
+    const past = await screen.findByRole('table', { name: 'Decided reviews' });
+    expect(within(past).getAllByRole('row')).toHaveLength(3);
+    expect(screen.getByText('Showing 2 of 3 decided reviews.')).toBeInTheDocument();
+    await user.click(screen.getByRole('button', { name: 'Show more' }));
+    await vi.waitFor(() =>
+      expect(within(screen.getByRole('table', { name: 'Decided reviews' })).getAllByRole('row')).toHaveLength(4),
+    );
+    expect(screen.queryByRole('button', { name: 'Show more' })).not.toBeInTheDocument();
+    const asked = server.called('GET', `/api/workspaces/${CLUB}/reviews`).map((request) => request.url.search);
+    expect(asked).toContain('?status=closed&limit=50&offset=2');
   });
 
   it('says how to start when there are none', async () => {

@@ -93,12 +93,12 @@ describe('Field sheet', () => {
         .map((cell) => cell.textContent),
     ).toEqual(['3', '11', 'landing-light', 'hold', 'held']);
     const fuselage = screen.getByRole('table', { name: /Pins of Fuselage receiver/ });
-    // Pin 3 drives the motor: with the link lost it sends its 1000 us failsafe.
+    // Pin 3 drives the motor: with the link lost it sends its 1000 µs failsafe.
     expect(
       within(within(fuselage).getAllByRole('row')[3])
         .getAllByRole('cell')
         .map((cell) => cell.textContent),
-    ).toEqual(['3', '3', 'motor', '1000 us', '1000 us']);
+    ).toEqual(['3', '3', 'motor', '1000 µs', '1000 µs']);
     // The cut names its switch, position and value, not just that there is one.
     expect(screen.getByRole('table', { name: /^Channels 1 to/ })).toHaveTextContent(
       'cut: Arm (guarded) (motor-arm) at position 0 holds it at -100 %',

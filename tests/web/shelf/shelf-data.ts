@@ -21,6 +21,7 @@ export function unitRecord(fixture: string | null, extra: Partial<ShelfUnit> = {
     mark_colour: (raw.mark_colour as ShelfUnit['mark_colour']) ?? null,
     outputs: (raw.outputs as number) ?? 8,
     notes: '',
+    short_code: 'K7QF3M',
     stored_settings: stored,
     settings_recorded_at: stored ? '2026-04-20T18:00:00.000Z' : null,
     telemetry: stored ? stored.telemetry : null,

@@ -48,19 +48,26 @@ describe('Shelf', () => {
       within(table)
         .getAllByRole('columnheader')
         .map((cell) => cell.textContent),
-    ).toEqual(['Receiver', 'Mark', 'Outputs', 'Where installed', 'Telemetry']);
+    ).toEqual(['Receiver', 'Mark', 'Code', 'Outputs', 'Where installed', 'Telemetry']);
 
     const wing = within(rowOf('Kestrel wing unit'))
       .getAllByRole('cell')
       .map((cell) => cell.textContent);
-    expect(wing).toEqual(['Kestrel wing unit', 'Red tape', '8', 'Kestrel Mk II · slot wingReady', 'Off']);
+    expect(wing).toEqual(['Kestrel wing unit', 'Red tape', 'K7QF3M', '8', 'Kestrel Mk II · slot wingReady', 'Off']);
     expect(within(rowOf('Pipit trainer unit')).getByText('3 changes to make')).toBeInTheDocument();
     expect(within(rowOf('Pipit trainer unit')).getByText('Sends')).toBeInTheDocument();
     // A colour without words still reads as words.
     const spareCells = within(rowOf('Spare 8-output unit'))
       .getAllByRole('cell')
       .map((cell) => cell.textContent);
-    expect(spareCells).toEqual(['Spare 8-output unit', 'orange (no words)', '8', 'Free, on the shelf', 'Not recorded']);
+    expect(spareCells).toEqual([
+      'Spare 8-output unit',
+      'orange (no words)',
+      'K7QF3M',
+      '8',
+      'Free, on the shelf',
+      'Not recorded',
+    ]);
     expect(within(rowOf('Kestrel wing unit')).getByRole('link', { name: 'Kestrel wing unit' })).toHaveAttribute(
       'href',
       `/w/${CLUB}/shelf/${installedUnit.id}`,

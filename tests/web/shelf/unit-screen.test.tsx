@@ -49,7 +49,7 @@ describe('A unit’s page', () => {
       within(pin3)
         .getAllByRole('cell')
         .map((cell) => cell.textContent),
-    ).toEqual(['3', '3', '988 us']);
+    ).toEqual(['3', '3', '988 µs']);
     expect(screen.getByText(/Telemetry:/)).toHaveTextContent('Telemetry: sends');
     expect(screen.getByText('Free, on the shelf.')).toBeInTheDocument();
   });
@@ -69,11 +69,11 @@ describe('A unit’s page', () => {
     await user.click(await screen.findByRole('button', { name: 'Install into a model' }));
     await user.selectOptions(screen.getByLabelText('Model'), kestrel.id);
     await waitFor(() => expect(screen.getByRole('option', { name: /^wing · Wing receiver/ })).toBeInTheDocument());
-    await user.selectOptions(screen.getByLabelText('Receiver slot'), 'wing');
+    await user.selectOptions(screen.getByLabelText('As which receiver of the setup'), 'wing');
 
     const list = await screen.findByRole('group', { name: 'What would have to change on the unit' });
     expect(within(list).getByText('Pin 3: carries channel 3, must carry channel 11')).toBeInTheDocument();
-    expect(within(list).getByText('Pin 3: failsafe 988 us, set hold')).toBeInTheDocument();
+    expect(within(list).getByText('Pin 3: failsafe 988 µs, set hold')).toBeInTheDocument();
     expect(within(list).getByText('Telemetry: on, switch it off')).toBeInTheDocument();
     // A preview is a list to read, not yet a list to tick.
     expect(within(list).queryByRole('checkbox')).not.toBeInTheDocument();
@@ -112,9 +112,10 @@ describe('A unit’s page', () => {
     expect(boxes).toHaveLength(13);
     const apply = screen.getByRole('button', { name: 'I have applied these settings' });
     expect(apply).toBeDisabled();
-    for (const box of boxes.slice(0, -1)) await user.click(box);
+    for (const box of boxes) await user.click(box);
+    // Every setting ticked, the re-bind step is still open.
     expect(apply).toBeDisabled();
-    await user.click(boxes[boxes.length - 1]);
+    await user.click(screen.getByRole('checkbox', { name: /Bind the unit to this model/ }));
     expect(apply).toBeEnabled();
 
     await user.click(apply);

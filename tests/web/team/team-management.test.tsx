@@ -143,6 +143,35 @@ describe('Team, as an owner', () => {
     await waitFor(() => expect(screen.queryByRole('cell', { name: 'Juno Marsh' })).not.toBeInTheDocument());
     expect(server.called('DELETE', `/api/workspaces/${CLUB}/members/${juno.id}`)).toHaveLength(1);
   });
+
+  it('shows how many invitations wait and fetches the next page when asked', async () => {
+    const pending = Array.from({ length: 3 }, (_, index) => ({
+      id: `inv-${index}`,
+      email: `pilot${index}@example.org`,
+      role: 'viewer',
+      status: 'pending',
+      invited_by: { id: demoUser.id, name: demoUser.name },
+      created_at: new Date().toISOString(),
+      expires_at: new Date(Date.now() + 86_400_000).toISOString(),
+    }));
+    const { routes } = teamRoutes({
+      [`GET /api/workspaces/${CLUB}/invitations`]: ({ url }) => {
+        const offset = Number(url.searchParams.get('offset'));
+        // The server's page holds two here, so the third is on a page of its own.
+        return { body: { data: pending.slice(offset, offset + 2), pagination: { limit: 50, offset, total: 3 } } };
+      },
+    });
+    fakeServer(routes);
+    const { user } = renderApp(`/w/${CLUB}/team`);
+
+    const list = await screen.findByRole('list', { name: 'Pending invitations' });
+    expect(within(list).getAllByRole('listitem')).toHaveLength(2);
+    expect(screen.getByText('3 waiting')).toBeInTheDocument();
+    expect(screen.getByText('Showing 2 of 3 invitations.')).toBeInTheDocument();
+    await user.click(screen.getByRole('button', { name: 'Show more' }));
+    expect(await screen.findByText('pilot2@example.org')).toBeInTheDocument();
+    expect(screen.queryByText('Showing 2 of 3 invitations.')).not.toBeInTheDocument();
+  });
 });
 
 describe('Team activity', () => {

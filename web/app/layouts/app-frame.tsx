@@ -12,6 +12,7 @@ import { ErrorState } from '../../components/ui/error-state';
 import { LoadingState } from '../../components/ui/loading-state';
 import { useToast } from '../../components/ui/toast';
 import { NavTabs, type NavItem } from '../../components/layouts/nav-tabs';
+import { OfflineBanner } from '../../components/layouts/offline-banner';
 
 export interface FrameLink {
   /** The path under `/w/:wsId/`, or an absolute path for links outside a workspace. */
@@ -83,6 +84,9 @@ function SignedInFrame({ workspaceLinks, devLinks }: AppFrameProps) {
           </Link>
           <WorkspaceSwitcher />
           <div className="ml-auto flex min-w-0 items-center gap-3">
+            <Link to="/help/format" className="rounded-md text-sm text-ink-700">
+              Format help
+            </Link>
             <Link
               to="/account"
               className="max-w-48 min-w-0 truncate rounded-md text-sm text-ink-700 lg:max-w-none"
@@ -118,6 +122,7 @@ function SignedInFrame({ workspaceLinks, devLinks }: AppFrameProps) {
           )}
         </div>
       </header>
+      <OfflineBanner />
       <main id="main" className="mx-auto max-w-6xl px-4 py-8 sm:px-6">
         <Suspense fallback={<LoadingState />}>
           <Outlet />

@@ -1,8 +1,10 @@
 import { Suspense } from 'react';
 import { Link, Outlet, useParams } from 'react-router-dom';
 import { useSession } from '../../features/auth/hooks/use-session';
+import { KeepForField } from '../../features/field-kit/components/keep-for-field';
 import { useModel } from '../../features/models/api/get-model';
 import { useCurrentWorkspace } from '../../features/workspaces/hooks/use-current-workspace';
+import { Badge } from '../../components/ui/badge';
 import { LoadingState } from '../../components/ui/loading-state';
 import { NavTabs } from '../../components/layouts/nav-tabs';
 import type { FrameLink } from './app-frame';
@@ -29,6 +31,11 @@ export function ModelFrame({ links }: { links: FrameLink[] }) {
       {model.data && (
         <div className="mt-1 flex flex-wrap items-baseline gap-x-3 gap-y-1">
           <p className="text-xl font-semibold tracking-tight text-ink-900">{model.data.name}</p>
+          {model.data.archived_at && (
+            <Link to={`${base}/settings`} className="no-underline">
+              <Badge>Archived</Badge>
+            </Link>
+          )}
           {latest && (
             <span className="text-sm text-ink-700">
               Revision {latest.number}
@@ -37,6 +44,7 @@ export function ModelFrame({ links }: { links: FrameLink[] }) {
           )}
         </div>
       )}
+      {model.data?.latest && <KeepForField modelId={model.data.id} />}
       <NavTabs
         label="Model"
         className="mt-2 mb-6 border-b border-ply-200"

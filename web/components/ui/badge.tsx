@@ -52,13 +52,13 @@ export function Badge({ tone = 'neutral', icon: Icon, children, className }: Bad
 const severityLook: Record<Severity, { tone: Tone; icon: BadgeProps['icon']; word: string }> = {
   error: { tone: 'danger', icon: ErrorIcon, word: 'Error' },
   warning: { tone: 'caution', icon: WarningIcon, word: 'Warning' },
-  info: { tone: 'info', icon: InfoIcon, word: 'Info' },
+  // The format's severity `info` is shown as a note everywhere, one word for one idea.
+  info: { tone: 'info', icon: InfoIcon, word: 'Note' },
 };
 
 export function SeverityBadge({ severity, count }: { severity: Severity; count?: number }) {
   const look = severityLook[severity];
-  // "info" is uncountable: "3 info", never "3 infos".
-  const plural = count === 1 || severity === 'info' ? look.word.toLowerCase() : `${look.word.toLowerCase()}s`;
+  const plural = count === 1 ? look.word.toLowerCase() : `${look.word.toLowerCase()}s`;
   const word = count === undefined ? look.word : `${count} ${plural}`;
   return (
     <Badge tone={look.tone} icon={look.icon}>

@@ -5,7 +5,7 @@ export function failsafeWords(failsafe: PinOutput['failsafe']): string {
   if (failsafe === null) return 'receiver default';
   if (failsafe === 'hold') return 'holds last pulse';
   if (failsafe === 'off') return 'stops pulses';
-  return `${failsafe} us`;
+  return `${failsafe} µs`;
 }
 
 export type PinStateKind = 'live' | 'failsafe' | 'held' | 'no-pulses' | 'receiver-default';
@@ -20,5 +20,5 @@ export function pinState(pin: PinOutput, lost: boolean): { kind: PinStateKind; w
   if (pin.failsafe === 'hold') return { kind: 'held', words: 'held' };
   if (pin.failsafe === 'off') return { kind: 'no-pulses', words: 'no pulses' };
   if (pin.failsafe === null) return { kind: 'receiver-default', words: 'receiver default (not known)' };
-  return { kind: 'failsafe', words: `failsafe (${pin.failsafe} us)` };
+  return { kind: 'failsafe', words: `failsafe (${pin.failsafe} µs)` };
 }

@@ -24,6 +24,7 @@ export const SECTION_NAMES: Record<Section, string> = {
   mixes: 'Mixes',
   receivers: 'Receivers and pin maps',
   power: 'Power',
+  accepted: 'Accepted findings',
   other: 'Other keys',
 };
 
@@ -51,7 +52,8 @@ export function groupChanges(
     const inSection = changes.filter((change) => change.section === section);
     const counts = sections[section] ?? countKinds(inSection);
     if (inSection.length === 0 && total(counts) === 0) {
-      if (section !== 'other') unchanged.push(section);
+      // Extra keys and accepted findings are optional: most setups have none to be unchanged.
+      if (section !== 'other' && section !== 'accepted') unchanged.push(section);
       continue;
     }
     changed.push({ section, counts, total: total(counts), changes: inSection });

@@ -1,5 +1,5 @@
 import { plainText } from '@shared/parse/plain-text';
-import type { DocumentEdit } from './document-edits';
+import type { DocumentEdit } from '@shared/edit/document-edits';
 
 // Reading the plain YAML value for the forms. The forms show whatever the text holds,
 // valid or not (the checks say what is wrong), so every read is defensive.

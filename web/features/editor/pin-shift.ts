@@ -1,4 +1,4 @@
-import type { DocumentEdit } from './document-edits';
+import type { DocumentEdit } from '@shared/edit/document-edits';
 import { wholeNumber, type Indexed } from './form-values';
 
 const HIGHEST_CHANNEL = 32;

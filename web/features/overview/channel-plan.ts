@@ -7,7 +7,10 @@ import type { Finding } from '@shared/findings';
 
 export type Failsafe = number | 'hold' | 'off' | null;
 
-export type MarkKind = 'shared' | 'unrouted' | 'beyond-link' | 'no-function';
+// `finding` stands for any other open finding about the channel, its mixes or the pins
+// carrying it (a failsafe at the surface's stop, say), so no row with one reads "clear";
+// `accepted` for one the pilot accepted with a reason.
+export type MarkKind = 'shared' | 'unrouted' | 'beyond-link' | 'no-function' | 'finding' | 'accepted';
 
 export interface ChannelMark {
   kind: MarkKind;
@@ -157,12 +160,16 @@ export function buildChannelPlan(document: unknown, findings: readonly Finding[]
     });
   }
 
+  const rank = { error: 0, warning: 1, info: 2 } as const;
   for (const finding of findings) {
-    const kind = MARK_OF_RULE[finding.rule];
-    if (!kind) continue;
+    const kind: MarkKind = finding.accepted !== undefined ? 'accepted' : (MARK_OF_RULE[finding.rule] ?? 'finding');
     const ch = channelOfFinding(finding, root, receivers);
     const row = rows.find((candidate) => candidate.ch === ch);
-    if (row && !row.marks.some((mark) => mark.kind === kind)) row.marks.push({ kind, finding });
+    if (!row) continue;
+    const same = row.marks.findIndex((mark) => mark.kind === kind);
+    // One mark of a kind per row, standing for the worst finding of that kind.
+    if (same < 0) row.marks.push({ kind, finding });
+    else if (rank[finding.severity] < rank[row.marks[same].finding.severity]) row.marks[same] = { kind, finding };
   }
   return { linkChannels, receivers, rows };
 }
@@ -173,11 +180,13 @@ export const MARK_WORDS: Record<MarkKind, string> = {
   unrouted: 'Unrouted: on no pin',
   'beyond-link': 'Beyond the link',
   'no-function': 'No function planned',
+  finding: 'Error, Warning or Note',
+  accepted: 'Accepted',
 };
 
 export function failsafeText(failsafe: Failsafe): string {
-  if (failsafe === null) return 'receiver default';
+  if (failsafe === null) return 'not set';
   if (failsafe === 'hold') return 'hold';
-  if (failsafe === 'off') return 'off';
-  return `${failsafe} us`;
+  if (failsafe === 'off') return 'off (no pulses)';
+  return `${failsafe} µs`;
 }

@@ -121,7 +121,7 @@ function describe(event: AuditEvent, workspaceId: Id): Omit<AuditLine, 'model'> 
     case 'receiver.updated':
       return { text: 'updated a receiver’s details on the shelf', link: receiver };
     case 'receiver.installed':
-      return { text: `installed a receiver in ${quoted(d.model_name)}, slot ${str(d.slot)}`, link: receiver };
+      return { text: `installed a receiver in ${quoted(d.model_name)} as its receiver ${str(d.slot)}`, link: receiver };
     case 'receiver.removed':
       return { text: `took a receiver out of ${quoted(d.model_name)}`, link: receiver };
     case 'receiver.settings-applied':

@@ -2,6 +2,7 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { api } from '../../../lib/api-client';
 import { SESSION_QUERY_KEY } from '../../../lib/query-client';
 import type { User } from '../../../types/api';
+import { paths } from '../../../lib/api-paths';
 
 export interface PasswordChange {
   current: string;
@@ -9,7 +10,7 @@ export interface PasswordChange {
 }
 
 export async function changePassword(input: PasswordChange): Promise<{ user: User; token: string }> {
-  return (await api.post<{ user: User; token: string }>('/api/auth/password', input)).data;
+  return (await api.post<{ user: User; token: string }>(paths.password(), input)).data;
 }
 
 /**

@@ -2,9 +2,10 @@ import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/r
 import { api } from '../../../lib/api-client';
 import type { Session, User } from '../../../types/api';
 import { meQueryOptions } from './get-me';
+import { paths } from '../../../lib/api-paths';
 
 export async function checkResetLink(token: string, signal?: AbortSignal): Promise<{ email: string }> {
-  return (await api.get<{ email: string }>(`/api/auth/password-reset/${encodeURIComponent(token)}`, signal)).data;
+  return (await api.get<{ email: string }>(paths.passwordResetLink(token), signal)).data;
 }
 
 export function resetLinkQueryOptions(token: string) {
@@ -21,9 +22,7 @@ export function useResetLink(token: string) {
 }
 
 export async function confirmPasswordReset(token: string, password: string): Promise<{ user: User; token: string }> {
-  return (
-    await api.post<{ user: User; token: string }>(`/api/auth/password-reset/${encodeURIComponent(token)}`, { password })
-  ).data;
+  return (await api.post<{ user: User; token: string }>(paths.passwordResetLink(token), { password })).data;
 }
 
 /** Sets the new password (which ends every other session) and loads the fresh session. */

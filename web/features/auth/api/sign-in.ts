@@ -1,7 +1,9 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { api } from '../../../lib/api-client';
+import { forgetSavedAnswers } from '../../../lib/offline';
 import type { Session, User } from '../../../types/api';
 import { meQueryOptions } from './get-me';
+import { paths } from '../../../lib/api-paths';
 
 export interface SignInInput {
   email: string;
@@ -9,7 +11,7 @@ export interface SignInInput {
 }
 
 export async function signIn(input: SignInInput): Promise<{ user: User; token: string }> {
-  return (await api.post<{ user: User; token: string }>('/api/auth/sign-in', input)).data;
+  return (await api.post<{ user: User; token: string }>(paths.signIn(), input)).data;
 }
 
 /**
@@ -21,6 +23,8 @@ export function useSignIn() {
   return useMutation({
     mutationFn: async (input: SignInInput): Promise<Session> => {
       await signIn(input);
+      // Nothing saved on this device for an earlier session may show through.
+      await forgetSavedAnswers();
       queryClient.removeQueries();
       return queryClient.fetchQuery(meQueryOptions());
     },

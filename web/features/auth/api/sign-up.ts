@@ -2,6 +2,7 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { api } from '../../../lib/api-client';
 import type { Session, User } from '../../../types/api';
 import { meQueryOptions } from './get-me';
+import { paths } from '../../../lib/api-paths';
 
 export interface SignUpInput {
   email: string;
@@ -10,7 +11,7 @@ export interface SignUpInput {
 }
 
 export async function signUp(input: SignUpInput): Promise<{ user: User }> {
-  return (await api.post<{ user: User }>('/api/auth/sign-up', input)).data;
+  return (await api.post<{ user: User }>(paths.signUp(), input)).data;
 }
 
 /** Creating an account also signs in, so it ends with the new session loaded. */

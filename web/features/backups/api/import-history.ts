@@ -3,6 +3,7 @@ import { api, apiRequest } from '../../../lib/api-client';
 import type { Id } from '../../../types/api';
 import { hangarQueryKey } from '../../models/api/list-models';
 import { jobEnded, type ImportJob } from '../types';
+import { paths } from '../../../lib/api-paths';
 
 export const importJobQueryKey = (workspaceId: Id, jobId: Id) => ['workspaces', workspaceId, 'imports', jobId] as const;
 
@@ -12,7 +13,7 @@ const POLL_MS = 1000;
 export async function uploadHistory(input: { workspaceId: Id; file: File }): Promise<ImportJob> {
   const form = new FormData();
   form.set('file', input.file);
-  const path = `/api/workspaces/${encodeURIComponent(input.workspaceId)}/import`;
+  const path = paths.workspaceImport(input.workspaceId);
   return (await apiRequest<ImportJob>(path, { method: 'POST', body: form })).data;
 }
 
@@ -29,7 +30,7 @@ export function useImportJob(workspaceId: Id, jobId: Id | null) {
     queryFn: async ({ signal }) => {
       const job = (
         await api.get<ImportJob>(
-          `/api/workspaces/${encodeURIComponent(workspaceId)}/imports/${encodeURIComponent(jobId!)}`,
+          paths.workspaceImportJob(workspaceId, jobId!),
           signal,
         )
       ).data;
@@ -48,6 +49,6 @@ export function useRecentImports(workspaceId: Id, enabled: boolean) {
     queryKey: recentImportsQueryKey(workspaceId),
     enabled,
     queryFn: async ({ signal }) =>
-      (await api.get<ImportJob[]>(`/api/workspaces/${encodeURIComponent(workspaceId)}/imports`, signal)).data,
+      (await api.get<ImportJob[]>(paths.workspaceImports(workspaceId), signal)).data,
   });
 }

@@ -2,6 +2,7 @@ import { useId } from 'react';
 import { Card } from '../../../components/ui/card';
 import { buttonClasses } from '../../../components/ui/button';
 import type { WorkspaceMembership } from '../../../types/api';
+import { paths } from '../../../lib/api-paths';
 
 /**
  * The whole workspace as one git bundle. A plain link, so the browser saves the file
@@ -20,7 +21,7 @@ export function ExportWorkspaceCard({ workspace }: { workspace: WorkspaceMembers
         message, date and tag of {workspace.name}.
       </p>
       <a
-        href={`/api/workspaces/${encodeURIComponent(workspace.id)}/export.git`}
+        href={paths.workspaceExport(workspace.id)}
         download
         className={`${buttonClasses('secondary', 'md')} mt-4`}
         aria-describedby={descriptionId}

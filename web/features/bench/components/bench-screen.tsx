@@ -156,7 +156,7 @@ function Bench({ setup }: { setup: Setup }) {
 
   return (
     <div className="space-y-6">
-      <div className="grid gap-6 md:grid-cols-[16rem_minmax(0,1fr)] lg:grid-cols-[20rem_minmax(0,1fr)]">
+      <div className="grid grid-cols-[minmax(0,1fr)] gap-6 md:grid-cols-[16rem_minmax(0,1fr)] lg:grid-cols-[20rem_minmax(0,1fr)]">
         <div className="space-y-3">
           <Button variant="secondary" className="min-h-11 w-full" disabled={atRest} onClick={() => setPositions(rest)}>
             Put everything at rest
@@ -181,7 +181,7 @@ function Bench({ setup }: { setup: Setup }) {
         <p role="status" className="text-sm text-ink-700">
           {linkStatus(lostNames, setup.receivers.length)}
         </p>
-        <div className="grid gap-4 lg:grid-cols-2">
+        <div className="grid grid-cols-[minmax(0,1fr)] gap-4 lg:grid-cols-2">
           {setup.receivers.map((receiver, index) => (
             <ReceiverPins
               key={`${receiver.id}-${index}`}

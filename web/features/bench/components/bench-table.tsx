@@ -3,7 +3,8 @@ import { cx } from '../../../lib/cx';
 
 export function BenchTable({ caption, children }: { caption: string; children: ReactNode }) {
   return (
-    <div className="overflow-x-auto">
+    // On a phone a wide table scrolls inside its card; the region takes focus so a keyboard can scroll it too.
+    <div className="overflow-x-auto" role="region" aria-label={caption} tabIndex={0}>
       <table className="w-full border-collapse text-left text-sm">
         <caption className="sr-only">{caption}</caption>
         {children}

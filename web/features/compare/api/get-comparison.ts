@@ -3,10 +3,10 @@ import { api } from '../../../lib/api-client';
 import type { TextDiff } from '@shared/diff';
 import type { Id } from '../../../types/api';
 import type { CompareResult } from '../types';
+import { paths } from '../../../lib/api-paths';
 
 export async function getComparison(from: Id, to: Id, signal?: AbortSignal): Promise<CompareResult> {
-  const params = new URLSearchParams({ from, to });
-  return (await api.get<CompareResult>(`/api/compare?${params}`, signal)).data;
+  return (await api.get<CompareResult>(paths.compare({ from, to }), signal)).data;
 }
 
 export function comparisonQueryOptions(from: Id, to: Id) {
@@ -28,12 +28,10 @@ export function useComparison(from: Id | null, to: Id | null) {
 }
 
 /** Where the browser downloads the RFC 6902 JSON Patch from `from` to `to`. */
-export const patchDownloadUrl = (from: Id, to: Id) =>
-  `/api/revisions/${encodeURIComponent(to)}/patch?${new URLSearchParams({ from, download: '1' })}`;
+export const patchDownloadUrl = (from: Id, to: Id) => paths.revisionPatch(to, { from, download: 1 });
 
 export async function getTextDiff(from: Id, to: Id, signal?: AbortSignal): Promise<TextDiff> {
-  const params = new URLSearchParams({ from, to });
-  return (await api.get<TextDiff>(`/api/compare/text?${params}`, signal)).data;
+  return (await api.get<TextDiff>(paths.compareText({ from, to }), signal)).data;
 }
 
 /** The line-by-line diff of the two stored texts, fetched only once the reader opens it. */

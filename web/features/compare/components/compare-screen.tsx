@@ -239,7 +239,7 @@ function Result({ model, result, stale }: { model: SetupModelView; result: Compa
             download
             className={buttonClasses('secondary', 'sm')}
           >
-            Export JSON Patch
+            Download the changes as a patch file (JSON)
           </a>
         </div>
         {result.from.id === result.to.id && (

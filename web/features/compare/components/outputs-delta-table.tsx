@@ -10,12 +10,12 @@ type Failsafe = OutputDelta['failsafe_before'];
  * pulse says that it is held.
  */
 function sideText(value: number | null, kind: OutputDelta['kind'], failsafe: Failsafe): string {
-  if (kind === 'pulse') return value === null ? 'no output' : `${value} us`;
-  if (failsafe === 'hold') return value === null ? 'held (no pin)' : `${value} us (held)`;
+  if (kind === 'pulse') return value === null ? 'no output' : `${value} µs`;
+  if (failsafe === 'hold') return value === null ? 'held (no pin)' : `${value} µs (held)`;
   if (failsafe === 'off') return 'no pulses';
   if (failsafe === null || failsafe === undefined)
-    return value === null ? 'receiver default (not known)' : `${value} us`;
-  return `${value ?? failsafe} us (failsafe)`;
+    return value === null ? 'receiver default (not known)' : `${value} µs`;
+  return `${value ?? failsafe} µs (failsafe)`;
 }
 
 function channelText(delta: OutputDelta): string {

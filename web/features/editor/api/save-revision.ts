@@ -4,6 +4,7 @@ import type { Id } from '../../../types/api';
 import { modelQueryKey } from '../../models/api/get-model';
 import { revisionsQueryKey } from '../../models/api/list-revisions';
 import type { SavedRevision } from '../../models/types';
+import { paths } from '../../../lib/api-paths';
 
 export interface SaveRevisionInput {
   /** The number of the revision the edit started from; the server refuses a stale one with 409. */
@@ -13,7 +14,7 @@ export interface SaveRevisionInput {
 }
 
 export async function saveRevision(modelId: Id, input: SaveRevisionInput): Promise<SavedRevision> {
-  return (await api.post<SavedRevision>(`/api/models/${encodeURIComponent(modelId)}/revisions`, input)).data;
+  return (await api.post<SavedRevision>(paths.modelRevisions(modelId), input)).data;
 }
 
 /** What a 409 `stale-base` answer names: the revision saved meanwhile. */

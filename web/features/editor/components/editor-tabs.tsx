@@ -1,10 +1,11 @@
 import { useRef, type KeyboardEvent } from 'react';
 import { cx } from '../../../lib/cx';
 
-export type EditorTab = 'text' | 'plan' | 'pins' | 'mixes';
+export type EditorTab = 'text' | 'controls' | 'plan' | 'pins' | 'mixes';
 
 const TABS: { id: EditorTab; label: string }[] = [
   { id: 'text', label: 'Text' },
+  { id: 'controls', label: 'Controls and link' },
   { id: 'plan', label: 'Channel plan' },
   { id: 'pins', label: 'Pin maps' },
   { id: 'mixes', label: 'Mixes' },

@@ -38,8 +38,8 @@ export function FailsafeField({ name, value, onChange }: FailsafeFieldProps) {
       >
         <option value="pulse">Pulse (µs)</option>
         <option value="hold">Hold last pulse</option>
-        <option value="off">Stop pulses</option>
-        <option value="default">Receiver default</option>
+        <option value="off">Off (no pulses)</option>
+        <option value="default">Not set (the receiver's own default)</option>
         {mode === 'other' && <option value="other">{fieldText(value)}</option>}
       </CellSelect>
       {mode === 'pulse' && (

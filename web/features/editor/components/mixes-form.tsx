@@ -1,8 +1,9 @@
+import { useState } from 'react';
 import { SLUG_PATTERN } from '@shared/format/schema';
 import { Button } from '../../../components/ui/button';
 import { CloseIcon } from '../../../components/ui/icons';
 import { EmptyState } from '../../../components/ui/empty-state';
-import type { DocumentEdit } from '../document-edits';
+import type { DocumentEdit } from '@shared/edit/document-edits';
 import {
   entriesAt,
   entryAt,
@@ -13,6 +14,7 @@ import {
   type Entry,
   type FormProps,
 } from '../form-values';
+import { AddMixDialog, type NewMix } from './add-mix-dialog';
 import { CellSelect, CommitField } from './commit-field';
 import { Cell, FormTable, HeaderCell } from './form-table';
 
@@ -48,9 +50,10 @@ export function MixesForm({ data, readOnly, onEdits }: FormProps) {
   const controls = controlOptions(data);
   const switches = controls.filter((control) => control.kind === 'switch');
 
-  const addMix = () => {
-    const from = controls.find((control) => control.kind !== 'switch')?.id ?? controls[0]?.id ?? 'aileron-stick';
-    onEdits([{ kind: 'append', path: ['mixes'], value: { id: freeMixId(mixes), from, to: 1 } }]);
+  const [adding, setAdding] = useState(false);
+  const addMix = ({ from, to }: NewMix) => {
+    onEdits([{ kind: 'append', path: ['mixes'], value: { id: freeMixId(mixes), from, to } }]);
+    setAdding(false);
   };
 
   return (
@@ -97,10 +100,11 @@ export function MixesForm({ data, readOnly, onEdits }: FormProps) {
         </FormTable>
       )}
       {!readOnly && (
-        <Button variant="secondary" size="sm" className="mt-3" onClick={addMix}>
-          Add a mix
+        <Button variant="secondary" size="sm" className="mt-3" onClick={() => setAdding(true)}>
+          Add a mix…
         </Button>
       )}
+      {adding && <AddMixDialog data={data} controls={controls} onAdd={addMix} onClose={() => setAdding(false)} />}
     </fieldset>
   );
 }

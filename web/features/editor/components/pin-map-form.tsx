@@ -4,7 +4,7 @@ import { Button } from '../../../components/ui/button';
 import { Card } from '../../../components/ui/card';
 import { EmptyState } from '../../../components/ui/empty-state';
 import { FieldError } from '../../../components/ui/field-error';
-import type { DocumentEdit } from '../document-edits';
+import type { DocumentEdit } from '@shared/edit/document-edits';
 import {
   entriesAt,
   fieldText,

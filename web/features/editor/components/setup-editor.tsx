@@ -1,9 +1,10 @@
 import { Suspense, useCallback, useEffect, useId, useMemo, useRef, useState, type ChangeEvent } from 'react';
 import { Link, useLocation, useSearchParams } from 'react-router-dom';
 import { analyzeSetup } from '@shared/analyze';
+import type { Finding } from '@shared/findings';
 import { lazyScreen } from '../../../app/lazy-screen';
 import { Badge, SeverityBadge } from '../../../components/ui/badge';
-import { Button } from '../../../components/ui/button';
+import { Button, buttonClasses } from '../../../components/ui/button';
 import { Dialog } from '../../../components/ui/dialog';
 import { CheckIcon, InfoIcon, PencilIcon, StaleIcon, WarningIcon } from '../../../components/ui/icons';
 import { LoadingState } from '../../../components/ui/loading-state';
@@ -12,13 +13,16 @@ import { Spinner } from '../../../components/ui/spinner';
 import { useToast } from '../../../components/ui/toast';
 import { isApiError } from '../../../lib/api-client';
 import type { Role } from '../../../types/api';
+import { AcceptFindingDialog } from '../../findings/components/accept-finding-dialog';
 import { FindingsList } from '../../findings/components/findings-list';
+import { countWords, someCountWords } from '../../findings/count-words';
 import type { Revision, SavedRevision, SetupModelView } from '../../models/types';
 import { staleBaseOf, useSaveRevision, type StaleBase } from '../api/save-revision';
-import { applyEdits, readDocumentData, type DocumentEdit } from '../document-edits';
+import { applyEdits, readDocumentData, type DocumentEdit } from '@shared/edit/document-edits';
 import { clearDraft, saveDraft } from '../draft-storage';
 import { useDebouncedValue } from '../hooks/use-debounced-value';
 import { ChannelPlanForm } from './channel-plan-form';
+import { ControlsLinkForm } from './controls-link-form';
 import { LeaveGuard } from './leave-guard';
 import { MixesForm } from './mixes-form';
 import { Notice } from './notice';
@@ -31,6 +35,7 @@ import { commentLines, type CommentLine } from '../comment-lines';
 import { canonicalJson } from '@shared/canonical/content-hash';
 import { StaleBasePanel } from './stale-base-panel';
 import { EditorTabs, type EditorTab } from './editor-tabs';
+import type { LineJump } from './yaml-code-editor';
 
 const YamlCodeEditor = lazyScreen(() => import('./yaml-code-editor'), 'YamlCodeEditor');
 
@@ -83,11 +88,21 @@ function readText(file: File): Promise<string> {
 }
 
 function countsSentence(saved: SavedRevision): string {
-  const parts = [
-    saved.error_count > 0 && `${saved.error_count} ${saved.error_count === 1 ? 'error' : 'errors'}`,
-    saved.warning_count > 0 && `${saved.warning_count} ${saved.warning_count === 1 ? 'warning' : 'warnings'}`,
-  ].filter(Boolean);
-  return parts.length === 0 ? 'The checks found no errors or warnings.' : `The checks found ${parts.join(' and ')}.`;
+  const found = someCountWords({ errors: saved.error_count, warnings: saved.warning_count, infos: saved.info_count });
+  return found === null ? 'The checks found nothing open.' : `The checks found ${found}.`;
+}
+
+/** The index of the `accepted` entry that accepts `finding`, in the text's plain value. */
+function acceptedIndex(data: unknown, finding: Finding): number {
+  const list = (data as { accepted?: unknown } | null)?.accepted;
+  if (!Array.isArray(list)) return -1;
+  return list.findIndex(
+    (entry: unknown) =>
+      entry !== null &&
+      typeof entry === 'object' &&
+      (entry as { rule?: unknown }).rule === finding.rule &&
+      (entry as { path?: unknown }).path === finding.path,
+  );
 }
 
 /** What saving on `base` does to the model's sign-off; null when the base holds none. */
@@ -121,6 +136,7 @@ export function SetupEditor({ model, initialBase, restoredText, canEdit, role }:
   const [stale, setStale] = useState<{ info: StaleBase; refused: boolean } | null>(null);
   const [saveOpen, setSaveOpen] = useState(false);
   const [discardOpen, setDiscardOpen] = useState(false);
+  const [accepting, setAccepting] = useState<Finding | null>(null);
   const fileInput = useRef<HTMLInputElement>(null);
   const checksId = useId();
 
@@ -137,19 +153,28 @@ export function SetupEditor({ model, initialBase, restoredText, canEdit, role }:
     else clearDraft(model.id);
   }, [canEdit, dirty, model.id, base.id, base.number, text]);
 
-  const [params] = useSearchParams();
+  const [params, setParams] = useSearchParams();
   const location = useLocation();
+  // A finding's link asks for a line with `?line=`: the request is taken once, as a
+  // jump, and the address is tidied back to the editor's own, so a reload or a shared
+  // link does not jump again.
   const lineParam = Number(params.get('line'));
-  const jump = useMemo(
-    () => (Number.isInteger(lineParam) && lineParam > 0 ? { line: lineParam, key: location.key } : null),
-    [lineParam, location.key],
-  );
-  // A new jump (a link to a line) shows the text, where the line is.
-  const [lastJump, setLastJump] = useState(jump);
-  if (jump !== lastJump) {
-    setLastJump(jump);
-    if (jump) setTab('text');
+  const requested = Number.isInteger(lineParam) && lineParam > 0 ? { line: lineParam, key: location.key } : null;
+  const [jump, setJump] = useState<LineJump | null>(requested);
+  if (requested && requested.key !== jump?.key) {
+    setJump(requested);
+    setTab('text');
   }
+  useEffect(() => {
+    if (!params.has('line')) return;
+    setParams(
+      (next) => {
+        next.delete('line');
+        return next;
+      },
+      { replace: true },
+    );
+  }, [params, setParams]);
 
   const formData = useMemo(() => (tab === 'text' ? null : readDocumentData(text)), [tab, text]);
 
@@ -181,6 +206,21 @@ export function SetupEditor({ model, initialBase, restoredText, canEdit, role }:
     },
     [setText, toast],
   );
+
+  const accept = (finding: Finding, reason: string) => {
+    onEdits([{ kind: 'append', path: ['accepted'], value: { rule: finding.rule, path: finding.path, reason } }]);
+    setAccepting(null);
+    toast({
+      tone: 'info',
+      title: `Accepted the ${finding.severity === 'warning' ? 'warning' : 'note'} (${finding.rule})`,
+      description: 'It is in the setup’s accepted list now; save a revision to keep it.',
+    });
+  };
+
+  const withdraw = (finding: Finding) => {
+    const index = acceptedIndex(readDocumentData(textRef.current), finding);
+    if (index >= 0) onEdits([{ kind: 'delete', path: ['accepted', index] }]);
+  };
 
   const openFile = async (event: ChangeEvent<HTMLInputElement>) => {
     // Take the file, then clear the input so that choosing the same file again still counts.
@@ -282,7 +322,7 @@ export function SetupEditor({ model, initialBase, restoredText, canEdit, role }:
       <PageHeader
         title="Edit"
         documentTitle={`Edit · ${model.name}`}
-        description={`${model.name}: the setup as YAML text, with forms for the channel plan, pin maps and mixes on the same document, checked as you type.`}
+        description={`${model.name}: the setup as YAML text, with forms for the controls, link, channel plan, pin maps and mixes on the same document, checked as you type.`}
         actions={
           <>
             {canEdit && (
@@ -301,6 +341,9 @@ export function SetupEditor({ model, initialBase, restoredText, canEdit, role }:
                 </Button>
               </>
             )}
+            <Link to="/help/format" className={buttonClasses('quiet')}>
+              Format reference
+            </Link>
             <Button variant="secondary" onClick={download}>
               Download text
             </Button>
@@ -431,6 +474,8 @@ export function SetupEditor({ model, initialBase, restoredText, canEdit, role }:
                   The text is not readable YAML right now, so the forms cannot show it. Fix the syntax finding in the
                   text first.
                 </Notice>
+              ) : tab === 'controls' ? (
+                <ControlsLinkForm data={formData} readOnly={!canEdit} onEdits={onEdits} />
               ) : tab === 'plan' ? (
                 <ChannelPlanForm data={formData} readOnly={!canEdit} onEdits={onEdits} />
               ) : tab === 'pins' ? (
@@ -454,9 +499,7 @@ export function SetupEditor({ model, initialBase, restoredText, canEdit, role }:
                   Checking…
                 </>
               ) : (
-                <span className="sr-only">
-                  {counts.errors} errors, {counts.warnings} warnings, {counts.infos} notes
-                </span>
+                <span className="sr-only">{countWords(counts)}</span>
               )}
             </p>
           </div>
@@ -464,12 +507,15 @@ export function SetupEditor({ model, initialBase, restoredText, canEdit, role }:
             <SeverityBadge severity="error" count={counts.errors} />
             <SeverityBadge severity="warning" count={counts.warnings} />
             <SeverityBadge severity="info" count={counts.infos} />
+            {counts.accepted > 0 && <Badge icon={CheckIcon}>{counts.accepted} accepted</Badge>}
           </p>
           <div className="mt-3 max-h-[calc(100vh-9rem)] overflow-y-auto">
             <FindingsList
               findings={checked.analysis.findings}
               modelId={model.id}
               emptyText="The setup passes every check."
+              onAccept={canEdit ? setAccepting : undefined}
+              onWithdraw={canEdit ? withdraw : undefined}
             />
             {(threads.data?.length ?? 0) > 0 && (
               <OpenComments modelId={model.id} threads={threads.data ?? []} placed={placed} />
@@ -487,6 +533,13 @@ export function SetupEditor({ model, initialBase, restoredText, canEdit, role }:
           onSave={submitSave}
           onClose={() => setSaveOpen(false)}
           signOff={signOffOf(model, base, checked.analysis.data)}
+        />
+      )}
+      {accepting && (
+        <AcceptFindingDialog
+          finding={accepting}
+          onAccept={(reason) => accept(accepting, reason)}
+          onClose={() => setAccepting(null)}
         />
       )}
       {discardOpen && (

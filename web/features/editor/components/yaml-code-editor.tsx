@@ -75,8 +75,10 @@ export function YamlCodeEditor({
     shownJump.current = jump.key;
     const doc = view.state.doc;
     const line = doc.line(Math.min(Math.max(1, jump.line), doc.lines));
+    // The cursor goes to the start of the line, not a selection of it: the next
+    // keystroke adds to the line rather than replacing it.
     view.dispatch({
-      selection: EditorSelection.single(line.from, line.to),
+      selection: EditorSelection.cursor(line.from),
       effects: EditorView.scrollIntoView(line.from, { y: 'center' }),
     });
     view.focus();

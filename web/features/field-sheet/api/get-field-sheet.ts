@@ -3,6 +3,7 @@ import { api } from '../../../lib/api-client';
 import type { Id } from '../../../types/api';
 import type { Revision } from '../../models/types';
 import type { FieldSheet } from '../types';
+import { paths } from '../../../lib/api-paths';
 
 const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
@@ -16,11 +17,11 @@ export async function resolveRevisionId(
   if (!param) return latestId;
   if (UUID.test(param)) return param;
   if (!/^\d{1,10}$/.test(param)) return null;
-  return (await api.get<Revision>(`/api/models/${encodeURIComponent(modelId)}/revisions/${param}`, signal)).data.id;
+  return (await api.get<Revision>(paths.modelRevisionNumber(modelId, param), signal)).data.id;
 }
 
 export async function getFieldSheet(revisionId: Id, signal?: AbortSignal): Promise<FieldSheet> {
-  return (await api.get<FieldSheet>(`/api/revisions/${encodeURIComponent(revisionId)}/field-sheet`, signal)).data;
+  return (await api.get<FieldSheet>(paths.revisionFieldSheet(revisionId), signal)).data;
 }
 
 export function fieldSheetQueryOptions(modelId: Id, param: string | null, latestId: Id | null) {
@@ -40,4 +41,4 @@ export function useFieldSheet(modelId: Id, param: string | null, latestId: Id | 
   return useQuery({ ...fieldSheetQueryOptions(modelId, param, latestId), enabled: ready && modelId !== '' });
 }
 
-export const fieldSheetPdfUrl = (revisionId: Id) => `/api/revisions/${encodeURIComponent(revisionId)}/field-sheet.pdf`;
+export const fieldSheetPdfUrl = (revisionId: Id) => paths.revisionFieldSheetPdf(revisionId);

@@ -36,7 +36,7 @@ export function FieldSheet({ sheet }: { sheet: Sheet }) {
         <h1 className="text-2xl font-semibold tracking-tight text-ink-900">{sheet.model.name}</h1>
         <dl className="mt-2 flex flex-wrap gap-x-8 gap-y-2 text-base">
           <Fact label="Revision">{sheet.revision.number}</Fact>
-          <Fact label="Hash">
+          <Fact label="Content fingerprint">
             <code className="font-mono text-sm" title={sheet.revision.content_hash}>
               {sheet.revision.short_hash}
             </code>
@@ -107,12 +107,14 @@ export function FieldSheet({ sheet }: { sheet: Sheet }) {
         {sheet.receivers.map((receiver) => (
           <section key={receiver.id} aria-labelledby={`sheet-receiver-${receiver.id}`}>
             <h2 id={`sheet-receiver-${receiver.id}`} className="text-lg font-semibold text-ink-900">
-              {receiver.label ?? `Slot ${receiver.id}`}
-              {receiver.label && <span className="font-normal text-ink-700"> · slot {receiver.id}</span>}
+              {receiver.label ?? `Receiver ${receiver.id}`}
+              {receiver.label && <span className="font-normal text-ink-700"> · “{receiver.id}” in the setup</span>}
             </h2>
             <p className="text-sm text-ink-700">
               {receiver.role}, {receiver.outputs} outputs, telemetry:{' '}
-              <strong className="font-semibold text-ink-900">{receiver.telemetry ? 'sends' : 'silent (off)'}</strong>
+              <strong className="font-semibold text-ink-900">
+                {receiver.telemetry ? 'on (this receiver sends it)' : 'off'}
+              </strong>
             </p>
             <p className="mb-1 text-sm">
               {receiver.unit ? (

@@ -6,6 +6,7 @@ import { revisionQueryKey } from '../../models/api/get-revision';
 import { revisionsQueryKey } from '../../models/api/list-revisions';
 import { hangarQueryKey } from '../../models/api/list-models';
 import type { SavedRevision, SetupModelView } from '../../models/types';
+import { paths } from '../../../lib/api-paths';
 
 export interface RevertInput {
   modelId: Id;
@@ -17,7 +18,7 @@ export interface RevertInput {
 }
 
 export async function revertRevision({ modelId, ...body }: RevertInput): Promise<SavedRevision> {
-  return (await api.post<SavedRevision>(`/api/models/${encodeURIComponent(modelId)}/revert`, body)).data;
+  return (await api.post<SavedRevision>(paths.modelRevert(modelId), body)).data;
 }
 
 export interface TagsAnswer {
@@ -27,13 +28,11 @@ export interface TagsAnswer {
 }
 
 export async function addTag({ revisionId, name }: { revisionId: Id; name: string }): Promise<TagsAnswer> {
-  return (await api.post<TagsAnswer>(`/api/revisions/${encodeURIComponent(revisionId)}/tags`, { name })).data;
+  return (await api.post<TagsAnswer>(paths.revisionTags(revisionId), { name })).data;
 }
 
 export async function removeTag({ revisionId, name }: { revisionId: Id; name: string }): Promise<TagsAnswer> {
-  return (
-    await api.delete<TagsAnswer>(`/api/revisions/${encodeURIComponent(revisionId)}/tags/${encodeURIComponent(name)}`)
-  ).data;
+  return (await api.delete<TagsAnswer>(paths.revisionTag(revisionId, name))).data;
 }
 
 /** A new revision or a tag changes the model's history and its hangar row. */

@@ -1,7 +1,9 @@
 import { useId } from 'react';
 import { buttonClasses } from '../../../components/ui/button';
+import { paths } from '../../../lib/api-paths';
 
-const DESCRIPTION = 'A git repository with one commit per revision, for your own backup.';
+const DESCRIPTION =
+  'A backup file of the whole history, one entry per revision. Git (a common version-control tool) opens it; Backups can bring it back into Bindery.';
 
 /**
  * The model's whole history as a git bundle: `git clone` it to get a plain repository
@@ -14,7 +16,7 @@ export function ExportHistoryLink({ modelId }: { modelId: string }) {
   return (
     <div className="flex flex-col items-start gap-1 sm:items-end">
       <a
-        href={`/api/models/${encodeURIComponent(modelId)}/export.git`}
+        href={paths.modelExport(modelId)}
         download
         className={buttonClasses('secondary', 'sm')}
         aria-describedby={descriptionId}

@@ -6,6 +6,7 @@ import { ErrorState } from '../../../components/ui/error-state';
 import { LoadingState } from '../../../components/ui/loading-state';
 import { PageHeader } from '../../../components/ui/page-header';
 import { cx } from '../../../lib/cx';
+import { useSession } from '../../auth/hooks/use-session';
 import { useModel } from '../../models/api/get-model';
 import { revisionsOf, useRevisions } from '../../models/api/list-revisions';
 import { canEdit } from '../../models/permissions';
@@ -50,6 +51,9 @@ function History({ model }: { model: SetupModelView }) {
   const list = revisionsOf(revisions.data?.pages);
   const pair = comparePair(picked, list);
   const editable = canEdit(model.role);
+  // A fork lands in a workspace the reader edits (this one or another); without one it cannot work.
+  const { workspaces } = useSession();
+  const canFork = workspaces.some((workspace) => canEdit(workspace.role));
 
   if (revisions.isPending) return <LoadingState label="Loading the history…" />;
   if (revisions.isError && !revisions.data)
@@ -103,7 +107,7 @@ function History({ model }: { model: SetupModelView }) {
         onPick={(id) => setPicked((current) => togglePick(current, id))}
         editable={editable}
         onRevert={setReverting}
-        onFork={setForking}
+        onFork={canFork ? setForking : undefined}
       />
       {revisions.hasNextPage && (
         <div className="mt-2 flex justify-center">

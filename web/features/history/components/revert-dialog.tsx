@@ -52,7 +52,11 @@ export function RevertDialog({
   return (
     <Dialog
       title={`Revert to revision ${revision.number}`}
-      description={`A new revision ${latest + 1} gets the content of revision ${revision.number}. Nothing is removed: revisions ${revision.number + 1} to ${latest} stay in the history.`}
+      description={`A new revision ${latest + 1} gets the content of revision ${revision.number}. Nothing is removed: ${
+        latest === revision.number + 1
+          ? `revision ${latest} stays`
+          : `revisions ${revision.number + 1} to ${latest} stay`
+      } in the history.`}
       onClose={onClose}
     >
       <form noValidate onSubmit={submit} className="space-y-4">

@@ -24,7 +24,8 @@ export interface RevisionTimelineProps {
   onPick: (id: string) => void;
   editable: boolean;
   onRevert: (revision: RevisionSummary) => void;
-  onFork: (revision: RevisionSummary) => void;
+  /** Absent when the reader can edit no workspace, so a fork could go nowhere. */
+  onFork?: (revision: RevisionSummary) => void;
 }
 
 /**
@@ -132,9 +133,11 @@ export function RevisionTimeline({
                       Revert to this
                     </Button>
                   )}
-                  <Button size="sm" variant="secondary" onClick={() => onFork(revision)}>
-                    Fork
-                  </Button>
+                  {onFork && (
+                    <Button size="sm" variant="secondary" onClick={() => onFork(revision)}>
+                      Fork
+                    </Button>
+                  )}
                 </div>
               </div>
             </article>

@@ -3,6 +3,7 @@ import { api, apiRequest } from '../../../lib/api-client';
 import type { Id } from '../../../types/api';
 import type { CreatedModel } from '../types';
 import { hangarQueryKey } from './list-models';
+import { paths } from '../../../lib/api-paths';
 
 export interface CreateModelInput {
   workspaceId: Id;
@@ -13,7 +14,7 @@ export interface CreateModelInput {
 }
 
 export async function createModel({ workspaceId, ...body }: CreateModelInput): Promise<CreatedModel> {
-  return (await api.post<CreatedModel>(`/api/workspaces/${encodeURIComponent(workspaceId)}/models`, body)).data;
+  return (await api.post<CreatedModel>(paths.workspaceModels(workspaceId), body)).data;
 }
 
 export interface UploadModelInput {
@@ -29,7 +30,7 @@ export async function uploadModel({ workspaceId, file, name, message }: UploadMo
   form.set('file', file);
   if (name) form.set('name', name);
   if (message) form.set('message', message);
-  const path = `/api/workspaces/${encodeURIComponent(workspaceId)}/models/upload`;
+  const path = paths.workspaceModelUpload(workspaceId);
   return (await apiRequest<CreatedModel>(path, { method: 'POST', body: form })).data;
 }
 
@@ -51,7 +52,7 @@ export async function forkModel({
   message,
 }: ForkModelInput): Promise<CreatedModel> {
   const body = { number, workspace: workspaceId, ...(name ? { name } : {}), ...(message ? { message } : {}) };
-  return (await api.post<CreatedModel>(`/api/models/${encodeURIComponent(modelId)}/fork`, body)).data;
+  return (await api.post<CreatedModel>(paths.modelFork(modelId), body)).data;
 }
 
 /** After a new model exists, the hangar it went into is out of date. */

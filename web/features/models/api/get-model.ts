@@ -2,9 +2,10 @@ import { queryOptions, useQuery } from '@tanstack/react-query';
 import { api } from '../../../lib/api-client';
 import type { Id } from '../../../types/api';
 import type { SetupModelView } from '../types';
+import { paths } from '../../../lib/api-paths';
 
 export async function getModel(modelId: Id, signal?: AbortSignal): Promise<SetupModelView> {
-  return (await api.get<SetupModelView>(`/api/models/${encodeURIComponent(modelId)}`, signal)).data;
+  return (await api.get<SetupModelView>(paths.model(modelId), signal)).data;
 }
 
 export const modelQueryKey = (modelId: Id) => ['models', modelId] as const;

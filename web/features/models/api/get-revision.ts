@@ -2,9 +2,10 @@ import { queryOptions, useQuery } from '@tanstack/react-query';
 import { api } from '../../../lib/api-client';
 import type { Id } from '../../../types/api';
 import type { Revision } from '../types';
+import { paths } from '../../../lib/api-paths';
 
 export async function getRevision(revisionId: Id, signal?: AbortSignal): Promise<Revision> {
-  return (await api.get<Revision>(`/api/revisions/${encodeURIComponent(revisionId)}`, signal)).data;
+  return (await api.get<Revision>(paths.revision(revisionId), signal)).data;
 }
 
 export const revisionQueryKey = (revisionId: Id) => ['revisions', revisionId] as const;
@@ -24,5 +25,4 @@ export function useRevision(revisionId: Id | null | undefined) {
 }
 
 /** Where the browser downloads a revision's YAML text as a file. */
-export const revisionDownloadUrl = (revisionId: Id) =>
-  `/api/revisions/${encodeURIComponent(revisionId)}?format=yaml&download=1`;
+export const revisionDownloadUrl = (revisionId: Id) => paths.revision(revisionId, { format: 'yaml', download: 1 });

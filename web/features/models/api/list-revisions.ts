@@ -2,6 +2,7 @@ import { infiniteQueryOptions, useInfiniteQuery } from '@tanstack/react-query';
 import { api } from '../../../lib/api-client';
 import type { Id } from '../../../types/api';
 import type { RevisionSummary } from '../types';
+import { paths } from '../../../lib/api-paths';
 
 export const REVISIONS_PAGE_SIZE = 50;
 
@@ -15,10 +16,8 @@ export async function listRevisions(
   modelId: Id,
   { before, limit = REVISIONS_PAGE_SIZE, signal }: { before?: number; limit?: number; signal?: AbortSignal } = {},
 ): Promise<RevisionsPage> {
-  const params = new URLSearchParams({ limit: String(limit) });
-  if (before !== undefined) params.set('before', String(before));
   const { data, pagination } = await api.get<RevisionSummary[]>(
-    `/api/models/${encodeURIComponent(modelId)}/revisions?${params}`,
+    paths.modelRevisions(modelId, { limit, before }),
     signal,
   );
   const next = pagination?.next_before;

@@ -1,6 +1,7 @@
 import { useQuery } from '@tanstack/react-query';
 import { useSearchParams } from 'react-router-dom';
 import { api } from '../../../lib/api-client';
+import { paths } from '../../../lib/api-paths';
 import type { Id } from '../../../types/api';
 import type { Revision } from '../types';
 import { useRevision } from './get-revision';
@@ -19,7 +20,7 @@ export function useAddressedRevision(modelId: Id, latestId: Id | null | undefine
   const number = useQuery({
     queryKey: ['models', modelId, 'revision-number', byNumber],
     queryFn: async ({ signal }) =>
-      (await api.get<Revision>(`/api/models/${encodeURIComponent(modelId)}/revisions/${byNumber}`, signal)).data.id,
+      (await api.get<Revision>(paths.modelRevisionNumber(modelId, byNumber!), signal)).data.id,
     enabled: byNumber !== null && modelId !== '',
     staleTime: Infinity,
   });

@@ -26,7 +26,8 @@ export function HangarScreen() {
   const { inUrl } = useCurrentWorkspace();
   const [params, update] = useQueryParams();
   const [creating, setCreating] = useState(false);
-  const hangar = useHangar(inUrl?.id ?? null);
+  const withArchived = params.get('archived') === 'show';
+  const hangar = useHangar(inUrl?.id ?? null, withArchived);
   const query = params.get('q') ?? '';
   const { column, direction } = sortFrom(params);
 
@@ -58,6 +59,17 @@ export function HangarScreen() {
         <LoadingState label="Loading the hangar…" />
       ) : hangar.isError ? (
         <ErrorState title="The hangar could not be loaded" error={hangar.error} onRetry={() => void hangar.refetch()} />
+      ) : hangar.data.models.length === 0 && hangar.data.archived > 0 ? (
+        <EmptyState
+          title="Every model here is archived"
+          action={
+            <Button variant="secondary" onClick={() => update({ archived: 'show' })}>
+              Show {hangar.data.archived} archived {hangar.data.archived === 1 ? 'model' : 'models'}
+            </Button>
+          }
+        >
+          Archived models are kept with their whole history; they are only left out of this list.
+        </EmptyState>
       ) : hangar.data.models.length === 0 ? (
         <EmptyState
           title="No models in this hangar yet"
@@ -83,6 +95,17 @@ export function HangarScreen() {
                 ? `${shown.length} of ${hangar.data.models.length} models`
                 : `${hangar.data.models.length} ${hangar.data.models.length === 1 ? 'model' : 'models'}`}
             </p>
+            {(hangar.data.archived > 0 || withArchived) && (
+              <label className="flex items-center gap-2 pb-2 text-sm text-ink-900">
+                <input
+                  type="checkbox"
+                  className="size-4 accent-accent-700"
+                  checked={withArchived}
+                  onChange={(event) => update({ archived: event.target.checked ? 'show' : null })}
+                />
+                Show archived models ({hangar.data.archived})
+              </label>
+            )}
           </div>
           {shown.length === 0 ? (
             <EmptyState

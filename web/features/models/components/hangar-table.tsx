@@ -1,5 +1,5 @@
 import { Link } from 'react-router-dom';
-import { ReviewStateBadge } from '../../../components/ui/badge';
+import { Badge, ReviewStateBadge } from '../../../components/ui/badge';
 import { Card } from '../../../components/ui/card';
 import { ChevronDownIcon } from '../../../components/ui/icons';
 import { cx } from '../../../lib/cx';
@@ -76,6 +76,11 @@ export function HangarTable({ models, sort, onSort }: HangarTableProps) {
                 <Link to={`/models/${model.id}/overview`} className="font-medium">
                   {model.name}
                 </Link>
+                {model.archived_at && (
+                  <Badge className="ml-2" tone="neutral">
+                    Archived
+                  </Badge>
+                )}
                 {model.forked_from && (
                   <span className="block text-sm text-ink-500">
                     fork of {model.forked_from.model_name ?? 'a model in another workspace'} r{model.forked_from.number}

@@ -1,6 +1,7 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { api } from '../../../lib/api-client';
 import type { OutboxMessage } from '../types';
+import { paths } from '../../../lib/api-paths';
 
 export interface OutboxPage {
   messages: OutboxMessage[];
@@ -8,7 +9,7 @@ export interface OutboxPage {
 }
 
 export async function getOutbox(signal?: AbortSignal): Promise<OutboxPage> {
-  const { data, pagination } = await api.get<OutboxMessage[]>('/api/outbox?limit=100', signal);
+  const { data, pagination } = await api.get<OutboxMessage[]>(paths.outbox({ limit: 100 }), signal);
   return { messages: data, total: typeof pagination?.total === 'number' ? pagination.total : data.length };
 }
 

@@ -53,11 +53,12 @@ export function ChannelGrid({ plan, onChoose }: { plan: ChannelPlan; onChoose?: 
 
   return (
     <Card className="overflow-x-auto">
-      <table className="w-full border-collapse text-left text-base">
+      {/* On a phone each channel is a block of its own lines, each naming its column, so nothing scrolls sideways. */}
+      <table className="w-full border-collapse text-left text-base max-sm:block">
         <caption className="sr-only">
           Channel plan: each channel's function, the receiver pins that carry it, and what the checks found
         </caption>
-        <thead className="border-b-2 border-ply-300 align-bottom text-sm text-ink-700">
+        <thead className="border-b-2 border-ply-300 align-bottom text-sm text-ink-700 max-sm:sr-only">
           <tr>
             <th scope="col" className="w-14 px-3 py-2 font-medium">
               Ch
@@ -79,14 +80,14 @@ export function ChannelGrid({ plan, onChoose }: { plan: ChannelPlan; onChoose?: 
             </th>
           </tr>
         </thead>
-        <tbody>
+        <tbody className="max-sm:block">
           {rows.map((row) => (
             <Fragment key={row.ch}>
               {linkChannels !== null && row.ch === linkChannels + 1 && (
-                <tr>
+                <tr className="max-sm:block">
                   <td
                     colSpan={columns}
-                    className="border-y-2 border-dashed border-ply-500 bg-ply-100 px-3 py-1.5 text-sm font-medium text-ink-700"
+                    className="border-y-2 max-sm:block border-dashed border-ply-500 bg-ply-100 px-3 py-1.5 text-sm font-medium text-ink-700"
                   >
                     Beyond the link: it carries {linkChannels} channels, so nothing below reaches a receiver
                   </td>
@@ -101,6 +102,10 @@ export function ChannelGrid({ plan, onChoose }: { plan: ChannelPlan; onChoose?: 
   );
 }
 
+// A cell as a line of its own under the channel on a phone, led by its column's name.
+const PHONE_LINE =
+  'max-sm:flex max-sm:basis-full max-sm:flex-wrap max-sm:items-start max-sm:gap-x-2 max-sm:border-l-0 max-sm:py-1 max-sm:pl-15 max-sm:before:w-full max-sm:before:text-sm max-sm:before:text-ink-700 max-sm:before:content-[attr(data-column)]';
+
 function ChannelRow({
   row,
   receivers,
@@ -110,15 +115,13 @@ function ChannelRow({
   receivers: PlanReceiver[];
   onChoose?: (setting: ChosenSetting) => void;
 }) {
-  const worst = row.marks.some((mark) => mark.finding.severity === 'error')
-    ? 'error'
-    : row.marks.length > 0
-      ? 'warning'
-      : null;
+  // Accepted findings and notes do not colour the row: only what is open and needs a look.
+  const open = row.marks.filter((mark) => mark.kind !== 'accepted' && mark.finding.severity !== 'info');
+  const worst = open.some((mark) => mark.finding.severity === 'error') ? 'error' : open.length > 0 ? 'warning' : null;
   return (
     <tr
       className={cx(
-        'border-b border-ply-100 align-top',
+        'border-b border-ply-100 align-top max-sm:flex max-sm:flex-wrap max-sm:py-1',
         row.beyondLink && 'bg-ply-100/60',
         worst === 'error' && 'bg-danger-100/40',
         worst === 'warning' && 'bg-caution-100/40',
@@ -127,7 +130,7 @@ function ChannelRow({
       <th
         scope="row"
         className={cx(
-          'border-l-4 px-3 py-2 font-mono text-base font-medium text-ink-900',
+          'border-l-4 px-3 py-2 font-mono text-base font-medium text-ink-900 max-sm:w-12 max-sm:shrink-0',
           worst === 'error' ? 'border-danger-700' : worst === 'warning' ? 'border-caution-700' : 'border-transparent',
         )}
       >
@@ -135,7 +138,7 @@ function ChannelRow({
           {row.ch}
         </Choosable>
       </th>
-      <td className="px-3 py-2">
+      <td className="px-3 py-2 max-sm:min-w-0 max-sm:flex-1">
         {row.functions.length === 0 ? (
           <span className="text-sm text-ink-500">free</span>
         ) : (
@@ -157,7 +160,12 @@ function ChannelRow({
       {receivers.map((receiver) => {
         const pins = row.pins[receiver.id] ?? [];
         return (
-          <td key={receiver.id} className="border-l border-ply-200 px-3 py-2">
+          <td
+            key={receiver.id}
+            data-column={receiverName(receiver)}
+            // A receiver that does not carry the channel takes no line on a phone.
+            className={cx('border-l border-ply-200 px-3 py-2', PHONE_LINE, pins.length === 0 && 'max-sm:hidden')}
+          >
             {pins.length === 0 ? (
               <span className="text-ink-500">
                 <span aria-hidden="true">·</span>
@@ -187,7 +195,10 @@ function ChannelRow({
           </td>
         );
       })}
-      <td className="border-l border-ply-200 px-3 py-2">
+      <td
+        data-column="Marks"
+        className={cx('border-l border-ply-200 px-3 py-2', PHONE_LINE, row.marks.length === 0 && 'max-sm:hidden')}
+      >
         {row.marks.length === 0 ? (
           <span className="text-sm text-ink-500">clear</span>
         ) : (

@@ -71,7 +71,28 @@ export const MARK_ICONS: Record<MarkKind, (props: IconProps) => React.ReactEleme
   unrouted: UnroutedIcon,
   'beyond-link': BeyondIcon,
   'no-function': EmptyIcon,
+  finding: FindingIcon,
+  accepted: AcceptedIcon,
 };
+
+/** A small flag: some other finding of the checks is about this channel. */
+function FindingIcon(props: IconProps) {
+  return (
+    <Icon {...props}>
+      <path d="M4 14V2.5M4 3h7l-1.5 2.5L11 8H4" />
+    </Icon>
+  );
+}
+
+/** A tick in a box: a finding looked at and accepted. */
+function AcceptedIcon(props: IconProps) {
+  return (
+    <Icon {...props}>
+      <rect x="2.5" y="2.5" width="11" height="11" rx="2" />
+      <path d="M5.5 8.2 7.2 10l3.3-4" />
+    </Icon>
+  );
+}
 
 /** A small radio mast: the receiver that sends telemetry. */
 export function TelemetryIcon(props: IconProps) {

@@ -144,6 +144,10 @@ function Overview({ model, revision }: { model: SetupModelView; revision: Revisi
           <h2 id="receivers-heading" className="mb-3 text-xl font-semibold text-ink-900">
             Receivers and their pins
           </h2>
+          <p className="-mt-2 mb-3 max-w-prose text-sm text-ink-700">
+            The primary receiver is the main one bound to the transmitter; a secondary receiver is an extra one bound to
+            the same transmitter for more pins, and usually leaves telemetry to the primary.
+          </p>
           <ReceiverStrips plan={plan} />
         </section>
       )}
@@ -185,6 +189,8 @@ const LEGEND: Record<MarkKind, string> = {
   unrouted: 'no receiver pin carries the channel',
   'beyond-link': 'the link does not carry the channel',
   'no-function': 'a pin carries a channel with no function planned',
+  finding: 'another finding is about this channel or a pin carrying it; the findings below say what',
+  accepted: 'a finding about this channel was accepted with a reason (see the findings)',
 };
 
 function MarkLegend({ kinds }: { kinds: MarkKind[] }) {
@@ -238,9 +244,9 @@ function Summary({
           </span>
         </Fact>
         <Fact label="Airframe">
-          <span className="capitalize">{model.airframe ?? 'not given'}</span>
+          {model.airframe ? <span className="capitalize">{model.airframe}</span> : 'not named in the setup'}
         </Fact>
-        <Fact label="Link">{linkChannels === null ? 'not given' : `${linkChannels} channels`}</Fact>
+        <Fact label="Link">{linkChannels === null ? 'not named in the setup' : `${linkChannels} channels`}</Fact>
         <Fact label="Receivers">{receivers}</Fact>
         <Fact label="Checks">
           <CheckBadges errors={revision.error_count} warnings={revision.warning_count} />

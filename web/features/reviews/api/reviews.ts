@@ -1,4 +1,11 @@
-import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import {
+  infiniteQueryOptions,
+  queryOptions,
+  useInfiniteQuery,
+  useMutation,
+  useQuery,
+  useQueryClient,
+} from '@tanstack/react-query';
 import { api } from '../../../lib/api-client';
 import type { Id } from '../../../types/api';
 import type {
@@ -11,6 +18,8 @@ import type {
   Verdict,
   VerdictEntry,
 } from '../types';
+import { paths } from '../../../lib/api-paths';
+import { getPage, offsetPaging, type Page } from '../../../lib/paged';
 
 export const reviewQueryKey = (reviewId: Id, base: BaseParam = null) =>
   ['reviews', reviewId, base ?? 'default'] as const;
@@ -19,32 +28,43 @@ const anyBaseKey = (reviewId: Id) => ['reviews', reviewId] as const;
 export const workspaceReviewsQueryKey = (workspaceId: Id) => ['workspaces', workspaceId, 'reviews'] as const;
 export const modelReviewsQueryKey = (modelId: Id) => ['models', modelId, 'reviews'] as const;
 
-export async function listWorkspaceReviews(workspaceId: Id, signal?: AbortSignal): Promise<ReviewSummary[]> {
-  return (
-    await api.get<ReviewSummary[]>(`/api/workspaces/${encodeURIComponent(workspaceId)}/reviews?limit=200`, signal)
-  ).data;
+export const REVIEWS_PAGE_SIZE = 50;
+
+export type ReviewStatus = 'open' | 'closed' | 'all';
+
+export function listWorkspaceReviews(
+  workspaceId: Id,
+  status: ReviewStatus,
+  offset: number,
+  signal?: AbortSignal,
+): Promise<Page<ReviewSummary>> {
+  const path = paths.workspaceReviews(workspaceId, { status, limit: REVIEWS_PAGE_SIZE, offset });
+  return getPage<ReviewSummary>(path, offset, signal);
 }
 
-export async function listModelReviews(modelId: Id, signal?: AbortSignal): Promise<ReviewSummary[]> {
-  return (await api.get<ReviewSummary[]>(`/api/models/${encodeURIComponent(modelId)}/reviews?limit=200`, signal)).data;
+export function listModelReviews(modelId: Id, offset: number, signal?: AbortSignal): Promise<Page<ReviewSummary>> {
+  return getPage<ReviewSummary>(paths.modelReviews(modelId, { limit: REVIEWS_PAGE_SIZE, offset }), offset, signal);
 }
 
 export async function getReview(reviewId: Id, base: BaseParam, signal?: AbortSignal): Promise<ReviewDetail> {
-  const query = base ? `?base=${encodeURIComponent(base)}` : '';
-  return (await api.get<ReviewDetail>(`/api/reviews/${encodeURIComponent(reviewId)}${query}`, signal)).data;
+  return (await api.get<ReviewDetail>(paths.review(reviewId, { base }), signal)).data;
 }
 
-export function workspaceReviewsQueryOptions(workspaceId: Id) {
-  return queryOptions({
-    queryKey: workspaceReviewsQueryKey(workspaceId),
-    queryFn: ({ signal }) => listWorkspaceReviews(workspaceId, signal),
+/** The workspace's open or decided reviews, newest first, a page at a time. */
+export function workspaceReviewsQueryOptions(workspaceId: Id, status: ReviewStatus) {
+  return infiniteQueryOptions({
+    queryKey: [...workspaceReviewsQueryKey(workspaceId), status],
+    queryFn: ({ pageParam, signal }) => listWorkspaceReviews(workspaceId, status, pageParam, signal),
+    ...offsetPaging,
   });
 }
 
+/** The model's reviews, newest first, a page at a time. */
 export function modelReviewsQueryOptions(modelId: Id) {
-  return queryOptions({
+  return infiniteQueryOptions({
     queryKey: modelReviewsQueryKey(modelId),
-    queryFn: ({ signal }) => listModelReviews(modelId, signal),
+    queryFn: ({ pageParam, signal }) => listModelReviews(modelId, pageParam, signal),
+    ...offsetPaging,
   });
 }
 
@@ -55,8 +75,9 @@ export function reviewQueryOptions(reviewId: Id, base: BaseParam = null) {
   });
 }
 
-export const useWorkspaceReviews = (workspaceId: Id) => useQuery(workspaceReviewsQueryOptions(workspaceId));
-export const useModelReviews = (modelId: Id) => useQuery(modelReviewsQueryOptions(modelId));
+export const useWorkspaceReviews = (workspaceId: Id, status: ReviewStatus) =>
+  useInfiniteQuery({ ...workspaceReviewsQueryOptions(workspaceId, status), enabled: workspaceId !== '' });
+export const useModelReviews = (modelId: Id) => useInfiniteQuery(modelReviewsQueryOptions(modelId));
 /** The review compared with `base`; the page keeps showing the last answer while another base loads. */
 export const useReview = (reviewId: Id, base: BaseParam = null) =>
   useQuery({ ...reviewQueryOptions(reviewId, base), placeholderData: (previous) => previous });
@@ -85,7 +106,7 @@ export interface RequestReviewInput {
 }
 
 export async function requestReview({ revisionId, ...body }: RequestReviewInput): Promise<ReviewSummary> {
-  return (await api.post<ReviewSummary>(`/api/revisions/${encodeURIComponent(revisionId)}/reviews`, body)).data;
+  return (await api.post<ReviewSummary>(paths.revisionReviews(revisionId), body)).data;
 }
 
 export function useRequestReview() {
@@ -104,12 +125,8 @@ export async function giveVerdict(
   reviewId: Id,
   input: VerdictInput,
 ): Promise<VerdictEntry & { review: { id: Id; state: string } }> {
-  return (
-    await api.post<VerdictEntry & { review: { id: Id; state: string } }>(
-      `/api/reviews/${encodeURIComponent(reviewId)}/verdicts`,
-      input,
-    )
-  ).data;
+  return (await api.post<VerdictEntry & { review: { id: Id; state: string } }>(paths.reviewVerdicts(reviewId), input))
+    .data;
 }
 
 export function useGiveVerdict(review: Pick<ReviewDetail, 'id' | 'workspace_id' | 'model'>) {
@@ -121,8 +138,7 @@ export function useGiveVerdict(review: Pick<ReviewDetail, 'id' | 'workspace_id' 
 }
 
 export async function tickItem(reviewId: Id, item: string, ticked: boolean): Promise<ChecklistEntry[]> {
-  return (await api.post<ChecklistEntry[]>(`/api/reviews/${encodeURIComponent(reviewId)}/checklist`, { item, ticked }))
-    .data;
+  return (await api.post<ChecklistEntry[]>(paths.reviewChecklist(reviewId), { item, ticked })).data;
 }
 
 /** Ticks at once on screen (a checkbox must answer the click), set right by the server's answer or undone on failure. */
@@ -162,19 +178,19 @@ export interface ThreadInput {
 }
 
 export async function startReviewThread(reviewId: Id, input: ThreadInput): Promise<CommentThread> {
-  return (await api.post<CommentThread>(`/api/reviews/${encodeURIComponent(reviewId)}/comments`, input)).data;
+  return (await api.post<CommentThread>(paths.reviewComments(reviewId), input)).data;
 }
 
 export async function startRevisionThread(revisionId: Id, input: ThreadInput): Promise<CommentThread> {
-  return (await api.post<CommentThread>(`/api/revisions/${encodeURIComponent(revisionId)}/comments`, input)).data;
+  return (await api.post<CommentThread>(paths.revisionComments(revisionId), input)).data;
 }
 
 export type ThreadStep = { kind: 'reply'; body: string } | { kind: 'resolve' } | { kind: 'reopen' };
 
 export async function stepThread(threadId: Id, step: ThreadStep): Promise<CommentThread> {
-  const path = `/api/comments/${encodeURIComponent(threadId)}`;
-  if (step.kind === 'reply') return (await api.post<CommentThread>(`${path}/replies`, { body: step.body })).data;
-  return (await api.post<CommentThread>(`${path}/${step.kind}`, {})).data;
+  if (step.kind === 'reply')
+    return (await api.post<CommentThread>(paths.commentReplies(threadId), { body: step.body })).data;
+  return (await api.post<CommentThread>(paths.commentStep(threadId, step.kind), {})).data;
 }
 
 export const revisionThreadsQueryKey = (revisionId: Id) => ['revisions', revisionId, 'comments'] as const;
@@ -185,12 +201,7 @@ export async function listThreads(
   status: CommentStatus,
   signal?: AbortSignal,
 ): Promise<CommentThread[]> {
-  return (
-    await api.get<CommentThread[]>(
-      `/api/revisions/${encodeURIComponent(revisionId)}/comments?status=${status}&limit=200`,
-      signal,
-    )
-  ).data;
+  return (await api.get<CommentThread[]>(paths.revisionComments(revisionId, { status, limit: 200 }), signal)).data;
 }
 
 export function useRevisionThreads(revisionId: Id | null | undefined, status: CommentStatus) {

@@ -12,6 +12,8 @@ import { useModel } from '../../models/api/get-model';
 import { canEdit } from '../../models/permissions';
 import type { SetupModelView } from '../../models/types';
 import { useModelReviews } from '../api/reviews';
+import { ShowMore } from '../../../components/ui/show-more';
+import { itemsOf, totalOf } from '../../../lib/paged';
 import { RequestReviewDialog } from './request-review-dialog';
 import { ReviewTable } from './review-table';
 
@@ -50,9 +52,8 @@ export function ModelReviewsScreen() {
 
   if (model.isPending) return <LoadingState label="Loading the model…" />;
   if (model.isError) return null;
-  const openOnLatest = reviews.data?.find(
-    (review) => review.state === 'open' && review.revision.id === model.data.latest?.id,
-  );
+  const loaded = itemsOf(reviews.data?.pages);
+  const openOnLatest = loaded.find((review) => review.state === 'open' && review.revision.id === model.data.latest?.id);
 
   return (
     <>
@@ -71,9 +72,7 @@ export function ModelReviewsScreen() {
             Cleared for its maiden
           </Badge>
         )}
-        <p className="text-base text-ink-700">
-          {stateSentence(model.data, Boolean(reviews.data && reviews.data.length > 0))}
-        </p>
+        <p className="text-base text-ink-700">{stateSentence(model.data, loaded.length > 0)}</p>
         {model.data.approved && model.data.approved.number !== model.data.latest?.number && (
           <p className="w-full text-sm text-ink-700">
             Cleared to fly: revision {model.data.approved.number}, approved by{' '}
@@ -87,20 +86,31 @@ export function ModelReviewsScreen() {
       {asking && <RequestReviewDialog model={model.data} onClose={() => setAsking(false)} />}
       {reviews.isPending ? (
         <LoadingState label="Loading the reviews…" />
-      ) : reviews.isError ? (
+      ) : !reviews.data ? (
         <ErrorState
           title="The reviews could not be loaded"
           error={reviews.error}
           onRetry={() => void reviews.refetch()}
         />
-      ) : reviews.data.length === 0 ? (
+      ) : loaded.length === 0 ? (
         <EmptyState title="No reviews of this model yet">
           {canEdit(model.data.role)
             ? 'Request a review when the setup is ready to fly.'
             : 'Owners and editors ask for reviews; reviewers then give their verdicts here.'}
         </EmptyState>
       ) : (
-        <ReviewTable reviews={reviews.data} caption={`Reviews of ${model.data.name}`} showModel={false} />
+        <>
+          <ReviewTable reviews={loaded} caption={`Reviews of ${model.data.name}`} showModel={false} />
+          <ShowMore
+            shown={loaded.length}
+            total={totalOf(reviews.data.pages)}
+            noun="reviews"
+            hasMore={reviews.hasNextPage}
+            pending={reviews.isFetchingNextPage}
+            error={reviews.isFetchNextPageError ? reviews.error : null}
+            onMore={() => void reviews.fetchNextPage()}
+          />
+        </>
       )}
     </>
   );

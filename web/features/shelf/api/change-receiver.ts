@@ -4,6 +4,7 @@ import { api } from '../../../lib/api-client';
 import type { Id } from '../../../types/api';
 import type { Applied, Installed, ShelfUnit, UnitInstall } from '../types';
 import { receiverQueryKey } from './get-receiver';
+import { paths } from '../../../lib/api-paths';
 
 // Every change to a unit refreshes the unit, its history, its checks and the shelf
 // lists it appears in; the field sheets show which unit sits in which slot, so they too.
@@ -20,7 +21,7 @@ export function useAddReceiver(workspaceId: Id) {
   const refresh = useRefresh();
   return useMutation({
     mutationFn: async (input: CreateReceiverInput) =>
-      (await api.post<ShelfUnit>(`/api/workspaces/${encodeURIComponent(workspaceId)}/receivers`, input)).data,
+      (await api.post<ShelfUnit>(paths.workspaceReceivers(workspaceId), input)).data,
     onSuccess: refresh,
   });
 }
@@ -29,7 +30,7 @@ export function useUpdateReceiver(receiverId: Id) {
   const refresh = useRefresh();
   return useMutation({
     mutationFn: async (input: UpdateReceiverInput) =>
-      (await api.patch<ShelfUnit>(`/api/receivers/${encodeURIComponent(receiverId)}`, input)).data,
+      (await api.patch<ShelfUnit>(paths.receiver(receiverId), input)).data,
     onSuccess: refresh,
   });
 }
@@ -38,7 +39,7 @@ export function useInstallReceiver(receiverId: Id) {
   const refresh = useRefresh();
   return useMutation({
     mutationFn: async (input: { model: Id; slot: string; move?: boolean }) =>
-      (await api.post<Installed>(`/api/receivers/${encodeURIComponent(receiverId)}/install`, input)).data,
+      (await api.post<Installed>(paths.receiverInstall(receiverId), input)).data,
     onSuccess: (data) => refresh(data.receiver),
   });
 }
@@ -47,11 +48,7 @@ export function useRemoveReceiver(receiverId: Id) {
   const refresh = useRefresh();
   return useMutation({
     mutationFn: async () =>
-      (
-        await api.post<{ receiver: ShelfUnit; install: UnitInstall }>(
-          `/api/receivers/${encodeURIComponent(receiverId)}/remove`,
-        )
-      ).data,
+      (await api.post<{ receiver: ShelfUnit; install: UnitInstall }>(paths.receiverRemove(receiverId))).data,
     onSuccess: (data) => refresh(data.receiver),
   });
 }
@@ -61,7 +58,7 @@ export function useApplySettings(receiverId: Id) {
   const refresh = useRefresh();
   return useMutation({
     mutationFn: async (input: { revision: Id }) =>
-      (await api.post<Applied>(`/api/receivers/${encodeURIComponent(receiverId)}/apply`, input)).data,
+      (await api.post<Applied>(paths.receiverApply(receiverId), input)).data,
     onSuccess: (data) => refresh(data.receiver),
   });
 }

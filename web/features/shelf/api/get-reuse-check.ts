@@ -3,6 +3,7 @@ import { api } from '../../../lib/api-client';
 import type { Id } from '../../../types/api';
 import type { ReuseCheckView } from '../types';
 import { receiverQueryKey } from './get-receiver';
+import { paths } from '../../../lib/api-paths';
 
 export async function getReuseCheck(
   receiverId: Id,
@@ -10,10 +11,7 @@ export async function getReuseCheck(
   slot: string,
   signal?: AbortSignal,
 ): Promise<ReuseCheckView> {
-  const params = new URLSearchParams({ model: modelId, slot });
-  return (
-    await api.get<ReuseCheckView>(`/api/receivers/${encodeURIComponent(receiverId)}/reuse-check?${params}`, signal)
-  ).data;
+  return (await api.get<ReuseCheckView>(paths.receiverReuseCheck(receiverId, { model: modelId, slot }), signal)).data;
 }
 
 export function reuseCheckQueryOptions(receiverId: Id, modelId: Id, slot: string) {

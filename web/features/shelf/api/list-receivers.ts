@@ -2,6 +2,7 @@ import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query'
 import { api } from '../../../lib/api-client';
 import type { Id } from '../../../types/api';
 import type { ShelfStatus, ShelfUnit } from '../types';
+import { paths } from '../../../lib/api-paths';
 
 export interface ShelfFilter {
   q?: string;
@@ -16,11 +17,8 @@ export interface ShelfPage {
 export const SHELF_PAGE_SIZE = 200;
 
 export async function listReceivers(workspaceId: Id, filter: ShelfFilter, signal?: AbortSignal): Promise<ShelfPage> {
-  const params = new URLSearchParams({ limit: String(SHELF_PAGE_SIZE) });
-  if (filter.q) params.set('q', filter.q);
-  if (filter.status) params.set('status', filter.status);
   const { data, pagination } = await api.get<ShelfUnit[]>(
-    `/api/workspaces/${encodeURIComponent(workspaceId)}/receivers?${params}`,
+    paths.workspaceReceivers(workspaceId, { limit: SHELF_PAGE_SIZE, q: filter.q || undefined, status: filter.status }),
     signal,
   );
   return { units: data, total: typeof pagination?.total === 'number' ? pagination.total : data.length };

@@ -12,7 +12,7 @@ export function AddReceiverDialog({ workspace, onClose }: { workspace: Workspace
   return (
     <Dialog
       title="Add a receiver to the shelf"
-      description="Its settings can be recorded on its own page, or applied from a model slot once it is installed."
+      description="Its settings can be recorded on its own page, or applied from a model's setup once it is installed as one of its receivers."
       onClose={onClose}
     >
       <ReceiverFieldsForm

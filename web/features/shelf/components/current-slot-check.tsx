@@ -19,7 +19,7 @@ export function CurrentSlotCheck({
   const apply = useApplySettings(unit.id);
   const toast = useToast();
 
-  if (check.isPending) return <LoadingState label="Checking the unit against its slot…" />;
+  if (check.isPending) return <LoadingState label="Checking the unit against the receiver it is installed as…" />;
   if (check.isError)
     return (
       <ErrorState title="The reuse check could not run" error={check.error} onRetry={() => void check.refetch()} />
@@ -43,7 +43,7 @@ export function CurrentSlotCheck({
                     onSuccess: () =>
                       toast({
                         title: 'Settings recorded',
-                        description: `${unit.label} now holds what slot ${unit.installed.slot} asks for.`,
+                        description: `${unit.label} now holds what receiver ${unit.installed.slot} of the setup asks for.`,
                       }),
                     onError: () => void check.refetch(),
                   },

@@ -55,7 +55,7 @@ export function InstallPanel({ unit, onDone }: { unit: ShelfUnit; onDone: () => 
       {
         onSuccess: (installed) => {
           toast({
-            title: `${unit.label} is in slot ${slot} of ${installed.model.name}`,
+            title: `${unit.label} is now receiver ${slot} of ${installed.model.name}`,
             description: installed.ready
               ? 'Its settings already match.'
               : `${installed.changes.length} settings to change before it flies.`,
@@ -84,7 +84,7 @@ export function InstallPanel({ unit, onDone }: { unit: ShelfUnit; onDone: () => 
           ))}
         </SelectField>
         <SelectField
-          label="Receiver slot"
+          label="As which receiver of the setup"
           value={slot}
           onChange={(event) => setSlot(event.target.value)}
           disabled={!model || latest.isPending}
@@ -96,7 +96,7 @@ export function InstallPanel({ unit, onDone }: { unit: ShelfUnit; onDone: () => 
                 ? 'Loading its receivers…'
                 : slots.length === 0
                   ? 'No readable receivers'
-                  : 'Choose a slot…'}
+                  : 'Choose a receiver…'}
           </option>
           {slots.map((candidate) => (
             <option key={candidate.id} value={candidate.id}>
@@ -113,7 +113,7 @@ export function InstallPanel({ unit, onDone }: { unit: ShelfUnit; onDone: () => 
       )}
       {target &&
         (check.isPending ? (
-          <LoadingState label="Checking the unit against this slot…" />
+          <LoadingState label="Checking the unit against this receiver…" />
         ) : check.isError ? (
           <ErrorState title="The reuse check could not run" error={check.error} onRetry={() => void check.refetch()} />
         ) : (
@@ -123,9 +123,9 @@ export function InstallPanel({ unit, onDone }: { unit: ShelfUnit; onDone: () => 
               <>
                 {check.data.holder && check.data.holder.id !== unit.id && (
                   <p role="status" className="w-full text-base text-caution-700">
-                    Slot {slot} holds{' '}
+                    Receiver {slot} is{' '}
                     <Link to={`/w/${unit.workspace_id}/shelf/${check.data.holder.id}`}>{check.data.holder.label}</Link>{' '}
-                    now: take it out first to put this unit in.
+                    now: take that unit out first to put this one in.
                   </p>
                 )}
                 <Button

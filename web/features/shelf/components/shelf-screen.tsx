@@ -1,5 +1,6 @@
 import { useDeferredValue, useState } from 'react';
-import { Button } from '../../../components/ui/button';
+import { Link } from 'react-router-dom';
+import { Button, buttonClasses } from '../../../components/ui/button';
 import { EmptyState } from '../../../components/ui/empty-state';
 import { ErrorState } from '../../../components/ui/error-state';
 import { LoadingState } from '../../../components/ui/loading-state';
@@ -44,13 +45,18 @@ export function ShelfScreen() {
         documentTitle={`Shelf · ${inUrl.name}`}
         description={`The receivers of ${inUrl.name}: the mark on each case, the settings each unit holds and where it is flying.`}
         actions={
-          editor ? (
-            <Button onClick={() => setAdding(true)}>Add receiver</Button>
-          ) : (
-            <p className="max-w-xs text-sm text-ink-700">
-              Your role here is {inUrl.role}: you can read the shelf; owners and editors change it.
-            </p>
-          )
+          <>
+            <Link to={`/w/${inUrl.id}/shelf/labels`} className={buttonClasses('secondary')}>
+              Print labels
+            </Link>
+            {editor ? (
+              <Button onClick={() => setAdding(true)}>Add receiver</Button>
+            ) : (
+              <p className="max-w-xs text-sm text-ink-700">
+                Your role here is {inUrl.role}: you can read the shelf; owners and editors change it.
+              </p>
+            )}
+          </>
         }
       />
       {adding && <AddReceiverDialog workspace={inUrl} onClose={() => setAdding(false)} />}
@@ -61,7 +67,7 @@ export function ShelfScreen() {
           type="search"
           value={query}
           onChange={(event) => update({ q: event.target.value || null })}
-          placeholder="Label, mark or notes"
+          placeholder="Label, mark, notes or short code"
           className="w-full max-w-sm"
         />
         <fieldset>
@@ -112,7 +118,7 @@ export function ShelfScreen() {
               </Button>
             }
           >
-            The search looks at each unit’s label, the mark on its case and its notes.
+            The search looks at each unit’s label, the mark on its case, its notes and the short code on its label.
           </EmptyState>
         ) : (
           <EmptyState

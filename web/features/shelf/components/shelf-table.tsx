@@ -18,6 +18,9 @@ export function ShelfTable({ units, workspaceId }: { units: ShelfUnit[]; workspa
             <th scope="col" className="px-3 py-2.5 font-medium">
               Mark
             </th>
+            <th scope="col" className="px-3 py-2.5 font-medium">
+              Code
+            </th>
             <th scope="col" className="px-3 py-2.5 text-right font-medium">
               Outputs
             </th>
@@ -45,6 +48,7 @@ export function ShelfTable({ units, workspaceId }: { units: ShelfUnit[]; workspa
               <td className="min-w-[9.5rem] px-3 py-3 text-ink-900">
                 <MarkLabel mark={unit.mark} colour={unit.mark_colour} />
               </td>
+              <td className="px-3 py-3 font-mono text-sm whitespace-nowrap">{unit.short_code}</td>
               <td className="px-3 py-3 text-right font-mono text-sm">{unit.outputs}</td>
               <td className="min-w-[11rem] px-3 py-3">
                 {unit.installed ? (

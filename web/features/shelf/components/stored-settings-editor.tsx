@@ -15,6 +15,10 @@ function rowOf(entry: { ch: number; failsafe: StoredFailsafe } | undefined): Row
   return { ch: String(entry.ch), failsafe: entry.failsafe === null ? '' : String(entry.failsafe) };
 }
 
+/** Which choice of the failsafe list a typed value stands for; anything but the words is a pulse. */
+const failsafeMode = (text: string): 'pulse' | 'hold' | 'off' | '' =>
+  text === '' || text === 'hold' || text === 'off' ? text : 'pulse';
+
 /** The failsafe as the format stores it; any other text as typed, for the server to refuse with its reason. */
 function failsafeOf(text: string): number | string | null {
   const value = text.trim().toLowerCase();
@@ -106,14 +110,32 @@ export function StoredSettingsEditor({
                     {chError && <p className="text-sm text-danger-700">{chError}</p>}
                   </td>
                   <td className="px-3 py-1.5">
-                    <input
-                      aria-label={`Failsafe of pin ${pin}`}
-                      value={row.failsafe}
-                      onChange={(event) => set(index, { failsafe: event.target.value })}
-                      aria-invalid={failsafeError ? true : undefined}
-                      placeholder="not set"
-                      className="h-9 w-28 rounded-md border border-ply-500 bg-paper-raised px-2 font-mono text-sm placeholder:text-ink-500"
-                    />
+                    <div className="flex flex-wrap items-center gap-1.5">
+                      <select
+                        aria-label={`Failsafe of pin ${pin}`}
+                        value={failsafeMode(row.failsafe)}
+                        onChange={(event) =>
+                          set(index, { failsafe: event.target.value === 'pulse' ? '1500' : event.target.value })
+                        }
+                        aria-invalid={failsafeError ? true : undefined}
+                        className="h-9 w-44 rounded-md border border-ply-500 bg-paper-raised px-2 text-sm"
+                      >
+                        <option value="pulse">Pulse (µs)</option>
+                        <option value="hold">Hold last pulse</option>
+                        <option value="off">Off (no pulses)</option>
+                        <option value="">Not set (the receiver&apos;s own default)</option>
+                      </select>
+                      {failsafeMode(row.failsafe) === 'pulse' && (
+                        <input
+                          aria-label={`Failsafe pulse of pin ${pin} in microseconds`}
+                          inputMode="numeric"
+                          value={row.failsafe}
+                          onChange={(event) => set(index, { failsafe: event.target.value })}
+                          aria-invalid={failsafeError ? true : undefined}
+                          className="h-9 w-20 rounded-md border border-ply-500 bg-paper-raised px-2 font-mono text-sm"
+                        />
+                      )}
+                    </div>
                     {failsafeError && <p className="text-sm text-danger-700">{failsafeError}</p>}
                   </td>
                 </tr>

@@ -14,7 +14,8 @@ export function StoredSettingsTable({
   if (!settings) {
     return (
       <p className="rounded-md border border-dashed border-ply-300 bg-paper px-4 py-3 text-base text-ink-700">
-        Not recorded yet. Install the unit into a slot and apply that slot’s settings, or record what it holds now.
+        Not recorded yet. Install the unit into a model as one of its receivers and apply that receiver’s settings, or
+        record what it holds now.
       </p>
     );
   }

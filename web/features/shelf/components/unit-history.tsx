@@ -3,6 +3,7 @@ import { plainText } from '@shared/parse/plain-text';
 import { EmptyState } from '../../../components/ui/empty-state';
 import { ErrorState } from '../../../components/ui/error-state';
 import { LoadingState } from '../../../components/ui/loading-state';
+import { ShowMore } from '../../../components/ui/show-more';
 import { exactTime } from '../../models/format-time';
 import { TimeAgo } from '../../models/components/time-ago';
 import { useReceiverHistory } from '../api/get-receiver';
@@ -15,29 +16,29 @@ const count = (value: unknown): number | null =>
 /** One line per recorded event, in the pilot's words. */
 function describe(event: UnitEvent): string {
   const d = event.details;
-  const where = `slot ${text(d.slot) ?? '?'} of ${text(d.model_name) ?? 'a model'}`;
+  const where = `${text(d.model_name) ?? 'a model'} as receiver ${text(d.slot) ?? '?'}`;
   switch (event.action) {
     case 'receiver.added':
       return 'Put on the shelf';
     case 'receiver.installed': {
       const changes = count(d.changes);
       const from = d.moved_from as { slot?: string; model_name?: string } | null;
-      const moved = from ? `, moved from slot ${from.slot} of ${from.model_name ?? 'a model'}` : '';
+      const moved = from ? `, moved from ${from.model_name ?? 'a model'} (receiver ${from.slot})` : '';
       const state = d.ready ? 'its settings already matched' : `${changes ?? 'some'} settings to change`;
       return `Installed in ${where} (revision ${plainText(d.revision_number ?? '?')}; ${state})${moved}`;
     }
     case 'receiver.removed':
       return d.moved_to
-        ? `Left ${where} for slot ${(d.moved_to as { slot?: string }).slot} of ${(d.moved_to as { model_name?: string }).model_name ?? 'a model'}`
+        ? `Left ${where} for ${(d.moved_to as { model_name?: string }).model_name ?? 'a model'} (receiver ${(d.moved_to as { slot?: string }).slot})`
         : `Removed from ${where}, back on the shelf`;
     case 'receiver.settings-applied':
-      return `Settings of ${where} applied (revision ${plainText(d.revision_number ?? '?')}, ${count(d.changes) ?? 0} changes)`;
+      return `Settings for ${where} applied (revision ${plainText(d.revision_number ?? '?')}, ${count(d.changes) ?? 0} changes)`;
     case 'receiver.updated': {
       const after = (d.after ?? {}) as Record<string, unknown>;
       const names = Object.keys(after).map((key) =>
-        key === 'stored_settings' ? 'stored settings recorded' : key.replace('_', ' '),
+        key === 'stored_settings' ? 'the pin map and failsafes it holds' : key.replace('_', ' '),
       );
-      return `Record changed: ${names.join(', ')}`;
+      return `Changed on its shelf record: ${names.join(', ')}`;
     }
     default:
       return event.action;
@@ -47,7 +48,7 @@ function describe(event: UnitEvent): string {
 export function UnitHistory({ receiverId }: { receiverId: string }) {
   const history = useReceiverHistory(receiverId);
   if (history.isPending) return <LoadingState label="Loading the history…" />;
-  if (history.isError)
+  if (!history.data)
     return (
       <ErrorState
         title="The history could not be loaded"
@@ -55,7 +56,10 @@ export function UnitHistory({ receiverId }: { receiverId: string }) {
         onRetry={() => void history.refetch()}
       />
     );
-  const { installs, events } = history.data;
+  const pages = history.data.pages;
+  const installs = pages.flatMap((page) => page.installs);
+  const events = pages.flatMap((page) => page.events);
+  const { totals } = pages[pages.length - 1];
   return (
     <div className="grid gap-6 lg:grid-cols-2">
       <section>
@@ -104,6 +108,18 @@ export function UnitHistory({ receiverId }: { receiverId: string }) {
           </ol>
         )}
       </section>
+      <div className="lg:col-span-2">
+        <ShowMore
+          shown={installs.length + events.length}
+          total={totals.installs + totals.events}
+          noun={`entries (${installs.length} of ${totals.installs} stays, ${events.length} of ${totals.events} records)`}
+          label="Show older history"
+          hasMore={history.hasNextPage}
+          pending={history.isFetchingNextPage}
+          error={history.isFetchNextPageError ? history.error : null}
+          onMore={() => void history.fetchNextPage()}
+        />
+      </div>
     </div>
   );
 }

@@ -1,6 +1,6 @@
 import { useState } from 'react';
 import { Link, useParams } from 'react-router-dom';
-import { Button } from '../../../components/ui/button';
+import { Button, buttonClasses } from '../../../components/ui/button';
 import { Card } from '../../../components/ui/card';
 import { Dialog } from '../../../components/ui/dialog';
 import { ErrorState } from '../../../components/ui/error-state';
@@ -146,14 +146,26 @@ export function UnitScreen() {
             <MarkLabel mark={data.mark} colour={data.mark_colour} />
             <span aria-hidden="true">·</span>
             <span>{data.outputs} outputs</span>
+            <span aria-hidden="true">·</span>
+            <span>
+              Short code <code className="font-mono text-base font-semibold text-ink-900">{data.short_code}</code>
+            </span>
           </span>
         }
         actions={
-          editor && (
-            <Button variant="secondary" onClick={() => setDialog('edit')}>
-              Edit details
-            </Button>
-          )
+          <>
+            <Link
+              to={`/w/${inUrl.id}/shelf/labels?units=${data.id}&sheet=single`}
+              className={buttonClasses('secondary')}
+            >
+              Print its label
+            </Link>
+            {editor && (
+              <Button variant="secondary" onClick={() => setDialog('edit')}>
+                Edit details
+              </Button>
+            )}
+          </>
         }
       />
       {dialog === 'edit' && <EditDetailsDialog unit={data} onClose={() => setDialog(null)} />}
@@ -169,7 +181,7 @@ export function UnitScreen() {
               !placing && (
                 <>
                   <Button variant="secondary" size="sm" onClick={() => setPlacing(true)}>
-                    {installed ? 'Move to another slot' : 'Install into a model'}
+                    {installed ? 'Move to another model or receiver' : 'Install into a model'}
                   </Button>
                   {installed && (
                     <Button variant="secondary" size="sm" onClick={() => setDialog('remove')}>
@@ -183,7 +195,7 @@ export function UnitScreen() {
             {installed ? (
               <div className="space-y-2">
                 <p className="text-base">
-                  In <Link to={`/models/${installed.model.id}/overview`}>{installed.model.name}</Link>, slot{' '}
+                  In <Link to={`/models/${installed.model.id}/overview`}>{installed.model.name}</Link>, as receiver{' '}
                   <code className="font-mono text-sm">{installed.slot}</code>, since{' '}
                   <time dateTime={installed.since}>{exactTime(installed.since)}</time>.
                 </p>
@@ -225,7 +237,7 @@ export function UnitScreen() {
         </div>
 
         {placing && (
-          <Section title={installed ? 'Move it to another slot' : 'Install it into a model'}>
+          <Section title={installed ? 'Move it to another model or receiver' : 'Install it into a model'}>
             <InstallPanel unit={data} onDone={() => setPlacing(false)} />
           </Section>
         )}

@@ -4,9 +4,10 @@ import { useNavigate } from 'react-router-dom';
 import type { Role, User } from '../../../types/api';
 import { meQueryOptions } from '../../auth/api/get-me';
 import type { InvitationPreview } from '../types';
+import { paths } from '../../../lib/api-paths';
 
 export async function getInvitation(token: string, signal?: AbortSignal): Promise<InvitationPreview> {
-  return (await api.get<InvitationPreview>(`/api/invitations/${encodeURIComponent(token)}`, signal)).data;
+  return (await api.get<InvitationPreview>(paths.invitation(token), signal)).data;
 }
 
 export function invitationQueryOptions(token: string) {
@@ -31,7 +32,7 @@ export async function acceptInvitation(
   token: string,
   account?: { name: string; password: string },
 ): Promise<AcceptAnswer> {
-  return (await api.post<AcceptAnswer>(`/api/invitations/${encodeURIComponent(token)}/accept`, account ?? {})).data;
+  return (await api.post<AcceptAnswer>(paths.acceptInvitation(token), account ?? {})).data;
 }
 
 /**

@@ -2,6 +2,7 @@ import { infiniteQueryOptions, useInfiniteQuery } from '@tanstack/react-query';
 import { api } from '../../../lib/api-client';
 import type { Id } from '../../../types/api';
 import type { AuditEvent } from '../types';
+import { paths } from '../../../lib/api-paths';
 
 export const AUDIT_PAGE_SIZE = 20;
 
@@ -15,9 +16,8 @@ export interface AuditPage {
 }
 
 export async function getAudit(workspaceId: Id, offset: number, signal?: AbortSignal): Promise<AuditPage> {
-  const params = new URLSearchParams({ limit: String(AUDIT_PAGE_SIZE), offset: String(offset) });
   const { data, pagination } = await api.get<AuditEvent[]>(
-    `/api/workspaces/${encodeURIComponent(workspaceId)}/audit?${params}`,
+    paths.workspaceAudit(workspaceId, { limit: AUDIT_PAGE_SIZE, offset }),
     signal,
   );
   const total = typeof pagination?.total === 'number' ? pagination.total : offset + data.length;

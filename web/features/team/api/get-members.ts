@@ -1,9 +1,10 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { api } from '../../../lib/api-client';
 import type { Id, Member } from '../../../types/api';
+import { paths } from '../../../lib/api-paths';
 
 export async function getMembers(workspaceId: Id, signal?: AbortSignal): Promise<Member[]> {
-  return (await api.get<Member[]>(`/api/workspaces/${encodeURIComponent(workspaceId)}/members`, signal)).data;
+  return (await api.get<Member[]>(paths.workspaceMembers(workspaceId), signal)).data;
 }
 
 export function membersQueryOptions(workspaceId: Id) {

@@ -1,25 +1,31 @@
-import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import { infiniteQueryOptions, useInfiniteQuery, useMutation, useQueryClient } from '@tanstack/react-query';
 import { api } from '../../../lib/api-client';
 import type { Id, Role } from '../../../types/api';
 import type { Invitation } from '../types';
 import { auditQueryKey } from './get-audit';
+import { paths } from '../../../lib/api-paths';
+import { getPage, offsetPaging, type Page } from '../../../lib/paged';
 
 export const invitationsQueryKey = (workspaceId: Id) => ['workspaces', workspaceId, 'invitations'] as const;
 
-export async function listInvitations(workspaceId: Id, signal?: AbortSignal): Promise<Invitation[]> {
-  return (await api.get<Invitation[]>(`/api/workspaces/${encodeURIComponent(workspaceId)}/invitations`, signal)).data;
+export const INVITATIONS_PAGE_SIZE = 50;
+
+export function listInvitations(workspaceId: Id, offset: number, signal?: AbortSignal): Promise<Page<Invitation>> {
+  const path = paths.workspaceInvitations(workspaceId, { limit: INVITATIONS_PAGE_SIZE, offset });
+  return getPage<Invitation>(path, offset, signal);
 }
 
 export function invitationsQueryOptions(workspaceId: Id) {
-  return queryOptions({
+  return infiniteQueryOptions({
     queryKey: invitationsQueryKey(workspaceId),
-    queryFn: ({ signal }) => listInvitations(workspaceId, signal),
+    queryFn: ({ pageParam, signal }) => listInvitations(workspaceId, pageParam, signal),
+    ...offsetPaging,
   });
 }
 
-/** Pending invitations; only owners may read them, so the query waits for `enabled`. */
+/** Pending invitations, newest first, a page at a time; only owners may read them, so the query waits for `enabled`. */
 export function useInvitations(workspaceId: Id, enabled: boolean) {
-  return useQuery({ ...invitationsQueryOptions(workspaceId), enabled });
+  return useInfiniteQuery({ ...invitationsQueryOptions(workspaceId), enabled });
 }
 
 export interface InviteInput {
@@ -28,15 +34,11 @@ export interface InviteInput {
 }
 
 export async function inviteMember(workspaceId: Id, input: InviteInput): Promise<Invitation> {
-  return (await api.post<Invitation>(`/api/workspaces/${encodeURIComponent(workspaceId)}/invitations`, input)).data;
+  return (await api.post<Invitation>(paths.workspaceInvitations(workspaceId), input)).data;
 }
 
 export async function revokeInvitation(workspaceId: Id, invitationId: Id): Promise<Invitation> {
-  return (
-    await api.delete<Invitation>(
-      `/api/workspaces/${encodeURIComponent(workspaceId)}/invitations/${encodeURIComponent(invitationId)}`,
-    )
-  ).data;
+  return (await api.delete<Invitation>(paths.workspaceInvitation(workspaceId, invitationId))).data;
 }
 
 function useRefreshTeam(workspaceId: Id) {

@@ -4,9 +4,9 @@ import { SESSION_QUERY_KEY } from '../../../lib/query-client';
 import type { Id, Member, Role } from '../../../types/api';
 import { auditQueryKey } from './get-audit';
 import { membersQueryOptions } from './get-members';
+import { paths } from '../../../lib/api-paths';
 
-const memberPath = (workspaceId: Id, userId: Id) =>
-  `/api/workspaces/${encodeURIComponent(workspaceId)}/members/${encodeURIComponent(userId)}`;
+const memberPath = (workspaceId: Id, userId: Id) => paths.workspaceMember(workspaceId, userId);
 
 export async function changeRole(workspaceId: Id, userId: Id, role: Role): Promise<Member> {
   return (await api.patch<Member>(memberPath(workspaceId, userId), { role })).data;

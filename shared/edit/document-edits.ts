@@ -10,7 +10,7 @@ import {
   type YAMLMap,
   type YAMLSeq,
 } from 'yaml';
-import { plainText } from '@shared/parse/plain-text';
+import { plainText } from '../parse/plain-text';
 
 // Form edits on the setup text. Each edit is applied through the yaml package's
 // Document API, which defines what the result means. The text is then changed only

@@ -1,5 +1,5 @@
 import { parseDocument } from 'yaml';
-import { applyEdits, readDocumentData, UnreadableTextError } from '@web/features/editor/document-edits';
+import { applyEdits, readDocumentData, UnreadableTextError } from '@shared/edit/document-edits';
 
 const setup = `# Two receivers; the wing unit was copied from the fuselage one.
 format: bindery-setup/1

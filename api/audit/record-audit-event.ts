@@ -7,6 +7,8 @@ export const AUDIT_ACTIONS = [
   'model.created',
   'model.renamed',
   'model.forked',
+  'model.archived',
+  'model.unarchived',
   'revision.saved',
   'revision.uploaded',
   'revision.reverted',
@@ -56,4 +58,30 @@ export async function recordAuditEvent(entry: AuditEntry, transaction: Transacti
     },
     { transaction },
   );
+}
+
+/** What `auditInsertSql` writes: an entry whose subject and time come from the row the same statement wrote. */
+export type StatementAuditEntry = Omit<AuditEntry, 'subjectId' | 'createdAt'>;
+
+/**
+ * The same entry as one part of a statement that writes the change itself, for the
+ * hot path where a separate round trip would hold a lock longer (the revision
+ * append). `source` names a CTE of that statement whose `id` and `created_at` become
+ * the entry's subject and time; with `auditBindings(null)` nothing is written.
+ */
+export function auditInsertSql(source: string): string {
+  return `INSERT INTO audit_events (workspace_id, actor_id, action, subject_type, subject_id, details, created_at)
+    SELECT $auditWorkspaceId::uuid, $auditActorId::uuid, $auditAction::text, $auditSubjectType::text, ${source}.id, $auditDetails::jsonb, ${source}.created_at
+      FROM ${source} WHERE $auditAction::text IS NOT NULL`;
+}
+
+/** The bind parameters `auditInsertSql` reads. */
+export function auditBindings(entry: StatementAuditEntry | null): Record<string, unknown> {
+  return {
+    auditWorkspaceId: entry?.workspaceId ?? null,
+    auditActorId: entry?.actor?.id ?? null,
+    auditAction: entry?.action ?? null,
+    auditSubjectType: entry?.subjectType ?? null,
+    auditDetails: JSON.stringify(entry?.details ?? {}),
+  };
 }

@@ -1,0 +1,118 @@
+import { QueryTypes, type Sequelize } from 'sequelize';
+import { ROLES, roleAtLeast, type Role } from '@shared/contract/roles';
+import { NotFound, roleTooLow } from '../errors';
+import { Revision, type User } from '../models';
+import type { RevisionOrigin } from '../models/Revision';
+import { MODEL_POLICY } from '../policies/model';
+import { idSchema } from '../validation';
+import type { AuditAction } from '../audit/record-audit-event';
+import { requireLatestBase } from '../revisions/check-base';
+import { airframeOf, type CheckedSetup } from '../revisions/check-setup';
+import { setupModelName } from '../revisions/follow-name';
+
+export interface SaveAtOnceInput {
+  modelId: unknown;
+  author: User;
+  base: number;
+  /** Read and checked before anything is asked of the database (checkSetupText). */
+  setup: CheckedSetup;
+  message: string;
+  origin: Extract<RevisionOrigin, 'save' | 'upload'>;
+}
+
+const AUDIT_FOR: Record<SaveAtOnceInput['origin'], AuditAction> = {
+  save: 'revision.saved',
+  upload: 'revision.uploaded',
+};
+
+// Everyone whose role may edit a model: the database function compares the caller's
+// role with this list, so the order of roles stays written once (shared/contract/roles).
+const EDITING_ROLES: readonly Role[] = ROLES.filter((role) => roleAtLeast(role, MODEL_POLICY.edit));
+
+interface SaveOutcome {
+  outcome: 'saved' | 'not-found' | 'role-too-low' | 'stale-base';
+  caller_role: Role | null;
+  revision_id: string | null;
+  revision_number: number | null;
+  revision_created_at: Date | null;
+  latest_id: string | null;
+  latest_number: number | null;
+}
+
+/**
+ * The API's save of a checked setup as one statement (the save_revision function,
+ * migration 0030): membership and role, the model's row lock, the base check, the
+ * insert, the model's airframe and the audit entry in one round trip that commits on
+ * its own. It refuses exactly as authorizeModel and saveRevision do: 404 for a model
+ * that does not exist or is another workspace's, 403 for a role below editor, 409
+ * `stale-base` when another save came first. The answer is built from what was sent
+ * and the few columns the database made (id, time), never read back.
+ */
+export async function saveRevisionAtOnce(sequelize: Sequelize, input: SaveAtOnceInput): Promise<Revision> {
+  const notFound = new NotFound('No such model.', { code: 'model-not-found' });
+  const modelId = idSchema.safeParse(input.modelId);
+  if (!modelId.success) throw notFound;
+  const { setup, author } = input;
+  const { data, findings, counts } = setup.analysis;
+  const [row] = await sequelize.query<SaveOutcome>(
+    `SELECT * FROM save_revision($modelId, $authorId, $roles, $base, $message, $yamlText, $document::jsonb, $contentHash,
+                                 $findings::jsonb, $errorCount, $warningCount, $infoCount, $origin, $airframe,
+                                 $auditAction, $auditDetails::jsonb, $modelName)`,
+    {
+      bind: {
+        modelId: modelId.data,
+        authorId: author.id,
+        roles: EDITING_ROLES,
+        base: input.base,
+        message: input.message,
+        yamlText: setup.text,
+        document: JSON.stringify(data),
+        contentHash: setup.contentHash,
+        findings: JSON.stringify(findings),
+        errorCount: counts.errors,
+        warningCount: counts.warnings,
+        infoCount: counts.infos,
+        origin: input.origin,
+        airframe: airframeOf(data),
+        auditAction: AUDIT_FOR[input.origin],
+        modelName: setupModelName(data),
+        auditDetails: JSON.stringify({
+          model_id: modelId.data,
+          content_hash: setup.contentHash,
+          errors: counts.errors,
+        }),
+      },
+      type: QueryTypes.SELECT,
+    },
+  );
+  if (!row || row.outcome === 'not-found' || !row.caller_role) throw notFound;
+  if (row.outcome === 'role-too-low') throw roleTooLow(MODEL_POLICY.edit, row.caller_role);
+  if (row.outcome === 'stale-base')
+    requireLatestBase(row.latest_id ? { id: row.latest_id, number: row.latest_number ?? 0 } : null, input.base);
+  if (row.outcome !== 'saved' || !row.revision_id || row.revision_number === null || !row.revision_created_at)
+    throw new Error(`save_revision answered ${JSON.stringify(row)}`);
+  // raw: a built instance that is not new ignores writes to its timestamps otherwise.
+  const revision = Revision.build(
+    {
+      id: row.revision_id,
+      modelId: modelId.data,
+      number: row.revision_number,
+      parentId: row.latest_id,
+      authorId: author.id,
+      message: input.message,
+      yamlText: setup.text,
+      document: data,
+      contentHash: setup.contentHash,
+      findings,
+      errorCount: counts.errors,
+      warningCount: counts.warnings,
+      infoCount: counts.infos,
+      origin: input.origin,
+      sourceRevisionId: null,
+      createdAt: new Date(row.revision_created_at),
+    },
+    { isNewRecord: false, raw: true },
+  );
+  revision.author = author;
+  return revision;
+}

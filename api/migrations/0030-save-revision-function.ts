@@ -1,0 +1,69 @@
+import type { MigrationParams } from 'umzug';
+import type { MigrationContext } from '../db/migrate';
+
+// A save through the API in one statement and one round trip: the caller's role, the
+// model's row lock, the base check, the revision, the model's airframe and change time
+// and the audit entry. Called outside a transaction it commits on its own, so a save
+// costs no BEGIN and no COMMIT round trip either. In READ COMMITTED every statement of
+// a VOLATILE plpgsql function takes a new snapshot, so the latest revision is read
+// after the lock is held and sees what a save that held it before committed (the same
+// reason lockModel in api/commands/save-revision.ts reads it with a second statement).
+// The roles allowed are passed in: the order of roles is the API's (shared/contract/roles).
+// It answers one row: outcome 'saved', 'not-found' (no model, or the caller is no
+// member), 'role-too-low' (with the caller's role) or 'stale-base' (with the latest).
+export async function up({ context: { sequelize } }: MigrationParams<MigrationContext>): Promise<void> {
+  await sequelize.query(`
+    CREATE FUNCTION save_revision(
+      p_model_id uuid, p_author_id uuid, p_allowed_roles text[], p_base integer, p_message text, p_yaml_text text,
+      p_document jsonb, p_content_hash text, p_findings jsonb, p_error_count integer, p_warning_count integer,
+      p_info_count integer, p_origin text, p_airframe text, p_audit_action text, p_audit_details jsonb
+    ) RETURNS TABLE (outcome text, caller_role text, revision_id uuid, revision_number integer,
+                     revision_created_at timestamptz, latest_id uuid, latest_number integer)
+    LANGUAGE plpgsql VOLATILE AS $$
+    DECLARE
+      v_workspace_id uuid;
+      v_airframe text;
+      v_role text;
+      v_latest_id uuid;
+      v_latest_number integer;
+      v_id uuid;
+      v_created_at timestamptz;
+    BEGIN
+      SELECT m.workspace_id, ms.role INTO v_workspace_id, v_role
+        FROM models m JOIN memberships ms ON ms.workspace_id = m.workspace_id AND ms.user_id = p_author_id
+       WHERE m.id = p_model_id;
+      IF NOT FOUND THEN
+        RETURN QUERY SELECT 'not-found'::text, NULL::text, NULL::uuid, NULL::integer, NULL::timestamptz, NULL::uuid, NULL::integer;
+        RETURN;
+      END IF;
+      IF NOT (v_role = ANY (p_allowed_roles)) THEN
+        RETURN QUERY SELECT 'role-too-low'::text, v_role, NULL::uuid, NULL::integer, NULL::timestamptz, NULL::uuid, NULL::integer;
+        RETURN;
+      END IF;
+      SELECT airframe INTO v_airframe FROM models WHERE id = p_model_id FOR UPDATE;
+      SELECT id, number INTO v_latest_id, v_latest_number
+        FROM revisions WHERE model_id = p_model_id ORDER BY number DESC LIMIT 1;
+      IF coalesce(v_latest_number, 0) <> p_base THEN
+        RETURN QUERY SELECT 'stale-base'::text, v_role, NULL::uuid, NULL::integer, NULL::timestamptz, v_latest_id,
+                            coalesce(v_latest_number, 0);
+        RETURN;
+      END IF;
+      INSERT INTO revisions (model_id, number, parent_id, author_id, message, yaml_text, document, content_hash, findings,
+                             error_count, warning_count, info_count, origin, created_at)
+      VALUES (p_model_id, p_base + 1, v_latest_id, p_author_id, p_message, p_yaml_text, p_document, p_content_hash,
+              p_findings, p_error_count, p_warning_count, p_info_count, p_origin, clock_timestamp())
+      RETURNING id, created_at INTO v_id, v_created_at;
+      UPDATE models SET airframe = coalesce(p_airframe, v_airframe), updated_at = v_created_at WHERE id = p_model_id;
+      IF p_audit_action IS NOT NULL THEN
+        INSERT INTO audit_events (workspace_id, actor_id, action, subject_type, subject_id, details, created_at)
+        VALUES (v_workspace_id, p_author_id, p_audit_action, 'revision', v_id,
+                p_audit_details || jsonb_build_object('number', p_base + 1), v_created_at);
+      END IF;
+      RETURN QUERY SELECT 'saved'::text, v_role, v_id, p_base + 1, v_created_at, v_latest_id, v_latest_number;
+    END
+    $$`);
+}
+
+export async function down({ context: { sequelize } }: MigrationParams<MigrationContext>): Promise<void> {
+  await sequelize.query('DROP FUNCTION IF EXISTS save_revision');
+}
