@@ -30,7 +30,7 @@ describe('the review page', () => {
     const wingPins = screen.getByRole('table', { name: 'Pins of receiver wing' });
     const pin3 = within(wingPins).getByRole('row', { name: /Pin 3/ });
     expect(within(pin3).getByText('Changed')).toBeInTheDocument();
-    expect(within(pin3).getByText('1500 us')).toBeInTheDocument();
+    expect(within(pin3).getByText('1500 µs')).toBeInTheDocument();
     const comments = screen.getByRole('list', { name: 'Open comments' });
     expect(within(comments).getByText('From revision 3')).toBeInTheDocument();
     expect(within(comments).getByText('Pin 1 of receiver wing')).toBeInTheDocument();
