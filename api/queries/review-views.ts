@@ -170,6 +170,15 @@ export async function threadsShownOn(revision: Revision, status: CommentStatus =
   );
 }
 
+/** The thread a comment belongs to (its first comment), with the revision it was written on. */
+export async function threadOf(comment: Pick<ReviewComment, 'id' | 'parentId'>): Promise<ReviewComment> {
+  return ReviewComment.findOne({
+    where: { id: comment.parentId ?? comment.id },
+    include: [{ model: Revision, as: 'revision', attributes: ['id', 'number'] }],
+    rejectOnEmpty: true,
+  });
+}
+
 /** The threads with their replies and the people named, shown on `revision`. */
 export async function presentThreadsOn(revision: Pick<Revision, 'id'>, threads: readonly ReviewComment[]) {
   const replies =

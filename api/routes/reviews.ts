@@ -7,7 +7,7 @@ import { tickChecklist } from '../commands/tick-checklist';
 import type { AppContext } from '../context';
 import { mailFor } from '../mail/context';
 import { authenticate, currentUser } from '../middleware/authenticate';
-import { ReviewComment, Revision, Workspace } from '../models';
+import { Workspace } from '../models';
 import { reviewPolicy } from '../policies/review';
 import { authorizeComment, authorizeModel, authorizeReview, authorizeRevision, authorizeWorkspace } from './authorize';
 import { presentVerdict } from '../presenters/review';
@@ -16,6 +16,7 @@ import {
   presentReviewList,
   presentThreadsOn,
   reviewDetail,
+  threadOf,
   threadsShownOn,
 } from '../queries/review-views';
 import { parseInput } from '../validation';
@@ -151,10 +152,7 @@ export function reviewsRouter(context: AppContext): Router {
     const input = step === 'reply' ? parseInput(replySchema, req.body) : parseInput(emptyBody, req.body ?? {});
     const { comment, workspace } = await authorizeComment(req, req.params.id, 'comment');
     await stepThread(sequelize, comment.id, workspace.id, currentUser(req), step, 'body' in input ? input.body : '');
-    const [thread] = await ReviewComment.findAll({
-      where: { id: comment.parentId ?? comment.id },
-      include: [{ model: Revision, as: 'revision', attributes: ['id', 'number'] }],
-    });
+    const thread = await threadOf(comment);
     const [presented] = await presentThreadsOn(comment.revision, [thread]);
     res.status(step === 'reply' ? 201 : 200).json({ data: presented });
   };
