@@ -1,6 +1,6 @@
 import type { Transaction } from 'sequelize';
 import type { Role } from '@shared/contract/roles';
-import { Receiver, Review, Revision, SetupModel, type Workspace } from '../models';
+import { Receiver, Review, ReviewComment, Revision, SetupModel, type Workspace } from '../models';
 import { callerMembershipJoin, callerRole, loadMembership } from './membership';
 
 // Each loader reads a record and the caller's role in its workspace (null when the
@@ -84,6 +84,29 @@ export async function loadReview(callerId: string, reviewId: string): Promise<Re
   const member = await loadMembership(callerId, review.workspaceId);
   return {
     review: review as ReviewAccess['review'],
+    workspace: member?.workspace ?? null,
+    role: member?.role ?? null,
+  };
+}
+
+export interface CommentAccess {
+  comment: ReviewComment & { revision: Revision; model: SetupModel };
+  workspace: Workspace | null;
+  role: Role | null;
+}
+
+/** A comment with its revision (in full, for presenting its thread) and model. */
+export async function loadComment(callerId: string, commentId: string): Promise<CommentAccess | null> {
+  const comment = await ReviewComment.findByPk(commentId, {
+    include: [
+      { model: Revision, as: 'revision', required: true },
+      { model: SetupModel, as: 'model', required: true },
+    ],
+  });
+  if (!comment?.revision || !comment.model) return null;
+  const member = await loadMembership(callerId, comment.model.workspaceId);
+  return {
+    comment: comment as CommentAccess['comment'],
     workspace: member?.workspace ?? null,
     role: member?.role ?? null,
   };

@@ -24,6 +24,9 @@ export const AUDIT_ACTIONS = [
   'review.requested',
   'review.verdict',
   'review.commented',
+  'comment.replied',
+  'comment.resolved',
+  'comment.reopened',
   'receiver.added',
   'receiver.updated',
   'receiver.installed',
@@ -37,7 +40,7 @@ export interface AuditEntry {
   workspaceId: string;
   actor: User | null;
   action: AuditAction;
-  subjectType: 'model' | 'revision' | 'tag' | 'invitation' | 'member' | 'review' | 'receiver' | 'workspace';
+  subjectType: 'model' | 'revision' | 'tag' | 'invitation' | 'member' | 'review' | 'receiver' | 'workspace' | 'comment';
   subjectId: string | null;
   details?: Record<string, unknown>;
   createdAt?: Date;

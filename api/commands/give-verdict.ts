@@ -1,9 +1,10 @@
-import type { Sequelize } from 'sequelize';
+import type { Sequelize, Transaction } from 'sequelize';
 import { Unprocessable } from '../errors';
 import { appLink } from '../mail/context';
 import type { MailService } from '../mail/mail-service';
 import { verdictMail } from '../mail/messages';
-import { ChecklistTick, Review, ReviewVerdict, rulesOf, User } from '../models';
+import { ChecklistTick, Review, ReviewVerdict, rulesOf, User, type Revision } from '../models';
+import type { LeftOpen } from '@shared/contract/review';
 import type { Verdict } from '../models/ReviewVerdict';
 import { PRE_MAIDEN_CHECKLIST } from '../reviews/checklist';
 import { approvalRefusal } from '../reviews/approval-refusal';
@@ -17,6 +18,38 @@ export interface VerdictInput {
   body: string;
   /** Checklist items to tick (true) or untick (false) along with the verdict. */
   checklist: Record<string, boolean>;
+  /** The approver has seen what is left (unticked items, open warnings) and approves all the same. */
+  confirmLeftOpen: boolean;
+}
+
+/** What an approval of this revision would leave undone, with the review's ticks as they now stand. */
+export async function leftOpenOf(review: Review, revision: Revision, transaction: Transaction): Promise<LeftOpen> {
+  const ticked = new Set(
+    (await ChecklistTick.findAll({ where: { reviewId: review.id }, attributes: ['item'], transaction })).map(
+      (tick) => tick.item,
+    ),
+  );
+  return {
+    unticked: PRE_MAIDEN_CHECKLIST.filter((item) => !ticked.has(item.id)).map(({ id, label }) => ({ id, label })),
+    // An accepted warning carries the pilot's reason and is not open (docs/format.md, accepted).
+    warnings: revision.findings
+      .filter((finding) => finding.severity === 'warning' && finding.accepted === undefined)
+      .map(({ rule, path, message }) => ({ rule, path, message })),
+  };
+}
+
+const nothingLeft = (left: LeftOpen) => left.unticked.length === 0 && left.warnings.length === 0;
+
+function confirmationNeeded(left: LeftOpen): Unprocessable {
+  const parts = [
+    left.unticked.length > 0 &&
+      `${left.unticked.length} checklist item${left.unticked.length === 1 ? ' is' : 's are'} not ticked`,
+    left.warnings.length > 0 && `${left.warnings.length} warning${left.warnings.length === 1 ? ' is' : 's are'} open`,
+  ].filter(Boolean);
+  return new Unprocessable(
+    `${parts.join(' and ')}: confirm that you approve with these left (send confirm_left_open: true), or finish them first.`,
+    { code: 'confirmation-needed', details: { left_open: left } },
+  );
 }
 
 /**
@@ -38,6 +71,16 @@ export async function giveVerdict(
   return sequelize.transaction(async (transaction) => {
     const review = await Review.findByPk(access.review.id, { lock: transaction.LOCK.UPDATE, transaction });
     if (!review) throw new Unprocessable('The review is gone.', { code: 'review-not-found' });
+    await setTicks(review, user, input.checklist, transaction);
+    let leftOpen: LeftOpen | null = null;
+    if (input.verdict === 'approve') {
+      const left = await leftOpenOf(review, revision, transaction);
+      if (!nothingLeft(left)) {
+        // Refused inside the transaction, so the ticks sent along are not kept either.
+        if (!input.confirmLeftOpen) throw confirmationNeeded(left);
+        leftOpen = left;
+      }
+    }
     const verdict = await ReviewVerdict.create(
       {
         reviewId: review.id,
@@ -45,10 +88,10 @@ export async function giveVerdict(
         verdict: input.verdict,
         body: input.body,
         contentHash: revision.contentHash,
+        leftOpen,
       },
       { transaction },
     );
-    await setTicks(review, user, input.checklist, transaction);
     const all = await ReviewVerdict.findAll({
       where: { reviewId: review.id },
       attributes: ['reviewerId', 'verdict', 'createdAt'],
@@ -71,6 +114,7 @@ export async function giveVerdict(
           revision_id: revision.id,
           number: revision.number,
           content_hash: revision.contentHash,
+          left_open: leftOpen,
         },
       },
       transaction,

@@ -1,9 +1,10 @@
-import { Op, type Sequelize } from 'sequelize';
+import { Op, type Sequelize, type Transaction } from 'sequelize';
 import { Conflict, Unprocessable } from '../errors';
 import { appLink } from '../mail/context';
 import type { MailService } from '../mail/mail-service';
 import { reviewRequestedMail } from '../mail/messages';
-import { Membership, Review, User, type Revision, type SetupModel, type Workspace } from '../models';
+import { ChecklistTick, Membership, Review, Revision, User, type SetupModel, type Workspace } from '../models';
+import { carriedItems } from '../reviews/carried-ticks';
 import { roleAtLeast } from '@shared/contract/roles';
 import { betweenRevisions } from '../reviews/between-revisions';
 import { contributorsOf } from '../reviews/contributors';
@@ -59,6 +60,53 @@ async function checkReviewers(input: ReviewRequest): Promise<User[]> {
 }
 
 /**
+ * Brings over the ticks of the model's last earlier review for the items whose parts of
+ * the setup are unchanged (reviews/carried-ticks.ts); answers the items carried.
+ */
+async function carryTicks(review: Review, revision: Revision, transaction: Transaction): Promise<string[]> {
+  const previous = await Review.findOne({
+    where: { modelId: review.modelId, id: { [Op.ne]: review.id } },
+    include: [
+      {
+        model: Revision,
+        as: 'revision',
+        required: true,
+        where: { number: { [Op.lte]: revision.number } },
+        attributes: ['id', 'number', 'document'],
+      },
+    ],
+    order: [
+      [{ model: Revision, as: 'revision' }, 'number', 'DESC'],
+      ['createdAt', 'DESC'],
+    ],
+    transaction,
+  });
+  if (!previous?.revision) return [];
+  const ticks = new Map(
+    (await ChecklistTick.findAll({ where: { reviewId: previous.id }, transaction })).map((tick) => [tick.item, tick]),
+  );
+  // The caller's revision may have been loaded without its document.
+  const current = await Revision.findByPk(revision.id, { attributes: ['id', 'number', 'document'], transaction });
+  if (!current) return [];
+  const carried = carriedItems(new Set(ticks.keys()), previous.revision, current);
+  for (const { item, reason } of carried) {
+    const tick = ticks.get(item)!;
+    await ChecklistTick.create(
+      {
+        reviewId: review.id,
+        item,
+        tickedBy: tick.tickedBy,
+        tickedAt: tick.tickedAt,
+        carriedFromReviewId: previous.id,
+        carriedReason: reason,
+      },
+      { transaction },
+    );
+  }
+  return carried.map(({ item }) => item);
+}
+
+/**
  * A review request for one revision, mailed to each reviewer. One open request per
  * revision: asking again while one is open would split the verdicts.
  */
@@ -89,6 +137,7 @@ export async function requestReview(sequelize: Sequelize, mail: MailService, inp
       },
       { transaction },
     );
+    const carried = await carryTicks(review, input.revision, transaction);
     await recordAuditEvent(
       {
         workspaceId: input.workspace.id,
@@ -102,6 +151,7 @@ export async function requestReview(sequelize: Sequelize, mail: MailService, inp
           revision_id: input.revision.id,
           number: input.revision.number,
           reviewers: reviewers.map((reviewer) => ({ id: reviewer.id, name: reviewer.name })),
+          carried_ticks: carried,
         },
       },
       transaction,

@@ -57,10 +57,9 @@ export interface ReviewMailSubject {
   url: string;
 }
 
+// The same words as the review page's base (web/features/reviews/components/review-screen.tsx).
 const BASE_WORDS: Record<NonNullable<BetweenRevisions['base']>['kind'], string> = {
   approved: 'the last approved revision',
-  parent: 'the revision before it',
-  'fork-source': 'the revision it was forked from',
 };
 
 const SEVERITY_WORDS = { error: 'Error', warning: 'Warning', info: 'Note' } as const;
@@ -73,7 +72,11 @@ const SEVERITY_ORDER = { error: 0, warning: 1, info: 2 } as const;
  */
 function betweenRevisionsParagraphs(between: BetweenRevisions, revision: number): string[] {
   if (!between.base)
-    return [`Between these revisions: revision ${revision} is the first; there is nothing to compare it with.`];
+    return [
+      revision === 1
+        ? 'Between these revisions: revision 1 is the first; there is nothing to compare it with.'
+        : `Between these revisions: no revision before revision ${revision} is approved, so the review shows the whole setup as new; on the review page you can compare it with the revision before it or any other.`,
+    ];
   const against = `${BASE_WORDS[between.base.kind]}, revision ${between.base.number}`;
   if (between.findings === null)
     return [

@@ -14,6 +14,7 @@ import * as passwordResetRequests from './0013-password-reset-requests';
 import * as saveRevisionFunction from './0030-save-revision-function';
 import * as compareCacheUnlogged from './0031-compare-cache-unlogged';
 import * as hangarAndShelfOrder from './0032-hangar-and-shelf-order';
+import * as reviewThreadsAndCarriedTicks from './0040-review-threads-and-carried-ticks';
 import * as modelArchive from './0050-model-archive';
 import * as saveFollowsModelName from './0059-save-follows-model-name';
 import * as receiverShortCodes from './0060-receiver-short-codes';
@@ -41,6 +42,7 @@ export const migrations: { name: string; module: MigrationModule }[] = [
   { name: '0030-save-revision-function', module: saveRevisionFunction },
   { name: '0031-compare-cache-unlogged', module: compareCacheUnlogged },
   { name: '0032-hangar-and-shelf-order', module: hangarAndShelfOrder },
+  { name: '0040-review-threads-and-carried-ticks', module: reviewThreadsAndCarriedTicks },
   { name: '0050-model-archive', module: modelArchive },
   { name: '0059-save-follows-model-name', module: saveFollowsModelName },
   { name: '0060-receiver-short-codes', module: receiverShortCodes },

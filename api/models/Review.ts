@@ -15,8 +15,9 @@ import type { SetupModel } from './SetupModel';
 import type { User } from './User';
 import type { Workspace } from './Workspace';
 
-export const REVIEW_REQUEST_STATES = ['open', 'approved', 'changes-requested'] as const;
-export type ReviewRequestState = (typeof REVIEW_REQUEST_STATES)[number];
+import { REVIEW_REQUEST_STATES, type ReviewRequestState } from '@shared/contract/review';
+
+export { REVIEW_REQUEST_STATES, type ReviewRequestState };
 
 /** A request for sign-off of one revision by chosen members; its state follows the verdicts. */
 export class Review extends Model<InferAttributes<Review>, InferCreationAttributes<Review>> {

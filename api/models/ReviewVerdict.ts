@@ -11,8 +11,9 @@ import {
 import type { Review } from './Review';
 import type { User } from './User';
 
-export const VERDICTS = ['approve', 'request-changes', 'comment'] as const;
-export type Verdict = (typeof VERDICTS)[number];
+import { VERDICTS, type LeftOpen, type Verdict } from '@shared/contract/review';
+
+export { VERDICTS, type Verdict };
 
 /** A reviewer's verdict, pinned to the content hash of the revision it was given on. Never updated. */
 export class ReviewVerdict extends Model<InferAttributes<ReviewVerdict>, InferCreationAttributes<ReviewVerdict>> {
@@ -22,6 +23,8 @@ export class ReviewVerdict extends Model<InferAttributes<ReviewVerdict>, InferCr
   declare verdict: Verdict;
   declare body: CreationOptional<string>;
   declare contentHash: string;
+  /** What an approval was confirmed with, left undone (unticked items, open warnings). */
+  declare leftOpen: CreationOptional<LeftOpen | null>;
   declare createdAt: CreationOptional<Date>;
 
   declare reviewer?: NonAttribute<User>;
@@ -33,6 +36,7 @@ export class ReviewVerdict extends Model<InferAttributes<ReviewVerdict>, InferCr
         verdict: { type: DataTypes.TEXT, allowNull: false, validate: { isIn: [[...VERDICTS]] } },
         body: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
         contentHash: { type: DataTypes.TEXT, allowNull: false },
+        leftOpen: { type: DataTypes.JSONB, allowNull: true },
         createdAt: DataTypes.DATE,
       },
       { sequelize, tableName: 'review_verdicts', modelName: 'ReviewVerdict', underscored: true, updatedAt: false },

@@ -102,7 +102,11 @@ export function initModels(sequelize: Sequelize): void {
   ReviewComment.belongsTo(Revision, { as: 'revision', foreignKey: 'revisionId' });
   ReviewComment.belongsTo(SetupModel, { as: 'model', foreignKey: 'modelId' });
   ReviewComment.belongsTo(User, { as: 'author', foreignKey: 'authorId' });
+  ReviewComment.belongsTo(User, { as: 'resolver', foreignKey: 'resolvedBy' });
+  ReviewComment.belongsTo(ReviewComment, { as: 'thread', foreignKey: 'parentId' });
+  ReviewComment.hasMany(ReviewComment, { as: 'replies', foreignKey: 'parentId' });
   ChecklistTick.belongsTo(Review, { as: 'review', foreignKey: 'reviewId' });
   ChecklistTick.belongsTo(User, { as: 'ticker', foreignKey: 'tickedBy' });
+  ChecklistTick.belongsTo(Review, { as: 'carriedFrom', foreignKey: 'carriedFromReviewId' });
   boundTo = sequelize;
 }

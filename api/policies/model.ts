@@ -8,6 +8,8 @@ export const MODEL_POLICY = {
   read: 'viewer',
   create: 'editor',
   edit: 'editor',
+  // Threads on a revision outside a review, as in a review (REVIEW_POLICY.comment).
+  comment: 'reviewer',
   audit: 'owner',
 } as const satisfies Record<string, Role>;
 

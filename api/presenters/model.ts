@@ -1,5 +1,6 @@
 import type { Revision, SetupModel } from '../models';
 import type { ForkSource as PresentedForkSource, SetupModelView } from '@shared/contract/model';
+import type { ApprovedRevision } from '@shared/contract/review';
 import type { Role } from '@shared/contract/roles';
 import { clearedForMaiden, type ReviewState } from '../review-state';
 import { presentLatest } from './revision';
@@ -17,6 +18,8 @@ export interface ModelView {
   /** The caller's role in the model's workspace. */
   role: Role;
   forkedFrom?: ForkSource | null;
+  /** The revision cleared to fly, when one is. */
+  approved?: ApprovedRevision | null;
 }
 
 function presentForkSource(source: ForkSource | null | undefined): PresentedForkSource | null {
@@ -46,6 +49,7 @@ export function presentModel(model: SetupModel, view: ModelView): SetupModelView
     latest: view.latest ? presentLatest(view.latest) : null,
     review_state: view.reviewState,
     cleared_for_maiden: clearedForMaiden(view.reviewState),
+    approved: view.approved ?? null,
     role: view.role,
   };
 }

@@ -1,5 +1,6 @@
 import type { ChecklistTick, Review, ReviewComment, ReviewVerdict, Revision, SetupModel, User } from '../models';
-import { PRE_MAIDEN_CHECKLIST } from '../reviews/checklist';
+import { coveredWords, PRE_MAIDEN_CHECKLIST } from '../reviews/checklist';
+import type { ChecklistEntry, CommentThread, ReviewSummary, VerdictEntry } from '@shared/contract/review';
 
 type Person = Pick<User, 'id' | 'name'>;
 const person = (user: Person | null | undefined) => (user ? { id: user.id, name: user.name } : null);
@@ -15,7 +16,7 @@ export interface ReviewListContext {
 export function presentReviewSummary(
   review: Review & { revision: Revision; model: SetupModel },
   context: ReviewListContext,
-) {
+): ReviewSummary {
   const latest = context.latest.get(review.modelId);
   return {
     id: review.id,
@@ -43,46 +44,71 @@ export function presentReviewSummary(
   };
 }
 
-export function presentVerdict(verdict: ReviewVerdict, users: Map<string, Person>) {
+export function presentVerdict(verdict: ReviewVerdict, users: Map<string, Person>): VerdictEntry {
   return {
     id: verdict.id,
     reviewer: person(users.get(verdict.reviewerId)),
     verdict: verdict.verdict,
     body: verdict.body,
     content_hash: verdict.contentHash,
+    left_open: verdict.leftOpen ?? null,
     created_at: verdict.createdAt.toISOString(),
   };
 }
 
-export function presentComment(
-  comment: ReviewComment,
+/** A thread: its first comment, the replies in order, and whether it is resolved. */
+export function presentThread(
+  thread: ReviewComment,
+  replies: readonly ReviewComment[],
   users: Map<string, Person>,
   revisions: Map<string, Pick<Revision, 'id' | 'number'>>,
   shownOn: string,
-) {
-  const revision = revisions.get(comment.revisionId);
+): CommentThread {
+  const revision = revisions.get(thread.revisionId);
   return {
-    id: comment.id,
-    review_id: comment.reviewId,
-    path: comment.path,
-    body: comment.body,
-    author: person(users.get(comment.authorId)),
-    revision: revision ? { id: revision.id, number: revision.number } : { id: comment.revisionId, number: null },
-    /** Made on an earlier revision and shown here because its path still exists. */
-    carried: comment.revisionId !== shownOn,
-    created_at: comment.createdAt.toISOString(),
+    id: thread.id,
+    review_id: thread.reviewId,
+    path: thread.path,
+    body: thread.body,
+    author: person(users.get(thread.authorId)),
+    revision: revision ? { id: revision.id, number: revision.number } : { id: thread.revisionId, number: null },
+    carried: thread.revisionId !== shownOn,
+    created_at: thread.createdAt.toISOString(),
+    replies: replies.map((reply) => ({
+      id: reply.id,
+      body: reply.body,
+      author: person(users.get(reply.authorId)),
+      created_at: reply.createdAt.toISOString(),
+    })),
+    resolved:
+      thread.resolvedAt && thread.resolvedBy
+        ? { by: person(users.get(thread.resolvedBy)), at: thread.resolvedAt.toISOString() }
+        : null,
   };
 }
 
-export function presentChecklist(ticks: readonly ChecklistTick[], users: Map<string, Person>) {
+export function presentChecklist(
+  ticks: readonly ChecklistTick[],
+  users: Map<string, Person>,
+  reviewNumbers: Map<string, number>,
+): ChecklistEntry[] {
   const byItem = new Map(ticks.map((tick) => [tick.item, tick]));
-  return PRE_MAIDEN_CHECKLIST.map((item) => {
+  return PRE_MAIDEN_CHECKLIST.map(({ covers, ...item }) => {
     const tick = byItem.get(item.id);
     return {
       ...item,
+      covers: covers ? coveredWords(covers) : null,
       ticked: Boolean(tick),
       ticked_by: tick ? person(users.get(tick.tickedBy)) : null,
       ticked_at: tick?.tickedAt.toISOString() ?? null,
+      carried:
+        tick?.carriedFromReviewId && tick.carriedReason
+          ? {
+              review_id: tick.carriedFromReviewId,
+              revision_number: reviewNumbers.get(tick.carriedFromReviewId) ?? null,
+              reason: tick.carriedReason,
+            }
+          : null,
     };
   });
 }

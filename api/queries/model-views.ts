@@ -4,6 +4,7 @@ import { Revision, SetupModel, Tag, User } from '../models';
 import type { Role } from '@shared/contract/roles';
 import { presentModel, type ForkSource, type PresentedModel } from '../presenters/model';
 import { reviewStateOf } from '../review-state';
+import { approvedRevisions } from './approved-revisions';
 
 const SUMMARY_ATTRIBUTES = { exclude: ['yamlText', 'document', 'findings'] };
 
@@ -53,9 +54,10 @@ export async function forkSources(models: readonly SetupModel[], user: User): Pr
 
 /** Models as the hangar and the model page present them: latest revision, review state, lineage. */
 export async function presentModels(models: readonly SetupModel[], role: Role, user: User): Promise<PresentedModel[]> {
-  const [latest, sources] = await Promise.all([
+  const [latest, sources, approved] = await Promise.all([
     latestRevisions(models.map((model) => model.id)),
     forkSources(models, user),
+    approvedRevisions(models.map((model) => model.id)),
   ]);
   const states = await reviewStateOf([...latest.values()]);
   return models.map((model) => {
@@ -65,6 +67,7 @@ export async function presentModels(models: readonly SetupModel[], role: Role, u
       reviewState: (revision && states.get(revision.id)) || 'none',
       role,
       forkedFrom: sources.get(model.id) ?? null,
+      approved: approved.get(model.id) ?? null,
     });
   });
 }

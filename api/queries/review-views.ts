@@ -1,12 +1,15 @@
 import { Op, QueryTypes, type Transaction } from 'sequelize';
 import { compareRevisions } from '@shared/diff';
+import { reviewPlan } from '@shared/diff/review-plan';
+import type { CommentStatus, ReviewDetail } from '@shared/contract/review';
+import { Unprocessable } from '../errors';
 import { ChecklistTick, Review, ReviewComment, ReviewVerdict, Revision, SetupModel, User } from '../models';
 import type { GrantedReview } from '../access/records';
 import { approvalRefusal } from '../reviews/approval-refusal';
 import { reviewPolicy } from '../policies/review';
 import {
   presentChecklist,
-  presentComment,
+  presentThread,
   presentReviewSummary,
   presentVerdict,
   type ReviewListContext,
@@ -66,15 +69,11 @@ export async function presentReviewList(reviews: readonly LoadedReview[]) {
   return reviews.map((review) => presentReviewSummary(review, context));
 }
 
-/**
- * What a review compares against: the model's last approved revision before this one,
- * else its parent, else (for a fork's first revision) the revision it was forked from.
- */
-export async function baseRevisionFor(
-  revision: Revision,
-  /** For a caller inside a transaction that wrote the revisions (the demo seed). */
-  transaction?: Transaction,
-): Promise<{ kind: 'approved' | 'parent' | 'fork-source'; revision: Revision } | null> {
+/** The reviewed revision's base as the caller asked for it: a kind by name, or a revision by number or id. */
+export type BaseChoice = 'default' | 'approved' | 'previous' | 'none' | { number: number } | { id: string };
+
+/** The model's last approved revision before this one, if there is one. */
+async function lastApprovedBefore(revision: Revision, transaction?: Transaction): Promise<Revision | null> {
   const [row] = await Revision.sequelize!.query<{ id: string }>(
     `SELECT rv.id FROM revisions rv
       WHERE rv.model_id = $model AND rv.number < $number
@@ -82,26 +81,75 @@ export async function baseRevisionFor(
       ORDER BY rv.number DESC LIMIT 1`,
     { bind: { model: revision.modelId, number: revision.number }, type: QueryTypes.SELECT, transaction },
   );
-  const approved = row ? await Revision.findByPk(row.id, { transaction }) : null;
-  if (approved) return { kind: 'approved', revision: approved };
-  if (revision.parentId) {
-    const parent = await Revision.findByPk(revision.parentId, { transaction });
-    if (parent) return { kind: 'parent', revision: parent };
+  return row ? Revision.findByPk(row.id, { transaction }) : null;
+}
+
+const previousOf = (revision: Revision, transaction?: Transaction) =>
+  revision.number > 1
+    ? Revision.findOne({ where: { modelId: revision.modelId, number: revision.number - 1 }, transaction })
+    : null;
+
+const baseRefused = (message: string, code: string) =>
+  new Unprocessable(message, { code, details: { fields: { base: message } } });
+
+/**
+ * What a review compares against. By default the model's last approved revision before
+ * this one, else nothing: a first review shows the whole setup as new rather than the
+ * last small edit. The reviewer may choose the previous revision or any other.
+ */
+export async function baseRevisionFor(
+  revision: Revision,
+  choice: BaseChoice,
+  /** For a caller inside a transaction that wrote the revisions (the demo seed). */
+  transaction?: Transaction,
+): Promise<{
+  base: { kind: 'approved' | 'previous' | 'chosen'; revision: Revision } | null;
+  options: { approved: Revision | null; previous: Revision | null };
+}> {
+  const [approved, previous] = await Promise.all([
+    lastApprovedBefore(revision, transaction),
+    previousOf(revision, transaction),
+  ]);
+  const options = { approved, previous };
+  if (choice === 'none') return { base: null, options };
+  if (choice === 'default') return { base: approved ? { kind: 'approved', revision: approved } : null, options };
+  if (choice === 'approved') {
+    if (!approved)
+      throw baseRefused(
+        `No revision before revision ${revision.number} is approved; compare with the previous one or choose one.`,
+        'no-approved-base',
+      );
+    return { base: { kind: 'approved', revision: approved }, options };
   }
-  if (revision.origin === 'fork' && revision.sourceRevisionId) {
-    const source = await Revision.findByPk(revision.sourceRevisionId, { transaction });
-    if (source) return { kind: 'fork-source', revision: source };
+  if (choice === 'previous') {
+    if (!previous) throw baseRefused('Revision 1 has no revision before it.', 'no-previous-base');
+    return { base: { kind: 'previous', revision: previous }, options };
   }
-  return null;
+  const chosen = await Revision.findOne({
+    where: { modelId: revision.modelId, ...('number' in choice ? { number: choice.number } : { id: choice.id }) },
+    transaction,
+  });
+  if (!chosen)
+    throw baseRefused(
+      `${'number' in choice ? `Revision ${choice.number}` : 'That revision'} is not one of this model’s revisions.`,
+      'base-not-found',
+    );
+  if (chosen.id === revision.id)
+    throw baseRefused('Compare the reviewed revision with another one, not with itself.', 'base-is-reviewed');
+  return { base: { kind: 'chosen', revision: chosen }, options };
 }
 
 /**
- * The comments to show on a revision: its own, and the anchored comments made on the
- * model's earlier revisions whose path still exists in this revision's document.
+ * The threads to show on a revision: its own, and those started on the model's earlier
+ * revisions whose setting still exists in this revision's document; oldest first.
  */
-export async function commentsShownOn(revision: Revision): Promise<ReviewComment[]> {
+export async function threadsShownOn(revision: Revision, status: CommentStatus = 'all'): Promise<ReviewComment[]> {
   const candidates = await ReviewComment.findAll({
-    where: { modelId: revision.modelId },
+    where: {
+      modelId: revision.modelId,
+      parentId: null,
+      ...(status === 'open' ? { resolvedAt: null } : status === 'resolved' ? { resolvedAt: { [Op.ne]: null } } : {}),
+    },
     include: [
       {
         model: Revision,
@@ -122,21 +170,61 @@ export async function commentsShownOn(revision: Revision): Promise<ReviewComment
   );
 }
 
-export async function presentCommentsOn(revision: Revision, comments: readonly ReviewComment[]) {
-  const users = await usersById(comments.map((comment) => comment.authorId));
-  const revisions = new Map(
-    comments.flatMap((comment) => (comment.revision ? [[comment.revisionId, comment.revision] as const] : [])),
-  );
-  return comments.map((comment) => presentComment(comment, users, revisions, revision.id));
+/** The thread a comment belongs to (its first comment), with the revision it was written on. */
+export async function threadOf(comment: Pick<ReviewComment, 'id' | 'parentId'>): Promise<ReviewComment> {
+  return ReviewComment.findOne({
+    where: { id: comment.parentId ?? comment.id },
+    include: [{ model: Revision, as: 'revision', attributes: ['id', 'number'] }],
+    rejectOnEmpty: true,
+  });
 }
 
-/** Everything the review page shows. */
-export async function reviewDetail(access: GrantedReview, caller: User) {
+/** The threads with their replies and the people named, shown on `revision`. */
+export async function presentThreadsOn(revision: Pick<Revision, 'id'>, threads: readonly ReviewComment[]) {
+  const replies =
+    threads.length === 0
+      ? []
+      : await ReviewComment.findAll({
+          where: { parentId: threads.map((thread) => thread.id) },
+          order: [
+            ['createdAt', 'ASC'],
+            ['id', 'ASC'],
+          ],
+        });
+  const byThread = new Map<string, ReviewComment[]>();
+  for (const reply of replies) byThread.set(reply.parentId!, [...(byThread.get(reply.parentId!) ?? []), reply]);
+  const users = await usersById([
+    ...threads.flatMap((thread) => [thread.authorId, ...(thread.resolvedBy ? [thread.resolvedBy] : [])]),
+    ...replies.map((reply) => reply.authorId),
+  ]);
+  const revisions = new Map(
+    threads.flatMap((thread) => (thread.revision ? [[thread.revisionId, thread.revision] as const] : [])),
+  );
+  return threads.map((thread) => presentThread(thread, byThread.get(thread.id) ?? [], users, revisions, revision.id));
+}
+
+/** The numbers of the revisions the given reviews were of, keyed by review id. */
+async function reviewedNumbers(reviewIds: readonly string[]): Promise<Map<string, number>> {
+  if (reviewIds.length === 0) return new Map();
+  const reviews = await Review.findAll({
+    where: { id: [...new Set(reviewIds)] },
+    attributes: ['id'],
+    include: [{ model: Revision, as: 'revision', attributes: ['number'] }],
+  });
+  return new Map(reviews.flatMap((review) => (review.revision ? [[review.id, review.revision.number] as const] : [])));
+}
+
+/** Everything the review page shows, compared with the base the caller chose. */
+export async function reviewDetail(
+  access: GrantedReview,
+  caller: User,
+  choice: BaseChoice = 'default',
+): Promise<ReviewDetail> {
   const { review } = access;
   const revision = review.revision;
-  const [context, base, verdicts, ticks, comments] = await Promise.all([
+  const [context, { base, options }, verdicts, ticks, threads] = await Promise.all([
     reviewListContext([review]),
-    baseRevisionFor(revision),
+    baseRevisionFor(revision, choice),
     ReviewVerdict.findAll({
       where: { reviewId: review.id },
       order: [
@@ -145,12 +233,15 @@ export async function reviewDetail(access: GrantedReview, caller: User) {
       ],
     }),
     ChecklistTick.findAll({ where: { reviewId: review.id } }),
-    commentsShownOn(revision),
+    threadsShownOn(revision),
   ]);
-  const users = await usersById([
-    ...verdicts.map((verdict) => verdict.reviewerId),
-    ...ticks.map((tick) => tick.tickedBy),
-    ...(base ? [base.revision.authorId] : []),
+  const [users, carriedNumbers] = await Promise.all([
+    usersById([
+      ...verdicts.map((verdict) => verdict.reviewerId),
+      ...ticks.map((tick) => tick.tickedBy),
+      ...(base ? [base.revision.authorId] : []),
+    ]),
+    reviewedNumbers(ticks.flatMap((tick) => (tick.carriedFromReviewId ? [tick.carriedFromReviewId] : []))),
   ]);
   for (const [id, user] of context.users) users.set(id, user);
   const latest = context.latest.get(review.modelId);
@@ -161,21 +252,24 @@ export async function reviewDetail(access: GrantedReview, caller: User) {
     entry.author = users.get(entry.authorId);
     return presentRevisionSummary(entry, []);
   };
+  const pointer = (entry: Revision | null) => (entry ? { id: entry.id, number: entry.number } : null);
 
   return {
     ...presentReviewSummary(review, context),
     revision: summarise(revision),
     findings: revision.findings,
     base: base ? { kind: base.kind, revision: summarise(base.revision) } : null,
+    base_options: { approved: pointer(options.approved), previous: pointer(options.previous) },
     compare: base
       ? compareRevisions(
           { text: base.revision.yamlText, data: base.revision.document, findings: base.revision.findings },
           { text: revision.yamlText, data: revision.document, findings: revision.findings },
         )
       : null,
-    checklist: presentChecklist(ticks, users),
+    plan: reviewPlan(revision.document, base ? base.revision.document : null),
+    checklist: presentChecklist(ticks, users, carriedNumbers),
     verdicts: verdicts.map((verdict) => presentVerdict(verdict, users)),
-    comments: await presentCommentsOn(revision, comments),
+    comments: await presentThreadsOn(revision, threads),
     model_state: { review_state: modelState, cleared_for_maiden: clearedForMaiden(modelState) },
     can: {
       verdict: canVerdict,

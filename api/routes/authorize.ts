@@ -2,11 +2,13 @@ import type { Request } from 'express';
 import type { Role } from '@shared/contract/roles';
 import { loadMembership, type Member } from '../access/membership';
 import {
+  loadComment,
   loadModel,
   loadModelInWorkspace,
   loadReceiver,
   loadReview,
   loadRevision,
+  type CommentAccess,
   type Granted,
   type GrantedReview,
   type LargeField,
@@ -47,6 +49,7 @@ const modelNotFound = () => new NotFound('No such model.', { code: 'model-not-fo
 const revisionNotFound = () => new NotFound('No such revision.', { code: 'revision-not-found' });
 const receiverNotFound = () => new NotFound('No such receiver.', { code: 'receiver-not-found' });
 const reviewNotFound = () => new NotFound('No such review.', { code: 'review-not-found' });
+const commentNotFound = () => new NotFound('No such comment.', { code: 'comment-not-found' });
 
 /** The workspace for an action under the policy that owns it (the workspace's own, the models', the shelf's, the reviews'). */
 export async function authorizeWorkspace<A>(
@@ -107,6 +110,18 @@ export async function authorizeReview(req: Request, reviewId: unknown, action: R
   const loaded = await loadReview(currentUser(req).id, idOrNotFound(reviewId, reviewNotFound));
   if (!loaded) throw reviewNotFound();
   const role = enforce(reviewPolicy(loaded.role, action), loaded.role, reviewNotFound);
+  return { ...loaded, role, workspace: loaded.workspace! };
+}
+
+/** A comment of a thread, under the reviews' policy (threads on a revision outside a review too). */
+export async function authorizeComment(
+  req: Request,
+  commentId: unknown,
+  action: ReviewAction,
+): Promise<Granted<CommentAccess>> {
+  const loaded = await loadComment(currentUser(req).id, idOrNotFound(commentId, commentNotFound));
+  if (!loaded) throw commentNotFound();
+  const role = enforce(reviewPolicy(loaded.role, action), loaded.role, commentNotFound);
   return { ...loaded, role, workspace: loaded.workspace! };
 }
 

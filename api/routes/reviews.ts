@@ -1,7 +1,7 @@
-import { Router } from 'express';
+import { Router, type Request, type Response } from 'express';
 import { Op } from 'sequelize';
-import { commentOnReview } from '../commands/comment-on-review';
 import { giveVerdict } from '../commands/give-verdict';
+import { startThread, stepThread, type ThreadStep } from '../commands/comment-threads';
 import { requestReview } from '../commands/request-review';
 import { tickChecklist } from '../commands/tick-checklist';
 import type { AppContext } from '../context';
@@ -9,24 +9,33 @@ import { mailFor } from '../mail/context';
 import { authenticate, currentUser } from '../middleware/authenticate';
 import { Workspace } from '../models';
 import { reviewPolicy } from '../policies/review';
-import { authorizeModel, authorizeReview, authorizeRevision, authorizeWorkspace } from './authorize';
+import { authorizeComment, authorizeModel, authorizeReview, authorizeRevision, authorizeWorkspace } from './authorize';
 import { presentVerdict } from '../presenters/review';
 import {
-  commentsShownOn,
   loadReviews,
-  presentCommentsOn,
   presentReviewList,
+  presentThreadsOn,
   reviewDetail,
+  threadOf,
+  threadsShownOn,
 } from '../queries/review-views';
 import { parseInput } from '../validation';
-import { pageInput, pagination } from './paging';
-import { commentSchema, requestReviewSchema, reviewListQuery, tickSchema, verdictSchema } from './review-inputs';
-
-const commentsQuery = pageInput(100);
+import { pagination } from './paging';
+import {
+  commentListQuery,
+  commentSchema,
+  emptyBody,
+  replySchema,
+  requestReviewSchema,
+  reviewDetailQuery,
+  reviewListQuery,
+  tickSchema,
+  verdictSchema,
+} from './review-inputs';
 
 const STATUS_WHERE = { open: { state: 'open' }, closed: { state: { [Op.ne]: 'open' } }, all: {} } as const;
 
-/** Review requests, verdicts, the pre-maiden checklist and anchored comments. */
+/** Review requests, verdicts, the pre-maiden checklist and comment threads. */
 export function reviewsRouter(context: AppContext): Router {
   const { sequelize, config } = context;
   const router = Router();
@@ -67,8 +76,9 @@ export function reviewsRouter(context: AppContext): Router {
   });
 
   router.get('/reviews/:id', signedIn, async (req, res) => {
+    const { base } = parseInput(reviewDetailQuery, req.query, 'The comparison base is not valid.');
     const access = await authorizeReview(req, req.params.id, 'read');
-    res.json({ data: await reviewDetail(access, currentUser(req)) });
+    res.json({ data: await reviewDetail(access, currentUser(req), base) });
   });
 
   router.post('/reviews/:id/verdicts', signedIn, async (req, res) => {
@@ -79,6 +89,7 @@ export function reviewsRouter(context: AppContext): Router {
       verdict: input.verdict,
       body: input.body ?? '',
       checklist: input.checklist ?? {},
+      confirmLeftOpen: input.confirm_left_open ?? false,
     });
     res.status(201).json({
       data: {
@@ -102,22 +113,52 @@ export function reviewsRouter(context: AppContext): Router {
 
   router.post('/reviews/:id/comments', signedIn, async (req, res) => {
     const input = parseInput(commentSchema, req.body);
-    const access = await authorizeReview(req, req.params.id, 'comment');
-    const { review } = access;
-    const comment = await commentOnReview(sequelize, { review, author: currentUser(req), ...input });
-    const [presented] = await presentCommentsOn(review.revision, [comment]);
+    const { review } = await authorizeReview(req, req.params.id, 'comment');
+    const thread = await startThread(
+      sequelize,
+      { workspaceId: review.workspaceId, model: review.model, revision: review.revision, reviewId: review.id },
+      currentUser(req),
+      { path: input.path ?? null, body: input.body },
+    );
+    const [presented] = await presentThreadsOn(review.revision, [thread]);
+    res.status(201).json({ data: presented });
+  });
+
+  // A thread on a revision outside any review, started from the Overview.
+  router.post('/revisions/:id/comments', signedIn, async (req, res) => {
+    const input = parseInput(commentSchema, req.body);
+    const { revision, model } = await authorizeRevision(req, req.params.id, 'comment', { full: true });
+    const thread = await startThread(
+      sequelize,
+      { workspaceId: model.workspaceId, model, revision, reviewId: null },
+      currentUser(req),
+      { path: input.path ?? null, body: input.body },
+    );
+    const [presented] = await presentThreadsOn(revision, [thread]);
     res.status(201).json({ data: presented });
   });
 
   router.get('/revisions/:id/comments', signedIn, async (req, res) => {
-    const page = parseInput(commentsQuery, req.query, 'The paging parameters are not valid.');
+    const page = parseInput(commentListQuery, req.query, 'The list parameters are not valid.');
     const { revision } = await authorizeRevision(req, req.params.id, 'read', { full: true });
-    // Which comments a revision shows depends on its document (anchored ones carry
+    // Which threads a revision shows depends on its document (anchored ones carry
     // forward while their path exists), so the page is cut after that choice.
-    const comments = await commentsShownOn(revision);
-    const shown = comments.slice(page.offset, page.offset + page.limit);
-    res.json({ data: await presentCommentsOn(revision, shown), pagination: pagination(page, comments.length) });
+    const threads = await threadsShownOn(revision, page.status);
+    const shown = threads.slice(page.offset, page.offset + page.limit);
+    res.json({ data: await presentThreadsOn(revision, shown), pagination: pagination(page, threads.length) });
   });
+
+  const threadStep = (step: ThreadStep) => async (req: Request, res: Response) => {
+    const input = step === 'reply' ? parseInput(replySchema, req.body) : parseInput(emptyBody, req.body ?? {});
+    const { comment, workspace } = await authorizeComment(req, req.params.id, 'comment');
+    await stepThread(sequelize, comment.id, workspace.id, currentUser(req), step, 'body' in input ? input.body : '');
+    const thread = await threadOf(comment);
+    const [presented] = await presentThreadsOn(comment.revision, [thread]);
+    res.status(step === 'reply' ? 201 : 200).json({ data: presented });
+  };
+  router.post('/comments/:id/replies', signedIn, threadStep('reply'));
+  router.post('/comments/:id/resolve', signedIn, threadStep('resolve'));
+  router.post('/comments/:id/reopen', signedIn, threadStep('reopen'));
 
   return router;
 }

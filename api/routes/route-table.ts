@@ -121,7 +121,11 @@ export const ROUTE_TABLE: readonly RouteEntry[] = [
   { method: 'POST', path: '/api/reviews/:id/verdicts', access: 'reviewer', note: 'nobody approves their own revision' },
   { method: 'POST', path: '/api/reviews/:id/checklist', access: 'reviewer' },
   { method: 'POST', path: '/api/reviews/:id/comments', access: 'reviewer' },
+  { method: 'POST', path: '/api/revisions/:id/comments', access: 'reviewer', note: 'a thread outside any review' },
   { method: 'GET', path: '/api/revisions/:id/comments', access: 'viewer' },
+  { method: 'POST', path: '/api/comments/:id/replies', access: 'reviewer' },
+  { method: 'POST', path: '/api/comments/:id/resolve', access: 'reviewer' },
+  { method: 'POST', path: '/api/comments/:id/reopen', access: 'reviewer' },
 
   { method: 'GET', path: '/api/workspaces/:ws/receivers', access: 'viewer' },
   { method: 'POST', path: '/api/workspaces/:ws/receivers', access: 'editor' },

@@ -2,6 +2,7 @@
 // once: the server's presenters are typed against these, the client and its test fakes
 // read them.
 import type { Finding } from '../findings';
+import type { ApprovedRevision } from './review';
 import type { ReviewState } from './review-state';
 import type { Role } from './roles';
 
@@ -55,6 +56,8 @@ export interface SetupModelView {
   latest: LatestRevision | null;
   review_state: ReviewState;
   cleared_for_maiden: boolean;
+  /** The revision cleared to fly (the latest approved one) and who approved it; null when none is. */
+  approved: ApprovedRevision | null;
   /** The caller's role in the model's workspace. */
   role: Role;
 }

@@ -77,7 +77,10 @@ describe('the demo reviews (seed step 0004)', () => {
       'receivers[id=wing].map[pin=1]',
       'receivers[id=fuselage].map[pin=3]',
     ]);
-    expect(page.body.data.base.kind).toBe('parent');
+    // Nothing of the Kestrel is approved yet: its first review shows the whole setup as new.
+    expect(page.body.data.base).toBeNull();
+    expect(page.body.data.plan.compared).toBe(false);
+    expect(page.body.data.base_options.previous).toMatchObject({ number: expect.any(Number) });
     const approved = reviews.find(
       (review) => review.state === 'approved' && review.decidedAt!.getUTCFullYear() === 2026,
     )!;

@@ -53,8 +53,14 @@ async function reviewOf(revisionId: string, reviewers: Client[] = [reviewer]): P
   return response.body.data.id;
 }
 
-const verdict = (client: Client, reviewId: string, body: object) =>
-  client.post(`/api/reviews/${reviewId}/verdicts`, body);
+// Approvals here are about who may sign off, not about the checklist: they confirm
+// what is left, as the confirmation dialog does. The confirmation itself is tested
+// in "deliberate verdicts".
+const verdict = (client: Client, reviewId: string, body: { verdict: string } & Record<string, unknown>) =>
+  client.post(
+    `/api/reviews/${reviewId}/verdicts`,
+    body.verdict === 'approve' && !('confirm_left_open' in body) ? { ...body, confirm_left_open: true } : body,
+  );
 const modelState = async (modelId: string) =>
   (await author.get(`/api/models/${modelId}`).expect(200)).body.data as {
     review_state: string;
@@ -135,15 +141,30 @@ describe('asking for a review', () => {
     expect(line).toContain(page.compare.change_findings[0].message);
     expect(mail.htmlBody).toContain('Between these revisions');
 
-    // A revision that changes nothing in meaning says so.
-    const { modelId: other } = await scaleModel('Kestrel quiet');
+    // A revision that changes nothing in meaning since the approved one says so.
+    const { modelId: other, revision: quietFirst } = await scaleModel('Kestrel quiet');
+    await verdict(reviewer, await reviewOf(quietFirst.id), { verdict: 'approve' }).expect(201);
     const quiet = await saveVia(author, other, 1, `# Re-read.\n${SCALE()}`, 'A note');
-    await ask(quiet.id, [reviewer]).expect(201);
-    const [quietMail] = await mailTo(reviewer.user.email);
+    await ask(quiet.id, [second]).expect(201);
+    const [quietMail] = await mailTo(second.user.email);
     expect(quietMail.subject).toBe('Review requested: Kestrel quiet, revision 2');
     expect(quietMail.textBody).toContain(
-      'Between these revisions (compared with the revision before it, revision 1): no mistake shows only between the two.',
+      'Between these revisions (compared with the last approved revision, revision 1): no mistake shows only between the two.',
     );
+
+    // With nothing approved before it, the mail says what the review page opens with:
+    // the whole setup as new (the page's default base), not the last small edit.
+    const { modelId: unapproved } = await scaleModel('Kestrel unapproved');
+    const edited = await saveVia(author, unapproved, 1, `# Re-read.\n${SCALE()}`, 'A note');
+    await ask(edited.id, [reviewer]).expect(201);
+    const [unapprovedMail] = await mailTo(reviewer.user.email);
+    expect(unapprovedMail.subject).toBe('Review requested: Kestrel unapproved, revision 2');
+    expect(unapprovedMail.textBody).toContain(
+      'Between these revisions: no revision before revision 2 is approved, so the review shows the whole setup as new',
+    );
+    const unapprovedPage = (await reviewer.get(`/api/reviews/${mailReviewId(unapprovedMail.textBody)}`).expect(200))
+      .body.data;
+    expect(unapprovedPage.base).toBeNull();
   });
 
   it('refuses reviewers below the reviewer role, outsiders, the author, repeats and a second open review', async () => {
@@ -359,7 +380,7 @@ describe('the rules of sign-off', () => {
 });
 
 describe('the review page', () => {
-  it('compares with the parent when nothing is approved, then with the last approved revision', async () => {
+  it('compares with the previous revision when asked, and by default with the last approved revision', async () => {
     const { modelId, revision } = await scaleModel();
     const second1 = await saveVia(
       author,
@@ -369,8 +390,8 @@ describe('the review page', () => {
       'Landing light fails on',
     );
     const first = await reviewOf(second1.id);
-    const page = await viewer.get(`/api/reviews/${first}`).expect(200);
-    expect(page.body.data.base).toMatchObject({ kind: 'parent', revision: { id: revision.id, number: 1 } });
+    const page = await viewer.get(`/api/reviews/${first}?base=previous`).expect(200);
+    expect(page.body.data.base).toMatchObject({ kind: 'previous', revision: { id: revision.id, number: 1 } });
     expect(page.body.data.compare.changes).toEqual([
       expect.objectContaining({
         kind: 'changed',

@@ -161,6 +161,13 @@ export async function buildSampleWorld(t: MailTestApp): Promise<SampleWorld> {
   const reviewId: string = (
     await asOwner('post', `/api/revisions/${secondRevisionId}/reviews`, { reviewers: [roles.members.reviewer.id] })
   ).body.data.id;
+  /** A thread on the second revision, resolved when asked, so resolve and reopen each have one to act on. */
+  const freshThread = async (resolved = false): Promise<string> => {
+    const id: string = (await asOwner('post', `/api/reviews/${reviewId}/comments`, { body: fresh('A thread') })).body
+      .data.id;
+    if (resolved) await asOwner('post', `/api/comments/${id}/resolve`, {});
+    return id;
+  };
   const bundle = (
     await binary(
       request(t.app)
@@ -343,7 +350,20 @@ export async function buildSampleWorld(t: MailTestApp): Promise<SampleWorld> {
       url: `/api/reviews/${reviewId}/comments`,
       body: { body: 'Check the aileron direction.' },
     }),
+    'POST /api/revisions/:id/comments': async () => ({
+      url: `/api/revisions/${secondRevisionId}/comments`,
+      body: { path: 'channels[ch=1]', body: 'Aileron direction checked?' },
+    }),
     'GET /api/revisions/:id/comments': async () => ({ url: `/api/revisions/${secondRevisionId}/comments` }),
+    'POST /api/comments/:id/replies': async () => ({
+      url: `/api/comments/${await freshThread()}/replies`,
+      body: { body: 'Checked on the bench.' },
+    }),
+    'POST /api/comments/:id/resolve': async () => ({ url: `/api/comments/${await freshThread()}/resolve`, body: {} }),
+    'POST /api/comments/:id/reopen': async () => ({
+      url: `/api/comments/${await freshThread(true)}/reopen`,
+      body: {},
+    }),
 
     'GET /api/workspaces/:ws/receivers': async () => ({ url: `/api/workspaces/${ws}/receivers` }),
     'POST /api/workspaces/:ws/receivers': async () => ({

@@ -25,6 +25,7 @@ const model = (modelId: string) => `${API}/models/${seg(modelId)}`;
 const revision = (revisionId: string) => `${API}/revisions/${seg(revisionId)}`;
 const review = (reviewId: string) => `${API}/reviews/${seg(reviewId)}`;
 const receiver = (receiverId: string) => `${API}/receivers/${seg(receiverId)}`;
+const comment = (commentId: string) => `${API}/comments/${seg(commentId)}`;
 
 export const paths = {
   session: () => `${API}/session`,
@@ -75,6 +76,8 @@ export const paths = {
   revisionTags: (revisionId: string) => `${revision(revisionId)}/tags`,
   revisionTag: (revisionId: string, name: string) => `${revision(revisionId)}/tags/${seg(name)}`,
   revisionReviews: (revisionId: string) => `${revision(revisionId)}/reviews`,
+  /** The comment threads shown on a revision (its own and those carried forward). */
+  revisionComments: (revisionId: string, query?: Query) => withQuery(`${revision(revisionId)}/comments`, query),
   revisionPatch: (revisionId: string, query?: Query) => withQuery(`${revision(revisionId)}/patch`, query),
   revisionFieldSheet: (revisionId: string) => `${revision(revisionId)}/field-sheet`,
   revisionFieldSheetPdf: (revisionId: string) => `${revision(revisionId)}/field-sheet.pdf`,
@@ -85,6 +88,10 @@ export const paths = {
   reviewVerdicts: (reviewId: string) => `${review(reviewId)}/verdicts`,
   reviewChecklist: (reviewId: string) => `${review(reviewId)}/checklist`,
   reviewComments: (reviewId: string, query?: Query) => withQuery(`${review(reviewId)}/comments`, query),
+
+  commentReplies: (threadId: string) => `${comment(threadId)}/replies`,
+  /** Resolves or reopens the thread a first comment starts. */
+  commentStep: (threadId: string, step: 'resolve' | 'reopen') => `${comment(threadId)}/${step}`,
 
   receiver: (receiverId: string) => receiver(receiverId),
   receiverHistory: (receiverId: string, query?: Query) => withQuery(`${receiver(receiverId)}/history`, query),

@@ -89,6 +89,7 @@ export function modelView(model: ModelRecord) {
     },
     review_state: model.review_state,
     cleared_for_maiden: model.review_state === 'approved',
+    approved: null,
     role: model.role,
   };
 }

@@ -1,5 +1,6 @@
 import { analyzeSetup } from '@shared/analyze';
 import { compareRevisions } from '@shared/diff';
+import { reviewPlan } from '@shared/diff/review-plan';
 import type { ReviewDetail, ReviewSummary } from '@web/features/reviews/types';
 import { CLUB, demoUser } from '../fake-server';
 import { fixtureText } from '../models/model-data';
@@ -53,7 +54,9 @@ export function reviewDetail(overrides: Partial<ReviewDetail> = {}): ReviewDetai
     created_at: '2026-04-02T13:00:00.000Z',
     verdict_count: 0,
     latest: { id: after.summary.id, number: 4, same_content: true },
-    base: { kind: 'parent', revision: before.summary },
+    base: { kind: 'previous', revision: before.summary },
+    base_options: { approved: null, previous: { id: before.summary.id, number: 3 } },
+    plan: reviewPlan(after.analysis.data, before.analysis.data),
     compare: compareRevisions(
       { text: beforeText, data: before.analysis.data, findings: before.analysis.findings },
       { text: afterText, data: after.analysis.data, findings: after.analysis.findings },
@@ -65,9 +68,11 @@ export function reviewDetail(overrides: Partial<ReviewDetail> = {}): ReviewDetai
         detail: 'With the model restrained and the propeller off.',
         source: { label: 'cap-658', title: 'UK CAA CAP 658' },
         basis: null,
+        covers: 'the channels and the receivers, their pins and failsafes',
         ticked: false,
         ticked_by: null,
         ticked_at: null,
+        carried: null,
       },
       {
         id: 'range-check',
@@ -75,9 +80,15 @@ export function reviewDetail(overrides: Partial<ReviewDetail> = {}): ReviewDetai
         detail: 'Before the first flight.',
         source: { label: 'ama-safety-code', title: 'AMA safety code' },
         basis: null,
+        covers: 'the link and the receivers, their pins and failsafes',
         ticked: true,
         ticked_by: ines,
         ticked_at: '2026-04-02T14:00:00.000Z',
+        carried: {
+          review_id: 'older',
+          revision_number: 3,
+          reason: 'Carried from the review of revision 3: revision 4 leaves the link unchanged.',
+        },
       },
     ],
     verdicts: [],
@@ -91,6 +102,8 @@ export function reviewDetail(overrides: Partial<ReviewDetail> = {}): ReviewDetai
         revision: { id: before.summary.id, number: 3 },
         carried: true,
         created_at: '2026-04-01T10:00:00.000Z',
+        replies: [],
+        resolved: null,
       },
     ],
     model_state: { review_state: 'pending', cleared_for_maiden: false },

@@ -6,7 +6,7 @@ import { REVIEW, reviewDetail } from './review-data';
 const path = `/w/${CLUB}/reviews/${REVIEW}`;
 
 describe('the review page', () => {
-  it('shows the compare against the parent, the findings, the checklist and carried comments', async () => {
+  it('shows the whole plan marked against the previous revision, the checklist with a carried tick and carried comments', async () => {
     fakeServer({
       ...sessionRoutes({ signedIn: true }).routes,
       [`GET /api/reviews/${REVIEW}`]: () => ({ body: { data: reviewDetail() } }),
@@ -23,9 +23,17 @@ describe('the review page', () => {
     expect(screen.getByRole('checkbox', { name: 'Ground range check' })).toBeChecked();
     expect(screen.getByRole('checkbox', { name: 'Failsafe tested' })).not.toBeChecked();
     expect(screen.getByText('1 of 2 ticked')).toBeInTheDocument();
-    const comments = screen.getByRole('list', { name: 'Comments' });
+    expect(
+      screen.getByText('Carried from the review of revision 3: revision 4 leaves the link unchanged.'),
+    ).toBeInTheDocument();
+    // The plan: the changed failsafe's pin is marked, the others are the same.
+    const wingPins = screen.getByRole('table', { name: 'Pins of receiver wing' });
+    const pin3 = within(wingPins).getByRole('row', { name: /Pin 3/ });
+    expect(within(pin3).getByText('Changed')).toBeInTheDocument();
+    expect(within(pin3).getByText('1500 µs')).toBeInTheDocument();
+    const comments = screen.getByRole('list', { name: 'Open comments' });
     expect(within(comments).getByText('From revision 3')).toBeInTheDocument();
-    expect(within(comments).getByText('receivers[id=wing].map[pin=1]')).toBeInTheDocument();
+    expect(within(comments).getByText('Pin 1 of receiver wing')).toBeInTheDocument();
     expect(document.title).toBe('Review · Kestrel Mk II, revision 4 · Bindery');
   });
 
@@ -56,6 +64,7 @@ describe('the review page', () => {
               verdict: body.verdict,
               body: body.body,
               content_hash: 'x',
+              left_open: null,
               created_at: new Date().toISOString(),
             },
           ],
@@ -71,7 +80,13 @@ describe('the review page', () => {
     expect(
       within(form).getByText('Nobody approves their own revision: ask another reviewer to sign it off.'),
     ).toBeInTheDocument();
-    expect(within(form).getByRole('radio', { name: /Comment/ })).toBeChecked();
+    // Nothing is chosen for the reviewer.
+    expect(
+      within(form)
+        .getAllByRole('radio')
+        .filter((radio) => (radio as HTMLInputElement).checked),
+    ).toEqual([]);
+    await user.click(within(form).getByRole('radio', { name: /Comment/ }));
     await user.type(within(form).getByLabelText('What you found'), 'Pins checked on the bench.');
     await user.click(within(form).getByRole('button', { name: 'Comment' }));
 
@@ -84,20 +99,23 @@ describe('the review page', () => {
     expect(within(verdicts).getByText('Commented')).toBeInTheDocument();
   });
 
-  it('after approving, shows the caller’s standing approval and offers only to ask for changes or comment', async () => {
+  it('confirms an approval with an item unticked, then shows the standing approval and what was left', async () => {
     let detail = reviewDetail();
     const me = { id: demoUser.id, name: demoUser.name };
     const server = fakeServer({
       ...sessionRoutes({ signedIn: true }).routes,
       [`GET /api/reviews/${REVIEW}`]: () => ({ body: { data: detail } }),
       [`POST /api/reviews/${REVIEW}/verdicts`]: (request) => {
-        const body = request.body as { verdict: 'approve' | 'comment'; body?: string };
+        const body = request.body as { verdict: 'approve' | 'comment'; body?: string; confirm_left_open?: boolean };
         const entry = {
           id: `v${detail.verdicts.length + 1}`,
           reviewer: me,
           verdict: body.verdict,
           body: body.body ?? '',
           content_hash: detail.revision.content_hash,
+          left_open: body.confirm_left_open
+            ? { unticked: [{ id: 'failsafe-tested', label: 'Failsafe tested' }], warnings: [] }
+            : null,
           created_at: '2025-03-14T12:00:00.000Z',
         };
         detail = { ...detail, verdicts: [...detail.verdicts, entry] };
@@ -107,8 +125,15 @@ describe('the review page', () => {
     const { user } = renderApp(path);
 
     const form = await screen.findByRole('form', { name: 'Give a verdict' });
-    expect(within(form).getByRole('radio', { name: /Approve/ })).toBeChecked();
+    expect(within(form).getByRole('radio', { name: /Approve/ })).not.toBeChecked();
+    await user.click(within(form).getByRole('button', { name: 'Give verdict' }));
+    expect(within(form).getByText('Choose a verdict first.')).toBeInTheDocument();
+    await user.click(within(form).getByRole('radio', { name: /Approve/ }));
     await user.click(within(form).getByRole('button', { name: 'Approve' }));
+    const dialog = await screen.findByRole('dialog', { name: 'Approve with these left open?' });
+    expect(within(dialog).getByText('Failsafe tested')).toBeInTheDocument();
+    expect(server.called('POST', `/api/reviews/${REVIEW}/verdicts`)).toHaveLength(0);
+    await user.click(within(dialog).getByRole('button', { name: 'Approve with these left' }));
 
     // The sentence holds a <time>, so it is matched on the paragraph's whole text.
     const standing = (pattern: RegExp) => (_: string, element: Element | null) =>
@@ -120,7 +145,8 @@ describe('the review page', () => {
         .getAllByRole('radio')
         .map((radio) => radio.getAttribute('value')),
     ).toEqual(['request-changes', 'comment']);
-    expect(within(form).getByRole('radio', { name: /Comment/ })).toBeChecked();
+    expect(screen.getByText('Not ticked: Failsafe tested')).toBeInTheDocument();
+    await user.click(within(form).getByRole('radio', { name: /Comment/ }));
 
     // A comment leaves the approval standing.
     await user.type(within(form).getByLabelText('What you found'), 'Receiver packs re-seated.');
@@ -132,10 +158,11 @@ describe('the review page', () => {
         .called('POST', `/api/reviews/${REVIEW}/verdicts`)
         .map((request) => (request.body as { verdict: string }).verdict),
     ).toEqual(['approve', 'comment']);
+    expect(server.called('POST', `/api/reviews/${REVIEW}/verdicts`)[0].body).toMatchObject({ confirm_left_open: true });
   });
 
-  it('ticks a checklist item and adds an anchored comment', async () => {
-    const detail = reviewDetail();
+  it('ticks a checklist item and starts a thread by choosing a pin on the plan', async () => {
+    let detail = reviewDetail();
     const server = fakeServer({
       ...sessionRoutes({ signedIn: true }).routes,
       [`GET /api/reviews/${REVIEW}`]: () => ({ body: { data: detail } }),
@@ -144,21 +171,20 @@ describe('the review page', () => {
       }),
       [`POST /api/reviews/${REVIEW}/comments`]: (request) => {
         const body = request.body as { path: string; body: string };
-        return {
-          status: 201,
-          body: {
-            data: {
-              id: 'c2',
-              review_id: REVIEW,
-              path: body.path,
-              body: body.body,
-              author: { id: 'me', name: 'Wren Calloway' },
-              revision: { id: detail.revision.id, number: 4 },
-              carried: false,
-              created_at: new Date().toISOString(),
-            },
-          },
+        const thread = {
+          id: 'c2',
+          review_id: REVIEW,
+          path: body.path,
+          body: body.body,
+          author: { id: 'me', name: 'Wren Calloway' },
+          revision: { id: detail.revision.id, number: 4 },
+          carried: false,
+          created_at: new Date().toISOString(),
+          replies: [],
+          resolved: null,
         };
+        detail = { ...detail, comments: [...detail.comments, thread] };
+        return { status: 201, body: { data: thread } };
       },
     });
     const { user } = renderApp(path);
@@ -170,10 +196,11 @@ describe('the review page', () => {
       ticked: true,
     });
 
-    const form = screen.getByRole('form', { name: 'Add a comment' });
-    await user.click(within(form).getByLabelText(/Anchor/));
-    await user.paste('receivers[id=wing].map[pin=2]');
-    await user.type(within(form).getByLabelText('Comment'), 'Nav lights hold on loss: fine.');
+    await user.click(screen.getByRole('button', { name: 'Comment on Pin 2 of receiver wing' }));
+    const form = screen.getByRole('form', { name: 'Start a comment' });
+    const box = within(form).getByLabelText('Comment on Pin 2 of receiver wing');
+    expect(box).toHaveFocus();
+    await user.type(box, 'Nav lights hold on loss: fine.');
     await user.click(within(form).getByRole('button', { name: 'Add comment' }));
     expect(await screen.findByText('Nav lights hold on loss: fine.')).toBeInTheDocument();
     expect(server.called('POST', `/api/reviews/${REVIEW}/comments`)[0].body).toEqual({
@@ -196,7 +223,8 @@ describe('the review page', () => {
     renderApp(path);
     expect(await screen.findByText(/your role here lets you read the review/)).toBeInTheDocument();
     expect(screen.queryByRole('form', { name: 'Give a verdict' })).not.toBeInTheDocument();
-    expect(screen.queryByRole('form', { name: 'Add a comment' })).not.toBeInTheDocument();
+    expect(screen.queryByRole('form', { name: 'Start a comment' })).not.toBeInTheDocument();
+    expect(screen.queryByRole('button', { name: /^Comment on/ })).not.toBeInTheDocument();
     expect(screen.getByRole('checkbox', { name: 'Failsafe tested' })).toBeDisabled();
   });
 });

@@ -6,6 +6,8 @@ export interface ErrorStateProps {
   title?: string;
   error?: unknown;
   onRetry?: () => void;
+  /** The retry button's words, when it does something other than ask again. */
+  retryLabel?: string;
 }
 
 function messageOf(error: unknown): string {
@@ -14,7 +16,7 @@ function messageOf(error: unknown): string {
   return 'Something went wrong.';
 }
 
-export function ErrorState({ title = 'This could not be loaded', error, onRetry }: ErrorStateProps) {
+export function ErrorState({ title = 'This could not be loaded', error, onRetry, retryLabel }: ErrorStateProps) {
   return (
     <div
       role="alert"
@@ -25,7 +27,7 @@ export function ErrorState({ title = 'This could not be loaded', error, onRetry 
       <p className="mt-1 max-w-prose text-base text-ink-900">{messageOf(error)}</p>
       {onRetry && (
         <Button variant="secondary" className="mt-4" onClick={onRetry}>
-          Try again
+          {retryLabel ?? 'Try again'}
         </Button>
       )}
     </div>

@@ -32,7 +32,7 @@ const VERDICTS: Record<string, string> = {
 
 // Events about a model's revisions, tags and reviews say which model; a model's own
 // events name it in their words already.
-const NAMES_ITS_MODEL = /^(revision|tag|review)\./;
+const NAMES_ITS_MODEL = /^(revision|tag|review|comment)\./;
 
 /** One audit event in plain words, with the model it was about and a link to what it concerns. */
 export function auditLine(event: AuditEvent, workspaceId: Id): AuditLine {
@@ -101,10 +101,21 @@ function describe(event: AuditEvent, workspaceId: Id): Omit<AuditLine, 'model'> 
     case 'review.verdict':
       return { text: `${VERDICTS[str(d.verdict)] ?? 'gave a verdict on'} revision ${str(d.number)}`, link: review };
     case 'review.commented':
-      return {
-        text: `commented${d.path ? ` on ${str(d.path)}` : ''} in the review of revision ${str(d.number)}`,
-        link: review,
-      };
+      return event.subject.type === 'revision'
+        ? {
+            text: `commented${d.path ? ` on ${str(d.path)}` : ''} on revision ${str(d.number)}`,
+            link: model(modelId, 'overview'),
+          }
+        : {
+            text: `commented${d.path ? ` on ${str(d.path)}` : ''} in the review of revision ${str(d.number)}`,
+            link: review,
+          };
+    case 'comment.replied':
+      return { text: `replied to a comment${d.path ? ` on ${str(d.path)}` : ''}`, link: model(modelId, 'overview') };
+    case 'comment.resolved':
+      return { text: `resolved a comment${d.path ? ` on ${str(d.path)}` : ''}`, link: model(modelId, 'overview') };
+    case 'comment.reopened':
+      return { text: `reopened a comment${d.path ? ` on ${str(d.path)}` : ''}`, link: model(modelId, 'overview') };
     case 'receiver.added':
       return { text: `put the receiver ${quoted(d.label)} on the shelf`, link: receiver };
     case 'receiver.updated':

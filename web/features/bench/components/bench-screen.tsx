@@ -1,5 +1,5 @@
 import { useMemo, useState, type ReactNode } from 'react';
-import { useParams, useSearchParams } from 'react-router-dom';
+import { useParams } from 'react-router-dom';
 import { controlsById, switchPositionOf } from '@shared/evaluate/control-value';
 import { evaluate, mixIsActive, mixWeight, valueOf } from '@shared/evaluate/evaluate';
 import { expoCurve } from '@shared/evaluate/expo-curve';
@@ -14,7 +14,7 @@ import { PageHeader } from '../../../components/ui/page-header';
 import { CautionsPanel } from '../../cautions/components/cautions-panel';
 import { FindingsList } from '../../findings/components/findings-list';
 import { useModel } from '../../models/api/get-model';
-import { useRevision } from '../../models/api/get-revision';
+import { useAddressedRevision } from '../../models/api/use-addressed-revision';
 import type { Revision, SetupModelView } from '../../models/types';
 import { ChannelTable } from './channel-table';
 import { ControlPanel, controlName, type Positions } from './control-panel';
@@ -25,23 +25,26 @@ import { RevisionPicker } from './revision-picker';
 
 export function BenchScreen() {
   const { modelId = '' } = useParams();
-  const [params] = useSearchParams();
   const model = useModel(modelId);
-  const asked = params.get('revision');
-  const revision = useRevision(asked ?? model.data?.latest?.id);
+  // `?revision=` by number (as people write it) or id; the latest without.
+  const addressed = useAddressedRevision(modelId, model.data?.latest?.id);
+  const revision = addressed.revision;
 
   let body: ReactNode;
-  if (model.isPending || (revision.isPending && (asked || model.data?.latest)))
-    body = <LoadingState label="Loading the setup…" />;
+  if (model.isPending || addressed.pending) body = <LoadingState label="Loading the setup…" />;
   else if (model.isError)
     body = (
       <ErrorState title="This model could not be loaded" error={model.error} onRetry={() => void model.refetch()} />
     );
-  else if (revision.isError)
+  else if (addressed.invalid || addressed.error || revision.isError)
     body = (
       <ErrorState
-        title="This revision could not be loaded"
-        error={revision.error}
+        title={
+          addressed.asked
+            ? `There is no revision “${addressed.asked}” of this model`
+            : 'This revision could not be loaded'
+        }
+        error={addressed.invalid ? new Error('Name a revision by its number, like ?revision=9.') : addressed.error}
         onRetry={() => void revision.refetch()}
       />
     );

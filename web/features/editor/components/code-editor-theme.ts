@@ -29,6 +29,9 @@ const chrome = EditorView.theme({
   },
   '.cm-activeLineGutter': { backgroundColor: 'var(--color-ply-100)', color: 'var(--color-ink-900)' },
   '.cm-lineNumbers .cm-gutterElement': { padding: '0 0.5rem 0 0.75rem' },
+  // Open comment threads: the accent colour, apart from the checks' severity marks.
+  '.cm-comment-gutter .cm-gutterElement': { padding: '0 0.25rem', minWidth: '1.1rem' },
+  '.cm-comment-mark': { color: 'var(--color-accent-700)', fontWeight: '700', cursor: 'default' },
   '.cm-foldPlaceholder': {
     backgroundColor: 'var(--color-ply-100)',
     border: '1px solid var(--color-ply-300)',

@@ -27,7 +27,12 @@ import { LeaveGuard } from './leave-guard';
 import { MixesForm } from './mixes-form';
 import { Notice } from './notice';
 import { PinMapForms } from './pin-map-form';
-import { SaveDialog } from './save-dialog';
+import { SaveDialog, type SaveSignOff } from './save-dialog';
+import { useRevisionThreads } from '../../reviews/api/reviews';
+import { settingWords } from '../../reviews/setting-words';
+import type { CommentThread } from '../../reviews/types';
+import { commentLines, type CommentLine } from '../comment-lines';
+import { canonicalJson } from '@shared/canonical/content-hash';
 import { StaleBasePanel } from './stale-base-panel';
 import { EditorTabs, type EditorTab } from './editor-tabs';
 import type { LineJump } from './yaml-code-editor';
@@ -100,6 +105,21 @@ function acceptedIndex(data: unknown, finding: Finding): number {
   );
 }
 
+/** What saving on `base` does to the model's sign-off; null when the base holds none. */
+function signOffOf(model: SetupModelView, base: EditorBase, next: unknown): SaveSignOff | null {
+  if (base.id !== model.latest?.id) return null;
+  const changesSettings = canonicalJson(base.document ?? null) !== canonicalJson(next ?? null);
+  if (model.review_state === 'approved' && model.approved)
+    return {
+      kind: 'approved',
+      number: base.number,
+      approvers: model.approved.approvers.map((person) => person.name),
+      changesSettings,
+    };
+  if (model.review_state === 'pending') return { kind: 'pending', number: base.number, approvers: [], changesSettings };
+  return null;
+}
+
 export function SetupEditor({ model, initialBase, restoredText, canEdit, role }: SetupEditorProps) {
   const toast = useToast();
   const save = useSaveRevision(model.id);
@@ -157,6 +177,20 @@ export function SetupEditor({ model, initialBase, restoredText, canEdit, role }:
   }, [params, setParams]);
 
   const formData = useMemo(() => (tab === 'text' ? null : readDocumentData(text)), [tab, text]);
+
+  // Open threads of the revision the edit stands on, beside their settings' lines as the text now is.
+  const threads = useRevisionThreads(base.id, 'open');
+  const placed = useMemo(() => commentLines(checked.text, threads.data ?? []), [checked.text, threads.data]);
+  const commentMarks = useMemo(
+    () => ({
+      text: checked.text,
+      marks: placed.map(({ line, threads: onLine }) => ({
+        line,
+        title: onLine.map((thread) => `${thread.author?.name ?? 'Former member'}: ${thread.body}`).join('\n'),
+      })),
+    }),
+    [checked.text, placed],
+  );
 
   const onEdits = useCallback(
     (edits: DocumentEdit[]) => {
@@ -425,6 +459,7 @@ export function SetupEditor({ model, initialBase, restoredText, canEdit, role }:
                   jump={jump}
                   visible={tab === 'text'}
                   label={`Setup text of ${model.name}`}
+                  comments={commentMarks}
                 />
               </Suspense>
             </div>
@@ -487,6 +522,9 @@ export function SetupEditor({ model, initialBase, restoredText, canEdit, role }:
               onAccept={canEdit ? setAccepting : undefined}
               onWithdraw={canEdit ? withdraw : undefined}
             />
+            {(threads.data?.length ?? 0) > 0 && (
+              <OpenComments modelId={model.id} threads={threads.data ?? []} placed={placed} />
+            )}
           </div>
         </aside>
       </div>
@@ -499,6 +537,7 @@ export function SetupEditor({ model, initialBase, restoredText, canEdit, role }:
           error={save.isError && !isStale(save.error) ? save.error.message : null}
           onSave={submitSave}
           onClose={() => setSaveOpen(false)}
+          signOff={signOffOf(model, base, checked.analysis.data)}
         />
       )}
       {accepting && (
@@ -530,5 +569,52 @@ export function SetupEditor({ model, initialBase, restoredText, canEdit, role }:
       )}
       <LeaveGuard dirty={dirty && !save.isPending} />
     </>
+  );
+}
+
+/** The open threads of the revision being edited, each with the line its setting is on now. */
+function OpenComments({
+  modelId,
+  threads,
+  placed,
+}: {
+  modelId: string;
+  threads: readonly CommentThread[];
+  placed: readonly CommentLine[];
+}) {
+  const lineOf = new Map(placed.flatMap(({ line, threads: onLine }) => onLine.map((thread) => [thread.id, line])));
+  return (
+    <section aria-labelledby="open-comments-heading" className="mt-5 border-t border-ply-200 pt-4">
+      <h3 id="open-comments-heading" className="text-base font-semibold text-ink-900">
+        Open comments ({threads.length})
+      </h3>
+      <p className="text-sm text-ink-700">Marked beside their line in the text.</p>
+      <ul className="mt-2 space-y-2">
+        {threads.map((thread) => {
+          const line = lineOf.get(thread.id);
+          return (
+            <li key={thread.id} className="rounded-md border border-ply-200 bg-paper px-3 py-2 text-sm">
+              <p className="font-medium text-ink-900">
+                {settingWords(thread.path)}
+                {line !== undefined && (
+                  <>
+                    {' · '}
+                    <Link to={`/models/${encodeURIComponent(modelId)}/edit?line=${line}`}>line {line}</Link>
+                  </>
+                )}
+              </p>
+              <p className="text-ink-900">
+                <span className="text-ink-700">{thread.author?.name ?? 'Former member'}:</span> {thread.body}
+              </p>
+              {thread.replies.length > 0 && (
+                <p className="text-ink-700">
+                  {thread.replies.length} {thread.replies.length === 1 ? 'reply' : 'replies'}
+                </p>
+              )}
+            </li>
+          );
+        })}
+      </ul>
+    </section>
   );
 }

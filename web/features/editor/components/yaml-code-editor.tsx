@@ -5,6 +5,7 @@ import { useEffect, useMemo, useRef, useState } from 'react';
 import type { Finding } from '@shared/findings';
 import { findingDiagnostics } from '../finding-diagnostics';
 import { editorTheme } from './code-editor-theme';
+import { commentGutter, setCommentMarks, type CommentMark } from './comment-gutter';
 
 /** A request to show a line: `key` changes with every request, so the same line can be asked for twice. */
 export interface LineJump {
@@ -22,12 +23,23 @@ export interface YamlCodeEditorProps {
   /** False while another tab covers the editor: a jump waits until it shows. */
   visible: boolean;
   label: string;
+  /** Open comment threads beside their lines, for the text on show. */
+  comments: { text: string; marks: readonly CommentMark[] };
 }
 
 const BASIC_SETUP = { autocompletion: false, foldGutter: true, highlightActiveLine: true, tabSize: 2 } as const;
 
 // Loaded on demand (see setup-editor.tsx), so CodeMirror stays out of the first page.
-export function YamlCodeEditor({ value, onChange, readOnly, checked, jump, visible, label }: YamlCodeEditorProps) {
+export function YamlCodeEditor({
+  value,
+  onChange,
+  readOnly,
+  checked,
+  jump,
+  visible,
+  label,
+  comments,
+}: YamlCodeEditorProps) {
   const [view, setView] = useState<EditorView | null>(null);
   const shownJump = useRef<string | null>(null);
 
@@ -35,6 +47,7 @@ export function YamlCodeEditor({ value, onChange, readOnly, checked, jump, visib
     () => [
       yaml(),
       lintGutter(),
+      commentGutter(),
       EditorView.lineWrapping,
       // The editable text is already a tab stop; saying so lets checkers see that the
       // scrolling area around it is reachable by keyboard.
@@ -50,6 +63,12 @@ export function YamlCodeEditor({ value, onChange, readOnly, checked, jump, visib
     if (view.state.doc.toString() !== checked.text) return;
     view.dispatch(setDiagnostics(view.state, findingDiagnostics(view.state.doc, checked.findings)));
   }, [view, checked, value]);
+
+  useEffect(() => {
+    if (!view) return;
+    if (view.state.doc.toString() !== comments.text) return;
+    view.dispatch({ effects: setCommentMarks.of([...comments.marks]) });
+  }, [view, comments, value]);
 
   useEffect(() => {
     if (!view || !visible || !jump || shownJump.current === jump.key) return;

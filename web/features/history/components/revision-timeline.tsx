@@ -1,5 +1,6 @@
 import { Link } from 'react-router-dom';
-import { SeverityBadge } from '../../../components/ui/badge';
+import { Badge, SeverityBadge } from '../../../components/ui/badge';
+import { CheckIcon } from '../../../components/ui/icons';
 import { buttonClasses, Button } from '../../../components/ui/button';
 import { cx } from '../../../lib/cx';
 import { revisionDownloadUrl } from '../../models/api/get-revision';
@@ -86,11 +87,23 @@ export function RevisionTimeline({
                     id={`rev-${revision.id}`}
                     className="flex flex-wrap items-baseline gap-x-2 text-base text-ink-900"
                   >
-                    <span className="font-mono font-semibold">r{revision.number}</span>
+                    {/* Each row opens its revision: the Overview, and from there its bench and field sheet. */}
+                    <Link
+                      to={`/models/${model.id}/overview?revision=${revision.number}`}
+                      className="font-mono font-semibold"
+                      title={`Open revision ${revision.number}`}
+                    >
+                      r{revision.number}
+                    </Link>
                     <span className="font-medium break-words">
                       {revision.message || <span className="font-normal text-ink-500">no message</span>}
                     </span>
                     {revision.number === latest && <span className="text-sm font-normal text-accent-700">latest</span>}
+                    {model.approved?.id === revision.id && (
+                      <Badge tone="moss" icon={CheckIcon}>
+                        Approved, cleared to fly
+                      </Badge>
+                    )}
                   </h3>
                   <p className="mt-0.5 text-sm text-ink-700">
                     <TimeAgo iso={revision.created_at} />

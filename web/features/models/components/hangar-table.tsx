@@ -7,6 +7,7 @@ import { firstDirection, type HangarColumn, type HangarSort } from '../sort-mode
 import type { SetupModelView } from '../types';
 import { CheckBadges } from './check-badges';
 import { TimeAgo } from './time-ago';
+import { clearedWords } from '../cleared-words';
 
 const COLUMNS: { column: HangarColumn; label: string; className?: string }[] = [
   { column: 'name', label: 'Model' },
@@ -99,6 +100,9 @@ export function HangarTable({ models, sort, onSort }: HangarTableProps) {
               </td>
               <td className="px-3 py-3">
                 <ReviewStateBadge state={model.review_state} />
+                {model.review_state !== 'approved' && clearedWords(model) && (
+                  <span className="mt-1 block text-sm text-ink-700">{clearedWords(model)}</span>
+                )}
               </td>
               <td className="px-3 py-3 text-sm text-ink-700">
                 {model.latest ? (

@@ -1,4 +1,5 @@
-import { Fragment } from 'react';
+import { Fragment, type ReactNode } from 'react';
+import type { ChosenSetting } from '../../reviews/components/review-plan';
 import { Badge } from '../../../components/ui/badge';
 import { Card } from '../../../components/ui/card';
 import { cx } from '../../../lib/cx';
@@ -19,8 +20,34 @@ export function TelemetryBadge({ receiver }: { receiver: PlanReceiver }) {
   );
 }
 
-/** Channels 1 to the link's count (and any used beyond it) against the receivers that carry them. */
-export function ChannelGrid({ plan }: { plan: ChannelPlan }) {
+/** A setting's name as a button that starts a comment on it, when the reader may comment. */
+function Choosable({
+  setting,
+  onChoose,
+  children,
+}: {
+  setting: ChosenSetting;
+  onChoose?: (setting: ChosenSetting) => void;
+  children: ReactNode;
+}) {
+  if (!onChoose) return <>{children}</>;
+  return (
+    <button
+      type="button"
+      onClick={() => onChoose(setting)}
+      aria-label={`Comment on ${setting.words}`}
+      className="cursor-pointer rounded-sm underline decoration-dotted underline-offset-2 hover:text-accent-800"
+    >
+      {children}
+    </button>
+  );
+}
+
+/**
+ * Channels 1 to the link's count (and any used beyond it) against the receivers that
+ * carry them. With `onChoose`, a channel's number and a pin start a comment on it.
+ */
+export function ChannelGrid({ plan, onChoose }: { plan: ChannelPlan; onChoose?: (setting: ChosenSetting) => void }) {
   const { rows, receivers, linkChannels } = plan;
   const columns = 3 + receivers.length;
 
@@ -66,7 +93,7 @@ export function ChannelGrid({ plan }: { plan: ChannelPlan }) {
                   </td>
                 </tr>
               )}
-              <ChannelRow row={row} receivers={receivers} />
+              <ChannelRow row={row} receivers={receivers} onChoose={onChoose} />
             </Fragment>
           ))}
         </tbody>
@@ -79,7 +106,15 @@ export function ChannelGrid({ plan }: { plan: ChannelPlan }) {
 const PHONE_LINE =
   'max-sm:flex max-sm:basis-full max-sm:flex-wrap max-sm:items-start max-sm:gap-x-2 max-sm:border-l-0 max-sm:py-1 max-sm:pl-15 max-sm:before:w-full max-sm:before:text-sm max-sm:before:text-ink-700 max-sm:before:content-[attr(data-column)]';
 
-function ChannelRow({ row, receivers }: { row: PlanRow; receivers: PlanReceiver[] }) {
+function ChannelRow({
+  row,
+  receivers,
+  onChoose,
+}: {
+  row: PlanRow;
+  receivers: PlanReceiver[];
+  onChoose?: (setting: ChosenSetting) => void;
+}) {
   // Accepted findings and notes do not colour the row: only what is open and needs a look.
   const open = row.marks.filter((mark) => mark.kind !== 'accepted' && mark.finding.severity !== 'info');
   const worst = open.some((mark) => mark.finding.severity === 'error') ? 'error' : open.length > 0 ? 'warning' : null;
@@ -99,7 +134,9 @@ function ChannelRow({ row, receivers }: { row: PlanRow; receivers: PlanReceiver[
           worst === 'error' ? 'border-danger-700' : worst === 'warning' ? 'border-caution-700' : 'border-transparent',
         )}
       >
-        {row.ch}
+        <Choosable setting={{ path: `channels[ch=${row.ch}]`, words: `Channel ${row.ch}` }} onChoose={onChoose}>
+          {row.ch}
+        </Choosable>
       </th>
       <td className="px-3 py-2 max-sm:min-w-0 max-sm:flex-1">
         {row.functions.length === 0 ? (
@@ -141,7 +178,15 @@ function ChannelRow({ row, receivers }: { row: PlanRow; receivers: PlanReceiver[
                     key={pin.pin}
                     className="rounded-sm border border-accent-700/30 bg-accent-50 px-1.5 py-0.5 text-sm text-ink-900"
                   >
-                    <span className="font-medium">Pin {pin.pin}</span>
+                    <Choosable
+                      setting={{
+                        path: `receivers[id=${receiver.id}].map[pin=${pin.pin}]`,
+                        words: `Pin ${pin.pin} of receiver ${receiver.id}`,
+                      }}
+                      onChoose={onChoose}
+                    >
+                      <span className="font-medium">Pin {pin.pin}</span>
+                    </Choosable>
                     <span className="ml-1 text-xs text-ink-700">failsafe {failsafeText(pin.failsafe)}</span>
                   </li>
                 ))}

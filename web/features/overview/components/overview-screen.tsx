@@ -1,4 +1,4 @@
-import { useMemo, type ReactNode } from 'react';
+import { useMemo, useState, type ReactNode } from 'react';
 import { Link, useParams } from 'react-router-dom';
 import { ReviewStateBadge, Badge } from '../../../components/ui/badge';
 import { buttonClasses } from '../../../components/ui/button';
@@ -11,10 +11,16 @@ import { PageHeader } from '../../../components/ui/page-header';
 import { CautionsPanel } from '../../cautions/components/cautions-panel';
 import { FindingsList } from '../../findings/components/findings-list';
 import { useModel } from '../../models/api/get-model';
-import { useRevision } from '../../models/api/get-revision';
+import { useAddressedRevision } from '../../models/api/use-addressed-revision';
+import { RevisionPicker } from '../../bench/components/revision-picker';
+import { useRevisionThreads } from '../../reviews/api/reviews';
+import type { ChosenSetting } from '../../reviews/components/review-plan';
+import { ThreadsPanel } from '../../reviews/components/threads-panel';
+import { roleAtLeast } from '@shared/contract/roles';
 import { CheckBadges } from '../../models/components/check-badges';
 import { TimeAgo } from '../../models/components/time-ago';
 import { canEdit } from '../../models/permissions';
+import { clearedWords } from '../../models/cleared-words';
 import type { Revision, SetupModelView } from '../../models/types';
 import { buildChannelPlan, MARK_WORDS, type MarkKind } from '../channel-plan';
 import { ChannelGrid } from './channel-grid';
@@ -24,25 +30,37 @@ import { MixList, mixesOf } from './mix-list';
 import { useProvenance } from '../../provenance/api/get-provenance';
 import { SourceUpdatesNotice } from '../../lineage/components/source-updates-notice';
 
+/** `/models/:id/overview`, of the latest revision or of the one `?revision=` names (number or id). */
 export function OverviewScreen() {
   const { modelId = '' } = useParams();
   const model = useModel(modelId);
-  const revision = useRevision(model.data?.latest?.id);
+  const addressed = useAddressedRevision(modelId, model.data?.latest?.id);
+  const revision = addressed.revision;
   const title = model.data ? `Overview · ${model.data.name}` : 'Overview';
 
   let body: ReactNode;
-  if (model.isPending || (model.data?.latest && revision.isPending))
-    body = <LoadingState label="Loading the channel plan…" />;
+  if (model.isPending || addressed.pending) body = <LoadingState label="Loading the channel plan…" />;
   else if (model.isError)
     body = (
       <ErrorState title="This model could not be loaded" error={model.error} onRetry={() => void model.refetch()} />
     );
-  else if (revision.isError)
+  else if (addressed.invalid || addressed.error || revision.isError)
     body = (
       <ErrorState
-        title="The latest revision could not be loaded"
-        error={revision.error}
+        title={
+          addressed.asked
+            ? `There is no revision “${addressed.asked}” of this model`
+            : 'The latest revision could not be loaded'
+        }
+        error={addressed.invalid ? new Error('Name a revision by its number, like ?revision=9.') : addressed.error}
         onRetry={() => void revision.refetch()}
+      />
+    );
+  else if (revision.data && revision.data.model_id !== model.data.id)
+    body = (
+      <ErrorState
+        title="That revision is not one of this model’s"
+        error={new Error('Pick a revision of this model from the list.')}
       />
     );
   else if (!revision.data)
@@ -60,11 +78,17 @@ export function OverviewScreen() {
         documentTitle={title}
         description="The channel plan against the receivers and their pins, what the checks found, and the cautions before flying."
         actions={
-          model.data &&
-          canEdit(model.data.role) && (
-            <Link to={`/models/${modelId}/edit`} className={buttonClasses('secondary')}>
-              Edit the setup
-            </Link>
+          model.data && (
+            <div className="flex flex-wrap items-end gap-3">
+              {revision.data && revision.data.model_id === model.data.id && (
+                <RevisionPicker modelId={model.data.id} current={revision.data} latest={model.data.latest} />
+              )}
+              {canEdit(model.data.role) && (
+                <Link to={`/models/${modelId}/edit`} className={buttonClasses('secondary')}>
+                  Edit the setup
+                </Link>
+              )}
+            </div>
           )
         }
       />
@@ -77,9 +101,23 @@ function Overview({ model, revision }: { model: SetupModelView; revision: Revisi
   const plan = useMemo(() => buildChannelPlan(revision.document, revision.findings), [revision]);
   const marksUsed = new Set(plan.rows.flatMap((row) => row.marks.map((mark) => mark.kind)));
   const provenance = useProvenance(model.id, revision.id).data;
+  const canComment = roleAtLeast(model.role, 'reviewer');
+  const threads = useRevisionThreads(revision.id, 'all');
+  const [chosen, setChosen] = useState<ChosenSetting | null>(null);
+  const isLatest = revision.id === model.latest?.id;
 
   return (
     <div className="space-y-8">
+      {!isLatest && model.latest && (
+        <p className="rounded-md border border-info-700/40 bg-info-100 px-4 py-2 text-base text-info-700">
+          This is revision {revision.number}; the latest is revision {model.latest.number}.{' '}
+          <Link to={`/models/${model.id}/overview`}>Show the latest</Link>
+          {' · '}
+          <Link to={`/models/${model.id}/sheet?revision=${revision.number}`}>
+            Field sheet of revision {revision.number}
+          </Link>
+        </p>
+      )}
       <Summary model={model} revision={revision} linkChannels={plan.linkChannels} receivers={plan.receivers.length} />
       {model.forked_from?.readable && <SourceUpdatesNotice model={model} />}
 
@@ -100,7 +138,7 @@ function Overview({ model, revision }: { model: SetupModelView; revision: Revisi
           </EmptyState>
         ) : (
           <>
-            <ChannelGrid plan={plan} />
+            <ChannelGrid plan={plan} onChoose={canComment ? setChosen : undefined} />
             {marksUsed.size > 0 && <MarkLegend kinds={[...marksUsed]} />}
           </>
         )}
@@ -139,6 +177,24 @@ function Overview({ model, revision }: { model: SetupModelView; revision: Revisi
         </section>
         <CautionsPanel className="self-start" />
       </div>
+
+      <section aria-label="Comments">
+        {threads.isError ? (
+          <ErrorState
+            title="The comments could not be loaded"
+            error={threads.error}
+            onRetry={() => void threads.refetch()}
+          />
+        ) : (
+          <ThreadsPanel
+            threads={threads.data ?? []}
+            where={{ revisionId: revision.id, workspaceId: model.workspace_id }}
+            canComment={canComment}
+            chosen={chosen}
+            onChosenChange={setChosen}
+          />
+        )}
+      </section>
     </div>
   );
 }
@@ -211,14 +267,29 @@ function Summary({
           <CheckBadges errors={revision.error_count} warnings={revision.warning_count} />
         </Fact>
         <Fact label="Review">
-          <span className="flex flex-wrap gap-1">
-            <ReviewStateBadge state={model.review_state} />
-            {model.cleared_for_maiden && (
-              <Badge tone="moss" icon={CheckIcon}>
-                Cleared for maiden
-              </Badge>
-            )}
-          </span>
+          {revision.id !== model.latest?.id ? (
+            <span className="text-base">
+              {model.approved?.id === revision.id ? (
+                <Badge tone="moss" icon={CheckIcon}>
+                  Approved, cleared to fly
+                </Badge>
+              ) : (
+                (clearedWords(model) ?? 'Not the approved revision')
+              )}
+            </span>
+          ) : (
+            <span className="flex flex-wrap gap-1">
+              <ReviewStateBadge state={model.review_state} />
+              {model.cleared_for_maiden && (
+                <Badge tone="moss" icon={CheckIcon}>
+                  Cleared for maiden
+                </Badge>
+              )}
+              {!model.cleared_for_maiden && clearedWords(model) && (
+                <span className="block w-full text-sm text-ink-700">{clearedWords(model)}</span>
+              )}
+            </span>
+          )}
         </Fact>
       </dl>
       {revision.message && (

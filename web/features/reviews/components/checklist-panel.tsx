@@ -2,13 +2,14 @@ import { Card } from '../../../components/ui/card';
 import { useToast } from '../../../components/ui/toast';
 import { TimeAgo } from '../../models/components/time-ago';
 import { useTickItem } from '../api/reviews';
-import type { ReviewDetail } from '../types';
+import type { BaseParam, ReviewDetail } from '../types';
 
 /** The pre-maiden checklist: each item ticked by a reviewer once confirmed on the model itself. */
-export function ChecklistPanel({ review }: { review: ReviewDetail }) {
-  const tick = useTickItem(review);
+export function ChecklistPanel({ review, base }: { review: ReviewDetail; base: BaseParam }) {
+  const tick = useTickItem(review, base);
   const toast = useToast();
   const done = review.checklist.filter((item) => item.ticked).length;
+  const carried = review.checklist.filter((item) => item.ticked && item.carried).length;
 
   return (
     <Card className="p-5">
@@ -19,8 +20,15 @@ export function ChecklistPanel({ review }: { review: ReviewDetail }) {
         </span>
       </div>
       <p className="mt-0.5 text-sm text-ink-700">
-        Checks made on the model itself, not in the document: tick each one when it has been done.
+        Checks made on the model itself, not in the document: tick each one when it has been done. Work through it
+        before giving your verdict.
       </p>
+      {carried > 0 && (
+        <p className="mt-2 rounded-md border border-info-700/40 bg-info-100 px-3 py-2 text-sm text-info-700">
+          {carried} {carried === 1 ? 'tick was' : 'ticks were'} carried from an earlier review, because nothing the item
+          covers has changed since; each says why. Untick one to check it again.
+        </p>
+      )}
       <ul className="mt-3 space-y-3">
         {review.checklist.map((item) => {
           const id = `check-${item.id}`;
@@ -50,7 +58,8 @@ export function ChecklistPanel({ review }: { review: ReviewDetail }) {
                 <p id={`${id}-detail`} className="text-sm text-ink-700">
                   {item.detail}
                 </p>
-                <p className="mt-0.5 text-xs text-ink-500">
+                {item.ticked && item.carried && <p className="mt-0.5 text-sm text-info-700">{item.carried.reason}</p>}
+                <p className="mt-0.5 text-xs text-ink-700">
                   {item.source ? `Source: ${item.source.title}.` : item.basis}
                   {item.ticked && item.ticked_by && (
                     <>

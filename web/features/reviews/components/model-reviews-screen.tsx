@@ -17,14 +17,31 @@ import { itemsOf, totalOf } from '../../../lib/paged';
 import { RequestReviewDialog } from './request-review-dialog';
 import { ReviewTable } from './review-table';
 
-const STATE_SENTENCES = {
-  none: 'Nobody has reviewed this model yet.',
-  pending: 'A review of the latest revision is waiting for a verdict.',
-  approved: 'The latest revision is approved.',
-  stale:
-    'An earlier revision was approved, but the setup has changed since: the latest revision needs a review of its own.',
-  'changes-requested': 'A reviewer asked for changes to the latest revision.',
-} as const;
+/**
+ * Where the model stands, in a sentence that agrees with the list below it: a model
+ * whose earlier revisions were reviewed is not "never reviewed" just because its
+ * latest revision has not been.
+ */
+function stateSentence(model: SetupModelView, reviewed: boolean): string {
+  const latest = model.latest ? `revision ${model.latest.number}` : 'the latest revision';
+  const approved = model.approved;
+  switch (model.review_state) {
+    case 'none':
+      return reviewed
+        ? `The latest revision, ${latest}, has not been reviewed; the reviews below are of earlier revisions.`
+        : 'Nobody has reviewed this model yet.';
+    case 'pending':
+      return `A review of ${latest}, the latest, is waiting for a verdict.`;
+    case 'approved':
+      return `The latest revision, ${latest}, is approved.`;
+    case 'stale':
+      return approved
+        ? `Revision ${approved.number} is approved, but the setup has changed since: ${latest} needs a review of its own.`
+        : `An earlier revision was approved, but the setup has changed since: ${latest} needs a review of its own.`;
+    case 'changes-requested':
+      return `A reviewer asked for changes to ${latest}, the latest.`;
+  }
+}
 
 /** `/models/:modelId/reviews`: the model's sign-off state, its reviews, and "Request review". */
 export function ModelReviewsScreen() {
@@ -55,7 +72,16 @@ export function ModelReviewsScreen() {
             Cleared for its maiden
           </Badge>
         )}
-        <p className="text-base text-ink-700">{STATE_SENTENCES[model.data.review_state]}</p>
+        <p className="text-base text-ink-700">{stateSentence(model.data, loaded.length > 0)}</p>
+        {model.data.approved && model.data.approved.number !== model.data.latest?.number && (
+          <p className="w-full text-sm text-ink-700">
+            Cleared to fly: revision {model.data.approved.number}, approved by{' '}
+            {model.data.approved.approvers.map((person) => person.name).join(', ') || 'a former member'}.{' '}
+            <Link to={`/models/${model.data.id}/sheet?revision=${model.data.approved.number}`}>Its field sheet</Link>
+            {' · '}
+            <Link to={`/models/${model.data.id}/overview?revision=${model.data.approved.number}`}>Its overview</Link>
+          </p>
+        )}
       </Card>
       {asking && <RequestReviewDialog model={model.data} onClose={() => setAsking(false)} />}
       {reviews.isPending ? (

@@ -1,4 +1,5 @@
-import { Link, useParams } from 'react-router-dom';
+import { useState } from 'react';
+import { Link, useParams, useSearchParams } from 'react-router-dom';
 import { Badge, ReviewStateBadge } from '../../../components/ui/badge';
 import { Card } from '../../../components/ui/card';
 import { ErrorState } from '../../../components/ui/error-state';
@@ -14,35 +15,72 @@ import { ChangeFindingsPanel } from '../../findings/components/change-findings-p
 import { FindingsList } from '../../findings/components/findings-list';
 import { CheckBadges } from '../../models/components/check-badges';
 import { TimeAgo } from '../../models/components/time-ago';
+import { SelectField } from '../../../components/ui/select-field';
+import { revisionsOf, useRevisions } from '../../models/api/list-revisions';
 import { useReview } from '../api/reviews';
-import type { ReviewDetail } from '../types';
-import { CommentsPanel } from './comments-panel';
+import type { BaseParam, LeftOpen, ReviewDetail } from '../types';
 import { ChecklistPanel } from './checklist-panel';
+import { ReviewPlanView, type ChosenSetting } from './review-plan';
+import { ThreadsPanel } from './threads-panel';
 import { RequestStateBadge, VerdictBadge } from './review-badges';
 import { VerdictForm } from './verdict-form';
 
 const BASE_WORDS = {
   approved: 'the last approved revision',
-  parent: 'the revision before it',
-  'fork-source': 'the revision it was forked from',
+  previous: 'the revision before it',
+  chosen: 'the revision you chose',
 } as const;
+
+const BASE_PARAMS = new Set(['approved', 'previous', 'none']);
+
+/** `?base=` as the page understands it: approved, previous, none or a revision number; anything else is the default. */
+function baseParamOf(value: string | null): BaseParam {
+  if (value === null) return null;
+  if (BASE_PARAMS.has(value) || /^\d{1,9}$/.test(value)) return value as BaseParam;
+  return null;
+}
 
 /** `/w/:wsId/reviews/:reviewId`: one review, everything the reviewer needs on one page. */
 export function ReviewScreen() {
   const { reviewId = '' } = useParams();
-  const review = useReview(reviewId);
+  const [params, setParams] = useSearchParams();
+  const base = baseParamOf(params.get('base'));
+  const review = useReview(reviewId, base);
 
   if (review.isPending) return <LoadingState label="Loading the review…" />;
   if (review.isError)
     return (
-      <ErrorState title="This review could not be loaded" error={review.error} onRetry={() => void review.refetch()} />
+      <ErrorState
+        title={base ? 'This review could not be compared with that revision' : 'This review could not be loaded'}
+        error={review.error}
+        onRetry={base ? () => setParams({}, { replace: true }) : () => void review.refetch()}
+        retryLabel={base ? 'Compare with the default' : undefined}
+      />
     );
-  return <ReviewPage review={review.data} />;
+  return (
+    <ReviewPage
+      review={review.data}
+      base={base}
+      comparing={review.isFetching && review.isPlaceholderData}
+      onBaseChange={(next) => setParams(next ? { base: next } : {}, { replace: true })}
+    />
+  );
 }
 
-function ReviewPage({ review }: { review: ReviewDetail }) {
+function ReviewPage({
+  review,
+  base,
+  comparing,
+  onBaseChange,
+}: {
+  review: ReviewDetail;
+  base: BaseParam;
+  comparing: boolean;
+  onBaseChange: (base: BaseParam) => void;
+}) {
   const title = `${review.model.name}, revision ${review.revision.number}`;
   const modelPath = `/models/${review.model.id}`;
+  const [chosen, setChosen] = useState<ChosenSetting | null>(null);
 
   return (
     <>
@@ -73,69 +111,84 @@ function ReviewPage({ review }: { review: ReviewDetail }) {
         }
       />
 
-      <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_22rem]">
+      <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_24rem]">
         <div className="min-w-0 space-y-6">
           <StatusCard review={review} />
-          <section aria-labelledby="compare-heading">
-            <div className="mb-3 flex flex-wrap items-baseline gap-x-3 gap-y-1">
-              <h2 id="compare-heading" className="text-lg font-semibold text-ink-900">
-                {review.base ? `What changed since revision ${review.base.revision.number}` : 'The whole setup'}
-              </h2>
-              {review.base && review.compare && <KindCounts counts={review.compare.counts} />}
-            </div>
-            {review.base && review.compare ? (
-              <>
-                <p className="mb-3 text-sm text-ink-700">
-                  Compared with {BASE_WORDS[review.base.kind]}, revision {review.base.revision.number}
-                  {review.base.revision.author && ` by ${review.base.revision.author.name}`}: “
-                  {review.base.revision.message}”.
+          <section aria-labelledby="plan-heading" aria-busy={comparing || undefined}>
+            <div className="mb-3 flex flex-wrap items-end justify-between gap-3">
+              <div>
+                <h2 id="plan-heading" className="text-lg font-semibold text-ink-900">
+                  The whole setup of revision {review.revision.number}
+                </h2>
+                <p className="text-sm text-ink-700">
+                  {review.base
+                    ? `Each entry is marked against ${BASE_WORDS[review.base.kind]}, revision ${review.base.revision.number}.`
+                    : 'Nothing to compare with: every entry is new to the reviewer.'}
                 </p>
-                <ChangeList changes={review.compare.changes} sections={review.compare.sections} />
-                <details
-                  className="mt-4 rounded-lg border border-ply-200 bg-paper-raised px-4 py-3"
-                  open={review.compare.findings_delta.introduced.length > 0}
-                >
-                  <summary className="cursor-pointer font-medium text-ink-900">
-                    What the checks say differently ({review.compare.findings_delta.introduced.length} new,{' '}
-                    {review.compare.findings_delta.resolved.length} resolved)
-                  </summary>
-                  <div className="mt-3">
-                    <FindingsDeltaView
-                      delta={review.compare.findings_delta}
-                      toModelId={review.model.id}
-                      toIsLatest={review.latest?.id === review.revision.id}
-                    />
-                  </div>
-                </details>
-                <ChangeFindingsPanel
-                  findings={review.compare.change_findings}
-                  level={3}
-                  className="mt-3 rounded-lg border border-ply-200 bg-paper-raised px-4 py-3"
-                />
-                <details className="mt-3 rounded-lg border border-ply-200 bg-paper-raised px-4 py-3">
-                  <summary className="cursor-pointer font-medium text-ink-900">Which pins now move differently</summary>
-                  <div className="mt-3">
-                    <OutputsDeltaTable deltas={review.compare.outputs_delta} />
-                  </div>
-                </details>
-                <details className="mt-3 rounded-lg border border-ply-200 bg-paper-raised px-4 py-3">
-                  <summary className="cursor-pointer font-medium text-ink-900">The YAML side by side</summary>
-                  <div className="mt-3">
-                    <TextDiffView
-                      diff={review.compare.text}
-                      fromLabel={`Revision ${review.base.revision.number}`}
-                      toLabel={`Revision ${review.revision.number}`}
-                    />
-                  </div>
-                </details>
-              </>
-            ) : (
-              <Card className="px-4 py-3 text-base text-ink-700">
-                This is the model’s first revision and nothing was approved before it: review the whole setup on the{' '}
-                <Link to={`${modelPath}/overview`}>model’s overview</Link>.
-              </Card>
-            )}
+              </div>
+              <BasePicker review={review} base={base} onChange={onBaseChange} />
+            </div>
+            <ReviewPlanView
+              plan={review.plan}
+              threads={review.comments}
+              canComment={review.can.comment}
+              onChoose={setChosen}
+            />
           </section>
+
+          {review.base && review.compare && (
+            <section aria-labelledby="compare-heading">
+              <div className="mb-3 flex flex-wrap items-baseline gap-x-3 gap-y-1">
+                <h2 id="compare-heading" className="text-lg font-semibold text-ink-900">
+                  What changed since revision {review.base.revision.number}
+                </h2>
+                <KindCounts counts={review.compare.counts} />
+              </div>
+              <p className="mb-3 text-sm text-ink-700">
+                Compared with {BASE_WORDS[review.base.kind]}, revision {review.base.revision.number}
+                {review.base.revision.author && ` by ${review.base.revision.author.name}`}: “
+                {review.base.revision.message}”.
+              </p>
+              <ChangeList changes={review.compare.changes} sections={review.compare.sections} />
+              <details
+                className="mt-4 rounded-lg border border-ply-200 bg-paper-raised px-4 py-3"
+                open={review.compare.findings_delta.introduced.length > 0}
+              >
+                <summary className="cursor-pointer font-medium text-ink-900">
+                  What the checks say differently ({review.compare.findings_delta.introduced.length} new,{' '}
+                  {review.compare.findings_delta.resolved.length} resolved)
+                </summary>
+                <div className="mt-3">
+                  <FindingsDeltaView
+                    delta={review.compare.findings_delta}
+                    toModelId={review.model.id}
+                    toIsLatest={review.latest?.id === review.revision.id}
+                  />
+                </div>
+              </details>
+              <ChangeFindingsPanel
+                findings={review.compare.change_findings}
+                level={3}
+                className="mt-3 rounded-lg border border-ply-200 bg-paper-raised px-4 py-3"
+              />
+              <details className="mt-3 rounded-lg border border-ply-200 bg-paper-raised px-4 py-3">
+                <summary className="cursor-pointer font-medium text-ink-900">Which pins now move differently</summary>
+                <div className="mt-3">
+                  <OutputsDeltaTable deltas={review.compare.outputs_delta} />
+                </div>
+              </details>
+              <details className="mt-3 rounded-lg border border-ply-200 bg-paper-raised px-4 py-3">
+                <summary className="cursor-pointer font-medium text-ink-900">The YAML side by side</summary>
+                <div className="mt-3">
+                  <TextDiffView
+                    diff={review.compare.text}
+                    fromLabel={`Revision ${review.base.revision.number}`}
+                    toLabel={`Revision ${review.revision.number}`}
+                  />
+                </div>
+              </details>
+            </section>
+          )}
 
           <section aria-labelledby="findings-heading">
             <div className="mb-3 flex flex-wrap items-baseline gap-x-3">
@@ -151,10 +204,18 @@ function ReviewPage({ review }: { review: ReviewDetail }) {
             />
           </section>
 
-          <CommentsPanel review={review} />
+          <ThreadsPanel
+            threads={review.comments}
+            where={{ reviewId: review.id, revisionId: review.revision.id, workspaceId: review.workspace_id }}
+            canComment={review.can.comment}
+            chosen={chosen}
+            onChosenChange={setChosen}
+          />
         </div>
 
         <aside className="space-y-6" aria-label="Sign-off">
+          {/* The checklist comes before the verdict, on screen and in tab order. */}
+          <ChecklistPanel review={review} base={base} />
           {review.can.verdict ? (
             <VerdictForm review={review} />
           ) : (
@@ -162,12 +223,49 @@ function ReviewPage({ review }: { review: ReviewDetail }) {
               Reviewers, editors and owners give verdicts; your role here lets you read the review.
             </Card>
           )}
-          <ChecklistPanel review={review} />
           <Verdicts review={review} />
         </aside>
       </div>
       <CautionsPanel className="mt-8" />
     </>
+  );
+}
+
+/** Which revision the page compares with: the last approved, the previous, none, or any other of the model's. */
+function BasePicker({
+  review,
+  base,
+  onChange,
+}: {
+  review: ReviewDetail;
+  base: BaseParam;
+  onChange: (base: BaseParam) => void;
+}) {
+  const history = useRevisions(review.model.id);
+  const others = revisionsOf(history.data?.pages).filter((revision) => revision.id !== review.revision.id);
+  const value = base ?? (review.base?.kind === 'approved' ? 'approved' : 'none');
+  const { approved, previous } = review.base_options;
+  return (
+    <SelectField
+      label="Compare with"
+      value={value}
+      onChange={(event) => onChange(event.target.value as BaseParam)}
+      className="w-full sm:w-80"
+    >
+      {approved && <option value="approved">The last approved revision ({approved.number})</option>}
+      {previous && <option value="previous">The revision before it ({previous.number})</option>}
+      <option value="none">Nothing: show the whole setup as new</option>
+      {others.length > 0 && (
+        <optgroup label="Another revision">
+          {others.map((revision) => (
+            <option key={revision.id} value={String(revision.number)}>
+              Revision {revision.number}
+              {revision.message ? ` · ${revision.message}` : ''}
+            </option>
+          ))}
+        </optgroup>
+      )}
+    </SelectField>
   );
 }
 
@@ -219,10 +317,28 @@ function Verdicts({ review }: { review: ReviewDetail }) {
                 <TimeAgo iso={verdict.created_at} className="text-ink-500" />
               </div>
               {verdict.body && <p className="mt-1 text-base whitespace-pre-wrap text-ink-900">{verdict.body}</p>}
+              {verdict.left_open && <LeftOpenNote left={verdict.left_open} />}
             </li>
           ))}
         </ol>
       )}
     </Card>
+  );
+}
+
+/** What an approval was confirmed with, left undone: on the review for everyone to read. */
+function LeftOpenNote({ left }: { left: LeftOpen }) {
+  return (
+    <div className="mt-2 rounded-md border border-caution-700/40 bg-caution-100 px-3 py-2 text-sm text-ink-900">
+      <p className="font-medium">Approved with these left open:</p>
+      <ul className="mt-1 list-disc pl-5">
+        {left.unticked.map((item) => (
+          <li key={item.id}>Not ticked: {item.label}</li>
+        ))}
+        {left.warnings.map((warning) => (
+          <li key={`${warning.rule}:${warning.path}`}>Open warning: {warning.message}</li>
+        ))}
+      </ul>
+    </div>
   );
 }

@@ -1,6 +1,7 @@
 import { useState, type FormEvent } from 'react';
 import { Button } from '../../../components/ui/button';
 import { Card } from '../../../components/ui/card';
+import { Dialog } from '../../../components/ui/dialog';
 import { FormAlert } from '../../../components/ui/form-alert';
 import { TextAreaField } from '../../../components/ui/text-area-field';
 import { useToast } from '../../../components/ui/toast';
@@ -9,7 +10,7 @@ import type { Id } from '../../../types/api';
 import { useSession } from '../../auth/hooks/use-session';
 import { TimeAgo } from '../../models/components/time-ago';
 import { useGiveVerdict } from '../api/reviews';
-import type { ReviewDetail, Verdict, VerdictEntry } from '../types';
+import type { LeftOpen, ReviewDetail, Verdict, VerdictEntry } from '../types';
 
 const CHOICES: { value: Verdict; label: string; hint: string }[] = [
   { value: 'approve', label: 'Approve', hint: 'Signs off this content for the maiden.' },
@@ -37,41 +38,73 @@ const STANDING_WORDS: Record<Exclude<Verdict, 'comment'>, { said: string; otherw
   },
 };
 
+/** What approving now would leave undone, from the page's checklist and findings. */
+function leftOpenOf(review: ReviewDetail): LeftOpen {
+  return {
+    unticked: review.checklist.filter((item) => !item.ticked).map(({ id, label }) => ({ id, label })),
+    warnings: review.findings
+      .filter((finding) => finding.severity === 'warning' && finding.accepted === undefined)
+      .map(({ rule, path, message }) => ({ rule, path, message })),
+  };
+}
+
+const isEmpty = (left: LeftOpen) => left.unticked.length === 0 && left.warnings.length === 0;
+
+/**
+ * The reviewer's verdict, after the checklist: nothing is chosen for them, and an
+ * approval with items unticked or warnings open is confirmed in a dialog that lists
+ * them; the approval records what was left.
+ */
 export function VerdictForm({ review }: { review: ReviewDetail }) {
   const { user } = useSession();
   const standing = standingVerdict(review.verdicts, user.id);
   // What the caller already said is not offered again as if nothing had happened.
   const choices = CHOICES.filter((choice) => choice.value !== standing?.verdict);
-  // Until the caller picks, approving is suggested to a reviewer who has not said anything yet.
   const [picked, setPicked] = useState<Verdict | null>(null);
   const offered = (value: Verdict) =>
     choices.some((choice) => choice.value === value) && (value !== 'approve' || review.can.approve);
-  const suggested: Verdict = !standing && review.can.approve ? 'approve' : 'comment';
-  const verdict: Verdict = picked !== null && offered(picked) ? picked : suggested;
+  const verdict: Verdict | null = picked !== null && offered(picked) ? picked : null;
   const [body, setBody] = useState('');
+  const [confirming, setConfirming] = useState<LeftOpen | null>(null);
+  const [unpicked, setUnpicked] = useState(false);
   const give = useGiveVerdict(review);
   const toast = useToast();
-  const unticked = review.checklist.filter((item) => !item.ticked).length;
 
-  const onSubmit = (event: FormEvent<HTMLFormElement>) => {
-    event.preventDefault();
+  const send = (chosen: Verdict, confirmLeftOpen: boolean) =>
     give.mutate(
-      { verdict, body: body.trim() || undefined },
+      { verdict: chosen, body: body.trim() || undefined, ...(confirmLeftOpen ? { confirm_left_open: true } : {}) },
       {
         onSuccess: () => {
           setBody('');
           setPicked(null);
+          setConfirming(null);
           toast({
             title:
-              verdict === 'approve'
+              chosen === 'approve'
                 ? 'Approved: the requester has been told'
-                : verdict === 'request-changes'
+                : chosen === 'request-changes'
                   ? 'Changes asked for: the requester has been told'
                   : 'Comment recorded',
           });
         },
+        onError: () => setConfirming(null),
       },
     );
+
+  const onSubmit = (event: FormEvent<HTMLFormElement>) => {
+    event.preventDefault();
+    if (verdict === null) {
+      setUnpicked(true);
+      return;
+    }
+    if (verdict === 'approve') {
+      const left = leftOpenOf(review);
+      if (!isEmpty(left)) {
+        setConfirming(left);
+        return;
+      }
+    }
+    send(verdict, false);
   };
 
   return (
@@ -85,10 +118,10 @@ export function VerdictForm({ review }: { review: ReviewDetail }) {
           <p className="mt-0.5 text-sm text-ink-700">{STANDING_WORDS[standing.verdict].otherwise}</p>
         </div>
       )}
-      <form onSubmit={onSubmit} className="mt-3 space-y-4" aria-label="Give a verdict">
+      <form onSubmit={onSubmit} className="mt-3 space-y-4" aria-label="Give a verdict" noValidate>
         {give.isError && <FormAlert>{give.error.message}</FormAlert>}
-        <fieldset>
-          <legend className="sr-only">Verdict</legend>
+        <fieldset aria-describedby={unpicked && verdict === null ? 'verdict-unpicked' : undefined}>
+          <legend className="mb-2 text-sm font-medium text-ink-900">Choose your verdict</legend>
           <div className="space-y-2">
             {choices.map((choice) => {
               const disabled = choice.value === 'approve' && !review.can.approve;
@@ -107,7 +140,10 @@ export function VerdictForm({ review }: { review: ReviewDetail }) {
                     value={choice.value}
                     checked={verdict === choice.value}
                     disabled={disabled}
-                    onChange={() => setPicked(choice.value)}
+                    onChange={() => {
+                      setPicked(choice.value);
+                      setUnpicked(false);
+                    }}
                     className="mt-1 accent-accent-700"
                   />
                   <span>
@@ -120,13 +156,12 @@ export function VerdictForm({ review }: { review: ReviewDetail }) {
               );
             })}
           </div>
+          {unpicked && verdict === null && (
+            <p id="verdict-unpicked" className="mt-2 text-sm text-danger-700">
+              Choose a verdict first.
+            </p>
+          )}
         </fieldset>
-        {verdict === 'approve' && unticked > 0 && (
-          <p className="text-sm text-caution-700">
-            {unticked} checklist {unticked === 1 ? 'item is' : 'items are'} not ticked yet; the approval records what
-            was ticked.
-          </p>
-        )}
         <TextAreaField
           label="What you found"
           name="body"
@@ -137,9 +172,72 @@ export function VerdictForm({ review }: { review: ReviewDetail }) {
           placeholder="What you checked, and anything the pilot should know."
         />
         <Button type="submit" pending={give.isPending} variant={verdict === 'request-changes' ? 'danger' : 'primary'}>
-          {CHOICES.find((choice) => choice.value === verdict)?.label}
+          {verdict === null ? 'Give verdict' : CHOICES.find((choice) => choice.value === verdict)?.label}
         </Button>
       </form>
+      {confirming && (
+        <ConfirmApproval
+          left={confirming}
+          pending={give.isPending}
+          onConfirm={() => send('approve', true)}
+          onClose={() => setConfirming(null)}
+        />
+      )}
     </Card>
+  );
+}
+
+function ConfirmApproval({
+  left,
+  pending,
+  onConfirm,
+  onClose,
+}: {
+  left: LeftOpen;
+  pending: boolean;
+  onConfirm: () => void;
+  onClose: () => void;
+}) {
+  return (
+    <Dialog
+      title="Approve with these left open?"
+      description="The approval records what was left, and the review shows it to everyone."
+      onClose={onClose}
+    >
+      <div className="space-y-3 text-base text-ink-900">
+        {left.unticked.length > 0 && (
+          <section>
+            <h3 className="font-medium">
+              {left.unticked.length} checklist {left.unticked.length === 1 ? 'item is' : 'items are'} not ticked
+            </h3>
+            <ul className="mt-1 list-disc pl-5 text-sm">
+              {left.unticked.map((item) => (
+                <li key={item.id}>{item.label}</li>
+              ))}
+            </ul>
+          </section>
+        )}
+        {left.warnings.length > 0 && (
+          <section>
+            <h3 className="font-medium">
+              {left.warnings.length} {left.warnings.length === 1 ? 'warning is' : 'warnings are'} open
+            </h3>
+            <ul className="mt-1 list-disc pl-5 text-sm">
+              {left.warnings.map((warning) => (
+                <li key={`${warning.rule}:${warning.path}`}>{warning.message}</li>
+              ))}
+            </ul>
+          </section>
+        )}
+        <div className="flex flex-wrap justify-end gap-2 pt-2">
+          <Button variant="secondary" onClick={onClose} data-autofocus>
+            Go back
+          </Button>
+          <Button onClick={onConfirm} pending={pending}>
+            Approve with these left
+          </Button>
+        </div>
+      </div>
+    </Dialog>
   );
 }
