@@ -124,13 +124,18 @@ describe('GET and PUT /api/workspaces/:ws/rules', () => {
       .post(`/api/revisions/${revision.id}/reviews`, { reviewers: [reviewer.user.id, secondReviewer.user.id] })
       .expect(201);
     const reviewId = asked.body.data.id;
+    // The checklist is left unticked here: each approval confirms what it leaves open.
     const refused = await owner.post(`/api/reviews/${reviewId}/verdicts`, { verdict: 'approve' }).expect(403);
     expect(refused.body.error.code).toBe('not-a-named-reviewer');
 
-    await reviewer.post(`/api/reviews/${reviewId}/verdicts`, { verdict: 'approve' }).expect(201);
+    await reviewer
+      .post(`/api/reviews/${reviewId}/verdicts`, { verdict: 'approve', confirm_left_open: true })
+      .expect(201);
     const afterOne = (await viewer.get(`/api/models/${model.id}`).expect(200)).body.data;
     expect(afterOne).toMatchObject({ review_state: 'pending', cleared_for_maiden: false });
-    await secondReviewer.post(`/api/reviews/${reviewId}/verdicts`, { verdict: 'approve' }).expect(201);
+    await secondReviewer
+      .post(`/api/reviews/${reviewId}/verdicts`, { verdict: 'approve', confirm_left_open: true })
+      .expect(201);
     expect((await viewer.get(`/api/models/${model.id}`).expect(200)).body.data).toMatchObject({
       review_state: 'approved',
       cleared_for_maiden: true,
