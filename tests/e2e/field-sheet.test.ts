@@ -44,7 +44,8 @@ describe('journey: print the field sheet and download its PDF', () => {
     const printed = await pdfParse(printout);
     expect(printed.text).toContain('Kestrel Mk II');
     expect(printed.text).toContain('Channel plan');
-    expect(printed.text).toMatch(/1\s*9\s*tailwheel\s*1500 µs/);
+    // A PDF's text may carry the micro sign (U+00B5) as the Greek mu (U+03BC): either reads µs.
+    expect(printed.text).toMatch(/1\s*9\s*tailwheel\s*1500 [µμ]s/);
     expect(printed.text).not.toContain('Sign out');
     expect(printed.text).not.toContain('Download PDF');
     expect(printed.text).not.toContain('Keep for the field');
@@ -62,8 +63,8 @@ describe('journey: print the field sheet and download its PDF', () => {
     expect(pdf.numpages).toBe(1);
     expect(pdf.text).toContain('Kestrel Mk II');
     // Wing pins 1-8 carry channels 9-16 (the demo's remap); the tailwheel's pin centres on failsafe.
-    expect(pdf.text).toMatch(/1\s*9\s*tailwheel\s*1500 µs/);
-    expect(pdf.text).toMatch(/3\s*3\s*motor\s*1000 µs/);
+    expect(pdf.text).toMatch(/1\s*9\s*tailwheel\s*1500 [µμ]s/);
+    expect(pdf.text).toMatch(/3\s*3\s*motor\s*1000 [µμ]s/);
     await saveScreenshot(page, 'journey-10-field-sheet');
     expectNoProblems(visit);
     await visit.context.close();

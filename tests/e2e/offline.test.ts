@@ -109,7 +109,7 @@ describe('offline at the field', () => {
     await page.getByRole('link', { name: 'Its field sheet' }).click();
     await page.locator('.field-sheet').waitFor();
     const sheet = (await page.locator('.field-sheet').innerText()).replace(/\s+/g, ' ');
-    expect(sheet).toContain(`Revision ${approved} Hash`);
+    expect(sheet).toContain(`Revision ${approved} Content fingerprint`);
     expect(sheet).toContain('Review Approved');
     await page.getByRole('link', { name: 'Overview' }).click();
     await page.getByRole('heading', { name: `Findings of revision ${sedge.latest!.number}` }).waitFor();
