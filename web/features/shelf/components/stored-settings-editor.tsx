@@ -84,7 +84,7 @@ export function StoredSettingsEditor({
                 Channel
               </th>
               <th scope="col" className="px-3 py-2 font-medium">
-                Failsafe (us, hold, off or empty)
+                Failsafe
               </th>
             </tr>
           </thead>
