@@ -1,7 +1,8 @@
 import { Suspense, useCallback, useEffect, useId, useMemo, useRef, useState, type ChangeEvent } from 'react';
 import { Link, useLocation, useSearchParams } from 'react-router-dom';
 import { analyzeSetup } from '@shared/analyze';
-import type { Finding } from '@shared/findings';
+import { countFindings, type Finding } from '@shared/findings';
+import { applyClubRules, DEFAULT_CLUB_RULES } from '@shared/rules/club-rules';
 import { lazyScreen } from '../../../app/lazy-screen';
 import { Badge, SeverityBadge } from '../../../components/ui/badge';
 import { Button, buttonClasses } from '../../../components/ui/button';
@@ -29,6 +30,7 @@ import { Notice } from './notice';
 import { PinMapForms } from './pin-map-form';
 import { SaveDialog, type SaveSignOff } from './save-dialog';
 import { useRevisionThreads } from '../../reviews/api/reviews';
+import { useClubRules } from '../../team/api/club-rules';
 import { settingWords } from '../../reviews/setting-words';
 import type { CommentThread } from '../../reviews/types';
 import { commentLines, type CommentLine } from '../comment-lines';
@@ -142,7 +144,14 @@ export function SetupEditor({ model, initialBase, restoredText, canEdit, role }:
 
   const dirty = canEdit && text !== base.yaml;
   const settled = useDebouncedValue(text, CHECK_DELAY_MS);
-  const checked = useMemo(() => ({ text: settled, analysis: analyzeSetup(settled) }), [settled]);
+  // The live checks rank findings by the club's rules, as the stored checks do; until
+  // the rules arrive the format's own severities stand.
+  const clubRules = useClubRules(model.workspace_id).data ?? DEFAULT_CLUB_RULES;
+  const analysis = useMemo(() => analyzeSetup(settled), [settled]);
+  const checked = useMemo(() => {
+    const findings = applyClubRules(analysis.findings, clubRules);
+    return { text: settled, analysis: { ...analysis, findings, counts: countFindings(findings) } };
+  }, [settled, analysis, clubRules]);
   const marks = useMemo(() => ({ text: checked.text, findings: checked.analysis.findings }), [checked]);
   const checking = settled !== text;
   const { counts } = checked.analysis;
