@@ -222,6 +222,23 @@ describe('journey: two tabs on one model, merged', () => {
     expect(third.yaml).not.toContain('6400');
     // The comments stay with their settings.
     expect(third.yaml).toContain('# motor must stop on signal loss');
+
+    // Beside the gutter, each line names the revision that last changed it: the weight the
+    // other tab's, the notes this one's.
+    await second.getByLabel('Show where each line came from').check();
+    await second.locator('.cm-origin-mark').first().waitFor();
+    const marks = await second
+      .locator('.cm-origin-mark')
+      .evaluateAll((elements) =>
+        elements.slice(0, 4).map((element) => `${element.textContent} ${element.getAttribute('title')}`),
+      );
+    // The first lines' settings (format, name, airframe) are as revision 1 set them.
+    expect(marks[0]).toMatch(/^r1 since r1, /);
+    const weightMark = await second.locator('.cm-origin-mark', { hasText: 'r2' }).first().getAttribute('title');
+    expect(weightMark).toContain('‘Weighed: 6350 g’');
+    const notesMark = await second.locator('.cm-origin-mark', { hasText: 'r3' }).first().getAttribute('title');
+    expect(notesMark).toContain('‘Shorter notes, on the measured weight’');
+    await saveScreenshot(second, 'journey-line-origins', { fullPage: false });
     expectNoProblems(visit, [409]);
     await visit.context.close();
   });
