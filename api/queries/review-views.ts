@@ -1,5 +1,6 @@
 import { Op, QueryTypes, type Transaction } from 'sequelize';
-import { compareRevisions } from '@shared/diff';
+import { compareRevisions, type Comparison } from '@shared/diff';
+import { applyClubRules, type ClubRules } from '@shared/rules/club-rules';
 import { reviewPlan } from '@shared/diff/review-plan';
 import type { CommentStatus, ReviewDetail } from '@shared/contract/review';
 import { Unprocessable } from '../errors';
@@ -18,6 +19,7 @@ import { presentRevisionSummary } from '../presenters/revision';
 import { anchorExists } from '../reviews/anchor-path';
 import { clearedForMaiden, reviewStateOf } from '../review-state';
 import { latestRevisions } from './model-views';
+import { rulesOf } from '../models/ClubRules';
 
 const SUMMARY = { exclude: ['yamlText', 'document', 'findings'] };
 
@@ -214,6 +216,18 @@ async function reviewedNumbers(reviewIds: readonly string[]): Promise<Map<string
   return new Map(reviews.flatMap((review) => (review.revision ? [[review.id, review.revision.number] as const] : [])));
 }
 
+/** The review's compare, its change findings ranked by the club's rules like every other finding. */
+function ruledComparison(base: Revision, revision: Revision, rules: Pick<ClubRules, 'severities'>): Comparison {
+  const comparison = compareRevisions(
+    { text: base.yamlText, data: base.document, findings: base.findings },
+    { text: revision.yamlText, data: revision.document, findings: revision.findings },
+  );
+  return {
+    ...comparison,
+    change_findings: comparison.change_findings && applyClubRules(comparison.change_findings, rules),
+  };
+}
+
 /** Everything the review page shows, compared with the base the caller chose. */
 export async function reviewDetail(
   access: GrantedReview,
@@ -260,12 +274,7 @@ export async function reviewDetail(
     findings: revision.findings,
     base: base ? { kind: base.kind, revision: summarise(base.revision) } : null,
     base_options: { approved: pointer(options.approved), previous: pointer(options.previous) },
-    compare: base
-      ? compareRevisions(
-          { text: base.revision.yamlText, data: base.revision.document, findings: base.revision.findings },
-          { text: revision.yamlText, data: revision.document, findings: revision.findings },
-        )
-      : null,
+    compare: base ? ruledComparison(base.revision, revision, await rulesOf(review.workspaceId)) : null,
     plan: reviewPlan(revision.document, base ? base.revision.document : null),
     checklist: presentChecklist(ticks, users, carriedNumbers),
     verdicts: verdicts.map((verdict) => presentVerdict(verdict, users)),

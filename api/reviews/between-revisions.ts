@@ -1,7 +1,9 @@
 import type { Transaction } from 'sequelize';
 import { changeFindings, type ChangeFinding } from '@shared/diff';
 import { setupSchema } from '@shared/format/schema';
+import { applyClubRules, DEFAULT_CLUB_RULES } from '@shared/rules/club-rules';
 import type { Revision } from '../models';
+import { rulesByModel } from '../models/ClubRules';
 import { baseRevisionFor } from '../queries/review-views';
 
 /** What a review compares against, and the mistakes that show only between the two. */
@@ -23,8 +25,9 @@ export async function betweenRevisions(revision: Revision, transaction?: Transac
   if (!base || base.kind !== 'approved') return { base: null, findings: null };
   const before = setupSchema.safeParse(base.revision.document);
   const after = setupSchema.safeParse(revision.document);
+  const rules = (await rulesByModel([revision.modelId], transaction)).get(revision.modelId) ?? DEFAULT_CLUB_RULES;
   return {
     base: { kind: 'approved', number: base.revision.number },
-    findings: before.success && after.success ? changeFindings(before.data, after.data) : null,
+    findings: before.success && after.success ? applyClubRules(changeFindings(before.data, after.data), rules) : null,
   };
 }

@@ -2,7 +2,10 @@ import { Router } from 'express';
 import { findingsDelta, textDiff } from '@shared/diff';
 import type { AppContext } from '../context';
 import { authenticate } from '../middleware/authenticate';
+import { CHANGE_CHECKS } from '@shared/diff/change-findings';
+import { applyClubRules, type ClubRules } from '@shared/rules/club-rules';
 import { Revision, User } from '../models';
+import { rulesOf } from '../models/ClubRules';
 import type { RevisionAccess } from '../access/records';
 import { authorizeRevision } from './authorize';
 import { presentRevisionSummary } from '../presenters/revision';
@@ -12,6 +15,18 @@ import { parseInput } from '../validation';
 import { compareQuery } from './model-inputs';
 
 const QUERY_MESSAGE = 'Name the two revisions to compare: ?from=<revision id>&to=<revision id>.';
+
+/**
+ * The cached comparison's text with the change findings as the club's rules have them.
+ * The cache is shared by content across workspaces, so the rules apply after it; the
+ * text is parsed only when the rules touch a check across two revisions.
+ */
+function withClubRules(content: string, rules: Pick<ClubRules, 'severities'>): string {
+  if (!CHANGE_CHECKS.some((check) => rules.severities[check.id] !== undefined)) return content;
+  const parsed = JSON.parse(content) as { change_findings: Parameters<typeof applyClubRules>[0] | null };
+  if (parsed.change_findings) parsed.change_findings = applyClubRules(parsed.change_findings, rules);
+  return JSON.stringify(parsed);
+}
 
 async function documentsOf(from: Revision, to: Revision): Promise<[unknown, unknown]> {
   const rows = await Revision.findAll({
@@ -37,7 +52,8 @@ export function compareRouter({ sequelize, config }: AppContext): Router {
       authorizeRevision(req, query.from, 'read', { fields: ['findings'] }),
       authorizeRevision(req, query.to, 'read', { fields: ['findings'] }),
     ]);
-    const [authors, tags, content] = await Promise.all([
+    // The change findings are about the newer side: its workspace's rules rank them.
+    const [authors, tags, cached, rules] = await Promise.all([
       User.findAll({
         where: { id: [...new Set([from.revision.authorId, to.revision.authorId])] },
         attributes: ['id', 'name'],
@@ -46,7 +62,9 @@ export function compareRouter({ sequelize, config }: AppContext): Router {
       contentComparisonJson(sequelize, { from: from.revision.contentHash, to: to.revision.contentHash }, () =>
         documentsOf(from.revision, to.revision),
       ),
+      rulesOf(to.model.workspaceId),
     ]);
+    const content = withClubRules(cached, rules);
     const side = (access: RevisionAccess) => {
       access.revision.author = authors.find((user) => user.id === access.revision.authorId);
       return {

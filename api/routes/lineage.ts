@@ -6,15 +6,24 @@ import type { AppContext } from '../context';
 import { NotFound } from '../errors';
 import { authenticate, currentUser } from '../middleware/authenticate';
 import { presentSavedRevision } from '../presenters/revision';
+import { historyOf } from '../provenance/history-of';
 import { provenanceOf } from '../provenance/provenance-of';
 import { mergeSides, presentSourceUpdates } from '../queries/source-updates';
 import { idSchema, parseInput } from '../validation';
 import { authorizeModel } from './authorize';
 import { baseField, message } from './model-inputs';
+import { pageInput, pagination } from './paging';
 
 const provenanceQuery = z.object({
   revision: idSchema.optional(),
   path: z.string().max(1000, 'path is at most 1000 characters.').optional(),
+});
+
+const historyQuery = pageInput(20).extend({
+  path: z
+    .string({ error: 'Name the setting: ?path=<identity path>.' })
+    .min(1, 'Name the setting: ?path=<identity path>.')
+    .max(1000, 'path is at most 1000 characters.'),
 });
 
 const takeInSchema = z.strictObject({
@@ -42,6 +51,14 @@ export function lineageRouter({ sequelize, config }: AppContext): Router {
     const revision = row && { modelId: model.id, number: row.number, document: row.document };
     if (!revision) throw new NotFound('This model has no such revision.', { code: 'revision-not-found' });
     res.json({ data: await provenanceOf(sequelize, revision, query.path) });
+  });
+
+  // The earlier history of one setting: every revision that changed it, newest first.
+  router.get('/models/:id/provenance/history', signedIn, async (req, res) => {
+    const query = parseInput(historyQuery, req.query, 'The history needs the setting’s path.');
+    const { model } = await authorizeModel(req, req.params.id, 'read');
+    const { changes, total } = await historyOf(sequelize, model.id, query.path, query);
+    res.json({ data: changes, pagination: pagination(query, total) });
   });
 
   router.get('/models/:id/source-updates', signedIn, async (req, res) => {

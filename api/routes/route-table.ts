@@ -138,6 +138,7 @@ export const ROUTE_TABLE: readonly RouteEntry[] = [
   { method: 'GET', path: '/api/receivers/:id/history', access: 'viewer' },
 
   { method: 'GET', path: '/api/models/:id/provenance', access: 'viewer' },
+  { method: 'GET', path: '/api/models/:id/provenance/history', access: 'viewer' },
   {
     method: 'GET',
     path: '/api/models/:id/source-updates',

@@ -14,6 +14,20 @@ export interface ProvenanceEntry {
   inherited: boolean;
 }
 
+/** One revision that changed a setting: `GET /api/models/:id/provenance/history?path=`, newest first. */
+export interface ProvenanceChange {
+  /** The model's own revision that changed it; `parent_id` is what it is compared with. */
+  revision: { id: string; number: number; parent_id: string | null };
+  /** The model whose author, date and message these are: the source's when inherited. */
+  origin_model_id: string;
+  author: { id: string; name: string } | null;
+  created_at: string;
+  message: string;
+  inherited: boolean;
+  /** The leaf paths at or under the asked path that this revision changed. */
+  paths: string[];
+}
+
 /** What a fork's source changed since the fork last took it in: `GET /api/models/:id/source-updates`. */
 export interface SourceUpdates {
   source: { model_id: string; revision_id: string; number: number; name: string };

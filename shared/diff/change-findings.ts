@@ -9,7 +9,17 @@ export interface ChangeFinding {
   path: string;
   message: string;
   hint: string;
+  /** Set when a club rule changed the check's severity: "club rule: warning raised to error". */
+  club_rule?: string;
 }
+
+/**
+ * The checks across two revisions, with their own severities: a club's rules may raise
+ * or lower them like any check of one revision (docs/format.md, "Club rules").
+ */
+export const CHANGE_CHECKS: readonly { id: string; severity: Severity }[] = [
+  { id: 'failsafe-meaning-changed', severity: 'warning' },
+];
 
 /** The channel value in percent that a pulse stands for through a travel (rule 5 inverted, unclamped). */
 function valueAt(travel: Travel, pulse: number): number {

@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { countFindings, type AnalysisCounts, type Finding, type Severity } from '../findings';
 import { CATALOGUE } from '../checks/run-checks';
+import { CHANGE_CHECKS } from '../diff/change-findings';
 
 // A club's rules (docs/design.md, club rules): the severity of each check in the
 // workspace, and what a sign-off needs. Written once for the API, the screens and the
@@ -11,9 +12,9 @@ export type RuleSeverity = (typeof RULE_SEVERITIES)[number];
 
 const RANK: Record<RuleSeverity, number> = { off: 0, info: 1, warning: 2, error: 3 };
 
-/** Each check's severity as the format defines it, by check id. */
+/** Each check's severity as the format defines it, by check id: those of one revision and those across two. */
 export const DEFAULT_SEVERITIES: ReadonlyMap<string, Severity> = new Map(
-  CATALOGUE.map((check) => [check.id, check.severity]),
+  [...CATALOGUE, ...CHANGE_CHECKS].map((check) => [check.id, check.severity]),
 );
 
 export const approvalRulesSchema = z.strictObject({
@@ -62,18 +63,21 @@ export function ruleNote(from: Severity, to: Severity): string {
  * carrying a club rule's note are read from their check's own severity again, so the
  * rules in force now always start from the format's.
  */
-export function applyClubRules(findings: readonly Finding[], rules: Pick<ClubRules, 'severities'>): Finding[] {
-  const result: Finding[] = [];
+export function applyClubRules<F extends Pick<Finding, 'rule' | 'severity' | 'accepted' | 'club_rule'>>(
+  findings: readonly F[],
+  rules: Pick<ClubRules, 'severities'>,
+): F[] {
+  const result: F[] = [];
   for (const finding of findings) {
     const own = DEFAULT_SEVERITIES.get(finding.rule) ?? finding.severity;
     const wanted = rules.severities[finding.rule];
     const { club_rule: _previous, ...plain } = finding;
     if (wanted === 'off') continue;
     if (wanted === undefined || wanted === own) {
-      result.push({ ...plain, severity: own });
+      result.push({ ...plain, severity: own } as F);
       continue;
     }
-    const changed: Finding = { ...plain, severity: wanted, club_rule: ruleNote(own, wanted) };
+    const changed = { ...plain, severity: wanted, club_rule: ruleNote(own, wanted) } as F;
     if (wanted === 'error') delete changed.accepted;
     result.push(changed);
   }

@@ -3,7 +3,7 @@ import { AuditEvent } from '@api/models';
 import { DEFAULT_CLUB_RULES } from '@shared/rules/club-rules';
 import { addMember, createRoleFixture, createUser, type RoleFixture } from './helpers/factories';
 import { useMailTestApp } from './helpers/mail';
-import { clientFor, createModelVia, edit, TRAINER, type Client } from './models-support';
+import { clientFor, createModelVia, edit, SCALE, saveVia, TRAINER, type Client } from './models-support';
 
 // A workspace's club rules: the owners raise checks (or lower warnings and infos, never
 // an error), and every revision read in the workspace follows the rules in force now.
@@ -146,5 +146,44 @@ describe('GET and PUT /api/workspaces/:ws/rules', () => {
     expect((await viewer.get(`/api/models/${model.id}`).expect(200)).body.data.cleared_for_maiden).toBe(false);
     await putRules(owner, rules({})).expect(200);
     expect((await viewer.get(`/api/models/${model.id}`).expect(200)).body.data.cleared_for_maiden).toBe(true);
+  });
+
+  it('ranks the change findings of a compare by the rules: raised to an error with its note, gone when off', async () => {
+    const { model, revision: first } = await createModelVia(editor, roles.workspace.id, {
+      name: 'Rules compare',
+      yaml: SCALE(),
+    });
+    // The motor reversed with its fuselage pin still at 1000 µs: one failsafe-meaning-changed
+    // warning between the two revisions (docs/format.md, "Checks across two revisions").
+    const reversed = await saveVia(
+      editor,
+      model.id,
+      1,
+      edit(
+        SCALE(),
+        'function: motor,         role: throttle,',
+        'function: motor,         role: throttle, travel: { reverse: true },',
+      ),
+      'Reverse the motor channel',
+    );
+    const compare = async () =>
+      (await viewer.get(`/api/compare?from=${first.id}&to=${reversed.id}`).expect(200)).body.data.change_findings;
+    expect(await compare()).toMatchObject([{ rule: 'failsafe-meaning-changed', severity: 'warning' }]);
+    expect((await compare())[0].club_rule).toBeUndefined();
+
+    await putRules(owner, rules({ 'failsafe-meaning-changed': 'error' })).expect(200);
+    expect(await compare()).toMatchObject([
+      {
+        rule: 'failsafe-meaning-changed',
+        severity: 'error',
+        club_rule: 'club rule: warning raised to error',
+        path: 'receivers[id=fuselage].map[pin=3].failsafe',
+      },
+    ]);
+
+    await putRules(owner, rules({ 'failsafe-meaning-changed': 'off' })).expect(200);
+    expect(await compare()).toEqual([]);
+    await putRules(owner, rules({})).expect(200);
+    expect(await compare()).toHaveLength(1);
   });
 });

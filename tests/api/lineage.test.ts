@@ -48,6 +48,68 @@ async function fork(client: Client, modelId: string, number: number, name: strin
   return response.body.data as { model: { id: string }; revision: { id: string; number: number } };
 }
 
+describe('GET /api/models/:id/provenance/history', () => {
+  it('lists every revision that changed a setting, newest first, paged; a parent path holds its settings', async () => {
+    const { model, revision: first } = await createModelVia(editor, roles.workspace.id, {
+      name: 'History trainer',
+      yaml: TRAINER(),
+    });
+    const idle = edit(TRAINER(), 'failsafe: 1000 }', 'failsafe: 1100 }');
+    const second = await saveVia(owner, model.id, 1, idle, 'motor idles on signal loss');
+    const third = await saveVia(editor, model.id, 2, edit(idle, 'expo: 30,', 'expo: 35,'), 'softer ailerons');
+    const fourth = await saveVia(
+      editor,
+      model.id,
+      3,
+      edit(idle, 'expo: 30,', 'expo: 40,').replace('failsafe: 1100 }', 'failsafe: 1050 }'),
+      'lower idle, more expo',
+    );
+    const history = (path: string, query = '') =>
+      viewer.get(`/api/models/${model.id}/provenance/history?path=${encodeURIComponent(path)}${query}`);
+
+    const failsafe = (await history(MOTOR_FAILSAFE).expect(200)).body;
+    expect(failsafe.pagination).toEqual({ limit: 20, offset: 0, total: 3 });
+    expect(failsafe.data.map((change: { revision: { number: number } }) => change.revision.number)).toEqual([4, 2, 1]);
+    expect(failsafe.data[1]).toMatchObject({
+      revision: { id: second.id, number: 2, parent_id: first.id },
+      origin_model_id: model.id,
+      author: { id: roles.members.owner.id, name: roles.members.owner.name },
+      message: 'motor idles on signal loss',
+      inherited: false,
+      paths: [MOTOR_FAILSAFE],
+    });
+
+    const paged = (await history(MOTOR_FAILSAFE, '&limit=1&offset=1').expect(200)).body;
+    expect(paged.pagination).toEqual({ limit: 1, offset: 1, total: 3 });
+    expect(paged.data.map((change: { revision: { id: string } }) => change.revision.id)).toEqual([second.id]);
+    expect((await history(MOTOR_FAILSAFE, '&offset=9').expect(200)).body).toEqual({
+      data: [],
+      pagination: { limit: 20, offset: 9, total: 3 },
+    });
+
+    // The receiver holds the failsafe: its history lists the revisions that changed it.
+    const cabin = (await history('receivers[id=cabin]').expect(200)).body.data;
+    expect(cabin.map((change: { revision: { number: number } }) => change.revision.number)).toEqual([4, 2, 1]);
+    const expo = (await history(AILERON_EXPO).expect(200)).body.data;
+    expect(expo.map((change: { revision: { id: string } }) => change.revision.id)).toEqual([
+      fourth.id,
+      third.id,
+      first.id,
+    ]);
+    // `receivers[id=cab]` is not a parent of `receivers[id=cabin]`.
+    expect((await history('receivers[id=cab').expect(200)).body.data).toEqual([]);
+  });
+
+  it('needs a path and a sound page: 400 with the field; 404 for a model the caller cannot see', async () => {
+    const { model } = await createModelVia(editor, roles.workspace.id, { name: 'History refusals', yaml: TRAINER() });
+    const refused = await viewer.get(`/api/models/${model.id}/provenance/history`).expect(400);
+    expect(refused.body.error.details.fields).toHaveProperty('path');
+    await viewer.get(`/api/models/${model.id}/provenance/history?path=model.name&limit=0`).expect(400);
+    const stranger = clientFor(t.app, t.config, (await createRoleFixture()).members.owner);
+    await stranger.get(`/api/models/${model.id}/provenance/history?path=model.name`).expect(404);
+  });
+});
+
 describe('GET /api/models/:id/provenance', () => {
   it('names the revision that last changed each leaf setting: author, date and message', async () => {
     const { model, revision: first } = await createModelVia(editor, roles.workspace.id, {

@@ -284,6 +284,9 @@ export async function buildSampleWorld(t: MailTestApp): Promise<SampleWorld> {
     }),
     'GET /api/models/:id/revisions': async () => ({ url: `/api/models/${modelId}/revisions` }),
     'GET /api/models/:id/provenance': async () => ({ url: `/api/models/${modelId}/provenance` }),
+    'GET /api/models/:id/provenance/history': async () => ({
+      url: `/api/models/${modelId}/provenance/history?path=${encodeURIComponent('model.name')}`,
+    }),
     'GET /api/models/:id/source-updates': async () => ({ url: `/api/models/${forkId}/source-updates` }),
     'POST /api/models/:id/source-updates': async () => {
       sourceEdits += 1;

@@ -157,3 +157,89 @@ describe('journey: two tabs on one model', () => {
     await visit.context.close();
   });
 });
+
+describe('journey: two tabs on one model, merged', () => {
+  it('refuses the stale save, brings this tab’s edits onto the latest revision with one conflict decided, and saves both tabs’ changes', async () => {
+    const api = await apiAs(editor);
+    const { model } = await createModel(api, 'Plover 16 (two tabs merged)', scale);
+    const visit = await signedIn(browser(), editor);
+    const first = visit.page;
+    const second = await visit.newTab();
+
+    const weightLine = lineOf('weight_g:');
+    const notesLine = lineOf('notes:');
+    expect(notesLine).toBe(weightLine + 1);
+    await openEditorAtLine(first, model.id, weightLine);
+    await openEditorAtLine(second, model.id, weightLine);
+
+    // The first tab weighs the model and saves revision 2.
+    await first.bringToFront();
+    await selectRestOfLine(first, lines[weightLine - 1]);
+    await replaceSelection(first, '  weight_g: 6350');
+    await first.getByText('Unsaved changes').waitFor();
+    await first.getByRole('button', { name: 'Save revision…' }).click();
+    await first.getByRole('dialog', { name: 'Save as revision 2' }).getByLabel('What changed').fill('Weighed: 6350 g');
+    await first.getByRole('dialog').getByRole('button', { name: 'Save revision' }).click();
+    await first.getByRole('region', { name: 'Notifications' }).getByText('Saved revision 2').waitFor();
+
+    // The second tab, still on revision 1, writes another weight and shorter notes on the next line.
+    await second.bringToFront();
+    await selectRestOfLine(second, lines[weightLine - 1]);
+    await replaceSelection(second, '  weight_g: 6400');
+    await second.keyboard.press('ArrowDown');
+    await second.keyboard.press('Home');
+    await selectRestOfLine(second, lines[notesLine - 1].trimStart());
+    await replaceSelection(second, 'notes: Scale low wing, split flaps, retracts and lights.');
+    await second.getByRole('button', { name: 'Save revision…' }).click();
+    await second.getByRole('dialog', { name: 'Save as revision 2' }).getByLabel('What changed').fill('Shorter notes');
+    await second.getByRole('dialog').getByRole('button', { name: 'Save revision' }).click();
+
+    const refusal = second.getByRole('alert').filter({ hasText: 'Not saved' });
+    await refusal.getByText('Not saved: revision 2 was saved while you were editing').waitFor();
+    // The weight was changed on both sides: this tab takes revision 2's.
+    const conflict = refusal.getByRole('group', { name: 'model.weight_g' });
+    const bring = refusal.getByRole('button', { name: 'Bring my edits onto revision 2' });
+    expect(await bring.isDisabled()).toBe(true);
+    await conflict.getByLabel('Keep revision 2’s').check();
+    await saveScreenshot(second, 'journey-stale-tab-merge', { fullPage: false });
+    await bring.click();
+    await second
+      .getByRole('region', { name: 'Notifications' })
+      .getByText('Your text now stands on revision 2')
+      .waitFor();
+
+    await second.getByRole('button', { name: 'Save revision…' }).click();
+    await second
+      .getByRole('dialog', { name: 'Save as revision 3' })
+      .getByLabel('What changed')
+      .fill('Shorter notes, on the measured weight');
+    await second.getByRole('dialog').getByRole('button', { name: 'Save revision' }).click();
+    await second.getByRole('region', { name: 'Notifications' }).getByText('Saved revision 3').waitFor();
+
+    const third = await api.get<Revision>(`/models/${model.id}/revisions/3`);
+    expect(third.yaml).toContain('  weight_g: 6350\n');
+    expect(third.yaml).toContain('notes: Scale low wing, split flaps, retracts and lights.');
+    expect(third.yaml).not.toContain('6400');
+    // The comments stay with their settings.
+    expect(third.yaml).toContain('# motor must stop on signal loss');
+
+    // Beside the gutter, each line names the revision that last changed it: the weight the
+    // other tab's, the notes this one's.
+    await second.getByLabel('Show where each line came from').check();
+    await second.locator('.cm-origin-mark').first().waitFor();
+    const marks = await second
+      .locator('.cm-origin-mark')
+      .evaluateAll((elements) =>
+        elements.slice(0, 4).map((element) => `${element.textContent} ${element.getAttribute('title')}`),
+      );
+    // The first lines' settings (format, name, airframe) are as revision 1 set them.
+    expect(marks[0]).toMatch(/^r1 since r1, /);
+    const weightMark = await second.locator('.cm-origin-mark', { hasText: 'r2' }).first().getAttribute('title');
+    expect(weightMark).toContain('‘Weighed: 6350 g’');
+    const notesMark = await second.locator('.cm-origin-mark', { hasText: 'r3' }).first().getAttribute('title');
+    expect(notesMark).toContain('‘Shorter notes, on the measured weight’');
+    await saveScreenshot(second, 'journey-line-origins', { fullPage: false });
+    expectNoProblems(visit, [409]);
+    await visit.context.close();
+  });
+});

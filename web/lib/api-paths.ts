@@ -70,6 +70,7 @@ export const paths = {
   modelReviews: (modelId: string, query?: Query) => withQuery(`${model(modelId)}/reviews`, query),
   modelExport: (modelId: string) => `${model(modelId)}/export.git`,
   modelProvenance: (modelId: string, query?: Query) => withQuery(`${model(modelId)}/provenance`, query),
+  modelProvenanceHistory: (modelId: string, query?: Query) => withQuery(`${model(modelId)}/provenance/history`, query),
   modelSourceUpdates: (modelId: string) => `${model(modelId)}/source-updates`,
 
   revision: (revisionId: string, query?: Query) => withQuery(revision(revisionId), query),

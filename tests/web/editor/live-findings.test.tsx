@@ -1,6 +1,7 @@
 import { forEachDiagnostic } from '@codemirror/lint';
 import { screen, waitFor, within } from '@testing-library/react';
-import { fakeServer, sessionRoutes } from '../fake-server';
+import { DEFAULT_CLUB_RULES, type RuleSeverity } from '@shared/rules/club-rules';
+import { CLUB, fakeServer, sessionRoutes } from '../fake-server';
 import { renderApp } from '../render-app';
 import { editorView, typeOver } from './code-editor';
 import { MODEL_ID, modelRoutes, revisionId } from './model-routes';
@@ -14,8 +15,14 @@ const revision = {
   message: 'Lights on 10 and 11',
 };
 
-async function openEditor(path = `/models/${MODEL_ID}/edit`) {
-  fakeServer({ ...sessionRoutes({ signedIn: true }).routes, ...modelRoutes([revision]) });
+async function openEditor(path = `/models/${MODEL_ID}/edit`, severities: Record<string, RuleSeverity> = {}) {
+  fakeServer({
+    ...sessionRoutes({ signedIn: true }).routes,
+    ...modelRoutes([revision]),
+    [`GET /api/workspaces/${CLUB}/rules`]: () => ({
+      body: { data: { ...DEFAULT_CLUB_RULES, severities, defaults: {}, updated_at: null, history: [] } },
+    }),
+  });
   const app = renderApp(path);
   const checks = await screen.findByRole('complementary', { name: 'Checks' });
   await waitFor(() => expect(document.querySelector('.cm-editor')).not.toBeNull());
@@ -48,6 +55,26 @@ describe('Edit: live findings', () => {
       expect(within(checks).getByText('The setup passes every check.')).toBeInTheDocument();
     },
   );
+
+  it('ranks the live findings by the club’s rules: a check raised to an error says so', SLOW, async () => {
+    const { checks } = await openEditor(undefined, { 'failsafe-unset': 'error' });
+    // Pin 1 of the wing without its failsafe: a failsafe-unset warning by the format, an error by this club.
+    typeOver('{ pin: 1, ch: 9,  failsafe: 1500 }', '{ pin: 1, ch: 9 }');
+    const rule = await within(checks).findByText('failsafe-unset');
+    const item = rule.closest('li')!;
+    expect(within(item).getByText('Error')).toBeInTheDocument();
+    expect(item).toHaveTextContent('club rule: warning raised to error');
+    expect(within(checks).getByText('1 error')).toBeInTheDocument();
+  });
+
+  it('leaves out the findings of a check the club switched off', SLOW, async () => {
+    const { checks } = await openEditor(undefined, { 'failsafe-unset': 'off' });
+    typeOver('{ pin: 1, ch: 9,  failsafe: 1500 }', '{ pin: 1, ch: 9 }');
+    // A second slip the club did not switch off shows the checks have run on the new text.
+    typeOver('ch: 9,  function: tailwheel', 'ch: 1,  function: tailwheel');
+    await within(checks).findByText('channel-shared');
+    expect(within(checks).queryByText('failsafe-unset')).not.toBeInTheDocument();
+  });
 
   it('marks findings in the editor itself: a gutter mark and an underline on the node', SLOW, async () => {
     const { checks } = await openEditor();

@@ -1,7 +1,8 @@
 import { screen, within } from '@testing-library/react';
+import userEvent from '@testing-library/user-event';
 import { CLUB, demoUser, fakeServer, sessionRoutes } from '../fake-server';
 import { renderApp } from '../render-app';
-import { REVIEW, reviewDetail } from './review-data';
+import { MODEL, REVIEW, reviewDetail } from './review-data';
 
 const path = `/w/${CLUB}/reviews/${REVIEW}`;
 
@@ -35,6 +36,63 @@ describe('the review page', () => {
     expect(within(comments).getByText('From revision 3')).toBeInTheDocument();
     expect(within(comments).getByText('Pin 1 of receiver wing')).toBeInTheDocument();
     expect(document.title).toBe('Review · Kestrel Mk II, revision 4 · Bindery');
+  });
+
+  it('opens the earlier history of a changed pin: each revision that changed it, with a compare against the one before', async () => {
+    const pinPath = 'receivers[id=wing].map[pin=3]';
+    const server = fakeServer({
+      ...sessionRoutes({ signedIn: true }).routes,
+      [`GET /api/reviews/${REVIEW}`]: () => ({ body: { data: reviewDetail() } }),
+      [`GET /api/models/${MODEL}/provenance/history`]: (request) => ({
+        body: {
+          data:
+            request.url.searchParams.get('path') === pinPath
+              ? [
+                  {
+                    revision: { id: 'rev-4', number: 4, parent_id: 'rev-3' },
+                    origin_model_id: MODEL,
+                    author: { id: 'u1', name: 'Ines Marchbank' },
+                    created_at: '2025-02-16T10:00:00.000Z',
+                    message: 'Wing pin 3 failsafe 988 -> 1500',
+                    inherited: false,
+                    paths: [`${pinPath}.failsafe`],
+                  },
+                  {
+                    revision: { id: 'rev-1', number: 1, parent_id: null },
+                    origin_model_id: MODEL,
+                    author: { id: 'u2', name: demoUser.name },
+                    created_at: '2025-01-05T09:00:00.000Z',
+                    message: 'First setup',
+                    inherited: false,
+                    paths: [`${pinPath}.ch`, `${pinPath}.failsafe`],
+                  },
+                ]
+              : [],
+          pagination: { limit: 10, offset: 0, total: 2 },
+        },
+      }),
+    });
+    renderApp(path);
+    const wingPins = await screen.findByRole('table', { name: 'Pins of receiver wing' });
+    const pin3 = within(wingPins).getByRole('row', { name: /Pin 3/ });
+    // Entries the same as the base have no history link; the changed pin has one, read when opened.
+    const pin1 = within(wingPins).getByRole('row', { name: /Pin 1\b/ });
+    expect(within(pin1).queryByText('Its history')).not.toBeInTheDocument();
+    expect(server.called('GET', `/api/models/${MODEL}/provenance/history`)).toHaveLength(0);
+
+    await userEvent.click(within(pin3).getByText('Its history'));
+    expect(
+      await within(pin3).findByText('r4, Ines Marchbank, 16 Feb 2025: ‘Wing pin 3 failsafe 988 -> 1500’'),
+    ).toBeInTheDocument();
+    expect(within(pin3).getByText(`r1, ${demoUser.name}, 5 Jan 2025: ‘First setup’`)).toBeInTheDocument();
+    expect(within(pin3).getByRole('link', { name: 'compare r3 with r4' })).toHaveAttribute(
+      'href',
+      `/models/${MODEL}/compare?from=rev-3&to=rev-4`,
+    );
+    expect(within(pin3).getByText('(the first revision)')).toBeInTheDocument();
+    const asked = server.called('GET', `/api/models/${MODEL}/provenance/history`);
+    expect(asked.map((request) => request.url.searchParams.get('path'))).toContain(pinPath);
+    expect(asked.every((request) => request.url.searchParams.get('path') === pinPath)).toBe(true);
   });
 
   it('gives a verdict with a text and shows the refusal when approving is not allowed', async () => {

@@ -1,4 +1,4 @@
-import type { ProvenanceEntry } from '@shared/contract/provenance';
+import type { ProvenanceChange, ProvenanceEntry } from '@shared/contract/provenance';
 import { isUnder } from '@shared/lineage/leaf-paths';
 
 export type Provenance = ReadonlyMap<string, ProvenanceEntry>;
@@ -25,4 +25,12 @@ export function sinceText(entry: ProvenanceEntry): string {
   const where = entry.inherited ? `r${entry.revision.number} of the source` : `r${entry.revision.number}`;
   const message = entry.message ? `: ‘${entry.message}’` : '';
   return `since ${where}, ${who}, ${DAY.format(new Date(entry.created_at))}${message}`;
+}
+
+/** One line of a setting's history: "r4, Hattie, 16 Feb 2025: 'tailwheel centres'". */
+export function changeText(change: ProvenanceChange): string {
+  const who = change.author?.name ?? 'someone no longer here';
+  const what = change.inherited ? `r${change.revision.number} (from the source)` : `r${change.revision.number}`;
+  const message = change.message ? `: ‘${change.message}’` : '';
+  return `${what}, ${who}, ${DAY.format(new Date(change.created_at))}${message}`;
 }

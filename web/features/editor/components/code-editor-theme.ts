@@ -32,6 +32,8 @@ const chrome = EditorView.theme({
   // Open comment threads: the accent colour, apart from the checks' severity marks.
   '.cm-comment-gutter .cm-gutterElement': { padding: '0 0.25rem', minWidth: '1.1rem' },
   '.cm-comment-mark': { color: 'var(--color-accent-700)', fontWeight: '700', cursor: 'default' },
+  '.cm-origin-gutter .cm-gutterElement': { padding: '0 0.35rem', minWidth: '2.2rem', textAlign: 'right' },
+  '.cm-origin-mark': { color: 'var(--color-ink-700)', fontSize: '0.8em', cursor: 'help' },
   '.cm-foldPlaceholder': {
     backgroundColor: 'var(--color-ply-100)',
     border: '1px solid var(--color-ply-300)',

@@ -1,7 +1,8 @@
 import { Suspense, useCallback, useEffect, useId, useMemo, useRef, useState, type ChangeEvent } from 'react';
 import { Link, useLocation, useSearchParams } from 'react-router-dom';
 import { analyzeSetup } from '@shared/analyze';
-import type { Finding } from '@shared/findings';
+import { countFindings, type Finding } from '@shared/findings';
+import { applyClubRules, DEFAULT_CLUB_RULES } from '@shared/rules/club-rules';
 import { lazyScreen } from '../../../app/lazy-screen';
 import { Badge, SeverityBadge } from '../../../components/ui/badge';
 import { Button, buttonClasses } from '../../../components/ui/button';
@@ -29,6 +30,9 @@ import { Notice } from './notice';
 import { PinMapForms } from './pin-map-form';
 import { SaveDialog, type SaveSignOff } from './save-dialog';
 import { useRevisionThreads } from '../../reviews/api/reviews';
+import { useClubRules } from '../../team/api/club-rules';
+import { useProvenance } from '../../provenance/api/get-provenance';
+import { lineOrigins } from '../line-origins';
 import { settingWords } from '../../reviews/setting-words';
 import type { CommentThread } from '../../reviews/types';
 import { commentLines, type CommentLine } from '../comment-lines';
@@ -142,7 +146,14 @@ export function SetupEditor({ model, initialBase, restoredText, canEdit, role }:
 
   const dirty = canEdit && text !== base.yaml;
   const settled = useDebouncedValue(text, CHECK_DELAY_MS);
-  const checked = useMemo(() => ({ text: settled, analysis: analyzeSetup(settled) }), [settled]);
+  // The live checks rank findings by the club's rules, as the stored checks do; until
+  // the rules arrive the format's own severities stand.
+  const clubRules = useClubRules(model.workspace_id).data ?? DEFAULT_CLUB_RULES;
+  const analysis = useMemo(() => analyzeSetup(settled), [settled]);
+  const checked = useMemo(() => {
+    const findings = applyClubRules(analysis.findings, clubRules);
+    return { text: settled, analysis: { ...analysis, findings, counts: countFindings(findings) } };
+  }, [settled, analysis, clubRules]);
   const marks = useMemo(() => ({ text: checked.text, findings: checked.analysis.findings }), [checked]);
   const checking = settled !== text;
   const { counts } = checked.analysis;
@@ -190,6 +201,18 @@ export function SetupEditor({ model, initialBase, restoredText, canEdit, role }:
       })),
     }),
     [checked.text, placed],
+  );
+
+  // "Show where each line came from": one provenance answer for the revision the edit
+  // stands on, placed on the lines whose settings still hold that revision's values.
+  const [showOrigins, setShowOrigins] = useState(false);
+  const provenance = useProvenance(model.id, showOrigins ? base.id : null);
+  const originMarks = useMemo(
+    () =>
+      showOrigins && provenance.data
+        ? { text: checked.text, marks: lineOrigins(checked.text, base.document, provenance.data) }
+        : null,
+    [showOrigins, provenance.data, checked.text, base.document],
   );
 
   const onEdits = useCallback(
@@ -449,6 +472,22 @@ export function SetupEditor({ model, initialBase, restoredText, canEdit, role }:
           </div>
 
           <div id="editor-panel-text" role="tabpanel" aria-labelledby="editor-tab-text" hidden={tab !== 'text'}>
+            <label className="mb-2 flex min-h-11 w-fit items-center gap-2 text-sm text-ink-900 sm:min-h-0">
+              <input
+                type="checkbox"
+                checked={showOrigins}
+                onChange={(event) => setShowOrigins(event.target.checked)}
+                className="size-4 accent-accent-700"
+              />
+              Show where each line came from
+              {showOrigins && provenance.isPending && <Spinner className="text-accent-700" />}
+              {showOrigins && provenance.isError && (
+                <span className="text-danger-700">(could not be read: {provenance.error.message})</span>
+              )}
+              {showOrigins && provenance.data && dirty && (
+                <span className="text-ink-700">(lines you changed show nothing until saved)</span>
+              )}
+            </label>
             <div className="h-[max(22rem,60vh)] overflow-hidden rounded-lg border border-ply-300 bg-paper-raised lg:h-[max(30rem,calc(100vh-9rem))]">
               <Suspense fallback={<LoadingState label="Loading the text editor…" />}>
                 <YamlCodeEditor
@@ -460,6 +499,7 @@ export function SetupEditor({ model, initialBase, restoredText, canEdit, role }:
                   visible={tab === 'text'}
                   label={`Setup text of ${model.name}`}
                   comments={commentMarks}
+                  origins={originMarks}
                 />
               </Suspense>
             </div>

@@ -5,7 +5,9 @@ import { useEffect, useMemo, useRef, useState } from 'react';
 import type { Finding } from '@shared/findings';
 import { findingDiagnostics } from '../finding-diagnostics';
 import { editorTheme } from './code-editor-theme';
+import type { LineOrigin } from '../line-origins';
 import { commentGutter, setCommentMarks, type CommentMark } from './comment-gutter';
+import { originGutter, setOriginMarks } from './origin-gutter';
 
 /** A request to show a line: `key` changes with every request, so the same line can be asked for twice. */
 export interface LineJump {
@@ -25,6 +27,8 @@ export interface YamlCodeEditorProps {
   label: string;
   /** Open comment threads beside their lines, for the text on show. */
   comments: { text: string; marks: readonly CommentMark[] };
+  /** The revision each line came from, for the text on show; null while the pilot has them hidden. */
+  origins: { text: string; marks: readonly LineOrigin[] } | null;
 }
 
 const BASIC_SETUP = { autocompletion: false, foldGutter: true, highlightActiveLine: true, tabSize: 2 } as const;
@@ -39,6 +43,7 @@ export function YamlCodeEditor({
   visible,
   label,
   comments,
+  origins,
 }: YamlCodeEditorProps) {
   const [view, setView] = useState<EditorView | null>(null);
   const shownJump = useRef<string | null>(null);
@@ -48,6 +53,7 @@ export function YamlCodeEditor({
       yaml(),
       lintGutter(),
       commentGutter(),
+      originGutter(),
       EditorView.lineWrapping,
       // The editable text is already a tab stop; saying so lets checkers see that the
       // scrolling area around it is reachable by keyboard.
@@ -69,6 +75,12 @@ export function YamlCodeEditor({
     if (view.state.doc.toString() !== comments.text) return;
     view.dispatch({ effects: setCommentMarks.of([...comments.marks]) });
   }, [view, comments, value]);
+
+  useEffect(() => {
+    if (!view) return;
+    if (origins && view.state.doc.toString() !== origins.text) return;
+    view.dispatch({ effects: setOriginMarks.of(origins ? [...origins.marks] : []) });
+  }, [view, origins, value]);
 
   useEffect(() => {
     if (!view || !visible || !jump || shownJump.current === jump.key) return;

@@ -55,6 +55,7 @@ export function ChangeFindingsPanel({ findings, level = 2, className }: ChangeFi
                     <p className="mt-1 flex flex-wrap gap-x-3 gap-y-0.5 text-sm text-ink-500">
                       {finding.path && <code className="font-mono break-all">{finding.path}</code>}
                       <span className="font-mono">{finding.rule}</span>
+                      {finding.club_rule && <span className="font-medium text-ink-700">{finding.club_rule}</span>}
                     </p>
                   </div>
                 </div>

@@ -3,6 +3,7 @@ import { Badge } from '../../../components/ui/badge';
 import { cx } from '../../../lib/cx';
 import type { PlanStatus } from '@shared/diff/review-plan';
 import { failsafeWords } from '../../bench/failsafe-words';
+import { SettingHistory } from '../../provenance/components/setting-history';
 import type { CommentThread, ReviewPlan } from '../types';
 
 /** A setting the reviewer chose to comment on: its semantic path and how to say it. */
@@ -16,6 +17,16 @@ const STATUS_WORDS: Record<PlanStatus, string> = { new: 'New', changed: 'Changed
 function StatusBadge({ status }: { status: PlanStatus }) {
   if (status === 'same') return <span className="text-sm text-ink-500">Same</span>;
   return <Badge tone={status === 'new' ? 'info' : 'caution'}>{STATUS_WORDS[status]}</Badge>;
+}
+
+/** The mark against the base and, for a changed or new entry, the way to its earlier history. */
+function StatusCell({ status, modelId, setting }: { status: PlanStatus; modelId: string; setting: ChosenSetting }) {
+  return (
+    <>
+      <StatusBadge status={status} />
+      {status !== 'same' && <SettingHistory modelId={modelId} path={setting.path} words={setting.words} />}
+    </>
+  );
 }
 
 const rowTone = (status: PlanStatus) =>
@@ -91,11 +102,14 @@ function PlanTable({ caption, heads, children }: { caption: string; heads: strin
  * Choosing a setting's name starts a comment thread anchored to it.
  */
 export function ReviewPlanView({
+  modelId,
   plan,
   threads,
   canComment,
   onChoose,
 }: {
+  /** The reviewed model: each changed setting's history is read from it. */
+  modelId: string;
   plan: ReviewPlan;
   threads: readonly CommentThread[];
   canComment: boolean;
@@ -137,7 +151,11 @@ export function ReviewPlanView({
               <td className={cell}>{channel.role ?? 'not given'}</td>
               <td className={cell}>{channel.reverse ? 'Yes' : 'No'}</td>
               <td className={cell}>
-                <StatusBadge status={channel.status} />
+                <StatusCell
+                  status={channel.status}
+                  modelId={modelId}
+                  setting={{ path: channel.path, words: `Channel ${channel.ch}` }}
+                />
               </td>
             </tr>
           ))}
@@ -161,7 +179,11 @@ export function ReviewPlanView({
                 <td className={cell}>{mix.expo === null ? 'none' : `${mix.expo} %`}</td>
                 <td className={cell}>{mix.rates ? mix.rates.map((rate) => `${rate} %`).join(' / ') : 'one rate'}</td>
                 <td className={cell}>
-                  <StatusBadge status={mix.status} />
+                  <StatusCell
+                    status={mix.status}
+                    modelId={modelId}
+                    setting={{ path: mix.path, words: `Mix ${mix.id}` }}
+                  />
                 </td>
               </tr>
             ))}
@@ -199,7 +221,11 @@ export function ReviewPlanView({
                   {pin.failsafe === null ? 'not set: the receiver’s own default' : failsafeWords(pin.failsafe)}
                 </td>
                 <td className={cell}>
-                  <StatusBadge status={pin.status} />
+                  <StatusCell
+                    status={pin.status}
+                    modelId={modelId}
+                    setting={{ path: pin.path, words: `Pin ${pin.pin} of receiver ${receiver.id}` }}
+                  />
                 </td>
               </tr>
             ))}

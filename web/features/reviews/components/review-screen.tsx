@@ -129,6 +129,7 @@ function ReviewPage({
               <BasePicker review={review} base={base} onChange={onBaseChange} />
             </div>
             <ReviewPlanView
+              modelId={review.model.id}
               plan={review.plan}
               threads={review.comments}
               canComment={review.can.comment}
