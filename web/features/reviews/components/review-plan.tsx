@@ -76,9 +76,11 @@ function SettingName({
 const headCell = 'px-3 py-2 text-left text-sm font-medium text-ink-700';
 const cell = 'px-3 py-2 align-top text-base text-ink-900';
 
+// Relative, so the screen-reader-only words inside a scrolled cell stay in this scroll box
+// instead of widening the page on a phone.
 function PlanTable({ caption, heads, children }: { caption: string; heads: string[]; children: ReactNode }) {
   return (
-    <div className="overflow-x-auto rounded-lg border border-ply-200 bg-paper-raised">
+    <div className="relative overflow-x-auto rounded-lg border border-ply-200 bg-paper-raised">
       <table className="w-full border-collapse">
         <caption className="sr-only">{caption}</caption>
         <thead className="border-b border-ply-200 bg-ply-50">
