@@ -27,7 +27,9 @@ export type DocumentEdit =
   /** Removes a map key or a list item; a missing one is no change. */
   | { kind: 'delete'; path: YamlPath }
   /** Adds an item at the end of the list at `path`, creating the list when the key is missing. */
-  | { kind: 'append'; path: YamlPath; value: unknown };
+  | { kind: 'append'; path: YamlPath; value: unknown }
+  /** Puts an item into a list before the item at `path` (a list index); at the list's end it appends. */
+  | { kind: 'insert'; path: YamlPath; value: unknown };
 
 export class UnreadableTextError extends Error {
   constructor() {
@@ -58,10 +60,7 @@ function applyEdit(text: string, edit: DocumentEdit): string {
   if (doc.errors.length > 0) throw new UnreadableTextError();
 
   const expected = doc.clone();
-  if (edit.kind === 'set') expected.setIn(edit.path, edit.value);
-  else if (edit.kind === 'delete') expected.deleteIn(edit.path);
-  else if (expected.hasIn(edit.path)) expected.addIn(edit.path, edit.value);
-  else expected.setIn(edit.path, [edit.value]);
+  applyToDocument(expected, edit);
   const wanted: unknown = expected.toJS();
 
   const spliced = splice(text, doc, edit);
@@ -72,9 +71,23 @@ function applyEdit(text: string, edit: DocumentEdit): string {
   return expected.toString(SERIALISE);
 }
 
+// What an edit means, said with the Document API.
+function applyToDocument(doc: Document, edit: DocumentEdit): void {
+  if (edit.kind === 'set') doc.setIn(edit.path, edit.value);
+  else if (edit.kind === 'delete') doc.deleteIn(edit.path);
+  else if (edit.kind === 'insert') {
+    const list = nodeAt(doc, edit.path.slice(0, -1));
+    const index = edit.path[edit.path.length - 1];
+    if (isSeq(list) && typeof index === 'number' && index <= list.items.length)
+      list.items.splice(index, 0, doc.createNode(edit.value));
+    else doc.setIn(edit.path, edit.value);
+  } else if (doc.hasIn(edit.path)) doc.addIn(edit.path, edit.value);
+  else doc.setIn(edit.path, [edit.value]);
+}
+
 // ---- where an edit lands in the text
 
-function nodeAt(doc: Document.Parsed, path: YamlPath): unknown {
+function nodeAt(doc: Document, path: YamlPath): unknown {
   return path.length === 0 ? doc.contents : doc.getIn(path, true);
 }
 
@@ -107,6 +120,10 @@ function splice(text: string, doc: Document.Parsed, edit: DocumentEdit): string 
     return pair ? removePair(text, parent, pair) : text;
   }
   if (isSeq(parent) && typeof key === 'number') {
+    if (edit.kind === 'insert')
+      return key < parent.items.length
+        ? insertItem(text, parent, key, edit.value)
+        : appendItem(text, parent, edit.value);
     if (edit.kind === 'set') {
       if (key < parent.items.length) return replaceNode(text, parent.items[key], edit.value);
       return key === parent.items.length ? appendItem(text, parent, edit.value) : null;
@@ -244,16 +261,31 @@ function removePair(text: string, map: YAMLMap, pair: Pair): string | null {
 
 function appendItem(text: string, seq: YAMLSeq, value: unknown): string | null {
   if (seq.flow) return insertInFlow(text, seq, renderFlow(value));
-  const first = rangeOf(seq.items[0]);
   const last = rangeOf(seq.items[seq.items.length - 1]);
-  if (!first || !last) return null;
+  const lines = blockItemLines(text, seq, seq.items[seq.items.length - 1], value);
+  return last && lines ? insertLines(text, afterLine(text, last[2]), lines) : null;
+}
+
+/** Puts an item before the item at `index`: after the line where the previous item ends, so a comment above the next item stays with it. */
+function insertItem(text: string, seq: YAMLSeq, index: number, value: unknown): string | null {
+  const next = rangeOf(seq.items[index]);
+  if (!next) return null;
+  if (seq.flow) return `${text.slice(0, next[0])}${renderFlow(value)}, ${text.slice(next[0])}`;
+  const previous = index > 0 ? rangeOf(seq.items[index - 1]) : null;
+  const at = previous ? afterLine(text, previous[2]) : lineStart(text, next[0]);
+  const lines = blockItemLines(text, seq, seq.items[index], value);
+  return lines ? insertLines(text, at, lines) : null;
+}
+
+/** The lines of a new item of a block list, at its items' indentation and in the style of `neighbour`. */
+function blockItemLines(text: string, seq: YAMLSeq, neighbour: unknown, value: unknown): string | null {
+  const first = rangeOf(seq.items[0]);
+  if (!first) return null;
   const start = lineStart(text, first[0]);
   const dash = text.indexOf('-', start);
   if (dash < 0 || dash >= first[0] || !onlySpaces(text.slice(start, dash))) return null;
   const indent = ' '.repeat(dash - start);
-  const lastItem = seq.items[seq.items.length - 1];
-  const at = afterLine(text, last[2]);
-  if (isMap(lastItem) && !lastItem.flow && isObject(value)) {
+  if (isMap(neighbour) && !neighbour.flow && isObject(value)) {
     const keyIndent = ' '.repeat(first[0] - start);
     const lines = Object.entries(value)
       .filter(([, item]) => item !== undefined)
@@ -262,9 +294,9 @@ function appendItem(text: string, seq: YAMLSeq, value: unknown): string | null {
           `${index === 0 ? `${indent}- ` : keyIndent}${renderScalar(key, false)}: ${renderFlow(item)}\n`,
       )
       .join('');
-    return lines ? insertLines(text, at, lines) : null;
+    return lines || null;
   }
-  return insertLines(text, at, `${indent}- ${renderFlow(value)}\n`);
+  return `${indent}- ${renderFlow(value)}\n`;
 }
 
 function removeItem(text: string, seq: YAMLSeq, index: number, ownerPair: Pair | undefined): string | null {

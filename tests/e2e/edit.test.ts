@@ -220,8 +220,13 @@ describe('journey: two tabs on one model, merged', () => {
     expect(third.yaml).toContain('  weight_g: 6350\n');
     expect(third.yaml).toContain('notes: Scale low wing, split flaps, retracts and lights.');
     expect(third.yaml).not.toContain('6400');
-    // The comments stay with their settings.
-    expect(third.yaml).toContain('# motor must stop on signal loss');
+    // The merge wrote only the two settings' lines: every other line (comments, aligned
+    // flow entries) is as revision 1 had it.
+    const untouched = lines.filter((_, index) => index !== weightLine - 1 && index !== notesLine - 1);
+    const thirdLines = third.yaml.split('\n');
+    expect(thirdLines.filter((_, index) => index !== weightLine - 1 && index !== notesLine - 1)).toEqual(untouched);
+    expect(thirdLines[weightLine - 1]).toBe('  weight_g: 6350');
+    expect(thirdLines[notesLine - 1]).toBe('  notes: Scale low wing, split flaps, retracts and lights.');
 
     // Beside the gutter, each line names the revision that last changed it: the weight the
     // other tab's, the notes this one's.

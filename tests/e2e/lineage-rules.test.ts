@@ -100,7 +100,12 @@ describe('journey: a fork takes in its source’s fix', () => {
     const data = parse(latest.yaml);
     expect(data.receivers[0].map[0].failsafe).toBe(1520);
     expect(data.mixes[0].expo).toBe(35);
-    expect(latest.yaml).toContain('# motor stops on signal loss');
+    // The fork's text with only the two settings written in: comments and aligned flow entries as they were.
+    expect(latest.yaml).toBe(
+      trainer
+        .replace('{ pin: 1, ch: 1, failsafe: 1500 }', '{ pin: 1, ch: 1, failsafe: 1520 }')
+        .replace('expo: 30,', 'expo: 35,'),
+    );
     expectNoProblems(visit);
     await visit.context.close();
   });

@@ -78,6 +78,35 @@ describe('document edits', () => {
     );
   });
 
+  it('inserts a list entry between two others on a line of its own, the comment staying with its entry', () => {
+    const out = applyEdits(setup, [
+      { kind: 'insert', path: ['receivers', 1, 'map', 1], value: { pin: 5, ch: 5, failsafe: 1500 } },
+    ]);
+    expect(out).toBe(
+      setup.replace(
+        '      - { pin: 2, ch: 2,  failsafe: hold }',
+        '      - { pin: 5, ch: 5, failsafe: 1500 }\n      - { pin: 2, ch: 2,  failsafe: hold }',
+      ),
+    );
+    const first = applyEdits(setup, [{ kind: 'insert', path: ['receivers', 0, 'map', 0], value: { pin: 9, ch: 9 } }]);
+    expect(first).toBe(
+      setup.replace(
+        '      - { pin: 1, ch: 1, failsafe: 1500 }',
+        '      - { pin: 9, ch: 9 }\n      - { pin: 1, ch: 1, failsafe: 1500 }',
+      ),
+    );
+  });
+
+  it('inserts into a flow list before the entry at the index, and appends at its end', () => {
+    const text = 'rates: { weights: [100, 60] }   # high, low\n';
+    expect(applyEdits(text, [{ kind: 'insert', path: ['rates', 'weights', 1], value: 80 }])).toBe(
+      'rates: { weights: [100, 80, 60] }   # high, low\n',
+    );
+    expect(applyEdits(text, [{ kind: 'insert', path: ['rates', 'weights', 2], value: 30 }])).toBe(
+      'rates: { weights: [100, 60, 30] }   # high, low\n',
+    );
+  });
+
   it('quotes a string that would read back as something else', () => {
     const out = applyEdits(setup, [{ kind: 'set', path: ['receivers', 1, 'label'], value: 'Wing, left: red' }]);
     expect(data(out).receivers[1].label).toBe('Wing, left: red');

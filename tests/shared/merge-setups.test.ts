@@ -1,3 +1,6 @@
+import { readFileSync } from 'node:fs';
+import { fileURLToPath } from 'node:url';
+import { diffLines } from 'diff';
 import fc from 'fast-check';
 import { parse } from 'yaml';
 import { describe, expect, it } from 'vitest';
@@ -27,6 +30,11 @@ interface Doc {
   model: { name: string; weight_g: number };
   mixes: Mix[];
   receivers: Receiver[];
+}
+interface Demo {
+  channels: { cut: { value: number }; travel?: { reverse: boolean } }[];
+  mixes: Record<string, unknown>[];
+  receivers: { label: string; map: Pin[] }[];
 }
 
 const failsafe = fc.oneof(fc.integer({ min: 900, max: 2100 }), fc.constant('hold' as const));
@@ -181,6 +189,23 @@ describe('mergeSetups', () => {
   });
 });
 
+// A line-diff of two texts: the lines only `before` has and the lines only `after` has.
+function changedLines(before: string, after: string): { removed: string[]; added: string[] } {
+  const removed: string[] = [];
+  const added: string[] = [];
+  for (const part of diffLines(before, after)) {
+    const lines = part.value.replace(/\n$/, '').split('\n');
+    if (part.removed) removed.push(...lines);
+    if (part.added) added.push(...lines);
+  }
+  return { removed, added };
+}
+
+const demoText = readFileSync(
+  fileURLToPath(new URL('../../fixtures/valid/scale-16-channel-two-receivers.yaml', import.meta.url)),
+  'utf8',
+);
+
 describe('applyToText', () => {
   it('keeps comments and layout of what the edits do not touch', () => {
     const text = `# Heron, club trainer\nmodel:\n  name: Heron   # as painted\nmixes:\n  - id: ail # ailerons\n    expo: 20\n  - id: ele\n    expo: 10\n`;
@@ -190,8 +215,101 @@ describe('applyToText', () => {
     after.mixes.push({ id: 'rud', expo: 0 });
     const written = applyToText(text, before, after);
     expect(parse(written)).toEqual(after);
-    expect(written).toContain('# Heron, club trainer');
-    expect(written).toContain('# as painted');
-    expect(written).toContain('- id: ail # ailerons');
+    expect(written).toBe(text.replace('    expo: 10\n', '    expo: 15\n  - id: rud\n    expo: 0\n'));
+  });
+
+  it('writes a fork taking in its source’s fixes into the demo text only on the lines of the changed settings', () => {
+    // The fork renamed itself; the source meanwhile fixed settings across the document.
+    const base = parse(demoText) as Demo;
+    const oursText = demoText.replace('  name: Kestrel Mk II\n', '  name: Kestrel Mk II (club copy)\n');
+    const ours = parse(oursText) as Demo;
+    const theirs = structuredClone(base);
+    theirs.receivers[0].map[2].failsafe = 990;
+    theirs.channels[2].cut.value = -95;
+    theirs.channels[8].travel = { reverse: true };
+    theirs.mixes[2].expo = 18;
+    theirs.mixes.splice(10, 0, { id: 'snap', from: 'rudder-stick', to: 4, weight: 10 });
+    theirs.receivers[1].label = 'Wing receiver (green tape)';
+    const merged = mergeSetups(base, ours, theirs);
+    expect(merged.conflicts).toEqual([]);
+
+    const written = applyToText(oursText, ours, merged.data);
+    expect(parse(written)).toEqual(merged.data);
+    expect(changedLines(oursText, written)).toEqual({
+      removed: [
+        '      cut: { control: motor-arm, position: 0, value: -100 } }',
+        '  - { ch: 9,  function: tailwheel,     role: steering }',
+        '  - { id: elevator,   from: elevator-stick, to: 2, weight: 92, expo: 15 }',
+        '      - { pin: 3, ch: 3, failsafe: 1000 }   # motor must stop on signal loss',
+        '    label: Wing receiver (red tape)',
+      ],
+      added: [
+        '      cut: { control: motor-arm, position: 0, value: -95 } }',
+        '  - { ch: 9,  function: tailwheel,     role: steering, travel: { reverse: true } }',
+        '  - { id: elevator,   from: elevator-stick, to: 2, weight: 92, expo: 18 }',
+        '  - { id: snap, from: rudder-stick, to: 4, weight: 10 }',
+        '      - { pin: 3, ch: 3, failsafe: 990 }   # motor must stop on signal loss',
+        '    label: Wing receiver (green tape)',
+      ],
+    });
+    expect(written.split('\n')).toHaveLength(oursText.split('\n').length + 1);
+    expect(written).toContain('  name: Kestrel Mk II (club copy)\n');
+  });
+
+  it('rewrites only the entry that changed places when a list is reordered', () => {
+    const text = `mixes:\n  - { id: ail,  expo: 20 }   # ailerons\n  - { id: ele,  expo: 10 }   # elevator\n  - { id: rud,  expo: 0 }    # rudder\n`;
+    const before = parse(text) as { mixes: unknown[] };
+    const after = { mixes: [before.mixes[1], before.mixes[2], before.mixes[0]] };
+    const written = applyToText(text, before, after);
+    expect(parse(written)).toEqual(after);
+    expect(changedLines(text, written)).toEqual({
+      removed: ['  - { id: ail,  expo: 20 }   # ailerons'],
+      added: ['  - { id: ail, expo: 20 }'],
+    });
+  });
+
+  it('keeps every line of an entry the merge left alone, for random fork and source edits', () => {
+    // The fork's text in the files' usual shape: a header comment, flow entries each
+    // with a comment naming it, so any rewrite of an untouched entry would show.
+    const mixLine = (mix: Mix) => `  - { id: ${mix.id}, weight: ${mix.weight}, expo: ${mix.expo} }   # mix ${mix.id}`;
+    const pinLine = (pin: Pin) => `      - { pin: ${pin.pin}, failsafe: ${pin.failsafe} }   # pin ${pin.pin}`;
+    const render = (doc: Doc) =>
+      [
+        '# the fork, as its pilot wrote it',
+        'model:',
+        `  name: ${doc.model.name}`,
+        `  weight_g: ${doc.model.weight_g}`,
+        doc.mixes.length > 0 ? 'mixes:' : 'mixes: []',
+        ...doc.mixes.map(mixLine),
+        'receivers:',
+        ...doc.receivers.flatMap((receiver) => [
+          `  - id: ${receiver.id}`,
+          receiver.map.length > 0 ? '    map:' : '    map: []',
+          ...receiver.map.map(pinLine),
+        ]),
+        '',
+      ].join('\n');
+    fc.assert(
+      fc.property(scenario, ({ base, plans, oursAdded, theirsAdded, theirsPins }) => {
+        const ours = edited(base, base, 'ours', plans, oursAdded, []);
+        const theirs = edited(base, base, 'theirs', plans, theirsAdded, theirsPins);
+        const merged = mergeSetups(base, ours, theirs).data as Doc;
+        const text = render(ours);
+        const written = applyToText(text, ours, merged);
+        expect(parse(written)).toEqual(merged);
+        const lines = new Set(written.split('\n'));
+        expect(lines).toContain('# the fork, as its pilot wrote it');
+        for (const mix of ours.mixes)
+          if (merged.mixes.some((other) => JSON.stringify(other) === JSON.stringify(mix)))
+            expect(lines).toContain(mixLine(mix));
+        for (const receiver of ours.receivers) {
+          const after = merged.receivers.find((other) => other.id === receiver.id);
+          for (const pin of receiver.map)
+            if (after?.map.some((other) => JSON.stringify(other) === JSON.stringify(pin)))
+              expect(lines).toContain(pinLine(pin));
+        }
+      }),
+      { numRuns: 200 },
+    );
   });
 });
