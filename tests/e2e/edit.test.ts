@@ -243,6 +243,22 @@ describe('journey: two tabs on one model, merged', () => {
     expect(weightMark).toContain('‘Weighed: 6350 g’');
     const notesMark = await second.locator('.cm-origin-mark', { hasText: 'r3' }).first().getAttribute('title');
     expect(notesMark).toContain('‘Shorter notes, on the measured weight’');
+
+    // The keyboard reaches the same words: the status line under the editor says the cursor line's mark.
+    const status = second.getByRole('status').filter({ hasText: /^Line \d+: / });
+    await setupText(second).focus();
+    await second.keyboard.press('Control+Home');
+    await status.getByText(/^Line 1: /).waitFor();
+    expect(await status.getAttribute('aria-live')).toBe('polite');
+    for (let step = 0; step < 40; step += 1) {
+      if ((await status.textContent())?.startsWith(`Line ${weightLine}: `)) break;
+      await second.keyboard.press('ArrowDown');
+    }
+    expect(await status.textContent()).toBe(`Line ${weightLine}: ${weightMark}`);
+    await second.keyboard.press('ArrowDown');
+    await status.getByText(`Line ${notesLine}: ${notesMark}`).waitFor();
+    await status.scrollIntoViewIfNeeded();
+    await saveScreenshot(second, 'journey-line-origin-status', { fullPage: false });
     await saveScreenshot(second, 'journey-line-origins', { fullPage: false });
     expectNoProblems(visit, [409]);
     await visit.context.close();

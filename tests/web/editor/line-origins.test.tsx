@@ -1,11 +1,11 @@
-import { screen, waitFor } from '@testing-library/react';
+import { act, screen, waitFor } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import type { ProvenanceEntry } from '@shared/contract/provenance';
 import { leafValues } from '@shared/lineage/leaf-paths';
 import { lineOrigins } from '@web/features/editor/line-origins';
 import { fakeServer, sessionRoutes } from '../fake-server';
 import { renderApp } from '../render-app';
-import { typeOver } from './code-editor';
+import { editorView, typeOver } from './code-editor';
 import { MODEL_ID, modelRoutes, revisionId } from './model-routes';
 import { demoSetup, documentOf } from './setups';
 
@@ -89,5 +89,38 @@ describe('Edit: where each line came from', () => {
     await waitFor(() => expect(count()).toBe(before - 1));
     expect(document.querySelector('.cm-origin-mark')!.textContent).toBe('r3');
     expect(server.called('GET', `/api/models/${MODEL_ID}/provenance`)).toHaveLength(1);
+  });
+
+  it('says the mark of the cursor’s line in a polite status line under the editor, for keyboard users', async () => {
+    // The edit of the test before is this tab's draft; this one starts from the saved text.
+    sessionStorage.clear();
+    fakeServer({
+      ...sessionRoutes({ signedIn: true }).routes,
+      ...modelRoutes([revision]),
+      [`GET /api/models/${MODEL_ID}/provenance`]: () => ({ body: { data: provenanceAnswer() } }),
+    });
+    renderApp(`/models/${MODEL_ID}/edit`);
+    await waitFor(() => expect(document.querySelector('.cm-editor')).not.toBeNull());
+    const status = screen.getAllByRole('status').find((element) => element.getAttribute('aria-live') === 'polite')!;
+    expect(status).toHaveTextContent('');
+
+    await userEvent.click(screen.getByRole('checkbox', { name: 'Show where each line came from' }));
+    await waitFor(() => expect(document.querySelector('.cm-origin-mark')).not.toBeNull());
+    const moveTo = (needle: string) => {
+      const view = editorView();
+      act(() => view.dispatch({ selection: { anchor: view.state.doc.toString().indexOf(needle) } }));
+    };
+    const pin1 = lineOf(demoSetup, '{ pin: 1, ch: 9,  failsafe: 1500 }');
+    moveTo('{ pin: 1, ch: 9,  failsafe: 1500 }');
+    expect(status).toHaveTextContent(
+      `Line ${pin1}: since r6, Ines Marchbank, 16 Feb 2025: ‘Tailwheel centres on signal loss’`,
+    );
+    // A comment line holds no setting; an edited line no saved one.
+    moveTo('# ');
+    expect(status).toHaveTextContent(/^Line 1: no saved setting on this line$/);
+    moveTo('format: bindery-setup/1');
+    expect(status).toHaveTextContent(/^Line \d+: since r3, Ines Marchbank, 5 Jan 2025: ‘Second receiver in the wing’$/);
+    typeOver('format: bindery-setup/1', 'format: bindery-setup/9');
+    expect(status).toHaveTextContent(/^Line \d+: no saved setting on this line$/);
   });
 });

@@ -37,3 +37,8 @@ export function lineOrigins(text: string, savedDocument: unknown, provenance: Pr
     .sort((a, b) => a[0] - b[0])
     .map(([line, entry]) => ({ line, label: `r${entry.revision.number}`, title: sinceText(entry) }));
 }
+
+/** The status line under the editor for the cursor's line: the gutter mark's detail, in words. */
+export function cursorOriginText(line: number, origin: LineOrigin | null): string {
+  return `Line ${line}: ${origin ? origin.title : 'no saved setting on this line'}`;
+}

@@ -1,4 +1,4 @@
-import { RangeSet, StateEffect, StateField, type Extension } from '@codemirror/state';
+import { RangeSet, StateEffect, StateField, type EditorState, type Extension } from '@codemirror/state';
 import { gutter, GutterMarker } from '@codemirror/view';
 import type { LineOrigin } from '../line-origins';
 
@@ -54,6 +54,18 @@ const originMarks = StateField.define<RangeSet<GutterMarker>>({
     return next;
   },
 });
+
+/** The mark on line `line` as the gutter shows it now (edited lines have none), for the cursor's status line. */
+export function originOnLine(state: EditorState, line: number): LineOrigin | null {
+  const from = state.doc.line(line).from;
+  let found: LineOrigin | null = null;
+  state.field(originMarks, false)?.between(from, from, (start, _end, marker) => {
+    if (start !== from || !(marker instanceof OriginMarker)) return;
+    found = marker.origin;
+    return false;
+  });
+  return found;
+}
 
 export function originGutter(): Extension {
   return [originMarks, gutter({ class: 'cm-origin-gutter', markers: (view) => view.state.field(originMarks) })];

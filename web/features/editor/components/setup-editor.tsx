@@ -32,14 +32,14 @@ import { SaveDialog, type SaveSignOff } from './save-dialog';
 import { useRevisionThreads } from '../../reviews/api/reviews';
 import { useClubRules } from '../../team/api/club-rules';
 import { useProvenance } from '../../provenance/api/get-provenance';
-import { lineOrigins } from '../line-origins';
+import { cursorOriginText, lineOrigins } from '../line-origins';
 import { settingWords } from '../../reviews/setting-words';
 import type { CommentThread } from '../../reviews/types';
 import { commentLines, type CommentLine } from '../comment-lines';
 import { canonicalJson } from '@shared/canonical/content-hash';
 import { StaleBasePanel } from './stale-base-panel';
 import { EditorTabs, type EditorTab } from './editor-tabs';
-import type { LineJump } from './yaml-code-editor';
+import type { CursorOrigin, LineJump } from './yaml-code-editor';
 
 const YamlCodeEditor = lazyScreen(() => import('./yaml-code-editor'), 'YamlCodeEditor');
 
@@ -206,6 +206,7 @@ export function SetupEditor({ model, initialBase, restoredText, canEdit, role }:
   // "Show where each line came from": one provenance answer for the revision the edit
   // stands on, placed on the lines whose settings still hold that revision's values.
   const [showOrigins, setShowOrigins] = useState(false);
+  const [cursor, setCursor] = useState<CursorOrigin | null>(null);
   const provenance = useProvenance(model.id, showOrigins ? base.id : null);
   const originMarks = useMemo(
     () =>
@@ -488,20 +489,32 @@ export function SetupEditor({ model, initialBase, restoredText, canEdit, role }:
                 <span className="text-ink-700">(lines you changed show nothing until saved)</span>
               )}
             </label>
-            <div className="h-[max(22rem,60vh)] overflow-hidden rounded-lg border border-ply-300 bg-paper-raised lg:h-[max(30rem,calc(100vh-9rem))]">
-              <Suspense fallback={<LoadingState label="Loading the text editor…" />}>
-                <YamlCodeEditor
-                  value={text}
-                  onChange={setText}
-                  readOnly={!canEdit}
-                  checked={marks}
-                  jump={jump}
-                  visible={tab === 'text'}
-                  label={`Setup text of ${model.name}`}
-                  comments={commentMarks}
-                  origins={originMarks}
-                />
-              </Suspense>
+            <div className="flex h-[max(22rem,60vh)] flex-col overflow-hidden rounded-lg border border-ply-300 bg-paper-raised lg:h-[max(30rem,calc(100vh-9rem))]">
+              <div className="min-h-0 flex-1">
+                <Suspense fallback={<LoadingState label="Loading the text editor…" />}>
+                  <YamlCodeEditor
+                    value={text}
+                    onChange={setText}
+                    readOnly={!canEdit}
+                    checked={marks}
+                    jump={jump}
+                    visible={tab === 'text'}
+                    label={`Setup text of ${model.name}`}
+                    comments={commentMarks}
+                    origins={originMarks}
+                    onCursorOrigin={setCursor}
+                  />
+                </Suspense>
+              </div>
+              {/* The gutter's marks tell their detail on hover; this bar says the cursor line's, so the
+                  keyboard reaches it too. It stays in the page while hidden, so its first words are announced. */}
+              <p
+                role="status"
+                aria-live="polite"
+                className={originMarks ? 'border-t border-ply-300 px-3 py-2 text-sm text-ink-700' : 'sr-only'}
+              >
+                {originMarks && cursor ? cursorOriginText(cursor.line, cursor.origin) : ''}
+              </p>
             </div>
           </div>
           {tab !== 'text' && (

@@ -1,5 +1,6 @@
 import { yaml } from '@codemirror/lang-yaml';
 import { lintGutter, setDiagnostics } from '@codemirror/lint';
+import type { EditorState, Extension } from '@codemirror/state';
 import CodeMirror, { EditorSelection, EditorView } from '@uiw/react-codemirror';
 import { useEffect, useMemo, useRef, useState } from 'react';
 import type { Finding } from '@shared/findings';
@@ -7,7 +8,7 @@ import { findingDiagnostics } from '../finding-diagnostics';
 import { editorTheme } from './code-editor-theme';
 import type { LineOrigin } from '../line-origins';
 import { commentGutter, setCommentMarks, type CommentMark } from './comment-gutter';
-import { originGutter, setOriginMarks } from './origin-gutter';
+import { originGutter, originOnLine, setOriginMarks } from './origin-gutter';
 
 /** A request to show a line: `key` changes with every request, so the same line can be asked for twice. */
 export interface LineJump {
@@ -29,9 +30,31 @@ export interface YamlCodeEditorProps {
   comments: { text: string; marks: readonly CommentMark[] };
   /** The revision each line came from, for the text on show; null while the pilot has them hidden. */
   origins: { text: string; marks: readonly LineOrigin[] } | null;
+  /** The cursor's line and its mark, each time either changes: the gutter's detail for keyboard users. Keep it stable (a state setter): a new one reconfigures the editor. */
+  onCursorOrigin?: (cursor: CursorOrigin) => void;
+}
+
+export interface CursorOrigin {
+  line: number;
+  origin: LineOrigin | null;
 }
 
 const BASIC_SETUP = { autocompletion: false, foldGutter: true, highlightActiveLine: true, tabSize: 2 } as const;
+
+// Tells the cursor's line and that line's origin mark whenever either changes: a move,
+// an edit that takes a mark away, or new marks.
+function cursorOrigin(tell: (cursor: CursorOrigin) => void): Extension {
+  let last = '';
+  const report = (state: EditorState) => {
+    const line = state.doc.lineAt(state.selection.main.head).number;
+    const origin = originOnLine(state, line);
+    const key = `${line} ${origin?.title ?? ''}`;
+    if (key === last) return;
+    last = key;
+    tell({ line, origin });
+  };
+  return EditorView.updateListener.of((update) => report(update.state));
+}
 
 // Loaded on demand (see setup-editor.tsx), so CodeMirror stays out of the first page.
 export function YamlCodeEditor({
@@ -44,6 +67,7 @@ export function YamlCodeEditor({
   label,
   comments,
   origins,
+  onCursorOrigin,
 }: YamlCodeEditorProps) {
   const [view, setView] = useState<EditorView | null>(null);
   const shownJump = useRef<string | null>(null);
@@ -55,11 +79,12 @@ export function YamlCodeEditor({
       commentGutter(),
       originGutter(),
       EditorView.lineWrapping,
+      ...(onCursorOrigin ? [cursorOrigin(onCursorOrigin)] : []),
       // The editable text is already a tab stop; saying so lets checkers see that the
       // scrolling area around it is reachable by keyboard.
       EditorView.contentAttributes.of({ 'aria-label': label, tabindex: '0' }),
     ],
-    [label],
+    [label, onCursorOrigin],
   );
 
   // Marks and jumps wait for the view, and for the text they belong to: `value` reaches
