@@ -18,21 +18,31 @@ interface Row {
 
 // The revisions of the model that changed the path or a setting under it, newest first:
 // one row per revision, with the paths it changed and the revision the value came from
-// (the source's when a fork or a merge brought it in unchanged).
+// (the source's when a fork or a merge brought it in unchanged). The page's revision
+// numbers are picked from the matching changes alone, so only those 20 or so revisions
+// are joined and aggregated however long the setting's history is.
 const HISTORY_SQL = `
+  WITH hits AS MATERIALIZED (
+    SELECT number, revision_id, origin_revision_id, path
+      FROM revision_changes
+     WHERE model_id = $model
+       AND (path = $path OR starts_with(path, $path || '.') OR starts_with(path, $path || '['))
+  ), page AS (
+    SELECT DISTINCT number FROM hits ORDER BY number DESC LIMIT $limit OFFSET $offset
+  ), c AS (
+    SELECT h.revision_id, min(h.origin_revision_id::text)::uuid AS origin_revision_id,
+           bool_or(h.origin_revision_id IS NOT NULL) AS inherited, array_agg(h.path ORDER BY h.path) AS paths
+      FROM hits h JOIN page USING (number)
+     GROUP BY h.revision_id
+  )
   SELECT own.id, own.number, own.parent_id, r.model_id, r.message, r.created_at,
-         u.id AS author_id, u.name AS author_name, c.inherited, c.paths, count(*) OVER () AS total
-    FROM (SELECT c.revision_id, min(c.origin_revision_id::text)::uuid AS origin_revision_id,
-                 bool_or(c.origin_revision_id IS NOT NULL) AS inherited, array_agg(c.path ORDER BY c.path) AS paths
-            FROM revision_changes c
-           WHERE c.model_id = $model
-             AND (c.path = $path OR starts_with(c.path, $path || '.') OR starts_with(c.path, $path || '['))
-           GROUP BY c.revision_id) AS c
+         u.id AS author_id, u.name AS author_name, c.inherited, c.paths,
+         (SELECT count(DISTINCT number) FROM hits) AS total
+    FROM c
     JOIN revisions own ON own.id = c.revision_id
     JOIN revisions r ON r.id = coalesce(c.origin_revision_id, c.revision_id)
     LEFT JOIN users u ON u.id = r.author_id
-   ORDER BY own.number DESC
-   LIMIT $limit OFFSET $offset`;
+   ORDER BY own.number DESC`;
 
 /**
  * Every revision of a model that changed the setting at `path` (or one under it), newest
