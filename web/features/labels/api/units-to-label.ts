@@ -7,7 +7,7 @@ import type { ShelfUnit } from '../../shelf/types';
 
 // The API's largest page: a sheet for every unit is read in as few requests as it can be.
 const WHOLE_SHELF_PAGE = 200;
-/** The most units one address picks; a longer pick is a sheet for the whole shelf. */
+/** The most units one address picks, each read by its id; the sheet says when more were picked. */
 export const MOST_PICKED = 200;
 
 export interface UnitsToLabel {

@@ -10,7 +10,7 @@ import { SelectField } from '../../../components/ui/select-field';
 import { TextField } from '../../../components/ui/text-field';
 import { useQueryParams } from '../../../hooks/use-query-params';
 import { useCurrentWorkspace } from '../../workspaces/hooks/use-current-workspace';
-import { useUnitsToLabel } from '../api/units-to-label';
+import { MOST_PICKED, useUnitsToLabel } from '../api/units-to-label';
 import { LABEL_SHEETS, labelSheet, labelsPerPage, paginate, type LabelSheet } from '../label-sheets';
 import '../labels.css';
 import { UnitLabel } from './unit-label';
@@ -100,6 +100,9 @@ export function LabelSheetScreen() {
         <p className="text-sm text-ink-700 sm:col-span-2">
           {units.length} {units.length === 1 ? 'label' : 'labels'} on {pages.length}{' '}
           {sheet.id === 'single' ? (pages.length === 1 ? 'label' : 'labels') : pages.length === 1 ? 'sheet' : 'sheets'}
+          {picked &&
+            picked.length > MOST_PICKED &&
+            ` for the first ${MOST_PICKED} of the ${picked.length} units picked`}
           {picked && (
             <>
               {' '}
