@@ -109,3 +109,22 @@ export function sessionRoutes(options: { signedIn?: boolean; password?: string; 
   };
   return { state, routes };
 }
+
+/**
+ * A page of a cursor-paged list as the API answers it (api/routes/models.ts, receivers.ts):
+ * `limit` entries after the one `after` names, in the order given, the total of the whole
+ * list and `next_after`, the id of the page's last entry when more follow.
+ */
+export function keysetPage<T extends { id: string }>(entries: readonly T[], url: URL): FakeAnswer {
+  const limit = Number(url.searchParams.get('limit') ?? 50);
+  const after = url.searchParams.get('after');
+  const start = after ? entries.findIndex((entry) => entry.id === after) + 1 : 0;
+  const data = entries.slice(start, start + limit);
+  const more = start + limit < entries.length;
+  return {
+    body: {
+      data,
+      pagination: { limit, offset: 0, total: entries.length, next_after: more ? data[data.length - 1].id : null },
+    },
+  };
+}

@@ -1,5 +1,5 @@
 import { screen, waitFor, within } from '@testing-library/react';
-import { BUILDERS, CLUB, fakeServer, sessionRoutes, type FakeHandler } from '../fake-server';
+import { BUILDERS, CLUB, fakeServer, keysetPage, sessionRoutes, type FakeHandler } from '../fake-server';
 import { analyzeSetup } from '@shared/analyze';
 import { renderApp } from '../render-app';
 import { fixtureText, modelRecord, modelRoutes, modelView, type ModelRecord } from './model-data';
@@ -28,11 +28,16 @@ function hangarModels(): ModelRecord[] {
   ];
 }
 
+// The hangar as the API answers it: searched on the server by name or airframe, by name, a page at a time.
 function hangarRoute(models: ModelRecord[], workspace = CLUB): Record<string, FakeHandler> {
   return {
-    [`GET /api/workspaces/${workspace}/models`]: () => ({
-      body: { data: models.map(modelView), pagination: { limit: 200, offset: 0, total: models.length } },
-    }),
+    [`GET /api/workspaces/${workspace}/models`]: ({ url }) => {
+      const q = url.searchParams.get('q')?.toLowerCase() ?? '';
+      const matching = models
+        .filter((model) => `${model.name}\n${model.airframe ?? ''}`.toLowerCase().includes(q))
+        .sort((a, b) => a.name.toLowerCase().localeCompare(b.name.toLowerCase()));
+      return keysetPage(matching.map(modelView), url);
+    },
   };
 }
 
@@ -90,18 +95,18 @@ describe('Hangar', () => {
     const search = await screen.findByRole('searchbox', { name: 'Search models' });
 
     await user.type(search, 'glider');
-    expect(modelNames()).toEqual(['Albatross Scale']);
-    expect(screen.getByText('1 of 3 models')).toBeInTheDocument();
+    await waitFor(() => expect(modelNames()).toEqual(['Albatross Scale']));
+    expect(await screen.findByText('1 model matches')).toBeInTheDocument();
 
     await user.clear(search);
     await user.type(search, 'MEADOW');
-    expect(modelNames()).toEqual(['Meadowlark 40']);
+    await waitFor(() => expect(modelNames()).toEqual(['Meadowlark 40']));
 
     await user.type(search, 'x');
+    expect(await screen.findByRole('heading', { name: 'No model matches “MEADOWx”' })).toBeInTheDocument();
     expect(screen.queryByRole('table')).not.toBeInTheDocument();
-    expect(screen.getByRole('heading', { name: 'No model matches “MEADOWx”' })).toBeInTheDocument();
     await user.click(screen.getByRole('button', { name: 'Clear the search' }));
-    expect(modelNames()).toHaveLength(3);
+    await waitFor(() => expect(modelNames()).toHaveLength(3));
   });
 
   it('invites an owner to add the first model of an empty hangar', async () => {
@@ -186,5 +191,48 @@ describe('New model from a file', () => {
     const sent = server.fetch.mock.calls.find(([url]) => typeof url === 'string' && url.endsWith('/models/upload'))![1]!
       .body as FormData;
     expect((sent.get('file') as File).name).toBe('broken.yaml');
+  });
+});
+
+describe('A hangar longer than a page', () => {
+  // 120 models: two full pages of 50 and a last one of 20.
+  const fleet = () => {
+    const yaml = fixtureText('valid/trainer-single-receiver.yaml');
+    return Array.from({ length: 120 }, (_, n) => modelRecord(`Fleet ${String(n + 1).padStart(3, '0')}`, [yaml]));
+  };
+  const askedOf = (server: ReturnType<typeof fakeServer>) =>
+    server.called('GET', `/api/workspaces/${CLUB}/models`).map((request) => request.url.searchParams);
+
+  it('shows the first page with how many of how many, and Show more reads the next page by its cursor', async () => {
+    const models = fleet();
+    const server = fakeServer({ ...sessionRoutes({ signedIn: true }).routes, ...hangarRoute(models) });
+    const { user } = renderApp(`/w/${CLUB}/hangar`);
+
+    expect(await screen.findByText('Showing 50 of 120 models.')).toBeInTheDocument();
+    expect(screen.getByText('120 models')).toBeInTheDocument();
+    expect(modelNames()).toHaveLength(50);
+    expect(modelNames().at(-1)).toBe('Fleet 050');
+
+    await user.click(screen.getByRole('button', { name: 'Show more' }));
+    expect(await screen.findByText('Showing 100 of 120 models.')).toBeInTheDocument();
+    expect(modelNames().slice(49, 51)).toEqual(['Fleet 050', 'Fleet 051']);
+    expect(askedOf(server).at(-1)?.get('after')).toBe(models[49].id);
+
+    await user.click(screen.getByRole('button', { name: 'Show more' }));
+    await waitFor(() => expect(modelNames()).toHaveLength(120));
+    expect(screen.queryByRole('button', { name: 'Show more' })).not.toBeInTheDocument();
+    expect(askedOf(server).every((params) => params.get('limit') === '50')).toBe(true);
+  });
+
+  it('asks the server to search, so a model far past the first page is found', async () => {
+    const server = fakeServer({ ...sessionRoutes({ signedIn: true }).routes, ...hangarRoute(fleet()) });
+    const { user } = renderApp(`/w/${CLUB}/hangar`);
+    await screen.findByText('Showing 50 of 120 models.');
+
+    await user.type(screen.getByRole('searchbox', { name: 'Search models' }), 'fleet 117');
+    await waitFor(() => expect(modelNames()).toEqual(['Fleet 117']));
+    expect(screen.getByText('1 model matches')).toBeInTheDocument();
+    expect(screen.queryByRole('button', { name: 'Show more' })).not.toBeInTheDocument();
+    expect(askedOf(server).at(-1)?.get('q')).toBe('fleet 117');
   });
 });

@@ -1,5 +1,5 @@
 import { screen, waitFor, within } from '@testing-library/react';
-import { apiError, BUILDERS, CLUB, fakeServer, sessionRoutes } from '../fake-server';
+import { apiError, BUILDERS, CLUB, fakeServer, keysetPage, sessionRoutes } from '../fake-server';
 import { uuid } from '../models/model-data';
 import { renderApp } from '../render-app';
 import { history, unitRecord } from './shelf-data';
@@ -32,7 +32,7 @@ function shelfServer(units = [installedUnit, changesUnit, spare], ws = CLUB) {
       const shown = units.filter(
         (unit) => (!q || unit.label.toLowerCase().includes(q)) && (!status || unit.status === status),
       );
-      return { body: { data: shown, pagination: { limit: 200, offset: 0, total: shown.length } } };
+      return keysetPage(shown, url);
     },
   });
 }
@@ -91,8 +91,8 @@ describe('Shelf', () => {
     const asked = server.requests
       .filter((request) => request.path === `/api/workspaces/${CLUB}/receivers`)
       .map((request) => request.url.search);
-    expect(asked).toContain('?limit=200&status=free');
-    expect(asked.at(-1)).toBe('?limit=200&q=pipit');
+    expect(asked).toContain('?limit=50&status=free');
+    expect(asked.at(-1)).toBe('?limit=50&q=pipit');
 
     await user.type(screen.getByLabelText('Search receivers'), 'zzz');
     expect(await screen.findByRole('heading', { name: 'No receiver matches' })).toBeInTheDocument();
@@ -164,5 +164,47 @@ describe('Shelf', () => {
       outputs: 6,
     });
     expect(await screen.findByRole('heading', { level: 1, name: 'Heron wing unit' })).toBeInTheDocument();
+  });
+});
+
+describe('A shelf longer than a page', () => {
+  // 70 units: a page of 50 and one of 20.
+  const bay = () =>
+    Array.from({ length: 70 }, (_, n) =>
+      unitRecord(null, { id: uuid(7000), label: `Bay unit ${String(n + 1).padStart(2, '0')}` }),
+    );
+  const labelsShown = () =>
+    within(screen.getByRole('table'))
+      .getAllByRole('row')
+      .slice(1)
+      .map((row) => within(row).getAllByRole('link')[0].textContent);
+
+  it('shows the first page with how many of how many, and Show more reads the next page by its cursor', async () => {
+    const units = bay();
+    const server = shelfServer(units);
+    const { user } = renderApp(`/w/${CLUB}/shelf`);
+
+    expect(await screen.findByText('Showing 50 of 70 receivers.')).toBeInTheDocument();
+    expect(screen.getByText('70 receivers')).toBeInTheDocument();
+    expect(labelsShown()).toHaveLength(50);
+
+    await user.click(screen.getByRole('button', { name: 'Show more' }));
+    await waitFor(() => expect(labelsShown()).toHaveLength(70));
+    expect(labelsShown().slice(49, 51)).toEqual(['Bay unit 50', 'Bay unit 51']);
+    expect(screen.queryByRole('button', { name: 'Show more' })).not.toBeInTheDocument();
+    const asked = server.called('GET', `/api/workspaces/${CLUB}/receivers`).map((request) => request.url.searchParams);
+    expect(asked.at(-1)?.get('after')).toBe(units[49].id);
+  });
+
+  it('asks the server to search, so a unit far past the first page is found', async () => {
+    const server = shelfServer(bay());
+    const { user } = renderApp(`/w/${CLUB}/shelf`);
+    await screen.findByText('Showing 50 of 70 receivers.');
+
+    await user.type(screen.getByLabelText('Search receivers'), 'unit 68');
+    await waitFor(() => expect(labelsShown()).toEqual(['Bay unit 68']));
+    expect(screen.getByText('1 receiver match')).toBeInTheDocument();
+    const asked = server.called('GET', `/api/workspaces/${CLUB}/receivers`).map((request) => request.url.searchParams);
+    expect(asked.at(-1)?.get('q')).toBe('unit 68');
   });
 });

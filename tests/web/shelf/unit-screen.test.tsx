@@ -1,5 +1,5 @@
 import { screen, waitFor, within } from '@testing-library/react';
-import { BUILDERS, CLUB, fakeServer, sessionRoutes, type FakeHandler } from '../fake-server';
+import { BUILDERS, CLUB, fakeServer, keysetPage, sessionRoutes, type FakeHandler } from '../fake-server';
 import { fixtureText, modelRecord, modelRoutes, modelView } from '../models/model-data';
 import { renderApp } from '../render-app';
 import { checkFor, history, unitRecord } from './shelf-data';
@@ -93,6 +93,40 @@ describe('A unit’s page', () => {
       move: false,
     });
     expect(await screen.findByRole('heading', { name: 'Before it flies in Kestrel Mk II' })).toBeInTheDocument();
+  });
+
+  it('finds the model to install into by the server’s search, far down a hangar too long to list', async () => {
+    const state = { unit: unitRecord('trainer-unit') };
+    const yaml = fixtureText('valid/trainer-single-receiver.yaml');
+    // 120 models whose names sort before the Kestrel's: it is the 121st, past any first page.
+    const hangar = [
+      ...Array.from({ length: 120 }, (_, n) =>
+        modelView(modelRecord(`Fleet ${String(n + 1).padStart(3, '0')}`, [yaml])),
+      ),
+      modelView(kestrel),
+    ];
+    const server = fakeServer(
+      unitRoutes(state, {
+        [`GET /api/workspaces/${CLUB}/models`]: ({ url }) => {
+          const q = url.searchParams.get('q')?.toLowerCase() ?? '';
+          return keysetPage(
+            hangar.filter((model) => model.name.toLowerCase().includes(q)),
+            url,
+          );
+        },
+      }),
+    );
+    const { user } = renderApp(`/w/${CLUB}/shelf/${state.unit.id}`);
+    await user.click(await screen.findByRole('button', { name: 'Install into a model' }));
+    expect(await screen.findByText('The list shows 50 of 121 matches; type more to narrow it.')).toBeInTheDocument();
+    expect(screen.queryByRole('option', { name: kestrel.name })).not.toBeInTheDocument();
+
+    await user.type(screen.getByRole('searchbox', { name: 'Find in the hangar' }), 'kestrel');
+    await user.selectOptions(screen.getByLabelText('Model'), await screen.findByRole('option', { name: kestrel.name }));
+    await waitFor(() => expect(screen.getByRole('option', { name: /^wing · Wing receiver/ })).toBeInTheDocument());
+    const asked = server.called('GET', `/api/workspaces/${CLUB}/models`).map((request) => request.url.searchParams);
+    expect(asked.at(-1)?.get('q')).toBe('kestrel');
+    expect(asked.every((params) => params.get('limit') === '50')).toBe(true);
   });
 
   it('asks for every change to be ticked before "I have applied these settings", then records them', async () => {

@@ -42,16 +42,6 @@ export function sortModels(models: readonly SetupModelView[], { column, directio
   return [...models].sort((a, b) => sign * compare(key(a), key(b)) || text.compare(a.name, b.name));
 }
 
-/** Models whose name, airframe or last author contains every word of `query`, in any case. */
-export function searchModels(models: readonly SetupModelView[], query: string): SetupModelView[] {
-  const words = query.toLocaleLowerCase().split(/\s+/).filter(Boolean);
-  if (words.length === 0) return [...models];
-  return models.filter((model) => {
-    const haystack = [model.name, model.airframe ?? '', model.latest?.author?.name ?? ''].join(' ').toLocaleLowerCase();
-    return words.every((word) => haystack.includes(word));
-  });
-}
-
 /** The first click on a column sorts it the way a pilot most often wants: newest, most problems, A to Z. */
 export const firstDirection = (column: HangarColumn): SortDirection =>
   column === 'name' || column === 'airframe' || column === 'review' ? 'ascending' : 'descending';

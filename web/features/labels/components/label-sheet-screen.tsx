@@ -9,9 +9,8 @@ import { PageHeader } from '../../../components/ui/page-header';
 import { SelectField } from '../../../components/ui/select-field';
 import { TextField } from '../../../components/ui/text-field';
 import { useQueryParams } from '../../../hooks/use-query-params';
-import { useShelf } from '../../shelf/api/list-receivers';
-import type { ShelfUnit } from '../../shelf/types';
 import { useCurrentWorkspace } from '../../workspaces/hooks/use-current-workspace';
+import { MOST_PICKED, useUnitsToLabel } from '../api/units-to-label';
 import { LABEL_SHEETS, labelSheet, labelsPerPage, paginate, type LabelSheet } from '../label-sheets';
 import '../labels.css';
 import { UnitLabel } from './unit-label';
@@ -44,23 +43,19 @@ const positiveInt = (value: string | null, max: number): number => {
 /**
  * Labels for the receivers on the shelf, to stick on each case: a QR code of the unit's
  * page and its short code, for the common label sheets or one small label at a time.
- * `?units=` picks units by id (all of them without it), `?sheet=` the sheet, `?skip=`
+ * `?units=` picks units by id (the whole shelf without it), `?sheet=` the sheet, `?skip=`
  * the places already used on a part-used sheet.
  */
 export function LabelSheetScreen() {
   const { inUrl } = useCurrentWorkspace();
   const [params, update] = useQueryParams();
-  const shelf = useShelf(inUrl?.id ?? null, {});
   const sheet = labelSheet(params.get('sheet'));
   const skip = sheet.id === 'single' ? 0 : positiveInt(params.get('skip'), labelsPerPage(sheet) - 1);
   const picked = params.get('units')?.split(',').filter(Boolean) ?? null;
+  const labels = useUnitsToLabel(inUrl?.id ?? null, picked);
+  const { units } = labels;
 
   if (!inUrl) return null;
-  const units: ShelfUnit[] = shelf.data
-    ? picked
-      ? shelf.data.units.filter((unit) => picked.includes(unit.id))
-      : shelf.data.units
-    : [];
   const pages = paginate(units, sheet, skip);
 
   return (
@@ -75,7 +70,7 @@ export function LabelSheetScreen() {
             <Link to={`/w/${inUrl.id}/shelf`} className="text-base">
               Back to the shelf
             </Link>
-            <Button onClick={() => window.print()} disabled={units.length === 0}>
+            <Button onClick={() => window.print()} disabled={units.length === 0 || labels.readingAll}>
               Print labels
             </Button>
           </>
@@ -105,6 +100,9 @@ export function LabelSheetScreen() {
         <p className="text-sm text-ink-700 sm:col-span-2">
           {units.length} {units.length === 1 ? 'label' : 'labels'} on {pages.length}{' '}
           {sheet.id === 'single' ? (pages.length === 1 ? 'label' : 'labels') : pages.length === 1 ? 'sheet' : 'sheets'}
+          {picked &&
+            picked.length > MOST_PICKED &&
+            ` for the first ${MOST_PICKED} of the ${picked.length} units picked`}
           {picked && (
             <>
               {' '}
@@ -115,28 +113,52 @@ export function LabelSheetScreen() {
         </p>
       </Card>
 
-      {shelf.isPending ? (
+      {labels.pending ? (
         <LoadingState label="Loading the shelf…" />
-      ) : shelf.isError ? (
-        <ErrorState title="The shelf could not be loaded" error={shelf.error} onRetry={() => void shelf.refetch()} />
+      ) : labels.error && units.length === 0 ? (
+        <ErrorState title="The shelf could not be loaded" error={labels.error} onRetry={labels.retry} />
       ) : units.length === 0 ? (
         <EmptyState title="No receiver to label">
           Add the receivers to the shelf first; each gets its short code when it is added.
         </EmptyState>
       ) : (
-        <section className="label-sheet" aria-label="Labels to print" style={sheetStyle(sheet)}>
-          {pages.map((cells, page) => (
-            <div key={page} className="label-page">
-              {cells.map((unit, cell) =>
-                unit ? (
-                  <UnitLabel key={unit.id} unit={unit} origin={window.location.origin} />
-                ) : (
-                  <div key={`empty-${cell}`} className="label-cell-empty" aria-hidden="true" />
-                ),
-              )}
-            </div>
-          ))}
-        </section>
+        <>
+          {labels.error ? (
+            <ErrorState
+              title={`${labels.total - units.length} more units could not be loaded`}
+              error={labels.error}
+              onRetry={labels.retry}
+            />
+          ) : (
+            labels.more && (
+              <Card className="mb-6 flex flex-wrap items-center gap-3 p-4" role="status">
+                <p className="text-base text-ink-900">
+                  {labels.readingAll
+                    ? `Reading the shelf: ${units.length} of ${labels.total} units…`
+                    : `The labels below are for the first ${units.length} of ${labels.total} units, by label.`}
+                </p>
+                {!labels.readingAll && (
+                  <Button variant="secondary" onClick={labels.readAll}>
+                    Prepare all {labels.total} labels
+                  </Button>
+                )}
+              </Card>
+            )
+          )}
+          <section className="label-sheet" aria-label="Labels to print" style={sheetStyle(sheet)}>
+            {pages.map((cells, page) => (
+              <div key={page} className="label-page">
+                {cells.map((unit, cell) =>
+                  unit ? (
+                    <UnitLabel key={unit.id} unit={unit} origin={window.location.origin} />
+                  ) : (
+                    <div key={`empty-${cell}`} className="label-cell-empty" aria-hidden="true" />
+                  ),
+                )}
+              </div>
+            ))}
+          </section>
+        </>
       )}
     </div>
   );

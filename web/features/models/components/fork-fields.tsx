@@ -5,10 +5,10 @@ import { formErrorsFrom, noFormErrors, type FormErrors } from '../../../lib/form
 import type { Id, WorkspaceMembership } from '../../../types/api';
 import { useSession } from '../../auth/hooks/use-session';
 import { useForkModel } from '../api/create-model';
-import { useHangar } from '../api/list-models';
 import { revisionsOf, useRevisions } from '../api/list-revisions';
 import { canEdit } from '../permissions';
-import type { CreatedModel } from '../types';
+import type { CreatedModel, SetupModelView } from '../types';
+import { ModelPicker } from './model-picker';
 
 /** A revision to fork when the caller already knows it (the History screen). */
 export interface ForkSourceChoice {
@@ -33,15 +33,14 @@ export function useForkForm({ target, source, onForked }: ForkFormOptions) {
   const fork = useForkModel();
   const writable = workspaces.filter((ws) => canEdit(ws.role));
   const [sourceWorkspaceId, setSourceWorkspaceId] = useState<Id>(target?.id ?? workspaces[0]?.id ?? '');
-  const [sourceModelId, setSourceModelId] = useState<Id>(source?.modelId ?? '');
+  const [sourceModel, setSourceModel] = useState<SetupModelView | null>(null);
+  const sourceModelId = source?.modelId ?? sourceModel?.id ?? '';
   const [number, setNumber] = useState<number | null>(source?.number ?? null);
   const [targetWorkspaceId, setTargetWorkspaceId] = useState<Id>(target?.id ?? writable[0]?.id ?? '');
   const [name, setName] = useState('');
   const [errors, setErrors] = useState<FormErrors>(noFormErrors);
   const [attempt, setAttempt] = useState(0);
 
-  const hangar = useHangar(source ? null : sourceWorkspaceId);
-  const sourceModel = source ? null : (hangar.data?.models.find((model) => model.id === sourceModelId) ?? null);
   const sourceName = source?.modelName ?? sourceModel?.name ?? '';
   // Until a revision is picked, the fork copies the source's latest.
   const chosenNumber = number ?? sourceModel?.latest?.number ?? null;
@@ -69,16 +68,16 @@ export function useForkForm({ target, source, onForked }: ForkFormOptions) {
     source,
     workspaces,
     writable,
-    hangar,
     sourceWorkspaceId,
     setSourceWorkspaceId: (id: Id) => {
       setSourceWorkspaceId(id);
-      setSourceModelId('');
+      setSourceModel(null);
       setNumber(null);
     },
+    sourceModel,
     sourceModelId,
-    setSourceModelId: (id: Id) => {
-      setSourceModelId(id);
+    setSourceModel: (model: SetupModelView | null) => {
+      setSourceModel(model);
       setNumber(null);
     },
     sourceName,
@@ -115,29 +114,14 @@ export function ForkFields({ fork, chooseSource = false }: { fork: ForkForm; cho
               </option>
             ))}
           </SelectField>
-          <SelectField
-            label="Model"
-            value={fork.sourceModelId}
-            onChange={(event) => fork.setSourceModelId(event.target.value)}
+          <ModelPicker
+            key={fork.sourceWorkspaceId}
+            workspaceId={fork.sourceWorkspaceId}
+            value={fork.sourceModel}
+            onChange={fork.setSourceModel}
             error={errors.fields.model}
-            disabled={fork.hangar.isPending}
-          >
-            <option value="">
-              {fork.hangar.isPending
-                ? 'Loading models…'
-                : fork.hangar.isError
-                  ? 'The models could not be loaded'
-                  : fork.hangar.data?.models.length
-                    ? 'Choose a model'
-                    : 'No models in this workspace'}
-            </option>
-            {fork.hangar.data?.models.map((model) => (
-              <option key={model.id} value={model.id}>
-                {model.name}
-                {model.latest ? ` (latest r${model.latest.number})` : ''}
-              </option>
-            ))}
-          </SelectField>
+            describe={(model) => `${model.name}${model.latest ? ` (latest r${model.latest.number})` : ''}`}
+          />
           {fork.sourceModelId && <RevisionChoice fork={fork} />}
         </>
       )}

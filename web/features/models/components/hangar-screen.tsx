@@ -1,15 +1,16 @@
-import { useMemo, useState } from 'react';
+import { useDeferredValue, useMemo, useState } from 'react';
 import { Button } from '../../../components/ui/button';
 import { EmptyState } from '../../../components/ui/empty-state';
 import { ErrorState } from '../../../components/ui/error-state';
 import { LoadingState } from '../../../components/ui/loading-state';
 import { PageHeader } from '../../../components/ui/page-header';
+import { ShowMore } from '../../../components/ui/show-more';
 import { TextField } from '../../../components/ui/text-field';
 import { useQueryParams } from '../../../hooks/use-query-params';
 import { useCurrentWorkspace } from '../../workspaces/hooks/use-current-workspace';
-import { useHangar } from '../api/list-models';
+import { hangarOf, useHangar } from '../api/list-models';
 import { canEdit } from '../permissions';
-import { firstDirection, searchModels, sortModels, type HangarColumn, type HangarSort } from '../sort-models';
+import { firstDirection, sortModels, type HangarColumn, type HangarSort } from '../sort-models';
 import { HangarTable } from './hangar-table';
 import { NewModelDialog } from './new-model-dialog';
 
@@ -27,14 +28,15 @@ export function HangarScreen() {
   const [params, update] = useQueryParams();
   const [creating, setCreating] = useState(false);
   const withArchived = params.get('archived') === 'show';
-  const hangar = useHangar(inUrl?.id ?? null, withArchived);
   const query = params.get('q') ?? '';
+  // The server searches the whole hangar; the request follows the typing a beat behind.
+  const deferredQuery = useDeferredValue(query.trim());
+  const hangar = useHangar(inUrl?.id ?? null, { q: deferredQuery || undefined, withArchived });
+  const { models, total, archived } = hangarOf(hangar.data?.pages);
   const { column, direction } = sortFrom(params);
+  const searching = query.trim() !== '';
 
-  const shown = useMemo(
-    () => sortModels(searchModels(hangar.data?.models ?? [], query), { column, direction }),
-    [hangar.data, query, column, direction],
-  );
+  const shown = useMemo(() => sortModels(models, { column, direction }), [models, column, direction]);
 
   if (!inUrl) return null;
   const editor = canEdit(inUrl.role);
@@ -57,20 +59,20 @@ export function HangarScreen() {
       {creating && <NewModelDialog workspace={inUrl} onClose={() => setCreating(false)} />}
       {hangar.isPending ? (
         <LoadingState label="Loading the hangar…" />
-      ) : hangar.isError ? (
+      ) : hangar.isError && !hangar.isFetchNextPageError ? (
         <ErrorState title="The hangar could not be loaded" error={hangar.error} onRetry={() => void hangar.refetch()} />
-      ) : hangar.data.models.length === 0 && hangar.data.archived > 0 ? (
+      ) : !searching && models.length === 0 && archived > 0 ? (
         <EmptyState
           title="Every model here is archived"
           action={
             <Button variant="secondary" onClick={() => update({ archived: 'show' })}>
-              Show {hangar.data.archived} archived {hangar.data.archived === 1 ? 'model' : 'models'}
+              Show {archived} archived {archived === 1 ? 'model' : 'models'}
             </Button>
           }
         >
           Archived models are kept with their whole history; they are only left out of this list.
         </EmptyState>
-      ) : hangar.data.models.length === 0 ? (
+      ) : !searching && models.length === 0 ? (
         <EmptyState
           title="No models in this hangar yet"
           action={editor ? <Button onClick={() => setCreating(true)}>Add the first model</Button> : undefined}
@@ -87,15 +89,14 @@ export function HangarScreen() {
               type="search"
               value={query}
               onChange={(event) => update({ q: event.target.value || null })}
-              placeholder="Name, airframe or author"
+              placeholder="Name or airframe"
               className="w-full max-w-sm"
             />
             <p className="pb-2 text-sm text-ink-700" aria-live="polite">
-              {query
-                ? `${shown.length} of ${hangar.data.models.length} models`
-                : `${hangar.data.models.length} ${hangar.data.models.length === 1 ? 'model' : 'models'}`}
+              {total} {total === 1 ? 'model' : 'models'}
+              {searching ? (total === 1 ? ' matches' : ' match') : ''}
             </p>
-            {(hangar.data.archived > 0 || withArchived) && (
+            {(archived > 0 || withArchived) && (
               <label className="flex items-center gap-2 pb-2 text-sm text-ink-900">
                 <input
                   type="checkbox"
@@ -103,33 +104,44 @@ export function HangarScreen() {
                   checked={withArchived}
                   onChange={(event) => update({ archived: event.target.checked ? 'show' : null })}
                 />
-                Show archived models ({hangar.data.archived})
+                Show archived models ({archived})
               </label>
             )}
           </div>
           {shown.length === 0 ? (
             <EmptyState
-              title={`No model matches “${query}”`}
+              title={`No model matches “${query.trim()}”`}
               action={
                 <Button variant="secondary" onClick={() => update({ q: null })}>
                   Clear the search
                 </Button>
               }
             >
-              The search looks at each model's name, airframe and the author of its latest revision.
+              The search looks at each model's name and airframe, across the whole hangar.
             </EmptyState>
           ) : (
-            <HangarTable
-              models={shown}
-              sort={{ column, direction }}
-              onSort={(next) => update({ sort: next.column, dir: next.direction === 'ascending' ? 'asc' : 'desc' })}
-            />
+            <>
+              <HangarTable
+                models={shown}
+                sort={{ column, direction }}
+                onSort={(next) => update({ sort: next.column, dir: next.direction === 'ascending' ? 'asc' : 'desc' })}
+              />
+              {hangar.hasNextPage && !(column === 'name' && direction === 'ascending') && (
+                <p className="mt-3 text-sm text-ink-700">
+                  The heading sorts the {models.length} models shown; the hangar loads by name, a page at a time.
+                </p>
+              )}
+            </>
           )}
-          {hangar.data.total > hangar.data.models.length && (
-            <p className="mt-3 text-sm text-ink-700">
-              Showing the first {hangar.data.models.length} of {hangar.data.total} models by name.
-            </p>
-          )}
+          <ShowMore
+            shown={models.length}
+            total={total}
+            noun="models"
+            hasMore={hangar.hasNextPage}
+            pending={hangar.isFetchingNextPage}
+            error={hangar.isFetchNextPageError ? hangar.error : undefined}
+            onMore={() => void hangar.fetchNextPage()}
+          />
         </>
       )}
     </>

@@ -1,5 +1,5 @@
-import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
-import { api } from '../../../lib/api-client';
+import { infiniteQueryOptions, useInfiniteQuery } from '@tanstack/react-query';
+import { getKeysetPage, itemsOf, keysetPaging, type KeysetPage } from '../../../lib/paged';
 import type { Id } from '../../../types/api';
 import type { ShelfStatus, ShelfUnit } from '../types';
 import { paths } from '../../../lib/api-paths';
@@ -9,33 +9,39 @@ export interface ShelfFilter {
   status?: ShelfStatus;
 }
 
-export interface ShelfPage {
-  units: ShelfUnit[];
-  total: number;
-}
+// A shelf can hold thousands of units, so it is read a page at a time by label, and
+// searched by the server (label, mark, notes, the short code on a case).
+export const SHELF_PAGE_SIZE = 50;
 
-export const SHELF_PAGE_SIZE = 200;
-
-export async function listReceivers(workspaceId: Id, filter: ShelfFilter, signal?: AbortSignal): Promise<ShelfPage> {
-  const { data, pagination } = await api.get<ShelfUnit[]>(
-    paths.workspaceReceivers(workspaceId, { limit: SHELF_PAGE_SIZE, q: filter.q || undefined, status: filter.status }),
+export function listReceivers(
+  workspaceId: Id,
+  filter: ShelfFilter,
+  { after, limit = SHELF_PAGE_SIZE, signal }: { after?: string | null; limit?: number; signal?: AbortSignal } = {},
+): Promise<KeysetPage<ShelfUnit>> {
+  return getKeysetPage<ShelfUnit>(
+    paths.workspaceReceivers(workspaceId, { limit, q: filter.q || undefined, status: filter.status, after }),
     signal,
   );
-  return { units: data, total: typeof pagination?.total === 'number' ? pagination.total : data.length };
 }
 
 export const shelfQueryKey = (workspaceId: Id) => ['workspaces', workspaceId, 'receivers'] as const;
 
-export function shelfQueryOptions(workspaceId: Id, filter: ShelfFilter) {
-  return queryOptions({
-    queryKey: [...shelfQueryKey(workspaceId), filter.q ?? '', filter.status ?? 'all'],
-    queryFn: ({ signal }) => listReceivers(workspaceId, filter, signal),
-    // While a new search is on its way the last answer stays on screen.
-    placeholderData: keepPreviousData,
+export function shelfQueryOptions(workspaceId: Id, filter: ShelfFilter, limit = SHELF_PAGE_SIZE) {
+  return infiniteQueryOptions({
+    queryKey: [...shelfQueryKey(workspaceId), filter.q ?? '', filter.status ?? 'all', limit],
+    queryFn: ({ pageParam, signal }) => listReceivers(workspaceId, filter, { after: pageParam, limit, signal }),
+    ...keysetPaging,
+    // While a new search of the same shelf is on its way the last answer stays on screen.
+    placeholderData: (previous, previousQuery) => (previousQuery?.queryKey[1] === workspaceId ? previous : undefined),
   });
 }
 
-/** The workspace's receivers matching the search and the status filter. */
-export function useShelf(workspaceId: Id | null, filter: ShelfFilter) {
-  return useQuery({ ...shelfQueryOptions(workspaceId ?? '', filter), enabled: Boolean(workspaceId) });
+/** The workspace's receivers matching the search and the status filter, by label, `limit` at a time. */
+export function useShelf(workspaceId: Id | null, filter: ShelfFilter, limit = SHELF_PAGE_SIZE) {
+  return useInfiniteQuery({ ...shelfQueryOptions(workspaceId ?? '', filter, limit), enabled: Boolean(workspaceId) });
+}
+
+/** The units of the pages fetched so far and how many match in all. */
+export function shelfOf(pages: readonly KeysetPage<ShelfUnit>[] | undefined): { units: ShelfUnit[]; total: number } {
+  return { units: itemsOf(pages), total: pages?.at(-1)?.total ?? 0 };
 }

@@ -6,8 +6,9 @@ import { ErrorState } from '../../../components/ui/error-state';
 import { LoadingState } from '../../../components/ui/loading-state';
 import { SelectField } from '../../../components/ui/select-field';
 import { useToast } from '../../../components/ui/toast';
-import { useHangar } from '../../models/api/list-models';
 import { useRevision } from '../../models/api/get-revision';
+import { ModelPicker } from '../../models/components/model-picker';
+import type { SetupModelView } from '../../models/types';
 import { useInstallReceiver } from '../api/change-receiver';
 import { useReuseCheck } from '../api/get-reuse-check';
 import type { ShelfUnit } from '../types';
@@ -31,10 +32,9 @@ function slotsOf(document: unknown): { id: string; label: string | null; role: s
  * there, then install (or, when the unit is in another slot now, move) it.
  */
 export function InstallPanel({ unit, onDone }: { unit: ShelfUnit; onDone: () => void }) {
-  const hangar = useHangar(unit.workspace_id);
-  const [modelId, setModelId] = useState('');
+  const [model, setModel] = useState<SetupModelView | null>(null);
   const [slot, setSlot] = useState('');
-  const model = hangar.data?.models.find((candidate) => candidate.id === modelId);
+  const modelId = model?.id ?? '';
   const latest = useRevision(model?.latest?.id ?? null);
   const slots = latest.data ? slotsOf(latest.data.document) : [];
   const target = modelId && slot ? { modelId, slot } : null;
@@ -42,12 +42,6 @@ export function InstallPanel({ unit, onDone }: { unit: ShelfUnit; onDone: () => 
   const install = useInstallReceiver(unit.id);
   const toast = useToast();
   const moving = unit.installed !== null;
-
-  if (hangar.isPending) return <LoadingState label="Loading the hangar…" />;
-  if (hangar.isError)
-    return (
-      <ErrorState title="The models could not be loaded" error={hangar.error} onRetry={() => void hangar.refetch()} />
-    );
 
   const confirm = () =>
     install.mutate(
@@ -67,22 +61,15 @@ export function InstallPanel({ unit, onDone }: { unit: ShelfUnit; onDone: () => 
 
   return (
     <div className="space-y-4">
+      <ModelPicker
+        workspaceId={unit.workspace_id}
+        value={model}
+        onChange={(chosen) => {
+          setModel(chosen);
+          setSlot('');
+        }}
+      />
       <div className="grid gap-4 sm:grid-cols-2">
-        <SelectField
-          label="Model"
-          value={modelId}
-          onChange={(event) => {
-            setModelId(event.target.value);
-            setSlot('');
-          }}
-        >
-          <option value="">Choose a model…</option>
-          {hangar.data.models.map((candidate) => (
-            <option key={candidate.id} value={candidate.id}>
-              {candidate.name}
-            </option>
-          ))}
-        </SelectField>
         <SelectField
           label="As which receiver of the setup"
           value={slot}

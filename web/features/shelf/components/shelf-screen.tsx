@@ -5,12 +5,13 @@ import { EmptyState } from '../../../components/ui/empty-state';
 import { ErrorState } from '../../../components/ui/error-state';
 import { LoadingState } from '../../../components/ui/loading-state';
 import { PageHeader } from '../../../components/ui/page-header';
+import { ShowMore } from '../../../components/ui/show-more';
 import { TextField } from '../../../components/ui/text-field';
 import { useQueryParams } from '../../../hooks/use-query-params';
 import { cx } from '../../../lib/cx';
 import { canEdit } from '../../models/permissions';
 import { useCurrentWorkspace } from '../../workspaces/hooks/use-current-workspace';
-import { useShelf } from '../api/list-receivers';
+import { shelfOf, useShelf } from '../api/list-receivers';
 import type { ShelfStatus } from '../types';
 import { AddReceiverDialog } from './add-receiver-dialog';
 import { ShelfTable } from './shelf-table';
@@ -33,6 +34,7 @@ export function ShelfScreen() {
   // The list follows the typing a beat behind, so each key press does not cost a request.
   const deferredQuery = useDeferredValue(query.trim());
   const shelf = useShelf(inUrl?.id ?? null, { q: deferredQuery || undefined, status: status ?? undefined });
+  const { units, total } = shelfOf(shelf.data?.pages);
 
   if (!inUrl) return null;
   const editor = canEdit(inUrl.role);
@@ -98,7 +100,7 @@ export function ShelfScreen() {
         </fieldset>
         {shelf.data && (
           <p className="pb-2 text-sm text-ink-700" aria-live="polite">
-            {shelf.data.total} {shelf.data.total === 1 ? 'receiver' : 'receivers'}
+            {total} {total === 1 ? 'receiver' : 'receivers'}
             {filtered ? ' match' : ''}
           </p>
         )}
@@ -106,9 +108,9 @@ export function ShelfScreen() {
 
       {shelf.isPending ? (
         <LoadingState label="Loading the shelf…" />
-      ) : shelf.isError ? (
+      ) : shelf.isError && !shelf.isFetchNextPageError ? (
         <ErrorState title="The shelf could not be loaded" error={shelf.error} onRetry={() => void shelf.refetch()} />
-      ) : shelf.data.units.length === 0 ? (
+      ) : units.length === 0 ? (
         filtered ? (
           <EmptyState
             title="No receiver matches"
@@ -129,7 +131,18 @@ export function ShelfScreen() {
           </EmptyState>
         )
       ) : (
-        <ShelfTable units={shelf.data.units} workspaceId={inUrl.id} />
+        <>
+          <ShelfTable units={units} workspaceId={inUrl.id} />
+          <ShowMore
+            shown={units.length}
+            total={total}
+            noun="receivers"
+            hasMore={shelf.hasNextPage}
+            pending={shelf.isFetchingNextPage}
+            error={shelf.isFetchNextPageError ? shelf.error : undefined}
+            onMore={() => void shelf.fetchNextPage()}
+          />
+        </>
       )}
     </>
   );
