@@ -2,6 +2,7 @@ import type { Server } from 'node:http';
 import { createApp } from './app';
 import type { AppContext } from './context';
 import { startImportWorker } from './portability/import-worker';
+import { settleRecordings } from './provenance/record-later';
 
 export interface RunningServer {
   server: Server;
@@ -43,8 +44,9 @@ export function startServer(context: AppContext, port: number, host = '127.0.0.1
             server.close((error) => (error ? fail(error) : done()));
             server.closeAllConnections();
           });
-          // The job in hand finishes (or fails) before the database goes away.
-          await worker.stop();
+          // The job in hand and the provenance of the last saves finish (or fail) before
+          // the database goes away.
+          await Promise.all([worker.stop(), settleRecordings(context.sequelize)]);
         },
       });
     });

@@ -1,10 +1,11 @@
 import { QueryTypes, type Sequelize } from 'sequelize';
 import { ROLES, roleAtLeast, type Role } from '@shared/contract/roles';
+import { countFindings } from '@shared/findings';
+import { applyClubRules, type RuleSeverity } from '@shared/rules/club-rules';
 import { NotFound, roleTooLow } from '../errors';
-import { followClubRules, Revision, type User } from '../models';
+import { Revision, type User } from '../models';
 import type { RevisionOrigin } from '../models/Revision';
 import { MODEL_POLICY } from '../policies/model';
-import { recordChanges } from '../provenance/record-changes';
 import { idSchema } from '../validation';
 import type { AuditAction } from '../audit/record-audit-event';
 import { requireLatestBase } from '../revisions/check-base';
@@ -38,22 +39,22 @@ interface SaveOutcome {
   revision_created_at: Date | null;
   latest_id: string | null;
   latest_number: number | null;
+  /** The severities of the club rules in force in the model's workspace (migration 0090). */
+  club_severities: Record<string, RuleSeverity> | null;
 }
 
 /**
  * The API's save of a checked setup as one statement (the save_revision function,
- * migration 0030): membership and role, the model's row lock, the base check, the
- * insert, the model's airframe and the audit entry in one round trip that commits on
- * its own. It refuses exactly as authorizeModel and saveRevision do: 404 for a model
+ * migrations 0030, 0059, 0090): membership and role, the model's row lock, the base
+ * check, the insert, the model's airframe, the audit entry and the club's rules in one
+ * round trip that commits on its own. It refuses exactly as authorizeModel and saveRevision do: 404 for a model
  * that does not exist or is another workspace's, 403 for a role below editor, 409
  * `stale-base` when another save came first. The answer is built from what was sent
  * and the few columns the database made (id, time), never read back.
  *
- * The changed settings (provenance) are recorded right after, in a transaction of
- * their own: the function has committed by then. recordChanges works from the
- * model's recorded progress, so if that second step never happens the revision is
- * simply not yet recorded and the next provenance lookup computes it; provenance can
- * be late, never wrong.
+ * The answer's findings and counts follow the club's rules as every read does
+ * (followClubRules), from the severities the function answered. The changed settings
+ * (provenance) are the caller's to record once it has answered (recordChangesLater).
  */
 export async function saveRevisionAtOnce(sequelize: Sequelize, input: SaveAtOnceInput): Promise<Revision> {
   const notFound = new NotFound('No such model.', { code: 'model-not-found' });
@@ -73,7 +74,7 @@ export async function saveRevisionAtOnce(sequelize: Sequelize, input: SaveAtOnce
         base: input.base,
         message: input.message,
         yamlText: setup.text,
-        document: JSON.stringify(data),
+        document: setup.documentJson,
         contentHash: setup.contentHash,
         findings: JSON.stringify(findings),
         errorCount: counts.errors,
@@ -98,6 +99,9 @@ export async function saveRevisionAtOnce(sequelize: Sequelize, input: SaveAtOnce
     requireLatestBase(row.latest_id ? { id: row.latest_id, number: row.latest_number ?? 0 } : null, input.base);
   if (row.outcome !== 'saved' || !row.revision_id || row.revision_number === null || !row.revision_created_at)
     throw new Error(`save_revision answered ${JSON.stringify(row)}`);
+  const severities = row.club_severities ?? {};
+  const ruled = Object.keys(severities).length > 0 ? applyClubRules(findings, { severities }) : findings;
+  const ruledCounts = ruled === findings ? counts : countFindings(ruled);
   // raw: a built instance that is not new ignores writes to its timestamps otherwise.
   const revision = Revision.build(
     {
@@ -110,10 +114,10 @@ export async function saveRevisionAtOnce(sequelize: Sequelize, input: SaveAtOnce
       yamlText: setup.text,
       document: data,
       contentHash: setup.contentHash,
-      findings,
-      errorCount: counts.errors,
-      warningCount: counts.warnings,
-      infoCount: counts.infos,
+      findings: ruled,
+      errorCount: ruledCounts.errors,
+      warningCount: ruledCounts.warnings,
+      infoCount: ruledCounts.infos,
       origin: input.origin,
       sourceRevisionId: null,
       createdAt: new Date(row.revision_created_at),
@@ -121,7 +125,5 @@ export async function saveRevisionAtOnce(sequelize: Sequelize, input: SaveAtOnce
     { isNewRecord: false, raw: true },
   );
   revision.author = author;
-  await sequelize.transaction((transaction) => recordChanges(sequelize, modelId.data, transaction));
-  await followClubRules([revision]);
   return revision;
 }

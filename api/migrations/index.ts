@@ -19,6 +19,7 @@ import * as modelArchive from './0050-model-archive';
 import * as saveFollowsModelName from './0059-save-follows-model-name';
 import * as receiverShortCodes from './0060-receiver-short-codes';
 import * as provenanceMergesClubRules from './0070-provenance-merges-club-rules';
+import * as saveAnswersClubRules from './0090-save-answers-club-rules';
 
 export interface MigrationModule {
   up: MigrationFn<MigrationContext>;
@@ -47,4 +48,5 @@ export const migrations: { name: string; module: MigrationModule }[] = [
   { name: '0059-save-follows-model-name', module: saveFollowsModelName },
   { name: '0060-receiver-short-codes', module: receiverShortCodes },
   { name: '0070-provenance-merges-club-rules', module: provenanceMergesClubRules },
+  { name: '0090-save-answers-club-rules', module: saveAnswersClubRules },
 ];

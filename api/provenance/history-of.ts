@@ -1,6 +1,6 @@
 import { QueryTypes, type Sequelize } from 'sequelize';
 import type { ProvenanceChange } from '@shared/contract/provenance';
-import { recordChanges } from './record-changes';
+import { recordMissing } from './record-changes';
 
 interface Row {
   id: string;
@@ -47,7 +47,7 @@ const HISTORY_SQL = `
 /**
  * Every revision of a model that changed the setting at `path` (or one under it), newest
  * first, paged: the earlier history behind "since rN". Older histories are recorded
- * first, as for provenanceOf.
+ * first (recordMissing), as for provenanceOf.
  */
 export async function historyOf(
   sequelize: Sequelize,
@@ -55,7 +55,7 @@ export async function historyOf(
   path: string,
   page: { limit: number; offset: number },
 ): Promise<{ changes: ProvenanceChange[]; total: number }> {
-  await sequelize.transaction((transaction) => recordChanges(sequelize, modelId, transaction));
+  await recordMissing(sequelize, modelId);
   const rows = await sequelize.query<Row>(HISTORY_SQL, {
     bind: { model: modelId, path, limit: page.limit, offset: page.offset },
     type: QueryTypes.SELECT,

@@ -1,7 +1,7 @@
 import { QueryTypes, type Sequelize } from 'sequelize';
 import type { ProvenanceEntry } from '@shared/contract/provenance';
 import { isUnder, leafValues } from '@shared/lineage/leaf-paths';
-import { recordChanges } from './record-changes';
+import { recordMissing } from './record-changes';
 
 interface Row {
   path: string;
@@ -47,14 +47,7 @@ export async function provenanceOf(
 ): Promise<ProvenanceEntry[]> {
   const paths = [...leafValues(revision.document).keys()].filter((path) => !under || isUnder(path, under));
   if (paths.length === 0) return [];
-  // Almost always every revision is recorded already (each save records its own), so
-  // the write transaction that catches up an older history is taken only when needed.
-  const [progress] = await sequelize.query<{ through: number | null }>(
-    'SELECT (SELECT through_number FROM provenance_progress WHERE model_id = $model) AS through',
-    { bind: { model: revision.modelId }, type: QueryTypes.SELECT },
-  );
-  if ((progress?.through ?? 0) < revision.number)
-    await sequelize.transaction((transaction) => recordChanges(sequelize, revision.modelId, transaction));
+  await recordMissing(sequelize, revision.modelId, revision.number);
   const rows = await sequelize.query<Row>(LOOKUP_SQL, {
     bind: { paths, model: revision.modelId, number: revision.number },
     type: QueryTypes.SELECT,

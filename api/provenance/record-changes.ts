@@ -46,25 +46,23 @@ async function originsInSource(
 /**
  * Records the leaf settings each revision of the model changed against its parent,
  * for every revision not yet recorded, oldest first (revision_changes, see migration
- * 0070). The save path calls it in its transaction right after adding a revision, so
- * each revision is computed once, when it is saved; revisions older than the table
- * are computed the first time anyone asks. A value a fork or a merge brought in
+ * 0070). Each revision is computed once: the API's save records it right after
+ * answering (record-later.ts), the other saves in their transaction; a revision whose
+ * recording failed or never ran, or older than the table, is computed the first time
+ * anyone asks (recordMissing). A value a fork or a merge brought in
  * unchanged from the source is recorded with the source revision that set it.
  */
 export async function recordChanges(sequelize: Sequelize, modelId: string, transaction: Transaction): Promise<void> {
-  const [progress] = await sequelize.query<{ through_number: number }>(
-    'SELECT through_number FROM provenance_progress WHERE model_id = $model FOR UPDATE',
+  // The progress row, locked, with the document of the last revision recorded: what the
+  // next one is compared with.
+  const [progress] = await sequelize.query<{ through_number: number; document: unknown }>(
+    `SELECT p.through_number, r.document FROM provenance_progress p
+       LEFT JOIN revisions r ON r.model_id = p.model_id AND r.number = p.through_number
+      WHERE p.model_id = $model FOR UPDATE OF p`,
     { bind: { model: modelId }, type: QueryTypes.SELECT, transaction },
   );
   let through = progress?.through_number ?? 0;
-  let previous: unknown = undefined;
-  if (through > 0) {
-    const [row] = await sequelize.query<{ document: unknown }>(
-      'SELECT document FROM revisions WHERE model_id = $model AND number = $number',
-      { bind: { model: modelId, number: through }, type: QueryTypes.SELECT, transaction },
-    );
-    previous = row?.document;
-  }
+  let previous: unknown = through > 0 ? progress?.document : undefined;
   const start = through;
   for (;;) {
     const batch = await sequelize.query<RevisionRow>(
@@ -112,4 +110,19 @@ export async function recordChanges(sequelize: Sequelize, modelId: string, trans
        SET through_number = greatest(provenance_progress.through_number, excluded.through_number)`,
     { bind: { model: modelId, through }, transaction },
   );
+}
+
+/**
+ * The lazy backfill every provenance read starts with: records the model's revisions up
+ * to `number` (default: its latest) when some are not recorded yet. Almost always they
+ * are (each save records its own), so the write transaction is taken only when needed.
+ */
+export async function recordMissing(sequelize: Sequelize, modelId: string, number?: number): Promise<void> {
+  const [state] = await sequelize.query<{ through: number | null; latest: number | null }>(
+    `SELECT (SELECT through_number FROM provenance_progress WHERE model_id = $model) AS through,
+            ${number === undefined ? '(SELECT max(number) FROM revisions WHERE model_id = $model)' : '$number::int'} AS latest`,
+    { bind: { model: modelId, ...(number === undefined ? {} : { number }) }, type: QueryTypes.SELECT },
+  );
+  if ((state?.through ?? 0) < (state?.latest ?? 0))
+    await sequelize.transaction((transaction) => recordChanges(sequelize, modelId, transaction));
 }

@@ -90,7 +90,7 @@ export async function appendRevision(
   const [row] = await sequelize.query<{ id: string; created_at: Date }>(APPEND_SQL, {
     bind: {
       ...values,
-      document: JSON.stringify(data),
+      document: setup.documentJson,
       findings: JSON.stringify(findings),
       createdAt: input.createdAt ?? null,
       airframe,

@@ -10,6 +10,8 @@ export interface CheckedSetup {
   text: string;
   analysis: Analysis & { readable: true };
   contentHash: string;
+  /** The data as JSON text, made once for the NUL check and the insert's jsonb. */
+  documentJson: string;
 }
 
 // PostgreSQL's text and jsonb cannot hold U+0000, so such a setup could not be stored
@@ -40,7 +42,8 @@ export function checkSetupText(text: string): CheckedSetup {
       details: { findings: analysis.findings, counts: analysis.counts },
     });
   }
-  if (text.includes(NUL) || JSON.stringify(analysis.data).includes('\\u0000')) {
+  const documentJson = JSON.stringify(analysis.data);
+  if (text.includes(NUL) || documentJson.includes('\\u0000')) {
     throw new Unprocessable('The setup contains a NUL character (\\0), which cannot be stored; nothing was saved.', {
       code: 'unreadable-setup',
       details: { findings: [] },
@@ -50,6 +53,7 @@ export function checkSetupText(text: string): CheckedSetup {
     text,
     analysis: analysis as CheckedSetup['analysis'],
     contentHash: contentHashOfChecked(analysis.data, analysis.setup),
+    documentJson,
   };
 }
 

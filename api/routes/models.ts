@@ -13,6 +13,7 @@ import { readSetupUpload } from '../middleware/setup-upload';
 import { Revision, SetupModel } from '../models';
 import { modelPolicy } from '../policies/model';
 import { authorizeModel, authorizeWorkspace } from './authorize';
+import { recordChangesLater } from '../provenance/record-later';
 import { presentSavedRevision } from '../presenters/revision';
 import { afterRow } from '../queries/keyset-page';
 import { presentModels, presentOneModel } from '../queries/model-views';
@@ -180,6 +181,7 @@ export function modelsRouter({ sequelize, config }: AppContext): Router {
       origin: 'upload',
     });
     res.status(201).json({ data: presentSavedRevision(revision) });
+    recordChangesLater(sequelize, revision.modelId, config);
   });
 
   return router;

@@ -14,6 +14,7 @@ import { authorizeModel, authorizeRevision } from './authorize';
 import { revisionFileName } from '../presenters/download-name';
 import { sendAsDownload } from '../security/content-disposition';
 import { presentRevision, presentRevisionSummary, presentSavedRevision } from '../presenters/revision';
+import { recordChangesLater } from '../provenance/record-later';
 import { SUMMARY_ATTRIBUTES, tagsByRevision } from '../queries/model-views';
 import { parseInput } from '../validation';
 import { historyQuery, patchQuery, revertSchema, saveRevisionSchema, tagName, tagSchema } from './model-inputs';
@@ -61,6 +62,7 @@ export function revisionsRouter({ sequelize, config }: AppContext): Router {
       origin: 'save',
     });
     res.status(201).json({ data: presentSavedRevision(revision) });
+    recordChangesLater(sequelize, revision.modelId, config);
   });
 
   router.get('/models/:id/revisions', signedIn, async (req, res) => {

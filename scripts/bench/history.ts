@@ -1,15 +1,14 @@
 import { pathToFileURL } from 'node:url';
 import { signSession } from '@api/auth/tokens';
-import { createModel } from '@api/commands/create-model';
 import { printAsyncBenchmarks, timingOf, type AsyncBenchmark, type AsyncTiming } from './support/async-benchmark';
 import { startApiProcess } from './support/api-process';
 import { benchDatabase, closeBenchDatabase } from './support/bench-database';
 import { benchPilot, DEMO_SETUP } from './support/bench-fixtures';
+import { seedHistory } from './support/seed-scale';
 
 // The first page of the history of a model with 10,000 revisions, through the HTTP
 // API on loopback, one request at a time. The revisions are inserted with one SQL
-// statement (the same stored revision 1 repeated, each row chained to the one
-// before it so the database's sequence trigger accepts them).
+// statement (the same stored revision 1 repeated: seedHistory).
 
 const REVISIONS = 10_000;
 const WARM_UP_PAGES = 20;
@@ -18,28 +17,13 @@ const TIMED_PAGES = 200;
 async function measureHistoryPage(): Promise<AsyncTiming> {
   const { url, sequelize } = await benchDatabase();
   const { user, workspace } = await benchPilot();
-  const { model, revision } = await createModel(sequelize, {
+  const { model } = await seedHistory(sequelize, {
     workspace,
     author: user,
     name: 'Ten thousand saves',
     yaml: DEMO_SETUP,
+    count: REVISIONS,
   });
-  await sequelize.query(
-    `WITH numbered AS (
-       SELECT n, gen_random_uuid() AS id FROM generate_series(2, $count::integer) AS n
-     ), chained AS (
-       SELECT n, id, coalesce(lag(id) OVER (ORDER BY n), $first::uuid) AS parent_id FROM numbered
-     )
-     INSERT INTO revisions (id, model_id, number, parent_id, author_id, message, yaml_text, document, content_hash, findings,
-                            error_count, warning_count, info_count, origin, created_at)
-     SELECT chained.id, first.model_id, chained.n, chained.parent_id, first.author_id, 'Bench revision ' || chained.n, first.yaml_text,
-            first.document, first.content_hash, first.findings, first.error_count, first.warning_count, first.info_count, 'save',
-            first.created_at + chained.n * interval '1 minute'
-       FROM chained CROSS JOIN (SELECT * FROM revisions WHERE id = $first::uuid) AS first
-      ORDER BY chained.n`,
-    { bind: { count: REVISIONS, first: revision.id } },
-  );
-  await sequelize.query('ANALYZE revisions');
   const api = await startApiProcess(url);
   try {
     const headers = { Authorization: `Bearer ${signSession(user, api.config)}` };

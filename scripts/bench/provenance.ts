@@ -1,19 +1,20 @@
 import { pathToFileURL } from 'node:url';
 import type { Sequelize } from 'sequelize';
 import { signSession } from '@api/auth/tokens';
-import { createModel } from '@api/commands/create-model';
 import type { User } from '@api/models';
 import { printAsyncBenchmarks, timingOf, type AsyncBenchmark, type AsyncTiming } from './support/async-benchmark';
 import { startApiProcess } from './support/api-process';
 import { benchDatabase, closeBenchDatabase } from './support/bench-database';
 import { benchPilot, DEMO_SETUP } from './support/bench-fixtures';
+import { seedHistory } from './support/seed-scale';
 
 // Where every leaf setting of the latest revision came from, and the history of one
 // setting, for a model with 10,000 revisions, through the HTTP API on loopback. Each
 // revision changes one of three values (a failsafe, an expo, a weight) in turn, inserted
-// with one SQL statement, so the history is long and every value has many changes behind
-// it. The first request computes the changed paths of all 10,000 revisions (what older
-// histories get once, lazily); the timed requests after it are the lookup a save leaves ready.
+// with one SQL statement (seedHistory), so the history is long and every value has many
+// changes behind it. The first request computes the changed paths of all 10,000 revisions
+// (what older histories get once, lazily); the timed requests after it are the lookup a
+// save leaves ready.
 
 const REVISIONS = 10_000;
 const WARM_UP = 5;
@@ -31,28 +32,18 @@ interface LongHistory {
 async function seedLongHistory(name: string): Promise<LongHistory> {
   const { url, sequelize } = await benchDatabase();
   const { user, workspace } = await benchPilot();
-  const { model, revision } = await createModel(sequelize, { workspace, author: user, name, yaml: DEMO_SETUP });
-  await sequelize.query(
-    `WITH numbered AS (
-       SELECT n, gen_random_uuid() AS id FROM generate_series(2, $count::integer) AS n
-     ), chained AS (
-       SELECT n, id, coalesce(lag(id) OVER (ORDER BY n), $first::uuid) AS parent_id FROM numbered
-     )
-     INSERT INTO revisions (id, model_id, number, parent_id, author_id, message, yaml_text, document, content_hash, findings,
-                            error_count, warning_count, info_count, origin, created_at)
-     SELECT chained.id, first.model_id, chained.n, chained.parent_id, first.author_id, 'Bench revision ' || chained.n, first.yaml_text,
-            CASE chained.n % 3
-              WHEN 0 THEN jsonb_set(first.document, '{receivers,0,map,0,failsafe}', to_jsonb(1400 + chained.n % 200))
-              WHEN 1 THEN jsonb_set(first.document, '{mixes,0,expo}', to_jsonb(chained.n % 90))
-              ELSE jsonb_set(first.document, '{model,weight_g}', to_jsonb(6000 + chained.n % 500))
-            END,
-            first.content_hash, first.findings, first.error_count, first.warning_count, first.info_count, 'save',
-            first.created_at + chained.n * interval '1 minute'
-       FROM chained CROSS JOIN (SELECT * FROM revisions WHERE id = $first::uuid) AS first
-      ORDER BY chained.n`,
-    { bind: { count: REVISIONS, first: revision.id } },
-  );
-  await sequelize.query('ANALYZE revisions');
+  const { model } = await seedHistory(sequelize, {
+    workspace,
+    author: user,
+    name,
+    yaml: DEMO_SETUP,
+    count: REVISIONS,
+    document: `CASE chained.n % 3
+                 WHEN 0 THEN jsonb_set(first.document, '{receivers,0,map,0,failsafe}', to_jsonb(1400 + chained.n % 200))
+                 WHEN 1 THEN jsonb_set(first.document, '{mixes,0,expo}', to_jsonb(chained.n % 90))
+                 ELSE jsonb_set(first.document, '{model,weight_g}', to_jsonb(6000 + chained.n % 500))
+               END`,
+  });
   return { url, sequelize, user, modelId: model.id };
 }
 

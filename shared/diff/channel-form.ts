@@ -8,6 +8,7 @@ import {
   type Setup,
   type Travel,
 } from '../format/schema';
+import { deepEqual } from './plain';
 
 // What one receiver pin does, written so that two revisions can be compared exactly.
 // For fixed switch positions a channel's sum of mixes is c + sum over axes of
@@ -171,4 +172,33 @@ export function sameForm(left: ChannelForm, right: ChannelForm): boolean {
     sameCoefficients(left.a, right.a) &&
     sameCoefficients(left.b, right.b)
   );
+}
+
+/** The controls a pin's channel reads: its mixes' inputs, rates and active switches, and its cut's switch. */
+function controlsRead(source: PinSource): Set<string> {
+  const ids = new Set<string>();
+  for (const mix of source.mixes) {
+    ids.add(mix.from);
+    if (mix.rates) ids.add(mix.rates.control);
+    if (mix.active) ids.add(mix.active.control);
+  }
+  if (source.cut) ids.add(source.cut.control);
+  return ids;
+}
+
+/**
+ * True when the two pins are made identically: the same channel, failsafe, travel and
+ * cut, equal mixes in the same order, and every control they read equal and not
+ * renamed. Such pins send the same pulse at every position and link state, so the
+ * outputs delta has nothing to look for there; anything less goes through the search.
+ */
+export function sameSource(left: PinSource, right: PinSource, globalName: (id: string) => string): boolean {
+  if (left.ch !== right.ch || !deepEqual(left.failsafe, right.failsafe)) return false;
+  if (!deepEqual(left.travel, right.travel) || !deepEqual(left.cut ?? null, right.cut ?? null)) return false;
+  if (!deepEqual(left.mixes, right.mixes)) return false;
+  for (const id of controlsRead(left)) {
+    if (globalName(id) !== id || !deepEqual(left.controls.get(id) ?? null, right.controls.get(id) ?? null))
+      return false;
+  }
+  return true;
 }

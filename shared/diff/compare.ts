@@ -1,11 +1,13 @@
 import type { Finding } from '../findings';
-import { setupSchema, type Setup } from '../format/schema';
+import type { Setup } from '../format/schema';
 import { changeFindings, type ChangeFinding } from './change-findings';
-import { diffSetups } from './diff-setups';
+import { diffDefaulted } from './diff-setups';
 import { findingsDelta, type FindingsDelta } from './findings-delta';
 import { outputsDelta, type OutputDelta } from './outputs-delta';
 import { textDiff, type TextDiff } from './text-diff';
+import { toBare, type PlainObject } from './plain';
 import type { SetupDiff } from './types';
+import { withDefaultsAndSetup } from './with-defaults';
 
 /** One revision as the compare needs it: its text, parsed document and findings. */
 export interface CompareSide {
@@ -36,10 +38,11 @@ export interface Comparison extends ContentComparison {
   text: TextDiff;
 }
 
-function setupOf(side: Pick<CompareSide, 'data' | 'setup'>): Setup | null {
-  if (side.setup !== undefined) return side.setup;
-  const parsed = setupSchema.safeParse(side.data);
-  return parsed.success ? parsed.data : null;
+// One validation per side serves the semantic diff (defaults filled in) and the bench
+// analyses (the schema-valid setup), unless the caller has the setup already.
+function prepared(side: Pick<CompareSide, 'data' | 'setup'>): { document: PlainObject; setup: Setup | null } {
+  const { document, setup } = withDefaultsAndSetup(toBare(side.data));
+  return { document, setup: side.setup !== undefined ? side.setup : setup };
 }
 
 /**
@@ -51,12 +54,13 @@ export function compareContent(
   before: Pick<CompareSide, 'data' | 'setup'>,
   after: Pick<CompareSide, 'data' | 'setup'>,
 ): ContentComparison {
-  const beforeSetup = setupOf(before);
-  const afterSetup = setupOf(after);
+  const left = prepared(before);
+  const right = prepared(after);
+  const valid = left.setup && right.setup ? ([left.setup, right.setup] as const) : null;
   return {
-    ...diffSetups(before.data, after.data),
-    outputs_delta: beforeSetup && afterSetup ? outputsDelta(beforeSetup, afterSetup) : null,
-    change_findings: beforeSetup && afterSetup ? changeFindings(beforeSetup, afterSetup) : null,
+    ...diffDefaulted(left.document, right.document),
+    outputs_delta: valid ? outputsDelta(...valid) : null,
+    change_findings: valid ? changeFindings(...valid) : null,
   };
 }
 

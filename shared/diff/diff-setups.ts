@@ -227,8 +227,11 @@ class Walker {
  * section in the order of SECTIONS.
  */
 export function diffSetups(before: unknown, after: unknown): SetupDiff {
-  const left = withDefaults(toBare(before));
-  const right = withDefaults(toBare(after));
+  return diffDefaulted(withDefaults(toBare(before)), withDefaults(toBare(after)));
+}
+
+/** diffSetups of two documents that have been through withDefaults already (fresh copies, owned by the diff). */
+export function diffDefaulted(left: PlainObject, right: PlainObject): SetupDiff {
   const { delta, matches } = diffDocuments(left, right);
   const walker = new Walker(matches);
   walker.root(delta, left, right);

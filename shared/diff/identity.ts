@@ -57,6 +57,8 @@ export interface ListMatch {
   rightToLeft: Map<number, number>;
   /** Right indexes of entries paired with a left entry whose key differs but whose other content is equal. */
   renamed: Set<number>;
+  /** Right indexes of entries paired with an equal left entry (same key, same content). */
+  equal: Set<number>;
 }
 
 /** The path segment and short name of each entry of an identity-keyed list, in list order. */
@@ -100,6 +102,7 @@ export function matchList(
   const rightFree = new Set(right.map((_, index) => index).filter((index) => isPlainObject(right[index])));
   const rightToLeft = new Map<number, number>();
   const renamed = new Set<number>();
+  const equal = new Set<number>();
 
   const pair = (i: number, j: number): void => {
     rightToLeft.set(j, i);
@@ -135,6 +138,7 @@ export function matchList(
   const secondary = SECONDARY_KEYS[key];
 
   pairWhere(sameKey, (i, j) => deepEqual(left[i], right[j]));
+  for (const j of rightToLeft.keys()) equal.add(j);
   if (secondary) {
     pairWhere(sameKey, (i, j) => {
       const a = identityValue(left[i], secondary);
@@ -176,5 +180,6 @@ export function matchList(
     rightLabels: rightNames.labels,
     rightToLeft,
     renamed,
+    equal,
   };
 }

@@ -7,6 +7,7 @@ import {
   pinKey,
   pinSources,
   sameForm,
+  sameSource,
   switchesOf,
   type ChannelForm,
   type PinSource,
@@ -314,6 +315,7 @@ export function outputsDelta(before: Setup, after: Setup): OutputDelta[] {
       push('pulse', receiver, pin, {}, [], left, right);
       continue;
     }
+    if (sameSource(left, right, globalOld)) continue;
     const switches = switchesOf(right, (id) => id);
     for (const [name, size] of switchesOf(left, globalOld)) switches.set(name, Math.max(size, switches.get(name) ?? 0));
     let liveAt: Record<string, number> | null = null;

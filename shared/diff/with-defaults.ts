@@ -7,6 +7,7 @@ import {
   receiverSchema,
   setupSchema,
   switchControlSchema,
+  type Setup,
 } from '../format/schema';
 import { LIST_KEYS } from './identity';
 import { isPlainObject, setOwn, toBare, type PlainObject } from './plain';
@@ -52,12 +53,32 @@ const ENTRY_SCHEMAS: Record<string, (value: unknown) => ObjectSchema> = {
 // or removed rather than one opaque change. Takes and gives the engine's form (see
 // toBare): keys encoded, so the schema's copying cannot lose a `__proto__` key.
 export function withDefaults(data: unknown): PlainObject {
+  return withDefaultsAndSetup(data).document;
+}
+
+/**
+ * withDefaults, and the schema-valid setup its one validation found (null when the
+ * document is not valid), so a compare validates each side once for the diff and the
+ * bench evaluation together.
+ */
+export function withDefaultsAndSetup(data: unknown): { document: PlainObject; setup: Setup | null } {
   if (!isPlainObject(data))
-    return toBare(Object.fromEntries(Object.keys(LIST_KEYS).map((list) => [list, []]))) as PlainObject;
+    return {
+      document: toBare(Object.fromEntries(Object.keys(LIST_KEYS).map((list) => [list, []]))) as PlainObject,
+      setup: null,
+    };
   const whole = setupSchema.safeParse(data);
   // `accepted` is the one optional list: absent, it is empty, so a first entry is
   // reported as that entry added.
-  if (whole.success) return toBare({ ...whole.data, accepted: whole.data.accepted ?? [] }, true) as PlainObject;
+  if (whole.success)
+    return {
+      document: toBare({ ...whole.data, accepted: whole.data.accepted ?? [] }, true) as PlainObject,
+      setup: whole.data,
+    };
+  return { document: fillEntryDefaults(data), setup: null };
+}
+
+function fillEntryDefaults(data: PlainObject): PlainObject {
   const copy = fillDefaults(setupSchema, data) as PlainObject;
   for (const [list, schemaFor] of Object.entries(ENTRY_SCHEMAS)) {
     const items = Object.prototype.hasOwnProperty.call(data, list) ? data[list] : undefined;

@@ -69,6 +69,17 @@ describe('GET and PUT /api/workspaces/:ws/rules', () => {
     expect(sheet.counts.errors).toBe(1);
     const model1 = (await viewer.get(`/api/models/${model.id}`).expect(200)).body.data;
     expect(model1.latest.error_count).toBe(1);
+    // A save's own answer follows the rules in force too.
+    const next = (await saveVia(editor, model.id, 1, edit(UNSET(), 'expo: 30,', 'expo: 31,'))) as unknown as {
+      findings: { rule: string; severity: string; club_rule?: string }[];
+      error_count: number;
+      warning_count: number;
+    };
+    expect(next).toMatchObject({ error_count: 1, warning_count: 0 });
+    expect(next.findings.find((f) => f.rule === 'failsafe-unset')).toMatchObject({
+      severity: 'error',
+      club_rule: 'club rule: warning raised to error',
+    });
 
     const events = await AuditEvent.findAll({ where: { workspaceId: roles.workspace.id, action: 'rules.changed' } });
     expect(events.at(-1)!.details).toMatchObject({

@@ -3,6 +3,7 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import { parse } from 'yaml';
 import { leafValues } from '@shared/lineage/leaf-paths';
 import { Revision } from '@api/models';
+import { settleRecordings } from '@api/provenance/record-later';
 import { createRoleFixture, type RoleFixture } from './helpers/factories';
 import { useTestApp } from './helpers/test-app';
 import { clientFor, createModelVia, edit, saveVia, TRAINER, type Client } from './models-support';
@@ -191,7 +192,9 @@ describe('GET /api/models/:id/provenance', () => {
                 (SELECT count(*) FROM revision_changes WHERE model_id = $id AND number = 3) AS rows`,
         { bind: { id: model.id }, type: QueryTypes.SELECT },
       );
-    // Before anyone asks for provenance, both API saves (one statement each) are recorded.
+    // Before anyone asks for provenance, both API saves (one statement each) are recorded
+    // once the recordings that follow their answers have run.
+    await settleRecordings(sql);
     expect(await recorded()).toEqual([{ through_number: 3, rows: '2' }]);
     const before = await provenance(viewer, model.id);
     expect(byPath(before).get(MOTOR_FAILSAFE)).toMatchObject({ revision: { number: 3 }, message: 'from the bench' });
@@ -203,6 +206,47 @@ describe('GET /api/models/:id/provenance', () => {
     });
     expect(await provenance(viewer, model.id)).toEqual(before);
     expect(await recorded()).toEqual([{ through_number: 3, rows: '2' }]);
+  });
+
+  it('answers a save whose provenance cannot be recorded; the next provenance read fills it in', async () => {
+    const { model } = await createModelVia(editor, roles.workspace.id, { name: 'Recorded later', yaml: TRAINER() });
+    const sql = t.sequelize;
+    // The next insert into revision_changes fails, once: a sequence's value survives the
+    // rollback of the transaction that took it.
+    await sql.query(`
+      CREATE SEQUENCE refuse_provenance_once;
+      CREATE FUNCTION refuse_provenance_once() RETURNS trigger LANGUAGE plpgsql AS $$
+      BEGIN
+        IF nextval('refuse_provenance_once') = 1 THEN RAISE EXCEPTION 'provenance refused for this test'; END IF;
+        RETURN NULL;
+      END $$;
+      CREATE TRIGGER refuse_provenance_once BEFORE INSERT ON revision_changes
+        FOR EACH STATEMENT EXECUTE FUNCTION refuse_provenance_once();`);
+    try {
+      const saved = await saveVia(editor, model.id, 1, edit(TRAINER(), 'expo: 30,', 'expo: 34,'), 'softer still');
+      expect(saved.number).toBe(2);
+      await settleRecordings(sql);
+      const state = async () =>
+        sql.query<{ through_number: number; rows: string }>(
+          `SELECT (SELECT through_number FROM provenance_progress WHERE model_id = $id) AS through_number,
+                  (SELECT count(*) FROM revision_changes WHERE model_id = $id AND number = 2) AS rows`,
+          { bind: { id: model.id }, type: QueryTypes.SELECT },
+        );
+      // The recording after the answer was refused and rolled back whole.
+      expect(await state()).toEqual([{ through_number: 1, rows: '0' }]);
+      const entries = byPath(await provenance(viewer, model.id));
+      expect(entries.get(AILERON_EXPO)).toMatchObject({
+        revision: { id: saved.id, number: 2 },
+        message: 'softer still',
+      });
+      expect(entries.get(MOTOR_FAILSAFE)).toMatchObject({ revision: { number: 1 } });
+      expect(await state()).toEqual([{ through_number: 2, rows: '1' }]);
+    } finally {
+      await sql.query(`
+        DROP TRIGGER refuse_provenance_once ON revision_changes;
+        DROP FUNCTION refuse_provenance_once();
+        DROP SEQUENCE refuse_provenance_once;`);
+    }
   });
 
   it('names the source’s revision, marked inherited, for values that came with a fork', async () => {

@@ -1,5 +1,6 @@
-import { spawn, type ChildProcess } from 'node:child_process';
+import { execFileSync, spawn, type ChildProcess } from 'node:child_process';
 import { randomBytes } from 'node:crypto';
+import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { defaultConfig, type AppConfig } from '@api/config';
 
@@ -7,7 +8,38 @@ export interface ApiProcess {
   url: string;
   /** The settings the server signs sessions with, so the bench can make tokens. */
   config: AppConfig;
+  /**
+   * User plus system CPU time the server's processes (the primary and its workers) have
+   * used so far, in ms, read from /proc; null where there is no /proc. The difference
+   * over a run is the CPU the server spent on it, whatever the wall clock did.
+   */
+  cpuMs(): number | null;
   stop(): Promise<void>;
+}
+
+let ticksPerSecond: number | null = null;
+
+function clockTicks(): number {
+  ticksPerSecond ??= Number(execFileSync('getconf', ['CLK_TCK'], { encoding: 'utf8' }).trim()) || 100;
+  return ticksPerSecond;
+}
+
+// utime and stime are the 14th and 15th fields of /proc/PID/stat, counted after the
+// command name, which is in parentheses and may hold spaces.
+function processCpuMs(pid: number): number {
+  const stat = readFileSync(`/proc/${pid}/stat`, 'utf8');
+  const fields = stat.slice(stat.lastIndexOf(')') + 2).split(' ');
+  return ((Number(fields[11]) + Number(fields[12])) * 1000) / clockTicks();
+}
+
+function treeCpuMs(pid: number | undefined): number | null {
+  if (pid === undefined) return null;
+  try {
+    const children = readFileSync(`/proc/${pid}/task/${pid}/children`, 'utf8').trim().split(/\s+/).filter(Boolean);
+    return [pid, ...children.map(Number)].reduce((sum, id) => sum + processCpuMs(id), 0);
+  } catch {
+    return null;
+  }
 }
 
 const entry = fileURLToPath(new URL('./bench-server.ts', import.meta.url));
@@ -50,7 +82,7 @@ export function startApiProcess(
       const line = output.split('\n')[0];
       if (output.includes('\n')) {
         child.removeAllListeners('exit');
-        resolve({ url: line.trim(), config: defaultConfig({ jwtSecret }), stop });
+        resolve({ url: line.trim(), config: defaultConfig({ jwtSecret }), cpuMs: () => treeCpuMs(child.pid), stop });
       }
     });
   });

@@ -50,15 +50,16 @@ export async function seedShelf(
 }
 
 /**
- * A model whose history has `count` revisions: revision 1 made the ordinary way,
- * 2..count-1 copies of it (each the parent of the next, so the sequence trigger accepts
- * them), and the last one saved the ordinary way with `lastYaml`, so a compare of the
- * first and the last revision has real changes to show.
+ * A model whose history has `count` revisions: revision 1 made the ordinary way, then
+ * 2..count copies of it in one statement, each the parent of the next (so the sequence
+ * trigger accepts them) and a second apart. `document`, an SQL expression over `first`
+ * (revision 1's row) and `chained.n` (the number), varies the copies' documents; by
+ * default they repeat revision 1's.
  */
-export async function seedLongHistory(
+export async function seedHistory(
   sequelize: Sequelize,
-  input: { workspace: Workspace; author: User; yaml: string; lastYaml: string; count: number; name: string },
-): Promise<{ model: SetupModel; first: Revision; last: Revision }> {
+  input: { workspace: Workspace; author: User; yaml: string; count: number; name: string; document?: string },
+): Promise<{ model: SetupModel; first: Revision }> {
   const { model, revision: first } = await createModel(sequelize, {
     workspace: input.workspace,
     author: input.author,
@@ -67,19 +68,32 @@ export async function seedLongHistory(
   });
   await sequelize.query(
     `WITH numbered AS (
-       SELECT n, gen_random_uuid() AS id FROM generate_series(2, $count::integer - 1) AS n
+       SELECT n, gen_random_uuid() AS id FROM generate_series(2, $count::integer) AS n
      ), chained AS (
        SELECT n, id, coalesce(lag(id) OVER (ORDER BY n), $first::uuid) AS parent_id FROM numbered
      )
      INSERT INTO revisions (id, model_id, number, parent_id, author_id, message, yaml_text, document, content_hash, findings,
                             error_count, warning_count, info_count, origin, created_at)
      SELECT chained.id, first.model_id, chained.n, chained.parent_id, first.author_id, 'Bench revision ' || chained.n,
-            first.yaml_text, first.document, first.content_hash, first.findings, first.error_count, first.warning_count,
-            first.info_count, 'save', first.created_at + chained.n * interval '1 second'
+            first.yaml_text, ${input.document ?? 'first.document'}, first.content_hash, first.findings, first.error_count,
+            first.warning_count, first.info_count, 'save', first.created_at + chained.n * interval '1 second'
        FROM chained CROSS JOIN (SELECT * FROM revisions WHERE id = $first::uuid) AS first
       ORDER BY chained.n`,
     { bind: { count: input.count, first: first.id } },
   );
+  await sequelize.query('ANALYZE revisions');
+  return { model, first };
+}
+
+/**
+ * seedHistory with `count` revisions, the last one saved the ordinary way with
+ * `lastYaml`, so a compare of the first and the last revision has real changes to show.
+ */
+export async function seedLongHistory(
+  sequelize: Sequelize,
+  input: { workspace: Workspace; author: User; yaml: string; lastYaml: string; count: number; name: string },
+): Promise<{ model: SetupModel; first: Revision; last: Revision }> {
+  const { model, first } = await seedHistory(sequelize, { ...input, count: input.count - 1 });
   const last = await saveRevision(sequelize, {
     modelId: model.id,
     author: input.author,
@@ -87,6 +101,5 @@ export async function seedLongHistory(
     yaml: input.lastYaml,
     message: 'The latest change',
   });
-  await sequelize.query('ANALYZE revisions');
   return { model, first, last };
 }

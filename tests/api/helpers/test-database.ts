@@ -3,6 +3,7 @@ import type { Sequelize } from 'sequelize';
 import { inject } from 'vitest';
 import { createDatabase, dropDatabase, withDatabase } from '@api/db/databases';
 import { createSequelize } from '@api/db/sequelize';
+import { settleRecordings } from '@api/provenance/record-later';
 
 export interface TestDatabase {
   name: string;
@@ -23,6 +24,8 @@ export async function openTestDatabase(): Promise<TestDatabase> {
     url,
     sequelize,
     close: async () => {
+      // A save's provenance is recorded after its answer: let the last ones finish.
+      await settleRecordings(sequelize);
       await sequelize.close();
       await dropDatabase(serverUrl, name);
     },
