@@ -3,6 +3,7 @@ import { QueryTypes } from 'sequelize';
 import request from 'supertest';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { Revision } from '@api/models';
+import { settleRecordings } from '@api/provenance/record-later';
 import { ROUTE_TABLE, routeKey, type RouteEntry } from '@api/routes/route-table';
 import { useMailTestApp } from './helpers/mail';
 import { ALIAS_BOMB, SCALE, TRAINER } from './models-support';
@@ -32,8 +33,12 @@ beforeAll(async () => {
   countSql = `SELECT ${tables.map(({ name }) => `(SELECT count(*) FROM "${name}")::int AS "${name}"`).join(', ')}`;
 });
 
-const rowCounts = async (): Promise<Record<string, number>> =>
-  (await t.sequelize.query<Record<string, number>>(countSql, { type: QueryTypes.SELECT }))[0];
+// An accepted save records its changed settings just after answering; waiting for that
+// keeps the previous request's provenance rows out of the next refusal's count.
+const rowCounts = async (): Promise<Record<string, number>> => {
+  await settleRecordings(t.sequelize);
+  return (await t.sequelize.query<Record<string, number>>(countSql, { type: QueryTypes.SELECT }))[0];
+};
 
 const NASTY_STRINGS = [
   '',
