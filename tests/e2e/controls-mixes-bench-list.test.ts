@@ -226,14 +226,17 @@ describe.each(['desktop', 'tablet'] as ViewportName[])('forms and the bench list
     await bench.getByRole('heading', { name: 'Safety first' }).waitFor();
     const listAfter = (heading: string) =>
       bench.locator('h3', { hasText: heading }).locator('xpath=following-sibling::ul[1]').textContent();
-    // Telemetry off leads the list; the remaps and the old 988 µs failsafe follow. The wing
-    // slot carries no throttle, so that failsafe is not singled out as a throttle's.
+    // The old 988 µs failsafe (the last airframe's throttle) and telemetry off lead the list,
+    // though the wing slot carries no throttle; the remaps and the centred failsafes follow.
     const safety = (await listAfter('Safety first')) ?? '';
     const rest = (await listAfter('Then the rest')) ?? '';
     expect(safety).toMatch(/telemetry/i);
+    expect(safety).toContain('Pin 3: failsafe 988 µs, set hold');
+    expect(safety).toContain('drives this output to its end on signal loss');
     expect(rest).not.toMatch(/telemetry/i);
-    expect(rest).toMatch(/988/);
+    expect(rest).not.toMatch(/988/);
     expect(rest).toMatch(/channel/i);
+    expect(rest).toContain('Pin 2: failsafe 1500 µs, set hold');
     await page.getByRole('heading', { name: 'Re-bind and check again' }).waitFor();
     expect(await seriousA11yViolations(page)).toEqual([]);
     await saveScreenshot(page, `issue16-bench-list-${viewport}`);
