@@ -340,6 +340,45 @@ describe('comment threads', () => {
     expect(actions.sort()).toEqual(['comment.reopened', 'comment.replied', 'comment.resolved']);
   });
 
+  it('answers the review with thread counts only, and pages open and resolved threads apart as the review page reads them', async () => {
+    const { revision } = await model();
+    const review = await reviewOf(revision.id);
+    const ids: string[] = [];
+    for (const ch of [1, 2, 3, 4, 5]) {
+      const started = await reviewer
+        .post(`/api/reviews/${review}/comments`, { path: `channels[ch=${ch}]`, body: `Channel ${ch} direction?` })
+        .expect(201);
+      ids.push(started.body.data.id as string);
+    }
+    await reviewer.post(`/api/reviews/${review}/comments`, { body: 'Looks tidy.' }).expect(201);
+    for (const id of [ids[0], ids[3]]) await reviewer.post(`/api/comments/${id}/resolve`, {}).expect(200);
+
+    const detail = (await viewer.get(`/api/reviews/${review}`).expect(200)).body.data;
+    expect(detail).not.toHaveProperty('comments');
+    // One entry per open anchored thread; the whole-revision comment counts but has no path.
+    expect(detail.threads).toEqual({
+      open: 4,
+      resolved: 2,
+      open_paths: ['channels[ch=2]', 'channels[ch=3]', 'channels[ch=5]'],
+    });
+
+    const page = (status: string, offset: number) =>
+      viewer.get(`/api/revisions/${revision.id}/comments?status=${status}&limit=2&offset=${offset}`).expect(200);
+    const first = (await page('open', 0)).body;
+    expect(first.pagination).toEqual({ limit: 2, offset: 0, total: 4 });
+    expect(first.data.map((entry: { body: string }) => entry.body)).toEqual([
+      'Channel 2 direction?',
+      'Channel 3 direction?',
+    ]);
+    const next = (await page('open', 2)).body;
+    expect(next.pagination).toEqual({ limit: 2, offset: 2, total: 4 });
+    expect(next.data.map((entry: { body: string }) => entry.body)).toEqual(['Channel 5 direction?', 'Looks tidy.']);
+    expect((await page('open', 4)).body).toEqual({ data: [], pagination: { limit: 2, offset: 4, total: 4 } });
+    const resolved = (await page('resolved', 0)).body;
+    expect(resolved.pagination.total).toBe(2);
+    expect(resolved.data.map((entry: { id: string }) => entry.id)).toEqual([ids[0], ids[3]]);
+  });
+
   it('starts a thread on a revision outside any review, and pages the threads with a total', async () => {
     const { revision } = await model();
     for (const ch of [1, 2, 3])
