@@ -6,6 +6,7 @@ import { ErrorState } from '../../../components/ui/error-state';
 import { FormAlert } from '../../../components/ui/form-alert';
 import { ShowMore } from '../../../components/ui/show-more';
 import { TextAreaField } from '../../../components/ui/text-area-field';
+import { cx } from '../../../lib/cx';
 import { formErrorsFrom } from '../../../lib/form-errors';
 import { itemsOf, totalOf } from '../../../lib/paged';
 import type { Id } from '../../../types/api';
@@ -80,22 +81,15 @@ export function ThreadsPanel({
       ) : open.length === 0 ? (
         <p className="mt-4 text-base text-ink-700">No open comments.</p>
       ) : (
-        <>
-          <ul className="mt-4 space-y-3" aria-label="Open comments">
-            {open.map((thread) => (
-              <Thread key={thread.id} thread={thread} where={where} canComment={canComment} />
-            ))}
-          </ul>
-          <ShowMore
-            shown={open.length}
-            total={openTotal}
-            noun="open comments"
-            hasMore={openPages.hasNextPage}
-            pending={openPages.isFetchingNextPage}
-            error={openPages.isFetchNextPageError ? openPages.error : undefined}
-            onMore={() => void openPages.fetchNextPage()}
-          />
-        </>
+        <PagedThreads
+          label="Open comments"
+          noun="open comments"
+          threads={open}
+          pages={openPages}
+          where={where}
+          canComment={canComment}
+          className="mt-4"
+        />
       )}
       {resolvedTotal > 0 && (
         <div className="mt-4">
@@ -103,26 +97,57 @@ export function ThreadsPanel({
             {showResolved ? 'Hide' : 'Show'} {resolvedTotal} resolved
           </Button>
           {showResolved && (
-            <>
-              <ul className="mt-2 space-y-3" aria-label="Resolved comments">
-                {resolved.map((thread) => (
-                  <Thread key={thread.id} thread={thread} where={where} canComment={canComment} />
-                ))}
-              </ul>
-              <ShowMore
-                shown={resolved.length}
-                total={resolvedTotal}
-                noun="resolved comments"
-                hasMore={resolvedPages.hasNextPage}
-                pending={resolvedPages.isFetchingNextPage}
-                error={resolvedPages.isFetchNextPageError ? resolvedPages.error : undefined}
-                onMore={() => void resolvedPages.fetchNextPage()}
-              />
-            </>
+            <PagedThreads
+              label="Resolved comments"
+              noun="resolved comments"
+              threads={resolved}
+              pages={resolvedPages}
+              where={where}
+              canComment={canComment}
+              className="mt-2"
+            />
           )}
         </div>
       )}
     </Card>
+  );
+}
+
+/** One list of threads with how many of how many are shown and the way to the next page. */
+function PagedThreads({
+  label,
+  noun,
+  threads,
+  pages,
+  where,
+  canComment,
+  className,
+}: {
+  label: string;
+  noun: string;
+  threads: readonly CommentThread[];
+  pages: ReturnType<typeof usePagedThreads>;
+  where: ThreadsWhere;
+  canComment: boolean;
+  className: string;
+}) {
+  return (
+    <>
+      <ul className={cx('space-y-3', className)} aria-label={label}>
+        {threads.map((thread) => (
+          <Thread key={thread.id} thread={thread} where={where} canComment={canComment} />
+        ))}
+      </ul>
+      <ShowMore
+        shown={threads.length}
+        total={totalOf(pages.data?.pages)}
+        noun={noun}
+        hasMore={pages.hasNextPage}
+        pending={pages.isFetchingNextPage}
+        error={pages.isFetchNextPageError ? pages.error : undefined}
+        onMore={() => void pages.fetchNextPage()}
+      />
+    </>
   );
 }
 
