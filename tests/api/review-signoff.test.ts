@@ -1,9 +1,10 @@
 import { beforeEach, describe, expect, it } from 'vitest';
-import { AuditEvent, ReviewVerdict, type User, type Workspace } from '@api/models';
+import { AuditEvent, ReviewVerdict, type Workspace } from '@api/models';
 import { CHECKLIST_IDS } from '@api/reviews/checklist';
-import { addMember, createUser, createWorkspace } from './helpers/factories';
+import { createUser } from './helpers/factories';
+import { clubModel, reviewClub, reviewOf as requestReviewOf, type ReviewClub } from './helpers/review-club';
 import { useMailTestApp } from './helpers/mail';
-import { clientFor, createModelVia, edit, SCALE, saveVia, type Client } from './models-support';
+import { clientFor, edit, SCALE, saveVia, type Client } from './models-support';
 
 // Deliberate verdicts, the review's comparison base and plan, carried ticks and
 // comment threads (issue 16, the review half).
@@ -15,33 +16,17 @@ let author: Client;
 let reviewer: Client;
 let second: Client;
 let viewer: Client;
+let club: ReviewClub;
 
 beforeEach(async () => {
-  const people: Record<string, User> = {};
-  for (const name of ['Olwen Thatch', 'Ada Merrow', 'Ines Greylag', 'Ravi Shoveler', 'Vera Coot'])
-    people[name] = await createUser({ name });
-  workspace = await createWorkspace({ name: 'Wherry Lane Flyers', owner: people['Olwen Thatch'] });
-  await addMember(workspace, people['Ada Merrow'], 'editor');
-  await addMember(workspace, people['Ines Greylag'], 'reviewer');
-  await addMember(workspace, people['Ravi Shoveler'], 'reviewer');
-  await addMember(workspace, people['Vera Coot'], 'viewer');
-  [author, reviewer, second, viewer] = ['Ada Merrow', 'Ines Greylag', 'Ravi Shoveler', 'Vera Coot'].map((name) =>
-    clientFor(t.app, t.config, people[name]),
-  );
+  club = await reviewClub(t);
+  ({ workspace, author, reviewer, second, viewer } = club);
 });
 
 const UNSET_WING_PIN = (text: string) => edit(text, '{ pin: 1, ch: 9,  failsafe: 1500 }', '{ pin: 1, ch: 9 }');
 
-async function model(yaml = SCALE()) {
-  const created = await createModelVia(author, workspace.id, { name: 'Kestrel', yaml, message: 'First plan' });
-  return { modelId: created.model.id, revision: created.revision as { id: string; number: number } };
-}
-
-async function reviewOf(revisionId: string): Promise<string> {
-  const response = await author.post(`/api/revisions/${revisionId}/reviews`, { reviewers: [reviewer.user.id] });
-  expect(response.status, JSON.stringify(response.body)).toBe(201);
-  return response.body.data.id;
-}
+const model = (yaml = SCALE()) => clubModel(club, { yaml });
+const reviewOf = (revisionId: string) => requestReviewOf(club, revisionId);
 
 const tickAll = (reviewId: string, items: readonly string[] = CHECKLIST_IDS) =>
   reviewer.post(`/api/reviews/${reviewId}/verdicts`, {
