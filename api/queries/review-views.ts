@@ -2,7 +2,7 @@ import { Op, QueryTypes, type Transaction } from 'sequelize';
 import { compareRevisions, type Comparison } from '@shared/diff';
 import { applyClubRules, type ClubRules } from '@shared/rules/club-rules';
 import { reviewPlan } from '@shared/diff/review-plan';
-import type { CommentStatus, ReviewDetail } from '@shared/contract/review';
+import type { CommentStatus, ReviewDetail, ThreadCounts } from '@shared/contract/review';
 import { Unprocessable } from '../errors';
 import { ChecklistTick, Review, ReviewComment, ReviewVerdict, Revision, SetupModel, User } from '../models';
 import type { GrantedReview } from '../access/records';
@@ -205,6 +205,16 @@ export async function presentThreadsOn(revision: Pick<Revision, 'id'>, threads: 
   return threads.map((thread) => presentThread(thread, byThread.get(thread.id) ?? [], users, revisions, revision.id));
 }
 
+/** The counts the review page needs before it reads the threads page by page. */
+function threadCounts(threads: readonly ReviewComment[]): ThreadCounts {
+  const open = threads.filter((thread) => thread.resolvedAt === null);
+  return {
+    open: open.length,
+    resolved: threads.length - open.length,
+    open_paths: open.flatMap((thread) => (thread.path === null ? [] : [thread.path])),
+  };
+}
+
 /** The numbers of the revisions the given reviews were of, keyed by review id. */
 async function reviewedNumbers(reviewIds: readonly string[]): Promise<Map<string, number>> {
   if (reviewIds.length === 0) return new Map();
@@ -278,7 +288,7 @@ export async function reviewDetail(
     plan: reviewPlan(revision.document, base ? base.revision.document : null),
     checklist: presentChecklist(ticks, users, carriedNumbers),
     verdicts: verdicts.map((verdict) => presentVerdict(verdict, users)),
-    comments: await presentThreadsOn(revision, threads),
+    threads: threadCounts(threads),
     model_state: { review_state: modelState, cleared_for_maiden: clearedForMaiden(modelState) },
     can: {
       verdict: canVerdict,

@@ -104,6 +104,17 @@ export interface CommentThread {
 
 export type CommentStatus = 'open' | 'resolved' | 'all';
 
+/**
+ * How many threads a revision shows, for a page that lists them through the paged
+ * comments route: open and resolved, and the setting path of each open anchored thread
+ * (repeated per thread) so a plan can count them per setting.
+ */
+export interface ThreadCounts {
+  open: number;
+  resolved: number;
+  open_paths: string[];
+}
+
 /** Which revision a review compares with: the last approved, the one before, one chosen, or none (all new). */
 export type ReviewBaseKind = 'approved' | 'previous' | 'chosen' | 'none';
 
@@ -118,7 +129,8 @@ export interface ReviewDetail extends Omit<ReviewSummary, 'revision'> {
   plan: ReviewPlan;
   checklist: ChecklistEntry[];
   verdicts: VerdictEntry[];
-  comments: CommentThread[];
+  /** The threads themselves are read a page at a time from `GET /api/revisions/:id/comments`. */
+  threads: ThreadCounts;
   model_state: { review_state: ReviewState; cleared_for_maiden: boolean };
   can: {
     verdict: boolean;

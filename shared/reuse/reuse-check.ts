@@ -30,7 +30,8 @@ export interface ReuseChange {
   summary: string;
   /**
    * Why this change is a safety matter, when it is one: the throttle's failsafe or its
-   * channel (a motor that runs on after signal loss) and telemetry (two receivers
+   * channel (a motor that runs on after signal loss), an old failsafe held at an end of
+   * travel (an old throttle's, wherever it now points) and telemetry (two receivers
    * answering at once, or none). The check lists these first. Null for the rest.
    */
   safety: string | null;
@@ -85,6 +86,15 @@ export function findingsForSlot(findings: readonly Finding[], slotId: string): F
     (finding) => finding.path === root || finding.path.startsWith(`${root}.`) || finding.path.startsWith(`${root}[`),
   );
 }
+
+// A held pulse this near an end of travel is what an old throttle failsafe looks like
+// (motor off at the low end, full power at the high end); wherever the unit goes next,
+// that output is driven to its end on signal loss. The bounds are common practice, no
+// published source: the usual 1000-2000 µs travel with 100 µs taken from each end.
+const END_OF_TRAVEL_LOW_US = 1100;
+const END_OF_TRAVEL_HIGH_US = 1900;
+const isEndOfTravel = (failsafe: ReuseChange['from']): failsafe is number =>
+  typeof failsafe === 'number' && (failsafe <= END_OF_TRAVEL_LOW_US || failsafe >= END_OF_TRAVEL_HIGH_US);
 
 const sameFailsafe = (a: StoredFailsafe | undefined, b: StoredFailsafe | undefined): boolean =>
   (a ?? null) === (b ?? null);
@@ -230,11 +240,14 @@ export function reuseCheck(
   for (const change of changes) {
     if (change.pin === null || change.safety !== null) continue;
     const wanted = slotPins.get(change.pin);
-    if (!wanted || !throttles.has(wanted.ch)) continue;
-    change.safety =
-      change.setting === 'failsafe'
-        ? 'This pin drives the throttle: a wrong failsafe can keep the motor running after signal loss.'
-        : 'This pin is to drive the throttle: until it does, the motor may answer another channel.';
+    if (wanted && throttles.has(wanted.ch)) {
+      change.safety =
+        change.setting === 'failsafe'
+          ? 'This pin drives the throttle: a wrong failsafe can keep the motor running after signal loss.'
+          : 'This pin is to drive the throttle: until it does, the motor may answer another channel.';
+    } else if (change.setting === 'failsafe' && isEndOfTravel(change.from)) {
+      change.safety = `A failsafe left from the last airframe (${describeFailsafe(change.from)}) drives this output to its end on signal loss: whatever is plugged in here goes to full travel.`;
+    }
   }
   changes.sort((a, b) => Number(b.safety !== null) - Number(a.safety !== null));
 

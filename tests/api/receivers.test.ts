@@ -326,7 +326,7 @@ describe('GET /api/receivers/:id/reuse-check', () => {
       from: 988,
       to: 'hold',
       summary: 'Pin 3: failsafe 988 µs, set hold',
-      safety: null,
+      safety: expect.stringContaining('A failsafe left from the last airframe (988 µs)'),
     });
     expect(data.changes).toContainEqual({
       pin: null,

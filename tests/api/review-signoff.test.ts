@@ -1,9 +1,10 @@
 import { beforeEach, describe, expect, it } from 'vitest';
-import { AuditEvent, ReviewVerdict, type User, type Workspace } from '@api/models';
+import { AuditEvent, ReviewVerdict, type Workspace } from '@api/models';
 import { CHECKLIST_IDS } from '@api/reviews/checklist';
-import { addMember, createUser, createWorkspace } from './helpers/factories';
+import { createUser } from './helpers/factories';
+import { clubModel, reviewClub, reviewOf as requestReviewOf, type ReviewClub } from './helpers/review-club';
 import { useMailTestApp } from './helpers/mail';
-import { clientFor, createModelVia, edit, SCALE, saveVia, type Client } from './models-support';
+import { clientFor, edit, SCALE, saveVia, type Client } from './models-support';
 
 // Deliberate verdicts, the review's comparison base and plan, carried ticks and
 // comment threads (issue 16, the review half).
@@ -15,33 +16,17 @@ let author: Client;
 let reviewer: Client;
 let second: Client;
 let viewer: Client;
+let club: ReviewClub;
 
 beforeEach(async () => {
-  const people: Record<string, User> = {};
-  for (const name of ['Olwen Thatch', 'Ada Merrow', 'Ines Greylag', 'Ravi Shoveler', 'Vera Coot'])
-    people[name] = await createUser({ name });
-  workspace = await createWorkspace({ name: 'Wherry Lane Flyers', owner: people['Olwen Thatch'] });
-  await addMember(workspace, people['Ada Merrow'], 'editor');
-  await addMember(workspace, people['Ines Greylag'], 'reviewer');
-  await addMember(workspace, people['Ravi Shoveler'], 'reviewer');
-  await addMember(workspace, people['Vera Coot'], 'viewer');
-  [author, reviewer, second, viewer] = ['Ada Merrow', 'Ines Greylag', 'Ravi Shoveler', 'Vera Coot'].map((name) =>
-    clientFor(t.app, t.config, people[name]),
-  );
+  club = await reviewClub(t);
+  ({ workspace, author, reviewer, second, viewer } = club);
 });
 
 const UNSET_WING_PIN = (text: string) => edit(text, '{ pin: 1, ch: 9,  failsafe: 1500 }', '{ pin: 1, ch: 9 }');
 
-async function model(yaml = SCALE()) {
-  const created = await createModelVia(author, workspace.id, { name: 'Kestrel', yaml, message: 'First plan' });
-  return { modelId: created.model.id, revision: created.revision as { id: string; number: number } };
-}
-
-async function reviewOf(revisionId: string): Promise<string> {
-  const response = await author.post(`/api/revisions/${revisionId}/reviews`, { reviewers: [reviewer.user.id] });
-  expect(response.status, JSON.stringify(response.body)).toBe(201);
-  return response.body.data.id;
-}
+const model = (yaml = SCALE()) => clubModel(club, { yaml });
+const reviewOf = (revisionId: string) => requestReviewOf(club, revisionId);
 
 const tickAll = (reviewId: string, items: readonly string[] = CHECKLIST_IDS) =>
   reviewer.post(`/api/reviews/${reviewId}/verdicts`, {
@@ -338,6 +323,45 @@ describe('comment threads', () => {
       (event) => event.action,
     );
     expect(actions.sort()).toEqual(['comment.reopened', 'comment.replied', 'comment.resolved']);
+  });
+
+  it('answers the review with thread counts only, and pages open and resolved threads apart as the review page reads them', async () => {
+    const { revision } = await model();
+    const review = await reviewOf(revision.id);
+    const ids: string[] = [];
+    for (const ch of [1, 2, 3, 4, 5]) {
+      const started = await reviewer
+        .post(`/api/reviews/${review}/comments`, { path: `channels[ch=${ch}]`, body: `Channel ${ch} direction?` })
+        .expect(201);
+      ids.push(started.body.data.id as string);
+    }
+    await reviewer.post(`/api/reviews/${review}/comments`, { body: 'Looks tidy.' }).expect(201);
+    for (const id of [ids[0], ids[3]]) await reviewer.post(`/api/comments/${id}/resolve`, {}).expect(200);
+
+    const detail = (await viewer.get(`/api/reviews/${review}`).expect(200)).body.data;
+    expect(detail).not.toHaveProperty('comments');
+    // One entry per open anchored thread; the whole-revision comment counts but has no path.
+    expect(detail.threads).toEqual({
+      open: 4,
+      resolved: 2,
+      open_paths: ['channels[ch=2]', 'channels[ch=3]', 'channels[ch=5]'],
+    });
+
+    const page = (status: string, offset: number) =>
+      viewer.get(`/api/revisions/${revision.id}/comments?status=${status}&limit=2&offset=${offset}`).expect(200);
+    const first = (await page('open', 0)).body;
+    expect(first.pagination).toEqual({ limit: 2, offset: 0, total: 4 });
+    expect(first.data.map((entry: { body: string }) => entry.body)).toEqual([
+      'Channel 2 direction?',
+      'Channel 3 direction?',
+    ]);
+    const next = (await page('open', 2)).body;
+    expect(next.pagination).toEqual({ limit: 2, offset: 2, total: 4 });
+    expect(next.data.map((entry: { body: string }) => entry.body)).toEqual(['Channel 5 direction?', 'Looks tidy.']);
+    expect((await page('open', 4)).body).toEqual({ data: [], pagination: { limit: 2, offset: 4, total: 4 } });
+    const resolved = (await page('resolved', 0)).body;
+    expect(resolved.pagination.total).toBe(2);
+    expect(resolved.data.map((entry: { id: string }) => entry.id)).toEqual([ids[0], ids[3]]);
   });
 
   it('starts a thread on a revision outside any review, and pages the threads with a total', async () => {

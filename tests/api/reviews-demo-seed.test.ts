@@ -73,10 +73,17 @@ describe('the demo reviews (seed step 0004)', () => {
       .get(`/api/reviews/${pending.id}`)
       .set(bearer(tokenFor(owner, t.config)))
       .expect(200);
-    expect(page.body.data.comments.map((comment: { path: string }) => comment.path)).toEqual([
+    expect(page.body.data.threads.open_paths).toEqual([
       'receivers[id=wing].map[pin=1]',
       'receivers[id=fuselage].map[pin=3]',
     ]);
+    const threads = await request(t.app)
+      .get(`/api/revisions/${page.body.data.revision.id}/comments?status=open`)
+      .set(bearer(tokenFor(owner, t.config)))
+      .expect(200);
+    expect(threads.body.data.map((comment: { path: string }) => comment.path)).toEqual(
+      page.body.data.threads.open_paths,
+    );
     // Nothing of the Kestrel is approved yet: its first review shows the whole setup as new.
     expect(page.body.data.base).toBeNull();
     expect(page.body.data.plan.compared).toBe(false);

@@ -113,7 +113,7 @@ describe.each(['desktop', 'tablet'] as ViewportName[])('forms and the bench list
     await visit.context.close();
   });
 
-  it('Add a mix proposes a control no mix uses and a channel nothing drives; Escape leaves without adding; adding saves the mix', async () => {
+  it('Add a mix proposes no control when every one is in use (mixes, rates, cut) and a channel nothing drives; Escape leaves without adding; adding saves the mix', async () => {
     const api = await apiAs(editor);
     const { model } = await createModel(api, `Add a mix (${viewport})`, trainer);
     const visit = await signedIn(browser(), editor, viewport);
@@ -127,8 +127,14 @@ describe.each(['desktop', 'tablet'] as ViewportName[])('forms and the bench list
     const from = dialog.getByLabel('From control');
     const to = dialog.getByLabel('To channel');
     await from.waitFor();
-    // The trainer's four sticks each feed their own channel 1-4: the proposal doubles none of them.
-    expect(await from.inputValue()).not.toMatch(/^(aileron|elevator|throttle|rudder)-stick$/);
+    // The trainer's four sticks each feed their own channel 1-4, rate-switch switches the rates and
+    // motor-arm is the motor's cut: every control is in use, so the dialog proposes none and asks.
+    expect(await from.inputValue()).toBe('');
+    await dialog.getByText(/Every control already does something/).waitFor();
+    expect(await from.locator('option', { hasText: 'motor-arm' }).textContent()).toBe('motor-arm (used by the cut)');
+    expect(await from.locator('option', { hasText: 'rate-switch' }).textContent()).toBe(
+      'rate-switch (used by dual rates)',
+    );
     expect(Number(await to.inputValue())).toBeGreaterThan(4);
     expect(await to.evaluate((select: HTMLSelectElement) => select.selectedOptions[0]?.textContent ?? '')).toMatch(
       /nothing planned/,
@@ -144,9 +150,18 @@ describe.each(['desktop', 'tablet'] as ViewportName[])('forms and the bench list
     await expect.poll(() => open.evaluate((element) => element === document.activeElement)).toBe(true);
     expect(await page.getByRole('table', { name: 'Mixes' }).getByRole('row').count()).toBe(5);
 
-    // Choosing a channel that already has a mix says so before anything is added.
+    // Adding without a control is refused beside the field; the pilot then picks one from the keyboard.
     await page.keyboard.press('Enter');
     await from.waitFor();
+    await dialog.getByRole('button', { name: 'Add the mix' }).focus();
+    await page.keyboard.press('Enter');
+    await dialog.getByText('Choose the control this mix moves with.').waitFor();
+    await from.focus();
+    await page.keyboard.press('End');
+    await expect.poll(() => from.inputValue()).toBe('motor-arm');
+    expect(await dialog.getByText('Choose the control this mix moves with.').count()).toBe(0);
+
+    // Choosing a channel that already has a mix says so before anything is added.
     const proposed = { from: await from.inputValue(), to: Number(await to.inputValue()) };
     await to.focus();
     await page.keyboard.press('Home');
@@ -226,14 +241,17 @@ describe.each(['desktop', 'tablet'] as ViewportName[])('forms and the bench list
     await bench.getByRole('heading', { name: 'Safety first' }).waitFor();
     const listAfter = (heading: string) =>
       bench.locator('h3', { hasText: heading }).locator('xpath=following-sibling::ul[1]').textContent();
-    // Telemetry off leads the list; the remaps and the old 988 µs failsafe follow. The wing
-    // slot carries no throttle, so that failsafe is not singled out as a throttle's.
+    // The old 988 µs failsafe (the last airframe's throttle) and telemetry off lead the list,
+    // though the wing slot carries no throttle; the remaps and the centred failsafes follow.
     const safety = (await listAfter('Safety first')) ?? '';
     const rest = (await listAfter('Then the rest')) ?? '';
     expect(safety).toMatch(/telemetry/i);
+    expect(safety).toContain('Pin 3: failsafe 988 µs, set hold');
+    expect(safety).toContain('drives this output to its end on signal loss');
     expect(rest).not.toMatch(/telemetry/i);
-    expect(rest).toMatch(/988/);
+    expect(rest).not.toMatch(/988/);
     expect(rest).toMatch(/channel/i);
+    expect(rest).toContain('Pin 2: failsafe 1500 µs, set hold');
     await page.getByRole('heading', { name: 'Re-bind and check again' }).waitFor();
     expect(await seriousA11yViolations(page)).toEqual([]);
     await saveScreenshot(page, `issue16-bench-list-${viewport}`);

@@ -99,4 +99,41 @@ describe('at 375 px, on a phone', () => {
       expect(visit.problems.all.slice(problemsBefore)).toEqual([]);
     },
   );
+
+  it('stacks each bench table row with its column names, so no table scrolls sideways', async () => {
+    const { page } = visit;
+    await page.goto(`${baseUrl}/models/${ids.kestrel}/bench`);
+    await page.getByRole('heading', { name: 'Mix curves' }).waitFor();
+    const tables = page.locator('table');
+    expect(await tables.count()).toBeGreaterThan(1);
+    const layout = await tables.evaluateAll((all) =>
+      all.map((table) => {
+        const box = table.parentElement!;
+        const cell = table.querySelector('tbody td')!;
+        return {
+          scrolls: box.scrollWidth > box.clientWidth,
+          display: getComputedStyle(cell).display,
+          names: [...table.querySelectorAll('tbody tr:first-child td')].map((td) =>
+            getComputedStyle(td, '::before').content.replace(/"/g, ''),
+          ),
+        };
+      }),
+    );
+    for (const table of layout) {
+      expect(table.scrolls).toBe(false);
+      expect(table.display).toBe('flex');
+    }
+    expect(layout.map((table) => table.names)).toContainEqual(['Channel', 'Function', 'Value', '%', 'Pulse µs']);
+    expect(layout.map((table) => table.names)).toContainEqual([
+      'Pin',
+      'Channel',
+      'Function',
+      'Pulse µs',
+      'State',
+      'Failsafe',
+    ]);
+    // The table is still a table to a screen reader: its column headers are there, only hidden from sight.
+    expect(await page.getByRole('columnheader', { name: 'Failsafe' }).count()).toBeGreaterThan(0);
+    await saveScreenshot(page, 'phone-bench-tables-375');
+  });
 });

@@ -43,9 +43,10 @@ describe('a unit from a single-receiver model moved into the secondary slot of a
   it('resets the old throttle pin’s failsafe and every other failsafe the wing slot sets differently', () => {
     const failsafes = check.changes.filter((change) => change.setting === 'failsafe');
     // Worked by hand from the two files: the wing holds pins 2-6 and fails safe pins 1, 7, 8 to 1500 µs.
+    // The old throttle's 988 µs leads: it is a safety change (below).
     expect(failsafes.map(({ pin, from, to }) => [pin, from, to])).toEqual([
-      [2, 1500, 'hold'],
       [3, 988, 'hold'],
+      [2, 1500, 'hold'],
       [4, 1500, 'hold'],
       [6, 1500, 'hold'],
     ]);
@@ -66,10 +67,23 @@ describe('a unit from a single-receiver model moved into the secondary slot of a
     ]);
   });
 
-  it('is not ready, lists the safety change (telemetry) first, then pin by pin, and targets the slot’s settings', () => {
+  it('singles out the old throttle failsafe (988 µs) though the wing slot’s pin 3 drives no throttle', () => {
+    const old = check.changes.find((change) => change.pin === 3 && change.setting === 'failsafe');
+    expect(old?.safety).toBe(
+      'A failsafe left from the last airframe (988 µs) drives this output to its end on signal loss: whatever is plugged in here goes to full travel.',
+    );
+    const centred = check.changes.filter((change) => change.setting === 'failsafe' && change.from === 1500);
+    expect(centred.map((change) => change.safety)).toEqual([null, null, null]);
+  });
+
+  it('is not ready, lists the safety changes (that failsafe, telemetry) first, then pin by pin, and targets the slot’s settings', () => {
     expect(check.ready).toBe(false);
     expect(check.notes).toEqual([]);
-    expect(check.changes.map((change) => change.pin)).toEqual([null, 1, 2, 2, 3, 3, 4, 4, 5, 6, 6, 7, 8]);
+    expect(check.changes.map((change) => [change.pin, change.setting])).toEqual([
+      [3, 'failsafe'],
+      [null, 'telemetry'],
+      ...[1, 2, 2, 3, 4, 4, 5, 6, 6, 7, 8].map((pin, i, pins) => [pin, pins[i - 1] === pin ? 'failsafe' : 'ch']),
+    ]);
     expect(check.target).toEqual({
       telemetry: false,
       pins: slot(sixteen, 'wing').map.map(({ pin, ch, failsafe }) => ({ pin, ch, failsafe })),
@@ -172,9 +186,31 @@ describe('pins and failsafes the slot leaves alone', () => {
         from: 1000,
         to: null,
         summary: 'Pin 3: failsafe 1000 µs, clear it to the receiver default (the setup sets none)',
-        safety: null,
+        safety: expect.stringMatching(
+          /^A failsafe left from the last airframe \(1000 µs\) drives this output to its end/,
+        ),
       },
     ]);
+  });
+
+  it('counts a held pulse at either end of travel as a safety change, and nothing between or held by mode', () => {
+    // The bounds are common practice, no published source: 1100 µs and below, 1900 µs and above.
+    const cabin = slot(trainer, 'cabin');
+    const unit = loadUnit('six-output-unit');
+    const holding = (failsafe: number | 'hold' | 'off') => ({
+      ...unit,
+      stored: {
+        ...unit.stored!,
+        pins: unit.stored!.pins.map((entry) => (entry.pin === 1 ? { ...entry, failsafe } : entry)),
+      },
+    });
+    const pin1 = (failsafe: number | 'hold' | 'off') => {
+      const changes = reuseCheck(holding(failsafe), cabin).changes;
+      expect(changes.map((change) => change.pin)).toEqual([1]);
+      return changes[0].safety !== null;
+    };
+    const held: (number | 'hold' | 'off')[] = [988, 1100, 1101, 1899, 1900, 2012, 'hold', 'off'];
+    expect(held.map(pin1)).toEqual([true, true, false, false, true, true, false, false]);
   });
 
   it('names a pin the unit leaves without a failsafe', () => {

@@ -1,8 +1,8 @@
 import { analyzeSetup } from '@shared/analyze';
 import { compareRevisions } from '@shared/diff';
 import { reviewPlan } from '@shared/diff/review-plan';
-import type { ReviewDetail, ReviewSummary } from '@web/features/reviews/types';
-import { CLUB, demoUser } from '../fake-server';
+import type { CommentThread, ReviewDetail, ReviewSummary, ThreadCounts } from '@web/features/reviews/types';
+import { CLUB, demoUser, type FakeHandler } from '../fake-server';
 import { fixtureText } from '../models/model-data';
 
 // A review as the API presents it, its compare and findings computed by the real
@@ -35,11 +35,54 @@ const revision = (id: string, number: number, text: string) => {
   };
 };
 
+export const REVIEWED_REVISION = '55555555-5555-4555-8555-555555555555';
+
+/** A thread started in the review of revision 3 and carried to revision 4: its pin still exists. */
+export const carriedThread: CommentThread = {
+  id: 'c1',
+  review_id: 'older',
+  path: 'receivers[id=wing].map[pin=1]',
+  body: 'Check the tailwheel centres on loss.',
+  author: ines,
+  revision: { id: '44444444-4444-4444-8444-444444444444', number: 3 },
+  carried: true,
+  created_at: '2026-04-01T10:00:00.000Z',
+  replies: [],
+  resolved: null,
+};
+
+/** The counts the review answer carries, as the API computes them. */
+export function threadCounts(threads: readonly CommentThread[]): ThreadCounts {
+  const open = threads.filter((thread) => !thread.resolved);
+  return {
+    open: open.length,
+    resolved: threads.length - open.length,
+    open_paths: open.flatMap((thread) => (thread.path ? [thread.path] : [])),
+  };
+}
+
+/** `GET /api/revisions/:id/comments` over `threads()`, by status, a page at a time, as the API pages it. */
+export function threadRoutes(threads: () => readonly CommentThread[], revisionId = REVIEWED_REVISION) {
+  return {
+    [`GET /api/revisions/${revisionId}/comments`]: ((request) => {
+      const status = request.url.searchParams.get('status') ?? 'all';
+      const limit = Number(request.url.searchParams.get('limit') ?? 100);
+      const offset = Number(request.url.searchParams.get('offset') ?? 0);
+      const shown = threads().filter((thread) =>
+        status === 'open' ? !thread.resolved : status === 'resolved' ? Boolean(thread.resolved) : true,
+      );
+      return {
+        body: { data: shown.slice(offset, offset + limit), pagination: { limit, offset, total: shown.length } },
+      };
+    }) satisfies FakeHandler,
+  };
+}
+
 export function reviewDetail(overrides: Partial<ReviewDetail> = {}): ReviewDetail {
   const beforeText = fixtureText('pairs/failsafe-fix.before.yaml');
   const afterText = fixtureText('pairs/failsafe-fix.after.yaml');
   const before = revision('44444444-4444-4444-8444-444444444444', 3, beforeText);
-  const after = revision('55555555-5555-4555-8555-555555555555', 4, afterText);
+  const after = revision(REVIEWED_REVISION, 4, afterText);
   return {
     id: REVIEW,
     workspace_id: CLUB,
@@ -92,20 +135,7 @@ export function reviewDetail(overrides: Partial<ReviewDetail> = {}): ReviewDetai
       },
     ],
     verdicts: [],
-    comments: [
-      {
-        id: 'c1',
-        review_id: 'older',
-        path: 'receivers[id=wing].map[pin=1]',
-        body: 'Check the tailwheel centres on loss.',
-        author: ines,
-        revision: { id: before.summary.id, number: 3 },
-        carried: true,
-        created_at: '2026-04-01T10:00:00.000Z',
-        replies: [],
-        resolved: null,
-      },
-    ],
+    threads: threadCounts([carriedThread]),
     model_state: { review_state: 'pending', cleared_for_maiden: false },
     can: { verdict: true, approve: true, approve_refusal: null, tick: true, comment: true },
     ...overrides,

@@ -1,15 +1,23 @@
 import { screen, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { CLUB, demoUser, fakeServer, sessionRoutes } from '../fake-server';
+import type { CommentThread } from '@web/features/reviews/types';
 import { renderApp } from '../render-app';
-import { MODEL, REVIEW, reviewDetail } from './review-data';
+import { MODEL, REVIEW, carriedThread, reviewDetail, threadCounts, threadRoutes } from './review-data';
 
 const path = `/w/${CLUB}/reviews/${REVIEW}`;
+
+// The threads the fake comments route answers with; a test that starts one adds it here.
+let threads: CommentThread[] = [];
+beforeEach(() => {
+  threads = [carriedThread];
+});
 
 describe('the review page', () => {
   it('shows the whole plan marked against the previous revision, the checklist with a carried tick and carried comments', async () => {
     fakeServer({
       ...sessionRoutes({ signedIn: true }).routes,
+      ...threadRoutes(() => threads),
       [`GET /api/reviews/${REVIEW}`]: () => ({ body: { data: reviewDetail() } }),
     });
     renderApp(path);
@@ -32,7 +40,7 @@ describe('the review page', () => {
     const pin3 = within(wingPins).getByRole('row', { name: /Pin 3/ });
     expect(within(pin3).getByText('Changed')).toBeInTheDocument();
     expect(within(pin3).getByText('1500 µs')).toBeInTheDocument();
-    const comments = screen.getByRole('list', { name: 'Open comments' });
+    const comments = await screen.findByRole('list', { name: 'Open comments' });
     expect(within(comments).getByText('From revision 3')).toBeInTheDocument();
     expect(within(comments).getByText('Pin 1 of receiver wing')).toBeInTheDocument();
     expect(document.title).toBe('Review · Kestrel Mk II, revision 4 · Bindery');
@@ -42,6 +50,7 @@ describe('the review page', () => {
     const pinPath = 'receivers[id=wing].map[pin=3]';
     const server = fakeServer({
       ...sessionRoutes({ signedIn: true }).routes,
+      ...threadRoutes(() => threads),
       [`GET /api/reviews/${REVIEW}`]: () => ({ body: { data: reviewDetail() } }),
       [`GET /api/models/${MODEL}/provenance/history`]: (request) => ({
         body: {
@@ -110,6 +119,7 @@ describe('the review page', () => {
     });
     const server = fakeServer({
       ...sessionRoutes({ signedIn: true }).routes,
+      ...threadRoutes(() => threads),
       [`GET /api/reviews/${REVIEW}`]: () => ({ body: { data: detail } }),
       [`POST /api/reviews/${REVIEW}/verdicts`]: (request) => {
         const body = request.body as { verdict: 'comment'; body: string };
@@ -162,6 +172,7 @@ describe('the review page', () => {
     const me = { id: demoUser.id, name: demoUser.name };
     const server = fakeServer({
       ...sessionRoutes({ signedIn: true }).routes,
+      ...threadRoutes(() => threads),
       [`GET /api/reviews/${REVIEW}`]: () => ({ body: { data: detail } }),
       [`POST /api/reviews/${REVIEW}/verdicts`]: (request) => {
         const body = request.body as { verdict: 'approve' | 'comment'; body?: string; confirm_left_open?: boolean };
@@ -223,6 +234,7 @@ describe('the review page', () => {
     let detail = reviewDetail();
     const server = fakeServer({
       ...sessionRoutes({ signedIn: true }).routes,
+      ...threadRoutes(() => threads),
       [`GET /api/reviews/${REVIEW}`]: () => ({ body: { data: detail } }),
       [`POST /api/reviews/${REVIEW}/checklist`]: () => ({
         body: { data: detail.checklist.map((item) => ({ ...item, ticked: true })) },
@@ -241,7 +253,8 @@ describe('the review page', () => {
           replies: [],
           resolved: null,
         };
-        detail = { ...detail, comments: [...detail.comments, thread] };
+        threads = [...threads, thread];
+        detail = { ...detail, threads: threadCounts(threads) };
         return { status: 201, body: { data: thread } };
       },
     });
@@ -270,6 +283,7 @@ describe('the review page', () => {
   it('lets a viewer read without the verdict form', async () => {
     fakeServer({
       ...sessionRoutes({ signedIn: true }).routes,
+      ...threadRoutes(() => threads),
       [`GET /api/reviews/${REVIEW}`]: () => ({
         body: {
           data: reviewDetail({
@@ -284,5 +298,39 @@ describe('the review page', () => {
     expect(screen.queryByRole('form', { name: 'Start a comment' })).not.toBeInTheDocument();
     expect(screen.queryByRole('button', { name: /^Comment on/ })).not.toBeInTheDocument();
     expect(screen.getByRole('checkbox', { name: 'Failsafe tested' })).toBeDisabled();
+  });
+});
+
+describe('the review page’s comments', () => {
+  it('reads the threads a page at a time from the revision’s comments, with how many of how many and Show more', async () => {
+    threads = Array.from({ length: 25 }, (_, i) => ({
+      ...carriedThread,
+      id: `t${i + 1}`,
+      body: `Note ${i + 1} on the tailwheel.`,
+    }));
+    const server = fakeServer({
+      ...sessionRoutes({ signedIn: true }).routes,
+      ...threadRoutes(() => threads),
+      [`GET /api/reviews/${REVIEW}`]: () => ({ body: { data: reviewDetail({ threads: threadCounts(threads) }) } }),
+    });
+    const { user } = renderApp(path);
+
+    const list = await screen.findByRole('list', { name: 'Open comments' });
+    expect(within(list).getAllByRole('listitem', { name: /^Comment on/ })).toHaveLength(20);
+    expect(screen.getByText('Showing 20 of 25 open comments.')).toBeInTheDocument();
+    expect(screen.getByText('25 open, 0 resolved')).toBeInTheDocument();
+    // The plan counts the pin's open threads from the review answer's summary.
+    const wingPins = screen.getByRole('table', { name: 'Pins of receiver wing' });
+    expect(within(wingPins).getByText('(25 open comments)')).toBeInTheDocument();
+
+    await user.click(screen.getByRole('button', { name: 'Show more' }));
+    expect(await screen.findByText('Note 25 on the tailwheel.')).toBeInTheDocument();
+    expect(within(list).getAllByRole('listitem', { name: /^Comment on/ })).toHaveLength(25);
+    expect(screen.queryByRole('button', { name: 'Show more' })).not.toBeInTheDocument();
+    const pages = server
+      .called('GET', `/api/revisions/${reviewDetail().revision.id}/comments`)
+      .filter((request) => request.url.searchParams.get('status') === 'open')
+      .map((request) => request.url.searchParams.get('offset'));
+    expect([...new Set(pages)]).toEqual(['0', '20']);
   });
 });

@@ -12,6 +12,7 @@ export type {
   ReviewPlan,
   ReviewRequestState,
   ReviewSummary,
+  ThreadCounts,
   Verdict,
   VerdictEntry,
 } from '@shared/contract/review';

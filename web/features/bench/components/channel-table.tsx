@@ -3,13 +3,13 @@ import type { ChannelOutput } from '@shared/evaluate/evaluate';
 import type { Channel } from '@shared/format/schema';
 import { Badge } from '../../../components/ui/badge';
 import { Card } from '../../../components/ui/card';
-import { BenchTable, Td, Th } from './bench-table';
+import { BenchHead, BenchRow, BenchTable, Td, Th } from './bench-table';
 
 /** A channel's value on a centred track: where it sits between −100 and +100. */
 function ValueBar({ value }: { value: number }) {
   const half = Math.min(100, Math.abs(value)) / 2;
   return (
-    <span className="relative block h-2 w-full min-w-16 rounded-full bg-ply-100" aria-hidden="true">
+    <span className="relative block h-2 w-full min-w-16 rounded-full bg-ply-100 max-sm:w-1/2" aria-hidden="true">
       <span className="absolute top-0 left-1/2 h-full w-px bg-ply-500" />
       <span
         className="absolute top-0 h-full rounded-full bg-accent-600"
@@ -39,7 +39,7 @@ export function ChannelTable({ outputs, plan, cutOn }: ChannelTableProps) {
           <p className="mt-2 text-base text-ink-700">The channel plan is empty: there is nothing to drive.</p>
         ) : (
           <BenchTable caption="Each channel's value and pulse at the controls' positions">
-            <thead>
+            <BenchHead>
               <tr>
                 <Th className="w-12">Ch</Th>
                 <Th>Function</Th>
@@ -48,37 +48,43 @@ export function ChannelTable({ outputs, plan, cutOn }: ChannelTableProps) {
                   %
                 </Th>
                 <Th numeric className="w-24 whitespace-nowrap">
-                  Pulse us
+                  Pulse µs
                 </Th>
               </tr>
-            </thead>
+            </BenchHead>
             <tbody>
               {outputs.map((channel) => {
                 const entry = roleOf.get(channel.ch);
                 return (
-                  <tr key={channel.ch}>
-                    <Td className="font-mono">{channel.ch}</Td>
-                    <Td>
-                      <span className="whitespace-nowrap text-ink-900">{channel.function}</span>
-                      {cutOn.has(channel.ch) && (
-                        <Badge tone="caution" className="ml-2">
-                          cut on
-                        </Badge>
-                      )}
-                      <span className="block text-xs text-ink-500">
-                        {entry?.role}
-                        {entry?.side ? `, ${entry.side}` : ''}
-                        {entry?.travel.reverse ? ', reversed' : ''}
+                  <BenchRow key={channel.ch}>
+                    <Td label="Channel" className="font-mono">
+                      {channel.ch}
+                    </Td>
+                    <Td label="Function" className="max-sm:items-start">
+                      <span className="max-sm:text-right">
+                        <span className="whitespace-nowrap text-ink-900">{channel.function}</span>
+                        {cutOn.has(channel.ch) && (
+                          <Badge tone="caution" className="ml-2">
+                            cut on
+                          </Badge>
+                        )}
+                        <span className="block text-xs text-ink-500">
+                          {entry?.role}
+                          {entry?.side ? `, ${entry.side}` : ''}
+                          {entry?.travel.reverse ? ', reversed' : ''}
+                        </span>
                       </span>
                     </Td>
-                    <Td>
+                    <Td label="Value">
                       <ValueBar value={channel.value} />
                     </Td>
-                    <Td numeric>{channel.value.toFixed(channel.value % 1 === 0 ? 0 : 1)}</Td>
-                    <Td numeric className="font-semibold text-ink-900">
+                    <Td label="%" numeric>
+                      {channel.value.toFixed(channel.value % 1 === 0 ? 0 : 1)}
+                    </Td>
+                    <Td label="Pulse µs" numeric className="font-semibold text-ink-900">
                       {channel.pulse_us}
                     </Td>
-                  </tr>
+                  </BenchRow>
                 );
               })}
             </tbody>

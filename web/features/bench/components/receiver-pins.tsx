@@ -5,7 +5,7 @@ import { Badge } from '../../../components/ui/badge';
 import { Card } from '../../../components/ui/card';
 import { cx } from '../../../lib/cx';
 import { failsafeWords, pinState } from '../failsafe-words';
-import { BenchTable, Td, Th } from './bench-table';
+import { BenchHead, BenchRow, BenchTable, Td, Th } from './bench-table';
 
 export interface ReceiverPinsProps {
   receiver: Receiver;
@@ -39,32 +39,37 @@ export function ReceiverPins({ receiver, output, functions }: ReceiverPinsProps)
           <BenchTable
             caption={`Pins of ${title}: channel, pulse ${lost ? 'with the link lost' : 'now'}, state and failsafe`}
           >
-            <thead>
+            <BenchHead>
               <tr>
                 <Th className="w-12">Pin</Th>
                 <Th className="w-12">Ch</Th>
                 <Th>Function</Th>
                 <Th numeric className="w-24 whitespace-nowrap">
-                  Pulse us
+                  Pulse µs
                 </Th>
                 <Th>State</Th>
                 <Th>Failsafe</Th>
               </tr>
-            </thead>
+            </BenchHead>
             <tbody>
               {output.pins.map((pin) => {
                 const state = pinState(pin, lost);
                 return (
-                  <tr key={pin.pin} className={cx(lost && 'bg-caution-100/40')}>
-                    <Td className="font-mono">{pin.pin}</Td>
-                    <Td className="font-mono">{pin.ch}</Td>
-                    <Td className="whitespace-nowrap">
+                  <BenchRow key={pin.pin} className={cx(lost && 'bg-caution-100/40')}>
+                    <Td label="Pin" className="font-mono">
+                      {pin.pin}
+                    </Td>
+                    <Td label="Channel" className="font-mono">
+                      {pin.ch}
+                    </Td>
+                    <Td label="Function" className="whitespace-nowrap">
                       {functions.get(pin.ch) ?? <span className="text-ink-500">not planned</span>}
                     </Td>
-                    <Td numeric className="font-semibold text-ink-900">
+                    <Td label="Pulse µs" numeric className="font-semibold text-ink-900">
                       {pin.pulse_us ?? <span className="font-sans font-normal text-ink-700">none</span>}
                     </Td>
                     <Td
+                      label="State"
                       className={cx(
                         'whitespace-nowrap',
                         state.kind === 'live' ? 'text-ink-700' : 'font-medium text-ink-900',
@@ -73,10 +78,10 @@ export function ReceiverPins({ receiver, output, functions }: ReceiverPinsProps)
                     >
                       {state.words}
                     </Td>
-                    <Td className={pin.failsafe === null ? 'text-caution-700' : 'text-ink-700'}>
+                    <Td label="Failsafe" className={pin.failsafe === null ? 'text-caution-700' : 'text-ink-700'}>
                       {failsafeWords(pin.failsafe)}
                     </Td>
-                  </tr>
+                  </BenchRow>
                 );
               })}
             </tbody>

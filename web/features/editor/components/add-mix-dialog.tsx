@@ -2,12 +2,15 @@ import { useState, type FormEvent } from 'react';
 import { Button } from '../../../components/ui/button';
 import { Dialog } from '../../../components/ui/dialog';
 import { SelectField } from '../../../components/ui/select-field';
-import { entriesAt, entryAt, fieldText, wholeNumber, type Entry } from '../form-values';
+import { entriesAt, entryAt, fieldText, wholeNumber } from '../form-values';
 
 // A new mix moves a channel as soon as it exists, so it is never added blind: the
-// pilot picks where it goes from and to, starting from a control no mix uses yet and a
+// pilot picks where it goes from and to, starting from a control nothing uses yet and a
 // channel nothing drives yet (a planned channel with no mix, else a free channel the
-// link carries). Picking a channel that already has a mix says so: mixes add up.
+// link carries). A control is in use when a mix moves with it, or when it switches dual
+// rates, a mix on and off or a channel's cut: a mix from the arm switch would move its
+// channel whenever the motor is armed. When every control is in use the dialog asks
+// instead of proposing one. Picking a channel that already has a mix says so: mixes add up.
 
 export interface NewMix {
   from: string;
@@ -39,8 +42,28 @@ function targetsOf(data: unknown): Target[] {
   });
 }
 
-function usedControls(mixes: readonly Entry[]): Set<string> {
-  return new Set(mixes.map((mix) => fieldText(mix.from)));
+/** What each control already does, in a pilot's words: "a mix", "dual rates", "a mix's switch", "the cut". */
+function controlUses(data: unknown): Map<string, string[]> {
+  const uses = new Map<string, string[]>();
+  const note = (control: unknown, use: string) => {
+    const id = fieldText(control);
+    if (id === '') return;
+    const known = uses.get(id) ?? [];
+    if (!known.includes(use)) uses.set(id, [...known, use]);
+  };
+  for (const { entry: mix } of entriesAt(data, 'mixes')) {
+    note(mix.from, 'a mix');
+    note(entryAt(mix, 'rates')?.control, 'dual rates');
+    note(entryAt(mix, 'active')?.control, 'a mix’s switch');
+  }
+  for (const { entry: channel } of entriesAt(data, 'channels')) note(entryAt(channel, 'cut')?.control, 'the cut');
+  return uses;
+}
+
+function usesText(uses: readonly string[] | undefined): string {
+  if (!uses) return ' (not used yet)';
+  const words = uses.length === 1 ? uses[0] : `${uses.slice(0, -1).join(', ')} and ${uses[uses.length - 1]}`;
+  return ` (used by ${words})`;
 }
 
 export function AddMixDialog({
@@ -56,19 +79,21 @@ export function AddMixDialog({
 }) {
   const targets = targetsOf(data);
   const planned = new Set(entriesAt(data, 'channels').map(({ entry }) => wholeNumber(entry.ch)));
-  const used = usedControls(entriesAt(data, 'mixes').map(({ entry }) => entry));
-  const firstFree = controls.find((control) => !used.has(control.id)) ?? controls[0];
+  const uses = controlUses(data);
+  const firstFree = controls.find((control) => !uses.has(control.id));
   const firstTarget =
     targets.find((target) => target.fedBy.length === 0 && planned.has(target.ch)) ??
     targets.find((target) => target.fedBy.length === 0) ??
     targets[0];
   const [from, setFrom] = useState(firstFree?.id ?? '');
   const [to, setTo] = useState(firstTarget?.ch ?? 1);
+  const [fromError, setFromError] = useState<string | undefined>();
   const chosen = targets.find((target) => target.ch === to);
 
   const submit = (event: FormEvent) => {
     event.preventDefault();
-    if (from !== '') onAdd({ from, to });
+    if (from === '') setFromError('Choose the control this mix moves with.');
+    else onAdd({ from, to });
   };
 
   return (
@@ -83,16 +108,27 @@ export function AddMixDialog({
         </p>
       ) : (
         <form onSubmit={submit} noValidate className="space-y-4">
+          {!firstFree && (
+            <p className="text-sm text-ink-700">
+              Every control already does something (a mix, dual rates, a mix&apos;s switch or the cut). Choose one
+              knowing that this mix will move its channel whenever that control moves.
+            </p>
+          )}
           <SelectField
             label="From control"
             value={from}
-            onChange={(event) => setFrom(event.target.value)}
+            error={fromError}
+            onChange={(event) => {
+              setFrom(event.target.value);
+              setFromError(undefined);
+            }}
             data-autofocus
           >
+            {!firstFree && <option value="">Choose a control</option>}
             {controls.map((control) => (
               <option key={control.id} value={control.id}>
                 {control.id}
-                {used.has(control.id) ? ' (already in a mix)' : ' (not used yet)'}
+                {usesText(uses.get(control.id))}
               </option>
             ))}
           </SelectField>

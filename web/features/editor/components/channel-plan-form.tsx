@@ -1,9 +1,10 @@
 import { CHANNEL_ROLES, SIDES, SLUG_PATTERN } from '@shared/format/schema';
 import { Button } from '../../../components/ui/button';
 import { EmptyState } from '../../../components/ui/empty-state';
-import { entriesAt, fieldText, parseWhole, wholeNumber, type FormProps } from '../form-values';
+import { entriesAt, fieldText, wholeNumber, type FormProps } from '../form-values';
 import { CellSelect, CommitField } from './commit-field';
 import { Cell, FormTable, HeaderCell } from './form-table';
+import { NumberField } from './number-field';
 
 const HIGHEST_CHANNEL = 32;
 
@@ -54,16 +55,14 @@ export function ChannelPlanForm({ data, readOnly, onEdits }: FormProps) {
               return (
                 <tr key={index}>
                   <Cell>
-                    <CommitField
+                    <NumberField
                       label={`Channel, ${name}`}
-                      inputMode="numeric"
-                      value={fieldText(entry.ch)}
-                      onCommit={(text) => {
-                        const parsed = parseWhole(text, 1, HIGHEST_CHANNEL, 'A channel');
-                        if (parsed.error !== undefined) return parsed.error;
-                        onEdits([{ kind: 'set', path: ['channels', index, 'ch'], value: parsed.value }]);
-                        return null;
-                      }}
+                      value={entry.ch}
+                      path={['channels', index, 'ch']}
+                      min={1}
+                      max={HIGHEST_CHANNEL}
+                      what="A channel"
+                      onEdits={onEdits}
                     />
                   </Cell>
                   <Cell>

@@ -1,9 +1,10 @@
 import { CONTROL_KINDS, SLUG_PATTERN } from '@shared/format/schema';
 import { Button } from '../../../components/ui/button';
 import { EmptyState } from '../../../components/ui/empty-state';
-import { entriesAt, entryAt, fieldText, parseNumber, parseWhole, wholeNumber, type FormProps } from '../form-values';
+import { entriesAt, entryAt, fieldText, wholeNumber, type FormProps } from '../form-values';
 import { CellSelect, CommitField } from './commit-field';
 import { Cell, FormTable, HeaderCell } from './form-table';
+import { NumberField } from './number-field';
 
 // The link (how many channels the radio carries) and the transmitter's controls, on the
 // same document as the text. A control's id is what mixes, rates and cuts name, so a
@@ -39,36 +40,30 @@ export function ControlsLinkForm({ data, readOnly, onEdits }: FormProps) {
         <div className="flex flex-wrap gap-4">
           <label className="block w-40 text-sm text-ink-900">
             Channels the link carries
-            <CommitField
+            <NumberField
               className="mt-1"
               label="Channels the link carries, 4 to 32"
-              inputMode="numeric"
-              value={fieldText(link?.channels)}
-              onCommit={(text) => {
-                const parsed = parseWhole(text, 4, 32, 'The channel count');
-                if (parsed.error !== undefined) return parsed.error;
-                onEdits([{ kind: 'set', path: ['link', 'channels'], value: parsed.value }]);
-                return null;
-              }}
+              value={link?.channels}
+              path={['link', 'channels']}
+              min={4}
+              max={32}
+              what="The channel count"
+              onEdits={onEdits}
             />
           </label>
           <label className="block w-48 text-sm text-ink-900">
             Packet rate in Hz (optional)
-            <CommitField
+            <NumberField
               className="mt-1"
               label="Packet rate in hertz, optional"
-              inputMode="decimal"
-              value={fieldText(link?.packet_rate_hz)}
-              onCommit={(text) => {
-                if (text === '') {
-                  onEdits([{ kind: 'delete', path: ['link', 'packet_rate_hz'] }]);
-                  return null;
-                }
-                const parsed = parseNumber(text, 1, 10_000, 'The packet rate');
-                if (parsed.error !== undefined) return parsed.error;
-                onEdits([{ kind: 'set', path: ['link', 'packet_rate_hz'], value: parsed.value }]);
-                return null;
-              }}
+              value={link?.packet_rate_hz}
+              path={['link', 'packet_rate_hz']}
+              min={1}
+              max={10_000}
+              what="The packet rate"
+              decimal
+              optional
+              onEdits={onEdits}
             />
           </label>
         </div>

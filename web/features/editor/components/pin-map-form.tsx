@@ -15,9 +15,9 @@ import {
   type Indexed,
 } from '../form-values';
 import { shiftPinChannels } from '../pin-shift';
-import { CommitField } from './commit-field';
 import { FailsafeField } from './failsafe-field';
 import { Cell, FormTable, HeaderCell } from './form-table';
+import { NumberField } from './number-field';
 
 const HIGHEST = 32;
 
@@ -207,29 +207,25 @@ function ReceiverPinMap({ receiverIndex, receiver, functions, readOnly, onEdits 
                         </Cell>
                       )}
                       <Cell>
-                        <CommitField
+                        <NumberField
                           label={`Pin number of ${name}`}
-                          inputMode="numeric"
-                          value={pinText}
-                          onCommit={(text) => {
-                            const parsed = parseWhole(text, 1, HIGHEST, 'A pin');
-                            if (parsed.error !== undefined) return parsed.error;
-                            onEdits([{ kind: 'set', path: [...mapPath, index, 'pin'], value: parsed.value }]);
-                            return null;
-                          }}
+                          value={entry.pin}
+                          path={[...mapPath, index, 'pin']}
+                          min={1}
+                          max={HIGHEST}
+                          what="A pin"
+                          onEdits={onEdits}
                         />
                       </Cell>
                       <Cell>
-                        <CommitField
+                        <NumberField
                           label={`Channel of ${name}`}
-                          inputMode="numeric"
-                          value={fieldText(entry.ch)}
-                          onCommit={(text) => {
-                            const parsed = parseWhole(text, 1, HIGHEST, 'A channel');
-                            if (parsed.error !== undefined) return parsed.error;
-                            onEdits([{ kind: 'set', path: [...mapPath, index, 'ch'], value: parsed.value }]);
-                            return null;
-                          }}
+                          value={entry.ch}
+                          path={[...mapPath, index, 'ch']}
+                          min={1}
+                          max={HIGHEST}
+                          what="A channel"
+                          onEdits={onEdits}
                         />
                       </Cell>
                       <Cell className="pt-3 text-ink-700">

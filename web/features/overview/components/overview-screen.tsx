@@ -13,7 +13,6 @@ import { FindingsList } from '../../findings/components/findings-list';
 import { useModel } from '../../models/api/get-model';
 import { useAddressedRevision } from '../../models/api/use-addressed-revision';
 import { RevisionPicker } from '../../bench/components/revision-picker';
-import { useRevisionThreads } from '../../reviews/api/reviews';
 import type { ChosenSetting } from '../../reviews/components/review-plan';
 import { ThreadsPanel } from '../../reviews/components/threads-panel';
 import { roleAtLeast } from '@shared/contract/roles';
@@ -102,7 +101,6 @@ function Overview({ model, revision }: { model: SetupModelView; revision: Revisi
   const marksUsed = new Set(plan.rows.flatMap((row) => row.marks.map((mark) => mark.kind)));
   const provenance = useProvenance(model.id, revision.id).data;
   const canComment = roleAtLeast(model.role, 'reviewer');
-  const threads = useRevisionThreads(revision.id, 'all');
   const [chosen, setChosen] = useState<ChosenSetting | null>(null);
   const isLatest = revision.id === model.latest?.id;
 
@@ -179,21 +177,12 @@ function Overview({ model, revision }: { model: SetupModelView; revision: Revisi
       </div>
 
       <section aria-label="Comments">
-        {threads.isError ? (
-          <ErrorState
-            title="The comments could not be loaded"
-            error={threads.error}
-            onRetry={() => void threads.refetch()}
-          />
-        ) : (
-          <ThreadsPanel
-            threads={threads.data ?? []}
-            where={{ revisionId: revision.id, workspaceId: model.workspace_id }}
-            canComment={canComment}
-            chosen={chosen}
-            onChosenChange={setChosen}
-          />
-        )}
+        <ThreadsPanel
+          where={{ revisionId: revision.id, workspaceId: model.workspace_id }}
+          canComment={canComment}
+          chosen={chosen}
+          onChosenChange={setChosen}
+        />
       </section>
     </div>
   );

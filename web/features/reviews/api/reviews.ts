@@ -212,6 +212,22 @@ export function useRevisionThreads(revisionId: Id | null | undefined, status: Co
   });
 }
 
+export const THREADS_PAGE_SIZE = 20;
+
+/** The threads shown on a revision with one status, a page at a time, oldest first (the review page, the Overview). */
+export function usePagedThreads(revisionId: Id, status: Exclude<CommentStatus, 'all'>) {
+  return useInfiniteQuery({
+    queryKey: [...revisionThreadsQueryKey(revisionId), status, 'paged'],
+    queryFn: ({ pageParam, signal }) =>
+      getPage<CommentThread>(
+        paths.revisionComments(revisionId, { status, limit: THREADS_PAGE_SIZE, offset: pageParam }),
+        pageParam,
+        signal,
+      ),
+    ...offsetPaging,
+  });
+}
+
 /** Threads change the review (every base), the revision's open threads, and the audit trail. */
 function useRefreshThreads() {
   const queryClient = useQueryClient();

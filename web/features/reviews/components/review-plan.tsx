@@ -4,7 +4,7 @@ import { cx } from '../../../lib/cx';
 import type { PlanStatus } from '@shared/diff/review-plan';
 import { failsafeWords } from '../../bench/failsafe-words';
 import { SettingHistory } from '../../provenance/components/setting-history';
-import type { CommentThread, ReviewPlan } from '../types';
+import type { ReviewPlan } from '../types';
 
 /** A setting the reviewer chose to comment on: its semantic path and how to say it. */
 export interface ChosenSetting {
@@ -106,19 +106,19 @@ function PlanTable({ caption, heads, children }: { caption: string; heads: strin
 export function ReviewPlanView({
   modelId,
   plan,
-  threads,
+  openPaths,
   canComment,
   onChoose,
 }: {
   /** The reviewed model: each changed setting's history is read from it. */
   modelId: string;
   plan: ReviewPlan;
-  threads: readonly CommentThread[];
+  /** The setting path of each open anchored thread, once per thread. */
+  openPaths: readonly string[];
   canComment: boolean;
   onChoose: (setting: ChosenSetting) => void;
 }) {
-  const open = (path: string) =>
-    threads.filter((thread) => !thread.resolved && thread.path !== null && thread.path.startsWith(path)).length;
+  const open = (path: string) => openPaths.filter((anchored) => anchored.startsWith(path)).length;
   const name = (setting: ChosenSetting, label: ReactNode) => (
     <SettingName setting={setting} canComment={canComment} onChoose={onChoose} threads={open(setting.path)}>
       {label}

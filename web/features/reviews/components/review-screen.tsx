@@ -131,7 +131,7 @@ function ReviewPage({
             <ReviewPlanView
               modelId={review.model.id}
               plan={review.plan}
-              threads={review.comments}
+              openPaths={review.threads.open_paths}
               canComment={review.can.comment}
               onChoose={setChosen}
             />
@@ -206,7 +206,6 @@ function ReviewPage({
           </section>
 
           <ThreadsPanel
-            threads={review.comments}
             where={{ reviewId: review.id, revisionId: review.revision.id, workspaceId: review.workspace_id }}
             canComment={review.can.comment}
             chosen={chosen}

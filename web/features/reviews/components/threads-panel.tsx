@@ -2,12 +2,16 @@ import { useEffect, useId, useRef, useState, type FormEvent } from 'react';
 import { Badge } from '../../../components/ui/badge';
 import { Button } from '../../../components/ui/button';
 import { Card } from '../../../components/ui/card';
+import { ErrorState } from '../../../components/ui/error-state';
 import { FormAlert } from '../../../components/ui/form-alert';
+import { ShowMore } from '../../../components/ui/show-more';
 import { TextAreaField } from '../../../components/ui/text-area-field';
+import { cx } from '../../../lib/cx';
 import { formErrorsFrom } from '../../../lib/form-errors';
+import { itemsOf, totalOf } from '../../../lib/paged';
 import type { Id } from '../../../types/api';
 import { TimeAgo } from '../../models/components/time-ago';
-import { useStartThread, useStepThread } from '../api/reviews';
+import { usePagedThreads, useStartThread, useStepThread } from '../api/reviews';
 import { settingWords } from '../setting-words';
 import type { CommentThread } from '../types';
 import type { ChosenSetting } from './review-plan';
@@ -21,17 +25,16 @@ export interface ThreadsWhere {
 /**
  * Comment threads on a revision: each on a setting chosen on the page (or on the whole
  * revision), with replies, resolve and reopen. Threads started on earlier revisions are
- * shown while their setting still exists.
+ * shown while their setting still exists. Open and resolved threads are each read a page
+ * at a time from the revision's comments, so a long-discussed setup stays quick to open.
  */
 export function ThreadsPanel({
-  threads,
   where,
   canComment,
   chosen,
   onChosenChange,
   headingLevel = 2,
 }: {
-  threads: readonly CommentThread[];
   where: ThreadsWhere;
   canComment: boolean;
   chosen: ChosenSetting | null;
@@ -39,8 +42,12 @@ export function ThreadsPanel({
   headingLevel?: 2 | 3;
 }) {
   const [showResolved, setShowResolved] = useState(false);
-  const open = threads.filter((thread) => !thread.resolved);
-  const resolved = threads.filter((thread) => thread.resolved);
+  const openPages = usePagedThreads(where.revisionId, 'open');
+  const resolvedPages = usePagedThreads(where.revisionId, 'resolved');
+  const open = itemsOf(openPages.data?.pages);
+  const resolved = itemsOf(resolvedPages.data?.pages);
+  const openTotal = totalOf(openPages.data?.pages);
+  const resolvedTotal = totalOf(resolvedPages.data?.pages);
   const Heading = headingLevel === 2 ? 'h2' : 'h3';
 
   return (
@@ -49,9 +56,11 @@ export function ThreadsPanel({
         <Heading id="threads-heading" className="text-lg font-semibold text-ink-900">
           Comments
         </Heading>
-        <span className="text-sm text-ink-700">
-          {open.length} open, {resolved.length} resolved
-        </span>
+        {openPages.isSuccess && resolvedPages.isSuccess && (
+          <span className="text-sm text-ink-700">
+            {openTotal} open, {resolvedTotal} resolved
+          </span>
+        )}
       </div>
       <p className="mt-0.5 text-sm text-ink-700">
         {canComment
@@ -59,30 +68,86 @@ export function ThreadsPanel({
           : 'A comment stays on later revisions while its setting exists.'}
       </p>
       {canComment && <NewThreadForm where={where} chosen={chosen} onChosenChange={onChosenChange} />}
-      {open.length === 0 ? (
+      {openPages.isPending ? (
+        <p className="mt-4 text-base text-ink-700">Loading the comments…</p>
+      ) : openPages.isError && open.length === 0 ? (
+        <div className="mt-4">
+          <ErrorState
+            title="The comments could not be loaded"
+            error={openPages.error}
+            onRetry={() => void openPages.refetch()}
+          />
+        </div>
+      ) : open.length === 0 ? (
         <p className="mt-4 text-base text-ink-700">No open comments.</p>
       ) : (
-        <ul className="mt-4 space-y-3" aria-label="Open comments">
-          {open.map((thread) => (
-            <Thread key={thread.id} thread={thread} where={where} canComment={canComment} />
-          ))}
-        </ul>
+        <PagedThreads
+          label="Open comments"
+          noun="open comments"
+          threads={open}
+          pages={openPages}
+          where={where}
+          canComment={canComment}
+          className="mt-4"
+        />
       )}
-      {resolved.length > 0 && (
+      {resolvedTotal > 0 && (
         <div className="mt-4">
           <Button variant="quiet" size="sm" aria-expanded={showResolved} onClick={() => setShowResolved((now) => !now)}>
-            {showResolved ? 'Hide' : 'Show'} {resolved.length} resolved
+            {showResolved ? 'Hide' : 'Show'} {resolvedTotal} resolved
           </Button>
           {showResolved && (
-            <ul className="mt-2 space-y-3" aria-label="Resolved comments">
-              {resolved.map((thread) => (
-                <Thread key={thread.id} thread={thread} where={where} canComment={canComment} />
-              ))}
-            </ul>
+            <PagedThreads
+              label="Resolved comments"
+              noun="resolved comments"
+              threads={resolved}
+              pages={resolvedPages}
+              where={where}
+              canComment={canComment}
+              className="mt-2"
+            />
           )}
         </div>
       )}
     </Card>
+  );
+}
+
+/** One list of threads with how many of how many are shown and the way to the next page. */
+function PagedThreads({
+  label,
+  noun,
+  threads,
+  pages,
+  where,
+  canComment,
+  className,
+}: {
+  label: string;
+  noun: string;
+  threads: readonly CommentThread[];
+  pages: ReturnType<typeof usePagedThreads>;
+  where: ThreadsWhere;
+  canComment: boolean;
+  className: string;
+}) {
+  return (
+    <>
+      <ul className={cx('space-y-3', className)} aria-label={label}>
+        {threads.map((thread) => (
+          <Thread key={thread.id} thread={thread} where={where} canComment={canComment} />
+        ))}
+      </ul>
+      <ShowMore
+        shown={threads.length}
+        total={totalOf(pages.data?.pages)}
+        noun={noun}
+        hasMore={pages.hasNextPage}
+        pending={pages.isFetchingNextPage}
+        error={pages.isFetchNextPageError ? pages.error : undefined}
+        onMore={() => void pages.fetchNextPage()}
+      />
+    </>
   );
 }
 
