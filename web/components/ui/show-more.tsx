@@ -33,3 +33,19 @@ export function ShowMore({ shown, total, noun, hasMore, pending, error, onMore, 
     </div>
   );
 }
+
+/** What a React Query infinite list tells ShowMore: whether more pages follow, the fetch under way, its failure and how to ask. */
+export function nextPageOf(query: {
+  hasNextPage: boolean;
+  isFetchingNextPage: boolean;
+  isFetchNextPageError: boolean;
+  error: unknown;
+  fetchNextPage: () => Promise<unknown>;
+}): Pick<ShowMoreProps, 'hasMore' | 'pending' | 'error' | 'onMore'> {
+  return {
+    hasMore: query.hasNextPage,
+    pending: query.isFetchingNextPage,
+    error: query.isFetchNextPageError ? query.error : undefined,
+    onMore: () => void query.fetchNextPage(),
+  };
+}

@@ -4,7 +4,7 @@ import { EmptyState } from '../../../components/ui/empty-state';
 import { ErrorState } from '../../../components/ui/error-state';
 import { LoadingState } from '../../../components/ui/loading-state';
 import { PageHeader } from '../../../components/ui/page-header';
-import { ShowMore } from '../../../components/ui/show-more';
+import { nextPageOf, ShowMore } from '../../../components/ui/show-more';
 import { TextField } from '../../../components/ui/text-field';
 import { useQueryParams } from '../../../hooks/use-query-params';
 import { useCurrentWorkspace } from '../../workspaces/hooks/use-current-workspace';
@@ -133,15 +133,7 @@ export function HangarScreen() {
               )}
             </>
           )}
-          <ShowMore
-            shown={models.length}
-            total={total}
-            noun="models"
-            hasMore={hangar.hasNextPage}
-            pending={hangar.isFetchingNextPage}
-            error={hangar.isFetchNextPageError ? hangar.error : undefined}
-            onMore={() => void hangar.fetchNextPage()}
-          />
+          <ShowMore shown={models.length} total={total} noun="models" {...nextPageOf(hangar)} />
         </>
       )}
     </>

@@ -2,7 +2,7 @@ import { useState } from 'react';
 import { Link } from 'react-router-dom';
 import type { ProvenanceChange } from '@shared/contract/provenance';
 import { ErrorState } from '../../../components/ui/error-state';
-import { ShowMore } from '../../../components/ui/show-more';
+import { nextPageOf, ShowMore } from '../../../components/ui/show-more';
 import { Spinner } from '../../../components/ui/spinner';
 import { useSettingHistory } from '../api/get-setting-history';
 import { changeText } from '../since';
@@ -49,14 +49,7 @@ function HistoryList({ modelId, path }: { modelId: string; path: string }) {
           </li>
         ))}
       </ol>
-      <ShowMore
-        shown={changes.length}
-        total={total}
-        noun="revisions"
-        hasMore={history.hasNextPage}
-        pending={history.isFetchingNextPage}
-        onMore={() => void history.fetchNextPage()}
-      />
+      <ShowMore shown={changes.length} total={total} noun="revisions" {...nextPageOf(history)} />
     </div>
   );
 }

@@ -12,7 +12,7 @@ import { useModel } from '../../models/api/get-model';
 import { canEdit } from '../../models/permissions';
 import type { SetupModelView } from '../../models/types';
 import { useModelReviews } from '../api/reviews';
-import { ShowMore } from '../../../components/ui/show-more';
+import { nextPageOf, ShowMore } from '../../../components/ui/show-more';
 import { itemsOf, totalOf } from '../../../lib/paged';
 import { RequestReviewDialog } from './request-review-dialog';
 import { ReviewTable } from './review-table';
@@ -101,15 +101,7 @@ export function ModelReviewsScreen() {
       ) : (
         <>
           <ReviewTable reviews={loaded} caption={`Reviews of ${model.data.name}`} showModel={false} />
-          <ShowMore
-            shown={loaded.length}
-            total={totalOf(reviews.data.pages)}
-            noun="reviews"
-            hasMore={reviews.hasNextPage}
-            pending={reviews.isFetchingNextPage}
-            error={reviews.isFetchNextPageError ? reviews.error : null}
-            onMore={() => void reviews.fetchNextPage()}
-          />
+          <ShowMore shown={loaded.length} total={totalOf(reviews.data.pages)} noun="reviews" {...nextPageOf(reviews)} />
         </>
       )}
     </>

@@ -3,7 +3,7 @@ import { EmptyState } from '../../../components/ui/empty-state';
 import { ErrorState } from '../../../components/ui/error-state';
 import { LoadingState } from '../../../components/ui/loading-state';
 import { PageHeader } from '../../../components/ui/page-header';
-import { ShowMore } from '../../../components/ui/show-more';
+import { nextPageOf, ShowMore } from '../../../components/ui/show-more';
 import { itemsOf, totalOf } from '../../../lib/paged';
 import { useSession } from '../../auth/hooks/use-session';
 import { useCurrentWorkspace } from '../../workspaces/hooks/use-current-workspace';
@@ -59,15 +59,7 @@ export function ReviewsScreen() {
             ) : (
               <ReviewTable reviews={openReviews} caption="Open reviews" />
             )}
-            <ShowMore
-              shown={openReviews.length}
-              total={openTotal}
-              noun="open reviews"
-              hasMore={open.hasNextPage}
-              pending={open.isFetchingNextPage}
-              error={open.isFetchNextPageError ? open.error : null}
-              onMore={() => void open.fetchNextPage()}
-            />
+            <ShowMore shown={openReviews.length} total={openTotal} noun="open reviews" {...nextPageOf(open)} />
           </section>
           <section aria-labelledby="past-reviews">
             <div className="mb-3 flex flex-wrap items-baseline gap-x-3">
@@ -81,15 +73,7 @@ export function ReviewsScreen() {
             ) : (
               <ReviewTable reviews={pastReviews} caption="Decided reviews" />
             )}
-            <ShowMore
-              shown={pastReviews.length}
-              total={pastTotal}
-              noun="decided reviews"
-              hasMore={decided.hasNextPage}
-              pending={decided.isFetchingNextPage}
-              error={decided.isFetchNextPageError ? decided.error : null}
-              onMore={() => void decided.fetchNextPage()}
-            />
+            <ShowMore shown={pastReviews.length} total={pastTotal} noun="decided reviews" {...nextPageOf(decided)} />
           </section>
         </div>
       );

@@ -4,7 +4,7 @@ import { Button } from '../../../components/ui/button';
 import { Card } from '../../../components/ui/card';
 import { ErrorState } from '../../../components/ui/error-state';
 import { FormAlert } from '../../../components/ui/form-alert';
-import { ShowMore } from '../../../components/ui/show-more';
+import { nextPageOf, ShowMore } from '../../../components/ui/show-more';
 import { TextAreaField } from '../../../components/ui/text-area-field';
 import { cx } from '../../../lib/cx';
 import { formErrorsFrom } from '../../../lib/form-errors';
@@ -138,15 +138,7 @@ function PagedThreads({
           <Thread key={thread.id} thread={thread} where={where} canComment={canComment} />
         ))}
       </ul>
-      <ShowMore
-        shown={threads.length}
-        total={totalOf(pages.data?.pages)}
-        noun={noun}
-        hasMore={pages.hasNextPage}
-        pending={pages.isFetchingNextPage}
-        error={pages.isFetchNextPageError ? pages.error : undefined}
-        onMore={() => void pages.fetchNextPage()}
-      />
+      <ShowMore shown={threads.length} total={totalOf(pages.data?.pages)} noun={noun} {...nextPageOf(pages)} />
     </>
   );
 }

@@ -5,7 +5,7 @@ import { EmptyState } from '../../../components/ui/empty-state';
 import { ErrorState } from '../../../components/ui/error-state';
 import { LoadingState } from '../../../components/ui/loading-state';
 import { PageHeader } from '../../../components/ui/page-header';
-import { ShowMore } from '../../../components/ui/show-more';
+import { nextPageOf, ShowMore } from '../../../components/ui/show-more';
 import { TextField } from '../../../components/ui/text-field';
 import { useQueryParams } from '../../../hooks/use-query-params';
 import { cx } from '../../../lib/cx';
@@ -133,15 +133,7 @@ export function ShelfScreen() {
       ) : (
         <>
           <ShelfTable units={units} workspaceId={inUrl.id} />
-          <ShowMore
-            shown={units.length}
-            total={total}
-            noun="receivers"
-            hasMore={shelf.hasNextPage}
-            pending={shelf.isFetchingNextPage}
-            error={shelf.isFetchNextPageError ? shelf.error : undefined}
-            onMore={() => void shelf.fetchNextPage()}
-          />
+          <ShowMore shown={units.length} total={total} noun="receivers" {...nextPageOf(shelf)} />
         </>
       )}
     </>

@@ -3,7 +3,7 @@ import { plainText } from '@shared/parse/plain-text';
 import { EmptyState } from '../../../components/ui/empty-state';
 import { ErrorState } from '../../../components/ui/error-state';
 import { LoadingState } from '../../../components/ui/loading-state';
-import { ShowMore } from '../../../components/ui/show-more';
+import { nextPageOf, ShowMore } from '../../../components/ui/show-more';
 import { exactTime } from '../../models/format-time';
 import { TimeAgo } from '../../models/components/time-ago';
 import { useReceiverHistory } from '../api/get-receiver';
@@ -114,10 +114,7 @@ export function UnitHistory({ receiverId }: { receiverId: string }) {
           total={totals.installs + totals.events}
           noun={`entries (${installs.length} of ${totals.installs} stays, ${events.length} of ${totals.events} records)`}
           label="Show older history"
-          hasMore={history.hasNextPage}
-          pending={history.isFetchingNextPage}
-          error={history.isFetchNextPageError ? history.error : null}
-          onMore={() => void history.fetchNextPage()}
+          {...nextPageOf(history)}
         />
       </div>
     </div>

@@ -2,7 +2,7 @@ import { Button } from '../../../components/ui/button';
 import { Card } from '../../../components/ui/card';
 import { ErrorState } from '../../../components/ui/error-state';
 import { LoadingState } from '../../../components/ui/loading-state';
-import { ShowMore } from '../../../components/ui/show-more';
+import { nextPageOf, ShowMore } from '../../../components/ui/show-more';
 import { useToast } from '../../../components/ui/toast';
 import { itemsOf, totalOf } from '../../../lib/paged';
 import type { Id } from '../../../types/api';
@@ -71,15 +71,7 @@ export function PendingInvitations({ workspaceId }: { workspaceId: Id }) {
               </li>
             ))}
           </ul>
-          <ShowMore
-            shown={shown.length}
-            total={total}
-            noun="invitations"
-            hasMore={invitations.hasNextPage}
-            pending={invitations.isFetchingNextPage}
-            error={invitations.isFetchNextPageError ? invitations.error : null}
-            onMore={() => void invitations.fetchNextPage()}
-          />
+          <ShowMore shown={shown.length} total={total} noun="invitations" {...nextPageOf(invitations)} />
         </>
       )}
     </Card>
