@@ -12,7 +12,11 @@ import type { SizeCheck } from './benchmark';
 async function firstPageKilobytes(): Promise<number> {
   const outDir = mkdtempSync(path.join(os.tmpdir(), 'bindery-weight-'));
   try {
-    const code = await runCommand(bin('vite'), ['build', '--outDir', outDir, '--logLevel', 'error'], {});
+    // The service worker's own build logs whatever the log level says; its lines go to
+    // stderr so that `npm run bench -- --json` prints nothing but the JSON on stdout.
+    const code = await runCommand(bin('vite'), ['build', '--outDir', outDir, '--logLevel', 'error'], {
+      stdio: ['ignore', process.stderr, 'inherit'],
+    });
     if (code !== 0) throw new Error(`vite build exited ${code}`);
     const html = readFileSync(path.join(outDir, 'index.html'), 'utf8');
     const scripts = [...html.matchAll(/(?:src|href)="(\/assets\/[^"]+\.js)"/g)].map((match) => match[1]);
