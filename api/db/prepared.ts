@@ -1,0 +1,59 @@
+import { DatabaseError, type Sequelize } from 'sequelize';
+
+// The hottest statements (the session check of every request, a save, a compare's
+// reads) skip Sequelize's query pipeline: on a pooled connection of the same pool they
+// run as named prepared statements, which PostgreSQL plans once per connection and
+// the driver sends without the SQL text. Measured on this machine: 0.13-0.17 ms of
+// CPU per statement against 0.20-0.22 ms for `sequelize.query` with raw rows and
+// 0.25-0.43 ms with model instances (scripts/bench, 3,000 calls each).
+
+/** A statement with a fixed text, prepared once on each connection that runs it. */
+export interface PreparedStatement {
+  name: string;
+  text: string;
+}
+
+interface PooledClient {
+  query(config: { name: string; text: string; values: readonly unknown[] }): Promise<{ rows: unknown[] }>;
+}
+
+interface ConnectionManager {
+  getConnection(options: { type: 'read' | 'write' }): Promise<PooledClient>;
+  releaseConnection(connection: PooledClient): void;
+}
+
+const names = new Map<string, string>();
+
+/**
+ * Names a statement. A name is the driver's key for the prepared plan on every
+ * connection, so one name with two texts would run the wrong one: that is refused.
+ */
+export function preparedStatement(name: string, text: string): PreparedStatement {
+  const known = names.get(name);
+  if (known !== undefined && known !== text) throw new Error(`prepared statement ${name} has two texts`);
+  names.set(name, text);
+  return { name, text };
+}
+
+/**
+ * Runs the statement outside any transaction and answers its rows. Errors come as
+ * Sequelize's own (ConnectionError when no connection can be had, DatabaseError for
+ * what PostgreSQL refused), so the error handler tells an outage (503) from bad input
+ * exactly as it does for every other statement.
+ */
+export async function runPrepared<Row>(
+  sequelize: Sequelize,
+  statement: PreparedStatement,
+  values: readonly unknown[],
+): Promise<Row[]> {
+  const manager = (sequelize as unknown as { connectionManager: ConnectionManager }).connectionManager;
+  const connection = await manager.getConnection({ type: 'write' });
+  try {
+    const result = await connection.query({ name: statement.name, text: statement.text, values });
+    return result.rows as Row[];
+  } catch (error) {
+    throw new DatabaseError(Object.assign(error as Error, { sql: statement.text, parameters: values }));
+  } finally {
+    manager.releaseConnection(connection);
+  }
+}

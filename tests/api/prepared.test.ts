@@ -1,0 +1,34 @@
+import { describe, expect, it } from 'vitest';
+import { DatabaseError } from 'sequelize';
+import { preparedStatement, runPrepared } from '@api/db/prepared';
+import { describeError } from '@api/middleware/error-handler';
+import { useTestApp } from './helpers/test-app';
+
+const harness = useTestApp();
+
+describe('prepared statements', () => {
+  it('answers rows, again and again on the pooled connections that prepared them', async () => {
+    const statement = preparedStatement('test-sum', 'SELECT $1::int + $2::int AS sum');
+    for (let round = 0; round < 15; round += 1) {
+      const rows = await runPrepared<{ sum: number }>(harness.sequelize, statement, [round, 2]);
+      expect(rows).toEqual([{ sum: round + 2 }]);
+    }
+  });
+
+  it('refuses one name with two texts, which would run the plan of the other', () => {
+    preparedStatement('test-twice', 'SELECT 1');
+    expect(preparedStatement('test-twice', 'SELECT 1').text).toBe('SELECT 1');
+    expect(() => preparedStatement('test-twice', 'SELECT 2')).toThrow(/two texts/);
+  });
+
+  it("raises PostgreSQL's refusal as Sequelize's DatabaseError, so bad input is a 400", async () => {
+    const statement = preparedStatement('test-uuid', 'SELECT $1::uuid AS id');
+    const failure = await runPrepared(harness.sequelize, statement, ['not-a-uuid']).catch((error: unknown) => error);
+    expect(failure).toBeInstanceOf(DatabaseError);
+    expect(describeError(failure)).toMatchObject({ status: 400, code: 'invalid-input' });
+    // The connection went back to the pool in good order.
+    expect(await runPrepared(harness.sequelize, statement, ['5d3a2c1e-0000-4000-8000-000000000001'])).toEqual([
+      { id: '5d3a2c1e-0000-4000-8000-000000000001' },
+    ]);
+  });
+});
