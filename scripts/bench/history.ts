@@ -1,6 +1,7 @@
 import { pathToFileURL } from 'node:url';
 import { signSession } from '@api/auth/tokens';
 import { printAsyncBenchmarks, timingOf, type AsyncBenchmark, type AsyncTiming } from './support/async-benchmark';
+import { requestJson } from './support/http-client';
 import { startApiProcess } from './support/api-process';
 import { benchDatabase, closeBenchDatabase } from './support/bench-database';
 import { benchPilot, DEMO_SETUP } from './support/bench-fixtures';
@@ -30,8 +31,8 @@ async function measureHistoryPage(): Promise<AsyncTiming> {
     const latencies: number[] = [];
     for (let page = 0; page < WARM_UP_PAGES + TIMED_PAGES; page += 1) {
       const start = performance.now();
-      const response = await fetch(`${api.url}/api/models/${model.id}/revisions`, { headers });
-      const body = (await response.json()) as { data?: { number: number }[] };
+      const response = await requestJson(`${api.url}/api/models/${model.id}/revisions`, { headers });
+      const body = response.body as { data?: { number: number }[] };
       const elapsed = performance.now() - start;
       if (response.status !== 200 || body.data?.[0]?.number !== REVISIONS)
         throw new Error(`the history page answered ${response.status} starting at ${body.data?.[0]?.number}`);

@@ -3,6 +3,7 @@ import type { Sequelize } from 'sequelize';
 import { signSession } from '@api/auth/tokens';
 import type { User } from '@api/models';
 import { printAsyncBenchmarks, timingOf, type AsyncBenchmark, type AsyncTiming } from './support/async-benchmark';
+import { requestJson } from './support/http-client';
 import { startApiProcess } from './support/api-process';
 import { benchDatabase, closeBenchDatabase } from './support/bench-database';
 import { benchPilot, DEMO_SETUP } from './support/bench-fixtures';
@@ -60,10 +61,9 @@ async function timeOnLongHistory(
     const latencies: number[] = [];
     for (let call = 0; call < WARM_UP + TIMED; call += 1) {
       const start = performance.now();
-      const response = await fetch(`${api.url}${path(modelId)}`, { headers });
-      const body: unknown = await response.json();
+      const { status, body } = await requestJson(`${api.url}${path(modelId)}`, { headers });
       const elapsed = performance.now() - start;
-      check(response.status, body);
+      check(status, body);
       if (call === 0) await sequelize.query('ANALYZE revision_changes');
       if (call >= WARM_UP) latencies.push(elapsed);
     }

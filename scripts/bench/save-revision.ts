@@ -5,6 +5,7 @@ import type { SetupModel } from '@api/models';
 import { printAsyncBenchmarks, timingOf, type AsyncBenchmark, type AsyncTiming } from './support/async-benchmark';
 import { startApiProcess } from './support/api-process';
 import { benchDatabase, closeBenchDatabase } from './support/bench-database';
+import { requestJson } from './support/http-client';
 import { benchPilot, DEMO_SETUP, demoVariant } from './support/bench-fixtures';
 
 // Saving a revision of the demo setup through the HTTP API on loopback, 20 clients at
@@ -14,9 +15,10 @@ import { benchPilot, DEMO_SETUP, demoVariant } from './support/bench-fixtures';
 // The same run with one client shows what a single save costs without queueing.
 // save-floor.ts measures a bare durable INSERT of the same text in the same run.
 
-// About a hundred saves before the timed ones, however many clients: the first saves
-// after a start run code V8 has not compiled yet, and a server in use runs warm.
-const WARM_UP_SAVES = 100;
+// 600 saves before the timed ones, however many clients: the first saves after a start
+// run code V8 has not optimised yet, and a server in use runs warm (with 100 the API
+// still spent about half as much CPU again per timed save as with 1,500).
+const WARM_UP_SAVES = 600;
 const TIMED_SAVES = 50;
 
 async function measureSaves(clients: number): Promise<AsyncTiming> {
@@ -40,8 +42,12 @@ async function measureSaves(clients: number): Promise<AsyncTiming> {
         const base = bases.get(model.id)!;
         const body = JSON.stringify({ base, message: `Bench save ${base}`, yaml: demoVariant(base) });
         const start = performance.now();
-        const response = await fetch(`${api.url}/api/models/${model.id}/revisions`, { method: 'POST', headers, body });
-        const answer = (await response.json()) as { data?: { number: number } };
+        const response = await requestJson(`${api.url}/api/models/${model.id}/revisions`, {
+          method: 'POST',
+          headers,
+          body,
+        });
+        const answer = response.body as { data?: { number: number } };
         const elapsed = performance.now() - start;
         if (response.status !== 201 || !answer.data)
           throw new Error(`a bench save answered ${response.status}: ${JSON.stringify(answer)}`);

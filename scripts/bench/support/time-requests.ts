@@ -1,3 +1,4 @@
+import { requestJson } from './http-client';
 import { timingOf, type AsyncTiming } from './async-benchmark';
 
 export interface TimedGet {
@@ -21,10 +22,9 @@ export async function timeGets(
     await options.before?.(index);
     const { url, check } = requests[index];
     const start = performance.now();
-    const response = await fetch(url, { headers });
-    const body: unknown = await response.json();
+    const { status, body } = await requestJson(url, { headers });
     const elapsed = performance.now() - start;
-    check(response.status, body);
+    check(status, body);
     if (index >= warmUp) latencies.push(elapsed);
   }
   return timingOf(latencies);
