@@ -19,7 +19,9 @@ export const MAP_KEY = 'pin';
  */
 export function listKeyAt(listPath: readonly (string | number)[]): string | undefined {
   const [list, entry, field] = listPath;
-  if (listPath.length === 1 && typeof list === 'string') return LIST_KEYS[list];
+  // Own keys only: `constructor` or `toString` at the top of a document is a list without a key.
+  if (listPath.length === 1 && typeof list === 'string')
+    return Object.hasOwn(LIST_KEYS, list) ? LIST_KEYS[list] : undefined;
   return listPath.length === 3 && list === 'receivers' && typeof entry === 'number' && field === 'map'
     ? MAP_KEY
     : undefined;

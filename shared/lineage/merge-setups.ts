@@ -45,7 +45,7 @@ class Merger {
   }
 
   private conflict(base: Value, ours: Value, theirs: Value, path: string): Value {
-    const choice = this.resolutions[path];
+    const choice = Object.hasOwn(this.resolutions, path) ? this.resolutions[path] : undefined;
     if (choice) return choice === 'ours' ? ours : theirs;
     this.conflicts.push({ path, base: orNull(base), ours: orNull(ours), theirs: orNull(theirs) });
     return ours;
