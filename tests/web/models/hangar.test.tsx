@@ -28,7 +28,7 @@ function hangarModels(): ModelRecord[] {
   ];
 }
 
-// The hangar as the API answers it: searched on the server by name or airframe, by name, a page at a time.
+// The hangar as the API answers it: searched on the server (here by name or airframe), by name, a page at a time.
 function hangarRoute(models: ModelRecord[], workspace = CLUB): Record<string, FakeHandler> {
   return {
     [`GET /api/workspaces/${workspace}/models`]: ({ url }) => {

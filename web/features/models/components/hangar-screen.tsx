@@ -89,7 +89,7 @@ export function HangarScreen() {
               type="search"
               value={query}
               onChange={(event) => update({ q: event.target.value || null })}
-              placeholder="Name or airframe"
+              placeholder="Name, airframe or author"
               className="w-full max-w-sm"
             />
             <p className="pb-2 text-sm text-ink-700" aria-live="polite">
@@ -117,7 +117,8 @@ export function HangarScreen() {
                 </Button>
               }
             >
-              The search looks at each model's name and airframe, across the whole hangar.
+              The search looks at each model's name, airframe and the author of its latest revision, across the whole
+              hangar.
             </EmptyState>
           ) : (
             <>
