@@ -16,6 +16,11 @@ interface Row {
   total: string;
 }
 
+// The model's changes of the setting at $path or of one under it, as isUnder reads it:
+// `receivers[id=wing]` holds `receivers[id=wing].map[pin=1].failsafe`, `mix` holds no `mixes`.
+const CHANGES_AT_OR_UNDER_PATH = `model_id = $model
+       AND (path = $path OR starts_with(path, $path || '.') OR starts_with(path, $path || '['))`;
+
 // The revisions of the model that changed the path or a setting under it, newest first:
 // one row per revision, with the paths it changed and the revision the value came from
 // (the source's when a fork or a merge brought it in unchanged). The page's revision
@@ -25,8 +30,7 @@ const HISTORY_SQL = `
   WITH hits AS MATERIALIZED (
     SELECT number, revision_id, origin_revision_id, path
       FROM revision_changes
-     WHERE model_id = $model
-       AND (path = $path OR starts_with(path, $path || '.') OR starts_with(path, $path || '['))
+     WHERE ${CHANGES_AT_OR_UNDER_PATH}
   ), page AS (
     SELECT DISTINCT number FROM hits ORDER BY number DESC LIMIT $limit OFFSET $offset
   ), c AS (
@@ -63,8 +67,7 @@ export async function historyOf(
   let total = rows[0] ? Number(rows[0].total) : 0;
   if (rows.length === 0 && page.offset > 0) {
     const [count] = await sequelize.query<{ total: string }>(
-      `SELECT count(DISTINCT revision_id) AS total FROM revision_changes
-        WHERE model_id = $model AND (path = $path OR starts_with(path, $path || '.') OR starts_with(path, $path || '['))`,
+      `SELECT count(DISTINCT revision_id) AS total FROM revision_changes WHERE ${CHANGES_AT_OR_UNDER_PATH}`,
       { bind: { model: modelId, path }, type: QueryTypes.SELECT },
     );
     total = Number(count?.total ?? 0);

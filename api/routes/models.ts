@@ -1,5 +1,5 @@
 import { Router } from 'express';
-import { col, fn, Op, type WhereOptions } from 'sequelize';
+import { col, fn, literal, Op, type Sequelize, type WhereOptions } from 'sequelize';
 import { createModel } from '../commands/create-model';
 import { forkModel } from '../commands/fork-model';
 import { setModelArchived } from '../commands/archive-model';
@@ -30,6 +30,23 @@ import {
 
 const escapeLike = (text: string): string => text.replace(/[\\%_]/g, '\\$&');
 
+// The hangar's search: a model's name, its airframe, or the name of the author of its
+// latest revision, so a pilot finds the models a clubmate last changed. The author is
+// looked up for each model the page's index walk reads (its latest revision by the
+// (model_id, number) index, that revision's user by id), never by scanning revisions.
+function hangarSearch(sequelize: Sequelize, q: string): WhereOptions<SetupModel> {
+  const pattern = `%${escapeLike(q)}%`;
+  const latestAuthor = `(SELECT u.name FROM revisions r LEFT JOIN users u ON u.id = r.author_id
+      WHERE r.model_id = "SetupModel"."id" ORDER BY r.number DESC LIMIT 1)`;
+  return {
+    [Op.or]: [
+      { name: { [Op.iLike]: pattern } },
+      { airframe: { [Op.iLike]: pattern } },
+      literal(`${latestAuthor} ILIKE ${sequelize.escape(pattern)}`),
+    ],
+  };
+}
+
 /** The model's name for a setup uploaded without one: the setup's own name, else the file's. */
 function nameForUpload(data: unknown, fileName: string): string {
   const own = (data as { model?: { name?: unknown } } | null)?.model?.name;
@@ -54,10 +71,7 @@ export function modelsRouter({ sequelize, config }: AppContext): Router {
     const { workspace, role } = await authorizeWorkspace(req, req.params.ws, modelPolicy, 'read');
     const cursor = after ? await afterRow(sequelize, 'models', workspace.id, after) : null;
     const matching: WhereOptions<SetupModel> = { workspaceId: workspace.id };
-    if (q) {
-      const pattern = `%${escapeLike(q)}%`;
-      Object.assign(matching, { [Op.or]: [{ name: { [Op.iLike]: pattern } }, { airframe: { [Op.iLike]: pattern } }] });
-    }
+    if (q) Object.assign(matching, hangarSearch(sequelize, q));
     const archivedOnly = { ...matching, archivedAt: { [Op.ne]: null } };
     const where =
       archived === 'include' ? matching : archived === 'only' ? archivedOnly : { ...matching, archivedAt: null };

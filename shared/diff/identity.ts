@@ -12,6 +12,21 @@ export const LIST_KEYS: Readonly<Record<string, string>> = {
 };
 export const MAP_KEY = 'pin';
 
+/**
+ * The identity key of the list at `listPath` (keys, and list entries by their
+ * position): a top-level list's from LIST_KEYS, `pin` for a receiver's pin map, and
+ * undefined for any other list, whose entries are matched by position.
+ */
+export function listKeyAt(listPath: readonly (string | number)[]): string | undefined {
+  const [list, entry, field] = listPath;
+  // Own keys only: `constructor` or `toString` at the top of a document is a list without a key.
+  if (listPath.length === 1 && typeof list === 'string')
+    return Object.hasOwn(LIST_KEYS, list) ? LIST_KEYS[list] : undefined;
+  return listPath.length === 3 && list === 'receivers' && typeof entry === 'number' && field === 'map'
+    ? MAP_KEY
+    : undefined;
+}
+
 /** The fields of an identity key: one, or several for a composite key such as `rule,path`. */
 export const keyFields = (key: string): string[] => key.split(',');
 

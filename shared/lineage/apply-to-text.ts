@@ -1,17 +1,11 @@
 import { parse, parseDocument } from 'yaml';
 import { applyEdits, UnreadableTextError, type DocumentEdit, type YamlPath } from '../edit/document-edits';
-import { LIST_KEYS, MAP_KEY, matchList } from '../diff/identity';
+import { listKeyAt, matchList } from '../diff/identity';
 import { deepEqual, isPlainObject } from '../diff/plain';
-
-// The nested identity key of the list at `key` under `path`, as the merge pairs entries.
-function listKeyAt(path: YamlPath, key: string): string | undefined {
-  if (path.length === 0) return LIST_KEYS[key];
-  return path.length === 2 && path[0] === 'receivers' && key === 'map' ? MAP_KEY : undefined;
-}
 
 // The edits that turn `before` (the value at `path`) into `after`, in the order they
 // are to be applied: list indexes name the list as the earlier edits have left it.
-function editsBetween(path: YamlPath, before: unknown, after: unknown, listKey: string | undefined): DocumentEdit[] {
+function editsBetween(path: YamlPath, before: unknown, after: unknown): DocumentEdit[] {
   if (deepEqual(before, after)) return [];
   if (isPlainObject(before) && isPlainObject(after)) {
     const edits: DocumentEdit[] = Object.keys(before)
@@ -19,11 +13,11 @@ function editsBetween(path: YamlPath, before: unknown, after: unknown, listKey: 
       .map((key) => ({ kind: 'delete', path: [...path, key] }));
     for (const [key, value] of Object.entries(after)) {
       if (!Object.hasOwn(before, key)) edits.push({ kind: 'set', path: [...path, key], value });
-      else edits.push(...editsBetween([...path, key], before[key], value, listKeyAt(path, key)));
+      else edits.push(...editsBetween([...path, key], before[key], value));
     }
     return edits;
   }
-  if (Array.isArray(before) && Array.isArray(after)) return listEdits(path, before, after, listKey);
+  if (Array.isArray(before) && Array.isArray(after)) return listEdits(path, before, after);
   return [{ kind: 'set', path, value: after }];
 }
 
@@ -50,11 +44,13 @@ function staying(paired: readonly (number | undefined)[]): Set<number> {
   return run;
 }
 
-// A list is edited entry by entry: entries are paired by identity key (by position in a
-// list without one), so a changed entry keeps its own line and comment, a removed one
-// loses its line and a new one gets a line of its own where the merge put it. An entry
-// that changed places (rare: the merge keeps the fork's order) is written anew where it now is.
-function listEdits(path: YamlPath, before: unknown[], after: unknown[], listKey: string | undefined): DocumentEdit[] {
+// A list is edited entry by entry: entries are paired by identity key as the merge pairs
+// them (by position in a list without one), so a changed entry keeps its own line and
+// comment, a removed one loses its line and a new one gets a line of its own where the
+// merge put it. An entry that changed places (rare: the merge keeps the fork's order) is
+// written anew where it now is.
+function listEdits(path: YamlPath, before: unknown[], after: unknown[]): DocumentEdit[] {
+  const listKey = listKeyAt(path);
   const pairs = listKey
     ? matchList(before, after, listKey, new WeakMap(), 'e').rightToLeft
     : new Map(after.slice(0, before.length).map((_, index) => [index, index]));
@@ -67,7 +63,7 @@ function listEdits(path: YamlPath, before: unknown[], after: unknown[], listKey:
   after.forEach((value, j) => {
     const i = paired[j];
     if (i === undefined || !stay.has(j)) edits.push({ kind: 'insert', path: [...path, j], value });
-    else edits.push(...editsBetween([...path, j], before[i], value, undefined));
+    else edits.push(...editsBetween([...path, j], before[i], value));
   });
   return edits;
 }
@@ -82,7 +78,7 @@ function listEdits(path: YamlPath, before: unknown[], after: unknown[], listKey:
 export function applyToText(text: string, before: unknown, after: unknown): string {
   if (isPlainObject(before) && isPlainObject(after)) {
     try {
-      const written = applyEdits(text, editsBetween([], before, after, undefined));
+      const written = applyEdits(text, editsBetween([], before, after));
       if (deepEqual(parse(written), after)) return written;
     } catch (error) {
       if (!(error instanceof UnreadableTextError)) throw error;

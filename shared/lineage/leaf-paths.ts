@@ -1,4 +1,4 @@
-import { LIST_KEYS, MAP_KEY, segments } from '../diff/identity';
+import { listKeyAt, segments } from '../diff/identity';
 import { isPlainObject, stableStringify } from '../diff/plain';
 
 /**
@@ -11,10 +11,12 @@ import { isPlainObject, stableStringify } from '../diff/plain';
  */
 export function leafValues(data: unknown): Map<string, string> {
   const leaves = new Map<string, string>();
-  const walk = (value: unknown, path: string, listKey: string | undefined): void => {
+  // `at` is the value's place as keys and list positions, which tells a list's identity key.
+  const walk = (value: unknown, path: string, at: readonly (string | number)[]): void => {
+    const listKey = Array.isArray(value) ? listKeyAt(at) : undefined;
     if (Array.isArray(value) && listKey) {
       const names = segments(value, listKey).segments;
-      value.forEach((item, index) => walk(item, `${path}${names[index]}`, undefined));
+      value.forEach((item, index) => walk(item, `${path}${names[index]}`, [...at, index]));
       return;
     }
     if (isPlainObject(value)) {
@@ -22,16 +24,13 @@ export function leafValues(data: unknown): Map<string, string> {
       // An empty object still says something (`rates: {}`): it is a leaf of its own.
       if (keys.length === 0 && path) leaves.set(path, '{}');
       for (const key of keys) {
-        const child = path ? `${path}.${key}` : key;
-        const nestedKey =
-          path === '' ? LIST_KEYS[key] : key === 'map' && /^receivers\[[^\]]*\]$/.test(path) ? MAP_KEY : undefined;
-        walk(value[key], child, nestedKey);
+        walk(value[key], path ? `${path}.${key}` : key, [...at, key]);
       }
       return;
     }
     if (path) leaves.set(path, stableStringify(value ?? null));
   };
-  walk(data, '', undefined);
+  walk(data, '', []);
   return leaves;
 }
 

@@ -1,4 +1,4 @@
-import { LIST_KEYS, MAP_KEY, matchList, segments } from '../diff/identity';
+import { listKeyAt, matchList, segments } from '../diff/identity';
 import { deepEqual, isPlainObject, setOwn, type PlainObject } from '../diff/plain';
 
 export type MergeSide = 'ours' | 'theirs';
@@ -29,34 +29,41 @@ class Merger {
 
   constructor(private readonly resolutions: Readonly<Record<string, MergeSide>>) {}
 
-  value(base: Value, ours: Value, theirs: Value, path: string, listKey: string | undefined): Value {
+  // `path` names the value by identity; `place` is where it is as keys and list positions
+  // (ours' where ours has the entry), which tells a list's identity key.
+  value(base: Value, ours: Value, theirs: Value, path: string, place: readonly (string | number)[]): Value {
     if (same(ours, theirs)) return ours;
     if (same(base, ours)) return theirs;
     if (same(base, theirs)) return ours;
     const baseOrEmpty = (empty: unknown) => (base === ABSENT ? empty : base);
     if (isPlainObject(ours) && isPlainObject(theirs) && isPlainObject(baseOrEmpty({})))
-      return this.object(baseOrEmpty({}) as PlainObject, ours, theirs, path);
+      return this.object(baseOrEmpty({}) as PlainObject, ours, theirs, path, place);
+    const listKey = listKeyAt(place);
     if (listKey && Array.isArray(ours) && Array.isArray(theirs) && Array.isArray(baseOrEmpty([])))
-      return this.list(baseOrEmpty([]) as unknown[], ours, theirs, path, listKey);
+      return this.list(baseOrEmpty([]) as unknown[], ours, theirs, path, place, listKey);
     return this.conflict(base, ours, theirs, path);
   }
 
   private conflict(base: Value, ours: Value, theirs: Value, path: string): Value {
-    const choice = this.resolutions[path];
+    const choice = Object.hasOwn(this.resolutions, path) ? this.resolutions[path] : undefined;
     if (choice) return choice === 'ours' ? ours : theirs;
     this.conflicts.push({ path, base: orNull(base), ours: orNull(ours), theirs: orNull(theirs) });
     return ours;
   }
 
-  private object(base: PlainObject, ours: PlainObject, theirs: PlainObject, path: string): PlainObject {
+  private object(
+    base: PlainObject,
+    ours: PlainObject,
+    theirs: PlainObject,
+    path: string,
+    place: readonly (string | number)[],
+  ): PlainObject {
     const keys = [...Object.keys(ours), ...Object.keys(theirs).filter((key) => !Object.hasOwn(ours, key))];
     const merged: PlainObject = {};
     for (const key of keys) {
       const at = (side: PlainObject): Value => (Object.hasOwn(side, key) ? side[key] : ABSENT);
       const child = path ? `${path}.${key}` : key;
-      const nested =
-        path === '' ? LIST_KEYS[key] : key === 'map' && /^receivers\[[^\]]*\]$/.test(path) ? MAP_KEY : undefined;
-      const value = this.value(at(base), at(ours), at(theirs), child, nested);
+      const value = this.value(at(base), at(ours), at(theirs), child, [...place, key]);
       if (value !== ABSENT) setOwn(merged, key, value);
     }
     return merged;
@@ -65,7 +72,14 @@ class Merger {
   // Entries are matched with the base by identity key (renames included: an entry
   // whose key alone changed is the same entry), merged one by one, and kept in ours'
   // order; entries only theirs has go after the entry they follow in theirs.
-  private list(base: unknown[], ours: unknown[], theirs: unknown[], path: string, key: string): unknown[] {
+  private list(
+    base: unknown[],
+    ours: unknown[],
+    theirs: unknown[],
+    path: string,
+    place: readonly (string | number)[],
+    key: string,
+  ): unknown[] {
     const oursMatch = matchList(base, ours, key, new WeakMap(), 'o');
     const theirsMatch = matchList(base, theirs, key, new WeakMap(), 't');
     const baseNames = segments(base, key).segments;
@@ -106,15 +120,14 @@ class Merger {
     const results = new Map<Entity, Value>();
     for (const entity of entities) {
       const pick = (list: unknown[], index: number | undefined): Value => (index === undefined ? ABSENT : list[index]);
+      // Every entity is on one side at least.
+      const position = entity.ours ?? entity.theirs ?? entity.base!;
       results.set(
         entity,
-        this.value(
-          pick(base, entity.base),
-          pick(ours, entity.ours),
-          pick(theirs, entity.theirs),
-          entity.path,
-          undefined,
-        ),
+        this.value(pick(base, entity.base), pick(ours, entity.ours), pick(theirs, entity.theirs), entity.path, [
+          ...place,
+          position,
+        ]),
       );
     }
     const order: Entity[] = ours.map((_, j) => oursEntity.get(j)!);
@@ -149,6 +162,6 @@ export function mergeSetups(
   resolutions: Readonly<Record<string, MergeSide>> = {},
 ): MergeResult {
   const merger = new Merger(resolutions);
-  const data = merger.value(base ?? ABSENT, ours ?? ABSENT, theirs ?? ABSENT, '', undefined);
+  const data = merger.value(base ?? ABSENT, ours ?? ABSENT, theirs ?? ABSENT, '', []);
   return { data: data === ABSENT ? null : data, conflicts: merger.conflicts };
 }

@@ -2,25 +2,18 @@
 // e.g. `receivers[id=wing].map[pin=3].failsafe`, so they stay meaningful when lists are
 // reordered. Entries without a usable identity fall back to their index: `mixes[4]`.
 
+import { keyFields, listKeyAt } from '../diff/identity';
+
 export type DataPath = readonly (string | number)[];
 
 export type PathStep = { key: string } | { index: number } | { match: string; value: string };
 
 const PLAIN_KEY = /^[A-Za-z0-9_-]+$/;
-const ROOT_LISTS: Record<string, string> = { controls: 'id', channels: 'ch', mixes: 'id', receivers: 'id' };
 
-/** The identity key of the list at `listPath`, if that list has one. */
+/** The identity key of the list at `listPath`, if that list has one of a single field (`[id=wing]`). */
 export function identityKeyOf(listPath: DataPath): string | null {
-  if (listPath.length === 1 && typeof listPath[0] === 'string') return ROOT_LISTS[listPath[0]] ?? null;
-  if (
-    listPath.length === 3 &&
-    listPath[0] === 'receivers' &&
-    typeof listPath[1] === 'number' &&
-    listPath[2] === 'map'
-  ) {
-    return 'pin';
-  }
-  return null;
+  const key = listKeyAt(listPath);
+  return key !== undefined && keyFields(key).length === 1 ? key : null;
 }
 
 function usableIdentity(value: unknown): string | null {

@@ -90,6 +90,29 @@ describe.each([
   });
 });
 
+it('finds the models a clubmate last changed by that clubmate’s name, far down the hangar too', async () => {
+  // Hangar 118 was last saved by the owner; Hangar 121 by the owner first, then by the editor.
+  await t.sequelize.query(
+    `INSERT INTO revisions (model_id, number, parent_id, author_id, yaml_text, document, content_hash)
+     SELECT m.id, 1, NULL, $ownerId, 'model: {}', '{}', md5(m.name) || md5(m.name)
+       FROM models m WHERE m.workspace_id = $workspaceId AND m.name IN ('Hangar 118', 'Hangar 121')`,
+    { bind: { workspaceId: roles.workspace.id, ownerId: roles.members.owner.id } },
+  );
+  await t.sequelize.query(
+    `INSERT INTO revisions (model_id, number, parent_id, author_id, yaml_text, document, content_hash)
+     SELECT r.model_id, 2, r.id, $editorId, 'model: {}', '{}', md5(r.id::text) || md5(r.id::text)
+       FROM revisions r JOIN models m ON m.id = r.model_id
+      WHERE m.workspace_id = $workspaceId AND m.name = 'Hangar 121'`,
+    { bind: { workspaceId: roles.workspace.id, editorId: roles.members.editor.id } },
+  );
+  const byOwner = await pageOf('models', `limit=50&q=${encodeURIComponent(roles.members.owner.name.toUpperCase())}`);
+  expect(namesOf(byOwner)).toEqual(['Hangar 118']);
+  expect(byOwner.pagination).toMatchObject({ total: 1, next_after: null });
+  // The models the editor created but never saved are not theirs by this search.
+  expect(namesOf(await pageOf('models', `q=${encodeURIComponent(roles.members.editor.name)}`))).toEqual(['Hangar 121']);
+  expect(namesOf(await pageOf('models', 'q=the%20'))).toEqual(['Hangar 118', 'Hangar 121']);
+});
+
 it('finds a unit far down the shelf by the short code on its label', async () => {
   const [unit] = await t.sequelize.query<{ short_code: string }>(
     `SELECT short_code FROM receivers WHERE workspace_id = $id AND label = 'Shelf unit 127'`,

@@ -189,6 +189,28 @@ describe('mergeSetups', () => {
   });
 });
 
+describe('a top-level list named like a property every object has', () => {
+  // Such a key has no identity key of its own, so its entries go by position. The
+  // three threw on `constructor` before, and the merge read an Object method as a
+  // resolution of the path `constructor`.
+  const base = { constructor: [{ weight: 10 }], toString: [1] };
+  const ours = { constructor: [{ weight: 20 }], toString: [1] };
+  const theirs = { constructor: [{ weight: 10 }, { weight: 30 }], toString: [1, 2] };
+
+  it('is one leaf, merged and written back like any list without an identity key', () => {
+    expect(leaves(base)).toEqual({ constructor: '[{"weight":10}]', toString: '[1]' });
+    expect(mergeSetups(base, ours, theirs).conflicts.map((conflict) => conflict.path)).toEqual(['constructor']);
+    expect(mergeSetups(base, ours, theirs, { constructor: 'ours' as const }).data).toEqual({
+      constructor: ours.constructor,
+      toString: theirs.toString,
+    });
+    const text = 'constructor:\n  - weight: 10 # first\ntoString: [1]\n';
+    const written = applyToText(text, base, theirs);
+    expect(parse(written)).toEqual(theirs);
+    expect(written).toContain('weight: 10 # first');
+  });
+});
+
 // A line-diff of two texts: the lines only `before` has and the lines only `after` has.
 function changedLines(before: string, after: string): { removed: string[]; added: string[] } {
   const removed: string[] = [];

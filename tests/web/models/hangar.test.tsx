@@ -1,4 +1,4 @@
-import { screen, waitFor, within } from '@testing-library/react';
+import { act, fireEvent, screen, waitFor, within } from '@testing-library/react';
 import { BUILDERS, CLUB, fakeServer, keysetPage, sessionRoutes, type FakeHandler } from '../fake-server';
 import { analyzeSetup } from '@shared/analyze';
 import { renderApp } from '../render-app';
@@ -28,7 +28,7 @@ function hangarModels(): ModelRecord[] {
   ];
 }
 
-// The hangar as the API answers it: searched on the server by name or airframe, by name, a page at a time.
+// The hangar as the API answers it: searched on the server (here by name or airframe), by name, a page at a time.
 function hangarRoute(models: ModelRecord[], workspace = CLUB): Record<string, FakeHandler> {
   return {
     [`GET /api/workspaces/${workspace}/models`]: ({ url }) => {
@@ -234,5 +234,69 @@ describe('A hangar longer than a page', () => {
     expect(screen.getByText('1 model matches')).toBeInTheDocument();
     expect(screen.queryByRole('button', { name: 'Show more' })).not.toBeInTheDocument();
     expect(askedOf(server).at(-1)?.get('q')).toBe('fleet 117');
+  });
+});
+
+describe('Show archived models', () => {
+  // Two models in use and one archived: the server lists the archived one only when
+  // asked, and says how many archived models there are either way.
+  function archiveRoute(): Record<string, FakeHandler> {
+    const yaml = fixtureText('valid/trainer-single-receiver.yaml');
+    const inUse = [modelRecord('Heron 2', [yaml]), modelRecord('Wren Trainer', [yaml])];
+    const archived = modelRecord('Old trainer', [yaml]);
+    return {
+      [`GET /api/workspaces/${CLUB}/models`]: ({ url }) => {
+        const listed = url.searchParams.get('archived') === 'include' ? [...inUse, archived] : inUse;
+        const { body } = keysetPage(listed.map(modelView), url) as {
+          body: { data: unknown[]; pagination: Record<string, unknown> };
+        };
+        return { body: { ...body, pagination: { ...body.pagination, archived: 1 } } };
+      },
+    };
+  }
+  const box = () => screen.getByRole('checkbox', { name: 'Show archived models (1)' });
+  // A click as the browser has it: outside act(), which would run the router's
+  // transition along with the click, so the box is read before the address has caught up.
+  const clickNow = (element: HTMLElement) => {
+    const scope = globalThis as { IS_REACT_ACT_ENVIRONMENT?: boolean };
+    const before = scope.IS_REACT_ACT_ENVIRONMENT;
+    scope.IS_REACT_ACT_ENVIRONMENT = false;
+    try {
+      element.click();
+    } finally {
+      scope.IS_REACT_ACT_ENVIRONMENT = before;
+    }
+  };
+
+  it('shows the box ticked the moment it is clicked, before the address catches up, and unticked the same way', async () => {
+    fakeServer({ ...sessionRoutes({ signedIn: true }).routes, ...archiveRoute() });
+    const { location } = renderApp(`/w/${CLUB}/hangar`);
+    await screen.findByRole('table');
+    expect(modelNames()).toEqual(['Heron 2', 'Wren Trainer']);
+
+    clickNow(box());
+    expect(box()).toBeChecked();
+    expect(screen.queryByRole('link', { name: 'Old trainer' })).not.toBeInTheDocument();
+    await waitFor(() => expect(modelNames()).toEqual(['Heron 2', 'Old trainer', 'Wren Trainer']));
+    expect(location().search).toBe('?archived=show');
+    expect(box()).toBeChecked();
+
+    clickNow(box());
+    expect(box()).not.toBeChecked();
+    await waitFor(() => expect(modelNames()).toEqual(['Heron 2', 'Wren Trainer']));
+    expect(location().search).toBe('');
+  });
+
+  it('follows the address when it changes otherwise', async () => {
+    fakeServer({ ...sessionRoutes({ signedIn: true }).routes, ...archiveRoute() });
+    const { router } = renderApp(`/w/${CLUB}/hangar?archived=show`);
+    await screen.findByRole('table');
+    expect(box()).toBeChecked();
+
+    fireEvent.click(box());
+    await waitFor(() => expect(router.state.location.search).toBe(''));
+    await act(() => router.navigate(`/w/${CLUB}/hangar?archived=show`));
+    expect(box()).toBeChecked();
+    await waitFor(() => expect(modelNames()).toContain('Old trainer'));
   });
 });

@@ -17,7 +17,7 @@ export const HANGAR_PAGE_SIZE = 50;
 export const PICKER_SIZE = 50;
 
 export interface HangarFilter {
-  /** Text the name or airframe contains, in any case. */
+  /** Text the name, the airframe or the latest author's name contains, in any case. */
   q?: string;
   /** Archived models too. */
   withArchived?: boolean;

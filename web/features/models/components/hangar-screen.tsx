@@ -6,6 +6,7 @@ import { LoadingState } from '../../../components/ui/loading-state';
 import { PageHeader } from '../../../components/ui/page-header';
 import { nextPageOf, ShowMore } from '../../../components/ui/show-more';
 import { TextField } from '../../../components/ui/text-field';
+import { useFollowingState } from '../../../hooks/use-following-state';
 import { useQueryParams } from '../../../hooks/use-query-params';
 import { useCurrentWorkspace } from '../../workspaces/hooks/use-current-workspace';
 import { hangarOf, useHangar } from '../api/list-models';
@@ -28,6 +29,7 @@ export function HangarScreen() {
   const [params, update] = useQueryParams();
   const [creating, setCreating] = useState(false);
   const withArchived = params.get('archived') === 'show';
+  const [archivedTicked, tickArchived] = useFollowingState(withArchived);
   const query = params.get('q') ?? '';
   // The server searches the whole hangar; the request follows the typing a beat behind.
   const deferredQuery = useDeferredValue(query.trim());
@@ -89,7 +91,7 @@ export function HangarScreen() {
               type="search"
               value={query}
               onChange={(event) => update({ q: event.target.value || null })}
-              placeholder="Name or airframe"
+              placeholder="Name, airframe or author"
               className="w-full max-w-sm"
             />
             <p className="pb-2 text-sm text-ink-700" aria-live="polite">
@@ -101,8 +103,11 @@ export function HangarScreen() {
                 <input
                   type="checkbox"
                   className="size-4 accent-accent-700"
-                  checked={withArchived}
-                  onChange={(event) => update({ archived: event.target.checked ? 'show' : null })}
+                  checked={archivedTicked}
+                  onChange={(event) => {
+                    tickArchived(event.target.checked);
+                    update({ archived: event.target.checked ? 'show' : null });
+                  }}
                 />
                 Show archived models ({archived})
               </label>
@@ -117,7 +122,8 @@ export function HangarScreen() {
                 </Button>
               }
             >
-              The search looks at each model's name and airframe, across the whole hangar.
+              The search looks at each model's name, airframe and the author of its latest revision, across the whole
+              hangar.
             </EmptyState>
           ) : (
             <>

@@ -41,7 +41,7 @@ export function ModelPicker({
         type="search"
         value={typed}
         onChange={(event) => setTyped(event.target.value)}
-        placeholder="Name or airframe"
+        placeholder="Name, airframe or author"
         hint={
           matches.data && total > found.length
             ? `The list shows ${found.length} of ${total} matches; type more to narrow it.`
