@@ -34,18 +34,24 @@ export async function loadMembership(
 /**
  * The same read as part of a statement that loads the record itself, where a second
  * round trip would slow a hot path (a model on every save): joins the caller's
- * membership of the workspace named by `workspaceColumn`, binding `$callerId`, and
- * selects its role as `caller_role` (null for a non-member). Read it with `callerRole`.
+ * membership of the workspace named by `workspaceColumn`, binding the caller's id as
+ * `callerParameter` (`$callerId` for Sequelize's named binds, `$3` in a prepared
+ * statement), and selects its role as `caller_role` (null for a non-member). Read it
+ * with `callerRole`.
  */
-export function callerMembershipJoin(workspaceColumn: string): { select: string; join: string } {
+export function callerMembershipJoin(
+  workspaceColumn: string,
+  callerParameter = '$callerId',
+): { select: string; join: string } {
   return {
     select: 'caller.role AS caller_role',
-    join: `LEFT JOIN memberships caller ON caller.workspace_id = ${workspaceColumn} AND caller.user_id = $callerId`,
+    join: `LEFT JOIN memberships caller ON caller.workspace_id = ${workspaceColumn} AND caller.user_id = ${callerParameter}`,
   };
 }
 
-export function callerRole(row: { get(key: string): unknown } | undefined): Role | null {
-  const role = row?.get('caller_role');
+/** The role `callerMembershipJoin` selected, from a model instance or a raw row. */
+export function callerRole(row: { get(key: string): unknown } | { caller_role: unknown } | undefined): Role | null {
+  const role = row && ('get' in row ? row.get('caller_role') : row.caller_role);
   return isRole(role) ? role : null;
 }
 

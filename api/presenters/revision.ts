@@ -7,13 +7,33 @@ import type {
 } from '@shared/contract/model';
 import type { Revision, User } from '../models';
 
-export function presentAuthor(user: User | null | undefined): Author | null {
+export function presentAuthor(user: Pick<User, 'id' | 'name'> | null | undefined): Author | null {
   return user ? { id: user.id, name: user.name } : null;
 }
 
+/**
+ * What a summary is made of: a Revision instance, or a row read under the same
+ * attribute names (the compare reads its sides without Sequelize's models).
+ */
+export type RevisionSummaryFields = Pick<
+  Revision,
+  | 'id'
+  | 'modelId'
+  | 'number'
+  | 'parentId'
+  | 'message'
+  | 'contentHash'
+  | 'errorCount'
+  | 'warningCount'
+  | 'infoCount'
+  | 'origin'
+  | 'sourceRevisionId'
+  | 'createdAt'
+> & { author?: Pick<User, 'id' | 'name'> | null; tags?: readonly { name: string }[] };
+
 /** A revision without its text and document: for history lists and answers to saves. */
 export function presentRevisionSummary(
-  revision: Revision,
+  revision: RevisionSummaryFields,
   tags: readonly string[] = revision.tags?.map((tag) => tag.name) ?? [],
 ): RevisionSummary {
   return {

@@ -95,6 +95,26 @@ export async function authorizeRevision(
   return { ...loaded, role: enforce(modelPolicy(loaded.role, action), loaded.role, revisionNotFound) };
 }
 
+/**
+ * Two revisions read in one statement (a compare's sides, api/queries/compare-sides.ts),
+ * each decided exactly as `authorizeRevision` decides one: a bad id, a missing revision
+ * and one the caller may not see all answer the same 404, the "from" side first.
+ */
+export async function authorizeRevisionPair<Side extends { role: Role | null }>(
+  req: Request,
+  revisionIds: readonly [unknown, unknown],
+  action: ModelAction,
+  load: (callerId: string, ids: readonly [string, string]) => Promise<[Side | undefined, Side | undefined]>,
+): Promise<[Side & { role: Role }, Side & { role: Role }]> {
+  const ids = [idOrNotFound(revisionIds[0], revisionNotFound), idOrNotFound(revisionIds[1], revisionNotFound)] as const;
+  const grant = (side: Side | undefined): Side & { role: Role } => {
+    if (!side) throw revisionNotFound();
+    return { ...side, role: enforce(modelPolicy(side.role, action), side.role, revisionNotFound) };
+  };
+  const [from, to] = await load(currentUser(req).id, ids);
+  return [grant(from), grant(to)];
+}
+
 export async function authorizeReceiver(
   req: Request,
   receiverId: unknown,

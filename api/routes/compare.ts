@@ -3,14 +3,11 @@ import { findingsDelta, textDiff } from '@shared/diff';
 import type { AppContext } from '../context';
 import { authenticate } from '../middleware/authenticate';
 import { CHANGE_CHECKS } from '@shared/diff/change-findings';
-import { applyClubRules, type ClubRules } from '@shared/rules/club-rules';
-import { Revision, User } from '../models';
-import { rulesOf } from '../models/ClubRules';
-import type { RevisionAccess } from '../access/records';
-import { authorizeRevision } from './authorize';
+import { applyClubRules, DEFAULT_CLUB_RULES, type ClubRules } from '@shared/rules/club-rules';
+import { authorizeRevisionPair } from './authorize';
 import { presentRevisionSummary } from '../presenters/revision';
-import { contentComparisonJson } from '../queries/compare-cache';
-import { tagsByRevision } from '../queries/model-views';
+import { computeAndCacheComparison } from '../queries/compare-cache';
+import { documentsOf, loadCompareSides, loadTextSides, type CompareSide } from '../queries/compare-sides';
 import { parseInput } from '../validation';
 import { compareQuery } from './model-inputs';
 
@@ -28,15 +25,6 @@ function withClubRules(content: string, rules: Pick<ClubRules, 'severities'>): s
   return JSON.stringify(parsed);
 }
 
-async function documentsOf(from: Revision, to: Revision): Promise<[unknown, unknown]> {
-  const rows = await Revision.findAll({
-    where: { id: [...new Set([from.id, to.id])] },
-    attributes: ['id', 'document'],
-  });
-  const documentOf = (id: string) => rows.find((row) => row.id === id)!.document;
-  return [documentOf(from.id), documentOf(to.id)];
-}
-
 export function compareRouter({ sequelize, config }: AppContext): Router {
   const router = Router();
   const signedIn = authenticate(config);
@@ -48,34 +36,31 @@ export function compareRouter({ sequelize, config }: AppContext): Router {
   // YAML text diff has its own route below, loaded when the reader opens it.
   router.get('/compare', signedIn, async (req, res) => {
     const query = parseInput(compareQuery, req.query, QUERY_MESSAGE);
-    const [from, to] = await Promise.all([
-      authorizeRevision(req, query.from, 'read', { fields: ['findings'] }),
-      authorizeRevision(req, query.to, 'read', { fields: ['findings'] }),
-    ]);
+    // Both sides, their authors, tags, the cached comparison and the newer side's club
+    // rules in one statement; the documents only on a cache miss.
+    const [from, to] = await authorizeRevisionPair(req, [query.from, query.to], 'read', (callerId, ids) =>
+      loadCompareSides(sequelize, callerId, ids),
+    );
+    const cached =
+      to.cachedResult ??
+      (await computeAndCacheComparison(
+        sequelize,
+        { from: from.contentHash, to: to.contentHash },
+        await documentsOf(sequelize, from.id, to.id),
+      ));
     // The change findings are about the newer side: its workspace's rules rank them.
-    const [authors, tags, cached, rules] = await Promise.all([
-      User.findAll({
-        where: { id: [...new Set([from.revision.authorId, to.revision.authorId])] },
-        attributes: ['id', 'name'],
-      }),
-      tagsByRevision([from.revision.id, to.revision.id]),
-      contentComparisonJson(sequelize, { from: from.revision.contentHash, to: to.revision.contentHash }, () =>
-        documentsOf(from.revision, to.revision),
+    const content = withClubRules(cached, { severities: to.ruleSeverities ?? DEFAULT_CLUB_RULES.severities });
+    const present = (side: CompareSide) => ({
+      ...presentRevisionSummary(
+        { ...side, author: side.authorName === null ? null : { id: side.authorId, name: side.authorName } },
+        side.tagNames,
       ),
-      rulesOf(to.model.workspaceId),
-    ]);
-    const content = withClubRules(cached, rules);
-    const side = (access: RevisionAccess) => {
-      access.revision.author = authors.find((user) => user.id === access.revision.authorId);
-      return {
-        ...presentRevisionSummary(access.revision, tags.get(access.revision.id) ?? []),
-        model: { id: access.model.id, name: access.model.name, workspace_id: access.model.workspaceId },
-      };
-    };
+      model: { id: side.modelId, name: side.modelName, workspace_id: side.workspaceId },
+    });
     const head = JSON.stringify({
-      from: side(from),
-      to: side(to),
-      findings_delta: findingsDelta(from.revision.findings, to.revision.findings),
+      from: present(from),
+      to: present(to),
+      findings_delta: findingsDelta(from.findings, to.findings),
     });
     // The cached part is an object's JSON text; it joins the head's object unparsed.
     res.type('application/json').send(`{"data":${head.slice(0, -1)},${content.slice(1)}}`);
@@ -84,11 +69,10 @@ export function compareRouter({ sequelize, config }: AppContext): Router {
   // The line-by-line diff of the two stored texts.
   router.get('/compare/text', signedIn, async (req, res) => {
     const query = parseInput(compareQuery, req.query, QUERY_MESSAGE);
-    const [from, to] = await Promise.all([
-      authorizeRevision(req, query.from, 'read', { fields: ['yamlText'] }),
-      authorizeRevision(req, query.to, 'read', { fields: ['yamlText'] }),
-    ]);
-    res.json({ data: textDiff(from.revision.yamlText, to.revision.yamlText) });
+    const [from, to] = await authorizeRevisionPair(req, [query.from, query.to], 'read', (callerId, ids) =>
+      loadTextSides(sequelize, callerId, ids),
+    );
+    res.json({ data: textDiff(from.yamlText, to.yamlText) });
   });
 
   return router;

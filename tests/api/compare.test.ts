@@ -97,6 +97,57 @@ describe('GET /api/compare', () => {
     ).toBe('revision-not-found');
   });
 
+  it('presents each side as the revision and model routes present them, tags and author included', async () => {
+    await editor.post(`/api/revisions/${after.id}/tags`).send({ name: 'maiden-flight' }).expect(201);
+    await editor.post(`/api/revisions/${after.id}/tags`).send({ name: 'field-ready' }).expect(201);
+    const body = (await viewer.get(`/api/compare?from=${before.id}&to=${after.id}`).expect(200)).body.data;
+    const model = (await viewer.get(`/api/models/${modelId}`).expect(200)).body.data;
+    for (const [side, id] of [
+      [body.from, before.id],
+      [body.to, after.id],
+    ] as const) {
+      const { model: sideModel, ...summary } = side;
+      expect(Object.keys(summary)).toEqual([
+        'id',
+        'model_id',
+        'number',
+        'parent_id',
+        'author',
+        'message',
+        'content_hash',
+        'error_count',
+        'warning_count',
+        'info_count',
+        'origin',
+        'source_revision_id',
+        'tags',
+        'created_at',
+      ]);
+      const revision = (await viewer.get(`/api/revisions/${id}`).expect(200)).body.data;
+      expect(summary).toEqual(Object.fromEntries(Object.keys(summary).map((key) => [key, revision[key]])));
+      expect(sideModel).toEqual({ id: model.id, name: model.name, workspace_id: roles.workspace.id });
+    }
+    expect(body.to.tags).toEqual(['field-ready', 'maiden-flight']);
+    expect(body.to.author).toEqual({ id: roles.members.editor.id, name: roles.members.editor.name });
+  });
+
+  it('answers 404 revision-not-found for a bad id, a missing revision or a stranger, on either side and either route', async () => {
+    const outsider = clientFor(t.app, t.config, roles.outsider);
+    const missing = '6f1c2a4e-0b7d-4c3e-9a51-2d8e7f604b19';
+    for (const route of ['/api/compare', '/api/compare/text']) {
+      for (const [client, from, to] of [
+        [viewer, 'nope', after.id],
+        [viewer, before.id, `${after.id}x`],
+        [viewer, missing, after.id],
+        [viewer, before.id, missing],
+        [outsider, before.id, after.id],
+      ] as const) {
+        const refused = await client.get(`${route}?from=${from}&to=${to}`).expect(404);
+        expect(refused.body.error).toMatchObject({ code: 'revision-not-found', message: 'No such revision.' });
+      }
+    }
+  });
+
   it('compares a revision with itself as no change', async () => {
     const body = (await viewer.get(`/api/compare?from=${after.id}&to=${after.id}`).expect(200)).body.data;
     expect(body.changes).toEqual([]);
