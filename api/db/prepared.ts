@@ -1,4 +1,4 @@
-import { DatabaseError, type Sequelize } from 'sequelize';
+import { DatabaseError, UniqueConstraintError, type Sequelize } from 'sequelize';
 
 // The hottest statements (the session check of every request, a save, a compare's
 // reads) skip Sequelize's query pipeline: on a pooled connection of the same pool they
@@ -37,9 +37,10 @@ export function preparedStatement(name: string, text: string): PreparedStatement
 
 /**
  * Runs the statement outside any transaction and answers its rows. Errors come as
- * Sequelize's own (ConnectionError when no connection can be had, DatabaseError for
- * what PostgreSQL refused), so the error handler tells an outage (503) from bad input
- * exactly as it does for every other statement.
+ * Sequelize's own (ConnectionError when no connection can be had, UniqueConstraintError
+ * for a unique violation, DatabaseError for anything else PostgreSQL refused), so the
+ * error handler tells an outage (503) from bad input exactly as it does for every other
+ * statement.
  */
 export async function runPrepared<Row>(
   sequelize: Sequelize,
@@ -52,7 +53,10 @@ export async function runPrepared<Row>(
     const result = await connection.query({ name: statement.name, text: statement.text, values });
     return result.rows as Row[];
   } catch (error) {
-    throw new DatabaseError(Object.assign(error as Error, { sql: statement.text, parameters: values }));
+    const failure = Object.assign(error as Error & { code?: unknown }, { sql: statement.text, parameters: values });
+    // As Sequelize's own pipeline does: a unique violation is its own error (answered 409).
+    if (failure.code === '23505') throw new UniqueConstraintError({ parent: failure, message: failure.message });
+    throw new DatabaseError(failure);
   } finally {
     manager.releaseConnection(connection);
   }

@@ -11,9 +11,31 @@ export function presentAuthor(user: User | null | undefined): Author | null {
   return user ? { id: user.id, name: user.name } : null;
 }
 
+/** What a summary reads of a revision: a Revision row, or the plain facts a save knows. */
+export type RevisionSummaryFacts = Pick<
+  Revision,
+  | 'id'
+  | 'modelId'
+  | 'number'
+  | 'parentId'
+  | 'author'
+  | 'message'
+  | 'contentHash'
+  | 'errorCount'
+  | 'warningCount'
+  | 'infoCount'
+  | 'origin'
+  | 'sourceRevisionId'
+  | 'tags'
+  | 'createdAt'
+>;
+
+/** What a save's answer reads: the summary's facts and the findings. */
+export type SavedRevisionFacts = RevisionSummaryFacts & Pick<Revision, 'findings'>;
+
 /** A revision without its text and document: for history lists and answers to saves. */
 export function presentRevisionSummary(
-  revision: Revision,
+  revision: RevisionSummaryFacts,
   tags: readonly string[] = revision.tags?.map((tag) => tag.name) ?? [],
 ): RevisionSummary {
   return {
@@ -35,7 +57,7 @@ export function presentRevisionSummary(
 }
 
 /** What a save answers: the summary and the findings the checks gave. */
-export function presentSavedRevision(revision: Revision): SavedRevision {
+export function presentSavedRevision(revision: SavedRevisionFacts): SavedRevision {
   return { ...presentRevisionSummary(revision), findings: revision.findings };
 }
 

@@ -1,7 +1,8 @@
 import { describe, expect, it } from 'vitest';
-import { DatabaseError } from 'sequelize';
+import { DatabaseError, UniqueConstraintError } from 'sequelize';
 import { preparedStatement, runPrepared } from '@api/db/prepared';
 import { describeError } from '@api/middleware/error-handler';
+import { createUser } from './helpers/factories';
 import { useTestApp } from './helpers/test-app';
 
 const harness = useTestApp();
@@ -30,5 +31,14 @@ describe('prepared statements', () => {
     expect(await runPrepared(harness.sequelize, statement, ['5d3a2c1e-0000-4000-8000-000000000001'])).toEqual([
       { id: '5d3a2c1e-0000-4000-8000-000000000001' },
     ]);
+  });
+
+  it("raises a unique violation as Sequelize's UniqueConstraintError, a 409 as through Sequelize", async () => {
+    const user = await createUser();
+    // The same row again: its id and email are taken.
+    const statement = preparedStatement('test-unique', 'INSERT INTO users SELECT * FROM users WHERE id = $1');
+    const failure = await runPrepared(harness.sequelize, statement, [user.id]).catch((error: unknown) => error);
+    expect(failure).toBeInstanceOf(UniqueConstraintError);
+    expect(describeError(failure)).toMatchObject({ status: 409, code: 'conflict' });
   });
 });
