@@ -1,4 +1,4 @@
-import { DatabaseError, UniqueConstraintError, type Sequelize } from 'sequelize';
+import { DatabaseError, UniqueConstraintError, type Sequelize, type Transaction } from 'sequelize';
 
 // The hottest statements (the session check of every request, a save, a compare's
 // reads) skip Sequelize's query pipeline: on a pooled connection of the same pool they
@@ -35,13 +35,26 @@ export function preparedStatement(name: string, text: string): PreparedStatement
   return { name, text };
 }
 
-/**
- * Runs the statement outside any transaction and answers its rows. Errors come as
- * Sequelize's own (ConnectionError when no connection can be had, UniqueConstraintError
- * for a unique violation, DatabaseError for anything else PostgreSQL refused), so the
- * error handler tells an outage (503) from bad input exactly as it does for every other
- * statement.
- */
+// Errors come as Sequelize's own (ConnectionError when no connection can be had,
+// UniqueConstraintError for a unique violation, DatabaseError for anything else
+// PostgreSQL refused), so the error handler tells an outage (503) from bad input exactly
+// as it does for every other statement.
+async function queryOn<Row>(
+  connection: PooledClient,
+  statement: PreparedStatement,
+  values: readonly unknown[],
+): Promise<Row[]> {
+  try {
+    const result = await connection.query({ name: statement.name, text: statement.text, values });
+    return result.rows as Row[];
+  } catch (error) {
+    const failure = Object.assign(error as Error & { code?: unknown }, { sql: statement.text, parameters: values });
+    if (failure.code === '23505') throw new UniqueConstraintError({ parent: failure, message: failure.message });
+    throw new DatabaseError(failure);
+  }
+}
+
+/** Runs the statement outside any transaction, on a pooled connection, and answers its rows. */
 export async function runPrepared<Row>(
   sequelize: Sequelize,
   statement: PreparedStatement,
@@ -50,14 +63,17 @@ export async function runPrepared<Row>(
   const manager = (sequelize as unknown as { connectionManager: ConnectionManager }).connectionManager;
   const connection = await manager.getConnection({ type: 'write' });
   try {
-    const result = await connection.query({ name: statement.name, text: statement.text, values });
-    return result.rows as Row[];
-  } catch (error) {
-    const failure = Object.assign(error as Error & { code?: unknown }, { sql: statement.text, parameters: values });
-    // As Sequelize's own pipeline does: a unique violation is its own error (answered 409).
-    if (failure.code === '23505') throw new UniqueConstraintError({ parent: failure, message: failure.message });
-    throw new DatabaseError(failure);
+    return await queryOn<Row>(connection, statement, values);
   } finally {
     manager.releaseConnection(connection);
   }
+}
+
+/** Runs the statement inside a Sequelize transaction, on the connection it holds. */
+export function runPreparedIn<Row>(
+  transaction: Transaction,
+  statement: PreparedStatement,
+  values: readonly unknown[],
+): Promise<Row[]> {
+  return queryOn<Row>((transaction as unknown as { connection: PooledClient }).connection, statement, values);
 }
