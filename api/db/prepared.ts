@@ -35,6 +35,10 @@ export function preparedStatement(name: string, text: string): PreparedStatement
   return { name, text };
 }
 
+const BEGIN = preparedStatement('begin', 'BEGIN');
+const COMMIT = preparedStatement('commit', 'COMMIT');
+const ROLLBACK = preparedStatement('rollback', 'ROLLBACK');
+
 // Errors come as Sequelize's own (ConnectionError when no connection can be had,
 // UniqueConstraintError for a unique violation, DatabaseError for anything else
 // PostgreSQL refused), so the error handler tells an outage (503) from bad input exactly
@@ -69,11 +73,37 @@ export async function runPrepared<Row>(
   }
 }
 
-/** Runs the statement inside a Sequelize transaction, on the connection it holds. */
-export function runPreparedIn<Row>(
-  transaction: Transaction,
-  statement: PreparedStatement,
-  values: readonly unknown[],
-): Promise<Row[]> {
-  return queryOn<Row>((transaction as unknown as { connection: PooledClient }).connection, statement, values);
+/** Runs prepared statements inside one transaction and answers their rows. */
+export type PreparedRunner = <Row>(statement: PreparedStatement, values: readonly unknown[]) => Promise<Row[]>;
+
+/** The runner for a Sequelize transaction: its statements go on the connection it holds. */
+export function preparedIn(transaction: Transaction): PreparedRunner {
+  const { connection } = transaction as unknown as { connection: PooledClient };
+  return (statement, values) => queryOn(connection, statement, values);
+}
+
+/**
+ * Runs `work` in a transaction of its own on a pooled connection, with no Sequelize
+ * transaction around it (no trip through its pipeline for BEGIN and COMMIT either): for
+ * work that is all prepared statements. Rolls back and rethrows when `work` fails.
+ */
+export async function inPreparedTransaction<T>(
+  sequelize: Sequelize,
+  work: (run: PreparedRunner) => Promise<T>,
+): Promise<T> {
+  const manager = (sequelize as unknown as { connectionManager: ConnectionManager }).connectionManager;
+  const connection = await manager.getConnection({ type: 'write' });
+  const run: PreparedRunner = (statement, values) => queryOn(connection, statement, values);
+  try {
+    await run(BEGIN, []);
+    const result = await work(run);
+    await run(COMMIT, []);
+    return result;
+  } catch (error) {
+    // A connection that cannot even roll back is broken, and the pool drops broken ones.
+    await run(ROLLBACK, []).catch(() => undefined);
+    throw error;
+  } finally {
+    manager.releaseConnection(connection);
+  }
 }

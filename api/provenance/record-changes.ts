@@ -1,6 +1,6 @@
-import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
+import { QueryTypes, type Sequelize } from 'sequelize';
 import { changedLeafPaths, leafValues } from '@shared/lineage/leaf-paths';
-import { preparedStatement, runPreparedIn } from '../db/prepared';
+import { inPreparedTransaction, preparedStatement, type PreparedRunner } from '../db/prepared';
 
 interface RevisionRow {
   id: string;
@@ -14,15 +14,19 @@ interface RevisionRow {
 const BATCH = 200;
 
 // Every save records its changes, so the recording's statements have fixed texts and run
-// as named prepared statements on the transaction's connection, past Sequelize's pipeline.
+// as named prepared statements in the caller's transaction, past Sequelize's pipeline.
 
-// The progress row, locked, with the document of the last revision recorded: what the
-// next one is compared with.
-const PROGRESS = preparedStatement(
-  'provenance-progress',
-  `SELECT p.through_number, r.document FROM provenance_progress p
-     LEFT JOIN revisions r ON r.model_id = p.model_id AND r.number = p.through_number
-    WHERE p.model_id = $1 FOR UPDATE OF p`,
+// The progress row, locked; then the document of the last revision recorded, what the
+// next one is compared with, in a statement of its own. One statement cannot do both:
+// when it waits for another recording's lock, it gets the row as that one left it but
+// reads the revisions as they were when it began, which may lack the one now recorded.
+const LOCK_PROGRESS = preparedStatement(
+  'provenance-lock-progress',
+  'SELECT through_number FROM provenance_progress WHERE model_id = $1 FOR UPDATE',
+);
+const RECORDED_DOCUMENT = preparedStatement(
+  'provenance-recorded-document',
+  'SELECT document FROM revisions WHERE model_id = $1 AND number = $2',
 );
 const NEXT_REVISIONS = preparedStatement(
   'provenance-next-revisions',
@@ -59,19 +63,16 @@ const ADVANCE_PROGRESS = preparedStatement(
  * record of who set it (itself inherited, when the source is a fork too).
  */
 async function originsInSource(
-  sequelize: Sequelize,
+  run: PreparedRunner,
   sourceRevisionId: string,
   paths: readonly string[],
-  transaction: Transaction,
 ): Promise<{ document: unknown; origins: Map<string, string> }> {
-  const [source] = await runPreparedIn<{ model_id: string; number: number; document: unknown }>(
-    transaction,
-    SOURCE_REVISION,
-    [sourceRevisionId],
-  );
+  const [source] = await run<{ model_id: string; number: number; document: unknown }>(SOURCE_REVISION, [
+    sourceRevisionId,
+  ]);
   if (!source) return { document: undefined, origins: new Map() };
-  await recordChanges(sequelize, source.model_id, transaction);
-  const rows = await runPreparedIn<{ path: string; origin: string }>(transaction, SOURCE_ORIGINS, [
+  await recordChanges(run, source.model_id);
+  const rows = await run<{ path: string; origin: string }>(SOURCE_ORIGINS, [
     [...paths],
     source.model_id,
     source.number,
@@ -88,15 +89,17 @@ async function originsInSource(
  * anyone asks (recordMissing). A value a fork or a merge brought in
  * unchanged from the source is recorded with the source revision that set it.
  */
-export async function recordChanges(sequelize: Sequelize, modelId: string, transaction: Transaction): Promise<void> {
-  const [progress] = await runPreparedIn<{ through_number: number; document: unknown }>(transaction, PROGRESS, [
-    modelId,
-  ]);
+export async function recordChanges(run: PreparedRunner, modelId: string): Promise<void> {
+  const [progress] = await run<{ through_number: number }>(LOCK_PROGRESS, [modelId]);
   let through = progress?.through_number ?? 0;
-  let previous: unknown = through > 0 ? progress?.document : undefined;
+  let previous: unknown;
+  if (through > 0) {
+    const [recorded] = await run<{ document: unknown }>(RECORDED_DOCUMENT, [modelId, through]);
+    previous = recorded?.document ?? null;
+  }
   const start = through;
   for (;;) {
-    const batch = await runPreparedIn<RevisionRow>(transaction, NEXT_REVISIONS, [modelId, through]);
+    const batch = await run<RevisionRow>(NEXT_REVISIONS, [modelId, through]);
     if (batch.length === 0) break;
     const paths: string[] = [];
     const numbers: number[] = [];
@@ -106,7 +109,7 @@ export async function recordChanges(sequelize: Sequelize, modelId: string, trans
       const changed = changedLeafPaths(previous, revision.document);
       let inherited = new Map<string, string>();
       if (revision.source_revision_id && (revision.origin === 'fork' || revision.origin === 'merge')) {
-        const source = await originsInSource(sequelize, revision.source_revision_id, changed, transaction);
+        const source = await originsInSource(run, revision.source_revision_id, changed);
         const sourceLeaves = leafValues(source.document);
         const mine = leafValues(revision.document);
         inherited = new Map([...source.origins].filter(([path]) => sourceLeaves.get(path) === mine.get(path)));
@@ -121,12 +124,12 @@ export async function recordChanges(sequelize: Sequelize, modelId: string, trans
       through = revision.number;
     }
     if (paths.length > 0) {
-      await runPreparedIn(transaction, INSERT_CHANGES, [modelId, paths, numbers, revisionIds, origins]);
+      await run(INSERT_CHANGES, [modelId, paths, numbers, revisionIds, origins]);
     }
     if (batch.length < BATCH) break;
   }
   if (through === start && progress) return;
-  await runPreparedIn(transaction, ADVANCE_PROGRESS, [modelId, through]);
+  await run(ADVANCE_PROGRESS, [modelId, through]);
 }
 
 /**
@@ -141,5 +144,5 @@ export async function recordMissing(sequelize: Sequelize, modelId: string, numbe
     { bind: { model: modelId, ...(number === undefined ? {} : { number }) }, type: QueryTypes.SELECT },
   );
   if ((state?.through ?? 0) < (state?.latest ?? 0))
-    await sequelize.transaction((transaction) => recordChanges(sequelize, modelId, transaction));
+    await inPreparedTransaction(sequelize, (run) => recordChanges(run, modelId));
 }

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { DatabaseError, UniqueConstraintError } from 'sequelize';
-import { preparedStatement, runPrepared } from '@api/db/prepared';
+import { inPreparedTransaction, preparedStatement, runPrepared } from '@api/db/prepared';
 import { describeError } from '@api/middleware/error-handler';
 import { createUser } from './helpers/factories';
 import { useTestApp } from './helpers/test-app';
@@ -40,5 +40,23 @@ describe('prepared statements', () => {
     const failure = await runPrepared(harness.sequelize, statement, [user.id]).catch((error: unknown) => error);
     expect(failure).toBeInstanceOf(UniqueConstraintError);
     expect(describeError(failure)).toMatchObject({ status: 409, code: 'conflict' });
+  });
+
+  it('commits the work of a transaction of its own, and rolls back all of it when the work fails', async () => {
+    const user = await createUser({ name: 'Before' });
+    const rename = preparedStatement('test-rename', 'UPDATE users SET name = $2 WHERE id = $1');
+    const nameOf = preparedStatement('test-name-of', 'SELECT name FROM users WHERE id = $1');
+    const failure = await inPreparedTransaction(harness.sequelize, async (run) => {
+      await run(rename, [user.id, 'Rolled back']);
+      throw new Error('the work failed');
+    }).catch((error: unknown) => error);
+    expect(failure).toEqual(new Error('the work failed'));
+    expect(await runPrepared(harness.sequelize, nameOf, [user.id])).toEqual([{ name: 'Before' }]);
+    const answer = await inPreparedTransaction(harness.sequelize, async (run) => {
+      await run(rename, [user.id, 'Committed']);
+      return run(nameOf, [user.id]);
+    });
+    expect(answer).toEqual([{ name: 'Committed' }]);
+    expect(await runPrepared(harness.sequelize, nameOf, [user.id])).toEqual([{ name: 'Committed' }]);
   });
 });
