@@ -1,11 +1,13 @@
-import { QueryTypes, type Sequelize } from 'sequelize';
+import type { Sequelize } from 'sequelize';
 import { ROLES, roleAtLeast, type Role } from '@shared/contract/roles';
 import { countFindings } from '@shared/findings';
 import { applyClubRules, type RuleSeverity } from '@shared/rules/club-rules';
+import { preparedStatement, runPrepared } from '../db/prepared';
 import { NotFound, roleTooLow } from '../errors';
-import { Revision, type User } from '../models';
+import type { User } from '../models';
 import type { RevisionOrigin } from '../models/Revision';
 import { MODEL_POLICY } from '../policies/model';
+import type { SavedRevisionFacts } from '../presenters/revision';
 import { idSchema } from '../validation';
 import type { AuditAction } from '../audit/record-audit-event';
 import { requireLatestBase } from '../revisions/check-base';
@@ -30,6 +32,15 @@ const AUDIT_FOR: Record<SaveAtOnceInput['origin'], AuditAction> = {
 // Everyone whose role may edit a model: the database function compares the caller's
 // role with this list, so the order of roles stays written once (shared/contract/roles).
 const EDITING_ROLES: readonly Role[] = ROLES.filter((role) => roleAtLeast(role, MODEL_POLICY.edit));
+
+// A fixed text, so it runs as a named prepared statement: planned once per connection
+// and sent without its text or a trip through Sequelize's query pipeline. The order of
+// the values follows the function's parameters (migration 0030).
+const SAVE_REVISION = preparedStatement(
+  'save-revision',
+  `SELECT * FROM save_revision($1, $2, $3, $4, $5, $6, $7::jsonb, $8, $9::jsonb, $10, $11, $12, $13, $14, $15,
+                               $16::jsonb, $17)`,
+);
 
 interface SaveOutcome {
   outcome: 'saved' | 'not-found' | 'role-too-low' | 'stale-base';
@@ -56,44 +67,33 @@ interface SaveOutcome {
  * (followClubRules), from the severities the function answered. The changed settings
  * (provenance) are the caller's to record once it has answered (recordChangesLater).
  */
-export async function saveRevisionAtOnce(sequelize: Sequelize, input: SaveAtOnceInput): Promise<Revision> {
-  const notFound = new NotFound('No such model.', { code: 'model-not-found' });
+export async function saveRevisionAtOnce(sequelize: Sequelize, input: SaveAtOnceInput): Promise<SavedRevisionFacts> {
+  // Made only when it is thrown: an error records its stack trace when it is built.
+  const notFound = () => new NotFound('No such model.', { code: 'model-not-found' });
   const modelId = idSchema.safeParse(input.modelId);
-  if (!modelId.success) throw notFound;
+  if (!modelId.success) throw notFound();
   const { setup, author } = input;
   const { data, findings, counts } = setup.analysis;
-  const [row] = await sequelize.query<SaveOutcome>(
-    `SELECT * FROM save_revision($modelId, $authorId, $roles, $base, $message, $yamlText, $document::jsonb, $contentHash,
-                                 $findings::jsonb, $errorCount, $warningCount, $infoCount, $origin, $airframe,
-                                 $auditAction, $auditDetails::jsonb, $modelName)`,
-    {
-      bind: {
-        modelId: modelId.data,
-        authorId: author.id,
-        roles: EDITING_ROLES,
-        base: input.base,
-        message: input.message,
-        yamlText: setup.text,
-        document: setup.documentJson,
-        contentHash: setup.contentHash,
-        findings: JSON.stringify(findings),
-        errorCount: counts.errors,
-        warningCount: counts.warnings,
-        infoCount: counts.infos,
-        origin: input.origin,
-        airframe: airframeOf(data),
-        auditAction: AUDIT_FOR[input.origin],
-        modelName: setupModelName(data),
-        auditDetails: JSON.stringify({
-          model_id: modelId.data,
-          content_hash: setup.contentHash,
-          errors: counts.errors,
-        }),
-      },
-      type: QueryTypes.SELECT,
-    },
-  );
-  if (!row || row.outcome === 'not-found' || !row.caller_role) throw notFound;
+  const [row] = await runPrepared<SaveOutcome>(sequelize, SAVE_REVISION, [
+    modelId.data,
+    author.id,
+    EDITING_ROLES,
+    input.base,
+    input.message,
+    setup.text,
+    setup.documentJson,
+    setup.contentHash,
+    JSON.stringify(findings),
+    counts.errors,
+    counts.warnings,
+    counts.infos,
+    input.origin,
+    airframeOf(data),
+    AUDIT_FOR[input.origin],
+    JSON.stringify({ model_id: modelId.data, content_hash: setup.contentHash, errors: counts.errors }),
+    setupModelName(data),
+  ]);
+  if (!row || row.outcome === 'not-found' || !row.caller_role) throw notFound();
   if (row.outcome === 'role-too-low') throw roleTooLow(MODEL_POLICY.edit, row.caller_role);
   if (row.outcome === 'stale-base')
     requireLatestBase(row.latest_id ? { id: row.latest_id, number: row.latest_number ?? 0 } : null, input.base);
@@ -102,28 +102,21 @@ export async function saveRevisionAtOnce(sequelize: Sequelize, input: SaveAtOnce
   const severities = row.club_severities ?? {};
   const ruled = Object.keys(severities).length > 0 ? applyClubRules(findings, { severities }) : findings;
   const ruledCounts = ruled === findings ? counts : countFindings(ruled);
-  // raw: a built instance that is not new ignores writes to its timestamps otherwise.
-  const revision = Revision.build(
-    {
-      id: row.revision_id,
-      modelId: modelId.data,
-      number: row.revision_number,
-      parentId: row.latest_id,
-      authorId: author.id,
-      message: input.message,
-      yamlText: setup.text,
-      document: data,
-      contentHash: setup.contentHash,
-      findings: ruled,
-      errorCount: ruledCounts.errors,
-      warningCount: ruledCounts.warnings,
-      infoCount: ruledCounts.infos,
-      origin: input.origin,
-      sourceRevisionId: null,
-      createdAt: new Date(row.revision_created_at),
-    },
-    { isNewRecord: false, raw: true },
-  );
-  revision.author = author;
-  return revision;
+  // Plain facts, not a built Revision: the answer is all that reads them.
+  return {
+    id: row.revision_id,
+    modelId: modelId.data,
+    number: row.revision_number,
+    parentId: row.latest_id,
+    author,
+    message: input.message,
+    contentHash: setup.contentHash,
+    findings: ruled,
+    errorCount: ruledCounts.errors,
+    warningCount: ruledCounts.warnings,
+    infoCount: ruledCounts.infos,
+    origin: input.origin,
+    sourceRevisionId: null,
+    createdAt: new Date(row.revision_created_at),
+  };
 }

@@ -1,4 +1,4 @@
-import { DatabaseError, type Sequelize } from 'sequelize';
+import { DatabaseError, UniqueConstraintError, type Sequelize, type Transaction } from 'sequelize';
 
 // The hottest statements (the session check of every request, a save, a compare's
 // reads) skip Sequelize's query pipeline: on a pooled connection of the same pool they
@@ -35,12 +35,30 @@ export function preparedStatement(name: string, text: string): PreparedStatement
   return { name, text };
 }
 
-/**
- * Runs the statement outside any transaction and answers its rows. Errors come as
- * Sequelize's own (ConnectionError when no connection can be had, DatabaseError for
- * what PostgreSQL refused), so the error handler tells an outage (503) from bad input
- * exactly as it does for every other statement.
- */
+const BEGIN = preparedStatement('begin', 'BEGIN');
+const COMMIT = preparedStatement('commit', 'COMMIT');
+const ROLLBACK = preparedStatement('rollback', 'ROLLBACK');
+
+// Errors come as Sequelize's own (ConnectionError when no connection can be had,
+// UniqueConstraintError for a unique violation, DatabaseError for anything else
+// PostgreSQL refused), so the error handler tells an outage (503) from bad input exactly
+// as it does for every other statement.
+async function queryOn<Row>(
+  connection: PooledClient,
+  statement: PreparedStatement,
+  values: readonly unknown[],
+): Promise<Row[]> {
+  try {
+    const result = await connection.query({ name: statement.name, text: statement.text, values });
+    return result.rows as Row[];
+  } catch (error) {
+    const failure = Object.assign(error as Error & { code?: unknown }, { sql: statement.text, parameters: values });
+    if (failure.code === '23505') throw new UniqueConstraintError({ parent: failure, message: failure.message });
+    throw new DatabaseError(failure);
+  }
+}
+
+/** Runs the statement outside any transaction, on a pooled connection, and answers its rows. */
 export async function runPrepared<Row>(
   sequelize: Sequelize,
   statement: PreparedStatement,
@@ -49,10 +67,42 @@ export async function runPrepared<Row>(
   const manager = (sequelize as unknown as { connectionManager: ConnectionManager }).connectionManager;
   const connection = await manager.getConnection({ type: 'write' });
   try {
-    const result = await connection.query({ name: statement.name, text: statement.text, values });
-    return result.rows as Row[];
+    return await queryOn<Row>(connection, statement, values);
+  } finally {
+    manager.releaseConnection(connection);
+  }
+}
+
+/** Runs prepared statements inside one transaction and answers their rows. */
+export type PreparedRunner = <Row>(statement: PreparedStatement, values: readonly unknown[]) => Promise<Row[]>;
+
+/** The runner for a Sequelize transaction: its statements go on the connection it holds. */
+export function preparedIn(transaction: Transaction): PreparedRunner {
+  const { connection } = transaction as unknown as { connection: PooledClient };
+  return (statement, values) => queryOn(connection, statement, values);
+}
+
+/**
+ * Runs `work` in a transaction of its own on a pooled connection, with no Sequelize
+ * transaction around it (no trip through its pipeline for BEGIN and COMMIT either): for
+ * work that is all prepared statements. Rolls back and rethrows when `work` fails.
+ */
+export async function inPreparedTransaction<T>(
+  sequelize: Sequelize,
+  work: (run: PreparedRunner) => Promise<T>,
+): Promise<T> {
+  const manager = (sequelize as unknown as { connectionManager: ConnectionManager }).connectionManager;
+  const connection = await manager.getConnection({ type: 'write' });
+  const run: PreparedRunner = (statement, values) => queryOn(connection, statement, values);
+  try {
+    await run(BEGIN, []);
+    const result = await work(run);
+    await run(COMMIT, []);
+    return result;
   } catch (error) {
-    throw new DatabaseError(Object.assign(error as Error, { sql: statement.text, parameters: values }));
+    // A connection that cannot even roll back is broken, and the pool drops broken ones.
+    await run(ROLLBACK, []).catch(() => undefined);
+    throw error;
   } finally {
     manager.releaseConnection(connection);
   }

@@ -12,8 +12,9 @@ export function presentAuthor(user: Pick<User, 'id' | 'name'> | null | undefined
 }
 
 /**
- * What a summary is made of: a Revision instance, or a row read under the same
- * attribute names (the compare reads its sides without Sequelize's models).
+ * What a summary is made of: a Revision instance, a row read under the same attribute
+ * names (the compare reads its sides without Sequelize's models), or the plain facts a
+ * save knows.
  */
 export type RevisionSummaryFields = Pick<
   Revision,
@@ -30,6 +31,9 @@ export type RevisionSummaryFields = Pick<
   | 'sourceRevisionId'
   | 'createdAt'
 > & { author?: Pick<User, 'id' | 'name'> | null; tags?: readonly { name: string }[] };
+
+/** What a save's answer reads: the summary's fields and the findings. */
+export type SavedRevisionFacts = RevisionSummaryFields & Pick<Revision, 'findings'>;
 
 /** A revision without its text and document: for history lists and answers to saves. */
 export function presentRevisionSummary(
@@ -55,7 +59,7 @@ export function presentRevisionSummary(
 }
 
 /** What a save answers: the summary and the findings the checks gave. */
-export function presentSavedRevision(revision: Revision): SavedRevision {
+export function presentSavedRevision(revision: SavedRevisionFacts): SavedRevision {
   return { ...presentRevisionSummary(revision), findings: revision.findings };
 }
 

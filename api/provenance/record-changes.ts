@@ -1,5 +1,6 @@
-import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
+import { QueryTypes, type Sequelize } from 'sequelize';
 import { changedLeafPaths, leafValues } from '@shared/lineage/leaf-paths';
+import { inPreparedTransaction, preparedStatement, type PreparedRunner } from '../db/prepared';
 
 interface RevisionRow {
   id: string;
@@ -12,34 +13,70 @@ interface RevisionRow {
 // Enough revisions per round trip to keep memory flat on a 10,000-revision history.
 const BATCH = 200;
 
+// Every save records its changes, so the recording's statements have fixed texts and run
+// as named prepared statements in the caller's transaction, past Sequelize's pipeline.
+
+// The progress row, locked; then the document of the last revision recorded, what the
+// next one is compared with, in a statement of its own. One statement cannot do both:
+// when it waits for another recording's lock, it gets the row as that one left it but
+// reads the revisions as they were when it began, which may lack the one now recorded.
+const LOCK_PROGRESS = preparedStatement(
+  'provenance-lock-progress',
+  'SELECT through_number FROM provenance_progress WHERE model_id = $1 FOR UPDATE',
+);
+const RECORDED_DOCUMENT = preparedStatement(
+  'provenance-recorded-document',
+  'SELECT document FROM revisions WHERE model_id = $1 AND number = $2',
+);
+const NEXT_REVISIONS = preparedStatement(
+  'provenance-next-revisions',
+  `SELECT id, number, document, origin, source_revision_id FROM revisions
+    WHERE model_id = $1 AND number > $2 ORDER BY number LIMIT ${BATCH}`,
+);
+const SOURCE_REVISION = preparedStatement(
+  'provenance-source-revision',
+  'SELECT model_id, number, document FROM revisions WHERE id = $1',
+);
+const SOURCE_ORIGINS = preparedStatement(
+  'provenance-source-origins',
+  `SELECT p.path, coalesce(c.origin_revision_id, c.revision_id) AS origin
+     FROM unnest($1::text[]) AS p(path)
+     CROSS JOIN LATERAL (SELECT revision_id, origin_revision_id FROM revision_changes c
+                          WHERE c.model_id = $2 AND c.path = p.path AND c.number <= $3
+                          ORDER BY c.number DESC LIMIT 1) AS c`,
+);
+const INSERT_CHANGES = preparedStatement(
+  'provenance-insert-changes',
+  `INSERT INTO revision_changes (model_id, path, number, revision_id, origin_revision_id)
+   SELECT $1, * FROM unnest($2::text[], $3::int[], $4::uuid[], $5::uuid[])
+   ON CONFLICT DO NOTHING`,
+);
+const ADVANCE_PROGRESS = preparedStatement(
+  'provenance-advance',
+  `INSERT INTO provenance_progress (model_id, through_number) VALUES ($1, $2)
+   ON CONFLICT (model_id) DO UPDATE
+     SET through_number = greatest(provenance_progress.through_number, excluded.through_number)`,
+);
+
 /**
  * The origin of each value a fork or a merge took from its source: the source's own
  * record of who set it (itself inherited, when the source is a fork too).
  */
 async function originsInSource(
-  sequelize: Sequelize,
+  run: PreparedRunner,
   sourceRevisionId: string,
   paths: readonly string[],
-  transaction: Transaction,
 ): Promise<{ document: unknown; origins: Map<string, string> }> {
-  const [source] = await sequelize.query<{ model_id: string; number: number; document: unknown }>(
-    'SELECT model_id, number, document FROM revisions WHERE id = $id',
-    { bind: { id: sourceRevisionId }, type: QueryTypes.SELECT, transaction },
-  );
+  const [source] = await run<{ model_id: string; number: number; document: unknown }>(SOURCE_REVISION, [
+    sourceRevisionId,
+  ]);
   if (!source) return { document: undefined, origins: new Map() };
-  await recordChanges(sequelize, source.model_id, transaction);
-  const rows = await sequelize.query<{ path: string; origin: string }>(
-    `SELECT p.path, coalesce(c.origin_revision_id, c.revision_id) AS origin
-       FROM unnest($paths::text[]) AS p(path)
-       CROSS JOIN LATERAL (SELECT revision_id, origin_revision_id FROM revision_changes c
-                            WHERE c.model_id = $model AND c.path = p.path AND c.number <= $number
-                            ORDER BY c.number DESC LIMIT 1) AS c`,
-    {
-      bind: { paths: [...paths], model: source.model_id, number: source.number },
-      type: QueryTypes.SELECT,
-      transaction,
-    },
-  );
+  await recordChanges(run, source.model_id);
+  const rows = await run<{ path: string; origin: string }>(SOURCE_ORIGINS, [
+    [...paths],
+    source.model_id,
+    source.number,
+  ]);
   return { document: source.document, origins: new Map(rows.map((row) => [row.path, row.origin])) };
 }
 
@@ -52,24 +89,17 @@ async function originsInSource(
  * anyone asks (recordMissing). A value a fork or a merge brought in
  * unchanged from the source is recorded with the source revision that set it.
  */
-export async function recordChanges(sequelize: Sequelize, modelId: string, transaction: Transaction): Promise<void> {
-  // The progress row, locked, with the document of the last revision recorded: what the
-  // next one is compared with.
-  const [progress] = await sequelize.query<{ through_number: number; document: unknown }>(
-    `SELECT p.through_number, r.document FROM provenance_progress p
-       LEFT JOIN revisions r ON r.model_id = p.model_id AND r.number = p.through_number
-      WHERE p.model_id = $model FOR UPDATE OF p`,
-    { bind: { model: modelId }, type: QueryTypes.SELECT, transaction },
-  );
+export async function recordChanges(run: PreparedRunner, modelId: string): Promise<void> {
+  const [progress] = await run<{ through_number: number }>(LOCK_PROGRESS, [modelId]);
   let through = progress?.through_number ?? 0;
-  let previous: unknown = through > 0 ? progress?.document : undefined;
+  let previous: unknown;
+  if (through > 0) {
+    const [recorded] = await run<{ document: unknown }>(RECORDED_DOCUMENT, [modelId, through]);
+    previous = recorded?.document ?? null;
+  }
   const start = through;
   for (;;) {
-    const batch = await sequelize.query<RevisionRow>(
-      `SELECT id, number, document, origin, source_revision_id FROM revisions
-        WHERE model_id = $model AND number > $through ORDER BY number LIMIT ${BATCH}`,
-      { bind: { model: modelId, through }, type: QueryTypes.SELECT, transaction },
-    );
+    const batch = await run<RevisionRow>(NEXT_REVISIONS, [modelId, through]);
     if (batch.length === 0) break;
     const paths: string[] = [];
     const numbers: number[] = [];
@@ -79,7 +109,7 @@ export async function recordChanges(sequelize: Sequelize, modelId: string, trans
       const changed = changedLeafPaths(previous, revision.document);
       let inherited = new Map<string, string>();
       if (revision.source_revision_id && (revision.origin === 'fork' || revision.origin === 'merge')) {
-        const source = await originsInSource(sequelize, revision.source_revision_id, changed, transaction);
+        const source = await originsInSource(run, revision.source_revision_id, changed);
         const sourceLeaves = leafValues(source.document);
         const mine = leafValues(revision.document);
         inherited = new Map([...source.origins].filter(([path]) => sourceLeaves.get(path) === mine.get(path)));
@@ -94,22 +124,12 @@ export async function recordChanges(sequelize: Sequelize, modelId: string, trans
       through = revision.number;
     }
     if (paths.length > 0) {
-      await sequelize.query(
-        `INSERT INTO revision_changes (model_id, path, number, revision_id, origin_revision_id)
-         SELECT $model, * FROM unnest($paths::text[], $numbers::int[], $revisionIds::uuid[], $origins::uuid[])
-         ON CONFLICT DO NOTHING`,
-        { bind: { model: modelId, paths, numbers, revisionIds, origins }, transaction },
-      );
+      await run(INSERT_CHANGES, [modelId, paths, numbers, revisionIds, origins]);
     }
     if (batch.length < BATCH) break;
   }
   if (through === start && progress) return;
-  await sequelize.query(
-    `INSERT INTO provenance_progress (model_id, through_number) VALUES ($model, $through)
-     ON CONFLICT (model_id) DO UPDATE
-       SET through_number = greatest(provenance_progress.through_number, excluded.through_number)`,
-    { bind: { model: modelId, through }, transaction },
-  );
+  await run(ADVANCE_PROGRESS, [modelId, through]);
 }
 
 /**
@@ -124,5 +144,5 @@ export async function recordMissing(sequelize: Sequelize, modelId: string, numbe
     { bind: { model: modelId, ...(number === undefined ? {} : { number }) }, type: QueryTypes.SELECT },
   );
   if ((state?.through ?? 0) < (state?.latest ?? 0))
-    await sequelize.transaction((transaction) => recordChanges(sequelize, modelId, transaction));
+    await inPreparedTransaction(sequelize, (run) => recordChanges(run, modelId));
 }

@@ -1,4 +1,5 @@
 import type { Sequelize } from 'sequelize';
+import { inPreparedTransaction } from '../db/prepared';
 import { recordChanges } from './record-changes';
 
 // The recordings still running, per database handle, so a server (or a test) can wait
@@ -15,8 +16,7 @@ const pending = new WeakMap<Sequelize, Set<Promise<void>>>();
 export function recordChangesLater(sequelize: Sequelize, modelId: string, options: { logErrors: boolean }): void {
   let running = pending.get(sequelize);
   if (!running) pending.set(sequelize, (running = new Set()));
-  const recording: Promise<void> = sequelize
-    .transaction((transaction) => recordChanges(sequelize, modelId, transaction))
+  const recording: Promise<void> = inPreparedTransaction(sequelize, (run) => recordChanges(run, modelId))
     .catch((error: unknown) => {
       if (options.logErrors) console.error('[provenance-deferred]', error);
     })

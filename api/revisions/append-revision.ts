@@ -1,4 +1,5 @@
 import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
+import { preparedIn } from '../db/prepared';
 import { auditBindings, auditInsertSql, type AuditAction } from '../audit/record-audit-event';
 import { followClubRules, Revision, type User } from '../models';
 import type { RevisionOrigin } from '../models/Revision';
@@ -99,7 +100,7 @@ export async function appendRevision(
     type: QueryTypes.SELECT,
     transaction,
   });
-  await recordChanges(sequelize, model.id, transaction);
+  await recordChanges(preparedIn(transaction), model.id);
   // raw: a built instance that is not new ignores writes to its timestamps otherwise.
   const revision = Revision.build(
     { ...values, id: row.id, createdAt: new Date(row.created_at) },

@@ -1,5 +1,6 @@
+import { createHash } from 'node:crypto';
 import { analyzeSetup, type Analysis } from '@shared/analyze';
-import { contentHashOfChecked } from '@shared/canonical/content-hash';
+import { canonicalJsonOfChecked } from '@shared/canonical/content-hash';
 import { AIRFRAMES, FORMAT_ID } from '@shared/format/schema';
 import { namesSetupFormat, SETUP_FILE_SHAPE } from '@shared/format/setup-header';
 import { MAX_TEXT_BYTES } from '@shared/parse/limits';
@@ -52,7 +53,10 @@ export function checkSetupText(text: string): CheckedSetup {
   return {
     text,
     analysis: analysis as CheckedSetup['analysis'],
-    contentHash: contentHashOfChecked(analysis.data, analysis.setup),
+    // The same SHA-256 as contentHash, by node's own implementation.
+    contentHash: createHash('sha256')
+      .update(canonicalJsonOfChecked(analysis.data, analysis.setup), 'utf8')
+      .digest('hex'),
     documentJson,
   };
 }

@@ -39,10 +39,11 @@ export function contentHash(data: unknown): string {
 }
 
 /**
- * The content hash of data the checks have already validated: `setup` is what the
+ * The canonical JSON of data the checks have already validated: `setup` is what the
  * format's schema made of `data` (null when it is not a valid setup), so the schema is
- * not run a second time. Equal to `contentHash(data)`.
+ * not run a second time. Equal to `canonicalJson(data)`; the API's save hashes it with
+ * the platform's own SHA-256, about ten times faster than the portable one here.
  */
-export function contentHashOfChecked(data: unknown, setup: Setup | null): string {
-  return sha256Hex(sortedJson(setup ?? data));
+export function canonicalJsonOfChecked(data: unknown, setup: Setup | null): string {
+  return sortedJson(setup ?? data);
 }

@@ -2,7 +2,7 @@ import fc from 'fast-check';
 import { stringify } from 'yaml';
 import { describe, expect, it } from 'vitest';
 import { analyzeSetup } from '@shared/analyze';
-import { canonicalJson, contentHash, contentHashOfChecked } from '@shared/canonical/content-hash';
+import { canonicalJson, canonicalJsonOfChecked, contentHash } from '@shared/canonical/content-hash';
 import { sha256Hex } from '@shared/canonical/sha256-hex';
 import { parseYaml } from '@shared/parse/parse-yaml';
 import { invalidFixtures, readFixture, validFixtures } from './setup-fixtures';
@@ -114,8 +114,8 @@ function shuffleKeys(value: unknown, random: () => number): unknown {
   return Object.fromEntries(entries.map(([key, item]) => [key, shuffleKeys(item, random)]));
 }
 
-describe("content hash of checked data (the save path reuses the checks' schema result)", () => {
-  it('equals the content hash for every valid and invalid fixture', () => {
+describe("canonical JSON of checked data (the save path reuses the checks' schema result)", () => {
+  it('equals the canonical JSON for every valid and invalid fixture', () => {
     const fixtures = [...validFixtures(), ...invalidFixtures()];
     expect(fixtures.length).toBeGreaterThan(20);
     let valid = 0;
@@ -123,7 +123,7 @@ describe("content hash of checked data (the save path reuses the checks' schema 
       const analysis = analyzeSetup(fixture.text);
       if (!analysis.readable) continue;
       if (analysis.setup) valid += 1;
-      expect(contentHashOfChecked(analysis.data, analysis.setup), fixture.file).toBe(contentHash(analysis.data));
+      expect(canonicalJsonOfChecked(analysis.data, analysis.setup), fixture.file).toBe(canonicalJson(analysis.data));
     }
     expect(valid).toBeGreaterThan(5);
   });
