@@ -57,11 +57,11 @@ export function compareContent(
   const left = prepared(before);
   const right = prepared(after);
   const valid = left.setup && right.setup ? ([left.setup, right.setup] as const) : null;
-  return {
-    ...diffDefaulted(left.document, right.document),
-    outputs_delta: valid ? outputsDelta(...valid) : null,
-    change_findings: valid ? changeFindings(...valid) : null,
-  };
+  // The setups first: they share entries with the documents, whose lists the diff
+  // engine rewrites (see withDefaultsAndSetup).
+  const outputs_delta = valid ? outputsDelta(...valid) : null;
+  const change_findings = valid ? changeFindings(...valid) : null;
+  return { ...diffDefaulted(left.document, right.document), outputs_delta, change_findings };
 }
 
 /** Everything the compare view shows for two revisions (of one model or of two). */

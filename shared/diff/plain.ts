@@ -21,6 +21,11 @@ export function decodeKey(key: string): string {
   return key.startsWith(MARK) ? key.slice(1) : key;
 }
 
+// The engine's objects inherit from this empty object, which has no prototype: no key
+// meets an inherited property, and unlike objects made by Object.create(null), which V8
+// keeps as hash tables, they get the fast property layout of ordinary objects.
+const BARE: object = Object.freeze(Object.create(null) as object);
+
 interface CopyOptions {
   bare: boolean;
   key: (key: string) => string;
@@ -51,9 +56,11 @@ function copy(value: unknown, options: CopyOptions, seen: Set<object>): unknown 
   seen.add(object);
   try {
     if (Array.isArray(object)) return object.map((item) => copy(item, options, seen) ?? null);
-    const result: PlainObject = options.bare ? (Object.create(null) as PlainObject) : {};
-    for (const [key, item] of Object.entries(object)) {
-      const plain = copy(item, options, seen);
+    const result: PlainObject = options.bare ? (Object.create(BARE) as PlainObject) : {};
+    const source = object as PlainObject;
+    // Keys then values rather than Object.entries: no pair array per field.
+    for (const key of Object.keys(source)) {
+      const plain = copy(source[key], options, seen);
       if (plain !== undefined) setOwn(result, options.key(key), plain);
     }
     return result;
@@ -70,6 +77,23 @@ const same = (key: string) => key;
 // `encoded` says the keys are encoded already.
 export function toBare(value: unknown, encoded = false): unknown {
   return copy(value, { bare: true, key: encoded ? same : encodeKey }, new Set());
+}
+
+/**
+ * toBare in place, for a tree the caller gives up whose values are JSON-compatible
+ * already, with encoded keys, no undefined and no object shared or met twice (such as
+ * the schema's output for a document that went through toBare): its objects take the
+ * engine's prototype instead of being copied.
+ */
+export function makeBare(value: unknown): unknown {
+  if (typeof value !== 'object' || value === null) return value;
+  if (Array.isArray(value)) {
+    for (const item of value) makeBare(item);
+    return value;
+  }
+  Object.setPrototypeOf(value, BARE);
+  for (const key of Object.keys(value)) makeBare((value as PlainObject)[key]);
+  return value;
 }
 
 /** Back from the engine's form: ordinary objects, keys as the document has them. */
