@@ -101,15 +101,24 @@ export function fromBare(value: unknown): unknown {
   return copy(value, { bare: false, key: decodeKey }, new Set());
 }
 
+// Loops rather than `every`: the identity matching runs this over every entry of
+// both revisions.
 export function deepEqual(a: unknown, b: unknown): boolean {
   if (a === b) return true;
   if (Array.isArray(a)) {
-    return Array.isArray(b) && a.length === b.length && a.every((item, index) => deepEqual(item, b[index]));
+    if (!Array.isArray(b) || a.length !== b.length) return false;
+    for (let index = 0; index < a.length; index += 1) {
+      // `every` skips holes; so does this.
+      if (!(index in a)) continue;
+      if (!deepEqual(a[index], b[index])) return false;
+    }
+    return true;
   }
   if (isPlainObject(a) && isPlainObject(b)) {
     const keysA = Object.keys(a);
     if (keysA.length !== Object.keys(b).length) return false;
-    return keysA.every((key) => Object.prototype.hasOwnProperty.call(b, key) && deepEqual(a[key], b[key]));
+    for (const key of keysA) if (!Object.hasOwn(b, key) || !deepEqual(a[key], b[key])) return false;
+    return true;
   }
   return false;
 }
