@@ -35,7 +35,7 @@ interface CopyOptions {
 // null, anything else that JSON cannot carry becomes its string form. A fresh copy
 // also means no object is shared between the two sides of a diff, which the
 // identity matching relies on.
-function copy(value: unknown, options: CopyOptions, seen: Set<object>): unknown {
+function copy(value: unknown, options: CopyOptions, seen: object[]): unknown {
   if (value === null) return null;
   switch (typeof value) {
     case 'string':
@@ -51,9 +51,11 @@ function copy(value: unknown, options: CopyOptions, seen: Set<object>): unknown 
       return undefined;
   }
   const object = value;
-  if (seen.has(object)) return null;
+  // `seen` holds the objects being copied around this one (a cycle leads back to one
+  // of them): a list, since it is a few levels deep and a set would hash every object.
+  if (seen.includes(object)) return null;
   if (object instanceof Date) return Number.isNaN(object.getTime()) ? null : object.toISOString();
-  seen.add(object);
+  seen.push(object);
   try {
     if (Array.isArray(object)) return object.map((item) => copy(item, options, seen) ?? null);
     const result: PlainObject = options.bare ? (Object.create(BARE) as PlainObject) : {};
@@ -65,7 +67,7 @@ function copy(value: unknown, options: CopyOptions, seen: Set<object>): unknown 
     }
     return result;
   } finally {
-    seen.delete(object);
+    seen.pop();
   }
 }
 
@@ -76,7 +78,7 @@ const same = (key: string) => key;
 // otherwise meet Object.prototype's function and make it throw) and encoded keys.
 // `encoded` says the keys are encoded already.
 export function toBare(value: unknown, encoded = false): unknown {
-  return copy(value, { bare: true, key: encoded ? same : encodeKey }, new Set());
+  return copy(value, { bare: true, key: encoded ? same : encodeKey }, []);
 }
 
 /**
@@ -98,7 +100,7 @@ export function makeBare(value: unknown): unknown {
 
 /** Back from the engine's form: ordinary objects, keys as the document has them. */
 export function fromBare(value: unknown): unknown {
-  return copy(value, { bare: false, key: decodeKey }, new Set());
+  return copy(value, { bare: false, key: decodeKey }, []);
 }
 
 // Loops rather than `every`: the identity matching runs this over every entry of
