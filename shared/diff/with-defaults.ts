@@ -59,8 +59,9 @@ export function withDefaults(data: unknown): PlainObject {
 /**
  * withDefaults, and the schema-valid setup its one validation found (null when the
  * document is not valid), so a compare validates each side once for the diff and the
- * bench evaluation together. The document and the setup share their entries: whoever
- * reads the setup does so before the diff engine, which rewrites the document's lists.
+ * bench evaluation together. The document and the setup share their entries (the diff
+ * engine's rewriting of the document's lists, which swaps equal entries for the very
+ * objects of the other side, leaves the setup's content as it was).
  */
 export function withDefaultsAndSetup(data: unknown): { document: PlainObject; setup: Setup | null } {
   if (!isPlainObject(data))
