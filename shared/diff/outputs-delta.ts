@@ -146,7 +146,9 @@ function* combinations(switches: Map<string, number>): Generator<Record<string, 
   }
   const position = new Array<number>(names.length).fill(0);
   for (let n = 0; n < total; n += 1) {
-    yield Object.fromEntries(names.map((name, i) => [name, position[i]]));
+    const state: Record<string, number> = {};
+    for (let i = 0; i < names.length; i += 1) state[names[i]] = position[i];
+    yield state;
     for (let i = 0; i < names.length; i += 1) {
       position[i] += 1;
       if (position[i] < sizes[i]) break;
