@@ -118,8 +118,14 @@ export function deepEqual(a: unknown, b: unknown): boolean {
   }
   if (isPlainObject(a) && isPlainObject(b)) {
     const keysA = Object.keys(a);
-    if (keysA.length !== Object.keys(b).length) return false;
-    for (const key of keysA) if (!Object.hasOwn(b, key) || !deepEqual(a[key], b[key])) return false;
+    const keysB = Object.keys(b);
+    if (keysA.length !== keysB.length) return false;
+    for (let index = 0; index < keysA.length; index += 1) {
+      const key = keysA[index];
+      // Fields in the same order (the usual case) need no lookup to be b's own.
+      if (key !== keysB[index] && !Object.hasOwn(b, key)) return false;
+      if (!deepEqual(a[key], b[key])) return false;
+    }
     return true;
   }
   return false;
