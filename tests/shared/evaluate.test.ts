@@ -90,7 +90,10 @@ describe('pulses', () => {
       .tuple(fc.integer({ min: -3000, max: 3000 }), fc.integer({ min: -2000, max: 2000 }))
       .map(([whole, ulps]) => whole + 0.5 + ulps * 2 ** -40);
     const pulses = fc.oneof(fc.double(), fc.double({ min: -3000, max: 3000 }), nearHalves);
-    fc.assert(fc.property(pulses, (pulse) => Object.is(roundPulse(pulse), byTheRule(pulse))), { numRuns: 20000 });
+    fc.assert(
+      fc.property(pulses, (pulse) => Object.is(roundPulse(pulse), byTheRule(pulse))),
+      { numRuns: 20000 },
+    );
     for (const pulse of [0, -0, 27.125, 1512.4999999999998, 1512.5000000000002, -0.5, -0.49, 2 ** 53, -Infinity, NaN])
       expect(Object.is(roundPulse(pulse), byTheRule(pulse))).toBe(true);
   });
