@@ -78,8 +78,8 @@ export function renamedControls(before: Setup, after: Setup): Map<string, string
 
 // A copy of `base` with `more` on top, to be extended further. Not `{ ...a, ...b }`
 // or `{ ...a }` plus assignments: on Node 20 a property added to a spread copy costs
-// microseconds (about 15 µs for the bench's positions, against 0.5 µs for this), and
-// the outputs search makes hundreds of positions per changed pin. Keys are control
+// microseconds (some thirty times what this costs, for the stress setup's positions),
+// and the outputs search makes hundreds of positions per changed pin. Keys are control
 // ids (slugs), so assigning them cannot meet `__proto__`.
 function extended(
   base: Readonly<Record<string, number>>,
