@@ -38,7 +38,11 @@ export function pinSources(setup: Setup, localName: (id: string) => string): Map
   const plan = new Map<number, Channel>();
   for (const channel of setup.channels) if (!plan.has(channel.ch)) plan.set(channel.ch, channel);
   const mixes = new Map<number, Mix[]>();
-  for (const mix of setup.mixes) mixes.set(mix.to, [...(mixes.get(mix.to) ?? []), mix]);
+  for (const mix of setup.mixes) {
+    const same = mixes.get(mix.to);
+    if (same) same.push(mix);
+    else mixes.set(mix.to, [mix]);
+  }
   const pins = new Map<string, PinSource>();
   for (const receiver of setup.receivers) {
     for (const entry of receiver.map) {
@@ -150,8 +154,8 @@ function sameTravel(left: Travel, right: Travel): boolean {
 }
 
 function sameCoefficients(left: Map<string, number>, right: Map<string, number>): boolean {
-  for (const key of new Set([...left.keys(), ...right.keys()]))
-    if (Math.abs((left.get(key) ?? 0) - (right.get(key) ?? 0)) > EPSILON) return false;
+  for (const [key, value] of left) if (Math.abs(value - (right.get(key) ?? 0)) > EPSILON) return false;
+  for (const [key, value] of right) if (!left.has(key) && Math.abs(value) > EPSILON) return false;
   return true;
 }
 

@@ -57,8 +57,13 @@ export function compareContent(
   const left = prepared(before);
   const right = prepared(after);
   const valid = left.setup && right.setup ? ([left.setup, right.setup] as const) : null;
+  // The diff first: the setups share their entries with the documents, and the diff
+  // engine puts into the new one's lists the old one's very objects for the entries it
+  // found equal (see diffDocuments), so the outputs search finds those pins' mixes,
+  // travels and controls equal at a glance.
+  const diff = diffDefaulted(left.document, right.document);
   return {
-    ...diffDefaulted(left.document, right.document),
+    ...diff,
     outputs_delta: valid ? outputsDelta(...valid) : null,
     change_findings: valid ? changeFindings(...valid) : null,
   };

@@ -5,8 +5,10 @@ import { isPlainObject, stableStringify } from './plain';
 // One jsondiffpatch instance for the whole program. Entries of identity-keyed lists
 // carry a token (set by matchList just before each diff) so that jsondiffpatch pairs
 // them by identity and reports order changes as moves; any other object is matched by
-// its content.
-const tokens = new WeakMap<object, string>();
+// its content. The tokens are one diff's: a table kept for the program's life would
+// collect every compared entry until the next full collection, and setting tokens in
+// it cost as much as the identity matching itself.
+let tokens = new WeakMap<object, string>();
 
 const differ = create({
   objectHash: (item: object) => tokens.get(item) ?? stableStringify(item),
@@ -27,6 +29,7 @@ export interface Matches {
 // unchanged by a save). Both documents must be fresh copies the caller gives up.
 export function diffDocuments(left: unknown, right: unknown): { delta: Delta; matches: Matches } {
   const matches: Matches = { lists: new Map(), maps: new Map() };
+  tokens = new WeakMap();
   if (isPlainObject(left) && isPlainObject(right)) {
     for (const [list, key] of Object.entries(LIST_KEYS)) {
       const a: unknown = left[list];

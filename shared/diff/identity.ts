@@ -50,10 +50,10 @@ function scalarText(value: unknown): string | undefined {
  */
 export function identityValue(item: unknown, key: string): string | undefined {
   if (!isPlainObject(item)) return undefined;
-  const fields = keyFields(key);
-  if (fields.length === 1) return scalarText(item[key]);
+  // One field (every key but `accepted`'s) without splitting the key for each entry.
+  if (!key.includes(',')) return scalarText(item[key]);
   const parts: string[] = [];
-  for (const field of fields) {
+  for (const field of keyFields(key)) {
     const value = scalarText(item[field]);
     if (value === undefined) return undefined;
     parts.push(`${field}=${value}`);
@@ -77,8 +77,12 @@ export interface ListMatch {
 }
 
 /** The path segment and short name of each entry of an identity-keyed list, in list order. */
-export function segments(items: readonly unknown[], key: string): { segments: string[]; labels: string[] } {
-  const values = items.map((item) => identityValue(item, key));
+export function segments(
+  items: readonly unknown[],
+  key: string,
+  values: readonly (string | undefined)[] = items.map((item) => identityValue(item, key)),
+): { segments: string[]; labels: string[] } {
+  const composite = keyFields(key).length > 1;
   const total = new Map<string, number>();
   for (const value of values) if (value !== undefined) total.set(value, (total.get(value) ?? 0) + 1);
   const seen = new Map<string, number>();
@@ -93,7 +97,7 @@ export function segments(items: readonly unknown[], key: string): { segments: st
     const occurrence = (seen.get(value) ?? 0) + 1;
     seen.set(value, occurrence);
     const suffix = (total.get(value) ?? 0) > 1 ? `#${occurrence}` : '';
-    result.push(keyFields(key).length > 1 ? `[${value}${suffix}]` : `[${key}=${value}${suffix}]`);
+    result.push(composite ? `[${value}${suffix}]` : `[${key}=${value}${suffix}]`);
     labels.push(`${value}${suffix}`);
   });
   return { segments: result, labels };
@@ -128,7 +132,10 @@ export function matchList(
   // 300-mix stress setup stays fast), or every free one for the key-less passes.
   const leftByKey = new Map<string, number[]>();
   leftKeys.forEach((value, index) => {
-    if (value !== undefined && leftFree.has(index)) leftByKey.set(value, [...(leftByKey.get(value) ?? []), index]);
+    if (value === undefined || !leftFree.has(index)) return;
+    const same = leftByKey.get(value);
+    if (same) same.push(index);
+    else leftByKey.set(value, [index]);
   });
   const pairWhere = (
     candidates: (j: number) => Iterable<number>,
@@ -151,6 +158,7 @@ export function matchList(
   };
   const anyFree = (): Iterable<number> => [...leftFree];
   const secondary = SECONDARY_KEYS[key];
+  const composite = keyFields(key).length > 1;
 
   pairWhere(sameKey, (i, j) => deepEqual(left[i], right[j]));
   for (const j of rightToLeft.keys()) equal.add(j);
@@ -166,7 +174,7 @@ export function matchList(
   pairWhere(
     anyFree,
     (i, j) =>
-      keyFields(key).length === 1 &&
+      !composite &&
       leftKeys[i] !== undefined &&
       rightKeys[j] !== undefined &&
       deepEqual(
@@ -185,8 +193,8 @@ export function matchList(
   for (const i of leftFree) tokens.set(left[i] as object, `${prefix}<${i}`);
   for (const j of rightFree) tokens.set(right[j] as object, `${prefix}>${j}`);
 
-  const leftNames = segments(left, key);
-  const rightNames = segments(right, key);
+  const leftNames = segments(left, key, leftKeys);
+  const rightNames = segments(right, key, rightKeys);
   return {
     key,
     leftSegments: leftNames.segments,

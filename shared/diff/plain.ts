@@ -21,6 +21,11 @@ export function decodeKey(key: string): string {
   return key.startsWith(MARK) ? key.slice(1) : key;
 }
 
+// The engine's objects inherit from this empty object, which has no prototype: no key
+// meets an inherited property, and unlike objects made by Object.create(null), which V8
+// keeps as hash tables, they get the fast property layout of ordinary objects.
+const BARE: object = Object.freeze(Object.create(null) as object);
+
 interface CopyOptions {
   bare: boolean;
   key: (key: string) => string;
@@ -30,7 +35,7 @@ interface CopyOptions {
 // null, anything else that JSON cannot carry becomes its string form. A fresh copy
 // also means no object is shared between the two sides of a diff, which the
 // identity matching relies on.
-function copy(value: unknown, options: CopyOptions, seen: Set<object>): unknown {
+function copy(value: unknown, options: CopyOptions, seen: object[]): unknown {
   if (value === null) return null;
   switch (typeof value) {
     case 'string':
@@ -46,19 +51,23 @@ function copy(value: unknown, options: CopyOptions, seen: Set<object>): unknown 
       return undefined;
   }
   const object = value;
-  if (seen.has(object)) return null;
+  // `seen` holds the objects being copied around this one (a cycle leads back to one
+  // of them): a list, since it is a few levels deep and a set would hash every object.
+  if (seen.includes(object)) return null;
   if (object instanceof Date) return Number.isNaN(object.getTime()) ? null : object.toISOString();
-  seen.add(object);
+  seen.push(object);
   try {
     if (Array.isArray(object)) return object.map((item) => copy(item, options, seen) ?? null);
-    const result: PlainObject = options.bare ? (Object.create(null) as PlainObject) : {};
-    for (const [key, item] of Object.entries(object)) {
-      const plain = copy(item, options, seen);
+    const result: PlainObject = options.bare ? (Object.create(BARE) as PlainObject) : {};
+    const source = object as PlainObject;
+    // Keys then values rather than Object.entries: no pair array per field.
+    for (const key of Object.keys(source)) {
+      const plain = copy(source[key], options, seen);
       if (plain !== undefined) setOwn(result, options.key(key), plain);
     }
     return result;
   } finally {
-    seen.delete(object);
+    seen.pop();
   }
 }
 
@@ -69,23 +78,55 @@ const same = (key: string) => key;
 // otherwise meet Object.prototype's function and make it throw) and encoded keys.
 // `encoded` says the keys are encoded already.
 export function toBare(value: unknown, encoded = false): unknown {
-  return copy(value, { bare: true, key: encoded ? same : encodeKey }, new Set());
+  return copy(value, { bare: true, key: encoded ? same : encodeKey }, []);
+}
+
+/**
+ * toBare in place, for a tree the caller gives up whose values are JSON-compatible
+ * already, with encoded keys, no undefined and no object shared or met twice (such as
+ * the schema's output for a document that went through toBare): its objects take the
+ * engine's prototype instead of being copied.
+ */
+export function makeBare(value: unknown): unknown {
+  if (typeof value !== 'object' || value === null) return value;
+  if (Array.isArray(value)) {
+    for (const item of value) makeBare(item);
+    return value;
+  }
+  Object.setPrototypeOf(value, BARE);
+  for (const key of Object.keys(value)) makeBare((value as PlainObject)[key]);
+  return value;
 }
 
 /** Back from the engine's form: ordinary objects, keys as the document has them. */
 export function fromBare(value: unknown): unknown {
-  return copy(value, { bare: false, key: decodeKey }, new Set());
+  return copy(value, { bare: false, key: decodeKey }, []);
 }
 
+// Loops rather than `every`: the identity matching runs this over every entry of
+// both revisions.
 export function deepEqual(a: unknown, b: unknown): boolean {
   if (a === b) return true;
   if (Array.isArray(a)) {
-    return Array.isArray(b) && a.length === b.length && a.every((item, index) => deepEqual(item, b[index]));
+    if (!Array.isArray(b) || a.length !== b.length) return false;
+    for (let index = 0; index < a.length; index += 1) {
+      // `every` skips holes; so does this.
+      if (!(index in a)) continue;
+      if (!deepEqual(a[index], b[index])) return false;
+    }
+    return true;
   }
   if (isPlainObject(a) && isPlainObject(b)) {
     const keysA = Object.keys(a);
-    if (keysA.length !== Object.keys(b).length) return false;
-    return keysA.every((key) => Object.prototype.hasOwnProperty.call(b, key) && deepEqual(a[key], b[key]));
+    const keysB = Object.keys(b);
+    if (keysA.length !== keysB.length) return false;
+    for (let index = 0; index < keysA.length; index += 1) {
+      const key = keysA[index];
+      // Fields in the same order (the usual case) need no lookup to be b's own.
+      if (key !== keysB[index] && !Object.hasOwn(b, key)) return false;
+      if (!deepEqual(a[key], b[key])) return false;
+    }
+    return true;
   }
   return false;
 }

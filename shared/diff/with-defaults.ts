@@ -10,7 +10,7 @@ import {
   type Setup,
 } from '../format/schema';
 import { LIST_KEYS } from './identity';
-import { isPlainObject, setOwn, toBare, type PlainObject } from './plain';
+import { isPlainObject, makeBare, setOwn, toBare, type PlainObject } from './plain';
 
 interface ObjectSchema {
   shape: Record<string, ZodType>;
@@ -59,7 +59,9 @@ export function withDefaults(data: unknown): PlainObject {
 /**
  * withDefaults, and the schema-valid setup its one validation found (null when the
  * document is not valid), so a compare validates each side once for the diff and the
- * bench evaluation together.
+ * bench evaluation together. The document and the setup share their entries (the diff
+ * engine's rewriting of the document's lists, which swaps equal entries for the very
+ * objects of the other side, leaves the setup's content as it was).
  */
 export function withDefaultsAndSetup(data: unknown): { document: PlainObject; setup: Setup | null } {
   if (!isPlainObject(data))
@@ -69,10 +71,12 @@ export function withDefaultsAndSetup(data: unknown): { document: PlainObject; se
     };
   const whole = setupSchema.safeParse(data);
   // `accepted` is the one optional list: absent, it is empty, so a first entry is
-  // reported as that entry added.
+  // reported as that entry added. The schema's output is fresh (built from `data`,
+  // which is the engine's form), so the document is made of it in place rather than
+  // copied: it shares everything below the top level with the setup.
   if (whole.success)
     return {
-      document: toBare({ ...whole.data, accepted: whole.data.accepted ?? [] }, true) as PlainObject,
+      document: makeBare({ ...whole.data, accepted: whole.data.accepted ?? [] }) as PlainObject,
       setup: whole.data,
     };
   return { document: fillEntryDefaults(data), setup: null };

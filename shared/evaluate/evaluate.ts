@@ -104,6 +104,12 @@ export function unroundedPulse(travel: Travel, value: number): number {
 
 /** Rounds a pulse to the nearest microsecond as rule 5 does. */
 export function roundPulse(pulse: number): number {
+  // clean() moves a value by at most 5e-12 of itself, so away from a half it cannot
+  // change the rounding and Math.round alone gives the same answer without the string
+  // round trip (the outputs search rounds thousands of pulses per compare). Zero goes
+  // the long way too: clean() turns -0 into 0.
+  const fromHalf = Math.abs(pulse - Math.floor(pulse) - 0.5);
+  if (pulse !== 0 && fromHalf > 1e-9 * Math.max(1, Math.abs(pulse))) return Math.round(pulse);
   return Math.round(clean(pulse));
 }
 

@@ -1,8 +1,9 @@
+import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { analyzeSetup } from '@shared/analyze';
 import { channelExtremes } from '@shared/evaluate/channel-extremes';
 import { controlsById } from '@shared/evaluate/control-value';
-import { controlValue, evaluate, idlePulse, pulseFor } from '@shared/evaluate/evaluate';
+import { controlValue, evaluate, idlePulse, pulseFor, roundPulse } from '@shared/evaluate/evaluate';
 import { expoCurve } from '@shared/evaluate/expo-curve';
 import { mixCurve } from '@shared/evaluate/mix-curve';
 import { DEFAULT_TRAVEL, setupSchema, type Setup } from '@shared/format/schema';
@@ -78,6 +79,23 @@ describe('pulses', () => {
     expect(
       channel(demo, { 'aileron-stick': 50 }, 1).pulse_us + channel(demo, { 'aileron-stick': 50 }, 6).pulse_us,
     ).toBe(3000);
+  });
+
+  it('rounding a pulse skips the 12-digit clean-up only where it cannot matter', () => {
+    // roundPulse rounds without the clean-up away from a half; it must agree with the
+    // rule as written (12 significant digits, then Math.round) everywhere, sign of
+    // zero included.
+    const byTheRule = (pulse: number) => Math.round(Number(pulse.toPrecision(12)));
+    const nearHalves = fc
+      .tuple(fc.integer({ min: -3000, max: 3000 }), fc.integer({ min: -2000, max: 2000 }))
+      .map(([whole, ulps]) => whole + 0.5 + ulps * 2 ** -40);
+    const pulses = fc.oneof(fc.double(), fc.double({ min: -3000, max: 3000 }), nearHalves);
+    fc.assert(
+      fc.property(pulses, (pulse) => Object.is(roundPulse(pulse), byTheRule(pulse))),
+      { numRuns: 20000 },
+    );
+    for (const pulse of [0, -0, 27.125, 1512.4999999999998, 1512.5000000000002, -0.5, -0.49, 2 ** 53, -Infinity, NaN])
+      expect(Object.is(roundPulse(pulse), byTheRule(pulse))).toBe(true);
   });
 
   it('an uneven travel scales each side on its own and rounds to the microsecond', () => {
