@@ -79,10 +79,22 @@ export function benchTable(report: BenchReport): string {
   return lines.join('\n');
 }
 
+// Without -s, npm writes its own "> bindery bench" lines to stdout ahead of the JSON.
+function readReport(file: string): BenchReport {
+  try {
+    return JSON.parse(readFileSync(file, 'utf8')) as BenchReport;
+  } catch (error) {
+    throw new Error(
+      `${file} is not the bench's JSON (${(error as Error).message}): write it with npm run -s bench -- --json > ${file}`,
+      { cause: error },
+    );
+  }
+}
+
 function main(): void {
   const file = process.argv[2];
-  if (!file) throw new Error('Usage: npm run bench:table -- FILE (the output of npm run bench -- --json)');
-  const report = JSON.parse(readFileSync(file, 'utf8')) as BenchReport;
+  if (!file) throw new Error('Usage: npm run bench:table -- FILE (the output of npm run -s bench -- --json)');
+  const report = readReport(file);
   if (!Array.isArray(report.figures) || report.figures.length === 0) throw new Error(`${file} holds no figures`);
   const readme = path.join(projectRoot, 'README.md');
   const text = readFileSync(readme, 'utf8');
