@@ -2,7 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { apiAs, demoModel, demoWorkspaceId } from './support/api';
 import { useBrowser, type Visit } from './support/browser';
 import { baseUrl, demoAccount } from './support/demo';
-import { waitForServiceWorker } from './support/offline';
+import { goOffline, waitForServiceWorker } from './support/offline';
 import { saveScreenshot } from './support/screenshots';
 import { signedIn } from './support/session';
 
@@ -15,6 +15,7 @@ const browser = useBrowser();
 const ids = { workspace: '', kestrel: '', pipit: '' };
 let visit: Visit;
 let keeper: Visit | null = null;
+let signal: { online(): Promise<void> } | null = null;
 
 beforeAll(async () => {
   const api = await apiAs(demoAccount('owner'));
@@ -32,7 +33,7 @@ afterAll(async () => {
 describe('offline at the field', () => {
   it('reads the hangar, the Overview, the Field sheet and a unit offline after opening them online', async () => {
     visit = await signedIn(browser(), demoAccount('owner'), 'phone');
-    const { page, context } = visit;
+    const { page } = visit;
     await waitForServiceWorker(page);
 
     await page.goto(`${baseUrl}/w/${ids.workspace}/hangar`);
@@ -44,11 +45,22 @@ describe('offline at the field', () => {
     await page.goto(`${baseUrl}/w/${ids.workspace}/shelf/${ids.pipit}`);
     await page.getByRole('heading', { name: 'Settings it holds' }).waitFor();
     expect(await page.getByText('No signal.').count()).toBe(0);
-
-    await context.setOffline(true);
     await page.goto(`${baseUrl}/models/${ids.kestrel}/overview`);
     await page.getByRole('heading', { name: 'Findings of revision 12' }).waitFor();
+
+    // The signal goes while the app is open, then the pilot taps back to the hangar: it
+    // reads from the copy saved earlier rather than waiting for a network.
+    signal = await goOffline(page);
     const banner = page.getByRole('status').filter({ hasText: 'No signal.' });
+    await page
+      .getByRole('link', { name: /hangar$/ })
+      .first()
+      .click();
+    await page.getByRole('link', { name: 'Kestrel Mk II' }).first().waitFor();
+    await banner.waitFor();
+
+    await page.goto(`${baseUrl}/models/${ids.kestrel}/overview`);
+    await page.getByRole('heading', { name: 'Findings of revision 12' }).waitFor();
     await banner.waitFor();
     expect(await banner.innerText()).toMatch(/what this device saved on \d{1,2} \w+ (at )?\d{2}:\d{2}/);
     await saveScreenshot(page, 'offline-overview-phone');
@@ -77,7 +89,7 @@ describe('offline at the field', () => {
     expect(await notes.inputValue()).toBe(typed);
     await saveScreenshot(page, 'offline-write-phone');
 
-    await visit.context.setOffline(false);
+    await signal!.online();
     await page.getByRole('button', { name: 'Save the record' }).click();
     await page.getByRole('dialog').waitFor({ state: 'detached' });
     await page.getByText(typed).first().waitFor();
@@ -98,13 +110,13 @@ describe('offline at the field', () => {
     expect(approved).toBeLessThan(sedge.latest!.number);
 
     keeper = await signedIn(browser(), demoAccount('owner'), 'phone');
-    const { page, context } = keeper;
+    const { page } = keeper;
     await waitForServiceWorker(page);
     await page.goto(`${baseUrl}/models/${sedge.id}/history`);
     await page.getByRole('button', { name: 'Keep for the field' }).click();
     await page.getByText(`Kept for the field on this device: revision ${approved}, saved`).waitFor();
 
-    await context.setOffline(true);
+    const away = await goOffline(page);
     await page.reload();
     await page.getByRole('link', { name: 'Its field sheet' }).click();
     await page.locator('.field-sheet').waitFor();
@@ -113,6 +125,6 @@ describe('offline at the field', () => {
     expect(sheet).toContain('Review Approved');
     await page.getByRole('link', { name: 'Overview' }).click();
     await page.getByRole('heading', { name: `Findings of revision ${sedge.latest!.number}` }).waitFor();
-    await context.setOffline(false);
+    await away.online();
   });
 });

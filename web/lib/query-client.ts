@@ -14,8 +14,14 @@ export function createQueryClient(): QueryClient {
         }
       },
     }),
+    // 'always': without a signal a read is still asked, since the service worker answers
+    // it from the copy this device saved (or it fails with the offline message), and a
+    // write is sent and refused at once with the message that it needs the network. The
+    // default ('online') holds both back from the moment the browser says the signal
+    // went, so a screen opened at the field waited for ever on a copy it had.
     defaultOptions: {
       queries: {
+        networkMode: 'always',
         staleTime: 30_000,
         refetchOnWindowFocus: false,
         // A 4xx answer will not change by asking again; a dropped connection might.
@@ -24,7 +30,7 @@ export function createQueryClient(): QueryClient {
           return failureCount < 2;
         },
       },
-      mutations: { retry: false },
+      mutations: { retry: false, networkMode: 'always' },
     },
   });
   return client;
