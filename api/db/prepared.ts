@@ -58,19 +58,27 @@ async function queryOn<Row>(
   }
 }
 
+/** Lends `use` a connection of Sequelize's own pool, given back however `use` ends. */
+async function withPooledConnection<T>(
+  sequelize: Sequelize,
+  use: (connection: PooledClient) => Promise<T>,
+): Promise<T> {
+  const manager = (sequelize as unknown as { connectionManager: ConnectionManager }).connectionManager;
+  const connection = await manager.getConnection({ type: 'write' });
+  try {
+    return await use(connection);
+  } finally {
+    manager.releaseConnection(connection);
+  }
+}
+
 /** Runs the statement outside any transaction, on a pooled connection, and answers its rows. */
-export async function runPrepared<Row>(
+export function runPrepared<Row>(
   sequelize: Sequelize,
   statement: PreparedStatement,
   values: readonly unknown[],
 ): Promise<Row[]> {
-  const manager = (sequelize as unknown as { connectionManager: ConnectionManager }).connectionManager;
-  const connection = await manager.getConnection({ type: 'write' });
-  try {
-    return await queryOn<Row>(connection, statement, values);
-  } finally {
-    manager.releaseConnection(connection);
-  }
+  return withPooledConnection(sequelize, (connection) => queryOn<Row>(connection, statement, values));
 }
 
 /** Runs prepared statements inside one transaction and answers their rows. */
@@ -87,23 +95,18 @@ export function preparedIn(transaction: Transaction): PreparedRunner {
  * transaction around it (no trip through its pipeline for BEGIN and COMMIT either): for
  * work that is all prepared statements. Rolls back and rethrows when `work` fails.
  */
-export async function inPreparedTransaction<T>(
-  sequelize: Sequelize,
-  work: (run: PreparedRunner) => Promise<T>,
-): Promise<T> {
-  const manager = (sequelize as unknown as { connectionManager: ConnectionManager }).connectionManager;
-  const connection = await manager.getConnection({ type: 'write' });
-  const run: PreparedRunner = (statement, values) => queryOn(connection, statement, values);
-  try {
-    await run(BEGIN, []);
-    const result = await work(run);
-    await run(COMMIT, []);
-    return result;
-  } catch (error) {
-    // A connection that cannot even roll back is broken, and the pool drops broken ones.
-    await run(ROLLBACK, []).catch(() => undefined);
-    throw error;
-  } finally {
-    manager.releaseConnection(connection);
-  }
+export function inPreparedTransaction<T>(sequelize: Sequelize, work: (run: PreparedRunner) => Promise<T>): Promise<T> {
+  return withPooledConnection(sequelize, async (connection) => {
+    const run: PreparedRunner = (statement, values) => queryOn(connection, statement, values);
+    try {
+      await run(BEGIN, []);
+      const result = await work(run);
+      await run(COMMIT, []);
+      return result;
+    } catch (error) {
+      // A connection that cannot even roll back is broken, and the pool drops broken ones.
+      await run(ROLLBACK, []).catch(() => undefined);
+      throw error;
+    }
+  });
 }

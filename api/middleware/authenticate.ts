@@ -52,11 +52,13 @@ export function authenticate(config: AppConfig): RequestHandler {
 // names, so the row builds a User as it is.
 let sessionStatement: PreparedStatement | null = null;
 
+// Built on the first request, once the models are bound, and kept.
 function sessionUserStatement(): PreparedStatement {
+  if (sessionStatement) return sessionStatement;
   const columns = Object.entries(User.getAttributes())
     .map(([attribute, { field }]) => `u.${field ?? attribute} AS "${attribute}"`)
     .join(', ');
-  sessionStatement ??= preparedStatement(
+  sessionStatement = preparedStatement(
     'session-user',
     `SELECT ${columns}, EXISTS (SELECT 1 FROM revoked_sessions WHERE jti = $2) AS "sessionRevoked"
        FROM users u WHERE u.id = $1`,
